@@ -1,0 +1,101 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "lamina-core"
+
+#include "lamina-calc-private.h"
+
+#include <math.h>
+
+G_DEFINE_BOXED_TYPE (LaminaResult, lamina_result, lamina_result_copy, lamina_result_free)
+
+static void
+warning_free (gpointer data)
+{
+  LaminaWarning *warning = data;
+
+  g_free (warning->message);
+  g_free (warning);
+}
+
+static gpointer
+warning_copy (gconstpointer src,
+              gpointer      user_data)
+{
+  const LaminaWarning *warning = src;
+  LaminaWarning *copy = g_memdup2 (warning, sizeof *warning);
+
+  copy->message = g_strdup (warning->message);
+  return copy;
+}
+
+LaminaResult *
+lamina_result_copy (const LaminaResult *result)
+{
+  LaminaResult *copy;
+
+  g_return_val_if_fail (result != NULL, NULL);
+
+  copy = g_memdup2 (result, sizeof *result);
+  copy->layers = g_memdup2 (result->layers, sizeof (LaminaLayerResult) * result->n_layers);
+  copy->warnings = g_ptr_array_copy (result->warnings, warning_copy, NULL);
+  g_ptr_array_set_free_func (copy->warnings, warning_free);
+  return copy;
+}
+
+void
+lamina_result_free (LaminaResult *result)
+{
+  if (result == NULL)
+    return;
+  g_free (result->layers);
+  g_ptr_array_unref (result->warnings);
+  g_free (result);
+}
+
+gboolean
+lamina_result_has_warning (const LaminaResult *result,
+                           LaminaWarningKind   kind)
+{
+  for (guint i = 0; i < result->warnings->len; i++)
+    if (((LaminaWarning *) result->warnings->pdata[i])->kind == kind)
+      return TRUE;
+  return FALSE;
+}
+
+LaminaResult *
+lamina_result_new (guint n_layers)
+{
+  LaminaResult *result = g_new0 (LaminaResult, 1);
+
+  result->n_layers = n_layers;
+  result->layers = g_new0 (LaminaLayerResult, n_layers);
+  result->warnings = g_ptr_array_new_with_free_func (warning_free);
+  return result;
+}
+
+double
+lamina_round_significant (double value,
+                          int    digits)
+{
+  double magnitude, factor;
+
+  if (value == 0 || !isfinite (value))
+    return value;
+  magnitude = floor (log10 (fabs (value)));
+  factor = pow (10.0, digits - 1 - magnitude);
+  return round (value * factor) / factor;
+}
+
+/* Takes ownership of @message. */
+void
+lamina_result_add_warning (LaminaResult      *result,
+                           LaminaWarningKind  kind,
+                           int                layer,
+                           char              *message)
+{
+  LaminaWarning *warning = g_new0 (LaminaWarning, 1);
+
+  warning->kind = kind;
+  warning->layer = layer;
+  warning->message = message;
+  g_ptr_array_add (result->warnings, warning);
+}

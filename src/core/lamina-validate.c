@@ -1,0 +1,324 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Validation of a construction before it is calculated or stored.  Every
+ * message names the layer (1-based, from the inner surface), the part and
+ * the field, with the allowed range. */
+#define G_LOG_DOMAIN "lamina-core"
+
+#include "lamina-construction.h"
+#include "lamina-error.h"
+
+#include <glib/gi18n-lib.h>
+#include <math.h>
+
+G_DEFINE_QUARK (lamina-calc-error-quark, lamina_calc_error)
+
+#define MAX_LAYERS 200
+#define MAX_PARTS  32
+#define FRACTION_TOLERANCE 1e-6
+
+typedef struct
+{
+  int     *line;
+  GError **error;
+} Check;
+
+static gboolean
+fail (Check      *check,
+      int         line,
+      const char *format,
+      ...) G_GNUC_PRINTF (3, 4);
+
+static gboolean
+fail (Check      *check,
+      int         line,
+      const char *format,
+      ...)
+{
+  va_list args;
+  g_autofree char *message = NULL;
+
+  va_start (args, format);
+  message = g_strdup_vprintf (format, args);
+  va_end (args);
+  if (check->line != NULL)
+    *check->line = line;
+  g_set_error_literal (check->error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_INVALID, message);
+  return FALSE;
+}
+
+/* TRUE when @value is finite and within [min, max] (or (min, max] when
+ * @open_min). */
+static gboolean
+in_range (double   value,
+          double   min,
+          double   max,
+          gboolean open_min)
+{
+  if (!isfinite (value))
+    return FALSE;
+  if (open_min ? value <= min : value < min)
+    return FALSE;
+  return value <= max;
+}
+
+static gboolean
+check_range (Check      *check,
+             int         line,
+             const char *where,
+             const char *field,
+             double      value,
+             double      min,
+             double      max,
+             gboolean    open_min,
+             const char *unit)
+{
+  if (in_range (value, min, max, open_min))
+    return TRUE;
+  return fail (check, line, _("%s: %s %g is outside the allowed range %s%g to %g%s%s"),
+               where, field, value, open_min ? _("above ") : "", min, max,
+               unit[0] ? " " : "", unit);
+}
+
+static gboolean
+check_material (Check                *check,
+                int                   line,
+                const char           *where,
+                const LaminaMaterial *material)
+{
+  if (material == NULL)
+    return fail (check, line, _("%s: no material"), where);
+  return check_range (check, line, where, _("thermal conductivity"),
+                      material->conductivity, 0, 1000, TRUE, "W/(m·K)");
+}
+
+static gboolean
+check_part (Check             *check,
+            const LaminaLayer *layer,
+            const char        *where,
+            const LaminaPart  *part)
+{
+  gboolean has_fraction = !isnan (part->fraction);
+  gboolean has_width = !isnan (part->width);
+  gboolean has_spacing = !isnan (part->spacing);
+
+  if (!lamina_part_is_air (part) && !check_material (check, part->line, where, part->material))
+    return FALSE;
+  if (has_fraction && (has_width || has_spacing))
+    return fail (check, part->line, _("%s: give either a fraction or width and spacing, not both"), where);
+  if (has_width != has_spacing)
+    return fail (check, part->line, _("%s: width and spacing go together"), where);
+  if (has_fraction)
+    return check_range (check, part->line, where, _("fraction"), part->fraction, 0, 1, TRUE, "");
+  if (has_width)
+    {
+      if (!check_range (check, part->line, where, _("spacing"), part->spacing, 0, 100000, TRUE, "mm")
+          || !check_range (check, part->line, where, _("width"), part->width, 0, part->spacing, TRUE, "mm"))
+        return FALSE;
+    }
+  (void) layer;
+  return TRUE;
+}
+
+static gboolean
+check_parts (Check             *check,
+             const LaminaLayer *layer,
+             const char        *where)
+{
+  double sum = 0.0;
+  int n_rest = 0, n_unnamed = 0, n_named = 0;
+  g_autoptr(GHashTable) members = g_hash_table_new (g_str_hash, g_str_equal);
+
+  if (layer->parts == NULL || layer->parts->len == 0)
+    return fail (check, layer->line, _("%s: a bridged layer needs at least one part"), where);
+  if (layer->parts->len > MAX_PARTS)
+    return fail (check, layer->line, _("%s: more than %d parts"), where, MAX_PARTS);
+
+  for (guint p = 0; p < layer->parts->len; p++)
+    {
+      const LaminaPart *part = layer->parts->pdata[p];
+      g_autofree char *part_where = g_strdup_printf (_("%s, part %u"), where, p + 1);
+      double f;
+
+      if (!check_part (check, layer, part_where, part))
+        return FALSE;
+      f = lamina_part_get_given_fraction (part);
+      if (isnan (f))
+        n_rest++;
+      else
+        sum += f;
+      if (part->member == NULL)
+        n_unnamed++;
+      else if (!g_hash_table_add (members, part->member))
+        return fail (check, part->line, _("%s: member “%s” appears twice in this layer"),
+                     part_where, part->member);
+      else
+        n_named++;
+    }
+  if (n_rest > 1)
+    return fail (check, layer->line, _("%s: only one part may leave its fraction out (the remainder)"), where);
+  if (n_named > 0 && n_unnamed > 1)
+    return fail (check, layer->line,
+                 _("%s: a layer with framing members may have only one part without a member (the infill)"),
+                 where);
+  if (n_rest == 1 && sum >= 1.0 - FRACTION_TOLERANCE)
+    return fail (check, layer->line,
+                 _("%s: the part fractions sum to %g, leaving nothing for the remainder part"), where, sum);
+  if (n_rest == 0 && fabs (sum - 1.0) > FRACTION_TOLERANCE)
+    return fail (check, layer->line,
+                 _("%s: the part fractions sum to %g, not 1 (leave one part's fraction out to take the remainder)"),
+                 where, sum);
+  return TRUE;
+}
+
+static gboolean
+check_corrections (Check             *check,
+                   const LaminaLayer *layer,
+                   const char        *where)
+{
+  const LaminaCorrections *k = &layer->corrections;
+
+  if (k->has_air_gaps && (k->air_gap_level < 0 || k->air_gap_level > 2))
+    return fail (check, layer->line, _("%s: air gap level %d is not 0, 1 or 2"), where, k->air_gap_level);
+  if (k->has_fasteners)
+    {
+      if (!check_range (check, layer->line, where, _("fastener conductivity"),
+                        k->fastener_conductivity, 0, 1000, TRUE, "W/(m·K)")
+          || !check_range (check, layer->line, where, _("fastener cross-section"),
+                           k->fastener_cross_section, 0, 10000, TRUE, "mm²")
+          || !check_range (check, layer->line, where, _("fasteners per square metre"),
+                           k->fasteners_per_square_metre, 0, 1000, TRUE, "1/m²"))
+        return FALSE;
+      if (!isnan (k->fastener_penetration)
+          && !check_range (check, layer->line, where, _("fastener penetration"),
+                           k->fastener_penetration, 0, layer->thickness, TRUE, "mm"))
+        return FALSE;
+    }
+  if (k->has_inverted_roof)
+    {
+      if (!check_range (check, layer->line, where, _("precipitation"),
+                        k->precipitation, 0, 100, FALSE, "mm/day")
+          || !check_range (check, layer->line, where, _("drainage factor"),
+                           k->drainage_factor, 0, 1, FALSE, ""))
+        return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+check_layer (Check             *check,
+             const LaminaLayer *layer,
+             guint              number)
+{
+  g_autofree char *where = g_strdup_printf (_("layer %u"), number);
+
+  if (!check_range (check, layer->line, where, _("thickness"), layer->thickness, 0, 10000, TRUE, "mm"))
+    return FALSE;
+  switch (layer->kind)
+    {
+    case LAMINA_LAYER_MATERIAL:
+      if (!check_material (check, layer->line, where, layer->material))
+        return FALSE;
+      break;
+    case LAMINA_LAYER_RESISTANCE:
+      if (!check_range (check, layer->line, where, _("thermal resistance"),
+                        layer->resistance, 0, 100, FALSE, "m²·K/W"))
+        return FALSE;
+      break;
+    case LAMINA_LAYER_AIR:
+      if ((guint) layer->air >= LAMINA_N_AIR_KINDS)
+        return fail (check, layer->line, _("%s: unknown air layer ventilation"), where);
+      if (!check_range (check, layer->line, where, _("inner emissivity"),
+                        layer->emissivity_inner, 0, 1, TRUE, "")
+          || !check_range (check, layer->line, where, _("outer emissivity"),
+                           layer->emissivity_outer, 0, 1, TRUE, ""))
+        return FALSE;
+      if (!isnan (layer->vent_area)
+          && !check_range (check, layer->line, where, _("vent area"),
+                           layer->vent_area, 0, 1e6, FALSE, "mm²"))
+        return FALSE;
+      if (layer->air == LAMINA_AIR_SLIGHTLY_VENTILATED && isnan (layer->vent_area))
+        return fail (check, layer->line, _("%s: a slightly ventilated air layer needs its vent area"), where);
+      break;
+    case LAMINA_LAYER_BRIDGED:
+      if (!check_parts (check, layer, where))
+        return FALSE;
+      break;
+    case LAMINA_N_LAYER_KINDS:
+    default:
+      return fail (check, layer->line, _("%s: unknown kind of layer"), where);
+    }
+  return check_corrections (check, layer, where);
+}
+
+/* A framing member that runs through several layers must have the same
+ * width fraction in each (it is the same stud). */
+static gboolean
+check_members (Check                    *check,
+               const LaminaConstruction *c)
+{
+  g_autoptr(GHashTable) seen = g_hash_table_new_full (g_str_hash, g_str_equal, NULL, g_free);
+
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+
+      if (layer->kind != LAMINA_LAYER_BRIDGED)
+        continue;
+      for (guint p = 0; p < layer->parts->len; p++)
+        {
+          const LaminaPart *part = layer->parts->pdata[p];
+          double f = lamina_layer_get_part_fraction (layer, p);
+          double *known;
+
+          if (part->member == NULL)
+            continue;
+          known = g_hash_table_lookup (seen, part->member);
+          if (known == NULL)
+            {
+              known = g_new (double, 1);
+              *known = f;
+              g_hash_table_insert (seen, part->member, known);
+            }
+          else if (fabs (*known - f) > FRACTION_TOLERANCE)
+            return fail (check, part->line,
+                         _("layer %u, part %u: member “%s” covers a fraction %g here but %g in an earlier layer; "
+                           "a member that runs through several layers must line up"),
+                         i + 1, p + 1, part->member, f, *known);
+        }
+    }
+  return TRUE;
+}
+
+gboolean
+lamina_construction_validate (const LaminaConstruction *construction,
+                              int                      *line,
+                              GError                  **error)
+{
+  const LaminaConstruction *c = construction;
+  Check check = { line, error };
+
+  g_return_val_if_fail (c != NULL, FALSE);
+
+  if (line != NULL)
+    *line = 0;
+  if (c->layers->len == 0)
+    return fail (&check, c->line, _("construction “%s”: no layers"), c->id ? c->id : "");
+  if (c->layers->len > MAX_LAYERS)
+    return fail (&check, c->line, _("construction “%s”: more than %d layers"), c->id ? c->id : "", MAX_LAYERS);
+  if ((guint) c->element >= LAMINA_N_ELEMENTS || (guint) c->heat_flow >= LAMINA_N_HEAT_FLOWS
+      || (guint) c->outer_side >= LAMINA_N_OUTER_SIDES)
+    return fail (&check, c->line, _("construction “%s”: unknown element, heat flow or outer side"),
+                 c->id ? c->id : "");
+  if (!check_range (&check, c->line, _("construction"), _("inside temperature"),
+                    c->inside_temperature, -60, 60, FALSE, "°C")
+      || !check_range (&check, c->line, _("construction"), _("outside temperature"),
+                       c->outside_temperature, -60, 60, FALSE, "°C"))
+    return FALSE;
+  if (!isnan (c->target_u)
+      && !check_range (&check, c->line, _("construction"), _("target U"), c->target_u, 0, 10, TRUE, "W/(m²·K)"))
+    return FALSE;
+  for (guint i = 0; i < c->layers->len; i++)
+    if (!check_layer (&check, c->layers->pdata[i], i + 1))
+      return FALSE;
+  return check_members (&check, c);
+}
