@@ -1,0 +1,359 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-library.h: the office library of materials and constructions.
+ *
+ * The rest of the program sees only this interface: no SQLite type leaves
+ * src/store.  Behind it sits a backend (today one SQLite file; a server
+ * backend for offices sharing one library can be added behind the same
+ * calls, see lamina-library-backend.h).
+ *
+ * Revisions.  Every saved change makes a new revision of a construction;
+ * the history is kept.  A revision is draft, checked (by a named person)
+ * or approved (by a named person, with date).  An approved revision never
+ * changes: saving over it starts a new draft revision and the approved one
+ * stays readable with lamina_library_get_construction (…, revision, …).
+ * Each layer keeps the material data it was calculated with; when a
+ * library material changes later, the constructions using it are flagged
+ * (LAMINA_SUMMARY_MATERIAL_CHANGED) and nothing changes under them until
+ * the user asks (lamina_library_update_materials).
+ *
+ * Concurrency.  Several processes may open one library.  A save states the
+ * revision it was based on; if someone else saved in between, the save is
+ * refused with LAMINA_LIBRARY_ERROR_STALE and nothing is written.
+ *
+ * Threads: a LaminaLibrary is used from one thread at a time. */
+#pragma once
+
+#include <glib-object.h>
+
+#include "lamina-calc.h"
+#include "lamina-construction.h"
+#include "lamina-material.h"
+#include "exchange/lamina-catalogue.h"
+
+G_BEGIN_DECLS
+
+#define LAMINA_LIBRARY_ERROR (lamina_library_error_quark ())
+
+typedef enum
+{
+  LAMINA_LIBRARY_ERROR_IO,            /* cannot open, create or copy the file */
+  LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY, /* some other file, or another program's SQLite */
+  LAMINA_LIBRARY_ERROR_TOO_NEW,       /* written by a newer Lamina: schema unknown */
+  LAMINA_LIBRARY_ERROR_CORRUPT,       /* damaged file (integrity check failed) */
+  LAMINA_LIBRARY_ERROR_NOT_FOUND,     /* no such construction, revision or material */
+  LAMINA_LIBRARY_ERROR_EXISTS,        /* create with an id that is taken */
+  LAMINA_LIBRARY_ERROR_STALE,         /* someone saved a newer revision meanwhile */
+  LAMINA_LIBRARY_ERROR_IMMUTABLE,     /* the revision is approved, or not the latest */
+  LAMINA_LIBRARY_ERROR_INVALID,       /* a value breaks a rule (message names the field) */
+  LAMINA_LIBRARY_ERROR_BUSY,          /* locked by another process beyond the timeout */
+  LAMINA_LIBRARY_ERROR_READ_ONLY,     /* file or medium not writable */
+  LAMINA_LIBRARY_ERROR_FAILED,        /* anything else the backend reports */
+} LaminaLibraryError;
+
+GQuark lamina_library_error_quark (void);
+
+/* The schema version this build writes (PRAGMA user_version). */
+#define LAMINA_LIBRARY_SCHEMA_VERSION 2
+
+typedef enum
+{
+  LAMINA_LIBRARY_OPEN_DEFAULT  = 0,      /* create if missing, seed materials */
+  LAMINA_LIBRARY_OPEN_EXISTING = 1 << 0, /* fail with IO if the file is missing */
+  LAMINA_LIBRARY_OPEN_NO_SEED  = 1 << 1, /* a new library starts without materials */
+} LaminaLibraryOpenFlags;
+
+#define LAMINA_TYPE_LIBRARY (lamina_library_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaLibrary, lamina_library, LAMINA, LIBRARY, GObject)
+
+/* g_get_user_data_dir()/lamina/library.sqlite */
+char          *lamina_library_dup_default_path (void);
+
+/* @path NULL opens the default library (creating its folder).  Fails
+ * without touching the file if it is not a Lamina library, is newer than
+ * this build or is corrupt.  An older library is migrated; a copy of it is
+ * kept first (lamina_library_get_backup_path). */
+LaminaLibrary *lamina_library_open         (const char             *path,
+                                            LaminaLibraryOpenFlags  flags,
+                                            GError                **error);
+/* Closes the file now (also done on finalize); later calls fail. */
+void           lamina_library_close        (LaminaLibrary          *self);
+const char    *lamina_library_get_path     (LaminaLibrary          *self);
+/* The copy kept before a migration in this open, or NULL. */
+const char    *lamina_library_get_backup_path (LaminaLibrary       *self);
+/* The schema version the file had when opened (before any migration). */
+int            lamina_library_get_opened_version (LaminaLibrary    *self);
+
+/* The "changed" signal is emitted after every write through @self, and by
+ * lamina_library_check_for_changes when another process or connection
+ * wrote to the file (cheap: call it from a timeout or on focus). */
+gboolean       lamina_library_check_for_changes (LaminaLibrary     *self);
+
+/* ---- Materials ------------------------------------------------------- */
+
+/* LaminaMaterial*, sorted by category then name. */
+GPtrArray     *lamina_library_list_materials (LaminaLibrary        *self,
+                                              GError              **error);
+LaminaMaterial *lamina_library_get_material  (LaminaLibrary        *self,
+                                              const char           *id,
+                                              GError              **error);
+/* Adds or replaces the material with @material->id (a NULL id gets a new
+ * one, written back into @material).  Constructions whose layers hold
+ * different data for it become flagged; they are not changed. */
+gboolean       lamina_library_put_material   (LaminaLibrary        *self,
+                                              LaminaMaterial       *material,
+                                              GError              **error);
+/* Layers keep their own copies, so removing a material changes no
+ * construction. */
+gboolean       lamina_library_delete_material (LaminaLibrary       *self,
+                                               const char          *id,
+                                               GError             **error);
+
+/* ---- Constructions --------------------------------------------------- */
+
+/* @revision 0 = the latest.  The result carries status, revision and the
+ * review data of that revision.  A deleted construction is NOT_FOUND. */
+LaminaConstruction *lamina_library_get_construction (LaminaLibrary *self,
+                                                     const char    *id,
+                                                     int            revision,
+                                                     GError       **error);
+/* The figures stored with a revision (0 = latest), as lamina_calculate
+ * gave them at save time; NULL with NOT_FOUND, or when the construction
+ * could not be calculated (an INVALID error naming why). */
+LaminaResult  *lamina_library_get_result   (LaminaLibrary          *self,
+                                            const char             *id,
+                                            int                     revision,
+                                            GError                **error);
+
+/* Stores @construction (its id must exist) as a new draft revision on top
+ * of @base_revision.  Refused with STALE if the latest revision is not
+ * @base_revision.  Saving unchanged content is a no-op that succeeds.  On
+ * success @construction's revision, status and review fields are updated.
+ * @author NULL = the user's name. */
+gboolean       lamina_library_save_construction (LaminaLibrary      *self,
+                                                 LaminaConstruction *construction,
+                                                 int                 base_revision,
+                                                 const char         *author,
+                                                 GError            **error);
+/* Stores a new construction as revision 1 (draft).  A NULL id gets a new
+ * one; returns the id (also written into @construction). */
+char          *lamina_library_create_construction (LaminaLibrary      *self,
+                                                   LaminaConstruction *construction,
+                                                   const char         *author,
+                                                   GError            **error);
+/* Copies the latest revision of @id to a new construction (draft,
+ * revision 1, name "… (copy)", no code); returns the new id. */
+char          *lamina_library_derive_construction (LaminaLibrary *self,
+                                                   const char    *id,
+                                                   const char    *author,
+                                                   GError       **error);
+/* Deleting hides a construction and keeps its history; restoring brings
+ * it back as it was (the window's undo). */
+gboolean       lamina_library_delete_construction  (LaminaLibrary *self,
+                                                    const char    *id,
+                                                    const char    *author,
+                                                    GError       **error);
+gboolean       lamina_library_restore_construction (LaminaLibrary *self,
+                                                    const char    *id,
+                                                    GError       **error);
+
+/* One revision in a construction's history. */
+typedef struct
+{
+  int           revision;
+  LaminaStatus  status;
+  char         *modified_by;
+  char         *modified_at;   /* ISO 8601, UTC */
+  char         *checked_by;    /* NULL unless checked or approved */
+  char         *checked_at;
+  char         *approved_by;   /* NULL unless approved */
+  char         *approved_at;   /* the approval date, YYYY-MM-DD */
+  char         *comment;       /* "imported from …", "derived from …", or NULL */
+  double        u_corrected;   /* NAN if it could not be calculated */
+} LaminaRevisionInfo;
+
+void           lamina_revision_info_free   (LaminaRevisionInfo     *info);
+/* LaminaRevisionInfo*, newest first. */
+GPtrArray     *lamina_library_get_history  (LaminaLibrary          *self,
+                                            const char             *id,
+                                            GError                **error);
+
+/* Review.  @revision must be the latest (0 = the latest): reviewing what
+ * is not on screen any more fails with STALE; an approved revision cannot
+ * be checked or approved again (IMMUTABLE).  @name is required.  @date
+ * NULL = today (YYYY-MM-DD). */
+gboolean       lamina_library_mark_checked (LaminaLibrary          *self,
+                                            const char             *id,
+                                            int                     revision,
+                                            const char             *name,
+                                            GError                **error);
+gboolean       lamina_library_approve      (LaminaLibrary          *self,
+                                            const char             *id,
+                                            int                     revision,
+                                            const char             *name,
+                                            const char             *date,
+                                            GError                **error);
+
+/* ---- Material data changed since review ------------------------------ */
+
+typedef struct
+{
+  char           *material_id;
+  LaminaMaterial *stored;   /* what the construction's layers hold */
+  LaminaMaterial *library;  /* what the library holds now (NULL: deleted) */
+} LaminaMaterialChange;
+
+void           lamina_material_change_free (LaminaMaterialChange   *change);
+/* LaminaMaterialChange* for the latest revision of @id; empty when the
+ * layers agree with the library. */
+GPtrArray     *lamina_library_list_material_changes (LaminaLibrary *self,
+                                                     const char    *id,
+                                                     GError       **error);
+/* The user's act: copies the library's current data into the layers of
+ * @id as a new draft revision (recalculated); refused with STALE unless
+ * @base_revision is the latest.  Returns the new revision, 0 on error. */
+int            lamina_library_update_materials (LaminaLibrary *self,
+                                                const char    *id,
+                                                int            base_revision,
+                                                const char    *author,
+                                                GError       **error);
+
+/* ---- Listing and search ---------------------------------------------- */
+
+typedef enum
+{
+  LAMINA_SORT_CODE,
+  LAMINA_SORT_NAME,
+  LAMINA_SORT_U,            /* corrected U */
+  LAMINA_SORT_THICKNESS,
+  LAMINA_SORT_MODIFIED,     /* date of the latest revision */
+  LAMINA_SORT_RELEVANCE,    /* search rank; falls back to CODE without text */
+  LAMINA_N_SORTS
+} LaminaSortKey;
+
+typedef struct
+{
+  const char    *text;          /* as typed: every word must match a prefix
+                                   of a word in code, name, description,
+                                   tags or material names; NULL = any */
+  int            element;       /* LaminaElement, or -1 = any */
+  int            status;        /* LaminaStatus, or -1 = any */
+  const char    *tag;           /* exact tag, or NULL */
+  double         min_u;         /* corrected U, W/(m²·K); NAN = open */
+  double         max_u;
+  double         min_thickness; /* mm; NAN = open */
+  double         max_thickness;
+  gboolean       material_changed_only;
+  LaminaSortKey  sort;
+  gboolean       descending;
+  guint          offset;        /* paging for a virtualised list */
+  guint          limit;         /* 0 = no limit */
+} LaminaLibraryQuery;
+
+/* Fills @query with "everything, sorted by code, no paging". */
+void           lamina_library_query_init   (LaminaLibraryQuery     *query);
+
+typedef enum
+{
+  LAMINA_SUMMARY_NONE             = 0,
+  LAMINA_SUMMARY_MATERIAL_CHANGED = 1 << 0, /* material data changed since review */
+  LAMINA_SUMMARY_TARGET_NOT_MET   = 1 << 1, /* corrected U above target U */
+  LAMINA_SUMMARY_HAS_WARNINGS     = 1 << 2, /* lamina_calculate gave warnings */
+  LAMINA_SUMMARY_NOT_CALCULATED   = 1 << 3, /* invalid: U and figures are NAN */
+} LaminaSummaryFlags;
+
+/* A light row of the list: no layers. */
+typedef struct
+{
+  char               *id;
+  char               *code;
+  char               *name;
+  LaminaElement       element;
+  LaminaStatus        status;
+  int                 revision;
+  double              u;            /* W/(m²·K), NAN if not calculated */
+  double              u_corrected;
+  double              target_u;     /* NAN if none */
+  double              thickness;    /* mm */
+  char               *modified_at;
+  LaminaSummaryFlags  flags;
+} LaminaSummary;
+
+void           lamina_summary_free         (LaminaSummary          *summary);
+/* LaminaSummary*, one page as asked by @query. */
+GPtrArray     *lamina_library_search       (LaminaLibrary            *self,
+                                            const LaminaLibraryQuery *query,
+                                            GError                  **error);
+/* How many rows @query matches, ignoring offset and limit; -1 on error. */
+gint64         lamina_library_count        (LaminaLibrary            *self,
+                                            const LaminaLibraryQuery *query,
+                                            GError                  **error);
+/* All tags in use, sorted (char*). */
+GPtrArray     *lamina_library_list_tags    (LaminaLibrary          *self,
+                                            GError                **error);
+
+/* ---- Exchange with the catalogue XML --------------------------------- */
+
+typedef enum
+{
+  LAMINA_IMPORT_DEFAULT         = 0,
+  LAMINA_IMPORT_DRY_RUN         = 1 << 0, /* report only, write nothing */
+  LAMINA_IMPORT_REVISE_APPROVED = 1 << 1, /* a change to an approved
+                                             construction becomes a new
+                                             draft revision, not a conflict */
+  LAMINA_IMPORT_UPDATE_MATERIALS = 1 << 2,/* replace differing library
+                                             materials (flags users) */
+} LaminaImportFlags;
+
+typedef enum
+{
+  LAMINA_IMPORT_ADDED,     /* new id */
+  LAMINA_IMPORT_REVISED,   /* changed: stored as a new draft revision */
+  LAMINA_IMPORT_SKIPPED,   /* identical content */
+  LAMINA_IMPORT_CONFLICT,  /* differs from an approved revision (or a
+                              library material): not applied */
+} LaminaImportAction;
+
+typedef struct
+{
+  LaminaImportAction  action;
+  gboolean            is_material;
+  char               *id;
+  char               *name;
+  int                 revision;   /* the revision stored or compared with */
+  char               *message;    /* a sentence for the user */
+} LaminaImportItem;
+
+typedef struct
+{
+  GPtrArray *items;               /* LaminaImportItem*, in document order */
+  guint      n_added;             /* constructions */
+  guint      n_revised;
+  guint      n_skipped;
+  guint      n_conflicts;
+  guint      n_materials_added;
+  guint      n_materials_updated;
+} LaminaImportReport;
+
+void           lamina_import_report_free   (LaminaImportReport     *report);
+
+/* All or nothing, in one transaction: on error nothing is written.  The
+ * computed figures in @catalogue are never trusted: every construction is
+ * recalculated. */
+LaminaImportReport *lamina_library_import  (LaminaLibrary          *self,
+                                            const LaminaCatalogue  *catalogue,
+                                            LaminaImportFlags       flags,
+                                            const char             *author,
+                                            GError                **error);
+/* The latest revisions of @ids (NULL = every construction) with the
+ * materials they use (all library materials when @ids is NULL), with
+ * status, code, tags, revision and review data. */
+LaminaCatalogue *lamina_library_export     (LaminaLibrary          *self,
+                                            const char * const     *ids,
+                                            GError                **error);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaRevisionInfo, lamina_revision_info_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaMaterialChange, lamina_material_change_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaSummary, lamina_summary_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaImportReport, lamina_import_report_free)
+
+G_END_DECLS
