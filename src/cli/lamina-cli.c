@@ -1,0 +1,113 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli: the command-line face of Lamina. */
+#define G_LOG_DOMAIN "lamina-cli"
+
+#include "config.h"
+
+#include "lamina-cli.h"
+
+#include <glib/gi18n.h>
+#include <locale.h>
+#include <stdio.h>
+#include <string.h>
+
+typedef struct
+{
+  const char    *name;
+  LaminaCliFunc  func;
+  const char    *summary;
+} Command;
+
+static const Command commands[] = {
+  { "calc", lamina_cli_calc, N_("Calculate R and U of the constructions in a catalogue file") },
+};
+
+void
+lamina_cli_error (const char *format,
+                  ...)
+{
+  va_list args;
+  g_autofree char *message = NULL;
+
+  va_start (args, format);
+  message = g_strdup_vprintf (format, args);
+  va_end (args);
+  fprintf (stderr, "lamina-cli: %s\n", message);
+}
+
+gboolean
+lamina_cli_parse (GOptionContext *context,
+                  int            *argc,
+                  char         ***argv)
+{
+  g_autoptr(GError) error = NULL;
+
+  if (!g_option_context_parse (context, argc, argv, &error))
+    {
+      lamina_cli_error ("%s", error->message);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static void
+print_usage (FILE *out)
+{
+  fprintf (out, "%s\n", _("Usage: lamina-cli [--library PATH] [--force] COMMAND [OPTIONS…]"));
+  fprintf (out, "\n%s\n", _("Commands:"));
+  for (guint i = 0; i < G_N_ELEMENTS (commands); i++)
+    fprintf (out, "  %-10s %s\n", commands[i].name, _(commands[i].summary));
+  fprintf (out, "\n%s\n", _("“lamina-cli COMMAND --help” describes a command."));
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  LaminaCliGlobals globals = { NULL, FALSE };
+  int i;
+
+  setlocale (LC_ALL, "");
+  bindtextdomain (GETTEXT_PACKAGE, LOCALEDIR);
+  bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
+  textdomain (GETTEXT_PACKAGE);
+
+  /* Global options come before the command. */
+  for (i = 1; i < argc && argv[i][0] == '-'; i++)
+    {
+      if (strcmp (argv[i], "--library") == 0 && i + 1 < argc)
+        globals.library_path = argv[++i];
+      else if (g_str_has_prefix (argv[i], "--library="))
+        globals.library_path = argv[i] + strlen ("--library=");
+      else if (strcmp (argv[i], "--force") == 0)
+        globals.force = TRUE;
+      else if (strcmp (argv[i], "--help") == 0 || strcmp (argv[i], "-h") == 0)
+        {
+          print_usage (stdout);
+          return LAMINA_EXIT_OK;
+        }
+      else if (strcmp (argv[i], "--version") == 0)
+        {
+          printf ("lamina-cli %s\n", PACKAGE_VERSION);
+          return LAMINA_EXIT_OK;
+        }
+      else
+        {
+          lamina_cli_error (_("unknown option “%s”"), argv[i]);
+          print_usage (stderr);
+          return LAMINA_EXIT_USAGE;
+        }
+    }
+  if (i >= argc)
+    {
+      print_usage (stderr);
+      return LAMINA_EXIT_USAGE;
+    }
+  for (guint k = 0; k < G_N_ELEMENTS (commands); k++)
+    if (strcmp (argv[i], commands[k].name) == 0)
+      return commands[k].func (&globals, argc - i, argv + i);
+
+  lamina_cli_error (_("unknown command “%s”"), argv[i]);
+  print_usage (stderr);
+  return LAMINA_EXIT_USAGE;
+}

@@ -1,0 +1,42 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli.h: the commands of lamina-cli.  Each command lives in its own
+ * file and is listed in the table in lamina-cli.c. */
+#pragma once
+
+#include <glib.h>
+
+G_BEGIN_DECLS
+
+/* Exit codes of every command. */
+enum
+{
+  LAMINA_EXIT_OK = 0,
+  LAMINA_EXIT_BAD_INPUT = 1, /* message on stderr naming file:line or field */
+  LAMINA_EXIT_USAGE = 2,
+};
+
+typedef struct
+{
+  const char *library_path;  /* --library, or NULL for the default */
+  gboolean    force;         /* --force: overwrite existing output files */
+} LaminaCliGlobals;
+
+/* argv[0] is the command name; options after it are the command's. */
+typedef int (*LaminaCliFunc) (const LaminaCliGlobals *globals,
+                              int                     argc,
+                              char                  **argv);
+
+int  lamina_cli_calc    (const LaminaCliGlobals *globals,
+                         int                     argc,
+                         char                  **argv);
+
+/* Prints "lamina-cli: message" on stderr. */
+void lamina_cli_error   (const char *format,
+                         ...) G_GNUC_PRINTF (1, 2);
+/* Parses the command's options; on failure prints the error and returns
+ * FALSE (the caller exits LAMINA_EXIT_USAGE). */
+gboolean lamina_cli_parse (GOptionContext *context,
+                           int            *argc,
+                           char         ***argv);
+
+G_END_DECLS

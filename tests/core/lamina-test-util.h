@@ -1,0 +1,37 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Small builders for test constructions.  The λ values are the generic
+ * design values of EN ISO 10456:2007 Table 3 (from memory) unless a test
+ * says otherwise; insulation values are typical declared values. */
+#pragma once
+
+#include "lamina-calc.h"
+
+#include <math.h>
+#include <string.h>
+
+static inline LaminaMaterial *
+test_material (const char     *id,
+               LaminaCategory  category,
+               double          conductivity)
+{
+  return lamina_material_new (id, id, category, conductivity);
+}
+
+static inline LaminaLayer *
+test_layer (double          thickness,
+            const char     *id,
+            LaminaCategory  category,
+            double          conductivity)
+{
+  return lamina_layer_new_material (thickness, test_material (id, category, conductivity));
+}
+
+static inline LaminaConstruction *
+test_wall (void)
+{
+  return lamina_construction_new ("w", "test wall", LAMINA_ELEMENT_WALL);
+}
+
+/* Relative closeness, for figures re-derived by hand in the test. */
+#define assert_close(a, b, rel) \
+  g_assert_cmpfloat_with_epsilon ((a), (b), (rel) * fabs (b) + 1e-12)
