@@ -22,6 +22,24 @@ typedef struct
   GError **error;
 } Check;
 
+/* Where a value sits: formatted only when a check fails, so that a valid
+ * construction costs no allocation. */
+typedef struct
+{
+  guint layer;   /* 1-based, 0 for the construction */
+  guint part;    /* 1-based, 0 for the layer itself */
+} Where;
+
+static char *
+where_to_string (Where where)
+{
+  if (where.layer == 0)
+    return g_strdup (_("construction"));
+  if (where.part == 0)
+    return g_strdup_printf (_("layer %u"), where.layer);
+  return g_strdup_printf (_("layer %u, part %u"), where.layer, where.part);
+}
+
 static gboolean
 fail (Check      *check,
       int         line,
@@ -46,6 +64,31 @@ fail (Check      *check,
   return FALSE;
 }
 
+/* fail() with the location in front: "layer 2, part 1: …". */
+static gboolean
+fail_at (Check      *check,
+         int         line,
+         Where       where,
+         const char *format,
+         ...) G_GNUC_PRINTF (4, 5);
+
+static gboolean
+fail_at (Check      *check,
+         int         line,
+         Where       where,
+         const char *format,
+         ...)
+{
+  va_list args;
+  g_autofree char *place = where_to_string (where);
+  g_autofree char *message = NULL;
+
+  va_start (args, format);
+  message = g_strdup_vprintf (format, args);
+  va_end (args);
+  return fail (check, line, "%s: %s", place, message);
+}
+
 /* TRUE when @value is finite and within [min, max] (or (min, max] when
  * @open_min). */
 static gboolean
@@ -64,7 +107,7 @@ in_range (double   value,
 static gboolean
 check_range (Check      *check,
              int         line,
-             const char *where,
+             Where       where,
              const char *field,
              double      value,
              double      min,
@@ -74,19 +117,18 @@ check_range (Check      *check,
 {
   if (in_range (value, min, max, open_min))
     return TRUE;
-  return fail (check, line, _("%s: %s %g is outside the allowed range %s%g to %g%s%s"),
-               where, field, value, open_min ? _("above ") : "", min, max,
+  return fail_at (check, line, where, _("%s %g is outside the allowed range %s%g to %g%s%s"), field, value, open_min ? _("above ") : "", min, max,
                unit[0] ? " " : "", unit);
 }
 
 static gboolean
 check_material (Check                *check,
                 int                   line,
-                const char           *where,
+                Where                 where,
                 const LaminaMaterial *material)
 {
   if (material == NULL)
-    return fail (check, line, _("%s: no material"), where);
+    return fail_at (check, line, where, _("no material"));
   return check_range (check, line, where, _("thermal conductivity"),
                       material->conductivity, 0, 1000, TRUE, "W/(m·K)");
 }
@@ -94,7 +136,7 @@ check_material (Check                *check,
 static gboolean
 check_part (Check             *check,
             const LaminaLayer *layer,
-            const char        *where,
+            Where              where,
             const LaminaPart  *part)
 {
   gboolean has_fraction = !isnan (part->fraction);
@@ -104,9 +146,9 @@ check_part (Check             *check,
   if (!lamina_part_is_air (part) && !check_material (check, part->line, where, part->material))
     return FALSE;
   if (has_fraction && (has_width || has_spacing))
-    return fail (check, part->line, _("%s: give either a fraction or width and spacing, not both"), where);
+    return fail_at (check, part->line, where, _("give either a fraction or width and spacing, not both"));
   if (has_width != has_spacing)
-    return fail (check, part->line, _("%s: width and spacing go together"), where);
+    return fail_at (check, part->line, where, _("width and spacing go together"));
   if (has_fraction)
     return check_range (check, part->line, where, _("fraction"), part->fraction, 0, 1, TRUE, "");
   if (has_width)
@@ -122,21 +164,21 @@ check_part (Check             *check,
 static gboolean
 check_parts (Check             *check,
              const LaminaLayer *layer,
-             const char        *where)
+             Where              where)
 {
   double sum = 0.0;
   int n_rest = 0, n_unnamed = 0, n_named = 0;
   g_autoptr(GHashTable) members = g_hash_table_new (g_str_hash, g_str_equal);
 
   if (layer->parts == NULL || layer->parts->len == 0)
-    return fail (check, layer->line, _("%s: a bridged layer needs at least one part"), where);
+    return fail_at (check, layer->line, where, _("a bridged layer needs at least one part"));
   if (layer->parts->len > MAX_PARTS)
-    return fail (check, layer->line, _("%s: more than %d parts"), where, MAX_PARTS);
+    return fail_at (check, layer->line, where, _("more than %d parts"), MAX_PARTS);
 
   for (guint p = 0; p < layer->parts->len; p++)
     {
       const LaminaPart *part = layer->parts->pdata[p];
-      g_autofree char *part_where = g_strdup_printf (_("%s, part %u"), where, p + 1);
+      Where part_where = { where.layer, p + 1 };
       double f;
 
       if (!check_part (check, layer, part_where, part))
@@ -149,36 +191,34 @@ check_parts (Check             *check,
       if (part->member == NULL)
         n_unnamed++;
       else if (!g_hash_table_add (members, part->member))
-        return fail (check, part->line, _("%s: member “%s” appears twice in this layer"),
-                     part_where, part->member);
+        return fail_at (check, part->line, part_where, _("member “%s” appears twice in this layer"), part->member);
       else
         n_named++;
     }
   if (n_rest > 1)
-    return fail (check, layer->line, _("%s: only one part may leave its fraction out (the remainder)"), where);
+    return fail_at (check, layer->line, where, _("only one part may leave its fraction out (the remainder)"));
   if (n_named > 0 && n_unnamed > 1)
-    return fail (check, layer->line,
-                 _("%s: a layer with framing members may have only one part without a member (the infill)"),
-                 where);
+    return fail_at (check, layer->line, where,
+                    _("a layer with framing members may have only one part without a member (the infill)"));
   if (n_rest == 1 && sum >= 1.0 - FRACTION_TOLERANCE)
-    return fail (check, layer->line,
-                 _("%s: the part fractions sum to %g, leaving nothing for the remainder part"), where, sum);
+    return fail_at (check, layer->line, where,
+                    _("the part fractions sum to %g, leaving nothing for the remainder part"), sum);
   if (n_rest == 0 && fabs (sum - 1.0) > FRACTION_TOLERANCE)
-    return fail (check, layer->line,
-                 _("%s: the part fractions sum to %g, not 1 (leave one part's fraction out to take the remainder)"),
-                 where, sum);
+    return fail_at (check, layer->line, where,
+                    _("the part fractions sum to %g, not 1 (leave one part's fraction out to take the remainder)"),
+                    sum);
   return TRUE;
 }
 
 static gboolean
 check_corrections (Check             *check,
                    const LaminaLayer *layer,
-                   const char        *where)
+                   Where              where)
 {
   const LaminaCorrections *k = &layer->corrections;
 
   if (k->has_air_gaps && (k->air_gap_level < 0 || k->air_gap_level > 2))
-    return fail (check, layer->line, _("%s: air gap level %d is not 0, 1 or 2"), where, k->air_gap_level);
+    return fail_at (check, layer->line, where, _("air gap level %d is not 0, 1 or 2"), k->air_gap_level);
   if (k->has_fasteners)
     {
       if (!check_range (check, layer->line, where, _("fastener conductivity"),
@@ -209,7 +249,7 @@ check_layer (Check             *check,
              const LaminaLayer *layer,
              guint              number)
 {
-  g_autofree char *where = g_strdup_printf (_("layer %u"), number);
+  Where where = { number, 0 };
 
   if (!check_range (check, layer->line, where, _("thickness"), layer->thickness, 0, 10000, TRUE, "mm"))
     return FALSE;
@@ -226,7 +266,7 @@ check_layer (Check             *check,
       break;
     case LAMINA_LAYER_AIR:
       if ((guint) layer->air >= LAMINA_N_AIR_KINDS)
-        return fail (check, layer->line, _("%s: unknown air layer ventilation"), where);
+        return fail_at (check, layer->line, where, _("unknown air layer ventilation"));
       if (!check_range (check, layer->line, where, _("inner emissivity"),
                         layer->emissivity_inner, 0, 1, TRUE, "")
           || !check_range (check, layer->line, where, _("outer emissivity"),
@@ -237,7 +277,7 @@ check_layer (Check             *check,
                            layer->vent_area, 0, 1e6, FALSE, "mm²"))
         return FALSE;
       if (layer->air == LAMINA_AIR_SLIGHTLY_VENTILATED && isnan (layer->vent_area))
-        return fail (check, layer->line, _("%s: a slightly ventilated air layer needs its vent area"), where);
+        return fail_at (check, layer->line, where, _("a slightly ventilated air layer needs its vent area"));
       break;
     case LAMINA_LAYER_BRIDGED:
       if (!check_parts (check, layer, where))
@@ -245,7 +285,7 @@ check_layer (Check             *check,
       break;
     case LAMINA_N_LAYER_KINDS:
     default:
-      return fail (check, layer->line, _("%s: unknown kind of layer"), where);
+      return fail_at (check, layer->line, where, _("unknown kind of layer"));
     }
   return check_corrections (check, layer, where);
 }
@@ -296,6 +336,7 @@ lamina_construction_validate (const LaminaConstruction *construction,
 {
   const LaminaConstruction *c = construction;
   Check check = { line, error };
+  const Where whole = { 0, 0 };
 
   g_return_val_if_fail (c != NULL, FALSE);
 
@@ -309,13 +350,13 @@ lamina_construction_validate (const LaminaConstruction *construction,
       || (guint) c->outer_side >= LAMINA_N_OUTER_SIDES)
     return fail (&check, c->line, _("construction “%s”: unknown element, heat flow or outer side"),
                  c->id ? c->id : "");
-  if (!check_range (&check, c->line, _("construction"), _("inside temperature"),
+  if (!check_range (&check, c->line, whole, _("inside temperature"),
                     c->inside_temperature, -60, 60, FALSE, "°C")
-      || !check_range (&check, c->line, _("construction"), _("outside temperature"),
+      || !check_range (&check, c->line, whole, _("outside temperature"),
                        c->outside_temperature, -60, 60, FALSE, "°C"))
     return FALSE;
   if (!isnan (c->target_u)
-      && !check_range (&check, c->line, _("construction"), _("target U"), c->target_u, 0, 10, TRUE, "W/(m²·K)"))
+      && !check_range (&check, c->line, whole, _("target U"), c->target_u, 0, 10, TRUE, "W/(m²·K)"))
     return FALSE;
   for (guint i = 0; i < c->layers->len; i++)
     if (!check_layer (&check, c->layers->pdata[i], i + 1))

@@ -1,0 +1,167 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "lamina-cli"
+
+#include "config.h"
+
+#include "lamina-cli-report.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+const char *
+lamina_cli_caution (void)
+{
+  return _("Caution: figures are for the stated design conditions by EN ISO 6946:2017. Check product "
+           "declarations, local building codes and condensation risk (EN ISO 13788) with a licensed "
+           "professional before use.");
+}
+
+static void
+add_number (JsonBuilder *b,
+            const char  *key,
+            double       value)
+{
+  json_builder_set_member_name (b, key);
+  if (isfinite (value))
+    json_builder_add_double_value (b, value);
+  else
+    json_builder_add_null_value (b);
+}
+
+static void
+add_layers (JsonBuilder              *b,
+            const LaminaConstruction *c,
+            const LaminaResult       *r)
+{
+  json_builder_set_member_name (b, "layers");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < r->n_layers; i++)
+    {
+      const LaminaLayerResult *lr = &r->layers[i];
+
+      json_builder_begin_object (b);
+      add_number (b, "thickness", lr->thickness / 1000.0);
+      add_number (b, "resistance", lr->resistance);
+      json_builder_set_member_name (b, "label");
+      json_builder_add_string_value (b, lamina_layer_get_label (c->layers->pdata[i]));
+      json_builder_set_member_name (b, "bridged");
+      json_builder_add_boolean_value (b, lr->bridged);
+      json_builder_set_member_name (b, "disregarded");
+      json_builder_add_boolean_value (b, lr->disregarded);
+      add_number (b, "temperature_inner", lr->temperature_inner);
+      add_number (b, "temperature_outer", lr->temperature_outer);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+}
+
+JsonNode *
+lamina_cli_result_to_json (const LaminaConstruction *c,
+                           const LaminaResult       *r)
+{
+  g_autoptr(JsonBuilder) b = json_builder_new ();
+
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "id");
+  json_builder_add_string_value (b, c->id);
+  if (c->code != NULL)
+    {
+      json_builder_set_member_name (b, "code");
+      json_builder_add_string_value (b, c->code);
+    }
+  json_builder_set_member_name (b, "name");
+  json_builder_add_string_value (b, c->name);
+  json_builder_set_member_name (b, "element");
+  json_builder_add_string_value (b, lamina_element_to_string (c->element));
+  json_builder_set_member_name (b, "heat_flow");
+  json_builder_add_string_value (b, lamina_heat_flow_to_string (r->heat_flow));
+  add_number (b, "rsi", r->rsi);
+  add_number (b, "rse", r->rse);
+  add_number (b, "r_upper", r->r_upper);
+  add_number (b, "r_lower", r->r_lower);
+  add_number (b, "r_total", r->r_total);
+  add_number (b, "relative_error", r->relative_error);
+  add_number (b, "u", r->u);
+  add_number (b, "delta_u", r->delta_u);
+  add_number (b, "u_corrected", r->u_corrected);
+  add_number (b, "thickness", r->thickness / 1000.0);
+  json_builder_set_member_name (b, "sections");
+  json_builder_add_int_value (b, r->n_sections);
+  if (r->has_target)
+    {
+      add_number (b, "target_u", c->target_u);
+      json_builder_set_member_name (b, "target_met");
+      json_builder_add_boolean_value (b, r->target_met);
+    }
+  add_layers (b, c, r);
+  json_builder_set_member_name (b, "warnings");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < r->warnings->len; i++)
+    json_builder_add_string_value (b, ((LaminaWarning *) r->warnings->pdata[i])->message);
+  json_builder_end_array (b);
+  json_builder_end_object (b);
+  return json_builder_get_root (b);
+}
+
+char *
+lamina_cli_json_document (JsonArray *constructions)
+{
+  g_autoptr(JsonNode) root = json_node_new (JSON_NODE_OBJECT);
+  g_autoptr(JsonObject) object = json_object_new ();
+  g_autoptr(JsonGenerator) generator = json_generator_new ();
+
+  json_object_set_array_member (object, "constructions", constructions);
+  json_node_set_object (root, object);
+  json_generator_set_root (generator, root);
+  json_generator_set_pretty (generator, TRUE);
+  return json_generator_to_data (generator, NULL);
+}
+
+static char *
+describe_layer (const LaminaLayer *layer)
+{
+  GString *s;
+
+  if (layer->kind != LAMINA_LAYER_BRIDGED)
+    return g_strdup (lamina_layer_get_label (layer));
+  s = g_string_new (NULL);
+  for (guint p = 0; p < layer->parts->len; p++)
+    {
+      const LaminaPart *part = layer->parts->pdata[p];
+      g_string_append_printf (s, "%s%s %.1f %%", p ? " / " : "",
+                              part->material ? part->material->name : _("air"),
+                              100.0 * lamina_layer_get_part_fraction (layer, p));
+    }
+  return g_string_free (s, FALSE);
+}
+
+void
+lamina_cli_print_result (FILE                     *out,
+                         const LaminaConstruction *c,
+                         const LaminaResult       *r)
+{
+  fprintf (out, "%s%s%s — %s\n", c->code ? c->code : "", c->code ? " " : "", c->id, c->name);
+  fprintf (out, _("  %s, heat flow %s, outer side %s\n"), lamina_element_to_string (c->element),
+           lamina_heat_flow_to_string (r->heat_flow), lamina_outer_side_to_string (c->outer_side));
+  fprintf (out, "  %-4s %-44s %9s %9s %9s\n", _("no."), _("layer"), _("d mm"), _("λ W/mK"), _("R m²K/W"));
+  for (guint i = 0; i < r->n_layers; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+      g_autofree char *label = describe_layer (layer);
+      g_autofree char *lambda = layer->kind == LAMINA_LAYER_MATERIAL
+                                ? g_strdup_printf ("%.3f", layer->material->conductivity) : g_strdup ("—");
+
+      fprintf (out, "  %-4u %-44.44s %9.1f %9s %9.3f%s\n", i + 1, label, r->layers[i].thickness, lambda,
+               r->layers[i].resistance, r->layers[i].disregarded ? _("  (disregarded)") : "");
+    }
+  fprintf (out, _("  Rsi %.2f   Rse %.2f   total thickness %.1f mm\n"), r->rsi, r->rse, r->thickness);
+  fprintf (out, _("  R'T %.3f   R''T %.3f   RT %.3f m²K/W   relative error %.1f %%\n"),
+           r->r_upper, r->r_lower, r->r_total, 100.0 * r->relative_error);
+  fprintf (out, _("  U %.4f   ΔU %.4f   Uc %.4f W/(m²K)   reported U = %.2g W/(m²K)\n"),
+           r->u, r->delta_u, r->u_corrected, lamina_round_significant (r->u_corrected, 2));
+  if (r->has_target)
+    fprintf (out, _("  target U %.2f: %s\n"), c->target_u, r->target_met ? _("met") : _("NOT MET"));
+  for (guint i = 0; i < r->warnings->len; i++)
+    fprintf (out, _("  warning: %s\n"), ((LaminaWarning *) r->warnings->pdata[i])->message);
+  fprintf (out, "  %s\n\n", lamina_cli_caution ());
+}

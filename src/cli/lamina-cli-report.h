@@ -1,0 +1,26 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli-report.h: the text and JSON reports of a calculation, shared by
+ * `calc` and `show` so that both print the same figures under the same keys. */
+#pragma once
+
+#include <json-glib/json-glib.h>
+#include <stdio.h>
+
+#include "lamina-calc.h"
+
+G_BEGIN_DECLS
+
+/* One object of the "constructions" array: unrounded figures in SI units
+ * (thickness in m, R in m²·K/W, U in W/(m²·K)). */
+JsonNode *lamina_cli_result_to_json   (const LaminaConstruction *construction,
+                                       const LaminaResult       *result);
+/* {"constructions": [...]} from an array of the objects above (takes it). */
+char     *lamina_cli_json_document    (JsonArray                *constructions);
+/* A readable table with the caution line. */
+void      lamina_cli_print_result     (FILE                     *out,
+                                       const LaminaConstruction *construction,
+                                       const LaminaResult       *result);
+/* The caution printed under every result. */
+const char *lamina_cli_caution        (void);
+
+G_END_DECLS

@@ -1,0 +1,214 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli calc end to end: figures against hand calculations by EN ISO
+ * 6946:2017 (each worked in the comment beside it), the JSON contract, and
+ * exit codes with located messages for bad input. */
+#include <glib.h>
+#include <json-glib/json-glib.h>
+#include <math.h>
+#include <string.h>
+
+static char *
+data_path (const char *name)
+{
+  return g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "tests", "cli", "data", name, NULL);
+}
+
+static int
+run_cli (const char *const *args,
+         char              **out,
+         char              **err)
+{
+  g_autoptr(GPtrArray) argv = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr(GError) error = NULL;
+  int status = -1;
+
+  g_ptr_array_add (argv, g_build_filename (g_getenv ("LAMINA_BUILD_DIR"), "src", "cli", "lamina-cli", NULL));
+  for (guint i = 0; args[i] != NULL; i++)
+    g_ptr_array_add (argv, g_strdup (args[i]));
+  g_ptr_array_add (argv, NULL);
+  g_assert_true (g_spawn_sync (NULL, (char **) argv->pdata, NULL, G_SPAWN_DEFAULT, NULL, NULL,
+                               out, err, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  return WEXITSTATUS (status);
+}
+
+static JsonObject *
+find_construction (JsonParser *parser,
+                   const char *id)
+{
+  JsonObject *root = json_node_get_object (json_parser_get_root (parser));
+  JsonArray *list = json_object_get_array_member (root, "constructions");
+
+  for (guint i = 0; i < json_array_get_length (list); i++)
+    {
+      JsonObject *o = json_array_get_object_element (list, i);
+      if (g_strcmp0 (json_object_get_string_member (o, "id"), id) == 0)
+        return o;
+    }
+  g_error ("no construction %s in the JSON", id);
+}
+
+#define assert_figure(o, key, expected) \
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member ((o), (key)), (expected), 1e-9 + 1e-6 * fabs (expected))
+
+static void
+test_json_figures (void)
+{
+  g_autofree char *file = data_path ("hand-checks.xml");
+  const char *args[] = { "calc", file, "--json", NULL };
+  g_autofree char *out = NULL;
+  g_autofree char *err = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  g_autoptr(GError) error = NULL;
+  JsonObject *o;
+  JsonArray *layers;
+
+  g_assert_cmpint (run_cli (args, &out, &err), ==, 0);
+  g_assert_true (json_parser_load_from_data (parser, out, -1, &error));
+  g_assert_no_error (error);
+
+  /* w1, a timber-frame wall with a rainscreen: the cavity is well
+   * ventilated, so it and the cladding are disregarded and Rse = Rsi = 0.13
+   * (6.9.4).  Studs 45/600 → f = 0.075 (6.7.2).
+   *   insulation path 0.13 + 0.05 + 0.145/0.037 + 0.012/0.13 + 0.13
+   *   stud path       0.13 + 0.05 + 0.145/0.13  + 0.012/0.13 + 0.13
+   *   R''T = 0.13 + 0.05 + 1/(0.925·0.037/0.145 + 0.075·0.13/0.145) + 0.012/0.13 + 0.13 */
+  {
+    double rins = 0.145 / 0.037, rtim = 0.145 / 0.13, rosb = 0.012 / 0.13;
+    double upper = 1.0 / (0.925 / (0.31 + rins + rosb) + 0.075 / (0.31 + rtim + rosb));
+    double layer = 1.0 / (0.925 / rins + 0.075 / rtim);
+    double lower = 0.31 + layer + rosb;
+    double rt = (upper + lower) / 2;
+
+    o = find_construction (parser, "w1");
+    g_assert_cmpstr (json_object_get_string_member (o, "heat_flow"), ==, "horizontal");
+    assert_figure (o, "rsi", 0.13);
+    assert_figure (o, "rse", 0.13);
+    assert_figure (o, "r_upper", upper);
+    assert_figure (o, "r_lower", lower);
+    assert_figure (o, "r_total", rt);
+    assert_figure (o, "relative_error", (upper - lower) / (2 * rt));
+    assert_figure (o, "u", 1 / rt);
+    assert_figure (o, "delta_u", 0.0);
+    assert_figure (o, "u_corrected", 1 / rt);
+    layers = json_object_get_array_member (o, "layers");
+    g_assert_cmpuint (json_array_get_length (layers), ==, 5);
+    assert_figure (json_array_get_object_element (layers, 0), "thickness", 0.0125);
+    assert_figure (json_array_get_object_element (layers, 1), "resistance", layer);
+    g_assert_cmpuint (json_array_get_length (json_object_get_array_member (o, "warnings")), >=, 1);
+  }
+
+  /* r1, a warm deck: roof → upward, Rsi 0.10, Rse 0.04 (6.8, Table 7);
+   * membrane declared R 0; steel fasteners through the PIR (F.3, α 0.8). */
+  {
+    double r1 = 0.16 / 0.022, rt = 0.10 + 0.2 / 2.3 + r1 + 0.04;
+    double du = 0.8 * 50 * 12.57e-6 * 6 / 0.16 * (r1 / rt) * (r1 / rt);
+
+    o = find_construction (parser, "r1");
+    g_assert_cmpstr (json_object_get_string_member (o, "heat_flow"), ==, "upward");
+    assert_figure (o, "rsi", 0.10);
+    assert_figure (o, "r_total", rt);
+    assert_figure (o, "u", 1 / rt);
+    assert_figure (o, "delta_u", du);
+    assert_figure (o, "u_corrected", 1 / rt + du);
+  }
+
+  /* p1, a partition (both faces indoors: Rsi on both sides, 6.8) with a
+   * 25 mm cavity against a foil face ε 0.05: Annex D, E = 1/(1/0.9 + 1/0.05
+   * − 1), hr0 = 4σ(283.15 K)³, ha = 1.25 → R = 1/(1.25 + E·hr0). */
+  {
+    double e = 1.0 / (1 / 0.9 + 1 / 0.05 - 1);
+    double hr0 = 4 * 5.670374419e-8 * pow (283.15, 3);
+    double rair = 1.0 / (1.25 + e * hr0);
+    double rt = 0.13 + 0.05 + rair + 0.1025 / 0.77 + 0.13;
+
+    o = find_construction (parser, "p1");
+    assert_figure (o, "rse", 0.13);
+    assert_figure (o, "r_total", rt);
+    assert_figure (json_array_get_object_element (json_object_get_array_member (o, "layers"), 1),
+                   "resistance", rair);
+  }
+}
+
+static void
+test_text_report (void)
+{
+  g_autofree char *file = data_path ("hand-checks.xml");
+  const char *args[] = { "calc", file, "--id", "r1", NULL };
+  g_autofree char *out = NULL;
+  g_autofree char *err = NULL;
+
+  g_assert_cmpint (run_cli (args, &out, &err), ==, 0);
+  g_assert_nonnull (strstr (out, "Warm deck on concrete"));
+  g_assert_null (strstr (out, "Timber frame wall"));
+  g_assert_nonnull (strstr (out, "R'T"));
+  g_assert_nonnull (strstr (out, "Caution"));
+  /* U = 0.1333 + ΔU 0.0177 → reported to two significant figures 0.15 */
+  g_assert_nonnull (strstr (out, "reported U = 0.15"));
+}
+
+/* Bad input exits 1 with FILE:LINE; bad usage exits 2. */
+static void
+test_bad_input (void)
+{
+  const struct { const char *file; const char *expect; } cases[] = {
+    { "bad-thickness.xml", "bad-thickness.xml:6:" },
+    { "bad-material.xml", "bad-material.xml:6:" },
+    { "bad-doctype.xml", "bad-doctype.xml:" },
+    { "bad-air.xml", "bad-air.xml:" },
+    { "truncated.xml", "truncated.xml:" },
+    { "missing-file.xml", "missing-file.xml" },
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      g_autofree char *file = data_path (cases[i].file);
+      const char *args[] = { "calc", file, NULL };
+      g_autofree char *out = NULL;
+      g_autofree char *err = NULL;
+
+      g_test_message ("%s", cases[i].file);
+      g_assert_cmpint (run_cli (args, &out, &err), ==, 1);
+      if (strstr (err, cases[i].expect) == NULL)
+        g_error ("%s: stderr “%s” lacks “%s”", cases[i].file, err, cases[i].expect);
+      g_assert_cmpstr (out, ==, "");
+    }
+}
+
+static void
+test_usage (void)
+{
+  const char *no_file[] = { "calc", NULL };
+  const char *bad_option[] = { "calc", "--frobnicate", "x.xml", NULL };
+  const char *bad_command[] = { "frobnicate", NULL };
+  g_autofree char *file = data_path ("hand-checks.xml");
+  const char *unknown_id[] = { "calc", file, "--id", "nope", NULL };
+  char *out = NULL, *err = NULL;
+
+  g_assert_cmpint (run_cli (no_file, &out, &err), ==, 2);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run_cli (bad_option, &out, &err), ==, 2);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run_cli (bad_command, &out, &err), ==, 2);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run_cli (unknown_id, &out, &err), ==, 1);
+  g_assert_nonnull (strstr (err, "nope"));
+  g_free (out);
+  g_free (err);
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/cli/calc/json-figures", test_json_figures);
+  g_test_add_func ("/cli/calc/text-report", test_text_report);
+  g_test_add_func ("/cli/calc/bad-input", test_bad_input);
+  g_test_add_func ("/cli/calc/usage", test_usage);
+  return g_test_run ();
+}
