@@ -43,6 +43,9 @@ LaminaCatalogue *lamina_catalogue_new          (void);
 void             lamina_catalogue_free         (LaminaCatalogue       *catalogue);
 LaminaConstruction *lamina_catalogue_find      (const LaminaCatalogue *catalogue,
                                                 const char            *id);
+/* A library material of the catalogue (not a layer's snapshot), or NULL. */
+LaminaMaterial  *lamina_catalogue_find_material (const LaminaCatalogue *catalogue,
+                                                 const char            *id);
 
 /* Errors read "NAME:LINE: message", NAME being @name (a file path). */
 LaminaCatalogue *lamina_catalogue_read_memory  (const char            *data,

@@ -1,0 +1,541 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The catalogue reader: a schema-valid document becomes the model.  Every
+ * value is parsed strictly, every construction is validated and calculated,
+ * and the first fault is reported as "NAME:LINE: message".  Nothing is
+ * returned unless the whole document is good. */
+#define G_LOG_DOMAIN "lamina-exchange"
+
+#include "lamina-catalogue-private.h"
+
+#include <errno.h>
+#include <glib/gi18n-lib.h>
+#include <math.h>
+#include <string.h>
+
+typedef struct
+{
+  LaminaMaterial *material;  /* borrowed; id is the library id */
+  int             line;
+  gboolean        snapshot;
+} Entry;
+
+typedef struct
+{
+  const char      *name;
+  GError         **error;
+  GHashTable      *materials;     /* id in the document → Entry* */
+  GHashTable      *constructions; /* id → line */
+  GPtrArray       *snapshots;     /* LaminaMaterial*, owned */
+  LaminaCatalogue *catalogue;
+} Reader;
+
+static gboolean
+fail (Reader     *r,
+      int         line,
+      int         code,
+      const char *format,
+      ...) G_GNUC_PRINTF (4, 5);
+
+static gboolean
+fail (Reader     *r,
+      int         line,
+      int         code,
+      const char *format,
+      ...)
+{
+  g_autofree char *message = NULL;
+  va_list args;
+
+  va_start (args, format);
+  message = g_strdup_vprintf (format, args);
+  va_end (args);
+  g_set_error (r->error, LAMINA_XML_ERROR, code, "%s:%d: %s", r->name, MAX (line, 1), message);
+  return FALSE;
+}
+
+static int
+line_of (xmlNode *node)
+{
+  return (int) xmlGetLineNo (node);
+}
+
+static gboolean
+is_element (xmlNode    *node,
+            const char *name)
+{
+  return node->type == XML_ELEMENT_NODE
+         && node->ns != NULL
+         && strcmp ((const char *) node->ns->href, LAMINA_CATALOGUE_NAMESPACE) == 0
+         && strcmp ((const char *) node->name, name) == 0;
+}
+
+static char *
+dup_attr (xmlNode    *node,
+          const char *name)
+{
+  xmlChar *value = xmlGetNoNsProp (node, (const xmlChar *) name);
+  char *copy = g_strdup ((const char *) value);
+
+  xmlFree (value);
+  return copy;
+}
+
+static char *
+dup_text (xmlNode *node)
+{
+  xmlChar *value = xmlNodeGetContent (node);
+  char *copy = g_strdup (value ? (const char *) value : "");
+
+  xmlFree (value);
+  return copy;
+}
+
+/* Strict: the whole attribute is one finite number in the C locale.
+ * An absent attribute leaves *value alone. */
+static gboolean
+get_number (Reader     *r,
+            xmlNode    *node,
+            const char *attr,
+            double     *value)
+{
+  g_autofree char *text = dup_attr (node, attr);
+  char *end = NULL;
+  double v;
+
+  if (text == NULL)
+    return TRUE;
+  if (text[0] == '\0' || g_ascii_isspace (text[0]) || strpbrk (text, "xXnN") != NULL)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("%s=“%s” is not a number"), attr, text);
+  errno = 0;
+  v = g_ascii_strtod (text, &end);
+  if (end == text || *end != '\0')
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("%s=“%s” is not a number"), attr, text);
+  if (!isfinite (v) || errno == ERANGE)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("%s=“%s” is out of range (not a finite number of usual size)"), attr, text);
+  *value = v;
+  return TRUE;
+}
+
+static gboolean
+get_required_number (Reader     *r,
+                     xmlNode    *node,
+                     const char *attr,
+                     double     *value)
+{
+  if (!xmlHasNsProp (node, (const xmlChar *) attr, NULL))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("<%s> needs the attribute %s="), (const char *) node->name, attr);
+  return get_number (r, node, attr, value);
+}
+
+static gboolean
+get_count (Reader     *r,
+           xmlNode    *node,
+           const char *attr,
+           guint64     max,
+           int        *value)
+{
+  g_autofree char *text = dup_attr (node, attr);
+  guint64 v;
+
+  if (text == NULL)
+    return TRUE;
+  if (!g_ascii_string_to_unsigned (text, 10, 0, max, &v, NULL))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("%s=“%s” is not a whole number from 0 to %" G_GUINT64_FORMAT), attr, text, max);
+  *value = (int) v;
+  return TRUE;
+}
+
+/* Enumerated attributes; the schema has checked the names already. */
+#define GET_ENUM(r, node, attr, from_string, value)                           \
+  G_STMT_START {                                                              \
+    g_autofree char *text_ = dup_attr (node, attr);                           \
+    if (text_ != NULL && !from_string (text_, value))                         \
+      return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,               \
+                   _("%s=“%s” is not one of the allowed names"), attr, text_); \
+  } G_STMT_END
+
+/* Materials */
+
+static gboolean
+read_material (Reader  *r,
+               xmlNode *node)
+{
+  g_autoptr(LaminaMaterial) m = lamina_material_new (NULL, NULL, LAMINA_CATEGORY_OTHER, NAN);
+  g_autofree char *id = dup_attr (node, "id");
+  g_autofree char *snapshot_of = dup_attr (node, "snapshot-of");
+  Entry *entry, *known;
+
+  if (id == NULL)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, _("<material> needs an id="));
+  known = g_hash_table_lookup (r->materials, id);
+  if (known != NULL)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("material id “%s” is used twice (first on line %d)"), id, known->line);
+  m->name = dup_attr (node, "name");
+  m->source = dup_attr (node, "source");
+  GET_ENUM (r, node, "category", lamina_category_from_string, &m->category);
+  if (!get_required_number (r, node, "conductivity", &m->conductivity)
+      || !get_number (r, node, "density", &m->density)
+      || !get_number (r, node, "specific-heat", &m->specific_heat)
+      || !get_number (r, node, "vapour-resistance-factor", &m->vapour_resistance_factor)
+      || !get_number (r, node, "emissivity", &m->emissivity))
+    return FALSE;
+  for (xmlNode *child = node->children; child != NULL; child = child->next)
+    if (is_element (child, "notes"))
+      m->notes = dup_text (child);
+
+  entry = g_new0 (Entry, 1);
+  entry->line = line_of (node);
+  entry->snapshot = snapshot_of != NULL;
+  m->id = entry->snapshot ? g_steal_pointer (&snapshot_of) : g_strdup (id);
+  entry->material = m;
+  if (entry->snapshot)
+    g_ptr_array_add (r->snapshots, g_steal_pointer (&m));
+  else
+    g_ptr_array_add (r->catalogue->materials, g_steal_pointer (&m));
+  g_hash_table_insert (r->materials, g_steal_pointer (&id), entry);
+  return TRUE;
+}
+
+/* A snapshot keeps the library id of a material of the same document. */
+static gboolean
+check_snapshots (Reader *r)
+{
+  GHashTableIter iter;
+  gpointer key, value;
+
+  g_hash_table_iter_init (&iter, r->materials);
+  while (g_hash_table_iter_next (&iter, &key, &value))
+    {
+      Entry *entry = value;
+      Entry *library;
+
+      if (!entry->snapshot)
+        continue;
+      library = g_hash_table_lookup (r->materials, entry->material->id);
+      if (library == NULL || library->snapshot)
+        return fail (r, entry->line, LAMINA_XML_ERROR_INVALID,
+                     _("material “%s” is a snapshot-of “%s”, which is not a library material "
+                       "of this document"), (const char *) key, entry->material->id);
+    }
+  return TRUE;
+}
+
+static LaminaMaterial *
+resolve_material (Reader     *r,
+                  xmlNode    *node,
+                  const char *id)
+{
+  Entry *entry = g_hash_table_lookup (r->materials, id);
+
+  if (entry == NULL)
+    {
+      fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, _("unknown material “%s”"), id);
+      return NULL;
+    }
+  return lamina_material_copy (entry->material);
+}
+
+/* Layers */
+
+static gboolean
+read_part (Reader      *r,
+           xmlNode     *node,
+           LaminaLayer *layer)
+{
+  g_autofree char *material_id = dup_attr (node, "material");
+  gboolean air = xmlHasNsProp (node, (const xmlChar *) "air", NULL) != NULL;
+  g_autoptr(LaminaPart) part = NULL;
+  LaminaMaterial *material = NULL;
+
+  if ((material_id != NULL) == air)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("a <part> takes either material= or air=, and one of them"));
+  if (material_id != NULL && (material = resolve_material (r, node, material_id)) == NULL)
+    return FALSE;
+  part = lamina_part_new (material, NAN);
+  part->member = dup_attr (node, "member");
+  part->line = line_of (node);
+  if (!get_number (r, node, "fraction", &part->fraction)
+      || !get_number (r, node, "width", &part->width)
+      || !get_number (r, node, "spacing", &part->spacing))
+    return FALSE;
+  lamina_layer_add_part (layer, g_steal_pointer (&part));
+  return TRUE;
+}
+
+static gboolean
+read_correction (Reader      *r,
+                 xmlNode     *node,
+                 LaminaLayer *layer)
+{
+  LaminaCorrections *k = &layer->corrections;
+
+  if (is_element (node, "air-gaps"))
+    {
+      k->has_air_gaps = TRUE;
+      return get_count (r, node, "level", 2, &k->air_gap_level);
+    }
+  if (is_element (node, "fasteners"))
+    {
+      k->has_fasteners = TRUE;
+      return get_required_number (r, node, "conductivity", &k->fastener_conductivity)
+             && get_required_number (r, node, "cross-section", &k->fastener_cross_section)
+             && get_required_number (r, node, "per-square-metre", &k->fasteners_per_square_metre)
+             && get_number (r, node, "penetration", &k->fastener_penetration);
+    }
+  if (is_element (node, "inverted-roof"))
+    {
+      k->has_inverted_roof = TRUE;
+      return get_required_number (r, node, "precipitation", &k->precipitation)
+             && get_required_number (r, node, "drainage-factor", &k->drainage_factor);
+    }
+  return TRUE;
+}
+
+static LaminaLayer *
+new_layer (Reader  *r,
+           xmlNode *node)
+{
+  g_autofree char *material_id = dup_attr (node, "material");
+  gboolean has_resistance = xmlHasNsProp (node, (const xmlChar *) "resistance", NULL) != NULL;
+  gboolean has_air = xmlHasNsProp (node, (const xmlChar *) "air", NULL) != NULL;
+  gboolean has_parts = FALSE;
+  LaminaMaterial *material;
+
+  for (xmlNode *child = node->children; child != NULL; child = child->next)
+    has_parts |= is_element (child, "part");
+  if ((material_id != NULL) + has_resistance + has_air + has_parts != 1)
+    {
+      fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+            _("a <layer> takes exactly one of material=, resistance=, air= or <part> elements"));
+      return NULL;
+    }
+  if (!has_air
+      && (xmlHasNsProp (node, (const xmlChar *) "vent-area", NULL)
+          || xmlHasNsProp (node, (const xmlChar *) "emissivity-inner", NULL)
+          || xmlHasNsProp (node, (const xmlChar *) "emissivity-outer", NULL)))
+    {
+      fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+            _("vent-area= and the emissivities belong to an air layer (air=)"));
+      return NULL;
+    }
+  if (material_id != NULL)
+    {
+      if ((material = resolve_material (r, node, material_id)) == NULL)
+        return NULL;
+      return lamina_layer_new_material (NAN, material);
+    }
+  if (has_resistance)
+    return lamina_layer_new_resistance (NAN, NAN);
+  if (has_air)
+    return lamina_layer_new_air (NAN, LAMINA_AIR_UNVENTILATED);
+  return lamina_layer_new_bridged (NAN);
+}
+
+static gboolean
+read_layer (Reader             *r,
+            xmlNode            *node,
+            LaminaConstruction *c)
+{
+  g_autoptr(LaminaLayer) layer = new_layer (r, node);
+
+  if (layer == NULL)
+    return FALSE;
+  layer->line = line_of (node);
+  GET_ENUM (r, node, "air", lamina_air_kind_from_string, &layer->air);
+  if (!get_required_number (r, node, "thickness", &layer->thickness)
+      || !get_number (r, node, "resistance", &layer->resistance)
+      || !get_number (r, node, "vent-area", &layer->vent_area)
+      || !get_number (r, node, "emissivity-inner", &layer->emissivity_inner)
+      || !get_number (r, node, "emissivity-outer", &layer->emissivity_outer))
+    return FALSE;
+  for (xmlNode *child = node->children; child != NULL; child = child->next)
+    {
+      if (is_element (child, "note"))
+        layer->note = dup_text (child);
+      else if (is_element (child, "part"))
+        {
+          if (!read_part (r, child, layer))
+            return FALSE;
+        }
+      else if (child->type == XML_ELEMENT_NODE && !read_correction (r, child, layer))
+        return FALSE;
+    }
+  lamina_construction_add_layer (c, g_steal_pointer (&layer));
+  return TRUE;
+}
+
+/* Constructions */
+
+static void
+read_record (xmlNode  *node,
+             char    **by,
+             char    **at)
+{
+  g_free (*by);
+  g_free (*at);
+  *by = dup_attr (node, "by");
+  *at = dup_attr (node, "at");
+}
+
+static gboolean
+read_construction_child (Reader             *r,
+                         xmlNode            *child,
+                         LaminaConstruction *c)
+{
+  if (is_element (child, "layer"))
+    return read_layer (r, child, c);
+  if (is_element (child, "description"))
+    c->description = dup_text (child);
+  else if (is_element (child, "notes"))
+    c->notes = dup_text (child);
+  else if (is_element (child, "tag"))
+    g_ptr_array_add (c->tags, dup_text (child));
+  else if (is_element (child, "modified"))
+    read_record (child, &c->modified_by, &c->modified_at);
+  else if (is_element (child, "checked"))
+    read_record (child, &c->checked_by, &c->checked_at);
+  else if (is_element (child, "approved"))
+    read_record (child, &c->approved_by, &c->approved_at);
+  /* <derived> is never trusted: the figures are recomputed by whoever
+   * needs them.  The schema has checked its form. */
+  return TRUE;
+}
+
+static LaminaConstruction *
+new_construction (Reader  *r,
+                  xmlNode *node)
+{
+  g_autofree char *id = dup_attr (node, "id");
+  g_autofree char *name = dup_attr (node, "name");
+  g_autofree char *element = dup_attr (node, "element");
+  LaminaElement kind;
+  int known;
+
+  if (id == NULL || element == NULL || !lamina_element_from_string (element, &kind))
+    {
+      fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+            _("a <construction> needs an id= and a known element="));
+      return NULL;
+    }
+  known = GPOINTER_TO_INT (g_hash_table_lookup (r->constructions, id));
+  if (known != 0)
+    {
+      fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+            _("construction id “%s” is used twice (first on line %d)"), id, known);
+      return NULL;
+    }
+  g_hash_table_insert (r->constructions, g_strdup (id), GINT_TO_POINTER (MAX (line_of (node), 1)));
+  /* The constructor sets the defaults of heat-flow and outer-side. */
+  return lamina_construction_new (id, name, kind);
+}
+
+static gboolean
+check_construction (Reader             *r,
+                    LaminaConstruction *c)
+{
+  g_autoptr(GError) local = NULL;
+  g_autoptr(LaminaResult) result = NULL;
+  int line = 0;
+
+  if (!lamina_construction_validate (c, &line, &local))
+    return fail (r, line > 0 ? line : c->line, LAMINA_XML_ERROR_INVALID,
+                 _("construction “%s”: %s"), c->id, local->message);
+  /* Some limits only the engine sees (air layers over 300 mm, framing
+   * patterns that cannot line up). */
+  result = lamina_calculate (c, &local);
+  if (result == NULL)
+    return fail (r, c->line, LAMINA_XML_ERROR_INVALID,
+                 _("construction “%s”: %s"), c->id, local->message);
+  return TRUE;
+}
+
+static gboolean
+read_construction (Reader  *r,
+                   xmlNode *node)
+{
+  g_autoptr(LaminaConstruction) c = new_construction (r, node);
+
+  if (c == NULL)
+    return FALSE;
+  c->line = line_of (node);
+  c->code = dup_attr (node, "code");
+  GET_ENUM (r, node, "heat-flow", lamina_heat_flow_from_string, &c->heat_flow);
+  GET_ENUM (r, node, "outer-side", lamina_outer_side_from_string, &c->outer_side);
+  GET_ENUM (r, node, "status", lamina_status_from_string, &c->status);
+  if (!get_count (r, node, "revision", G_MAXINT, &c->revision)
+      || !get_number (r, node, "target-u", &c->target_u)
+      || !get_number (r, node, "inside-temperature", &c->inside_temperature)
+      || !get_number (r, node, "outside-temperature", &c->outside_temperature))
+    return FALSE;
+  for (xmlNode *child = node->children; child != NULL; child = child->next)
+    if (!read_construction_child (r, child, c))
+      return FALSE;
+  if (!check_construction (r, c))
+    return FALSE;
+  g_ptr_array_add (r->catalogue->constructions, g_steal_pointer (&c));
+  return TRUE;
+}
+
+static gboolean
+read_catalogue (Reader  *r,
+                xmlNode *root)
+{
+  /* Materials first, so that constructions may come in any order. */
+  for (xmlNode *child = root->children; child != NULL; child = child->next)
+    {
+      if (is_element (child, "title"))
+        {
+          g_free (r->catalogue->title);
+          r->catalogue->title = dup_text (child);
+        }
+      else if (is_element (child, "material") && !read_material (r, child))
+        return FALSE;
+    }
+  if (!check_snapshots (r))
+    return FALSE;
+  for (xmlNode *child = root->children; child != NULL; child = child->next)
+    if (is_element (child, "construction") && !read_construction (r, child))
+      return FALSE;
+  return TRUE;
+}
+
+LaminaCatalogue *
+lamina_catalogue_read_memory (const char  *data,
+                              gsize        length,
+                              const char  *name,
+                              GError     **error)
+{
+  g_autoptr(xmlDoc) doc = NULL;
+  g_autoptr(LaminaCatalogue) catalogue = NULL;
+  Reader r = { 0 };
+  gboolean ok;
+
+  g_return_val_if_fail (data != NULL || length == 0, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  if (name == NULL)
+    name = "<memory>";
+  doc = lamina_xml_document_parse (data, length, name, error);
+  if (doc == NULL)
+    return NULL;
+
+  catalogue = lamina_catalogue_new ();
+  r.name = name;
+  r.error = error;
+  r.catalogue = catalogue;
+  r.materials = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_free);
+  r.constructions = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  r.snapshots = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
+  ok = read_catalogue (&r, xmlDocGetRootElement (doc));
+  g_hash_table_unref (r.materials);
+  g_hash_table_unref (r.constructions);
+  g_ptr_array_unref (r.snapshots);
+  return ok ? g_steal_pointer (&catalogue) : NULL;
+}

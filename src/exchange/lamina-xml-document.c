@@ -1,0 +1,295 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Safe parsing of untrusted catalogue XML with libxml2 2.9.
+ *
+ * The traps (see the platform notes): XML_PARSE_NOENT reads local files
+ * through external entities, XML_PARSE_NONET does not block file://, and
+ * entity references left in the tree can still expand quadratically later.
+ * So: no NOENT, no HUGE, no DTD loading, and any DOCTYPE stops the parser
+ * at once (before its internal subset is read) and refuses the document.
+ * libxml2 errors are captured per parse through structured handlers and
+ * never printed; the first one becomes the GError, "NAME:LINE: message". */
+#define G_LOG_DOMAIN "lamina-exchange"
+
+#include "lamina-catalogue-private.h"
+
+#include <gio/gio.h>
+#include <glib/gi18n-lib.h>
+#include <libxml/parser.h>
+#include <libxml/parserInternals.h>
+#include <libxml/xmlschemas.h>
+#include <string.h>
+
+#include "lamina-exchange-resources.h"
+
+#define SCHEMA_RESOURCE "/org/example/Lamina/exchange/lamina-catalogue-1.xsd"
+
+typedef struct
+{
+  char     *message;   /* the first error, or NULL */
+  int       line;
+  gboolean  doctype;
+  int       doctype_line;
+} ErrorSink;
+
+static void
+record_error (ErrorSink         *sink,
+              const xmlError    *err)
+{
+  g_autofree char *text = NULL;
+  GString *message;
+  char *ns;
+
+  if (sink->message != NULL || err == NULL || err->level < XML_ERR_ERROR)
+    return;
+  text = g_strstrip (g_strdup (err->message ? err->message : "error"));
+  /* Schema messages spell names as {namespace}name: drop our namespace. */
+  message = g_string_new (text);
+  while ((ns = strstr (message->str, "{" LAMINA_CATALOGUE_NAMESPACE "}")) != NULL)
+    g_string_erase (message, ns - message->str, strlen ("{" LAMINA_CATALOGUE_NAMESPACE "}"));
+  sink->message = g_string_free (message, FALSE);
+  sink->line = err->line;
+  if (sink->line <= 0 && err->node != NULL)
+    sink->line = (int) xmlGetLineNo ((xmlNode *) err->node);
+}
+
+static void
+parser_error_cb (void     *ctx,
+                 xmlError *err)
+{
+  xmlParserCtxt *ctxt = ctx;
+
+  record_error (ctxt->_private, err);
+}
+
+static void
+sink_error_cb (void     *data,
+               xmlError *err)
+{
+  record_error (data, err);
+}
+
+static void
+ignore_generic_error_cb (void       *ctx,
+                         const char *msg,
+                         ...)
+{
+}
+
+/* Called at "<!DOCTYPE name": refuse before any declaration is read. */
+static void
+refuse_doctype_cb (void          *ctx,
+                   const xmlChar *name,
+                   const xmlChar *external_id,
+                   const xmlChar *system_id)
+{
+  xmlParserCtxt *ctxt = ctx;
+  ErrorSink *sink = ctxt->_private;
+
+  sink->doctype = TRUE;
+  sink->doctype_line = ctxt->input ? ctxt->input->line : 0;
+  xmlStopParser (ctxt);
+}
+
+static xmlParserInput *
+refuse_entity_cb (void          *ctx,
+                  const xmlChar *public_id,
+                  const xmlChar *system_id)
+{
+  return NULL;
+}
+
+static void
+ignore_external_subset_cb (void          *ctx,
+                           const xmlChar *name,
+                           const xmlChar *external_id,
+                           const xmlChar *system_id)
+{
+}
+
+static gboolean
+fail (GError     **error,
+      int          code,
+      const char  *name,
+      int          line,
+      const char  *message)
+{
+  g_set_error (error, LAMINA_XML_ERROR, code, "%s:%d: %s", name, MAX (line, 1), message);
+  return FALSE;
+}
+
+/* The schema is compiled once, from the copy built into the program. */
+static xmlSchema *
+get_schema (GError **error)
+{
+  static GMutex lock;
+  static xmlSchema *schema;
+  static char *failure;
+  xmlSchema *result;
+
+  g_mutex_lock (&lock);
+  if (schema == NULL && failure == NULL)
+    {
+      g_autoptr(GBytes) bytes = NULL;
+      g_autoptr(GError) local = NULL;
+      ErrorSink sink = { 0 };
+
+      bytes = g_resource_lookup_data (lamina_exchange_get_resource (), SCHEMA_RESOURCE,
+                                      G_RESOURCE_LOOKUP_FLAGS_NONE, &local);
+      if (bytes == NULL)
+        failure = g_strdup (local->message);
+      else
+        {
+          xmlSchemaParserCtxt *pctxt;
+          gsize size;
+          const char *xsd = g_bytes_get_data (bytes, &size);
+
+          pctxt = xmlSchemaNewMemParserCtxt (xsd, (int) size);
+          xmlSchemaSetParserStructuredErrors (pctxt, sink_error_cb, &sink);
+          schema = xmlSchemaParse (pctxt);
+          xmlSchemaFreeParserCtxt (pctxt);
+          if (schema == NULL)
+            failure = g_strdup_printf ("lamina-catalogue-1.xsd:%d: %s", sink.line,
+                                       sink.message ? sink.message : "cannot compile");
+          g_free (sink.message);
+        }
+    }
+  result = schema;
+  if (result == NULL)
+    g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_IO,
+                 _("The catalogue schema built into Lamina is broken: %s"), failure);
+  g_mutex_unlock (&lock);
+  return result;
+}
+
+static xmlDoc *
+parse_safely (const char *data,
+              gsize       length,
+              ErrorSink  *sink)
+{
+  xmlParserCtxt *ctxt;
+  xmlDoc *doc;
+
+  ctxt = xmlNewParserCtxt ();
+  if (ctxt == NULL)
+    return NULL;
+  ctxt->_private = sink;
+  ctxt->sax->serror = parser_error_cb;
+  ctxt->sax->internalSubset = refuse_doctype_cb;
+  ctxt->sax->externalSubset = ignore_external_subset_cb;
+  ctxt->sax->resolveEntity = refuse_entity_cb;
+  doc = xmlCtxtReadMemory (ctxt, data, (int) length, NULL, NULL,
+                           XML_PARSE_NONET | XML_PARSE_NOWARNING | XML_PARSE_BIG_LINES);
+  xmlFreeParserCtxt (ctxt);
+  return doc;
+}
+
+static gboolean
+check_root (xmlDoc      *doc,
+            const char  *name,
+            GError     **error)
+{
+  xmlNode *root = xmlDocGetRootElement (doc);
+  int line = root ? (int) xmlGetLineNo (root) : 1;
+  g_autofree char *message = NULL;
+  xmlChar *format;
+  gboolean ok = TRUE;
+
+  if (root == NULL)
+    return fail (error, LAMINA_XML_ERROR_MALFORMED, name, 1, _("the document has no root element"));
+  if (root->ns == NULL || strcmp ((const char *) root->ns->href, LAMINA_CATALOGUE_NAMESPACE) != 0
+      || strcmp ((const char *) root->name, "catalogue") != 0)
+    {
+      message = g_strdup_printf (_("not a Lamina catalogue: the root element is <%s> in namespace “%s”, "
+                                   "expected <catalogue> in namespace “%s”"),
+                                 (const char *) root->name,
+                                 root->ns ? (const char *) root->ns->href : "",
+                                 LAMINA_CATALOGUE_NAMESPACE);
+      return fail (error, LAMINA_XML_ERROR_MALFORMED, name, line, message);
+    }
+  format = xmlGetNoNsProp (root, (const xmlChar *) "format");
+  if (format != NULL && strcmp ((const char *) format, "1") != 0)
+    {
+      message = g_strdup_printf (_("catalogue format “%s” is not supported: this version of Lamina "
+                                   "reads format %d"), (const char *) format, LAMINA_CATALOGUE_FORMAT);
+      ok = fail (error, LAMINA_XML_ERROR_MALFORMED, name, line, message);
+    }
+  xmlFree (format);
+  return ok;
+}
+
+static gboolean
+validate (xmlDoc      *doc,
+          const char  *name,
+          ErrorSink   *sink,
+          GError     **error)
+{
+  xmlSchema *schema = get_schema (error);
+  xmlSchemaValidCtxt *vctxt;
+  int rc;
+
+  if (schema == NULL)
+    return FALSE;
+  vctxt = xmlSchemaNewValidCtxt (schema);
+  xmlSchemaSetValidStructuredErrors (vctxt, sink_error_cb, sink);
+  rc = xmlSchemaValidateDoc (vctxt, doc);
+  xmlSchemaFreeValidCtxt (vctxt);
+  if (rc == 0)
+    return TRUE;
+  return fail (error, LAMINA_XML_ERROR_SCHEMA, name, sink->line,
+               sink->message ? sink->message : _("the document breaks the catalogue schema"));
+}
+
+xmlDoc *
+lamina_xml_document_parse (const char  *data,
+                           gsize        length,
+                           const char  *name,
+                           GError     **error)
+{
+  g_autoptr(xmlDoc) doc = NULL;
+  ErrorSink sink = { 0 };
+  xmlStructuredErrorFunc old_structured;
+  xmlGenericErrorFunc old_generic;
+  void *old_structured_context, *old_generic_context;
+  gboolean ok = FALSE;
+
+  g_return_val_if_fail (data != NULL || length == 0, NULL);
+
+  if (name == NULL)
+    name = "<memory>";
+  if (length == 0)
+    {
+      fail (error, LAMINA_XML_ERROR_MALFORMED, name, 1, _("the document is empty"));
+      return NULL;
+    }
+  if (length > LAMINA_CATALOGUE_MAX_SIZE)
+    {
+      fail (error, LAMINA_XML_ERROR_MALFORMED, name, 1, _("the document is larger than 256 MiB"));
+      return NULL;
+    }
+
+  xmlInitParser ();
+  /* These are per thread in libxml2; they catch the few errors that do not
+   * go through a context (encoding conversion, memory). */
+  old_structured = xmlStructuredError;
+  old_structured_context = xmlStructuredErrorContext;
+  old_generic = xmlGenericError;
+  old_generic_context = xmlGenericErrorContext;
+  xmlSetStructuredErrorFunc (&sink, sink_error_cb);
+  xmlSetGenericErrorFunc (NULL, ignore_generic_error_cb);
+
+  doc = parse_safely (data, length, &sink);
+  if (sink.doctype || (doc != NULL && (doc->intSubset != NULL || doc->extSubset != NULL)))
+    fail (error, LAMINA_XML_ERROR_MALFORMED, name, sink.doctype ? sink.doctype_line : 1,
+          _("a document type declaration (DOCTYPE) is not allowed in a catalogue: "
+            "it can declare entities that read files or expand without limit"));
+  else if (doc == NULL)
+    fail (error, LAMINA_XML_ERROR_MALFORMED, name, sink.line,
+          sink.message ? sink.message : _("the document is not well-formed XML"));
+  else if (check_root (doc, name, error))
+    ok = validate (doc, name, &sink, error);
+
+  xmlSetStructuredErrorFunc (old_structured_context, old_structured);
+  xmlSetGenericErrorFunc (old_generic_context, old_generic);
+  g_free (sink.message);
+  return ok ? g_steal_pointer (&doc) : NULL;
+}
