@@ -1,0 +1,38 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-hatch.h: the hatch pattern of each material category.
+ *
+ * A hatch fills a rectangle in section-local coordinates: x runs across
+ * the layer (its thickness), y along it.  The caller sets the transform
+ * that maps this frame onto the page.  Every pattern is black on white,
+ * deterministic (no randomness beyond a fixed seed) and drawn as plain
+ * paths, so that it stays vector in a PDF and cheap on screen. */
+#pragma once
+
+#include <cairo.h>
+#include <glib.h>
+
+#include "lamina-types.h"
+
+G_BEGIN_DECLS
+
+typedef enum
+{
+  LAMINA_HATCH_LAYER,  /* a whole layer: timber is drawn along the grain */
+  LAMINA_HATCH_MEMBER, /* a framing member cut across: timber gets the cross */
+} LaminaHatchUse;
+
+/* Fills (x, y, width, height) with the pattern of @category.  @unit is the
+ * pattern pitch in user units (the section's text size); @seed varies the
+ * stipple between layers.  The rectangle is clipped; the outline is not
+ * drawn. */
+void lamina_hatch_fill (cairo_t        *cr,
+                        LaminaCategory  category,
+                        LaminaHatchUse  use,
+                        double          x,
+                        double          y,
+                        double          width,
+                        double          height,
+                        double          unit,
+                        guint           seed);
+
+G_END_DECLS

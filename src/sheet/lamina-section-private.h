@@ -1,0 +1,48 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-section-private.h: shared between the layout and the painter. */
+#pragma once
+
+#include "lamina-section.h"
+
+G_BEGIN_DECLS
+
+/* Margins around the body, in units of the text size. */
+#define LAMINA_SECTION_SIDE_WIDTH   7.5 /* inside/outside labels beside a wall */
+#define LAMINA_SECTION_SIDE_HEIGHT  3.6 /* … above and below a roof or floor */
+#define LAMINA_SECTION_CHAIN_DEPTH  5.8 /* dimension chain above a wall */
+#define LAMINA_SECTION_CHAIN_WIDTH  9.5 /* … beside a roof or floor */
+#define LAMINA_SECTION_NUMBER_DEPTH 3.6 /* layer numbers */
+
+/* In the local frame: t across the layers, s along the strip; "before"
+ * is the side at smaller t or s. */
+typedef struct
+{
+  double t_before, t_after;
+  double s_before, s_after;
+} LaminaSectionMargins;
+
+void   lamina_section_get_margins       (LaminaSectionOrientation   orientation,
+                                         const LaminaSectionStyle  *style,
+                                         LaminaSectionMargins      *margins);
+double lamina_section_layout_t_to_axis  (const LaminaSectionLayout *layout,
+                                         double                     t);
+double lamina_section_layout_s_extent   (const LaminaSectionLayout *layout);
+void   lamina_section_layout_get_matrix (const LaminaSectionLayout *layout,
+                                         cairo_matrix_t            *matrix);
+
+G_END_DECLS
+
+G_BEGIN_DECLS
+
+/* Spreads labels along one axis: @want holds the wanted centres (in
+ * ascending order), @size their extents; on return @pos holds centres at
+ * least (size_i + size_j)/2 + @gap apart, as close to the wanted ones as
+ * possible (clusters centre on their mean).  @scratch needs 3n doubles. */
+void   lamina_section_spread            (const double *want,
+                                         const double *size,
+                                         guint         n,
+                                         double        gap,
+                                         double       *pos,
+                                         double       *scratch);
+
+G_END_DECLS

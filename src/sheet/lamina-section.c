@@ -1,0 +1,721 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-section.c: the painter of the section drawing. */
+#define G_LOG_DOMAIN "lamina-sheet"
+
+#include "lamina-section-private.h"
+
+#include <glib/gi18n-lib.h>
+#include <math.h>
+#include <pango/pangocairo.h>
+
+#include "lamina-hatch.h"
+#include "lamina-sheet-format.h"
+
+#define OUTLINE 0.11
+#define LINE    0.06
+#define FINE    0.045
+
+struct _LaminaSection
+{
+  /* owned */
+  PangoContext         *context;
+  PangoLayout          *layout;
+  PangoFontDescription *font;
+  PangoFontDescription *font_bold;
+  double               *scratch;   /* 7 × capacity doubles */
+  guint                 capacity;
+  GPtrArray            *members;   /* borrowed member names, per draw */
+};
+
+typedef enum
+{
+  TEXT_REGULAR,
+  TEXT_BOLD,
+} TextFace;
+
+LaminaSection *
+lamina_section_new (void)
+{
+  LaminaSection *self = g_new0 (LaminaSection, 1);
+
+  self->context = pango_font_map_create_context (pango_cairo_font_map_get_default ());
+  pango_cairo_context_set_resolution (self->context, 72.0);
+  self->layout = pango_layout_new (self->context);
+  self->font = pango_font_description_from_string ("DejaVu Sans Condensed");
+  self->font_bold = pango_font_description_from_string ("DejaVu Sans Condensed Bold");
+  self->members = g_ptr_array_new ();
+  return self;
+}
+
+void
+lamina_section_free (LaminaSection *self)
+{
+  if (self == NULL)
+    return;
+  g_clear_object (&self->layout);
+  g_clear_object (&self->context);
+  pango_font_description_free (self->font);
+  pango_font_description_free (self->font_bold);
+  g_ptr_array_unref (self->members);
+  g_free (self->scratch);
+  g_free (self);
+}
+
+static void
+reserve_scratch (LaminaSection *self,
+                 guint          n)
+{
+  if (self->capacity >= n)
+    return;
+  self->capacity = MAX (n, 32);
+  self->scratch = g_renew (double, self->scratch, 7 * self->capacity);
+}
+
+/* Text */
+
+static void
+set_text (LaminaSection *self,
+          const char    *text,
+          TextFace       face,
+          double         size,
+          double        *width,
+          double        *height)
+{
+  PangoFontDescription *font = face == TEXT_BOLD ? self->font_bold : self->font;
+  PangoRectangle logical;
+
+  pango_font_description_set_absolute_size (font, size * PANGO_SCALE);
+  pango_layout_set_font_description (self->layout, font);
+  pango_layout_set_text (self->layout, text, -1);
+  pango_layout_get_extents (self->layout, NULL, &logical);
+  *width = (double) logical.width / PANGO_SCALE;
+  *height = (double) logical.height / PANGO_SCALE;
+}
+
+/* Draws @text with its anchor (ax, ay: fractions of its box) at (x, y) in
+ * user space. */
+static void
+draw_text (LaminaSection *self,
+           cairo_t       *cr,
+           const char    *text,
+           TextFace       face,
+           double         size,
+           double         x,
+           double         y,
+           double         ax,
+           double         ay)
+{
+  double w, h;
+
+  set_text (self, text, face, size, &w, &h);
+  cairo_move_to (cr, x - ax * w, y - ay * h);
+  pango_cairo_show_layout (cr, self->layout);
+}
+
+static void
+measure_text (LaminaSection *self,
+              const char    *text,
+              double         size,
+              double        *width,
+              double        *height)
+{
+  set_text (self, text, TEXT_REGULAR, size, width, height);
+}
+
+/* Geometry helpers */
+
+static void
+map_point (const LaminaSectionLayout *layout,
+           double                     t,
+           double                     s,
+           double                    *x,
+           double                    *y)
+{
+  cairo_matrix_t matrix;
+
+  lamina_section_layout_get_matrix (layout, &matrix);
+  *x = t;
+  *y = s;
+  cairo_matrix_transform_point (&matrix, x, y);
+}
+
+static double
+edge_t (const LaminaSectionLayout *layout,
+        guint                      i)
+{
+  return fabs (layout->edges[i] - layout->edges[0]);
+}
+
+static LaminaCategory
+get_part_category (const LaminaPart *part)
+{
+  return part->material ? part->material->category : LAMINA_CATEGORY_AIR;
+}
+
+static LaminaCategory
+get_layer_category (const LaminaLayer *layer)
+{
+  switch (layer->kind)
+    {
+    case LAMINA_LAYER_MATERIAL:
+      return layer->material ? layer->material->category : LAMINA_CATEGORY_OTHER;
+    case LAMINA_LAYER_AIR:
+      return LAMINA_CATEGORY_AIR;
+    case LAMINA_LAYER_RESISTANCE:
+    case LAMINA_LAYER_BRIDGED:
+    case LAMINA_N_LAYER_KINDS:
+    default:
+      return LAMINA_CATEGORY_OTHER;
+    }
+}
+
+/* The member phase keeps parts of the same named member in line from one
+ * layer to the next. */
+static guint
+get_member_phase (LaminaSection    *self,
+                  const LaminaPart *part,
+                  guint             unnamed_index)
+{
+  if (part->member == NULL)
+    return unnamed_index;
+  for (guint i = 0; i < self->members->len; i++)
+    if (g_strcmp0 (self->members->pdata[i], part->member) == 0)
+      return i;
+  g_ptr_array_add (self->members, part->member);
+  return self->members->len - 1;
+}
+
+/* Layers, in the local frame (x = t, y = s) */
+
+static void
+draw_air_label (LaminaSection     *self,
+                cairo_t           *cr,
+                const LaminaLayer *layer,
+                double             t0,
+                double             t1,
+                double             length,
+                double             unit)
+{
+  const char *text = layer->air == LAMINA_AIR_UNVENTILATED ? _("air") : _("ventilated air");
+  double w, h, size = unit * 0.8;
+
+  if (t1 - t0 < size * 1.3)
+    return;
+  set_text (self, text, TEXT_REGULAR, size, &w, &h);
+  if (w > length * 0.8)
+    return;
+  /* Written along the layer, in the local frame. */
+  cairo_save (cr);
+  cairo_translate (cr, (t0 + t1) / 2, length / 2);
+  cairo_rotate (cr, G_PI / 2);
+  cairo_set_source_rgb (cr, 0.2, 0.2, 0.2);
+  cairo_move_to (cr, -w / 2, -h / 2);
+  pango_cairo_show_layout (cr, self->layout);
+  cairo_restore (cr);
+}
+
+static void
+draw_members (LaminaSection     *self,
+              cairo_t           *cr,
+              const LaminaLayer *layer,
+              guint              bulk,
+              double             t0,
+              double             t1,
+              double             length,
+              double             scale,
+              double             unit,
+              guint              seed)
+{
+  guint unnamed = 0;
+
+  for (guint k = 0; k < layer->parts->len; k++)
+    {
+      const LaminaPart *part = layer->parts->pdata[k];
+      double fraction = lamina_layer_get_part_fraction (layer, k);
+      double spacing, width, phase, first;
+      guint n_phase;
+
+      if (k == bulk || !(fraction > 0))
+        continue;
+      if (part->spacing > 0 && part->width > 0)
+        {
+          spacing = part->spacing * scale;
+          width = part->width * scale;
+        }
+      else
+        {
+          /* Fraction only: a representative 600 mm spacing (common practice
+           * for studs and rafters), closer if the strip is short. */
+          spacing = MIN (600.0 * scale, length / 2.5);
+          width = fraction * spacing;
+        }
+      /* A thin steel web would vanish at drawing scale. */
+      width = MAX (width, unit * 0.3);
+      if (spacing < width + unit * 0.5)
+        spacing = width + unit * 0.5;
+      n_phase = get_member_phase (self, part, unnamed++);
+      phase = n_phase * spacing * 0.37;
+      first = fmod (length / 2 + phase - width / 2, spacing);
+      if (first > 0)
+        first -= spacing;
+      for (double s = first; s < length; s += spacing)
+        {
+          cairo_rectangle (cr, t0, s, t1 - t0, width);
+          cairo_set_source_rgb (cr, 1, 1, 1);
+          cairo_fill (cr);
+          lamina_hatch_fill (cr, get_part_category (part), LAMINA_HATCH_MEMBER,
+                             t0, s, t1 - t0, width, unit, seed + k);
+          cairo_set_source_rgb (cr, 0, 0, 0);
+          cairo_set_line_width (cr, unit * LINE);
+          cairo_rectangle (cr, t0, s, t1 - t0, width);
+          cairo_stroke (cr);
+        }
+    }
+}
+
+static void
+draw_layer (LaminaSection     *self,
+            cairo_t           *cr,
+            const LaminaLayer *layer,
+            guint              index,
+            double             t0,
+            double             t1,
+            double             length,
+            double             scale,
+            double             unit)
+{
+  if (layer->kind == LAMINA_LAYER_BRIDGED && layer->parts && layer->parts->len > 0)
+    {
+      guint bulk = 0;
+      double most = -1;
+
+      /* The part with the largest fraction fills the layer; the others
+       * are the framing members drawn over it. */
+      for (guint k = 0; k < layer->parts->len; k++)
+        {
+          double f = lamina_layer_get_part_fraction (layer, k);
+          if (f > most)
+            {
+              most = f;
+              bulk = k;
+            }
+        }
+      lamina_hatch_fill (cr, get_part_category (layer->parts->pdata[bulk]), LAMINA_HATCH_LAYER,
+                         t0, 0, t1 - t0, length, unit, index * 7);
+      draw_members (self, cr, layer, bulk, t0, t1, length, scale, unit, index * 7);
+      return;
+    }
+  lamina_hatch_fill (cr, get_layer_category (layer), LAMINA_HATCH_LAYER,
+                     t0, 0, t1 - t0, length, unit, index * 7);
+  if (layer->kind == LAMINA_LAYER_AIR)
+    draw_air_label (self, cr, layer, t0, t1, length, unit);
+}
+
+static void
+draw_body (LaminaSection             *self,
+           cairo_t                   *cr,
+           const LaminaSectionLayout *layout,
+           const LaminaConstruction  *construction,
+           const LaminaResult        *result,
+           const LaminaSectionStyle  *style)
+{
+  double length = lamina_section_layout_s_extent (layout);
+  double total = edge_t (layout, layout->n_layers);
+  double u = style->unit;
+
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_rectangle (cr, 0, 0, total, length);
+  cairo_fill (cr);
+
+  g_ptr_array_set_size (self->members, 0);
+  for (guint i = 0; i < layout->n_layers; i++)
+    {
+      const LaminaLayer *layer = construction->layers->pdata[i];
+      double t0 = edge_t (layout, i), t1 = edge_t (layout, i + 1);
+
+      draw_layer (self, cr, layer, i, t0, t1, length, layout->scale, u);
+      if (result && i < result->n_layers && result->layers[i].disregarded)
+        {
+          cairo_set_source_rgba (cr, 1, 1, 1, 0.6);
+          cairo_rectangle (cr, t0, 0, t1 - t0, length);
+          cairo_fill (cr);
+        }
+      if ((int) i == style->highlight_layer)
+        {
+          cairo_set_source_rgba (cr, 0.16, 0.42, 0.85, 0.16);
+          cairo_rectangle (cr, t0, 0, t1 - t0, length);
+          cairo_fill (cr);
+        }
+    }
+
+  /* Faces: heavy at the surfaces, medium between layers; thin ends where
+   * the strip is cut. */
+  cairo_set_source_rgb (cr, 0, 0, 0);
+  cairo_set_line_cap (cr, CAIRO_LINE_CAP_BUTT);
+  cairo_set_line_width (cr, u * LINE);
+  for (guint i = 1; i < layout->n_layers; i++)
+    {
+      cairo_move_to (cr, edge_t (layout, i), 0);
+      cairo_line_to (cr, edge_t (layout, i), length);
+    }
+  cairo_stroke (cr);
+  cairo_set_line_width (cr, u * FINE);
+  cairo_move_to (cr, 0, 0);
+  cairo_line_to (cr, total, 0);
+  cairo_move_to (cr, 0, length);
+  cairo_line_to (cr, total, length);
+  cairo_stroke (cr);
+  cairo_set_line_width (cr, u * OUTLINE);
+  cairo_move_to (cr, 0, 0);
+  cairo_line_to (cr, 0, length);
+  cairo_move_to (cr, total, 0);
+  cairo_line_to (cr, total, length);
+  cairo_stroke (cr);
+
+  if (style->highlight_boundary >= 0 && (guint) style->highlight_boundary <= layout->n_layers)
+    {
+      double t = edge_t (layout, style->highlight_boundary);
+      cairo_set_source_rgb (cr, 0.12, 0.38, 0.85);
+      cairo_set_line_width (cr, u * 0.25);
+      cairo_move_to (cr, t, 0);
+      cairo_line_to (cr, t, length);
+      cairo_stroke (cr);
+    }
+}
+
+/* Where the temperature @celsius sits along the strip. */
+static double
+temperature_s (const LaminaResult *result,
+               double              celsius,
+               double              length)
+{
+  double hi = MAX (result->inside_temperature, result->outside_temperature);
+  double lo = MIN (result->inside_temperature, result->outside_temperature);
+  double span = hi - lo > 1e-9 ? hi - lo : 1.0;
+
+  return length * (0.15 + 0.7 * (hi - celsius) / span);
+}
+
+static void
+draw_profile (cairo_t                   *cr,
+              const LaminaSectionLayout *layout,
+              const LaminaResult        *result,
+              const LaminaSectionStyle  *style)
+{
+  double length = lamina_section_layout_s_extent (layout);
+  double u = style->unit;
+
+  cairo_new_path (cr);
+  cairo_move_to (cr, 0, temperature_s (result, result->surface_temperature_inner, length));
+  for (guint i = 0; i < layout->n_layers && i < result->n_layers; i++)
+    cairo_line_to (cr, edge_t (layout, i + 1),
+                   temperature_s (result, result->layers[i].temperature_outer, length));
+  cairo_set_line_join (cr, CAIRO_LINE_JOIN_ROUND);
+  cairo_set_line_cap (cr, CAIRO_LINE_CAP_ROUND);
+  /* A white halo keeps the line legible over any hatch. */
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_set_line_width (cr, u * 0.42);
+  cairo_stroke_preserve (cr);
+  cairo_set_source_rgb (cr, 0, 0, 0);
+  cairo_set_line_width (cr, u * 0.16);
+  cairo_stroke (cr);
+}
+
+/* Annotations, in user space */
+
+/* Anchor of a label placed outward along local direction (dt, ds). */
+static void
+get_anchor (const LaminaSectionLayout *layout,
+            double                     dt,
+            double                     ds,
+            double                    *ax,
+            double                    *ay)
+{
+  cairo_matrix_t matrix;
+
+  lamina_section_layout_get_matrix (layout, &matrix);
+  cairo_matrix_transform_distance (&matrix, &dt, &ds);
+  *ax = dt > 1e-9 ? 0.0 : dt < -1e-9 ? 1.0 : 0.5;
+  *ay = ds > 1e-9 ? 0.0 : ds < -1e-9 ? 1.0 : 0.5;
+}
+
+static void
+draw_label_at (LaminaSection             *self,
+               cairo_t                   *cr,
+               const LaminaSectionLayout *layout,
+               const char                *text,
+               TextFace                   face,
+               double                     size,
+               double                     t,
+               double                     s,
+               double                     dt,
+               double                     ds)
+{
+  double x, y, ax, ay;
+
+  map_point (layout, t, s, &x, &y);
+  get_anchor (layout, dt, ds, &ax, &ay);
+  draw_text (self, cr, text, face, size, x, y, ax, ay);
+}
+
+/* Wanted centres along t, label extents along t, spread positions. */
+static void
+spread_labels (LaminaSection             *self,
+               const LaminaSectionLayout *layout,
+               guint                      n,
+               double                     gap)
+{
+  double *want = self->scratch, *size = want + self->capacity, *pos = size + self->capacity;
+
+  lamina_section_spread (want, size, n, gap, pos, pos + self->capacity);
+}
+
+static void
+draw_chain (LaminaSection             *self,
+            cairo_t                   *cr,
+            const LaminaSectionLayout *layout,
+            const LaminaConstruction  *construction,
+            const LaminaSectionStyle  *style)
+{
+  double u = style->unit, size = u * 0.85;
+  double chain = -1.6 * u, outer = layout->orientation == LAMINA_SECTION_ACROSS ? -4.2 * u : -5.6 * u;
+  double *want = self->scratch, *extent = want + self->capacity, *pos = extent + self->capacity;
+  gboolean across = layout->orientation == LAMINA_SECTION_ACROSS;
+  guint n = layout->n_layers;
+  char text[LAMINA_FORMAT_SIZE];
+  cairo_matrix_t matrix;
+
+  for (guint i = 0; i < n; i++)
+    {
+      double w, h;
+      want[i] = (edge_t (layout, i) + edge_t (layout, i + 1)) / 2;
+      lamina_format_thickness (text, ((LaminaLayer *) construction->layers->pdata[i])->thickness);
+      measure_text (self, text, size, &w, &h);
+      extent[i] = across ? w : h * 0.8;
+    }
+  spread_labels (self, layout, n, u * 0.25);
+
+  /* Lines in the local frame. */
+  cairo_save (cr);
+  lamina_section_layout_get_matrix (layout, &matrix);
+  cairo_transform (cr, &matrix);
+  cairo_set_source_rgb (cr, 0, 0, 0);
+  cairo_set_line_width (cr, u * FINE);
+  for (guint i = 0; i <= n; i++)
+    {
+      double t = edge_t (layout, i);
+      gboolean end = i == 0 || i == n;
+      cairo_move_to (cr, t, -0.35 * u);
+      cairo_line_to (cr, t, (end ? outer : chain) - 0.45 * u);
+    }
+  cairo_move_to (cr, -0.5 * u, chain);
+  cairo_line_to (cr, edge_t (layout, n) + 0.5 * u, chain);
+  cairo_move_to (cr, -0.5 * u, outer);
+  cairo_line_to (cr, edge_t (layout, n) + 0.5 * u, outer);
+  cairo_stroke (cr);
+  cairo_set_line_width (cr, u * LINE * 1.6);
+  for (guint i = 0; i <= n; i++)
+    {
+      double t = edge_t (layout, i);
+      cairo_move_to (cr, t - 0.3 * u, chain + 0.3 * u);
+      cairo_line_to (cr, t + 0.3 * u, chain - 0.3 * u);
+      if (i == 0 || i == n)
+        {
+          cairo_move_to (cr, t - 0.3 * u, outer + 0.3 * u);
+          cairo_line_to (cr, t + 0.3 * u, outer - 0.3 * u);
+        }
+    }
+  cairo_stroke (cr);
+  cairo_set_line_width (cr, u * FINE);
+  for (guint i = 0; i < n; i++)
+    if (fabs (pos[i] - want[i]) > u * 0.1)
+      {
+        cairo_move_to (cr, want[i], chain);
+        cairo_line_to (cr, pos[i], chain - 0.55 * u);
+      }
+  cairo_stroke (cr);
+  cairo_restore (cr);
+
+  for (guint i = 0; i < n; i++)
+    {
+      gboolean moved = fabs (pos[i] - want[i]) > u * 0.1;
+      lamina_format_thickness (text, ((LaminaLayer *) construction->layers->pdata[i])->thickness);
+      draw_label_at (self, cr, layout, text, TEXT_REGULAR, size,
+                     pos[i], chain - (moved ? 0.55 : 0.2) * u, 0, -1);
+    }
+  lamina_format_thickness (text, layout->thickness);
+  draw_label_at (self, cr, layout, text, TEXT_BOLD, size,
+                 edge_t (layout, n) / 2, outer - 0.2 * u, 0, -1);
+}
+
+static void
+draw_numbers (LaminaSection             *self,
+              cairo_t                   *cr,
+              const LaminaSectionLayout *layout,
+              const LaminaSectionStyle  *style)
+{
+  double u = style->unit, r = 0.7 * u, length = lamina_section_layout_s_extent (layout);
+  double *want = self->scratch, *extent = want + self->capacity, *pos = extent + self->capacity;
+  double ring = length + 2.1 * u;
+  guint n = layout->n_layers;
+  cairo_matrix_t matrix;
+
+  for (guint i = 0; i < n; i++)
+    {
+      want[i] = (edge_t (layout, i) + edge_t (layout, i + 1)) / 2;
+      extent[i] = 2 * r;
+    }
+  spread_labels (self, layout, n, u * 0.2);
+
+  cairo_save (cr);
+  lamina_section_layout_get_matrix (layout, &matrix);
+  cairo_transform (cr, &matrix);
+  cairo_set_line_width (cr, u * FINE);
+  for (guint i = 0; i < n; i++)
+    {
+      double dot = length - MIN (0.8 * u, length * 0.1);
+      cairo_new_sub_path (cr);
+      cairo_arc (cr, want[i], dot, u * 0.12, 0, 2 * G_PI);
+      cairo_fill (cr);
+      cairo_move_to (cr, want[i], dot);
+      cairo_line_to (cr, want[i], length + 0.5 * u);
+      cairo_line_to (cr, pos[i], ring - r);
+      cairo_stroke (cr);
+      cairo_new_sub_path (cr);
+      cairo_arc (cr, pos[i], ring, r, 0, 2 * G_PI);
+      cairo_set_source_rgb (cr, 1, 1, 1);
+      cairo_fill_preserve (cr);
+      cairo_set_source_rgb (cr, 0, 0, 0);
+      cairo_stroke (cr);
+    }
+  cairo_restore (cr);
+
+  for (guint i = 0; i < n; i++)
+    {
+      char text[16];
+      double x, y;
+
+      g_snprintf (text, sizeof text, "%u", i + 1);
+      map_point (layout, pos[i], ring, &x, &y);
+      draw_text (self, cr, text, TEXT_BOLD, u * 0.8, x, y, 0.5, 0.5);
+    }
+}
+
+static void
+draw_sides (LaminaSection             *self,
+            cairo_t                   *cr,
+            const LaminaSectionLayout *layout,
+            const LaminaConstruction  *construction,
+            const LaminaResult        *result,
+            const LaminaSectionStyle  *style)
+{
+  LaminaSectionMargins m;
+  double u = style->unit, length = lamina_section_layout_s_extent (layout);
+  double total = edge_t (layout, layout->n_layers);
+  const char *sep = layout->orientation == LAMINA_SECTION_ACROSS ? "\n" : "  ";
+  const char *outer_name = construction->outer_side == LAMINA_OUTER_SIDE_INDOOR
+                           ? _("adjacent space") : _("outside");
+  char temp[LAMINA_FORMAT_SIZE];
+  g_autofree char *inside = NULL;
+  g_autofree char *outside = NULL;
+  double inside_t = result ? result->inside_temperature : construction->inside_temperature;
+  double outside_t = result ? result->outside_temperature : construction->outside_temperature;
+
+  lamina_section_get_margins (layout->orientation, style, &m);
+  inside = g_strconcat (_("inside"), sep, lamina_format_temperature (temp, inside_t), NULL);
+  outside = g_strconcat (outer_name, sep, lamina_format_temperature (temp, outside_t), NULL);
+
+  pango_layout_set_alignment (self->layout, PANGO_ALIGN_CENTER);
+  draw_label_at (self, cr, layout, inside, TEXT_BOLD, u, -m.t_before / 2, length / 2, 0, 0);
+  draw_label_at (self, cr, layout, outside, TEXT_BOLD, u, total + m.t_after / 2, length / 2, 0, 0);
+  pango_layout_set_alignment (self->layout, PANGO_ALIGN_LEFT);
+
+  if (result && style->temperatures)
+    {
+      double si = temperature_s (result, result->surface_temperature_inner, length);
+      double se = temperature_s (result, result->surface_temperature_outer, length);
+
+      draw_label_at (self, cr, layout, lamina_format_temperature (temp, result->surface_temperature_inner),
+                     TEXT_REGULAR, u * 0.8, -0.4 * u, si, -1, 0);
+      draw_label_at (self, cr, layout, lamina_format_temperature (temp, result->surface_temperature_outer),
+                     TEXT_REGULAR, u * 0.8, total + 0.4 * u, se, 1, 0);
+    }
+}
+
+void
+lamina_section_draw (LaminaSection             *self,
+                     cairo_t                   *cr,
+                     const LaminaSectionLayout *layout,
+                     const LaminaConstruction  *construction,
+                     const LaminaResult        *result,
+                     const LaminaSectionStyle  *style)
+{
+  cairo_matrix_t matrix;
+
+  g_return_if_fail (self != NULL && cr != NULL && layout != NULL);
+  g_return_if_fail (construction != NULL && style != NULL);
+  g_return_if_fail (layout->n_layers == construction->layers->len);
+
+  if (layout->n_layers == 0)
+    return;
+  reserve_scratch (self, layout->n_layers + 1);
+  pango_cairo_update_context (cr, self->context);
+  pango_layout_context_changed (self->layout);
+
+  cairo_save (cr);
+  lamina_section_layout_get_matrix (layout, &matrix);
+  cairo_transform (cr, &matrix);
+  draw_body (self, cr, layout, construction, result, style);
+  if (result && style->temperatures && result->n_layers == layout->n_layers)
+    draw_profile (cr, layout, result, style);
+  cairo_restore (cr);
+
+  cairo_save (cr);
+  cairo_set_source_rgb (cr, 0, 0, 0);
+  if (style->dimensions)
+    draw_chain (self, cr, layout, construction, style);
+  if (style->numbers)
+    draw_numbers (self, cr, layout, style);
+  if (style->sides)
+    draw_sides (self, cr, layout, construction, result, style);
+  cairo_restore (cr);
+}
+
+gboolean
+lamina_section_write_png (const LaminaConstruction *construction,
+                          const LaminaResult       *result,
+                          int                       width,
+                          int                       height,
+                          const char               *path,
+                          GError                  **error)
+{
+  g_autoptr(LaminaSection) painter = lamina_section_new ();
+  LaminaSectionLayout layout;
+  LaminaSectionStyle style;
+  cairo_surface_t *surface;
+  cairo_status_t status;
+  cairo_t *cr;
+
+  g_return_val_if_fail (construction != NULL && path != NULL, FALSE);
+  g_return_val_if_fail (width > 0 && height > 0, FALSE);
+
+  lamina_section_style_init (&style, CLAMP (MIN (width, height) / 38.0, 9.0, 20.0));
+  lamina_section_layout_init (&layout);
+  surface = cairo_image_surface_create (CAIRO_FORMAT_RGB24, width, height);
+  cr = cairo_create (surface);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  lamina_section_layout_compute (&layout, construction, &style, 0, 0, width, height);
+  lamina_section_draw (painter, cr, &layout, construction, result, &style);
+  cairo_destroy (cr);
+  status = cairo_surface_write_to_png (surface, path);
+  cairo_surface_destroy (surface);
+  lamina_section_layout_clear (&layout);
+  if (status != CAIRO_STATUS_SUCCESS)
+    {
+      g_set_error (error, G_FILE_ERROR, G_FILE_ERROR_FAILED,
+                   _("%s: cannot write the PNG: %s"), path, cairo_status_to_string (status));
+      return FALSE;
+    }
+  return TRUE;
+}
