@@ -8,7 +8,9 @@
  * layer that shares no member with another is a pattern of its own whose
  * sections are its parts.  Patterns are independent of each other (crossing
  * battens): the sections of the construction are every combination, with
- * the product of the fractions. */
+ * the product of the fractions.
+ *
+ * All working memory comes from the calculation's scratch arena. */
 #define G_LOG_DOMAIN "lamina-core"
 
 #include "lamina-calc-private.h"
@@ -21,10 +23,12 @@
 
 typedef struct
 {
-  guint   n_sections;
-  double *fraction;     /* per section of the pattern */
-  GArray *layers;       /* guint: layer indices in the pattern */
-  guint8 *choice;       /* n_sections × layers->len: part per layer */
+  guint        n_layers;
+  guint       *layers;       /* layer indices in the pattern */
+  gboolean     has_members;
+  guint        n_sections;
+  double      *fraction;     /* per section */
+  guint8      *choice;       /* n_sections × n_layers: part per layer */
 } Pattern;
 
 static guint
@@ -75,11 +79,12 @@ find_part (const LaminaLayer *layer,
 /* A pattern of one layer without named members: its parts are the sections. */
 static void
 build_plain_pattern (const LaminaLayer *layer,
+                     LaminaScratch     *scratch,
                      Pattern           *pattern)
 {
   pattern->n_sections = layer->parts->len;
-  pattern->fraction = g_new (double, pattern->n_sections);
-  pattern->choice = g_new (guint8, pattern->n_sections);
+  pattern->fraction = lamina_scratch_alloc (scratch, sizeof (double) * pattern->n_sections);
+  pattern->choice = lamina_scratch_alloc (scratch, pattern->n_sections);
   for (guint p = 0; p < layer->parts->len; p++)
     {
       pattern->fraction[p] = lamina_layer_get_part_fraction (layer, p);
@@ -89,18 +94,24 @@ build_plain_pattern (const LaminaLayer *layer,
 
 static gboolean
 build_member_pattern (const LaminaConstruction *c,
+                      LaminaScratch            *scratch,
                       Pattern                  *pattern,
                       GError                  **error)
 {
-  g_autoptr(GPtrArray) names = g_ptr_array_new ();
-  g_autoptr(GArray) fractions = g_array_new (FALSE, FALSE, sizeof (double));
-  guint n_layers = pattern->layers->len;
+  guint max_names = 0, n_names = 0;
+  const char **names;
+  double *fractions;
   double sum = 0.0;
   gboolean background;
 
-  for (guint k = 0; k < n_layers; k++)
+  for (guint k = 0; k < pattern->n_layers; k++)
+    max_names += ((LaminaLayer *) c->layers->pdata[pattern->layers[k]])->parts->len;
+  names = lamina_scratch_alloc (scratch, sizeof (char *) * max_names);
+  fractions = lamina_scratch_alloc (scratch, sizeof (double) * max_names);
+
+  for (guint k = 0; k < pattern->n_layers; k++)
     {
-      const LaminaLayer *layer = c->layers->pdata[g_array_index (pattern->layers, guint, k)];
+      const LaminaLayer *layer = c->layers->pdata[pattern->layers[k]];
 
       for (guint p = 0; p < layer->parts->len; p++)
         {
@@ -109,14 +120,13 @@ build_member_pattern (const LaminaConstruction *c,
 
           if (part->member == NULL)
             continue;
-          for (guint m = 0; m < names->len && !known; m++)
-            known = strcmp (names->pdata[m], part->member) == 0;
+          for (guint m = 0; m < n_names && !known; m++)
+            known = strcmp (names[m], part->member) == 0;
           if (!known)
             {
-              double f = lamina_layer_get_part_fraction (layer, p);
-              g_ptr_array_add (names, part->member);
-              g_array_append_val (fractions, f);
-              sum += f;
+              fractions[n_names] = lamina_layer_get_part_fraction (layer, p);
+              sum += fractions[n_names];
+              names[n_names++] = part->member;
             }
         }
     }
@@ -124,21 +134,21 @@ build_member_pattern (const LaminaConstruction *c,
     {
       g_set_error (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_INVALID,
                    _("layer %u: the framing members that line up through its layers cover a fraction %g, more than 1"),
-                   g_array_index (pattern->layers, guint, 0) + 1, sum);
+                   pattern->layers[0] + 1, sum);
       return FALSE;
     }
   background = 1.0 - sum > TOLERANCE;
-  pattern->n_sections = names->len + (background ? 1 : 0);
-  pattern->fraction = g_new (double, pattern->n_sections);
-  pattern->choice = g_new (guint8, pattern->n_sections * n_layers);
+  pattern->n_sections = n_names + (background ? 1 : 0);
+  pattern->fraction = lamina_scratch_alloc (scratch, sizeof (double) * pattern->n_sections);
+  pattern->choice = lamina_scratch_alloc (scratch, (gsize) pattern->n_sections * pattern->n_layers);
   for (guint s = 0; s < pattern->n_sections; s++)
     {
-      const char *member = s < names->len ? names->pdata[s] : NULL;
+      const char *member = s < n_names ? names[s] : NULL;
 
-      pattern->fraction[s] = member ? g_array_index (fractions, double, s) : 1.0 - sum;
-      for (guint k = 0; k < n_layers; k++)
+      pattern->fraction[s] = member ? fractions[s] : 1.0 - sum;
+      for (guint k = 0; k < pattern->n_layers; k++)
         {
-          guint index = g_array_index (pattern->layers, guint, k);
+          guint index = pattern->layers[k];
           const LaminaLayer *layer = c->layers->pdata[index];
           int part = member ? find_part (layer, member) : -1;
 
@@ -152,42 +162,32 @@ build_member_pattern (const LaminaConstruction *c,
                            index + 1, member ? "“" : "", member ? member : _("the infill"), member ? "”" : "");
               return FALSE;
             }
-          pattern->choice[s * n_layers + k] = (guint8) part;
+          pattern->choice[s * pattern->n_layers + k] = (guint8) part;
         }
     }
   return TRUE;
 }
 
-static void
-clear_pattern (Pattern *pattern)
-{
-  g_free (pattern->fraction);
-  g_free (pattern->choice);
-  if (pattern->layers != NULL)
-    g_array_unref (pattern->layers);
-}
-
 static gboolean
-pattern_has_members (const LaminaConstruction *c,
-                     const Pattern            *pattern)
+layer_has_members (const LaminaLayer *layer)
 {
-  for (guint k = 0; k < pattern->layers->len; k++)
-    {
-      const LaminaLayer *layer = c->layers->pdata[g_array_index (pattern->layers, guint, k)];
-      for (guint p = 0; p < layer->parts->len; p++)
-        if (((LaminaPart *) layer->parts->pdata[p])->member != NULL)
-          return TRUE;
-    }
+  for (guint p = 0; p < layer->parts->len; p++)
+    if (((LaminaPart *) layer->parts->pdata[p])->member != NULL)
+      return TRUE;
   return FALSE;
 }
 
-static GArray *
-group_patterns (const LaminaConstruction *c)
+/* Groups the bridged layers into patterns; returns their number. */
+static guint
+group_patterns (const LaminaConstruction *c,
+                LaminaScratch            *scratch,
+                Pattern                 **out)
 {
-  guint n = c->layers->len;
-  g_autofree guint *parent = g_new (guint, n);
-  GArray *patterns = g_array_new (FALSE, TRUE, sizeof (Pattern));
-  g_autofree int *pattern_of_root = g_new (int, n);
+  guint n = c->layers->len, n_patterns = 0, used = 0;
+  guint *parent = lamina_scratch_alloc (scratch, sizeof (guint) * n);
+  int *pattern_of_root = lamina_scratch_alloc (scratch, sizeof (int) * n);
+  guint *members_of = lamina_scratch_alloc (scratch, sizeof (guint) * n);
+  Pattern *patterns = lamina_scratch_alloc (scratch, sizeof (Pattern) * n);
 
   for (guint i = 0; i < n; i++)
     {
@@ -197,7 +197,7 @@ group_patterns (const LaminaConstruction *c)
   for (guint i = 0; i < n; i++)
     {
       const LaminaLayer *a = c->layers->pdata[i];
-      if (a->kind != LAMINA_LAYER_BRIDGED)
+      if (a->kind != LAMINA_LAYER_BRIDGED || !layer_has_members (a))
         continue;
       for (guint j = i + 1; j < n; j++)
         {
@@ -206,97 +206,93 @@ group_patterns (const LaminaConstruction *c)
             parent[find_root (parent, j)] = find_root (parent, i);
         }
     }
+  /* Count the layers of each pattern, then hand out slices of one array. */
   for (guint i = 0; i < n; i++)
     {
       guint root;
-      Pattern *pattern;
 
       if (((LaminaLayer *) c->layers->pdata[i])->kind != LAMINA_LAYER_BRIDGED)
         continue;
       root = find_root (parent, i);
       if (pattern_of_root[root] < 0)
-        {
-          Pattern fresh = { 0, NULL, g_array_new (FALSE, FALSE, sizeof (guint)), NULL };
-          pattern_of_root[root] = (int) patterns->len;
-          g_array_append_val (patterns, fresh);
-        }
-      pattern = &g_array_index (patterns, Pattern, pattern_of_root[root]);
-      g_array_append_val (pattern->layers, i);
+        pattern_of_root[root] = (int) n_patterns++;
+      members_of[pattern_of_root[root]]++;
     }
-  return patterns;
+  for (guint k = 0; k < n_patterns; k++)
+    {
+      patterns[k].layers = lamina_scratch_alloc (scratch, sizeof (guint) * members_of[k]);
+      used += members_of[k];
+    }
+  for (guint i = 0; i < n; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+      Pattern *pattern;
+
+      if (layer->kind != LAMINA_LAYER_BRIDGED)
+        continue;
+      pattern = &patterns[pattern_of_root[find_root (parent, i)]];
+      pattern->layers[pattern->n_layers++] = i;
+      pattern->has_members |= layer_has_members (layer);
+    }
+  g_assert (used <= n);
+  *out = patterns;
+  return n_patterns;
 }
 
 gboolean
 lamina_sections_build (const LaminaConstruction *c,
+                       LaminaScratch            *scratch,
                        LaminaSections           *sections,
                        GError                  **error)
 {
-  g_autoptr(GArray) patterns = group_patterns (c);
+  Pattern *patterns = NULL;
+  guint n_patterns = group_patterns (c, scratch, &patterns);
   guint n_layers = c->layers->len;
   guint total = 1;
-  gboolean ok = TRUE;
 
   memset (sections, 0, sizeof *sections);
   sections->n_layers = n_layers;
 
-  for (guint k = 0; k < patterns->len && ok; k++)
+  for (guint k = 0; k < n_patterns; k++)
     {
-      Pattern *pattern = &g_array_index (patterns, Pattern, k);
+      Pattern *pattern = &patterns[k];
 
-      if (pattern_has_members (c, pattern))
-        ok = build_member_pattern (c, pattern, error);
-      else
-        build_plain_pattern (c->layers->pdata[g_array_index (pattern->layers, guint, 0)], pattern);
-      if (ok && total * pattern->n_sections > LAMINA_MAX_SECTIONS)
+      if (!pattern->has_members)
+        build_plain_pattern (c->layers->pdata[pattern->layers[0]], scratch, pattern);
+      else if (!build_member_pattern (c, scratch, pattern, error))
+        return FALSE;
+      if (total * pattern->n_sections > LAMINA_MAX_SECTIONS)
         {
           g_set_error (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_UNSUPPORTED,
                        _("the bridged layers combine into more than %d heat-flow sections; "
                          "simplify the build-up or calculate it numerically (EN ISO 10211)"),
                        LAMINA_MAX_SECTIONS);
-          ok = FALSE;
+          return FALSE;
         }
-      if (ok)
-        total *= pattern->n_sections;
+      total *= pattern->n_sections;
     }
 
-  if (ok)
+  sections->n_sections = total;
+  sections->fraction = lamina_scratch_alloc (scratch, sizeof (double) * total);
+  sections->choice = lamina_scratch_alloc (scratch, (gsize) total * n_layers);
+  /* Enumerate every combination in mixed radix over the patterns. */
+  for (guint s = 0; s < total; s++)
     {
-      sections->n_sections = total;
-      sections->fraction = g_new (double, total);
-      sections->choice = g_new0 (guint8, (gsize) total * n_layers);
-      /* Enumerate every combination in mixed radix over the patterns. */
-      for (guint s = 0; s < total; s++)
+      guint rest = s;
+      double f = 1.0;
+
+      for (guint k = 0; k < n_patterns; k++)
         {
-          guint rest = s;
-          double f = 1.0;
+          const Pattern *pattern = &patterns[k];
+          guint digit = rest % pattern->n_sections;
 
-          for (guint k = 0; k < patterns->len; k++)
-            {
-              const Pattern *pattern = &g_array_index (patterns, Pattern, k);
-              guint digit = rest % pattern->n_sections;
-
-              rest /= pattern->n_sections;
-              f *= pattern->fraction[digit];
-              for (guint l = 0; l < pattern->layers->len; l++)
-                {
-                  guint index = g_array_index (pattern->layers, guint, l);
-                  sections->choice[(gsize) s * n_layers + index] =
-                    pattern->choice[digit * pattern->layers->len + l];
-                }
-            }
-          sections->fraction[s] = f;
+          rest /= pattern->n_sections;
+          f *= pattern->fraction[digit];
+          for (guint l = 0; l < pattern->n_layers; l++)
+            sections->choice[(gsize) s * n_layers + pattern->layers[l]] =
+              pattern->choice[digit * pattern->n_layers + l];
         }
+      sections->fraction[s] = f;
     }
-
-  for (guint k = 0; k < patterns->len; k++)
-    clear_pattern (&g_array_index (patterns, Pattern, k));
-  return ok;
-}
-
-void
-lamina_sections_clear (LaminaSections *sections)
-{
-  g_clear_pointer (&sections->fraction, g_free);
-  g_clear_pointer (&sections->choice, g_free);
-  sections->n_sections = 0;
+  return TRUE;
 }

@@ -8,6 +8,14 @@ G_BEGIN_DECLS
 
 #define LAMINA_MAX_SECTIONS 4096
 
+/* Per-thread working memory of one calculation (lamina-scratch.c). */
+typedef struct _LaminaScratch LaminaScratch;
+LaminaScratch *lamina_scratch_begin (void);
+void           lamina_scratch_end   (LaminaScratch *scratch);
+/* Zeroed, 16-byte aligned, valid until lamina_scratch_end(). */
+gpointer       lamina_scratch_alloc (LaminaScratch *scratch,
+                                     gsize          bytes);
+
 /* The parallel heat-flow paths through a construction (EN ISO 6946:2017
  * 6.7.2.2).  Section s covers area fraction fraction[s]; in bridged layer i
  * it passes through part choice[s * n_layers + i] (0 for other layers). */
@@ -19,10 +27,11 @@ typedef struct
   guint8  *choice;
 } LaminaSections;
 
+/* The arrays of @sections come from @scratch. */
 gboolean lamina_sections_build (const LaminaConstruction *construction,
+                                LaminaScratch            *scratch,
                                 LaminaSections           *sections,
                                 GError                  **error);
-void     lamina_sections_clear (LaminaSections           *sections);
 
 /* A result with its arrays allocated, for the engine to fill. */
 LaminaResult *lamina_result_new     (guint                     n_layers);

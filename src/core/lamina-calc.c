@@ -49,20 +49,8 @@ typedef struct
   guint          *bridged;    /* indices of bridged layers */
   guint           n_bridged;
   LaminaSections  sections;
+  LaminaScratch  *scratch;
 } Calc;
-
-static void
-calc_clear (Calc *calc)
-{
-  if (calc->part_r != NULL)
-    for (guint i = 0; i < calc->n; i++)
-      g_free (calc->part_r[i]);
-  g_free (calc->part_r);
-  g_free (calc->r);
-  g_free (calc->air);
-  g_free (calc->bridged);
-  lamina_sections_clear (&calc->sections);
-}
 
 static LaminaAirKind
 effective_air_class (const LaminaLayer *layer)
@@ -122,7 +110,7 @@ resolve_layers (Calc                     *calc,
           {
             double conductance = 0.0;
 
-            calc->part_r[i] = g_new (double, layer->parts->len);
+            calc->part_r[i] = lamina_scratch_alloc (calc->scratch, sizeof (double) * layer->parts->len);
             for (guint p = 0; p < layer->parts->len; p++)
               {
                 const LaminaPart *part = layer->parts->pdata[p];
@@ -437,15 +425,16 @@ lamina_calculate (const LaminaConstruction *construction,
   /* 6.8: a face to another indoor space takes Rsi on both sides. */
   calc.rse = c->outer_side == LAMINA_OUTER_SIDE_INDOOR ? calc.rsi
                                                        : lamina_surface_resistance_outside (c->heat_flow);
-  calc.r = g_new0 (double, calc.n);
-  calc.part_r = g_new0 (double *, calc.n);
-  calc.air = g_new0 (LaminaAirKind, calc.n);
-  calc.bridged = g_new0 (guint, calc.n);
+  calc.scratch = lamina_scratch_begin ();
+  calc.r = lamina_scratch_alloc (calc.scratch, sizeof (double) * calc.n);
+  calc.part_r = lamina_scratch_alloc (calc.scratch, sizeof (double *) * calc.n);
+  calc.air = lamina_scratch_alloc (calc.scratch, sizeof (LaminaAirKind) * calc.n);
+  calc.bridged = lamina_scratch_alloc (calc.scratch, sizeof (guint) * calc.n);
 
   if (!resolve_layers (&calc, c->heat_flow, error)
-      || !lamina_sections_build (c, &calc.sections, error))
+      || !lamina_sections_build (c, calc.scratch, &calc.sections, error))
     {
-      calc_clear (&calc);
+      lamina_scratch_end (calc.scratch);
       return NULL;
     }
 
@@ -472,6 +461,6 @@ lamina_calculate (const LaminaConstruction *construction,
   apply_corrections (&calc, cut, result);
   check_target (c, result);
 
-  calc_clear (&calc);
+  lamina_scratch_end (calc.scratch);
   return result;
 }

@@ -34,8 +34,9 @@ lamina_result_copy (const LaminaResult *result)
 
   g_return_val_if_fail (result != NULL, NULL);
 
-  copy = g_memdup2 (result, sizeof *result);
-  copy->layers = g_memdup2 (result->layers, sizeof (LaminaLayerResult) * result->n_layers);
+  /* The layer results live in the same block, right after the struct. */
+  copy = g_memdup2 (result, sizeof *result + sizeof (LaminaLayerResult) * result->n_layers);
+  copy->layers = (LaminaLayerResult *) (copy + 1);
   copy->warnings = g_ptr_array_copy (result->warnings, warning_copy, NULL);
   g_ptr_array_set_free_func (copy->warnings, warning_free);
   return copy;
@@ -46,7 +47,6 @@ lamina_result_free (LaminaResult *result)
 {
   if (result == NULL)
     return;
-  g_free (result->layers);
   g_ptr_array_unref (result->warnings);
   g_free (result);
 }
@@ -64,10 +64,10 @@ lamina_result_has_warning (const LaminaResult *result,
 LaminaResult *
 lamina_result_new (guint n_layers)
 {
-  LaminaResult *result = g_new0 (LaminaResult, 1);
+  LaminaResult *result = g_malloc0 (sizeof *result + sizeof (LaminaLayerResult) * n_layers);
 
   result->n_layers = n_layers;
-  result->layers = g_new0 (LaminaLayerResult, n_layers);
+  result->layers = (LaminaLayerResult *) (result + 1);
   result->warnings = g_ptr_array_new_with_free_func (warning_free);
   return result;
 }

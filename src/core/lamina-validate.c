@@ -9,6 +9,7 @@
 
 #include <glib/gi18n-lib.h>
 #include <math.h>
+#include <string.h>
 
 G_DEFINE_QUARK (lamina-calc-error-quark, lamina_calc_error)
 
@@ -117,7 +118,8 @@ check_range (Check      *check,
 {
   if (in_range (value, min, max, open_min))
     return TRUE;
-  return fail_at (check, line, where, _("%s %g is outside the allowed range %s%g to %g%s%s"), field, value, open_min ? _("above ") : "", min, max,
+  /* @field is marked with N_() by the callers and translated only here. */
+  return fail_at (check, line, where, _("%s %g is outside the allowed range %s%g to %g%s%s"), _(field), value, open_min ? _("above ") : "", min, max,
                unit[0] ? " " : "", unit);
 }
 
@@ -129,7 +131,7 @@ check_material (Check                *check,
 {
   if (material == NULL)
     return fail_at (check, line, where, _("no material"));
-  return check_range (check, line, where, _("thermal conductivity"),
+  return check_range (check, line, where, N_("thermal conductivity"),
                       material->conductivity, 0, 1000, TRUE, "W/(m·K)");
 }
 
@@ -150,15 +152,31 @@ check_part (Check             *check,
   if (has_width != has_spacing)
     return fail_at (check, part->line, where, _("width and spacing go together"));
   if (has_fraction)
-    return check_range (check, part->line, where, _("fraction"), part->fraction, 0, 1, TRUE, "");
+    return check_range (check, part->line, where, N_("fraction"), part->fraction, 0, 1, TRUE, "");
   if (has_width)
     {
-      if (!check_range (check, part->line, where, _("spacing"), part->spacing, 0, 100000, TRUE, "mm")
-          || !check_range (check, part->line, where, _("width"), part->width, 0, part->spacing, TRUE, "mm"))
+      if (!check_range (check, part->line, where, N_("spacing"), part->spacing, 0, 100000, TRUE, "mm")
+          || !check_range (check, part->line, where, N_("width"), part->width, 0, part->spacing, TRUE, "mm"))
         return FALSE;
     }
   (void) layer;
   return TRUE;
+}
+
+/* Index of the part before @before that names @member, or -1.  Layers have
+ * a handful of parts: a scan beats a hash table here. */
+static int
+find_member (const LaminaLayer *layer,
+             guint              before,
+             const char        *member)
+{
+  for (guint q = 0; q < before; q++)
+    {
+      const LaminaPart *part = layer->parts->pdata[q];
+      if (part->member != NULL && strcmp (part->member, member) == 0)
+        return (int) q;
+    }
+  return -1;
 }
 
 static gboolean
@@ -168,7 +186,6 @@ check_parts (Check             *check,
 {
   double sum = 0.0;
   int n_rest = 0, n_unnamed = 0, n_named = 0;
-  g_autoptr(GHashTable) members = g_hash_table_new (g_str_hash, g_str_equal);
 
   if (layer->parts == NULL || layer->parts->len == 0)
     return fail_at (check, layer->line, where, _("a bridged layer needs at least one part"));
@@ -190,7 +207,7 @@ check_parts (Check             *check,
         sum += f;
       if (part->member == NULL)
         n_unnamed++;
-      else if (!g_hash_table_add (members, part->member))
+      else if (find_member (layer, p, part->member) >= 0)
         return fail_at (check, part->line, part_where, _("member “%s” appears twice in this layer"), part->member);
       else
         n_named++;
@@ -221,23 +238,23 @@ check_corrections (Check             *check,
     return fail_at (check, layer->line, where, _("air gap level %d is not 0, 1 or 2"), k->air_gap_level);
   if (k->has_fasteners)
     {
-      if (!check_range (check, layer->line, where, _("fastener conductivity"),
+      if (!check_range (check, layer->line, where, N_("fastener conductivity"),
                         k->fastener_conductivity, 0, 1000, TRUE, "W/(m·K)")
-          || !check_range (check, layer->line, where, _("fastener cross-section"),
+          || !check_range (check, layer->line, where, N_("fastener cross-section"),
                            k->fastener_cross_section, 0, 10000, TRUE, "mm²")
-          || !check_range (check, layer->line, where, _("fasteners per square metre"),
+          || !check_range (check, layer->line, where, N_("fasteners per square metre"),
                            k->fasteners_per_square_metre, 0, 1000, TRUE, "1/m²"))
         return FALSE;
       if (!isnan (k->fastener_penetration)
-          && !check_range (check, layer->line, where, _("fastener penetration"),
+          && !check_range (check, layer->line, where, N_("fastener penetration"),
                            k->fastener_penetration, 0, layer->thickness, TRUE, "mm"))
         return FALSE;
     }
   if (k->has_inverted_roof)
     {
-      if (!check_range (check, layer->line, where, _("precipitation"),
+      if (!check_range (check, layer->line, where, N_("precipitation"),
                         k->precipitation, 0, 100, FALSE, "mm/day")
-          || !check_range (check, layer->line, where, _("drainage factor"),
+          || !check_range (check, layer->line, where, N_("drainage factor"),
                            k->drainage_factor, 0, 1, FALSE, ""))
         return FALSE;
     }
@@ -251,7 +268,7 @@ check_layer (Check             *check,
 {
   Where where = { number, 0 };
 
-  if (!check_range (check, layer->line, where, _("thickness"), layer->thickness, 0, 10000, TRUE, "mm"))
+  if (!check_range (check, layer->line, where, N_("thickness"), layer->thickness, 0, 10000, TRUE, "mm"))
     return FALSE;
   switch (layer->kind)
     {
@@ -260,20 +277,20 @@ check_layer (Check             *check,
         return FALSE;
       break;
     case LAMINA_LAYER_RESISTANCE:
-      if (!check_range (check, layer->line, where, _("thermal resistance"),
+      if (!check_range (check, layer->line, where, N_("thermal resistance"),
                         layer->resistance, 0, 100, FALSE, "m²·K/W"))
         return FALSE;
       break;
     case LAMINA_LAYER_AIR:
       if ((guint) layer->air >= LAMINA_N_AIR_KINDS)
         return fail_at (check, layer->line, where, _("unknown air layer ventilation"));
-      if (!check_range (check, layer->line, where, _("inner emissivity"),
+      if (!check_range (check, layer->line, where, N_("inner emissivity"),
                         layer->emissivity_inner, 0, 1, TRUE, "")
-          || !check_range (check, layer->line, where, _("outer emissivity"),
+          || !check_range (check, layer->line, where, N_("outer emissivity"),
                            layer->emissivity_outer, 0, 1, TRUE, ""))
         return FALSE;
       if (!isnan (layer->vent_area)
-          && !check_range (check, layer->line, where, _("vent area"),
+          && !check_range (check, layer->line, where, N_("vent area"),
                            layer->vent_area, 0, 1e6, FALSE, "mm²"))
         return FALSE;
       if (layer->air == LAMINA_AIR_SLIGHTLY_VENTILATED && isnan (layer->vent_area))
@@ -296,8 +313,7 @@ static gboolean
 check_members (Check                    *check,
                const LaminaConstruction *c)
 {
-  g_autoptr(GHashTable) seen = g_hash_table_new_full (g_str_hash, g_str_equal, NULL, g_free);
-
+  /* Compare each named part with the first earlier layer naming it. */
   for (guint i = 0; i < c->layers->len; i++)
     {
       const LaminaLayer *layer = c->layers->pdata[i];
@@ -307,23 +323,28 @@ check_members (Check                    *check,
       for (guint p = 0; p < layer->parts->len; p++)
         {
           const LaminaPart *part = layer->parts->pdata[p];
-          double f = lamina_layer_get_part_fraction (layer, p);
-          double *known;
+          double f;
 
           if (part->member == NULL)
             continue;
-          known = g_hash_table_lookup (seen, part->member);
-          if (known == NULL)
+          f = lamina_layer_get_part_fraction (layer, p);
+          for (guint j = 0; j < i; j++)
             {
-              known = g_new (double, 1);
-              *known = f;
-              g_hash_table_insert (seen, part->member, known);
+              const LaminaLayer *earlier = c->layers->pdata[j];
+              int q;
+              double known;
+
+              if (earlier->kind != LAMINA_LAYER_BRIDGED
+                  || (q = find_member (earlier, earlier->parts->len, part->member)) < 0)
+                continue;
+              known = lamina_layer_get_part_fraction (earlier, (guint) q);
+              if (fabs (known - f) > FRACTION_TOLERANCE)
+                return fail (check, part->line,
+                             _("layer %u, part %u: member “%s” covers a fraction %g here but %g in layer %u; "
+                               "a member that runs through several layers must line up"),
+                             i + 1, p + 1, part->member, f, known, j + 1);
+              break;
             }
-          else if (fabs (*known - f) > FRACTION_TOLERANCE)
-            return fail (check, part->line,
-                         _("layer %u, part %u: member “%s” covers a fraction %g here but %g in an earlier layer; "
-                           "a member that runs through several layers must line up"),
-                         i + 1, p + 1, part->member, f, *known);
         }
     }
   return TRUE;
@@ -350,13 +371,13 @@ lamina_construction_validate (const LaminaConstruction *construction,
       || (guint) c->outer_side >= LAMINA_N_OUTER_SIDES)
     return fail (&check, c->line, _("construction “%s”: unknown element, heat flow or outer side"),
                  c->id ? c->id : "");
-  if (!check_range (&check, c->line, whole, _("inside temperature"),
+  if (!check_range (&check, c->line, whole, N_("inside temperature"),
                     c->inside_temperature, -60, 60, FALSE, "°C")
-      || !check_range (&check, c->line, whole, _("outside temperature"),
+      || !check_range (&check, c->line, whole, N_("outside temperature"),
                        c->outside_temperature, -60, 60, FALSE, "°C"))
     return FALSE;
   if (!isnan (c->target_u)
-      && !check_range (&check, c->line, whole, _("target U"), c->target_u, 0, 10, TRUE, "W/(m²·K)"))
+      && !check_range (&check, c->line, whole, N_("target U"), c->target_u, 0, 10, TRUE, "W/(m²·K)"))
     return FALSE;
   for (guint i = 0; i < c->layers->len; i++)
     if (!check_layer (&check, c->layers->pdata[i], i + 1))
