@@ -117,22 +117,65 @@ lamina_cli_json_document (JsonArray *constructions)
   return json_generator_to_data (generator, NULL);
 }
 
+/* @text cut or padded to @width characters (not bytes: λ, ², “ are
+ * multibyte in UTF-8 and printf pads by bytes). */
 static char *
-describe_layer (const LaminaLayer *layer)
+fit (const char *text,
+     glong       width,
+     gboolean    right)
 {
-  GString *s;
+  glong len = g_utf8_strlen (text, -1);
+  GString *s = g_string_new (NULL);
 
-  if (layer->kind != LAMINA_LAYER_BRIDGED)
-    return g_strdup (lamina_layer_get_label (layer));
-  s = g_string_new (NULL);
+  if (len > width)
+    {
+      const char *end = g_utf8_offset_to_pointer (text, width - 1);
+      g_string_append_len (s, text, end - text);
+      g_string_append (s, "…");
+      return g_string_free (s, FALSE);
+    }
+  if (right)
+    for (glong i = len; i < width; i++)
+      g_string_append_c (s, ' ');
+  g_string_append (s, text);
+  if (!right)
+    for (glong i = len; i < width; i++)
+      g_string_append_c (s, ' ');
+  return g_string_free (s, FALSE);
+}
+
+static void
+print_row (FILE       *out,
+           const char *no,
+           const char *label,
+           const char *thickness,
+           const char *lambda,
+           const char *resistance,
+           const char *note)
+{
+  g_autofree char *a = fit (no, 4, FALSE);
+  g_autofree char *b = fit (label, 46, FALSE);
+  g_autofree char *c = fit (thickness, 9, TRUE);
+  g_autofree char *d = fit (lambda, 9, TRUE);
+  g_autofree char *e = fit (resistance, 9, TRUE);
+
+  fprintf (out, "  %s %s %s %s %s%s\n", a, b, c, d, e, note);
+}
+
+static void
+print_parts (FILE              *out,
+             const LaminaLayer *layer)
+{
   for (guint p = 0; p < layer->parts->len; p++)
     {
       const LaminaPart *part = layer->parts->pdata[p];
-      g_string_append_printf (s, "%s%s %.1f %%", p ? " / " : "",
-                              part->material ? part->material->name : _("air"),
-                              100.0 * lamina_layer_get_part_fraction (layer, p));
+      g_autofree char *label = g_strdup_printf ("  %s %.1f %%%s%s", part->material ? part->material->name : _("air"),
+                                                100.0 * lamina_layer_get_part_fraction (layer, p),
+                                                part->member ? " · " : "", part->member ? part->member : "");
+      g_autofree char *lambda = part->material ? g_strdup_printf ("%.3f", part->material->conductivity) : g_strdup ("");
+
+      print_row (out, "", label, "", lambda, "", "");
     }
-  return g_string_free (s, FALSE);
 }
 
 void
@@ -143,16 +186,20 @@ lamina_cli_print_result (FILE                     *out,
   fprintf (out, "%s%s%s — %s\n", c->code ? c->code : "", c->code ? " " : "", c->id, c->name);
   fprintf (out, _("  %s, heat flow %s, outer side %s\n"), lamina_element_to_string (c->element),
            lamina_heat_flow_to_string (r->heat_flow), lamina_outer_side_to_string (c->outer_side));
-  fprintf (out, "  %-4s %-44s %9s %9s %9s\n", _("no."), _("layer"), _("d mm"), _("λ W/mK"), _("R m²K/W"));
+  print_row (out, _("no."), _("layer"), _("d mm"), _("λ W/(m·K)"), _("R m²·K/W"), "");
   for (guint i = 0; i < r->n_layers; i++)
     {
       const LaminaLayer *layer = c->layers->pdata[i];
-      g_autofree char *label = describe_layer (layer);
+      g_autofree char *no = g_strdup_printf ("%u", i + 1);
+      g_autofree char *d = g_strdup_printf ("%.1f", r->layers[i].thickness);
       g_autofree char *lambda = layer->kind == LAMINA_LAYER_MATERIAL
                                 ? g_strdup_printf ("%.3f", layer->material->conductivity) : g_strdup ("—");
+      g_autofree char *res = g_strdup_printf ("%.3f", r->layers[i].resistance);
 
-      fprintf (out, "  %-4u %-44.44s %9.1f %9s %9.3f%s\n", i + 1, label, r->layers[i].thickness, lambda,
-               r->layers[i].resistance, r->layers[i].disregarded ? _("  (disregarded)") : "");
+      print_row (out, no, lamina_layer_get_label (layer), d, lambda, res,
+                 r->layers[i].disregarded ? _("  (disregarded)") : "");
+      if (layer->kind == LAMINA_LAYER_BRIDGED)
+        print_parts (out, layer);
     }
   fprintf (out, _("  Rsi %.2f   Rse %.2f   total thickness %.1f mm\n"), r->rsi, r->rse, r->thickness);
   fprintf (out, _("  R'T %.3f   R''T %.3f   RT %.3f m²K/W   relative error %.1f %%\n"),
