@@ -1,0 +1,339 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-library-constructions.c: construction revisions, review and
+ * search through LaminaLibrary. */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "lamina-library.h"
+
+#include <glib/gi18n-lib.h>
+#include <stdio.h>
+
+#include "lamina-library-backend.h"
+
+#define VT(self) (lamina_library_get_backend (self)->vtable)
+#define BE(self) (lamina_library_get_backend (self))
+
+#define BACKEND_OR_FAIL(self, error, value)                                     \
+  G_STMT_START {                                                                \
+    if (BE (self) == NULL)                                                      \
+      {                                                                         \
+        g_set_error_literal ((error), LAMINA_LIBRARY_ERROR,                     \
+                             LAMINA_LIBRARY_ERROR_IO, "the library is closed"); \
+        return (value);                                                         \
+      }                                                                         \
+  } G_STMT_END
+
+gboolean
+lamina_library_prepare_revision (LaminaConstruction  *c,
+                                 LaminaResult       **result,
+                                 char               **calc_error)
+{
+  g_autoptr(GError) local = NULL;
+
+  *result = lamina_calculate (c, &local);
+  *calc_error = local ? g_strdup (local->message) : NULL;
+  return *result != NULL;
+}
+
+void
+lamina_library_set_new_draft (LaminaConstruction *c,
+               int                 revision,
+               const char         *author)
+{
+  c->revision = revision;
+  c->status = LAMINA_STATUS_DRAFT;
+  g_clear_pointer (&c->checked_by, g_free);
+  g_clear_pointer (&c->checked_at, g_free);
+  g_clear_pointer (&c->approved_by, g_free);
+  g_clear_pointer (&c->approved_at, g_free);
+  g_free (c->modified_by);
+  c->modified_by = g_strdup (lamina_library_default_author (author));
+  g_free (c->modified_at);
+  c->modified_at = lamina_library_dup_now ();
+}
+
+static gboolean
+store (LaminaLibrary       *self,
+       LaminaConstruction  *c,
+       int                  base,
+       const char          *comment,
+       GError             **error)
+{
+  g_autoptr(LaminaResult) result = NULL;
+  g_autofree char *calc_error = NULL;
+  LaminaBackendRevision rev = { c, NULL, NULL, comment };
+
+  if (c->name == NULL || *c->name == '\0')
+    {
+      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                           "construction name: required");
+      return FALSE;
+    }
+  lamina_library_prepare_revision (c, &result, &calc_error);
+  rev.result = result;
+  rev.calc_error = calc_error;
+  if (!VT (self)->store_revision (BE (self), &rev, base, error))
+    return FALSE;
+  lamina_library_emit_changed (self);
+  return TRUE;
+}
+
+LaminaConstruction *
+lamina_library_get_construction (LaminaLibrary  *self,
+                                 const char     *id,
+                                 int             revision,
+                                 GError        **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  g_return_val_if_fail (id != NULL, NULL);
+  BACKEND_OR_FAIL (self, error, NULL);
+  return VT (self)->get_construction (BE (self), id, revision, error);
+}
+
+LaminaResult *
+lamina_library_get_result (LaminaLibrary  *self,
+                           const char     *id,
+                           int             revision,
+                           GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, revision, error);
+  g_autoptr(GError) local = NULL;
+  LaminaResult *result;
+
+  if (c == NULL)
+    return NULL;
+  /* The layers hold the material data they were saved with, and the
+   * method is deterministic: this is the figure stored at save time. */
+  result = lamina_calculate (c, &local);
+  if (result == NULL)
+    g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                 "%s: %s", c->code ? c->code : c->id, local->message);
+  return result;
+}
+
+gboolean
+lamina_library_save_construction (LaminaLibrary       *self,
+                                  LaminaConstruction  *construction,
+                                  int                  base_revision,
+                                  const char          *author,
+                                  GError             **error)
+{
+  g_autoptr(LaminaConstruction) head = NULL;
+  g_autoptr(LaminaConstruction) c = NULL;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  g_return_val_if_fail (construction != NULL && construction->id != NULL, FALSE);
+  g_return_val_if_fail (base_revision > 0, FALSE);
+  BACKEND_OR_FAIL (self, error, FALSE);
+
+  head = lamina_library_get_construction (self, construction->id, 0, error);
+  if (head == NULL)
+    return FALSE;
+  if (head->revision == base_revision && lamina_construction_equal_content (head, construction))
+    return TRUE;
+  /* Work on a copy so that a refusal leaves the caller's data as it was. */
+  c = lamina_construction_copy (construction);
+  lamina_library_set_new_draft (c, base_revision + 1, author);
+  if (!store (self, c, base_revision, NULL, error))
+    return FALSE;
+  lamina_library_set_new_draft (construction, c->revision, NULL);
+  g_free (construction->modified_by);
+  construction->modified_by = g_strdup (c->modified_by);
+  g_free (construction->modified_at);
+  construction->modified_at = g_strdup (c->modified_at);
+  return TRUE;
+}
+
+char *
+lamina_library_create_construction (LaminaLibrary       *self,
+                                    LaminaConstruction  *construction,
+                                    const char          *author,
+                                    GError             **error)
+{
+  g_autoptr(LaminaConstruction) c = NULL;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  g_return_val_if_fail (construction != NULL, NULL);
+  BACKEND_OR_FAIL (self, error, NULL);
+
+  c = lamina_construction_copy (construction);
+  if (c->id == NULL)
+    c->id = g_uuid_string_random ();
+  lamina_library_set_new_draft (c, 1, author);
+  if (!store (self, c, 0, NULL, error))
+    return NULL;
+  g_free (construction->id);
+  construction->id = g_strdup (c->id);
+  lamina_library_set_new_draft (construction, 1, c->modified_by);
+  return g_strdup (c->id);
+}
+
+char *
+lamina_library_derive_construction (LaminaLibrary  *self,
+                                    const char     *id,
+                                    const char     *author,
+                                    GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, 0, error);
+  g_autofree char *comment = NULL;
+  g_autofree char *name = NULL;
+
+  if (c == NULL)
+    return NULL;
+  comment = g_strdup_printf ("derived from %s revision %d", id, c->revision);
+  name = g_strdup_printf (_("%s (copy)"), c->name);
+  g_free (c->name);
+  c->name = g_steal_pointer (&name);
+  g_clear_pointer (&c->code, g_free);
+  g_free (c->id);
+  c->id = g_uuid_string_random ();
+  lamina_library_set_new_draft (c, 1, author);
+  if (!store (self, c, 0, comment, error))
+    return NULL;
+  return g_strdup (c->id);
+}
+
+gboolean
+lamina_library_delete_construction (LaminaLibrary  *self,
+                                    const char     *id,
+                                    const char     *author,
+                                    GError        **error)
+{
+  g_autofree char *now = lamina_library_dup_now ();
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  g_return_val_if_fail (id != NULL, FALSE);
+  BACKEND_OR_FAIL (self, error, FALSE);
+  if (!VT (self)->set_deleted (BE (self), id, now, error))
+    return FALSE;
+  lamina_library_emit_changed (self);
+  return TRUE;
+}
+
+gboolean
+lamina_library_restore_construction (LaminaLibrary  *self,
+                                     const char     *id,
+                                     GError        **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  g_return_val_if_fail (id != NULL, FALSE);
+  BACKEND_OR_FAIL (self, error, FALSE);
+  if (!VT (self)->set_deleted (BE (self), id, NULL, error))
+    return FALSE;
+  lamina_library_emit_changed (self);
+  return TRUE;
+}
+
+GPtrArray *
+lamina_library_get_history (LaminaLibrary  *self,
+                            const char     *id,
+                            GError        **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  g_return_val_if_fail (id != NULL, NULL);
+  BACKEND_OR_FAIL (self, error, NULL);
+  return VT (self)->get_history (BE (self), id, error);
+}
+
+static gboolean
+review (LaminaLibrary  *self,
+        const char     *id,
+        int             revision,
+        LaminaStatus    status,
+        const char     *name,
+        const char     *when,
+        GError        **error)
+{
+  g_autofree char *trimmed = g_strstrip (g_strdup (name ? name : ""));
+
+  BACKEND_OR_FAIL (self, error, FALSE);
+  if (*trimmed == '\0')
+    {
+      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                           "reviewer name (--by): required");
+      return FALSE;
+    }
+  if (!VT (self)->set_status (BE (self), id, revision, status, name, when, error))
+    return FALSE;
+  lamina_library_emit_changed (self);
+  return TRUE;
+}
+
+gboolean
+lamina_library_mark_checked (LaminaLibrary  *self,
+                             const char     *id,
+                             int             revision,
+                             const char     *name,
+                             GError        **error)
+{
+  g_autofree char *now = lamina_library_dup_now ();
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  g_return_val_if_fail (id != NULL, FALSE);
+  return review (self, id, revision, LAMINA_STATUS_CHECKED, name, now, error);
+}
+
+gboolean
+lamina_library_approve (LaminaLibrary  *self,
+                        const char     *id,
+                        int             revision,
+                        const char     *name,
+                        const char     *date,
+                        GError        **error)
+{
+  g_autofree char *today = NULL;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  g_return_val_if_fail (id != NULL, FALSE);
+
+  if (date == NULL)
+    {
+      g_autoptr(GDateTime) now = g_date_time_new_now_utc ();
+      date = today = g_date_time_format (now, "%Y-%m-%d");
+    }
+  else
+    {
+      int y, m, d;
+      char tail;
+
+      if (sscanf (date, "%4d-%2d-%2d%c", &y, &m, &d, &tail) != 3
+          || !g_date_valid_dmy (d, m, y))
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                       "approval date “%s”: expected YYYY-MM-DD", date);
+          return FALSE;
+        }
+    }
+  return review (self, id, revision, LAMINA_STATUS_APPROVED, name, date, error);
+}
+
+GPtrArray *
+lamina_library_search (LaminaLibrary             *self,
+                       const LaminaLibraryQuery  *query,
+                       GError                   **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  g_return_val_if_fail (query != NULL, NULL);
+  BACKEND_OR_FAIL (self, error, NULL);
+  return VT (self)->search (BE (self), query, error);
+}
+
+gint64
+lamina_library_count (LaminaLibrary             *self,
+                      const LaminaLibraryQuery  *query,
+                      GError                   **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), -1);
+  g_return_val_if_fail (query != NULL, -1);
+  BACKEND_OR_FAIL (self, error, -1);
+  return VT (self)->count (BE (self), query, error);
+}
+
+GPtrArray *
+lamina_library_list_tags (LaminaLibrary  *self,
+                          GError        **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  BACKEND_OR_FAIL (self, error, NULL);
+  return VT (self)->list_tags (BE (self), error);
+}

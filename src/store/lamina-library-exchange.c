@@ -1,0 +1,402 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-library-exchange.c: import and export of the catalogue, and the
+ * "material data changed since review" check. */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "lamina-library.h"
+
+#include "lamina-library-backend.h"
+#include "lamina-store-json.h"
+
+#define VT(self) (lamina_library_get_backend (self)->vtable)
+#define BE(self) (lamina_library_get_backend (self))
+
+static void
+add_item (LaminaImportReport *report,
+          LaminaImportAction  action,
+          gboolean            is_material,
+          const char         *id,
+          const char         *name,
+          int                 revision,
+          char               *message)
+{
+  LaminaImportItem *item = g_new0 (LaminaImportItem, 1);
+
+  item->action = action;
+  item->is_material = is_material;
+  item->id = g_strdup (id);
+  item->name = g_strdup (name);
+  item->revision = revision;
+  item->message = message;
+  g_ptr_array_add (report->items, item);
+}
+
+static gboolean
+merge_material (LaminaLibrary         *self,
+                const LaminaMaterial  *m,
+                LaminaImportFlags      flags,
+                LaminaImportReport    *report,
+                GPtrArray             *to_put,
+                GError               **error)
+{
+  g_autoptr(GError) local = NULL;
+  g_autoptr(LaminaMaterial) existing = NULL;
+
+  if (m->id == NULL)
+    return TRUE;
+  existing = VT (self)->get_material (BE (self), m->id, &local);
+  if (existing == NULL && !g_error_matches (local, LAMINA_LIBRARY_ERROR,
+                                            LAMINA_LIBRARY_ERROR_NOT_FOUND))
+    {
+      g_propagate_error (error, g_steal_pointer (&local));
+      return FALSE;
+    }
+  if (existing == NULL)
+    {
+      report->n_materials_added++;
+      add_item (report, LAMINA_IMPORT_ADDED, TRUE, m->id, m->name, 0,
+                g_strdup_printf ("material “%s” added", m->name));
+      g_ptr_array_add (to_put, lamina_material_copy (m));
+    }
+  else if (!lamina_material_equal (existing, m))
+    {
+      if (flags & LAMINA_IMPORT_UPDATE_MATERIALS)
+        {
+          report->n_materials_updated++;
+          add_item (report, LAMINA_IMPORT_REVISED, TRUE, m->id, m->name, 0,
+                    g_strdup_printf ("material “%s” replaced; constructions using it "
+                                     "are flagged for review", m->name));
+          g_ptr_array_add (to_put, lamina_material_copy (m));
+        }
+      else
+        {
+          report->n_conflicts++;
+          add_item (report, LAMINA_IMPORT_CONFLICT, TRUE, m->id, m->name, 0,
+                    g_strdup_printf ("material “%s” differs from the library's; the "
+                                     "library's is kept (imported layers keep their "
+                                     "own data)", m->name));
+        }
+    }
+  return TRUE;
+}
+
+/* Decides what happens to one imported construction; adds a revision to
+ * @revisions (owning @c through @keep) when something is to be stored. */
+static gboolean
+merge_construction (LaminaLibrary             *self,
+                    const LaminaConstruction  *imported,
+                    LaminaImportFlags          flags,
+                    const char                *author,
+                    LaminaImportReport        *report,
+                    GPtrArray                 *keep,
+                    GArray                    *bases,
+                    GError                   **error)
+{
+  g_autoptr(GError) local = NULL;
+  g_autoptr(LaminaConstruction) head = NULL;
+  LaminaConstruction *c;
+  int base = 0;
+
+  head = VT (self)->get_construction (BE (self), imported->id, 0, &local);
+  if (head == NULL && !g_error_matches (local, LAMINA_LIBRARY_ERROR,
+                                        LAMINA_LIBRARY_ERROR_NOT_FOUND))
+    {
+      g_propagate_error (error, g_steal_pointer (&local));
+      return FALSE;
+    }
+  if (head != NULL && lamina_construction_equal_content (head, imported))
+    {
+      report->n_skipped++;
+      add_item (report, LAMINA_IMPORT_SKIPPED, FALSE, head->id, head->name, head->revision,
+                g_strdup_printf ("%s: identical to revision %d", head->id, head->revision));
+      return TRUE;
+    }
+  if (head != NULL && head->status == LAMINA_STATUS_APPROVED
+      && !(flags & LAMINA_IMPORT_REVISE_APPROVED))
+    {
+      report->n_conflicts++;
+      add_item (report, LAMINA_IMPORT_CONFLICT, FALSE, head->id, head->name, head->revision,
+                g_strdup_printf ("%s: differs from approved revision %d; not applied",
+                                 head->id, head->revision));
+      return TRUE;
+    }
+
+  c = lamina_construction_copy (imported);
+  g_ptr_array_add (keep, c);
+  if (head == NULL)
+    {
+      /* A new construction keeps its revision number and review record. */
+      c->revision = MAX (c->revision, 1);
+      if (c->modified_by == NULL)
+        c->modified_by = g_strdup (lamina_library_default_author (author));
+      if (c->modified_at == NULL)
+        c->modified_at = lamina_library_dup_now ();
+      report->n_added++;
+      add_item (report, LAMINA_IMPORT_ADDED, FALSE, c->id, c->name, c->revision,
+                g_strdup_printf ("%s: added as revision %d (%s)", c->id, c->revision,
+                                 lamina_status_to_string (c->status)));
+    }
+  else
+    {
+      base = head->revision;
+      lamina_library_set_new_draft (c, base + 1, author);
+      report->n_revised++;
+      add_item (report, LAMINA_IMPORT_REVISED, FALSE, c->id, c->name, c->revision,
+                g_strdup_printf ("%s: changed, stored as draft revision %d", c->id,
+                                 c->revision));
+    }
+  g_array_append_val (bases, base);
+  return TRUE;
+}
+
+static void
+revision_free (LaminaBackendRevision *rev)
+{
+  lamina_result_free ((LaminaResult *) rev->result);
+  g_free ((char *) rev->calc_error);
+  g_free (rev);
+}
+
+LaminaImportReport *
+lamina_library_import (LaminaLibrary          *self,
+                       const LaminaCatalogue  *catalogue,
+                       LaminaImportFlags       flags,
+                       const char             *author,
+                       GError                **error)
+{
+  g_autoptr(LaminaImportReport) report = lamina_import_report_new ();
+  g_autoptr(GPtrArray) materials = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
+  g_autoptr(GPtrArray) keep = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
+  g_autoptr(GPtrArray) revisions = g_ptr_array_new_with_free_func ((GDestroyNotify) revision_free);
+  g_autoptr(GArray) bases = g_array_new (FALSE, FALSE, sizeof (int));
+  g_autoptr(GHashTable) seen = g_hash_table_new (g_str_hash, g_str_equal);
+  g_autofree char *now = lamina_library_dup_now ();
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  g_return_val_if_fail (catalogue != NULL, NULL);
+  if (BE (self) == NULL)
+    {
+      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                           "the library is closed");
+      return NULL;
+    }
+
+  for (guint i = 0; catalogue->materials && i < catalogue->materials->len; i++)
+    if (!merge_material (self, catalogue->materials->pdata[i], flags, report, materials, error))
+      return NULL;
+  for (guint i = 0; i < catalogue->constructions->len; i++)
+    {
+      const LaminaConstruction *c = catalogue->constructions->pdata[i];
+
+      if (c->id == NULL || c->name == NULL)
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                       "construction %u (line %d): %s required; nothing was imported",
+                       i + 1, c->line, c->id == NULL ? "id" : "name");
+          return NULL;
+        }
+      if (!g_hash_table_add (seen, c->id))
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                       "construction “%s” (line %d) appears twice; nothing was imported",
+                       c->id, c->line);
+          return NULL;
+        }
+      if (!merge_construction (self, c, flags, author, report, keep, bases, error))
+        return NULL;
+    }
+  for (guint i = 0; i < keep->len; i++)
+    {
+      LaminaBackendRevision *rev = g_new0 (LaminaBackendRevision, 1);
+      LaminaResult *result = NULL;
+      char *calc_error = NULL;
+
+      rev->construction = keep->pdata[i];
+      lamina_library_prepare_revision (keep->pdata[i], &result, &calc_error);
+      rev->result = result;
+      rev->calc_error = calc_error;
+      rev->comment = "imported";
+      g_ptr_array_add (revisions, rev);
+    }
+  if (flags & LAMINA_IMPORT_DRY_RUN)
+    return g_steal_pointer (&report);
+  if (!VT (self)->apply_import (BE (self), materials, revisions, bases, now, error))
+    return NULL;
+  if (materials->len > 0 || revisions->len > 0)
+    lamina_library_emit_changed (self);
+  return g_steal_pointer (&report);
+}
+
+static void
+collect_ids (GHashTable               *ids,
+             const LaminaConstruction *c)
+{
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+
+      if (layer->material && layer->material->id)
+        g_hash_table_add (ids, layer->material->id);
+      for (guint k = 0; layer->parts && k < layer->parts->len; k++)
+        {
+          const LaminaPart *p = layer->parts->pdata[k];
+
+          if (p->material && p->material->id)
+            g_hash_table_add (ids, p->material->id);
+        }
+    }
+}
+
+LaminaCatalogue *
+lamina_library_export (LaminaLibrary       *self,
+                       const char * const  *ids,
+                       GError             **error)
+{
+  g_autoptr(LaminaCatalogue) cat = lamina_catalogue_new ();
+  g_autoptr(GPtrArray) all = NULL;
+  g_autoptr(GHashTable) used = g_hash_table_new (g_str_hash, g_str_equal);
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  if (BE (self) == NULL)
+    {
+      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                           "the library is closed");
+      return NULL;
+    }
+  if (ids == NULL)
+    {
+      all = VT (self)->list_ids (BE (self), error);
+      if (all == NULL)
+        return NULL;
+      g_ptr_array_add (all, NULL);
+      ids = (const char * const *) all->pdata;
+    }
+  for (guint i = 0; ids[i] != NULL; i++)
+    {
+      LaminaConstruction *c = VT (self)->get_construction (BE (self), ids[i], 0, error);
+
+      if (c == NULL)
+        return NULL;
+      g_ptr_array_add (cat->constructions, c);
+      collect_ids (used, c);
+    }
+  if (all != NULL)
+    {
+      g_autoptr(GPtrArray) materials = VT (self)->list_materials (BE (self), error);
+
+      if (materials == NULL)
+        return NULL;
+      for (guint i = 0; i < materials->len; i++)
+        g_ptr_array_add (cat->materials, lamina_material_copy (materials->pdata[i]));
+    }
+  else
+    {
+      g_autoptr(GList) keys = g_list_sort (g_hash_table_get_keys (used), (GCompareFunc) g_strcmp0);
+
+      for (GList *l = keys; l != NULL; l = l->next)
+        {
+          LaminaMaterial *m = VT (self)->get_material (BE (self), l->data, NULL);
+
+          if (m != NULL)
+            g_ptr_array_add (cat->materials, m);
+        }
+    }
+  return g_steal_pointer (&cat);
+}
+
+/* Material data changed since review */
+
+static void
+compare_material (LaminaLibrary        *self,
+                  const LaminaMaterial *stored,
+                  GHashTable           *seen,
+                  GPtrArray            *changes)
+{
+  g_autoptr(LaminaMaterial) library = NULL;
+  g_autofree char *a = NULL, *b = NULL;
+  LaminaMaterialChange *change;
+
+  if (stored == NULL || stored->id == NULL || !g_hash_table_add (seen, stored->id))
+    return;
+  library = VT (self)->get_material (BE (self), stored->id, NULL);
+  if (library == NULL)
+    return;
+  a = lamina_store_material_fingerprint (stored);
+  b = lamina_store_material_fingerprint (library);
+  if (g_strcmp0 (a, b) == 0)
+    return;
+  change = g_new0 (LaminaMaterialChange, 1);
+  change->material_id = g_strdup (stored->id);
+  change->stored = lamina_material_copy (stored);
+  change->library = g_steal_pointer (&library);
+  g_ptr_array_add (changes, change);
+}
+
+GPtrArray *
+lamina_library_list_material_changes (LaminaLibrary  *self,
+                                      const char     *id,
+                                      GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, 0, error);
+  g_autoptr(GHashTable) seen = g_hash_table_new (g_str_hash, g_str_equal);
+  GPtrArray *changes;
+
+  if (c == NULL)
+    return NULL;
+  changes = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_change_free);
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+
+      compare_material (self, layer->material, seen, changes);
+      for (guint k = 0; layer->parts && k < layer->parts->len; k++)
+        compare_material (self, ((LaminaPart *) layer->parts->pdata[k])->material, seen, changes);
+    }
+  return changes;
+}
+
+static void
+refresh_material (LaminaLibrary   *self,
+                  LaminaMaterial **slot)
+{
+  LaminaMaterial *library;
+
+  if (*slot == NULL || (*slot)->id == NULL)
+    return;
+  library = VT (self)->get_material (BE (self), (*slot)->id, NULL);
+  if (library == NULL)
+    return;
+  lamina_material_free (*slot);
+  *slot = library;
+}
+
+int
+lamina_library_update_materials (LaminaLibrary  *self,
+                                 const char     *id,
+                                 int             base_revision,
+                                 const char     *author,
+                                 GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, 0, error);
+
+  if (c == NULL)
+    return 0;
+  if (base_revision > 0 && c->revision != base_revision)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
+                   "“%s” was changed by someone else (revision %d is the latest, "
+                   "not %d); nothing was changed", c->name, c->revision, base_revision);
+      return 0;
+    }
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      LaminaLayer *layer = c->layers->pdata[i];
+
+      refresh_material (self, &layer->material);
+      for (guint k = 0; layer->parts && k < layer->parts->len; k++)
+        refresh_material (self, &((LaminaPart *) layer->parts->pdata[k])->material);
+    }
+  if (!lamina_library_save_construction (self, c, c->revision, author, error))
+    return 0;
+  return c->revision;
+}

@@ -1,0 +1,510 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-sqlite-open.c: opening, recognising, checking and migrating a
+ * library file; the small helpers every SQLite file of the backend uses. */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "config.h"
+
+#include "lamina-sqlite-private.h"
+
+#include <errno.h>
+#include <glib/gstdio.h>
+#include <math.h>
+#include <string.h>
+
+/* Another process holding the write lock is waited for this long. */
+#define BUSY_TIMEOUT_MS 5000
+
+void
+lamina_sqlite_set_error (LaminaSqlite  *self,
+                         int            rc,
+                         const char    *what,
+                         GError       **error)
+{
+  LaminaLibraryError code;
+
+  switch (rc & 0xff)
+    {
+    case SQLITE_BUSY:
+    case SQLITE_LOCKED:
+      code = LAMINA_LIBRARY_ERROR_BUSY;
+      break;
+    case SQLITE_CORRUPT:
+      code = LAMINA_LIBRARY_ERROR_CORRUPT;
+      break;
+    case SQLITE_NOTADB:
+      code = LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY;
+      break;
+    case SQLITE_READONLY:
+      code = LAMINA_LIBRARY_ERROR_READ_ONLY;
+      break;
+    case SQLITE_CANTOPEN:
+    case SQLITE_IOERR:
+    case SQLITE_FULL:
+      code = LAMINA_LIBRARY_ERROR_IO;
+      break;
+    case SQLITE_CONSTRAINT:
+      code = LAMINA_LIBRARY_ERROR_INVALID;
+      break;
+    default:
+      code = LAMINA_LIBRARY_ERROR_FAILED;
+    }
+  g_set_error (error, LAMINA_LIBRARY_ERROR, code, "%s: %s: %s",
+               self->parent.path, what,
+               self->db ? sqlite3_errmsg (self->db) : sqlite3_errstr (rc));
+}
+
+sqlite3_stmt *
+lamina_sqlite_prepare (LaminaSqlite  *self,
+                       const char    *sql,
+                       GError       **error)
+{
+  sqlite3_stmt *stmt = g_hash_table_lookup (self->statements, sql);
+  int rc;
+
+  if (stmt != NULL)
+    {
+      sqlite3_reset (stmt);
+      sqlite3_clear_bindings (stmt);
+      return stmt;
+    }
+  rc = sqlite3_prepare_v3 (self->db, sql, -1, SQLITE_PREPARE_PERSISTENT, &stmt, NULL);
+  if (rc != SQLITE_OK)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot prepare a query", error);
+      return NULL;
+    }
+  g_hash_table_insert (self->statements, g_strdup (sql), stmt);
+  return stmt;
+}
+
+gboolean
+lamina_sqlite_exec (LaminaSqlite  *self,
+                    const char    *sql,
+                    GError       **error)
+{
+  int rc = sqlite3_exec (self->db, sql, NULL, NULL, NULL);
+
+  if (rc != SQLITE_OK)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot update the library", error);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+gboolean
+lamina_sqlite_begin (LaminaSqlite  *self,
+                     GError       **error)
+{
+  return lamina_sqlite_exec (self, "BEGIN IMMEDIATE;", error);
+}
+
+gboolean
+lamina_sqlite_commit (LaminaSqlite  *self,
+                      GError       **error)
+{
+  if (!lamina_sqlite_exec (self, "COMMIT;", error))
+    {
+      lamina_sqlite_rollback (self);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+void
+lamina_sqlite_rollback (LaminaSqlite *self)
+{
+  if (!sqlite3_get_autocommit (self->db))
+    sqlite3_exec (self->db, "ROLLBACK;", NULL, NULL, NULL);
+}
+
+gboolean
+lamina_sqlite_step_done (LaminaSqlite  *self,
+                         sqlite3_stmt  *stmt,
+                         GError       **error)
+{
+  int rc = sqlite3_step (stmt);
+
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE && rc != SQLITE_ROW)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot update the library", error);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+void
+lamina_sqlite_bind_text (sqlite3_stmt *stmt,
+                         int           index,
+                         const char   *text)
+{
+  if (text == NULL)
+    sqlite3_bind_null (stmt, index);
+  else
+    sqlite3_bind_text (stmt, index, text, -1, SQLITE_TRANSIENT);
+}
+
+void
+lamina_sqlite_bind_double (sqlite3_stmt *stmt,
+                           int           index,
+                           double        value)
+{
+  if (isnan (value))
+    sqlite3_bind_null (stmt, index);
+  else
+    sqlite3_bind_double (stmt, index, value);
+}
+
+double
+lamina_sqlite_column_double (sqlite3_stmt *stmt,
+                             int           index)
+{
+  if (sqlite3_column_type (stmt, index) == SQLITE_NULL)
+    return NAN;
+  return sqlite3_column_double (stmt, index);
+}
+
+char *
+lamina_sqlite_column_dup (sqlite3_stmt *stmt,
+                          int           index)
+{
+  return g_strdup ((const char *) sqlite3_column_text (stmt, index));
+}
+
+/* Opening */
+
+static gint64
+query_int (LaminaSqlite *self,
+           const char   *sql,
+           int          *rc_out)
+{
+  sqlite3_stmt *stmt = NULL;
+  gint64 value = -1;
+  int rc = sqlite3_prepare_v2 (self->db, sql, -1, &stmt, NULL);
+
+  if (rc == SQLITE_OK)
+    {
+      rc = sqlite3_step (stmt);
+      if (rc == SQLITE_ROW)
+        {
+          value = sqlite3_column_int64 (stmt, 0);
+          rc = SQLITE_OK;
+        }
+    }
+  sqlite3_finalize (stmt);
+  *rc_out = rc;
+  return value;
+}
+
+static void
+sqlite_close (LaminaBackend *backend)
+{
+  LaminaSqlite *self = (LaminaSqlite *) backend;
+
+  /* Statements first: sqlite3_close refuses while any is live. */
+  g_clear_pointer (&self->statements, g_hash_table_unref);
+  if (self->db != NULL)
+    {
+      sqlite3_close (self->db);
+      self->db = NULL;
+    }
+  g_free (self->parent.path);
+  g_free (self->parent.backup_path);
+  g_free (self);
+}
+
+static gboolean
+sqlite_check_for_changes (LaminaBackend *backend)
+{
+  LaminaSqlite *self = (LaminaSqlite *) backend;
+  int rc;
+  gint64 v = query_int (self, "PRAGMA data_version;", &rc);
+
+  if (rc != SQLITE_OK || v == self->data_version)
+    return FALSE;
+  self->data_version = v;
+  return TRUE;
+}
+
+static void
+finalize_statement (gpointer stmt)
+{
+  sqlite3_finalize (stmt);
+}
+
+static LaminaSqlite *
+sqlite_new (const char *path)
+{
+  LaminaSqlite *self = g_new0 (LaminaSqlite, 1);
+  static LaminaBackendVTable vtable;
+
+  if (vtable.close == NULL)
+    {
+      vtable.close = sqlite_close;
+      vtable.check_for_changes = sqlite_check_for_changes;
+      lamina_sqlite_store_init_vtable (&vtable);
+      lamina_sqlite_search_init_vtable (&vtable);
+    }
+  self->parent.vtable = &vtable;
+  self->parent.path = g_strdup (path);
+  self->statements = g_hash_table_new_full (g_str_hash, g_str_equal, g_free,
+                                            finalize_statement);
+  return self;
+}
+
+/* Looks at the first bytes without SQLite, so that a file of another kind
+ * is refused before anything could write to it (SQLite would otherwise
+ * treat an empty file as a new database). */
+static gboolean
+check_header (const char  *path,
+              GError     **error)
+{
+  static const char magic[16] = "SQLite format 3";
+  char header[100];
+  FILE *f = g_fopen (path, "rb");
+  size_t n;
+
+  if (f == NULL)
+    {
+      int saved = errno;
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                   "%s: cannot open: %s", path, g_strerror (saved));
+      return FALSE;
+    }
+  n = fread (header, 1, sizeof header, f);
+  fclose (f);
+  if (n < sizeof header || memcmp (header, magic, sizeof magic) != 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY,
+                   "%s: not a Lamina library (not an SQLite database)", path);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+configure (LaminaSqlite  *self,
+           GError       **error)
+{
+  sqlite3_busy_timeout (self->db, BUSY_TIMEOUT_MS);
+  sqlite3_extended_result_codes (self->db, 1);
+  return lamina_sqlite_exec (self, "PRAGMA foreign_keys = ON;", error);
+}
+
+/* Refuses what is not ours or is damaged, before anything is written. */
+static gboolean
+recognise (LaminaSqlite  *self,
+           int           *version,
+           GError       **error)
+{
+  int rc;
+  gint64 app_id = query_int (self, "PRAGMA application_id;", &rc);
+  g_autofree char *check = NULL;
+  sqlite3_stmt *stmt = NULL;
+
+  if (rc != SQLITE_OK)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot read", error);
+      return FALSE;
+    }
+  if (app_id != LAMINA_SQLITE_APPLICATION_ID)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY,
+                   "%s: not a Lamina library (an SQLite database of another program)",
+                   self->parent.path);
+      return FALSE;
+    }
+  *version = (int) query_int (self, "PRAGMA user_version;", &rc);
+  if (*version > LAMINA_LIBRARY_SCHEMA_VERSION)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_TOO_NEW,
+                   "%s: made by a newer version of Lamina (library format %d; "
+                   "this version reads up to %d); the file was not changed",
+                   self->parent.path, *version, LAMINA_LIBRARY_SCHEMA_VERSION);
+      return FALSE;
+    }
+  rc = sqlite3_prepare_v2 (self->db, "PRAGMA quick_check (1);", -1, &stmt, NULL);
+  if (rc == SQLITE_OK && (rc = sqlite3_step (stmt)) == SQLITE_ROW)
+    check = g_strdup ((const char *) sqlite3_column_text (stmt, 0));
+  sqlite3_finalize (stmt);
+  if (check == NULL || strcmp (check, "ok") != 0 || *version < 1)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT,
+                   "%s: the library is damaged (%s); the file was not changed",
+                   self->parent.path,
+                   check ? check : sqlite3_errstr (rc));
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static char *
+backup_path_for (const char *path,
+                 int         version)
+{
+  char *candidate = g_strdup_printf ("%s.v%d-backup", path, version);
+
+  for (int i = 2; g_file_test (candidate, G_FILE_TEST_EXISTS); i++)
+    {
+      g_free (candidate);
+      candidate = g_strdup_printf ("%s.v%d-backup-%d", path, version, i);
+    }
+  return candidate;
+}
+
+static gboolean
+upgrade (LaminaSqlite  *self,
+         int            version,
+         GError       **error)
+{
+  g_autofree char *backup = backup_path_for (self->parent.path, version);
+  g_autofree char *sql = NULL;
+  char *quoted = sqlite3_mprintf ("VACUUM INTO %Q;", backup);
+  gboolean ok;
+
+  /* VACUUM INTO copies the whole database, WAL content included. */
+  ok = lamina_sqlite_exec (self, quoted, error);
+  sqlite3_free (quoted);
+  if (!ok)
+    return FALSE;
+  self->parent.backup_path = g_steal_pointer (&backup);
+  if (!lamina_sqlite_begin (self, error))
+    return FALSE;
+  /* Someone else may have migrated meanwhile. */
+  if (!lamina_sqlite_migrate (self, version, LAMINA_LIBRARY_SCHEMA_VERSION, error)
+      || !lamina_sqlite_commit (self, error))
+    {
+      lamina_sqlite_rollback (self);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+create_schema (LaminaSqlite  *self,
+               int            version,
+               gboolean       seed,
+               GError       **error)
+{
+  g_autofree char *app_id = g_strdup_printf ("PRAGMA application_id = %d;",
+                                             LAMINA_SQLITE_APPLICATION_ID);
+
+  if (!lamina_sqlite_exec (self, "PRAGMA journal_mode = WAL;", error)
+      || !lamina_sqlite_begin (self, error))
+    return FALSE;
+  if (!lamina_sqlite_exec (self, app_id, error)
+      || !lamina_sqlite_migrate (self, 0, version, error)
+      || (seed && !lamina_sqlite_seed_materials (self, error))
+      || !lamina_sqlite_commit (self, error))
+    {
+      lamina_sqlite_rollback (self);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static LaminaSqlite *
+open_file (const char    *path,
+           gboolean       create,
+           GError       **error)
+{
+  LaminaSqlite *self = sqlite_new (path);
+  int flags = SQLITE_OPEN_READWRITE | SQLITE_OPEN_NOMUTEX
+              | (create ? SQLITE_OPEN_CREATE | SQLITE_OPEN_EXCLUSIVE : 0);
+  int rc = sqlite3_open_v2 (path, &self->db, flags & ~SQLITE_OPEN_EXCLUSIVE, NULL);
+
+  if (rc != SQLITE_OK)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot open", error);
+      sqlite_close (&self->parent);
+      return NULL;
+    }
+  if (!configure (self, error))
+    {
+      sqlite_close (&self->parent);
+      return NULL;
+    }
+  return self;
+}
+
+LaminaBackend *
+lamina_sqlite_backend_open (const char             *path,
+                            LaminaLibraryOpenFlags  flags,
+                            GError                **error)
+{
+  LaminaSqlite *self;
+  int version = 0, rc;
+
+  if (!g_file_test (path, G_FILE_TEST_EXISTS))
+    {
+      g_autofree char *dir = g_path_get_dirname (path);
+
+      if (flags & LAMINA_LIBRARY_OPEN_EXISTING)
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                       "%s: no such library", path);
+          return NULL;
+        }
+      if (g_mkdir_with_parents (dir, 0700) != 0)
+        {
+          int saved = errno;
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                       "%s: cannot create the folder: %s", dir, g_strerror (saved));
+          return NULL;
+        }
+      self = open_file (path, TRUE, error);
+      if (self == NULL)
+        return NULL;
+      if (!create_schema (self, LAMINA_LIBRARY_SCHEMA_VERSION,
+                          !(flags & LAMINA_LIBRARY_OPEN_NO_SEED), error))
+        {
+          sqlite_close (&self->parent);
+          g_unlink (path);
+          return NULL;
+        }
+      self->parent.opened_version = 0;
+    }
+  else
+    {
+      if (!check_header (path, error))
+        return NULL;
+      self = open_file (path, FALSE, error);
+      if (self == NULL)
+        return NULL;
+      if (!recognise (self, &version, error))
+        {
+          sqlite_close (&self->parent);
+          return NULL;
+        }
+      self->parent.opened_version = version;
+      if (version < LAMINA_LIBRARY_SCHEMA_VERSION
+          && (!lamina_sqlite_exec (self, "PRAGMA journal_mode = WAL;", error)
+              || !upgrade (self, version, error)))
+        {
+          sqlite_close (&self->parent);
+          return NULL;
+        }
+    }
+  self->data_version = query_int (self, "PRAGMA data_version;", &rc);
+  return &self->parent;
+}
+
+gboolean
+lamina_sqlite_create_at_version (const char  *path,
+                                 int          version,
+                                 GError     **error)
+{
+  LaminaSqlite *self;
+  gboolean ok;
+
+  g_return_val_if_fail (version >= 1 && version <= LAMINA_LIBRARY_SCHEMA_VERSION, FALSE);
+
+  self = open_file (path, TRUE, error);
+  if (self == NULL)
+    return FALSE;
+  ok = create_schema (self, version, FALSE, error);
+  sqlite_close (&self->parent);
+  return ok;
+}

@@ -1,0 +1,89 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-sqlite-private.h: the SQLite backend's shared state (private). */
+#pragma once
+
+#include <sqlite3.h>
+
+#include "lamina-library-backend.h"
+
+G_BEGIN_DECLS
+
+/* 'LMNA': PRAGMA application_id of a Lamina library. */
+#define LAMINA_SQLITE_APPLICATION_ID 0x4C4D4E41
+
+typedef struct
+{
+  LaminaBackend  parent;
+  sqlite3       *db;
+  GHashTable    *statements;    /* SQL text → sqlite3_stmt*, reused */
+  gint64         data_version;  /* PRAGMA data_version at the last check */
+} LaminaSqlite;
+
+/* A cached prepared statement, reset and with bindings cleared; NULL with
+ * @error set. */
+sqlite3_stmt *lamina_sqlite_prepare   (LaminaSqlite  *self,
+                                       const char    *sql,
+                                       GError       **error);
+/* Sets @error from the connection's last error (BUSY, CORRUPT, … mapped
+ * to LAMINA_LIBRARY_ERROR codes), prefixed by @what. */
+void          lamina_sqlite_set_error (LaminaSqlite  *self,
+                                       int            rc,
+                                       const char    *what,
+                                       GError       **error);
+gboolean      lamina_sqlite_exec      (LaminaSqlite  *self,
+                                       const char    *sql,
+                                       GError       **error);
+/* BEGIN IMMEDIATE: every write transaction reads first. */
+gboolean      lamina_sqlite_begin     (LaminaSqlite  *self,
+                                       GError       **error);
+gboolean      lamina_sqlite_commit    (LaminaSqlite  *self,
+                                       GError       **error);
+void          lamina_sqlite_rollback  (LaminaSqlite  *self);
+/* Runs a prepared statement that returns no rows. */
+gboolean      lamina_sqlite_step_done (LaminaSqlite  *self,
+                                       sqlite3_stmt  *stmt,
+                                       GError       **error);
+void          lamina_sqlite_bind_text   (sqlite3_stmt *stmt,
+                                         int           index,
+                                         const char   *text);
+void          lamina_sqlite_bind_double (sqlite3_stmt *stmt,
+                                         int           index,
+                                         double        value);
+double        lamina_sqlite_column_double (sqlite3_stmt *stmt,
+                                           int           index);
+char         *lamina_sqlite_column_dup    (sqlite3_stmt *stmt,
+                                           int           index);
+
+/* lamina-sqlite-schema.c: migration steps.  Step n brings a file from
+ * user_version n to n + 1; a new file runs every step from 0. */
+gboolean      lamina_sqlite_migrate   (LaminaSqlite  *self,
+                                       int            from,
+                                       int            to,
+                                       GError       **error);
+/* lamina-seed.c */
+gboolean      lamina_sqlite_seed_materials (LaminaSqlite *self,
+                                            GError      **error);
+
+/* lamina-sqlite-store.c, lamina-sqlite-search.c: fill the vtable. */
+void          lamina_sqlite_store_init_vtable  (LaminaBackendVTable *vtable);
+void          lamina_sqlite_search_init_vtable (LaminaBackendVTable *vtable);
+/* Refreshes the "material data changed since review" flag of every
+ * construction using @material_id (NULL: all). */
+gboolean      lamina_sqlite_refresh_material_flags (LaminaSqlite *self,
+                                                    const char   *material_id,
+                                                    GError      **error);
+
+/* Inside the caller's transaction. */
+gboolean      lamina_sqlite_put_material (LaminaSqlite          *self,
+                                          const LaminaMaterial  *material,
+                                          const char            *now,
+                                          GError               **error);
+void          lamina_sqlite_revisions_init_vtable (LaminaBackendVTable *vtable);
+
+/* For tests: creates a library file at schema @version (1 …) without
+ * seeding, so migrations can be tested from every earlier schema. */
+gboolean      lamina_sqlite_create_at_version (const char *path,
+                                               int         version,
+                                               GError    **error);
+
+G_END_DECLS

@@ -1,0 +1,548 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-sqlite-revisions.c: construction revisions, history and review
+ * states in the SQLite backend. */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "lamina-sqlite-private.h"
+
+#include "lamina-store-json.h"
+
+#include <math.h>
+
+#define SELF ((LaminaSqlite *) backend)
+
+static LaminaConstruction *
+sqlite_get_construction (LaminaBackend  *backend,
+                         const char     *id,
+                         int             revision,
+                         GError        **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
+    "SELECT r.body, r.revision, r.status, r.modified_by, r.modified_at,"
+    "       r.checked_by, r.checked_at, r.approved_by, r.approved_at"
+    "  FROM construction c JOIN revision r ON r.construction_id = c.id"
+    " WHERE c.id = ?1 AND c.deleted_at IS NULL"
+    "   AND r.revision = CASE WHEN ?2 > 0 THEN ?2 ELSE c.head END;", error);
+  LaminaConstruction *c = NULL;
+  int rc;
+
+  if (stmt == NULL)
+    return NULL;
+  lamina_sqlite_bind_text (stmt, 1, id);
+  sqlite3_bind_int (stmt, 2, revision);
+  rc = sqlite3_step (stmt);
+  if (rc == SQLITE_ROW)
+    {
+      c = lamina_store_construction_from_json ((const char *) sqlite3_column_text (stmt, 0),
+                                               error);
+      if (c != NULL)
+        {
+          c->id = g_strdup (id);
+          c->revision = sqlite3_column_int (stmt, 1);
+          lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 2), &c->status);
+          c->modified_by = lamina_sqlite_column_dup (stmt, 3);
+          c->modified_at = lamina_sqlite_column_dup (stmt, 4);
+          c->checked_by = lamina_sqlite_column_dup (stmt, 5);
+          c->checked_at = lamina_sqlite_column_dup (stmt, 6);
+          c->approved_by = lamina_sqlite_column_dup (stmt, 7);
+          c->approved_at = lamina_sqlite_column_dup (stmt, 8);
+        }
+    }
+  else if (rc == SQLITE_DONE)
+    {
+      if (revision > 0)
+        g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                     "construction “%s” has no revision %d", id, revision);
+      else
+        g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                     "no construction “%s” in the library", id);
+    }
+  else
+    lamina_sqlite_set_error (SELF, rc, "cannot read a construction", error);
+  sqlite3_reset (stmt);
+  return c;
+}
+
+/* The head revision and whether the construction is deleted; 0 if there
+ * is no such construction, -1 on error. */
+static int
+get_head (LaminaSqlite  *self,
+          const char    *id,
+          gboolean      *deleted,
+          LaminaStatus  *status,
+          GError       **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
+    "SELECT head, deleted_at IS NOT NULL, status FROM construction WHERE id = ?1;", error);
+  int rc, head = 0;
+
+  if (stmt == NULL)
+    return -1;
+  lamina_sqlite_bind_text (stmt, 1, id);
+  rc = sqlite3_step (stmt);
+  if (rc == SQLITE_ROW)
+    {
+      head = sqlite3_column_int (stmt, 0);
+      if (deleted)
+        *deleted = sqlite3_column_int (stmt, 1);
+      if (status)
+        lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 2), status);
+    }
+  else if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot read a construction", error);
+      head = -1;
+    }
+  sqlite3_reset (stmt);
+  return head;
+}
+
+static void
+collect_material (GHashTable           *materials,
+                  GString              *names,
+                  const LaminaMaterial *m)
+{
+  if (m == NULL)
+    return;
+  if (m->name != NULL)
+    g_string_append_printf (names, "%s ", m->name);
+  if (m->id != NULL && !g_hash_table_contains (materials, m->id))
+    g_hash_table_insert (materials, m->id, lamina_store_material_fingerprint (m));
+}
+
+static gboolean
+store_tags_and_materials (LaminaSqlite              *self,
+                          const LaminaConstruction  *c,
+                          gint64                     num,
+                          GError                   **error)
+{
+  g_autoptr(GHashTable) materials = g_hash_table_new_full (g_str_hash, g_str_equal, NULL, g_free);
+  g_autoptr(GString) names = g_string_new (NULL);
+  g_autofree char *tags = NULL;
+  GHashTableIter iter;
+  gpointer key, value;
+  sqlite3_stmt *stmt;
+
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+
+      collect_material (materials, names, layer->material);
+      for (guint k = 0; layer->parts != NULL && k < layer->parts->len; k++)
+        collect_material (materials, names, ((LaminaPart *) layer->parts->pdata[k])->material);
+    }
+  stmt = lamina_sqlite_prepare (self,
+    "INSERT INTO revision_material (construction_id, revision, material_id, fingerprint)"
+    " VALUES (?1, ?2, ?3, ?4);", error);
+  if (stmt == NULL)
+    return FALSE;
+  g_hash_table_iter_init (&iter, materials);
+  while (g_hash_table_iter_next (&iter, &key, &value))
+    {
+      sqlite3_reset (stmt);
+      lamina_sqlite_bind_text (stmt, 1, c->id);
+      sqlite3_bind_int (stmt, 2, c->revision);
+      lamina_sqlite_bind_text (stmt, 3, key);
+      lamina_sqlite_bind_text (stmt, 4, value);
+      if (!lamina_sqlite_step_done (self, stmt, error))
+        return FALSE;
+    }
+
+  stmt = lamina_sqlite_prepare (self,
+    "DELETE FROM construction_tag WHERE construction_id = ?1;", error);
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, c->id);
+  if (!lamina_sqlite_step_done (self, stmt, error))
+    return FALSE;
+  stmt = lamina_sqlite_prepare (self,
+    "INSERT OR IGNORE INTO construction_tag (construction_id, tag) VALUES (?1, ?2);", error);
+  if (stmt == NULL)
+    return FALSE;
+  for (guint i = 0; i < c->tags->len; i++)
+    {
+      sqlite3_reset (stmt);
+      lamina_sqlite_bind_text (stmt, 1, c->id);
+      lamina_sqlite_bind_text (stmt, 2, c->tags->pdata[i]);
+      if (!lamina_sqlite_step_done (self, stmt, error))
+        return FALSE;
+    }
+
+  /* The search index row has the construction's rowid. */
+  stmt = lamina_sqlite_prepare (self, "DELETE FROM construction_fts WHERE rowid = ?1;", error);
+  if (stmt == NULL)
+    return FALSE;
+  sqlite3_bind_int64 (stmt, 1, num);
+  if (!lamina_sqlite_step_done (self, stmt, error))
+    return FALSE;
+  stmt = lamina_sqlite_prepare (self,
+    "INSERT INTO construction_fts (rowid, code, name, description, tags, materials)"
+    " VALUES (?1, ?2, ?3, ?4, ?5, ?6);", error);
+  if (stmt == NULL)
+    return FALSE;
+  g_ptr_array_add (c->tags, NULL);
+  tags = g_strjoinv (" ", (char **) c->tags->pdata);
+  g_ptr_array_remove_index (c->tags, c->tags->len - 1);
+  sqlite3_bind_int64 (stmt, 1, num);
+  lamina_sqlite_bind_text (stmt, 2, c->code);
+  lamina_sqlite_bind_text (stmt, 3, c->name);
+  lamina_sqlite_bind_text (stmt, 4, c->description);
+  lamina_sqlite_bind_text (stmt, 5, tags);
+  lamina_sqlite_bind_text (stmt, 6, names->str);
+  return lamina_sqlite_step_done (self, stmt, error);
+}
+
+static gboolean
+store_revision_in_txn (LaminaSqlite                 *self,
+                       const LaminaBackendRevision  *rev,
+                       int                           base,
+                       GError                      **error)
+{
+  const LaminaConstruction *c = rev->construction;
+  const LaminaResult *r = rev->result;
+  g_autofree char *body = lamina_store_construction_to_json (c);
+  LaminaSummaryFlags flags = LAMINA_SUMMARY_NONE;
+  gboolean deleted = FALSE;
+  sqlite3_stmt *stmt;
+  gint64 num;
+  int head = get_head (self, c->id, &deleted, NULL, error);
+
+  if (head < 0)
+    return FALSE;
+  if (base == 0 && head > 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS,
+                   "a construction with id “%s” exists already", c->id);
+      return FALSE;
+    }
+  if (base > 0 && (head == 0 || deleted))
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no construction “%s” in the library", c->id);
+      return FALSE;
+    }
+  if (base > 0 && head != base)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
+                   "“%s” was changed by someone else (revision %d was saved after "
+                   "revision %d you edited); nothing was saved: reopen it and "
+                   "apply your change again", c->name ? c->name : c->id, head, base);
+      return FALSE;
+    }
+  g_assert (c->revision == (base > 0 ? base + 1 : c->revision) && c->revision > 0);
+
+  if (r == NULL)
+    flags |= LAMINA_SUMMARY_NOT_CALCULATED;
+  else
+    {
+      if (r->has_target && !r->target_met)
+        flags |= LAMINA_SUMMARY_TARGET_NOT_MET;
+      if (r->warnings != NULL && r->warnings->len > 0)
+        flags |= LAMINA_SUMMARY_HAS_WARNINGS;
+    }
+
+  stmt = lamina_sqlite_prepare (self,
+    "INSERT INTO construction (id, head, code, name, element, status, u, u_corrected,"
+    "   target_u, thickness, flags, modified_at)"
+    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12)"
+    " ON CONFLICT (id) DO UPDATE SET head = ?2, code = ?3, name = ?4, element = ?5,"
+    "   status = ?6, u = ?7, u_corrected = ?8, target_u = ?9, thickness = ?10,"
+    "   flags = ?11, modified_at = ?12"
+    " RETURNING num;", error);
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, c->id);
+  sqlite3_bind_int (stmt, 2, c->revision);
+  lamina_sqlite_bind_text (stmt, 3, c->code);
+  lamina_sqlite_bind_text (stmt, 4, c->name ? c->name : "");
+  lamina_sqlite_bind_text (stmt, 5, lamina_element_to_string (c->element));
+  lamina_sqlite_bind_text (stmt, 6, lamina_status_to_string (c->status));
+  lamina_sqlite_bind_double (stmt, 7, r ? r->u : NAN);
+  lamina_sqlite_bind_double (stmt, 8, r ? r->u_corrected : NAN);
+  lamina_sqlite_bind_double (stmt, 9, c->target_u);
+  lamina_sqlite_bind_double (stmt, 10, lamina_construction_get_thickness (c));
+  sqlite3_bind_int (stmt, 11, flags);
+  lamina_sqlite_bind_text (stmt, 12, c->modified_at);
+  if (sqlite3_step (stmt) != SQLITE_ROW)
+    {
+      lamina_sqlite_set_error (self, sqlite3_reset (stmt), "cannot store a construction", error);
+      return FALSE;
+    }
+  num = sqlite3_column_int64 (stmt, 0);
+  sqlite3_reset (stmt);
+
+  stmt = lamina_sqlite_prepare (self,
+    "INSERT INTO revision (construction_id, revision, status, body, u, u_corrected,"
+    "   r_total, thickness, calc_error, modified_by, modified_at, checked_by,"
+    "   checked_at, approved_by, approved_at, comment)"
+    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16);",
+    error);
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, c->id);
+  sqlite3_bind_int (stmt, 2, c->revision);
+  lamina_sqlite_bind_text (stmt, 3, lamina_status_to_string (c->status));
+  lamina_sqlite_bind_text (stmt, 4, body);
+  lamina_sqlite_bind_double (stmt, 5, r ? r->u : NAN);
+  lamina_sqlite_bind_double (stmt, 6, r ? r->u_corrected : NAN);
+  lamina_sqlite_bind_double (stmt, 7, r ? r->r_total : NAN);
+  lamina_sqlite_bind_double (stmt, 8, lamina_construction_get_thickness (c));
+  lamina_sqlite_bind_text (stmt, 9, rev->calc_error);
+  lamina_sqlite_bind_text (stmt, 10, c->modified_by);
+  lamina_sqlite_bind_text (stmt, 11, c->modified_at);
+  lamina_sqlite_bind_text (stmt, 12, c->checked_by);
+  lamina_sqlite_bind_text (stmt, 13, c->checked_at);
+  lamina_sqlite_bind_text (stmt, 14, c->approved_by);
+  lamina_sqlite_bind_text (stmt, 15, c->approved_at);
+  lamina_sqlite_bind_text (stmt, 16, rev->comment);
+  if (!lamina_sqlite_step_done (self, stmt, error)
+      || !store_tags_and_materials (self, c, num, error))
+    return FALSE;
+
+  stmt = lamina_sqlite_prepare (self,
+    "UPDATE construction SET material_changed = EXISTS ("
+    "    SELECT 1 FROM revision_material rm JOIN material m ON m.id = rm.material_id"
+    "     WHERE rm.construction_id = ?1 AND rm.revision = ?2"
+    "       AND m.fingerprint <> rm.fingerprint)"
+    " WHERE id = ?1;", error);
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, c->id);
+  sqlite3_bind_int (stmt, 2, c->revision);
+  return lamina_sqlite_step_done (self, stmt, error);
+}
+
+static gboolean
+sqlite_store_revision (LaminaBackend                *backend,
+                       const LaminaBackendRevision  *rev,
+                       int                           base_revision,
+                       GError                      **error)
+{
+  if (!lamina_sqlite_begin (SELF, error))
+    return FALSE;
+  if (!store_revision_in_txn (SELF, rev, base_revision, error)
+      || !lamina_sqlite_commit (SELF, error))
+    {
+      lamina_sqlite_rollback (SELF);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+sqlite_set_deleted (LaminaBackend  *backend,
+                    const char     *id,
+                    const char     *when,
+                    GError        **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
+    "UPDATE construction SET deleted_at = ?2"
+    " WHERE id = ?1 AND (deleted_at IS NULL) = (?2 IS NOT NULL);", error);
+
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, id);
+  lamina_sqlite_bind_text (stmt, 2, when);
+  if (!lamina_sqlite_step_done (SELF, stmt, error))
+    return FALSE;
+  if (sqlite3_changes (SELF->db) == 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   when ? "no construction “%s” in the library"
+                        : "no deleted construction “%s” in the library", id);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static GPtrArray *
+sqlite_get_history (LaminaBackend  *backend,
+                    const char     *id,
+                    GError        **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
+    "SELECT revision, status, modified_by, modified_at, checked_by, checked_at,"
+    "       approved_by, approved_at, comment, u_corrected"
+    "  FROM revision WHERE construction_id = ?1 ORDER BY revision DESC;", error);
+  g_autoptr(GPtrArray) list = NULL;
+  int rc;
+
+  if (stmt == NULL)
+    return NULL;
+  list = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_revision_info_free);
+  lamina_sqlite_bind_text (stmt, 1, id);
+  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
+    {
+      LaminaRevisionInfo *info = g_new0 (LaminaRevisionInfo, 1);
+
+      info->revision = sqlite3_column_int (stmt, 0);
+      lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 1), &info->status);
+      info->modified_by = lamina_sqlite_column_dup (stmt, 2);
+      info->modified_at = lamina_sqlite_column_dup (stmt, 3);
+      info->checked_by = lamina_sqlite_column_dup (stmt, 4);
+      info->checked_at = lamina_sqlite_column_dup (stmt, 5);
+      info->approved_by = lamina_sqlite_column_dup (stmt, 6);
+      info->approved_at = lamina_sqlite_column_dup (stmt, 7);
+      info->comment = lamina_sqlite_column_dup (stmt, 8);
+      info->u_corrected = lamina_sqlite_column_double (stmt, 9);
+      g_ptr_array_add (list, info);
+    }
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (SELF, rc, "cannot read the history", error);
+      return NULL;
+    }
+  if (list->len == 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no construction “%s” in the library", id);
+      return NULL;
+    }
+  return g_steal_pointer (&list);
+}
+
+static gboolean
+set_status_in_txn (LaminaSqlite  *self,
+                   const char    *id,
+                   int            revision,
+                   LaminaStatus   status,
+                   const char    *name,
+                   const char    *when,
+                   GError       **error)
+{
+  LaminaStatus current = LAMINA_STATUS_DRAFT;
+  gboolean deleted = FALSE;
+  int head = get_head (self, id, &deleted, &current, error);
+  sqlite3_stmt *stmt;
+
+  if (head < 0)
+    return FALSE;
+  if (head == 0 || deleted)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no construction “%s” in the library", id);
+      return FALSE;
+    }
+  if (revision > 0 && revision != head)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
+                   "construction “%s”: revision %d is not the latest (%d); "
+                   "review the latest revision", id, revision, head);
+      return FALSE;
+    }
+  if (current == LAMINA_STATUS_APPROVED)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IMMUTABLE,
+                   "construction “%s” revision %d is approved already; "
+                   "an approved revision cannot change", id, head);
+      return FALSE;
+    }
+  if (status == LAMINA_STATUS_CHECKED)
+    stmt = lamina_sqlite_prepare (self,
+      "UPDATE revision SET status = 'checked', checked_by = ?3, checked_at = ?4"
+      " WHERE construction_id = ?1 AND revision = ?2;", error);
+  else
+    stmt = lamina_sqlite_prepare (self,
+      "UPDATE revision SET status = 'approved', approved_by = ?3, approved_at = ?4"
+      " WHERE construction_id = ?1 AND revision = ?2;", error);
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, id);
+  sqlite3_bind_int (stmt, 2, head);
+  lamina_sqlite_bind_text (stmt, 3, name);
+  lamina_sqlite_bind_text (stmt, 4, when);
+  if (!lamina_sqlite_step_done (self, stmt, error))
+    return FALSE;
+  stmt = lamina_sqlite_prepare (self,
+    "UPDATE construction SET status = ?2 WHERE id = ?1;", error);
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, id);
+  lamina_sqlite_bind_text (stmt, 2, lamina_status_to_string (status));
+  return lamina_sqlite_step_done (self, stmt, error);
+}
+
+static gboolean
+sqlite_set_status (LaminaBackend  *backend,
+                   const char     *id,
+                   int             revision,
+                   LaminaStatus    status,
+                   const char     *name,
+                   const char     *when,
+                   GError        **error)
+{
+  if (!lamina_sqlite_begin (SELF, error))
+    return FALSE;
+  if (!set_status_in_txn (SELF, id, revision, status, name, when, error)
+      || !lamina_sqlite_commit (SELF, error))
+    {
+      lamina_sqlite_rollback (SELF);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+sqlite_apply_import (LaminaBackend  *backend,
+                     GPtrArray      *materials,
+                     GPtrArray      *revisions,
+                     const GArray   *base_revisions,
+                     const char     *now,
+                     GError        **error)
+{
+  g_autoptr(GError) local = NULL;
+
+  if (!lamina_sqlite_begin (SELF, error))
+    return FALSE;
+  for (guint i = 0; i < materials->len; i++)
+    if (!lamina_sqlite_put_material (SELF, materials->pdata[i], now, &local))
+      goto fail;
+  for (guint i = 0; i < revisions->len; i++)
+    if (!store_revision_in_txn (SELF, revisions->pdata[i],
+                                g_array_index (base_revisions, int, i), &local))
+      goto fail;
+  if (lamina_sqlite_commit (SELF, &local))
+    return TRUE;
+fail:
+  lamina_sqlite_rollback (SELF);
+  g_propagate_prefixed_error (error, g_steal_pointer (&local),
+                              "import cancelled, the library is unchanged: ");
+  return FALSE;
+}
+
+static GPtrArray *
+sqlite_list_ids (LaminaBackend  *backend,
+                 GError        **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
+    "SELECT id FROM construction WHERE deleted_at IS NULL"
+    " ORDER BY code COLLATE NOCASE, id;", error);
+  g_autoptr(GPtrArray) ids = NULL;
+  int rc;
+
+  if (stmt == NULL)
+    return NULL;
+  ids = g_ptr_array_new_with_free_func (g_free);
+  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
+    g_ptr_array_add (ids, lamina_sqlite_column_dup (stmt, 0));
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (SELF, rc, "cannot list the constructions", error);
+      return NULL;
+    }
+  return g_steal_pointer (&ids);
+}
+
+void
+lamina_sqlite_revisions_init_vtable (LaminaBackendVTable *vtable)
+{
+  vtable->get_construction = sqlite_get_construction;
+  vtable->store_revision = sqlite_store_revision;
+  vtable->set_deleted = sqlite_set_deleted;
+  vtable->get_history = sqlite_get_history;
+  vtable->set_status = sqlite_set_status;
+  vtable->apply_import = sqlite_apply_import;
+  vtable->list_ids = sqlite_list_ids;
+}

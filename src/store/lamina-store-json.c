@@ -1,0 +1,359 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "lamina-store-json.h"
+
+#include <json-glib/json-glib.h>
+#include <math.h>
+
+#include "lamina-library.h"
+
+/* Numbers that are not given (NAN) are stored as null. */
+static void
+add_number (JsonBuilder *b,
+            const char  *key,
+            double       value)
+{
+  json_builder_set_member_name (b, key);
+  if (isnan (value))
+    json_builder_add_null_value (b);
+  else
+    json_builder_add_double_value (b, value);
+}
+
+static void
+add_string (JsonBuilder *b,
+            const char  *key,
+            const char  *value)
+{
+  if (value == NULL)
+    return;
+  json_builder_set_member_name (b, key);
+  json_builder_add_string_value (b, value);
+}
+
+static void
+add_material (JsonBuilder          *b,
+              const char           *key,
+              const LaminaMaterial *m)
+{
+  if (m == NULL)
+    return;
+  json_builder_set_member_name (b, key);
+  json_builder_begin_object (b);
+  add_string (b, "id", m->id);
+  add_string (b, "name", m->name);
+  add_string (b, "category", lamina_category_to_string (m->category));
+  add_number (b, "conductivity", m->conductivity);
+  add_number (b, "density", m->density);
+  add_number (b, "specific_heat", m->specific_heat);
+  add_number (b, "mu", m->vapour_resistance_factor);
+  add_number (b, "emissivity", m->emissivity);
+  add_string (b, "source", m->source);
+  add_string (b, "notes", m->notes);
+  json_builder_end_object (b);
+}
+
+static void
+add_corrections (JsonBuilder             *b,
+                 const LaminaCorrections *k)
+{
+  if (!k->has_air_gaps && !k->has_fasteners && !k->has_inverted_roof)
+    return;
+  json_builder_set_member_name (b, "corrections");
+  json_builder_begin_object (b);
+  if (k->has_air_gaps)
+    {
+      json_builder_set_member_name (b, "air_gap_level");
+      json_builder_add_int_value (b, k->air_gap_level);
+    }
+  if (k->has_fasteners)
+    {
+      json_builder_set_member_name (b, "fasteners");
+      json_builder_begin_object (b);
+      add_number (b, "conductivity", k->fastener_conductivity);
+      add_number (b, "cross_section", k->fastener_cross_section);
+      add_number (b, "per_square_metre", k->fasteners_per_square_metre);
+      add_number (b, "penetration", k->fastener_penetration);
+      json_builder_end_object (b);
+    }
+  if (k->has_inverted_roof)
+    {
+      json_builder_set_member_name (b, "inverted_roof");
+      json_builder_begin_object (b);
+      add_number (b, "precipitation", k->precipitation);
+      add_number (b, "drainage_factor", k->drainage_factor);
+      json_builder_end_object (b);
+    }
+  json_builder_end_object (b);
+}
+
+static void
+add_layer (JsonBuilder       *b,
+           const LaminaLayer *layer)
+{
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "kind");
+  json_builder_add_int_value (b, layer->kind);
+  add_number (b, "thickness", layer->thickness);
+  add_material (b, "material", layer->material);
+  add_number (b, "resistance", layer->resistance);
+  add_string (b, "air", lamina_air_kind_to_string (layer->air));
+  add_number (b, "vent_area", layer->vent_area);
+  add_number (b, "emissivity_inner", layer->emissivity_inner);
+  add_number (b, "emissivity_outer", layer->emissivity_outer);
+  if (layer->parts != NULL)
+    {
+      json_builder_set_member_name (b, "parts");
+      json_builder_begin_array (b);
+      for (guint i = 0; i < layer->parts->len; i++)
+        {
+          const LaminaPart *p = layer->parts->pdata[i];
+
+          json_builder_begin_object (b);
+          add_material (b, "material", p->material);
+          add_number (b, "fraction", p->fraction);
+          add_number (b, "width", p->width);
+          add_number (b, "spacing", p->spacing);
+          add_string (b, "member", p->member);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+    }
+  add_corrections (b, &layer->corrections);
+  add_string (b, "note", layer->note);
+  json_builder_end_object (b);
+}
+
+char *
+lamina_store_construction_to_json (const LaminaConstruction *c)
+{
+  g_autoptr(JsonBuilder) b = json_builder_new ();
+  g_autoptr(JsonGenerator) gen = json_generator_new ();
+  g_autoptr(JsonNode) root = NULL;
+
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "format");
+  json_builder_add_int_value (b, 1);
+  add_string (b, "code", c->code);
+  add_string (b, "name", c->name);
+  add_string (b, "element", lamina_element_to_string (c->element));
+  add_string (b, "heat_flow", lamina_heat_flow_to_string (c->heat_flow));
+  add_string (b, "outer_side", lamina_outer_side_to_string (c->outer_side));
+  add_string (b, "description", c->description);
+  json_builder_set_member_name (b, "tags");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < c->tags->len; i++)
+    json_builder_add_string_value (b, c->tags->pdata[i]);
+  json_builder_end_array (b);
+  json_builder_set_member_name (b, "layers");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < c->layers->len; i++)
+    add_layer (b, c->layers->pdata[i]);
+  json_builder_end_array (b);
+  add_number (b, "target_u", c->target_u);
+  add_number (b, "inside_temperature", c->inside_temperature);
+  add_number (b, "outside_temperature", c->outside_temperature);
+  add_string (b, "notes", c->notes);
+  json_builder_end_object (b);
+
+  root = json_builder_get_root (b);
+  json_generator_set_root (gen, root);
+  return json_generator_to_data (gen, NULL);
+}
+
+/* Reading back */
+
+static double
+get_number (JsonObject *o,
+            const char *key)
+{
+  JsonNode *n = json_object_get_member (o, key);
+
+  if (n == NULL || JSON_NODE_HOLDS_NULL (n))
+    return NAN;
+  return json_node_get_double (n);
+}
+
+static char *
+dup_string (JsonObject *o,
+            const char *key)
+{
+  JsonNode *n = json_object_get_member (o, key);
+
+  if (n == NULL || !JSON_NODE_HOLDS_VALUE (n))
+    return NULL;
+  return g_strdup (json_node_get_string (n));
+}
+
+static LaminaMaterial *
+read_material (JsonObject *parent,
+               const char *key)
+{
+  JsonObject *o;
+  LaminaMaterial *m;
+  g_autofree char *category = NULL;
+  LaminaCategory cat = LAMINA_CATEGORY_OTHER;
+
+  if (!json_object_has_member (parent, key))
+    return NULL;
+  o = json_object_get_object_member (parent, key);
+  if (o == NULL)
+    return NULL;
+  category = dup_string (o, "category");
+  if (category != NULL)
+    lamina_category_from_string (category, &cat);
+  m = lamina_material_new (NULL, NULL, cat, get_number (o, "conductivity"));
+  m->id = dup_string (o, "id");
+  m->name = dup_string (o, "name");
+  m->density = get_number (o, "density");
+  m->specific_heat = get_number (o, "specific_heat");
+  m->vapour_resistance_factor = get_number (o, "mu");
+  m->emissivity = get_number (o, "emissivity");
+  m->source = dup_string (o, "source");
+  m->notes = dup_string (o, "notes");
+  return m;
+}
+
+static void
+read_corrections (JsonObject        *o,
+                  LaminaCorrections *k)
+{
+  JsonObject *c, *sub;
+
+  if (!json_object_has_member (o, "corrections"))
+    return;
+  c = json_object_get_object_member (o, "corrections");
+  if (json_object_has_member (c, "air_gap_level"))
+    {
+      k->has_air_gaps = TRUE;
+      k->air_gap_level = (int) json_object_get_int_member (c, "air_gap_level");
+    }
+  if (json_object_has_member (c, "fasteners"))
+    {
+      sub = json_object_get_object_member (c, "fasteners");
+      k->has_fasteners = TRUE;
+      k->fastener_conductivity = get_number (sub, "conductivity");
+      k->fastener_cross_section = get_number (sub, "cross_section");
+      k->fasteners_per_square_metre = get_number (sub, "per_square_metre");
+      k->fastener_penetration = get_number (sub, "penetration");
+    }
+  if (json_object_has_member (c, "inverted_roof"))
+    {
+      sub = json_object_get_object_member (c, "inverted_roof");
+      k->has_inverted_roof = TRUE;
+      k->precipitation = get_number (sub, "precipitation");
+      k->drainage_factor = get_number (sub, "drainage_factor");
+    }
+}
+
+static LaminaLayer *
+read_layer (JsonObject *o)
+{
+  LaminaLayer *layer;
+  g_autofree char *air = NULL;
+  gint64 kind = json_object_get_int_member (o, "kind");
+
+  if (kind == LAMINA_LAYER_BRIDGED)
+    layer = lamina_layer_new_bridged (NAN);
+  else
+    layer = lamina_layer_new_material (NAN, NULL);
+  layer->kind = (LaminaLayerKind) CLAMP (kind, 0, LAMINA_N_LAYER_KINDS - 1);
+  layer->thickness = get_number (o, "thickness");
+  layer->material = read_material (o, "material");
+  layer->resistance = get_number (o, "resistance");
+  air = dup_string (o, "air");
+  if (air != NULL)
+    lamina_air_kind_from_string (air, &layer->air);
+  layer->vent_area = get_number (o, "vent_area");
+  layer->emissivity_inner = get_number (o, "emissivity_inner");
+  layer->emissivity_outer = get_number (o, "emissivity_outer");
+  if (json_object_has_member (o, "parts"))
+    {
+      JsonArray *parts = json_object_get_array_member (o, "parts");
+
+      for (guint i = 0; i < json_array_get_length (parts); i++)
+        {
+          JsonObject *po = json_array_get_object_element (parts, i);
+          LaminaPart *p = lamina_part_new (read_material (po, "material"),
+                                           get_number (po, "fraction"));
+
+          p->width = get_number (po, "width");
+          p->spacing = get_number (po, "spacing");
+          p->member = dup_string (po, "member");
+          lamina_layer_add_part (layer, p);
+        }
+    }
+  read_corrections (o, &layer->corrections);
+  layer->note = dup_string (o, "note");
+  return layer;
+}
+
+LaminaConstruction *
+lamina_store_construction_from_json (const char  *json,
+                                     GError     **error)
+{
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  g_autoptr(GError) local = NULL;
+  g_autofree char *element = NULL, *heat_flow = NULL, *outer = NULL;
+  JsonObject *o;
+  JsonArray *a;
+  LaminaConstruction *c;
+  LaminaElement el;
+
+  if (!json_parser_load_from_data (parser, json, -1, &local)
+      || !JSON_NODE_HOLDS_OBJECT (json_parser_get_root (parser)))
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT,
+                   "stored construction is damaged: %s",
+                   local ? local->message : "not an object");
+      return NULL;
+    }
+  o = json_node_get_object (json_parser_get_root (parser));
+  element = dup_string (o, "element");
+  if (element == NULL || !lamina_element_from_string (element, &el)
+      || !json_object_has_member (o, "layers"))
+    {
+      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT,
+                           "stored construction is damaged: no element or layers");
+      return NULL;
+    }
+  c = lamina_construction_new (NULL, NULL, el);
+  c->code = dup_string (o, "code");
+  c->name = dup_string (o, "name");
+  heat_flow = dup_string (o, "heat_flow");
+  if (heat_flow != NULL)
+    lamina_heat_flow_from_string (heat_flow, &c->heat_flow);
+  outer = dup_string (o, "outer_side");
+  if (outer != NULL)
+    lamina_outer_side_from_string (outer, &c->outer_side);
+  c->description = dup_string (o, "description");
+  a = json_object_get_array_member (o, "tags");
+  for (guint i = 0; a != NULL && i < json_array_get_length (a); i++)
+    lamina_construction_add_tag (c, json_array_get_string_element (a, i));
+  a = json_object_get_array_member (o, "layers");
+  for (guint i = 0; i < json_array_get_length (a); i++)
+    lamina_construction_add_layer (c, read_layer (json_array_get_object_element (a, i)));
+  c->target_u = get_number (o, "target_u");
+  c->inside_temperature = get_number (o, "inside_temperature");
+  c->outside_temperature = get_number (o, "outside_temperature");
+  c->notes = dup_string (o, "notes");
+  return c;
+}
+
+char *
+lamina_store_material_fingerprint (const LaminaMaterial *m)
+{
+  char buf[5][G_ASCII_DTOSTR_BUF_SIZE];
+  const double v[5] = { m->conductivity, m->density, m->specific_heat,
+                        m->vapour_resistance_factor, m->emissivity };
+
+  for (int i = 0; i < 5; i++)
+    {
+      if (isnan (v[i]))
+        g_strlcpy (buf[i], "-", sizeof buf[i]);
+      else
+        g_ascii_dtostr (buf[i], sizeof buf[i], v[i]);
+    }
+  return g_strjoin ("|", buf[0], buf[1], buf[2], buf[3], buf[4], NULL);
+}
