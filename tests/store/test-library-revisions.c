@@ -1,0 +1,307 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of revisions, review, concurrency, material flags and search. */
+#include <sqlite3.h>
+#include <string.h>
+
+#include "lamina-library.h"
+#include "lamina-library-search.h"
+#include "lamina-store-test-util.h"
+
+static LaminaLibrary *
+open_at (const char *name)
+{
+  g_autofree char *path = test_library_path (name);
+  g_autoptr(GError) error = NULL;
+  LaminaLibrary *library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+
+  g_assert_no_error (error);
+  return library;
+}
+
+static char *
+create_wall (LaminaLibrary *library,
+             const char    *code,
+             const char    *name,
+             const char    *tag,
+             double         mm)
+{
+  g_autoptr(LaminaConstruction) c = test_make_wall (library, code, name, tag, mm);
+  g_autoptr(GError) error = NULL;
+  char *id = lamina_library_create_construction (library, c, "A. Planner", &error);
+
+  g_assert_no_error (error);
+  g_assert_nonnull (id);
+  return id;
+}
+
+/* Revisions: an approved revision never changes (issue 3; review
+ * integrity of issue 7), an edit makes a new draft. */
+static void
+test_approved_immutable (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("rev.sqlite");
+  g_autofree char *id = create_wall (library, "EW-01", "Timber frame wall", "housing", 145);
+  g_autoptr(LaminaConstruction) c = NULL;
+  g_autoptr(LaminaConstruction) old = NULL;
+  g_autoptr(LaminaResult) r1 = NULL;
+  g_autoptr(LaminaResult) r2 = NULL;
+  g_autoptr(GPtrArray) history = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *path = g_strdup (lamina_library_get_path (library));
+  sqlite3 *db = NULL;
+  LaminaLayer *layer;
+
+  g_assert_false (lamina_library_approve (library, id, 1, "  ", NULL, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_clear_error (&error);
+  g_assert_true (lamina_library_mark_checked (library, id, 1, "C. Checker", &error));
+  g_assert_no_error (error);
+  g_assert_true (lamina_library_approve (library, id, 1, "D. Director", "2026-03-01", &error));
+  g_assert_no_error (error);
+  g_assert_false (lamina_library_mark_checked (library, id, 1, "C. Checker", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IMMUTABLE);
+  g_clear_error (&error);
+
+  r1 = lamina_library_get_result (library, id, 0, &error);
+  g_assert_no_error (error);
+  c = lamina_library_get_construction (library, id, 0, &error);
+  g_assert_cmpint (c->status, ==, LAMINA_STATUS_APPROVED);
+  layer = c->layers->pdata[1];
+  layer->thickness = 195;
+  g_assert_true (lamina_library_save_construction (library, c, 1, "A. Planner", &error));
+  g_assert_no_error (error);
+  g_assert_cmpint (c->revision, ==, 2);
+  g_assert_cmpint (c->status, ==, LAMINA_STATUS_DRAFT);
+  g_assert_null (c->approved_by);
+
+  /* Revision 1 is still there, approved, with its figures. */
+  old = lamina_library_get_construction (library, id, 1, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (old->status, ==, LAMINA_STATUS_APPROVED);
+  g_assert_cmpstr (old->approved_by, ==, "D. Director");
+  g_assert_cmpstr (old->approved_at, ==, "2026-03-01");
+  g_assert_cmpstr (old->checked_by, ==, "C. Checker");
+  g_assert_cmpfloat (((LaminaLayer *) old->layers->pdata[1])->thickness, ==, 145);
+  r2 = lamina_library_get_result (library, id, 1, &error);
+  g_assert_cmpfloat (r2->u_corrected, ==, r1->u_corrected);
+  g_clear_pointer (&r2, lamina_result_free);
+  /* More insulation: lower U (EN ISO 6946 physics, R grows with d). */
+  r2 = lamina_library_get_result (library, id, 2, &error);
+  g_assert_cmpfloat (r2->u_corrected, <, r1->u_corrected);
+
+  history = lamina_library_get_history (library, id, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (history->len, ==, 2);
+  g_assert_cmpint (((LaminaRevisionInfo *) history->pdata[0])->revision, ==, 2);
+  g_assert_cmpint (((LaminaRevisionInfo *) history->pdata[1])->status, ==, LAMINA_STATUS_APPROVED);
+  g_assert_cmpstr (((LaminaRevisionInfo *) history->pdata[1])->modified_by, ==, "A. Planner");
+
+  /* Not even raw SQL can change the approved row (triggers). */
+  g_assert_cmpint (sqlite3_open (path, &db), ==, SQLITE_OK);
+  g_assert_cmpint (sqlite3_exec (db, "UPDATE revision SET approved_by = 'X' WHERE revision = 1;",
+                                 NULL, NULL, NULL), !=, SQLITE_OK);
+  g_assert_cmpint (sqlite3_exec (db, "UPDATE revision SET body = '{}';", NULL, NULL, NULL), !=, SQLITE_OK);
+  g_assert_cmpint (sqlite3_exec (db, "DELETE FROM revision WHERE revision = 1;",
+                                 NULL, NULL, NULL), !=, SQLITE_OK);
+  sqlite3_close (db);
+}
+
+/* Two connections on one file (as two processes would): the save based
+ * on the older revision is refused and the other's work is kept. */
+static void
+test_stale_save (void)
+{
+  g_autoptr(LaminaLibrary) a = open_at ("shared.sqlite");
+  g_autoptr(LaminaLibrary) b = open_at ("shared.sqlite");
+  g_autofree char *id = create_wall (a, "EW-02", "Shared wall", NULL, 120);
+  g_autoptr(LaminaConstruction) ca = lamina_library_get_construction (a, id, 0, NULL);
+  g_autoptr(LaminaConstruction) cb = lamina_library_get_construction (b, id, 0, NULL);
+  g_autoptr(LaminaConstruction) now = NULL;
+  g_autoptr(GError) error = NULL;
+
+  g_assert_false (lamina_library_check_for_changes (a));
+  g_free (ca->name);
+  ca->name = g_strdup ("Shared wall, edited by A");
+  g_assert_true (lamina_library_save_construction (a, ca, 1, "A", &error));
+  g_assert_no_error (error);
+  g_assert_true (lamina_library_check_for_changes (b));
+
+  g_free (cb->name);
+  cb->name = g_strdup ("Shared wall, edited by B");
+  g_assert_false (lamina_library_save_construction (b, cb, 1, "B", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE);
+  g_assert_nonnull (strstr (error->message, "someone else"));
+  g_assert_cmpint (cb->revision, ==, 1);
+  g_clear_error (&error);
+  now = lamina_library_get_construction (b, id, 0, &error);
+  g_assert_cmpstr (now->name, ==, "Shared wall, edited by A");
+  g_assert_cmpint (now->revision, ==, 2);
+
+  /* Reviewing what is not the latest is refused too. */
+  g_assert_false (lamina_library_mark_checked (b, id, 1, "C", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE);
+}
+
+static void
+test_delete_restore_derive (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("undo.sqlite");
+  g_autofree char *id = create_wall (library, "EW-03", "Wall to delete", NULL, 100);
+  g_autofree char *copy = NULL;
+  g_autoptr(LaminaConstruction) derived = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryQuery q;
+
+  lamina_library_query_init (&q);
+  g_assert_true (lamina_library_delete_construction (library, id, NULL, &error));
+  g_assert_cmpint (lamina_library_count (library, &q, NULL), ==, 0);
+  g_assert_null (lamina_library_get_construction (library, id, 0, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+  g_clear_error (&error);
+  g_assert_true (lamina_library_restore_construction (library, id, &error));
+  g_assert_cmpint (lamina_library_count (library, &q, NULL), ==, 1);
+
+  copy = lamina_library_derive_construction (library, id, "B", &error);
+  g_assert_no_error (error);
+  derived = lamina_library_get_construction (library, copy, 0, &error);
+  g_assert_cmpint (derived->revision, ==, 1);
+  g_assert_null (derived->code);
+  g_assert_nonnull (strstr (derived->name, "Wall to delete"));
+  g_assert_cmpint (lamina_library_count (library, &q, NULL), ==, 2);
+}
+
+/* A library material that changes flags its users; they keep the λ they
+ * were calculated with until the user updates them. */
+static void
+test_material_changed (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("flag.sqlite");
+  g_autofree char *id = create_wall (library, "EW-04", "Flagged wall", NULL, 145);
+  g_autoptr(LaminaMaterial) wool = lamina_library_get_material (library, "typical-mineral-wool-035", NULL);
+  g_autoptr(LaminaResult) before = lamina_library_get_result (library, id, 0, NULL);
+  g_autoptr(LaminaResult) still = NULL;
+  g_autoptr(LaminaResult) after = NULL;
+  g_autoptr(GPtrArray) rows = NULL;
+  g_autoptr(GPtrArray) changes = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryQuery q;
+  int rev;
+
+  wool->conductivity = 0.040;
+  g_assert_true (lamina_library_put_material (library, wool, &error));
+  lamina_library_query_init (&q);
+  rows = lamina_library_search (library, &q, &error);
+  g_assert_true (((LaminaSummary *) rows->pdata[0])->flags & LAMINA_SUMMARY_MATERIAL_CHANGED);
+  still = lamina_library_get_result (library, id, 0, NULL);
+  g_assert_cmpfloat (still->u_corrected, ==, before->u_corrected);
+  changes = lamina_library_list_material_changes (library, id, &error);
+  g_assert_cmpuint (changes->len, ==, 1);
+  g_assert_cmpfloat (((LaminaMaterialChange *) changes->pdata[0])->stored->conductivity, ==, 0.035);
+
+  rev = lamina_library_update_materials (library, id, 1, "A", &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (rev, ==, 2);
+  after = lamina_library_get_result (library, id, 0, NULL);
+  g_assert_cmpfloat (after->u_corrected, >, before->u_corrected);
+  g_clear_pointer (&rows, g_ptr_array_unref);
+  rows = lamina_library_search (library, &q, &error);
+  g_assert_false (((LaminaSummary *) rows->pdata[0])->flags & LAMINA_SUMMARY_MATERIAL_CHANGED);
+}
+
+static guint
+count_text (LaminaLibrary *library,
+            const char    *text)
+{
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryQuery q;
+  gint64 n;
+
+  lamina_library_query_init (&q);
+  q.text = text;
+  n = lamina_library_count (library, &q, &error);
+  g_assert_no_error (error);
+  return (guint) n;
+}
+
+static void
+test_search (void)
+{
+  static const char *const hostile[] = {
+    "\"", "'", "EW-0", "NOT", "a OR b", "x AND", "(", ")", "*", "^", "name:wall",
+    "NEAR(a b)", "-", "--", "\"\"\"", "' OR 1=1 --", "é", "  ", "",
+  };
+  g_autoptr(LaminaLibrary) library = open_at ("search.sqlite");
+  g_autofree char *a = create_wall (library, "EW-10", "Larch clad timber wall", "passivhaus", 200);
+  g_autofree char *b = create_wall (library, "EW-11", "Brick slip wall", "retrofit", 100);
+  g_autofree char *c = create_wall (library, "RF-01", "Warm deck roof", "retrofit", 150);
+  g_autoptr(GPtrArray) rows = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryQuery q;
+
+  g_assert_cmpuint (count_text (library, "lar"), ==, 1);          /* prefix of a name word */
+  g_assert_cmpuint (count_text (library, "ew"), ==, 2);           /* prefix of a code */
+  g_assert_cmpuint (count_text (library, "EW-1"), ==, 2);
+  g_assert_cmpuint (count_text (library, "ew-11"), ==, 1);
+  g_assert_cmpuint (count_text (library, "retro"), ==, 2);        /* tag */
+  g_assert_cmpuint (count_text (library, "mineral"), ==, 3);      /* material name */
+  g_assert_cmpuint (count_text (library, "softw"), ==, 3);        /* material of a part */
+  g_assert_cmpuint (count_text (library, "retro deck"), ==, 1);   /* all words */
+  g_assert_cmpuint (count_text (library, "zzz"), ==, 0);
+  for (guint i = 0; i < G_N_ELEMENTS (hostile); i++)
+    count_text (library, hostile[i]);
+
+  lamina_library_query_init (&q);
+  q.tag = "retrofit";
+  q.sort = LAMINA_SORT_THICKNESS;
+  q.descending = TRUE;
+  rows = lamina_library_search (library, &q, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (rows->len, ==, 2);
+  g_assert_cmpstr (((LaminaSummary *) rows->pdata[0])->code, ==, "RF-01");
+  g_clear_pointer (&rows, g_ptr_array_unref);
+
+  /* Less insulation, higher U: the 100 mm wall is the only one above 0.3. */
+  lamina_library_query_init (&q);
+  q.min_u = 0.30;
+  rows = lamina_library_search (library, &q, &error);
+  g_assert_cmpuint (rows->len, ==, 1);
+  g_assert_cmpstr (((LaminaSummary *) rows->pdata[0])->id, ==, b);
+  g_assert_true (((LaminaSummary *) rows->pdata[0])->flags & LAMINA_SUMMARY_TARGET_NOT_MET);
+  g_clear_pointer (&rows, g_ptr_array_unref);
+
+  /* Paging. */
+  lamina_library_query_init (&q);
+  q.sort = LAMINA_SORT_CODE;
+  q.offset = 1;
+  q.limit = 1;
+  rows = lamina_library_search (library, &q, &error);
+  g_assert_cmpuint (rows->len, ==, 1);
+  g_assert_cmpstr (((LaminaSummary *) rows->pdata[0])->code, ==, "EW-11");
+  g_assert_cmpint (lamina_library_count (library, &q, NULL), ==, 3);
+}
+
+static void
+test_fts_query (void)
+{
+  g_autofree char *q1 = lamina_library_text_to_fts_query ("EW-0 \"larch\"");
+  g_autofree char *q2 = lamina_library_text_to_fts_query ("' OR ( ) *");
+
+  g_assert_cmpstr (q1, ==, "\"EW\"* \"0\"* \"larch\"*");
+  g_assert_cmpstr (q2, ==, "\"OR\"*");
+  g_assert_null (lamina_library_text_to_fts_query ("-- ' \" *"));
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
+
+  g_test_add_func ("/store/revisions/approved-immutable", test_approved_immutable);
+  g_test_add_func ("/store/revisions/stale-save", test_stale_save);
+  g_test_add_func ("/store/revisions/delete-restore-derive", test_delete_restore_derive);
+  g_test_add_func ("/store/revisions/material-changed", test_material_changed);
+  g_test_add_func ("/store/search/prefix-tag-material", test_search);
+  g_test_add_func ("/store/search/fts-query", test_fts_query);
+  return g_test_run ();
+}
