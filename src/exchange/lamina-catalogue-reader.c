@@ -161,6 +161,36 @@ get_count (Reader     *r,
 
 /* Materials */
 
+/* A material that no layer uses is never validated by the model, yet the
+ * library takes it in: check its design values here. */
+static gboolean
+check_material_values (Reader               *r,
+                       xmlNode              *node,
+                       const LaminaMaterial *m)
+{
+  struct { const char *attr; double value, min, max; gboolean open_min; } checks[] = {
+    { "conductivity", m->conductivity, 0, 1000, TRUE },
+    { "density", m->density, 0, 25000, FALSE },
+    { "specific-heat", m->specific_heat, 0, 100000, FALSE },
+    { "vapour-resistance-factor", m->vapour_resistance_factor, 0, 1e7, FALSE },
+    { "emissivity", m->emissivity, 0, 1, FALSE },
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (checks); i++)
+    {
+      double v = checks[i].value;
+
+      if (isnan (v))
+        continue;
+      if ((checks[i].open_min ? v <= checks[i].min : v < checks[i].min) || v > checks[i].max)
+        return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                     _("material “%s”: %s=%g is outside the allowed range %s%g to %g"),
+                     m->id, checks[i].attr, v, checks[i].open_min ? _("above ") : "",
+                     checks[i].min, checks[i].max);
+    }
+  return TRUE;
+}
+
 static gboolean
 read_material (Reader  *r,
                xmlNode *node)
@@ -185,6 +215,10 @@ read_material (Reader  *r,
       || !get_number (r, node, "vapour-resistance-factor", &m->vapour_resistance_factor)
       || !get_number (r, node, "emissivity", &m->emissivity))
     return FALSE;
+  m->id = g_strdup (id);
+  if (!check_material_values (r, node, m))
+    return FALSE;
+  g_clear_pointer (&m->id, g_free);
   for (xmlNode *child = node->children; child != NULL; child = child->next)
     if (is_element (child, "notes"))
       m->notes = dup_text (child);

@@ -21,6 +21,8 @@
 
 #include "lamina-exchange-resources.h"
 
+/* The "number" type of data/lamina-catalogue-1.xsd. */
+#define NUMBER_PATTERN "[+\\-]?([0-9]+(\\.[0-9]*)?|\\.[0-9]+)([eE][+\\-]?[0-9]+)?"
 #define SCHEMA_RESOURCE "/org/example/Lamina/exchange/lamina-catalogue-1.xsd"
 
 typedef struct
@@ -46,6 +48,11 @@ record_error (ErrorSink         *sink,
   message = g_string_new (text);
   while ((ns = strstr (message->str, "{" LAMINA_CATALOGUE_NAMESPACE "}")) != NULL)
     g_string_erase (message, ns - message->str, strlen ("{" LAMINA_CATALOGUE_NAMESPACE "}"));
+  /* The pattern of a number says nothing to a reader: say it in words. */
+  g_string_replace (message, "[facet 'pattern'] ", "", 0);
+  g_string_replace (message, "is not accepted by the pattern '" NUMBER_PATTERN "'",
+                    _("is not a plain decimal number such as 12.5 (no units, blanks, NaN or INF)"), 0);
+  g_string_replace (message, "\n", " ", 0);
   sink->message = g_string_free (message, FALSE);
   sink->line = err->line;
   if (sink->line <= 0 && err->node != NULL)
