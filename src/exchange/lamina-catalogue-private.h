@@ -22,4 +22,8 @@ xmlDoc *lamina_xml_document_parse (const char  *data,
                                    const char  *name,
                                    GError     **error);
 
+/* The source line of an element (or of an attribute's element) of a
+ * document from lamina_xml_document_parse. */
+int     lamina_xml_node_get_line  (xmlNode     *node);
+
 G_END_DECLS

@@ -56,7 +56,7 @@ fail (Reader     *r,
 static int
 line_of (xmlNode *node)
 {
-  return (int) xmlGetLineNo (node);
+  return lamina_xml_node_get_line (node);
 }
 
 static gboolean

@@ -16,6 +16,7 @@
 #include <glib/gi18n-lib.h>
 #include <libxml/parser.h>
 #include <libxml/parserInternals.h>
+#include <libxml/SAX2.h>
 #include <libxml/xmlschemas.h>
 #include <string.h>
 
@@ -54,9 +55,7 @@ record_error (ErrorSink         *sink,
                     _("is not a plain decimal number such as 12.5 (no units, blanks, NaN or INF)"), 0);
   g_string_replace (message, "\n", " ", 0);
   sink->message = g_string_free (message, FALSE);
-  sink->line = err->line;
-  if (sink->line <= 0 && err->node != NULL)
-    sink->line = (int) xmlGetLineNo ((xmlNode *) err->node);
+  sink->line = err->node != NULL ? lamina_xml_node_get_line (err->node) : err->line;
 }
 
 static void
@@ -111,6 +110,38 @@ ignore_external_subset_cb (void          *ctx,
                            const xmlChar *external_id,
                            const xmlChar *system_id)
 {
+}
+
+/* libxml2 2.9 keeps 16-bit element lines; past 65535 xmlGetLineNo guesses
+ * from a neighbouring node and is off by one.  Keep the true line of each
+ * element in its _private field. */
+static void
+start_element_cb (void           *ctx,
+                  const xmlChar  *localname,
+                  const xmlChar  *prefix,
+                  const xmlChar  *uri,
+                  int             nb_namespaces,
+                  const xmlChar **namespaces,
+                  int             nb_attributes,
+                  int             nb_defaulted,
+                  const xmlChar **attributes)
+{
+  xmlParserCtxt *ctxt = ctx;
+
+  xmlSAX2StartElementNs (ctx, localname, prefix, uri, nb_namespaces, namespaces,
+                         nb_attributes, nb_defaulted, attributes);
+  if (ctxt->node != NULL && ctxt->input != NULL)
+    ctxt->node->_private = GINT_TO_POINTER (ctxt->input->line);
+}
+
+int
+lamina_xml_node_get_line (xmlNode *node)
+{
+  if (node->type == XML_ATTRIBUTE_NODE && node->parent != NULL)
+    node = node->parent;
+  if (node->type == XML_ELEMENT_NODE && node->_private != NULL)
+    return GPOINTER_TO_INT (node->_private);
+  return (int) xmlGetLineNo (node);
 }
 
 static gboolean
@@ -181,6 +212,7 @@ parse_safely (const char *data,
     return NULL;
   ctxt->_private = sink;
   ctxt->sax->serror = parser_error_cb;
+  ctxt->sax->startElementNs = start_element_cb;
   ctxt->sax->internalSubset = refuse_doctype_cb;
   ctxt->sax->externalSubset = ignore_external_subset_cb;
   ctxt->sax->resolveEntity = refuse_entity_cb;
@@ -196,7 +228,7 @@ check_root (xmlDoc      *doc,
             GError     **error)
 {
   xmlNode *root = xmlDocGetRootElement (doc);
-  int line = root ? (int) xmlGetLineNo (root) : 1;
+  int line = root ? lamina_xml_node_get_line (root) : 1;
   g_autofree char *message = NULL;
   xmlChar *format;
   gboolean ok = TRUE;

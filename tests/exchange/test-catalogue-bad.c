@@ -10,6 +10,7 @@
  * (common practice in XML security testing). */
 #include <glib.h>
 #include <glib/gstdio.h>
+#include <stdio.h>
 #include <string.h>
 
 #include "lamina-catalogue.h"
@@ -294,6 +295,42 @@ test_file_names (void)
   g_rmdir (dir);
 }
 
+/* Line numbers past 65535 stay right (libxml2 keeps only 16 bits unless
+ * told otherwise). */
+static void
+test_big_line_numbers (void)
+{
+  g_autoptr(GString) text = g_string_new (HEAD OPEN);
+  g_autoptr(GError) error = NULL;
+
+  for (int i = 0; i < 70000; i++)
+    g_string_append (text, GOOD);
+  g_string_append (text, "    <layer thickness=\"100\" material=\"eps\"/>\n" CLOSE);
+  g_assert_null (lamina_catalogue_read_memory (text->str, text->len, "big.xml", &error));
+  g_assert_cmpstr (error->message, ==, "big.xml:70008: unknown material “eps”");
+}
+
+/* A file over 256 MiB is refused before it is read (a sparse file: no
+ * disk space is used). */
+static void
+test_too_large (void)
+{
+  g_autofree char *dir = g_dir_make_tmp ("lamina-big-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "huge.xml", NULL);
+  g_autoptr(GError) error = NULL;
+  FILE *file = fopen (path, "w");
+
+  g_assert_nonnull (file);
+  g_assert_cmpint (fseek (file, 257L * 1024 * 1024, SEEK_SET), ==, 0);
+  g_assert_cmpint (fputc ('<', file), ==, '<');
+  fclose (file);
+  g_assert_null (lamina_catalogue_read_file (path, &error));
+  g_assert_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_MALFORMED);
+  g_assert_true (g_str_has_suffix (error->message, "larger than 256 MiB"));
+  g_unlink (path);
+  g_rmdir (dir);
+}
+
 int
 main (int    argc,
       char **argv)
@@ -303,5 +340,7 @@ main (int    argc,
     g_test_add_data_func (cases[i].path, &cases[i], test_bad_case);
   g_test_add_func ("/exchange/bad/quiet", test_quiet);
   g_test_add_func ("/exchange/bad/file-names", test_file_names);
+  g_test_add_func ("/exchange/bad/big-line-numbers", test_big_line_numbers);
+  g_test_add_func ("/exchange/bad/too-large", test_too_large);
   return g_test_run ();
 }
