@@ -276,7 +276,7 @@ static void
 test_file_names (void)
 {
   g_autoptr(GError) error = NULL;
-  g_autofree char *dir = g_dir_make_tmp ("lamina-bad-XXXXXX", NULL);
+  g_autofree char *dir = g_dir_make_tmp (NULL, NULL);
   g_autofree char *path = g_build_filename (dir, "broken.xml", NULL);
   g_autofree char *missing = g_build_filename (dir, "missing.xml", NULL);
   g_autofree char *text = g_strconcat (HEAD, OPEN, "    <layer thickness=\"0\" material=\"gyp\"/>\n", CLOSE, NULL);
@@ -315,7 +315,7 @@ test_big_line_numbers (void)
 static void
 test_too_large (void)
 {
-  g_autofree char *dir = g_dir_make_tmp ("lamina-big-XXXXXX", NULL);
+  g_autofree char *dir = g_dir_make_tmp (NULL, NULL);
   g_autofree char *path = g_build_filename (dir, "huge.xml", NULL);
   g_autoptr(GError) error = NULL;
   FILE *file = fopen (path, "w");

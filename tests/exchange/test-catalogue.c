@@ -477,7 +477,7 @@ test_write_refuses (void)
 static void
 test_write_file (void)
 {
-  g_autofree char *dir = g_dir_make_tmp ("lamina-catalogue-XXXXXX", NULL);
+  g_autofree char *dir = g_dir_make_tmp (NULL, NULL);
   g_autofree char *path = g_build_filename (dir, "out.xml", NULL);
   g_autofree char *nowhere = g_build_filename (dir, "missing", "out.xml", NULL);
   g_autofree char *before = NULL, *after = NULL;
