@@ -20,6 +20,15 @@ typedef struct
 
 static const Command commands[] = {
   { "calc", lamina_cli_calc, N_("Calculate R and U of the constructions in a catalogue file") },
+  { "list", lamina_cli_list, N_("List or search the constructions of the library") },
+  { "show", lamina_cli_show, N_("Show a construction of the library with its figures") },
+  { "import", lamina_cli_import, N_("Merge a catalogue file into the library") },
+  { "export", lamina_cli_export, N_("Write constructions of the library to a catalogue file") },
+  { "check", lamina_cli_check, N_("Mark a construction checked by a named person") },
+  { "approve", lamina_cli_approve, N_("Approve a construction (named person, date)") },
+  { "history", lamina_cli_history, N_("The revisions of a construction") },
+  { "materials", lamina_cli_materials, N_("The materials of the library") },
+  { "demo", lamina_cli_demo, N_("Fill an empty library with the demo build-ups") },
 };
 
 void

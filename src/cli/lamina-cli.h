@@ -30,6 +30,17 @@ int  lamina_cli_calc    (const LaminaCliGlobals *globals,
                          int                     argc,
                          char                  **argv);
 
+/* The office library (lamina-cli-library.c, lamina-cli-library-exchange.c). */
+int  lamina_cli_list      (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_show      (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_import    (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_export    (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_approve   (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_check     (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_history   (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_materials (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_demo      (const LaminaCliGlobals *globals, int argc, char **argv);
+
 /* Prints "lamina-cli: message" on stderr. */
 void lamina_cli_error   (const char *format,
                          ...) G_GNUC_PRINTF (1, 2);

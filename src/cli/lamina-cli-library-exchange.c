@@ -1,0 +1,211 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli import | export | demo: the library and the catalogue XML. */
+#define G_LOG_DOMAIN "lamina-cli"
+
+#include "config.h"
+
+#include "lamina-catalogue.h"
+#include "lamina-cli.h"
+#include "lamina-cli-library.h"
+
+#include <glib/gi18n.h>
+#include <stdio.h>
+
+static const char *const action_names[] = { "added", "revised", "skipped", "conflict" };
+
+static int
+import_catalogue (LaminaLibrary          *library,
+                  const LaminaCatalogue  *catalogue,
+                  const char             *name,
+                  LaminaImportFlags       flags)
+{
+  g_autoptr(LaminaImportReport) report = NULL;
+  g_autoptr(GError) error = NULL;
+
+  report = lamina_library_import (library, catalogue, flags, NULL, &error);
+  if (report == NULL)
+    {
+      lamina_cli_error ("%s: %s", name, error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  for (guint i = 0; i < report->items->len; i++)
+    {
+      LaminaImportItem *item = report->items->pdata[i];
+
+      fprintf (item->action == LAMINA_IMPORT_CONFLICT ? stderr : stdout,
+               "%-8s %s\n", action_names[item->action], item->message);
+    }
+  printf (_("%s%s: %u added, %u revised, %u identical (skipped), %u conflicts not applied; "
+            "%u materials added, %u replaced\n"),
+          (flags & LAMINA_IMPORT_DRY_RUN) ? _("dry run, nothing written: ") : "",
+          name, report->n_added, report->n_revised, report->n_skipped, report->n_conflicts,
+          report->n_materials_added, report->n_materials_updated);
+  if (report->n_conflicts > 0)
+    {
+      lamina_cli_error (_("%s: %u conflicts with approved revisions or library materials "
+                          "were not applied (see above)"), name, report->n_conflicts);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  return LAMINA_EXIT_OK;
+}
+
+/* import FILE.xml [--dry-run] [--revise-approved] [--update-materials] */
+int
+lamina_cli_import (const LaminaCliGlobals *globals,
+                   int                     argc,
+                   char                  **argv)
+{
+  gboolean dry_run = FALSE, revise = FALSE, update = FALSE;
+  const GOptionEntry entries[] = {
+    { "dry-run", 0, 0, G_OPTION_ARG_NONE, &dry_run, N_("Report what would happen; write nothing"), NULL },
+    { "revise-approved", 0, 0, G_OPTION_ARG_NONE, &revise, N_("Store changes to approved constructions as new draft revisions"), NULL },
+    { "update-materials", 0, 0, G_OPTION_ARG_NONE, &update, N_("Replace library materials that differ (their users get flagged)"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("FILE.xml — merge a catalogue into the library"));
+  g_autoptr(LaminaCatalogue) catalogue = NULL;
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GError) error = NULL;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 2)
+    {
+      lamina_cli_error (_("import takes one catalogue file (see “lamina-cli import --help”)"));
+      return LAMINA_EXIT_USAGE;
+    }
+  catalogue = lamina_catalogue_read_file (argv[1], &error);
+  if (catalogue == NULL)
+    {
+      fprintf (stderr, "%s\n", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  library = lamina_cli_open_library (globals, TRUE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  return import_catalogue (library, catalogue, argv[1],
+                           (dry_run ? LAMINA_IMPORT_DRY_RUN : 0)
+                           | (revise ? LAMINA_IMPORT_REVISE_APPROVED : 0)
+                           | (update ? LAMINA_IMPORT_UPDATE_MATERIALS : 0));
+}
+
+/* export [-o FILE] [--force] [ID…] */
+int
+lamina_cli_export (const LaminaCliGlobals *globals,
+                   int                     argc,
+                   char                  **argv)
+{
+  g_autofree char *output = NULL;
+  gboolean force = globals->force;
+  const GOptionEntry entries[] = {
+    { "output", 'o', 0, G_OPTION_ARG_FILENAME, &output, N_("Write to FILE (default: standard output)"), "FILE" },
+    { "force", 0, 0, G_OPTION_ARG_NONE, &force, N_("Overwrite FILE if it exists"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("[ID…] — write constructions to catalogue XML"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaCatalogue) catalogue = NULL;
+  g_autoptr(GPtrArray) ids = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr(GError) error = NULL;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (output != NULL && !force && g_file_test (output, G_FILE_TEST_EXISTS))
+    {
+      lamina_cli_error (_("%s: exists already; not overwritten (use --force)"), output);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  for (int i = 1; i < argc; i++)
+    {
+      char *id = lamina_cli_resolve_id (library, argv[i]);
+
+      if (id == NULL)
+        return LAMINA_EXIT_BAD_INPUT;
+      g_ptr_array_add (ids, id);
+    }
+  g_ptr_array_add (ids, NULL);
+  catalogue = lamina_library_export (library, argc > 1 ? (const char * const *) ids->pdata : NULL,
+                                     &error);
+  if (catalogue == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  if (output != NULL)
+    {
+      if (!lamina_catalogue_write_file (catalogue, output, LAMINA_WRITE_DERIVED, &error))
+        {
+          lamina_cli_error ("%s", error->message);
+          return LAMINA_EXIT_BAD_INPUT;
+        }
+    }
+  else
+    {
+      gsize len = 0;
+      g_autofree char *text = lamina_catalogue_write_to_string (catalogue, LAMINA_WRITE_DERIVED,
+                                                                &len, &error);
+
+      if (text == NULL)
+        {
+          lamina_cli_error ("%s", error->message);
+          return LAMINA_EXIT_BAD_INPUT;
+        }
+      fwrite (text, 1, len, stdout);
+    }
+  return LAMINA_EXIT_OK;
+}
+
+/* demo: the invented practice's library (data/demo/lamina-demo.xml, built
+ * into the program) into an empty library. */
+int
+lamina_cli_demo (const LaminaCliGlobals *globals,
+                 int                     argc,
+                 char                  **argv)
+{
+  g_autoptr(GOptionContext) context = g_option_context_new (_("— fill an empty library with the demo build-ups"));
+  g_autoptr(GBytes) bytes = NULL;
+  g_autoptr(LaminaCatalogue) catalogue = NULL;
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryQuery q;
+  gint64 n;
+
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 1)
+    {
+      lamina_cli_error (_("demo takes no arguments"));
+      return LAMINA_EXIT_USAGE;
+    }
+  bytes = g_resources_lookup_data ("/org/example/Lamina/cli/lamina-demo.xml", 0, &error);
+  if (bytes == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  catalogue = lamina_catalogue_read_memory (g_bytes_get_data (bytes, NULL), g_bytes_get_size (bytes),
+                                            "lamina-demo.xml", &error);
+  if (catalogue == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  library = lamina_cli_open_library (globals, TRUE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  lamina_library_query_init (&q);
+  n = lamina_library_count (library, &q, &error);
+  if (n != 0)
+    {
+      lamina_cli_error (_("%s: the library holds %" G_GINT64_FORMAT " constructions; the demo "
+                          "goes into an empty library only"),
+                        lamina_library_get_path (library), n);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  return import_catalogue (library, catalogue, "lamina-demo.xml", LAMINA_IMPORT_DEFAULT);
+}

@@ -1,0 +1,496 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli list | show | history | materials | check | approve: the
+ * office library from the command line. */
+#define G_LOG_DOMAIN "lamina-cli"
+
+#include "config.h"
+
+#include "lamina-cli.h"
+#include "lamina-cli-library.h"
+#include "lamina-cli-report.h"
+#include "lamina-library.h"
+
+#include <glib/gi18n.h>
+#include <stdio.h>
+#include <math.h>
+
+LaminaLibrary *
+lamina_cli_open_library (const LaminaCliGlobals *globals,
+                         gboolean                create)
+{
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryOpenFlags flags = LAMINA_LIBRARY_OPEN_DEFAULT;
+  LaminaLibrary *library;
+
+  /* A mistyped --library PATH must not become a new empty library. */
+  if (globals->library_path != NULL && !create)
+    flags |= LAMINA_LIBRARY_OPEN_EXISTING;
+  library = lamina_library_open (globals->library_path, flags, &error);
+  if (library == NULL)
+    lamina_cli_error ("%s", error->message);
+  return library;
+}
+
+void
+lamina_cli_print_json (JsonNode *root)
+{
+  g_autoptr(JsonGenerator) gen = json_generator_new ();
+  g_autofree char *text = NULL;
+
+  json_generator_set_pretty (gen, TRUE);
+  json_generator_set_root (gen, root);
+  text = json_generator_to_data (gen, NULL);
+  printf ("%s\n", text);
+  json_node_unref (root);
+}
+
+static void
+add_number (JsonBuilder *b,
+            const char  *key,
+            double       value)
+{
+  json_builder_set_member_name (b, key);
+  if (isnan (value))
+    json_builder_add_null_value (b);
+  else
+    json_builder_add_double_value (b, value);
+}
+
+static void
+add_string (JsonBuilder *b,
+            const char  *key,
+            const char  *value)
+{
+  json_builder_set_member_name (b, key);
+  if (value == NULL)
+    json_builder_add_null_value (b);
+  else
+    json_builder_add_string_value (b, value);
+}
+
+static gboolean
+parse_double (const char *text,
+              const char *option,
+              double     *value)
+{
+  char *end = NULL;
+
+  if (text == NULL)
+    return TRUE;
+  *value = g_ascii_strtod (text, &end);
+  if (end == text || *end != '\0' || !isfinite (*value) || *value < 0)
+    {
+      lamina_cli_error (_("%s: “%s” is not a number ≥ 0"), option, text);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* list [--search TEXT] [--element E] [--status S] [--max-u X] [--json] */
+int
+lamina_cli_list (const LaminaCliGlobals *globals,
+                 int                     argc,
+                 char                  **argv)
+{
+  g_autofree char *search = NULL, *element = NULL, *status = NULL, *max_u = NULL;
+  g_autofree char *tag = NULL;
+  gboolean json = FALSE;
+  const GOptionEntry entries[] = {
+    { "search", 0, 0, G_OPTION_ARG_STRING, &search, N_("Words to find (prefixes of code, name, description, tags, materials)"), "TEXT" },
+    { "element", 0, 0, G_OPTION_ARG_STRING, &element, N_("Only this element: wall, roof, floor, ceiling, partition"), "E" },
+    { "status", 0, 0, G_OPTION_ARG_STRING, &status, N_("Only this status: draft, checked, approved"), "S" },
+    { "tag", 0, 0, G_OPTION_ARG_STRING, &tag, N_("Only constructions with this tag"), "TAG" },
+    { "max-u", 0, 0, G_OPTION_ARG_STRING, &max_u, N_("Only corrected U up to X W/(m²·K)"), "X" },
+    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON (SI units: thickness in m)"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("— list the constructions of the library"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GPtrArray) rows = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryQuery q;
+  LaminaElement el;
+  LaminaStatus st;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 1)
+    {
+      lamina_cli_error (_("list takes no arguments (see “lamina-cli list --help”)"));
+      return LAMINA_EXIT_USAGE;
+    }
+  lamina_library_query_init (&q);
+  q.text = search;
+  q.tag = tag;
+  if (element != NULL)
+    {
+      if (!lamina_element_from_string (element, &el))
+        {
+          lamina_cli_error (_("--element: unknown element “%s” (wall, roof, floor, ceiling, partition)"), element);
+          return LAMINA_EXIT_USAGE;
+        }
+      q.element = el;
+    }
+  if (status != NULL)
+    {
+      if (!lamina_status_from_string (status, &st))
+        {
+          lamina_cli_error (_("--status: unknown status “%s” (draft, checked, approved)"), status);
+          return LAMINA_EXIT_USAGE;
+        }
+      q.status = st;
+    }
+  if (!parse_double (max_u, "--max-u", &q.max_u))
+    return LAMINA_EXIT_USAGE;
+
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  rows = lamina_library_search (library, &q, &error);
+  if (rows == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  if (json)
+    {
+      g_autoptr(JsonBuilder) b = json_builder_new ();
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "constructions");
+      json_builder_begin_array (b);
+      for (guint i = 0; i < rows->len; i++)
+        {
+          LaminaSummary *s = rows->pdata[i];
+
+          json_builder_begin_object (b);
+          add_string (b, "id", s->id);
+          add_string (b, "code", s->code);
+          add_string (b, "name", s->name);
+          add_string (b, "element", lamina_element_to_string (s->element));
+          add_string (b, "status", lamina_status_to_string (s->status));
+          json_builder_set_member_name (b, "revision");
+          json_builder_add_int_value (b, s->revision);
+          add_number (b, "u", s->u);
+          add_number (b, "u_corrected", s->u_corrected);
+          add_number (b, "target_u", s->target_u);
+          add_number (b, "thickness", s->thickness / 1000.0);
+          json_builder_set_member_name (b, "material_changed");
+          json_builder_add_boolean_value (b, (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) != 0);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      json_builder_end_object (b);
+      lamina_cli_print_json (json_builder_get_root (b));
+      return LAMINA_EXIT_OK;
+    }
+  printf ("%-10s %-40s %-9s %-8s %4s %7s %6s\n", _("CODE"), _("NAME"), _("ELEMENT"),
+          _("STATUS"), _("REV"), _("U"), _("MM"));
+  for (guint i = 0; i < rows->len; i++)
+    {
+      LaminaSummary *s = rows->pdata[i];
+      g_autofree char *name = g_utf8_strlen (s->name, -1) > 40
+                              ? g_utf8_substring (s->name, 0, 40) : g_strdup (s->name);
+      int pad = 40 - (int) g_utf8_strlen (name, -1);
+
+      printf ("%-10s %s%*s %-9s %-8s %4d %7.2g %6.0f%s\n", s->code ? s->code : "-", name, pad, "",
+              lamina_element_to_string (s->element), lamina_status_to_string (s->status),
+              s->revision, s->u_corrected, s->thickness,
+              (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _("  material data changed since review") : "");
+    }
+  return LAMINA_EXIT_OK;
+}
+
+/* Finds a construction by id or, failing that, by office code. */
+char *
+lamina_cli_resolve_id (LaminaLibrary *library,
+                       const char    *key)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, key, 0, NULL);
+  g_autoptr(GPtrArray) rows = NULL;
+  LaminaLibraryQuery q;
+
+  if (c != NULL)
+    return g_strdup (key);
+  lamina_library_query_init (&q);
+  q.text = key;
+  rows = lamina_library_search (library, &q, NULL);
+  for (guint i = 0; rows != NULL && i < rows->len; i++)
+    {
+      LaminaSummary *s = rows->pdata[i];
+
+      if (g_strcmp0 (s->code, key) == 0)
+        return g_strdup (s->id);
+    }
+  lamina_cli_error (_("%s: no construction with id or code “%s”"),
+                    lamina_library_get_path (library), key);
+  return NULL;
+}
+
+/* show ID [--revision N] [--json] */
+int
+lamina_cli_show (const LaminaCliGlobals *globals,
+                 int                     argc,
+                 char                  **argv)
+{
+  gboolean json = FALSE;
+  int revision = 0;
+  const GOptionEntry entries[] = {
+    { "revision", 0, 0, G_OPTION_ARG_INT, &revision, N_("Show this revision (default: the latest)"), "N" },
+    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON with the keys of “calc --json”"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("ID — show a construction and its figures"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaConstruction) c = NULL;
+  g_autoptr(LaminaResult) result = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 2)
+    {
+      lamina_cli_error (_("show takes one construction id (see “lamina-cli show --help”)"));
+      return LAMINA_EXIT_USAGE;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  c = lamina_library_get_construction (library, id, revision, &error);
+  if (c != NULL)
+    result = lamina_library_get_result (library, id, revision, &error);
+  if (result == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  if (json)
+    {
+      g_autoptr(JsonArray) array = json_array_new ();
+      g_autofree char *text = NULL;
+
+      json_array_add_element (array, lamina_cli_result_to_json (c, result));
+      text = lamina_cli_json_document (g_steal_pointer (&array));
+      printf ("%s\n", text);
+      return LAMINA_EXIT_OK;
+    }
+  printf (_("%s, revision %d, %s"), c->code ? c->code : c->id, c->revision,
+          lamina_status_to_string (c->status));
+  if (c->checked_by)
+    printf (_(", checked by %s"), c->checked_by);
+  if (c->approved_by)
+    printf (_(", approved by %s on %s"), c->approved_by, c->approved_at);
+  printf ("\n");
+  lamina_cli_print_result (stdout, c, result);
+  return LAMINA_EXIT_OK;
+}
+
+/* history ID [--json] */
+int
+lamina_cli_history (const LaminaCliGlobals *globals,
+                    int                     argc,
+                    char                  **argv)
+{
+  gboolean json = FALSE;
+  const GOptionEntry entries[] = {
+    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("ID — the revisions of a construction"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GPtrArray) history = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  g_autoptr(JsonBuilder) b = json_builder_new ();
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 2)
+    {
+      lamina_cli_error (_("history takes one construction id"));
+      return LAMINA_EXIT_USAGE;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  history = lamina_library_get_history (library, id, &error);
+  if (history == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "revisions");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < history->len; i++)
+    {
+      LaminaRevisionInfo *r = history->pdata[i];
+
+      if (!json)
+        {
+          printf ("%3d  %-8s  %s  %s", r->revision, lamina_status_to_string (r->status),
+                  r->modified_at, r->modified_by);
+          if (r->checked_by)
+            printf (_("  checked by %s"), r->checked_by);
+          if (r->approved_by)
+            printf (_("  approved by %s on %s"), r->approved_by, r->approved_at);
+          if (r->comment)
+            printf ("  (%s)", r->comment);
+          printf ("\n");
+          continue;
+        }
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "revision");
+      json_builder_add_int_value (b, r->revision);
+      add_string (b, "status", lamina_status_to_string (r->status));
+      add_string (b, "modified_by", r->modified_by);
+      add_string (b, "modified_at", r->modified_at);
+      add_string (b, "checked_by", r->checked_by);
+      add_string (b, "checked_at", r->checked_at);
+      add_string (b, "approved_by", r->approved_by);
+      add_string (b, "approved_at", r->approved_at);
+      add_string (b, "comment", r->comment);
+      add_number (b, "u_corrected", r->u_corrected);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+  json_builder_end_object (b);
+  if (json)
+    lamina_cli_print_json (json_builder_get_root (b));
+  return LAMINA_EXIT_OK;
+}
+
+/* materials [--json] */
+int
+lamina_cli_materials (const LaminaCliGlobals *globals,
+                      int                     argc,
+                      char                  **argv)
+{
+  gboolean json = FALSE;
+  const GOptionEntry entries[] = {
+    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("— the materials of the library"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GPtrArray) list = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(JsonBuilder) b = json_builder_new ();
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 1)
+    {
+      lamina_cli_error (_("materials takes no arguments"));
+      return LAMINA_EXIT_USAGE;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  list = lamina_library_list_materials (library, &error);
+  if (list == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "materials");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < list->len; i++)
+    {
+      LaminaMaterial *m = list->pdata[i];
+
+      if (!json)
+        {
+          printf ("%-32s %-11s λ %-7g %s\n", m->id, lamina_category_to_string (m->category),
+                  m->conductivity, m->name);
+          continue;
+        }
+      json_builder_begin_object (b);
+      add_string (b, "id", m->id);
+      add_string (b, "name", m->name);
+      add_string (b, "category", lamina_category_to_string (m->category));
+      add_number (b, "conductivity", m->conductivity);
+      add_number (b, "density", m->density);
+      add_number (b, "specific_heat", m->specific_heat);
+      add_number (b, "vapour_resistance_factor", m->vapour_resistance_factor);
+      add_number (b, "emissivity", m->emissivity);
+      add_string (b, "source", m->source);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+  json_builder_end_object (b);
+  if (json)
+    lamina_cli_print_json (json_builder_get_root (b));
+  return LAMINA_EXIT_OK;
+}
+
+static int
+review (const LaminaCliGlobals *globals,
+        int                     argc,
+        char                  **argv,
+        gboolean                approve)
+{
+  g_autofree char *by = NULL, *date = NULL, *id = NULL;
+  int revision = 0;
+  const GOptionEntry entries[] = {
+    { "by", 0, 0, G_OPTION_ARG_STRING, &by, N_("Name of the reviewer (required)"), "NAME" },
+    { "revision", 0, 0, G_OPTION_ARG_INT, &revision, N_("The revision reviewed (default: the latest)"), "N" },
+    { "date", 0, 0, G_OPTION_ARG_STRING, &date, N_("Approval date YYYY-MM-DD (default: today)"), "DATE" },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (approve
+    ? _("ID --by NAME — approve the latest revision")
+    : _("ID --by NAME — mark the latest revision checked"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GError) error = NULL;
+  gboolean ok;
+
+  g_option_context_add_main_entries (context, approve ? entries : entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 2 || by == NULL)
+    {
+      lamina_cli_error (_("%s takes one construction id and --by NAME"), argv[0]);
+      return LAMINA_EXIT_USAGE;
+    }
+  if (!approve && date != NULL)
+    {
+      lamina_cli_error (_("--date: only for approve"));
+      return LAMINA_EXIT_USAGE;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  if (approve)
+    ok = lamina_library_approve (library, id, revision, by, date, &error);
+  else
+    ok = lamina_library_mark_checked (library, id, revision, by, &error);
+  if (!ok)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  return LAMINA_EXIT_OK;
+}
+
+int
+lamina_cli_check (const LaminaCliGlobals *globals,
+                  int                     argc,
+                  char                  **argv)
+{
+  return review (globals, argc, argv, FALSE);
+}
+
+int
+lamina_cli_approve (const LaminaCliGlobals *globals,
+                    int                     argc,
+                    char                  **argv)
+{
+  return review (globals, argc, argv, TRUE);
+}

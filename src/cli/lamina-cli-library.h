@@ -1,0 +1,22 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli-library.h: helpers shared by the library commands. */
+#pragma once
+
+#include <json-glib/json-glib.h>
+
+#include "lamina-cli.h"
+#include "lamina-library.h"
+
+G_BEGIN_DECLS
+
+/* Opens --library (which must exist unless @create) or the default
+ * library; prints the error and returns NULL on failure. */
+LaminaLibrary *lamina_cli_open_library (const LaminaCliGlobals *globals,
+                                        gboolean                create);
+/* An id, or an office code that names exactly one construction. */
+char          *lamina_cli_resolve_id   (LaminaLibrary          *library,
+                                        const char             *key);
+/* Prints @root (taken) as indented JSON on stdout. */
+void           lamina_cli_print_json   (JsonNode               *root);
+
+G_END_DECLS
