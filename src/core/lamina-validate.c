@@ -34,8 +34,6 @@ typedef struct
 static char *
 where_to_string (Where where)
 {
-  if (where.layer == 0)
-    return g_strdup (_("construction"));
   if (where.part == 0)
     return g_strdup_printf (_("layer %u"), where.layer);
   return g_strdup_printf (_("layer %u, part %u"), where.layer, where.part);
@@ -81,12 +79,17 @@ fail_at (Check      *check,
          ...)
 {
   va_list args;
-  g_autofree char *place = where_to_string (where);
+  g_autofree char *place = NULL;
   g_autofree char *message = NULL;
 
   va_start (args, format);
   message = g_strdup_vprintf (format, args);
   va_end (args);
+  /* A value of the construction itself needs no place: the caller (the XML
+   * reader, the window's field) already names the construction. */
+  if (where.layer == 0)
+    return fail (check, line, "%s", message);
+  place = where_to_string (where);
   return fail (check, line, "%s: %s", place, message);
 }
 
