@@ -367,9 +367,9 @@ upgrade (LaminaSqlite  *self,
          GError       **error)
 {
   g_autofree char *backup = backup_path_for (self->parent.path, version);
-  g_autofree char *sql = NULL;
   char *quoted = sqlite3_mprintf ("VACUUM INTO %Q;", backup);
   gboolean ok;
+  int rc;
 
   /* VACUUM INTO copies the whole database, WAL content included. */
   ok = lamina_sqlite_exec (self, quoted, error);
@@ -379,7 +379,14 @@ upgrade (LaminaSqlite  *self,
   self->parent.backup_path = g_steal_pointer (&backup);
   if (!lamina_sqlite_begin (self, error))
     return FALSE;
-  /* Someone else may have migrated meanwhile. */
+  /* Another process may have migrated between our look and the lock. */
+  version = (int) query_int (self, "PRAGMA user_version;", &rc);
+  if (rc != SQLITE_OK)
+    {
+      lamina_sqlite_rollback (self);
+      lamina_sqlite_set_error (self, rc, "cannot read", error);
+      return FALSE;
+    }
   if (!lamina_sqlite_migrate (self, version, LAMINA_LIBRARY_SCHEMA_VERSION, error)
       || !lamina_sqlite_commit (self, error))
     {

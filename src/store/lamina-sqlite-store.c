@@ -156,10 +156,32 @@ sqlite_put_material (LaminaBackend         *backend,
 }
 
 static gboolean
+delete_material_in_txn (LaminaSqlite  *self,
+                        const char    *id,
+                        GError       **error);
+
+static gboolean
 sqlite_delete_material (LaminaBackend  *backend,
                         const char     *id,
                         GError        **error)
 {
+  if (!lamina_sqlite_begin (SELF, error))
+    return FALSE;
+  if (!delete_material_in_txn (SELF, id, error) || !lamina_sqlite_commit (SELF, error))
+    {
+      lamina_sqlite_rollback (SELF);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+delete_material_in_txn (LaminaSqlite  *self,
+                        const char    *id,
+                        GError       **error)
+{
+  LaminaBackend *backend = &self->parent;
+
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "DELETE FROM material WHERE id = ?1;", error);
 
