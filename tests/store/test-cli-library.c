@@ -1,0 +1,160 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* End-to-end tests of the library commands of lamina-cli (issue 3): exit
+ * codes, JSON keys, and show --json giving the figures of calc --json. */
+#include <json-glib/json-glib.h>
+#include <string.h>
+
+#include "lamina-store-test-util.h"
+
+static char *library_path;
+
+/* Runs lamina-cli --library LIB ARGS…; returns the exit status. */
+static int
+run (char       **out,
+     char       **err,
+     const char  *first,
+     ...)
+{
+  g_autoptr(GPtrArray) args = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr(GError) error = NULL;
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  int status = 0;
+  va_list ap;
+
+  g_assert_nonnull (build);
+  g_ptr_array_add (args, g_build_filename (build, "src", "cli", "lamina-cli", NULL));
+  g_ptr_array_add (args, g_strdup ("--library"));
+  g_ptr_array_add (args, g_strdup (library_path));
+  va_start (ap, first);
+  for (const char *a = first; a != NULL; a = va_arg (ap, const char *))
+    g_ptr_array_add (args, g_strdup (a));
+  va_end (ap);
+  g_ptr_array_add (args, NULL);
+  g_assert_true (g_spawn_sync (NULL, (char **) args->pdata, NULL, G_SPAWN_DEFAULT, NULL, NULL,
+                               out, err, &status, &error));
+  g_assert_no_error (error);
+  return WIFEXITED (status) ? WEXITSTATUS (status) : -1;
+}
+
+static JsonObject *
+first_construction (JsonParser *parser,
+                    const char *text)
+{
+  JsonObject *root;
+
+  g_assert_true (json_parser_load_from_data (parser, text, -1, NULL));
+  root = json_node_get_object (json_parser_get_root (parser));
+  return json_array_get_object_element (json_object_get_array_member (root, "constructions"), 0);
+}
+
+static void
+test_commands (void)
+{
+  g_autofree char *out = NULL, *err = NULL, *export_path = NULL;
+  g_autoptr(JsonParser) p1 = json_parser_new ();
+  g_autoptr(JsonParser) p2 = json_parser_new ();
+  g_autoptr(JsonParser) p3 = json_parser_new ();
+  static const char *const keys[] = {
+    "id", "name", "heat_flow", "rsi", "rse", "r_upper", "r_lower", "r_total",
+    "relative_error", "u", "delta_u", "u_corrected", "layers", "warnings",
+  };
+  JsonObject *shown, *calculated, *listed;
+  g_autofree char *calc_out = NULL;
+  g_autofree char *calc_err = NULL;
+  g_autofree char *cli = NULL;
+  int status = 0;
+
+  library_path = test_library_path ("cli.sqlite");
+  export_path = test_library_path ("export.xml");
+
+  /* A missing --library is refused, not created. */
+  g_assert_cmpint (run (&out, &err, "list", NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "no such library"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  /* The demo goes into an empty library only. */
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 1);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+
+  g_assert_cmpint (run (&out, &err, "list", "--element", "wall", "--max-u", "0.2", "--json", NULL), ==, 0);
+  listed = first_construction (p1, out);
+  g_assert_cmpstr (json_object_get_string_member (listed, "element"), ==, "wall");
+  g_assert_cmpfloat (json_object_get_double_member (listed, "u_corrected"), <=, 0.2);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "list", "--status", "nonsense", NULL), ==, 2);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+
+  /* show --json: the same keys and figures as calc --json on an export. */
+  g_assert_cmpint (run (&out, &err, "show", "EW-101", "--json", NULL), ==, 0);
+  shown = first_construction (p2, out);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "export", "-o", export_path, NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "export", "-o", export_path, NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "--force"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  cli = g_build_filename (g_getenv ("LAMINA_BUILD_DIR"), "src", "cli", "lamina-cli", NULL);
+  {
+    const char *argv[] = { cli, "calc", export_path, "--id",
+                           json_object_get_string_member (shown, "id"), "--json", NULL };
+    g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_DEFAULT, NULL, NULL,
+                                 &calc_out, &calc_err, &status, NULL));
+  }
+  calculated = first_construction (p3, calc_out);
+  for (guint i = 0; i < G_N_ELEMENTS (keys); i++)
+    g_assert_true (json_object_has_member (shown, keys[i]));
+  g_assert_cmpfloat (json_object_get_double_member (shown, "u_corrected"), ==,
+                     json_object_get_double_member (calculated, "u_corrected"));
+  g_assert_cmpfloat (json_object_get_double_member (shown, "r_total"), ==,
+                     json_object_get_double_member (calculated, "r_total"));
+
+  /* Review: --by is required; an approved revision stays as it is. */
+  g_assert_cmpint (run (&out, &err, "check", "EW-102", NULL), ==, 2);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "check", "EW-102", "--by", "K. Reviewer", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "approve", "EW-102", "--by", "M. Lead", "--date", "2026-13-01", NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "YYYY-MM-DD"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "approve", "EW-102", "--by", "M. Lead", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "approve", "EW-102", "--by", "M. Lead", NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "approved"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "history", "EW-102", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "approved by M. Lead"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+
+  /* Re-importing the export changes nothing. */
+  g_assert_cmpint (run (&out, &err, "import", export_path, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "0 added, 0 revised"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "materials", "--json", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "\"conductivity\""));
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
+  g_test_add_func ("/store/cli/commands", test_commands);
+  return g_test_run ();
+}
