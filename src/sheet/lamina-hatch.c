@@ -277,9 +277,235 @@ stroke_crosses (cairo_t   *cr,
   cairo_stroke (cr);
 }
 
+static void
+set_pen (cairo_t *cr,
+         double   unit)
+{
+  cairo_set_source_rgb (cr, 0, 0, 0);
+  cairo_set_line_width (cr, unit * FINE);
+  cairo_set_line_cap (cr, CAIRO_LINE_CAP_ROUND);
+  cairo_set_line_join (cr, CAIRO_LINE_JOIN_ROUND);
+}
+
+static void draw_pattern (cairo_t        *cr,
+                          LaminaCategory  category,
+                          LaminaHatchUse  use,
+                          double          x,
+                          double          y,
+                          double          width,
+                          double          height,
+                          const Box      *box,
+                          double          unit,
+                          guint           seed);
+
+/* On a raster target, the rectangle rounded to whole device pixels (a
+ * pixel-aligned clip is a cheap region; a fractional one is a mask). */
+static void
+add_snapped_rectangle (cairo_t *cr,
+                       double   x,
+                       double   y,
+                       double   width,
+                       double   height)
+{
+  double x0 = x, y0 = y, x1 = x + width, y1 = y + height;
+
+  if (cairo_surface_get_type (cairo_get_target (cr)) != CAIRO_SURFACE_TYPE_IMAGE)
+    {
+      cairo_rectangle (cr, x, y, width, height);
+      return;
+    }
+  cairo_user_to_device (cr, &x0, &y0);
+  cairo_user_to_device (cr, &x1, &y1);
+  x0 = round (x0), y0 = round (y0), x1 = round (x1), y1 = round (y1);
+  if (x0 == x1 && width > 0)
+    x1 += 1;
+  cairo_device_to_user (cr, &x0, &y0);
+  cairo_device_to_user (cr, &x1, &y1);
+  cairo_rectangle (cr, MIN (x0, x1), MIN (y0, y1), fabs (x1 - x0), fabs (y1 - y0));
+}
+
+/* Tiles */
+
+#define N_TILES 8
+
+typedef struct
+{
+  LaminaCategory   category;
+  double           unit;
+  double           pixels;   /* device pixels per unit; 0 for vector */
+  cairo_pattern_t *pattern;
+} Tile;
+
+struct _LaminaHatchCache
+{
+  Tile  tiles[N_TILES];
+  guint next;                /* round-robin replacement */
+};
+
+LaminaHatchCache *
+lamina_hatch_cache_new (void)
+{
+  return g_new0 (LaminaHatchCache, 1);
+}
+
 void
-lamina_hatch_fill (cairo_t        *cr,
-                   LaminaCategory  category,
+lamina_hatch_cache_free (LaminaHatchCache *cache)
+{
+  if (cache == NULL)
+    return;
+  for (guint i = 0; i < N_TILES; i++)
+    g_clear_pointer (&cache->tiles[i].pattern, cairo_pattern_destroy);
+  g_free (cache);
+}
+
+/* The period of each area pattern, in units: a whole number of its
+ * stipple cells or line pitches, so that the tile repeats seamlessly. */
+static double
+get_tile_period (LaminaCategory category)
+{
+  switch (category)
+    {
+    case LAMINA_CATEGORY_MASONRY:
+      return 0.55 * G_SQRT2 * 2;
+    case LAMINA_CATEGORY_STONE:
+      return 0.8 * G_SQRT2 * 2;
+    case LAMINA_CATEGORY_CONCRETE:
+      return 8.0;
+    case LAMINA_CATEGORY_PLASTER:
+      return 6.0;
+    case LAMINA_CATEGORY_OTHER:
+      return 3.0;
+    case LAMINA_CATEGORY_INSULATION:
+    case LAMINA_CATEGORY_TIMBER:
+    case LAMINA_CATEGORY_BOARD:
+    case LAMINA_CATEGORY_MEMBRANE:
+    case LAMINA_CATEGORY_METAL:
+    case LAMINA_CATEGORY_GLASS:
+    case LAMINA_CATEGORY_AIR:
+    case LAMINA_N_CATEGORIES:
+    default:
+      return 0.0;
+    }
+}
+
+static cairo_pattern_t *
+create_tile (cairo_t        *cr,
+             LaminaCategory  category,
+             double          unit,
+             double          pixels)
+{
+  double period = get_tile_period (category) * unit;
+  cairo_surface_t *surface;
+  cairo_pattern_t *pattern;
+  cairo_matrix_t matrix;
+  cairo_t *tile;
+  Box box;
+
+  if (pixels > 0)
+    {
+      /* A whole number of device pixels per period; the content is
+       * stretched by well under a pixel to fit. */
+      int size = MAX (2, (int) round (period * pixels));
+      /* Opaque ARGB32 like the usual target, so that filling is a plain
+       * copy of tile rows (pixman, SRC). */
+      surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, size, size);
+      tile = cairo_create (surface);
+      cairo_set_source_rgb (tile, 1, 1, 1);
+      cairo_paint (tile);
+      cairo_scale (tile, size / period, size / period);
+      cairo_matrix_init_scale (&matrix, pixels, pixels);
+    }
+  else
+    {
+      cairo_rectangle_t extents = { 0, 0, period, period };
+      surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR_ALPHA, &extents);
+      tile = cairo_create (surface);
+      cairo_matrix_init_identity (&matrix);
+    }
+  /* Drawn over three periods and clipped to the middle one: lines and
+   * dots that cross an edge come back on the other side. */
+  box = (Box) { -period, -period, 2 * period, 2 * period };
+  cairo_rectangle (tile, 0, 0, period, period);
+  cairo_clip (tile);
+  set_pen (tile, unit);
+  if (category == LAMINA_CATEGORY_CONCRETE || category == LAMINA_CATEGORY_PLASTER)
+    box = (Box) { 0, 0, period, period };
+  draw_pattern (tile, category, LAMINA_HATCH_LAYER, 0, 0, period, period, &box, unit, 1);
+  cairo_destroy (tile);
+
+  pattern = cairo_pattern_create_for_surface (surface);
+  cairo_surface_destroy (surface);
+  cairo_pattern_set_extend (pattern, CAIRO_EXTEND_REPEAT);
+  cairo_pattern_set_matrix (pattern, &matrix);
+  if (pixels > 0)
+    cairo_pattern_set_filter (pattern, CAIRO_FILTER_NEAREST);
+  return pattern;
+}
+
+static gboolean
+fill_from_tile (cairo_t          *cr,
+                LaminaHatchCache *cache,
+                LaminaCategory    category,
+                const Box        *box,
+                double            unit)
+{
+  cairo_surface_type_t type = cairo_surface_get_type (cairo_get_target (cr));
+  double pixels = 0.0, dx = 1, dy = 0;
+  Tile *tile = NULL;
+
+  if (get_tile_period (category) <= 0)
+    return FALSE;
+  if (type == CAIRO_SURFACE_TYPE_IMAGE)
+    {
+      cairo_user_to_device_distance (cr, &dx, &dy);
+      pixels = hypot (dx, dy);
+      /* Only quarter turns keep a pixel tile crisp. */
+      if (fabs (dx) > 1e-6 && fabs (dy) > 1e-6)
+        return FALSE;
+    }
+  for (guint i = 0; i < N_TILES; i++)
+    {
+      Tile *t = &cache->tiles[i];
+      if (t->pattern && t->category == category && t->unit == unit && t->pixels == pixels)
+        {
+          tile = t;
+          break;
+        }
+    }
+  if (tile == NULL)
+    {
+      tile = &cache->tiles[cache->next];
+      cache->next = (cache->next + 1) % N_TILES;
+      g_clear_pointer (&tile->pattern, cairo_pattern_destroy);
+      *tile = (Tile) { category, unit, pixels, create_tile (cr, category, unit, pixels) };
+    }
+  if (pixels > 0)
+    {
+      cairo_matrix_t matrix;
+      double ox = 0, oy = 0, x0 = box->x0, y0 = box->y0, x1 = box->x1, y1 = box->y1;
+
+      /* One tile pixel on one device pixel at a whole-pixel offset, and a
+       * fill snapped to pixels: pixman then copies rows of the tile. */
+      cairo_user_to_device (cr, &ox, &oy);
+      cairo_matrix_init (&matrix, pixels, 0, 0, pixels, ox - floor (ox), oy - floor (oy));
+      cairo_pattern_set_matrix (tile->pattern, &matrix);
+      cairo_set_source (cr, tile->pattern);
+      cairo_set_operator (cr, CAIRO_OPERATOR_SOURCE);
+      add_snapped_rectangle (cr, x0, y0, x1 - x0, y1 - y0);
+    }
+  else
+    {
+      cairo_set_source (cr, tile->pattern);
+      cairo_rectangle (cr, box->x0, box->y0, box->x1 - box->x0, box->y1 - box->y0);
+    }
+  cairo_fill (cr);
+  return TRUE;
+}
+
+void
+lamina_hatch_fill (cairo_t          *cr,
+                   LaminaHatchCache *cache,
+                   LaminaCategory    category,
                    LaminaHatchUse  use,
                    double          x,
                    double          y,
@@ -295,24 +521,46 @@ lamina_hatch_fill (cairo_t        *cr,
   if (width < 0 || height <= 0)
     return;
   cairo_save (cr);
+  /* Tiles need no clip: a clip that is not on whole pixels would send
+   * every later fill through a mask. */
+  if (cache && get_visible_box (cr, x, y, width, height, &box) &&
+      fill_from_tile (cr, cache, category, &box, unit))
+    {
+      cairo_restore (cr);
+      return;
+    }
   if (category == LAMINA_CATEGORY_MEMBRANE)
     {
       /* A foil is far thinner than its symbol: let the line overhang. */
       double half = MAX (width, unit * HEAVY) / 2;
-      cairo_rectangle (cr, x + width / 2 - half, y, 2 * half, height);
+      add_snapped_rectangle (cr, x + width / 2 - half, y, 2 * half, height);
     }
   else
-    cairo_rectangle (cr, x, y, width, height);
+    add_snapped_rectangle (cr, x, y, width, height);
   cairo_clip (cr);
   if (!get_visible_box (cr, x - unit, y, width + 2 * unit, height, &box))
     {
       cairo_restore (cr);
       return;
     }
-  cairo_set_source_rgb (cr, 0, 0, 0);
-  cairo_set_line_width (cr, unit * FINE);
-  cairo_set_line_cap (cr, CAIRO_LINE_CAP_ROUND);
-  cairo_set_line_join (cr, CAIRO_LINE_JOIN_ROUND);
+  set_pen (cr, unit);
+  draw_pattern (cr, category, use, x, y, width, height, &box, unit, seed);
+  cairo_restore (cr);
+}
+
+static void
+draw_pattern (cairo_t        *cr,
+              LaminaCategory  category,
+              LaminaHatchUse  use,
+              double          x,
+              double          y,
+              double          width,
+              double          height,
+              const Box      *box_in,
+              double          unit,
+              guint           seed)
+{
+  Box box = *box_in;
 
   switch (category)
     {
@@ -364,5 +612,4 @@ lamina_hatch_fill (cairo_t        *cr,
       stroke_crosses (cr, &box, unit);
       break;
     }
-  cairo_restore (cr);
 }

@@ -21,11 +21,20 @@ typedef enum
   LAMINA_HATCH_MEMBER, /* a framing member cut across: timber gets the cross */
 } LaminaHatchUse;
 
+/* Tiles of the area patterns (masonry, stone, concrete, plaster, other),
+ * drawn once and reused: image tiles at device resolution for raster
+ * targets, recording surfaces (one PDF form per document) otherwise. */
+typedef struct _LaminaHatchCache LaminaHatchCache;
+
+LaminaHatchCache *lamina_hatch_cache_new  (void);
+void              lamina_hatch_cache_free (LaminaHatchCache *cache);
+
 /* Fills (x, y, width, height) with the pattern of @category.  @unit is the
  * pattern pitch in user units (the section's text size); @seed varies the
  * stipple between layers.  The rectangle is clipped; the outline is not
- * drawn. */
-void lamina_hatch_fill (cairo_t        *cr,
+ * drawn.  @cache may be NULL (everything drawn as paths). */
+void lamina_hatch_fill (cairo_t          *cr,
+                        LaminaHatchCache *cache,
                         LaminaCategory  category,
                         LaminaHatchUse  use,
                         double          x,
@@ -34,5 +43,7 @@ void lamina_hatch_fill (cairo_t        *cr,
                         double          height,
                         double          unit,
                         guint           seed);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaHatchCache, lamina_hatch_cache_free)
 
 G_END_DECLS

@@ -11,8 +11,8 @@
 #include "lamina-hatch.h"
 #include "lamina-sheet-format.h"
 
-#define OUTLINE 0.11
-#define LINE    0.06
+#define OUTLINE 0.14
+#define LINE    0.09
 #define FINE    0.045
 
 struct _LaminaSection
@@ -25,6 +25,7 @@ struct _LaminaSection
   double               *scratch;   /* 7 × capacity doubles */
   guint                 capacity;
   GPtrArray            *members;   /* borrowed member names, per draw */
+  LaminaHatchCache     *hatches;
 };
 
 typedef enum
@@ -44,6 +45,7 @@ lamina_section_new (void)
   self->font = pango_font_description_from_string ("DejaVu Sans Condensed");
   self->font_bold = pango_font_description_from_string ("DejaVu Sans Condensed Bold");
   self->members = g_ptr_array_new ();
+  self->hatches = lamina_hatch_cache_new ();
   return self;
 }
 
@@ -57,6 +59,7 @@ lamina_section_free (LaminaSection *self)
   pango_font_description_free (self->font);
   pango_font_description_free (self->font_bold);
   g_ptr_array_unref (self->members);
+  lamina_hatch_cache_free (self->hatches);
   g_free (self->scratch);
   g_free (self);
 }
@@ -263,7 +266,7 @@ draw_members (LaminaSection     *self,
           cairo_rectangle (cr, t0, s, t1 - t0, width);
           cairo_set_source_rgb (cr, 1, 1, 1);
           cairo_fill (cr);
-          lamina_hatch_fill (cr, get_part_category (part), LAMINA_HATCH_MEMBER,
+          lamina_hatch_fill (cr, self->hatches, get_part_category (part), LAMINA_HATCH_MEMBER,
                              t0, s, t1 - t0, width, unit, seed + k);
           cairo_set_source_rgb (cr, 0, 0, 0);
           cairo_set_line_width (cr, unit * LINE);
@@ -300,12 +303,12 @@ draw_layer (LaminaSection     *self,
               bulk = k;
             }
         }
-      lamina_hatch_fill (cr, get_part_category (layer->parts->pdata[bulk]), LAMINA_HATCH_LAYER,
+      lamina_hatch_fill (cr, self->hatches, get_part_category (layer->parts->pdata[bulk]), LAMINA_HATCH_LAYER,
                          t0, 0, t1 - t0, length, unit, index * 7);
       draw_members (self, cr, layer, bulk, t0, t1, length, scale, unit, index * 7);
       return;
     }
-  lamina_hatch_fill (cr, get_layer_category (layer), LAMINA_HATCH_LAYER,
+  lamina_hatch_fill (cr, self->hatches, get_layer_category (layer), LAMINA_HATCH_LAYER,
                      t0, 0, t1 - t0, length, unit, index * 7);
   if (layer->kind == LAMINA_LAYER_AIR)
     draw_air_label (self, cr, layer, t0, t1, length, unit);

@@ -1,0 +1,360 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-sheet-document.c: the PDF file: pages streamed one at a time,
+ * bookmarks, metadata, and the atomic write. */
+#define G_LOG_DOMAIN "lamina-sheet"
+
+#include "config.h"
+
+#include "lamina-sheet-private.h"
+
+#include <cairo-pdf.h>
+#include <errno.h>
+#include <fcntl.h>
+#include <glib/gi18n-lib.h>
+#include <glib/gstdio.h>
+#include <unistd.h>
+
+typedef struct
+{
+  int  fd;
+  int  saved_errno;
+} Sink;
+
+static cairo_status_t
+write_cb (void                *closure,
+          const unsigned char *data,
+          unsigned int         length)
+{
+  Sink *sink = closure;
+
+  while (length > 0)
+    {
+      ssize_t done = write (sink->fd, data, length);
+      if (done < 0 && errno == EINTR)
+        continue;
+      if (done <= 0)
+        {
+          sink->saved_errno = done < 0 ? errno : EIO;
+          return CAIRO_STATUS_WRITE_ERROR;
+        }
+      data += done;
+      length -= (unsigned int) done;
+    }
+  return CAIRO_STATUS_SUCCESS;
+}
+
+static gboolean
+set_io_error (GError    **error,
+              const char *path,
+              int         saved_errno)
+{
+  g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_IO, "%s: %s", path, g_strerror (saved_errno));
+  return FALSE;
+}
+
+/* Moves the finished temporary file into place: rename() when
+ * overwriting, link() otherwise, which fails if the target appeared
+ * meanwhile instead of replacing it. */
+static gboolean
+commit_file (const char *tmp_path,
+             const char *path,
+             gboolean    overwrite,
+             GError    **error)
+{
+  if (overwrite)
+    {
+      if (g_rename (tmp_path, path) != 0)
+        return set_io_error (error, path, errno);
+      return TRUE;
+    }
+  if (link (tmp_path, path) != 0)
+    {
+      int saved = errno;
+      if (saved == EEXIST)
+        {
+          g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_EXISTS,
+                       _("%s: the file exists (use --force to replace it)"), path);
+          return FALSE;
+        }
+      return set_io_error (error, path, saved);
+    }
+  g_unlink (tmp_path);
+  return TRUE;
+}
+
+static char *
+dup_iso_date (const char *printed)
+{
+  /* PDF metadata wants ISO 8601; the printed date is YYYY-MM-DD. */
+  return g_strdup_printf ("%sT00:00:00Z", printed);
+}
+
+static void
+set_metadata (cairo_surface_t          *surface,
+              const SheetContext       *ctx,
+              const char               *title)
+{
+  g_autofree char *creator = g_strdup_printf ("Lamina %s", PACKAGE_VERSION);
+  g_autofree char *date = dup_iso_date (ctx->printed);
+
+  cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_TITLE, title);
+  if (ctx->options->practice)
+    cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_AUTHOR, ctx->options->practice);
+  cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_SUBJECT,
+                                  _("Construction specification sheets, EN ISO 6946:2017"));
+  cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_KEYWORDS,
+                                  "U-value; thermal transmittance; EN ISO 6946");
+  cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_CREATOR, creator);
+  cairo_pdf_surface_set_metadata (surface, CAIRO_PDF_METADATA_CREATE_DATE, date);
+}
+
+static LaminaResult *
+calculate (const LaminaConstruction *c,
+           GError                  **error)
+{
+  g_autoptr(GError) local = NULL;
+  LaminaResult *result = lamina_calculate (c, &local);
+
+  if (result == NULL)
+    g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_INVALID, "%s: %s",
+                 c->code ? c->code : c->id, local->message);
+  return result;
+}
+
+static void
+clear_entry (gpointer data)
+{
+  SheetIndexEntry *e = data;
+
+  g_free (e->code);
+  g_free (e->name);
+}
+
+/* First pass: the index rows, one construction at a time. */
+static GArray *
+collect_index (guint             n,
+               LaminaSheetFetch  fetch,
+               gpointer          fetch_data,
+               GError          **error)
+{
+  g_autoptr(GArray) entries = g_array_sized_new (FALSE, TRUE, sizeof (SheetIndexEntry), n);
+
+  g_array_set_clear_func (entries, clear_entry);
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr(LaminaConstruction) c = fetch (fetch_data, i, error);
+      g_autoptr(LaminaResult) r = NULL;
+      SheetIndexEntry e;
+
+      if (c == NULL || (r = calculate (c, error)) == NULL)
+        return NULL;
+      e.code = g_strdup (c->code ? c->code : c->id);
+      e.name = g_strdup (c->name);
+      e.element = c->element;
+      e.status = c->status;
+      e.u = r->u_corrected;
+      e.thickness = r->thickness;
+      g_array_append_val (entries, e);
+    }
+  return g_steal_pointer (&entries);
+}
+
+static void
+add_sheet_outline (cairo_surface_t          *surface,
+                   int                      *parents,
+                   const LaminaConstruction *c,
+                   const char               *dest)
+{
+  g_autofree char *label = g_strdup_printf ("%s  %s", c->code ? c->code : c->id, c->name);
+
+  if (parents[c->element] == 0)
+    parents[c->element] = cairo_pdf_surface_add_outline (surface, CAIRO_PDF_OUTLINE_ROOT,
+                                                         sheet_element_label (c->element), dest,
+                                                         CAIRO_PDF_OUTLINE_FLAG_OPEN);
+  cairo_pdf_surface_add_outline (surface, parents[c->element], label, dest, 0);
+}
+
+typedef struct
+{
+  guint             n;
+  LaminaSheetFetch  fetch;
+  gpointer          fetch_data;
+  gboolean          front_matter;
+} Source;
+
+static gboolean
+write_pages (cairo_surface_t          *surface,
+             cairo_t                  *cr,
+             const LaminaSheetOptions *options,
+             const Source             *source,
+             LaminaSheetProgress       progress,
+             gpointer                  progress_data,
+             GError                  **error)
+{
+  SheetContext ctx;
+  g_autoptr(GArray) entries = NULL;
+  int parents[LAMINA_N_ELEMENTS] = { 0 };
+  guint index_pages = 0, first_sheet;
+  gboolean ok = TRUE;
+
+  sheet_context_init (&ctx, cr, options);
+  if (source->front_matter)
+    {
+      guint left;
+
+      entries = collect_index (source->n, source->fetch, source->fetch_data, error);
+      if (entries == NULL)
+        {
+          sheet_context_clear (&ctx);
+          return FALSE;
+        }
+      left = source->n;
+      for (gboolean first = TRUE; left > 0 || first; first = FALSE)
+        {
+          guint rows = sheet_index_rows_per_page (&ctx, first);
+          left -= MIN (left, rows);
+          index_pages++;
+        }
+    }
+  first_sheet = source->front_matter ? 2 + index_pages : 1;
+  ctx.n_pages = first_sheet - 1 + source->n;
+
+  if (source->front_matter)
+    {
+      ctx.page = 1;
+      set_metadata (surface, &ctx, options->title ? options->title : _("Construction catalogue"));
+      cairo_pdf_surface_add_outline (surface, CAIRO_PDF_OUTLINE_ROOT, _("Cover"), "page=1", 0);
+      cairo_pdf_surface_add_outline (surface, CAIRO_PDF_OUTLINE_ROOT, _("Index"), "page=2", 0);
+      sheet_draw_cover (&ctx, source->n);
+      cairo_show_page (cr);
+      for (guint first = 0, p = 0; p < index_pages; p++)
+        {
+          ctx.page = 2 + p;
+          first += sheet_draw_index (&ctx, (SheetIndexEntry *) (void *) entries->data,
+                                     entries->len, first, first_sheet);
+          cairo_show_page (cr);
+        }
+    }
+
+  for (guint i = 0; i < source->n && ok; i++)
+    {
+      g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
+      g_autoptr(LaminaResult) r = NULL;
+      g_autofree char *dest = g_strdup_printf ("dest='sheet-%u'", i + 1);
+      g_autofree char *name = g_strdup_printf ("name='sheet-%u' x=0 y=0", i + 1);
+
+      if (c == NULL || (r = calculate (c, error)) == NULL)
+        {
+          ok = FALSE;
+          break;
+        }
+      if (!source->front_matter)
+        set_metadata (surface, &ctx, c->name);
+      ctx.page = first_sheet + i;
+      cairo_tag_begin (cr, CAIRO_TAG_DEST, name);
+      cairo_tag_end (cr, CAIRO_TAG_DEST);
+      add_sheet_outline (surface, parents, c, dest);
+      sheet_draw_page (&ctx, c, r);
+      cairo_show_page (cr);
+      if (progress)
+        progress (progress_data, i + 1, source->n);
+    }
+  sheet_context_clear (&ctx);
+  return ok;
+}
+
+static gboolean
+write_document (const char               *path,
+                gboolean                  overwrite,
+                const LaminaSheetOptions *options,
+                const Source             *source,
+                LaminaSheetProgress       progress,
+                gpointer                  progress_data,
+                GError                  **error)
+{
+  g_autofree char *dir = g_path_get_dirname (path);
+  g_autofree char *base = g_path_get_basename (path);
+  g_autofree char *tmp_path = g_strdup_printf ("%s/.%s.XXXXXX", dir, base);
+  cairo_surface_t *surface;
+  cairo_status_t status;
+  Sink sink = { -1, 0 };
+  double width, height;
+  gboolean ok;
+  cairo_t *cr;
+
+  if (!overwrite && g_file_test (path, G_FILE_TEST_EXISTS))
+    {
+      g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_EXISTS,
+                   _("%s: the file exists (use --force to replace it)"), path);
+      return FALSE;
+    }
+  sink.fd = g_mkstemp_full (tmp_path, O_WRONLY | O_CLOEXEC, 0644);
+  if (sink.fd < 0)
+    return set_io_error (error, path, errno);
+
+  lamina_paper_get_size (options->paper, &width, &height);
+  surface = cairo_pdf_surface_create_for_stream (write_cb, &sink, width, height);
+  cr = cairo_create (surface);
+  ok = write_pages (surface, cr, options, source, progress, progress_data, error);
+  cairo_destroy (cr);
+  cairo_surface_finish (surface);
+  status = cairo_surface_status (surface);
+  cairo_surface_destroy (surface);
+
+  if (ok && status != CAIRO_STATUS_SUCCESS)
+    {
+      if (sink.saved_errno)
+        set_io_error (error, path, sink.saved_errno);
+      else
+        g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_IO, "%s: %s", path,
+                     cairo_status_to_string (status));
+      ok = FALSE;
+    }
+  if (ok && fsync (sink.fd) != 0)
+    ok = set_io_error (error, path, errno);
+  if (close (sink.fd) != 0 && ok)
+    ok = set_io_error (error, path, errno);
+  if (ok)
+    ok = commit_file (tmp_path, path, overwrite, error);
+  if (!ok)
+    g_unlink (tmp_path);
+  return ok;
+}
+
+static LaminaConstruction *
+fetch_single_cb (gpointer   user_data,
+                 guint      index,
+                 GError   **error)
+{
+  return lamina_construction_copy (user_data);
+}
+
+gboolean
+lamina_sheet_write_pdf (const char               *path,
+                        gboolean                  overwrite,
+                        const LaminaSheetOptions *options,
+                        const LaminaConstruction *construction,
+                        GError                  **error)
+{
+  Source source = { 1, fetch_single_cb, (gpointer) construction, FALSE };
+
+  g_return_val_if_fail (path != NULL && options != NULL && construction != NULL, FALSE);
+  return write_document (path, overwrite, options, &source, NULL, NULL, error);
+}
+
+gboolean
+lamina_sheet_write_catalogue (const char               *path,
+                              gboolean                  overwrite,
+                              const LaminaSheetOptions *options,
+                              guint                     n,
+                              LaminaSheetFetch          fetch,
+                              gpointer                  fetch_data,
+                              LaminaSheetProgress       progress,
+                              gpointer                  progress_data,
+                              GError                  **error)
+{
+  Source source = { n, fetch, fetch_data, TRUE };
+
+  g_return_val_if_fail (path != NULL && options != NULL && fetch != NULL, FALSE);
+  return write_document (path, overwrite, options, &source, progress, progress_data, error);
+}

@@ -1,0 +1,106 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-sheet-private.h: the state shared by the page painters. */
+#pragma once
+
+#include <pango/pangocairo.h>
+
+#include "lamina-section.h"
+#include "lamina-sheet.h"
+
+G_BEGIN_DECLS
+
+typedef enum
+{
+  SHEET_FONT_BODY,
+  SHEET_FONT_BOLD,
+  SHEET_FONT_SMALL,
+  SHEET_FONT_LABEL,     /* small captions above values */
+  SHEET_FONT_HEADING,
+  SHEET_FONT_TITLE,
+  SHEET_FONT_CODE,
+  SHEET_FONT_BIG,
+  SHEET_FONT_WATERMARK,
+  SHEET_N_FONTS
+} SheetFont;
+
+/* One row of the catalogue index: what the index page shows. */
+typedef struct
+{
+  char          *code;
+  char          *name;
+  LaminaElement  element;
+  LaminaStatus   status;
+  double         u;
+  double         thickness;
+} SheetIndexEntry;
+
+typedef struct
+{
+  cairo_t                  *cr;           /* borrowed */
+  const LaminaSheetOptions *options;      /* borrowed */
+  PangoLayout              *layout;       /* owned, reused for all text */
+  PangoFontDescription     *fonts[SHEET_N_FONTS];
+  LaminaSection            *section;      /* owned */
+  LaminaSectionLayout       section_layout;
+  double                    width, height;          /* page, pt */
+  double                    left, right, top, bottom; /* content box */
+  double                    grey;                   /* secondary text */
+  guint                     page, n_pages;
+  char                      printed[32];
+} SheetContext;
+
+void   sheet_context_init    (SheetContext             *ctx,
+                              cairo_t                  *cr,
+                              const LaminaSheetOptions *options);
+void   sheet_context_clear   (SheetContext             *ctx);
+
+/* Sets the text; returns its logical size.  @width > 0 wraps. */
+void   sheet_text_set        (SheetContext *ctx,
+                              SheetFont     font,
+                              const char   *text,
+                              double        width,
+                              double       *text_width,
+                              double       *text_height);
+/* Draws text with its top at @y; x is the left, centre or right edge by
+ * @align.  Returns the height used. */
+double sheet_text            (SheetContext   *ctx,
+                              SheetFont       font,
+                              const char     *text,
+                              double          x,
+                              double          y,
+                              double          width,
+                              PangoAlignment  align);
+/* One line cut with an ellipsis to @width. */
+void   sheet_text_line       (SheetContext   *ctx,
+                              SheetFont       font,
+                              const char     *text,
+                              double          x,
+                              double          y,
+                              double          width,
+                              PangoAlignment  align);
+void   sheet_rule            (SheetContext   *ctx,
+                              double          y,
+                              double          weight,
+                              double          grey);
+
+void   sheet_draw_frame      (SheetContext   *ctx,
+                              gboolean        draft);
+void   sheet_draw_footer     (SheetContext   *ctx);
+void   sheet_draw_page       (SheetContext             *ctx,
+                              const LaminaConstruction *construction,
+                              const LaminaResult       *result);
+void   sheet_draw_cover      (SheetContext   *ctx,
+                              guint           n);
+/* Rows @first … @first + count − 1 of the index; returns rows drawn. */
+guint  sheet_draw_index      (SheetContext           *ctx,
+                              const SheetIndexEntry  *entries,
+                              guint                   n,
+                              guint                   first,
+                              guint                   first_sheet_page);
+guint  sheet_index_rows_per_page (const SheetContext *ctx,
+                                  gboolean            first_page);
+
+const char *sheet_element_label (LaminaElement element);
+const char *sheet_status_label  (LaminaStatus  status);
+
+G_END_DECLS

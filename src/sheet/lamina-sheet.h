@@ -1,0 +1,80 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-sheet.h: PDF specification sheets, one construction per page,
+ * and catalogues (a cover, a linked index, the sheets, bookmarks and
+ * document metadata).  Pages are drawn and written one at a time, so a
+ * catalogue of hundreds of sheets holds only its index in memory.  Output
+ * is atomic: a temporary file beside the target, renamed when complete. */
+#pragma once
+
+#include <cairo.h>
+#include <glib.h>
+
+#include "lamina-calc.h"
+#include "lamina-construction.h"
+
+G_BEGIN_DECLS
+
+#define LAMINA_SHEET_ERROR (lamina_sheet_error_quark ())
+typedef enum
+{
+  LAMINA_SHEET_ERROR_IO,      /* cannot write the output */
+  LAMINA_SHEET_ERROR_EXISTS,  /* the output exists and overwrite is off */
+  LAMINA_SHEET_ERROR_INVALID, /* a construction cannot be calculated */
+} LaminaSheetError;
+GQuark lamina_sheet_error_quark (void);
+
+typedef enum
+{
+  LAMINA_PAPER_A4,
+  LAMINA_PAPER_A3,
+  LAMINA_PAPER_LETTER,
+  LAMINA_N_PAPERS
+} LaminaPaper;
+
+typedef struct
+{
+  const char  *practice;  /* header of every sheet; NULL = none */
+  const char  *title;     /* catalogue title on the cover; NULL = default */
+  const char  *library;   /* footer: where the sheets come from */
+  const char  *printed;   /* print date as shown; NULL = today (or
+                             SOURCE_DATE_EPOCH when set) */
+  LaminaPaper  paper;
+} LaminaSheetOptions;
+
+/* Returns an owned construction for @index (0 … n − 1), or NULL with
+ * @error set.  Called twice per construction: once for the index, once
+ * for its sheet. */
+typedef LaminaConstruction *(*LaminaSheetFetch)    (gpointer   user_data,
+                                                    guint      index,
+                                                    GError   **error);
+typedef void                (*LaminaSheetProgress) (gpointer   user_data,
+                                                    guint      done,
+                                                    guint      total);
+
+void        lamina_sheet_options_init (LaminaSheetOptions *options);
+const char *lamina_paper_to_string    (LaminaPaper         paper);
+gboolean    lamina_paper_from_string  (const char         *name,
+                                       LaminaPaper        *paper);
+/* Page size in points (1/72 in). */
+void        lamina_paper_get_size     (LaminaPaper         paper,
+                                       double             *width,
+                                       double             *height);
+
+/* One sheet, one page. */
+gboolean lamina_sheet_write_pdf       (const char               *path,
+                                       gboolean                  overwrite,
+                                       const LaminaSheetOptions *options,
+                                       const LaminaConstruction *construction,
+                                       GError                  **error);
+/* Cover, index, @n sheets. */
+gboolean lamina_sheet_write_catalogue (const char               *path,
+                                       gboolean                  overwrite,
+                                       const LaminaSheetOptions *options,
+                                       guint                     n,
+                                       LaminaSheetFetch          fetch,
+                                       gpointer                  fetch_data,
+                                       LaminaSheetProgress       progress,
+                                       gpointer                  progress_data,
+                                       GError                  **error);
+
+G_END_DECLS

@@ -1,0 +1,286 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of the section drawing: geometry to scale, hit-testing, pixels
+ * against the geometry, determinism, and number formats per locale. */
+#define G_LOG_DOMAIN "lamina-test"
+
+#include <locale.h>
+#include <math.h>
+#include <string.h>
+
+#include "lamina-section-private.h"
+#include "lamina-sheet-format.h"
+#include "lamina-test-constructions.h"
+
+#define WIDTH  1000
+#define HEIGHT 600
+
+typedef struct
+{
+  cairo_surface_t     *surface;
+  LaminaSectionLayout  layout;
+  LaminaSectionStyle   style;
+} Render;
+
+static void
+render (Render                   *out,
+        const LaminaConstruction *c)
+{
+  g_autoptr(LaminaSection) painter = lamina_section_new ();
+  g_autoptr(LaminaResult) result = lamina_calculate (c, NULL);
+  cairo_t *cr;
+
+  g_assert_nonnull (result);
+  out->surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, WIDTH, HEIGHT);
+  cr = cairo_create (out->surface);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  lamina_section_style_init (&out->style, 12);
+  lamina_section_layout_init (&out->layout);
+  lamina_section_layout_compute (&out->layout, c, &out->style, 0, 0, WIDTH, HEIGHT);
+  lamina_section_draw (painter, cr, &out->layout, c, result, &out->style);
+  cairo_destroy (cr);
+  cairo_surface_flush (out->surface);
+}
+
+static void
+render_clear (Render *r)
+{
+  cairo_surface_destroy (r->surface);
+  lamina_section_layout_clear (&r->layout);
+}
+
+/* Darkness 0 (white) … 255 (black) of pixel (x, y). */
+static int
+get_ink (cairo_surface_t *surface,
+         int              x,
+         int              y)
+{
+  const guint8 *data = cairo_image_surface_get_data (surface);
+  int stride = cairo_image_surface_get_stride (surface);
+  guint32 px;
+
+  g_assert_true (x >= 0 && x < WIDTH && y >= 0 && y < HEIGHT);
+  px = *(const guint32 *) (data + y * stride + x * 4);
+  return 255 - (int) (((px >> 16 & 0xff) + (px >> 8 & 0xff) + (px & 0xff)) / 3);
+}
+
+static void
+test_edges_to_scale (void)
+{
+  /* The drawing is to scale: each layer spans d × scale (the definition
+   * of a scale drawing, common practice). */
+  g_autoptr(GPtrArray) all = lamina_test_constructions ();
+
+  for (guint k = 0; k < all->len; k++)
+    {
+      LaminaConstruction *c = all->pdata[k];
+      LaminaSectionLayout layout;
+      LaminaSectionStyle style;
+      double sum = 0;
+
+      lamina_section_style_init (&style, 10);
+      lamina_section_layout_init (&layout);
+      lamina_section_layout_compute (&layout, c, &style, 10, 20, 800, 500);
+      g_assert_cmpuint (layout.n_layers, ==, c->layers->len);
+      for (guint i = 0; i < c->layers->len; i++)
+        {
+          double d = ((LaminaLayer *) c->layers->pdata[i])->thickness;
+          g_assert_cmpfloat_with_epsilon (fabs (layout.edges[i + 1] - layout.edges[i]), d * layout.scale, 1e-9);
+          sum += d;
+        }
+      g_assert_cmpfloat_with_epsilon (fabs (layout.edges[c->layers->len] - layout.edges[0]),
+                                      sum * layout.scale, 1e-9);
+      /* Inside on the left for walls, at the bottom for roofs, top for floors. */
+      if (c->element == LAMINA_ELEMENT_WALL)
+        g_assert_cmpfloat_with_epsilon (layout.edges[0], layout.body_x, 1e-9);
+      else if (c->element == LAMINA_ELEMENT_ROOF)
+        g_assert_cmpfloat_with_epsilon (layout.edges[0], layout.body_y + layout.body_height, 1e-9);
+      else if (c->element == LAMINA_ELEMENT_FLOOR)
+        g_assert_cmpfloat_with_epsilon (layout.edges[0], layout.body_y, 1e-9);
+      /* The body stays inside the rectangle. */
+      g_assert_cmpfloat (layout.body_x, >=, 10);
+      g_assert_cmpfloat (layout.body_x + layout.body_width, <=, 810 + 1e-9);
+      g_assert_cmpfloat (layout.body_y + layout.body_height, <=, 520 + 1e-9);
+      lamina_section_layout_clear (&layout);
+    }
+}
+
+static void
+test_hit_and_drag (void)
+{
+  g_autoptr(LaminaConstruction) c = lamina_test_masonry_wall ();
+  LaminaSectionLayout layout;
+  LaminaSectionStyle style;
+  double mid_y;
+  guint index = 99;
+
+  lamina_section_style_init (&style, 10);
+  lamina_section_layout_init (&layout);
+  lamina_section_layout_compute (&layout, c, &style, 0, 0, 900, 500);
+  mid_y = layout.body_y + layout.body_height / 2;
+
+  for (guint i = 0; i < layout.n_layers; i++)
+    {
+      double x = (layout.edges[i] + layout.edges[i + 1]) / 2;
+      g_assert_cmpint (lamina_section_layout_hit (&layout, x, mid_y, 1.0, &index), ==, LAMINA_SECTION_HIT_LAYER);
+      g_assert_cmpuint (index, ==, i);
+    }
+  for (guint i = 0; i <= layout.n_layers; i++)
+    {
+      g_assert_cmpint (lamina_section_layout_hit (&layout, layout.edges[i] + 0.5, mid_y, 1.0, &index), ==,
+                       LAMINA_SECTION_HIT_BOUNDARY);
+      g_assert_cmpuint (index, ==, i);
+    }
+  g_assert_cmpint (lamina_section_layout_hit (&layout, layout.body_x - 30, mid_y, 1.0, &index), ==,
+                   LAMINA_SECTION_HIT_NONE);
+  g_assert_cmpint (lamina_section_layout_hit (&layout, layout.edges[1] + 2, layout.body_y - 40, 1.0, &index), ==,
+                   LAMINA_SECTION_HIT_NONE);
+
+  /* Dragging the outer face of layer 3 (mineral wool, 190 mm) to 150 mm
+   * past its inner face gives 150 mm; never below the minimum. */
+  g_assert_cmpfloat_with_epsilon (lamina_section_layout_drag_thickness (&layout, 3,
+                                    layout.edges[2] + 150 * layout.scale, mid_y, 1.0), 150.0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (lamina_section_layout_drag_thickness (&layout, 3,
+                                    layout.edges[2] - 50, mid_y, 1.0), 1.0, 1e-9);
+  lamina_section_layout_clear (&layout);
+}
+
+static void
+check_pixels (const LaminaConstruction *c)
+{
+  Render r;
+  gboolean across;
+  double length;
+
+  render (&r, c);
+  across = r.layout.orientation == LAMINA_SECTION_ACROSS;
+  length = across ? r.layout.body_height : r.layout.body_width;
+
+  for (guint i = 0; i <= r.layout.n_layers; i++)
+    {
+      /* A boundary line at the scaled position: dark within half a pixel
+       * of it, at three places along the strip. */
+      for (int q = 1; q <= 3; q++)
+        {
+          double along = (across ? r.layout.body_y : r.layout.body_x) + length * q / 4.0 + 0.5;
+          int a = (int) floor (r.layout.edges[i]), best = 0;
+          for (int p = a - 1; p <= a + 1; p++)
+            best = MAX (best, across ? get_ink (r.surface, p, (int) along) : get_ink (r.surface, (int) along, p));
+          if (best < 100)
+            g_error ("%s: no boundary line at edge %u (%.2f): ink %d", c->code, i, r.layout.edges[i], best);
+        }
+    }
+  for (guint i = 0; i < r.layout.n_layers; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+      double lo = MIN (r.layout.edges[i], r.layout.edges[i + 1]) + 2;
+      double hi = MAX (r.layout.edges[i], r.layout.edges[i + 1]) - 2;
+      guint inked = 0, total = 0;
+
+      if (hi <= lo)
+        continue; /* thinner than the boundary lines */
+      for (int t = (int) ceil (lo); t <= (int) floor (hi); t++)
+        for (double s = 0.05; s < 0.95; s += 0.01)
+          {
+            int along = (int) ((across ? r.layout.body_y : r.layout.body_x) + s * length);
+            total++;
+            if ((across ? get_ink (r.surface, t, along) : get_ink (r.surface, along, t)) > 40)
+              inked++;
+          }
+      /* Every material is hatched; an air layer is blank apart from its label. */
+      if (layer->kind == LAMINA_LAYER_AIR)
+        g_assert_cmpfloat ((double) inked / total, <, 0.2);
+      else if (inked == 0)
+        g_error ("%s: layer %u has no hatch", c->code, i + 1);
+    }
+  render_clear (&r);
+}
+
+static void
+test_pixels (void)
+{
+  g_autoptr(GPtrArray) all = lamina_test_constructions ();
+
+  for (guint k = 0; k < all->len; k++)
+    check_pixels (all->pdata[k]);
+}
+
+static void
+test_deterministic (void)
+{
+  g_autoptr(LaminaConstruction) c = lamina_test_timber_wall ();
+  Render a, b;
+
+  render (&a, c);
+  render (&b, c);
+  g_assert_cmpint (memcmp (cairo_image_surface_get_data (a.surface), cairo_image_surface_get_data (b.surface),
+                           (gsize) cairo_image_surface_get_stride (a.surface) * HEIGHT), ==, 0);
+  render_clear (&a);
+  render_clear (&b);
+}
+
+static void
+test_spread (void)
+{
+  /* Labels that fit stay put; crowded ones move apart by their size. */
+  double want[4] = { 0, 1, 2, 50 }, size[4] = { 4, 4, 4, 4 }, pos[4], scratch[12];
+
+  lamina_section_spread (want, size, 4, 1, pos, scratch);
+  g_assert_cmpfloat_with_epsilon (pos[3], 50, 1e-9);
+  g_assert_cmpfloat_with_epsilon (pos[1] - pos[0], 5, 1e-9);
+  g_assert_cmpfloat_with_epsilon (pos[2] - pos[1], 5, 1e-9);
+  /* The cluster centres on the mean of what it wanted (1). */
+  g_assert_cmpfloat_with_epsilon (pos[1], 1, 1e-9);
+}
+
+static void
+test_format_u (void)
+{
+  /* U to two significant figures: reporting convention stated in
+   * national guidance on EN ISO 6946 (REFERENCES.md, "Rounding"). */
+  char buffer[LAMINA_FORMAT_SIZE];
+
+  g_assert_cmpstr (lamina_format_u (buffer, 0.1483), ==, "0.15");
+  g_assert_cmpstr (lamina_format_u (buffer, 0.0952), ==, "0.095");
+  g_assert_cmpstr (lamina_format_u (buffer, 1.234), ==, "1.2");
+  g_assert_cmpstr (lamina_format_u (buffer, 0.2), ==, "0.20");
+  g_assert_cmpstr (lamina_format_thickness (buffer, 12.5), ==, "12.5");
+  g_assert_cmpstr (lamina_format_thickness (buffer, 190), ==, "190");
+  g_assert_cmpstr (lamina_format_temperature (buffer, -10), ==, "\xe2\x88\x92" "10.0\xc2\xa0°C");
+  g_assert_cmpstr (lamina_format_fixed (buffer, -0.001, 1), ==, "0.0");
+}
+
+static void
+test_format_danish (void)
+{
+  /* Danish writes a decimal comma (LC_NUMERIC of da_DK, glibc locale
+   * data). */
+  char buffer[LAMINA_FORMAT_SIZE];
+  g_autofree char *saved = g_strdup (setlocale (LC_NUMERIC, NULL));
+
+  if (setlocale (LC_NUMERIC, "da_DK.UTF-8") == NULL)
+    {
+      g_test_skip ("the da_DK.UTF-8 locale is not installed");
+      return;
+    }
+  g_assert_cmpstr (lamina_format_u (buffer, 0.1483), ==, "0,15");
+  g_assert_cmpstr (lamina_format_thickness (buffer, 12.5), ==, "12,5");
+  g_assert_cmpstr (lamina_format_temperature (buffer, -9.84), ==, "\xe2\x88\x92" "9,8\xc2\xa0°C");
+  setlocale (LC_NUMERIC, saved);
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  setlocale (LC_ALL, "");
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/sheet/section/edges-to-scale", test_edges_to_scale);
+  g_test_add_func ("/sheet/section/hit-and-drag", test_hit_and_drag);
+  g_test_add_func ("/sheet/section/pixels", test_pixels);
+  g_test_add_func ("/sheet/section/deterministic", test_deterministic);
+  g_test_add_func ("/sheet/section/spread", test_spread);
+  g_test_add_func ("/sheet/format/u", test_format_u);
+  g_test_add_func ("/sheet/format/danish", test_format_danish);
+  return g_test_run ();
+}
