@@ -1,0 +1,454 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The editor's small dialogs: choose a material, make a layer bridged, an
+ * air layer or a declared resistance, and attach corrections.  Each one
+ * reads its fields, calls the pure edit function and applies the result;
+ * a bad field is named in the error shown. */
+#define G_LOG_DOMAIN "lamina-app"
+
+#include "config.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+#include "lamina-editor-private.h"
+#include "lamina-editor-state.h"
+#include "lamina-text.h"
+
+typedef struct _Form Form;
+typedef gboolean (*FormApply) (Form *form, GError **error);
+
+struct _Form
+{
+  LaminaEditor *editor;
+  GtkWindow    *window;
+  GtkGrid      *grid;
+  GtkLabel     *error_label;
+  GHashTable   *fields;    /* name → widget (borrowed) */
+  FormApply     apply;
+  GPtrArray    *materials; /* LaminaMaterial*, owned */
+  gboolean      insert;
+  int           rows;
+};
+
+static void
+form_free (Form *form)
+{
+  g_hash_table_unref (form->fields);
+  g_clear_pointer (&form->materials, g_ptr_array_unref);
+  g_object_unref (form->editor);
+  g_free (form);
+}
+
+static const LaminaConstruction *
+form_state (Form *form)
+{
+  return lamina_document_get_construction (lamina_editor_get_document (form->editor));
+}
+
+static guint
+form_layer (Form *form)
+{
+  int selected = lamina_editor_get_selected_layer (form->editor);
+
+  return selected < 0 ? 0 : (guint) selected;
+}
+
+static const LaminaLayer *
+form_current_layer (Form *form)
+{
+  const LaminaConstruction *state = form_state (form);
+  guint index = form_layer (form);
+
+  return index < state->layers->len ? g_ptr_array_index (state->layers, index) : NULL;
+}
+
+static void
+on_apply_clicked_cb (Form *form)
+{
+  g_autoptr(GError) error = NULL;
+
+  if (!form->apply (form, &error))
+    {
+      gtk_label_set_text (form->error_label, error ? error->message : _("Cannot apply"));
+      gtk_widget_set_visible (GTK_WIDGET (form->error_label), TRUE);
+      return;
+    }
+  gtk_window_destroy (form->window);
+}
+
+static void
+on_cancel_clicked_cb (Form *form)
+{
+  gtk_window_destroy (form->window);
+}
+
+static Form *
+form_new (LaminaEditor *editor,
+          const char   *title,
+          FormApply     apply)
+{
+  Form *form = g_new0 (Form, 1);
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 12);
+  GtkWidget *buttons = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+  GtkWidget *cancel = gtk_button_new_with_mnemonic (_("_Cancel"));
+  GtkWidget *ok = gtk_button_new_with_mnemonic (_("_Apply"));
+  GtkRoot *root = gtk_widget_get_root (GTK_WIDGET (editor));
+
+  form->editor = g_object_ref (editor);
+  form->apply = apply;
+  form->fields = g_hash_table_new (g_str_hash, g_str_equal);
+  form->window = GTK_WINDOW (gtk_window_new ());
+  gtk_window_set_title (form->window, title);
+  gtk_window_set_modal (form->window, TRUE);
+  gtk_window_set_resizable (form->window, FALSE);
+  if (GTK_IS_WINDOW (root))
+    gtk_window_set_transient_for (form->window, GTK_WINDOW (root));
+  gtk_window_set_destroy_with_parent (form->window, TRUE);
+  g_object_set_data_full (G_OBJECT (form->window), "lamina-form", form, (GDestroyNotify) form_free);
+
+  gtk_widget_set_margin_start (box, 18);
+  gtk_widget_set_margin_end (box, 18);
+  gtk_widget_set_margin_top (box, 18);
+  gtk_widget_set_margin_bottom (box, 18);
+  form->grid = GTK_GRID (gtk_grid_new ());
+  gtk_grid_set_row_spacing (form->grid, 8);
+  gtk_grid_set_column_spacing (form->grid, 12);
+  gtk_box_append (GTK_BOX (box), GTK_WIDGET (form->grid));
+  form->error_label = GTK_LABEL (gtk_label_new (NULL));
+  gtk_label_set_wrap (form->error_label, TRUE);
+  gtk_label_set_xalign (form->error_label, 0);
+  gtk_widget_add_css_class (GTK_WIDGET (form->error_label), "lamina-error");
+  gtk_widget_set_visible (GTK_WIDGET (form->error_label), FALSE);
+  gtk_box_append (GTK_BOX (box), GTK_WIDGET (form->error_label));
+
+  gtk_widget_set_halign (buttons, GTK_ALIGN_END);
+  gtk_widget_add_css_class (ok, "suggested-action");
+  gtk_box_append (GTK_BOX (buttons), cancel);
+  gtk_box_append (GTK_BOX (buttons), ok);
+  gtk_box_append (GTK_BOX (box), buttons);
+  gtk_window_set_child (form->window, box);
+  gtk_window_set_default_widget (form->window, ok);
+  g_signal_connect_swapped (ok, "clicked", G_CALLBACK (on_apply_clicked_cb), form);
+  g_signal_connect_swapped (cancel, "clicked", G_CALLBACK (on_cancel_clicked_cb), form);
+  return form;
+}
+
+static void
+form_add (Form       *form,
+          const char *name,
+          const char *label,
+          GtkWidget  *widget)
+{
+  GtkWidget *title = gtk_label_new_with_mnemonic (label);
+
+  gtk_label_set_xalign (GTK_LABEL (title), 0);
+  gtk_label_set_mnemonic_widget (GTK_LABEL (title), widget);
+  gtk_widget_set_hexpand (widget, TRUE);
+  gtk_grid_attach (form->grid, title, 0, form->rows, 1, 1);
+  gtk_grid_attach (form->grid, widget, 1, form->rows, 1, 1);
+  gtk_accessible_update_relation (GTK_ACCESSIBLE (widget),
+                                  GTK_ACCESSIBLE_RELATION_LABELLED_BY, title, NULL, -1);
+  g_hash_table_insert (form->fields, (gpointer) name, widget);
+  form->rows++;
+}
+
+static void
+form_add_number (Form       *form,
+                 const char *name,
+                 const char *label,
+                 double      value,
+                 int         decimals)
+{
+  GtkWidget *entry = gtk_entry_new ();
+  g_autofree char *text = isnan (value) ? g_strdup ("") : lamina_text_number (value, decimals);
+
+  gtk_editable_set_text (GTK_EDITABLE (entry), text);
+  gtk_entry_set_activates_default (GTK_ENTRY (entry), TRUE);
+  gtk_entry_set_input_purpose (GTK_ENTRY (entry), GTK_INPUT_PURPOSE_NUMBER);
+  form_add (form, name, label, entry);
+}
+
+static gboolean
+form_get_number (Form        *form,
+                 const char  *name,
+                 const char  *field,
+                 gboolean     optional,
+                 double      *value,
+                 GError     **error)
+{
+  GtkWidget *entry = g_hash_table_lookup (form->fields, name);
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (entry));
+
+  if (optional && lamina_text_is_blank (text))
+    {
+      *value = NAN;
+      return TRUE;
+    }
+  if (lamina_text_parse_number (text, value))
+    return TRUE;
+  gtk_widget_add_css_class (entry, "error");
+  g_set_error (error, G_IO_ERROR, G_IO_ERROR_INVALID_DATA,
+               _("%s: “%s” is not a number"), field, text);
+  return FALSE;
+}
+
+static GtkWidget *
+form_add_materials (Form           *form,
+                    const char     *name,
+                    const char     *label,
+                    LaminaCategory  prefer)
+{
+  LaminaLibrary *library = lamina_document_get_library (lamina_editor_get_document (form->editor));
+  g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
+  GtkWidget *dropdown;
+  guint preferred = 0;
+
+  form->materials = lamina_library_list_materials (library, NULL);
+  if (form->materials == NULL)
+    form->materials = g_ptr_array_new ();
+  for (guint i = 0; i < form->materials->len; i++)
+    {
+      const LaminaMaterial *material = g_ptr_array_index (form->materials, i);
+      g_autofree char *lambda = lamina_text_number (material->conductivity, 3);
+      g_autofree char *text = g_strdup_printf ("%s (λ %s)", material->name, lambda);
+
+      gtk_string_list_append (names, text);
+      if (material->category == prefer && preferred == 0)
+        preferred = i;
+    }
+  dropdown = gtk_drop_down_new (G_LIST_MODEL (g_steal_pointer (&names)), NULL);
+  gtk_drop_down_set_enable_search (GTK_DROP_DOWN (dropdown), TRUE);
+  gtk_drop_down_set_expression (GTK_DROP_DOWN (dropdown),
+                                gtk_property_expression_new (GTK_TYPE_STRING_OBJECT, NULL, "string"));
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (dropdown), preferred);
+  form_add (form, name, label, dropdown);
+  return dropdown;
+}
+
+static const LaminaMaterial *
+form_get_material (Form       *form,
+                   const char *name)
+{
+  GtkDropDown *dropdown = g_hash_table_lookup (form->fields, name);
+  guint selected = gtk_drop_down_get_selected (dropdown);
+
+  if (form->materials == NULL || selected >= form->materials->len)
+    return NULL;
+  return g_ptr_array_index (form->materials, selected);
+}
+
+static gboolean
+form_apply_next (Form               *form,
+                 LaminaConstruction *next,
+                 GError             *error)
+{
+  if (next == NULL)
+    return FALSE;
+  lamina_editor_apply (form->editor, next, NULL, NULL);
+  return TRUE;
+}
+
+/* Material */
+
+static gboolean
+apply_material (Form    *form,
+                GError **error)
+{
+  const LaminaMaterial *material = form_get_material (form, "material");
+  const LaminaConstruction *state = form_state (form);
+  LaminaConstruction *next;
+  double thickness;
+
+  if (material == NULL)
+    {
+      g_set_error_literal (error, G_IO_ERROR, G_IO_ERROR_INVALID_DATA, _("Material: choose one"));
+      return FALSE;
+    }
+  if (form->insert)
+    {
+      g_autoptr(LaminaLayer) layer = NULL;
+      guint at = state->layers->len ? form_layer (form) + 1 : 0;
+
+      if (!form_get_number (form, "thickness", _("Thickness"), FALSE, &thickness, error))
+        return FALSE;
+      layer = lamina_layer_new_material (thickness, lamina_material_copy (material));
+      next = lamina_edit_insert_layer (state, at, layer, error);
+      if (next != NULL && !(thickness >= LAMINA_EDIT_MIN_THICKNESS))
+        {
+          lamina_construction_free (next);
+          g_set_error_literal (error, G_IO_ERROR, G_IO_ERROR_INVALID_DATA,
+                               _("Thickness: must be above 0 mm"));
+          return FALSE;
+        }
+      if (!form_apply_next (form, next, NULL))
+        return FALSE;
+      lamina_section_view_set_selected (lamina_editor_get_section_view (form->editor), (int) at);
+      return TRUE;
+    }
+  next = lamina_edit_set_material (state, form_layer (form), material, error);
+  return form_apply_next (form, next, NULL);
+}
+
+void
+lamina_editor_choose_material (LaminaEditor *self,
+                               gboolean      insert)
+{
+  Form *form = form_new (self, insert ? _("Add Layer") : _("Layer Material"), apply_material);
+
+  form->insert = insert;
+  form_add_materials (form, "material", _("_Material"), LAMINA_CATEGORY_INSULATION);
+  if (insert)
+    form_add_number (form, "thickness", _("_Thickness (mm)"), 50, 0);
+  gtk_window_present (form->window);
+}
+
+/* Bridged */
+
+static gboolean
+apply_bridged (Form    *form,
+               GError **error)
+{
+  double width, spacing;
+  LaminaConstruction *next;
+  const LaminaLayer *layer = form_current_layer (form);
+  const LaminaMaterial *infill = layer && layer->kind == LAMINA_LAYER_MATERIAL ? layer->material : NULL;
+
+  if (!form_get_number (form, "width", _("Width"), FALSE, &width, error) ||
+      !form_get_number (form, "spacing", _("Spacing"), FALSE, &spacing, error))
+    return FALSE;
+  next = lamina_edit_make_bridged (form_state (form), form_layer (form), infill,
+                                   form_get_material (form, "framing"), width, spacing,
+                                   _("framing"), error);
+  return form_apply_next (form, next, NULL);
+}
+
+void
+lamina_editor_edit_bridged (LaminaEditor *self)
+{
+  Form *form = form_new (self, _("Bridged Layer"), apply_bridged);
+
+  form_add_materials (form, "framing", _("_Framing member"), LAMINA_CATEGORY_TIMBER);
+  form_add_number (form, "width", _("_Width (mm)"), 45, 0);
+  form_add_number (form, "spacing", _("_Spacing, centres (mm)"), 600, 0);
+  gtk_window_present (form->window);
+}
+
+/* Air layer */
+
+static gboolean
+apply_air (Form    *form,
+           GError **error)
+{
+  double vent, e1, e2;
+  LaminaConstruction *next;
+  guint kind = gtk_drop_down_get_selected (g_hash_table_lookup (form->fields, "kind"));
+
+  if (!form_get_number (form, "vent", _("Vent area"), TRUE, &vent, error) ||
+      !form_get_number (form, "e1", _("Inner face emissivity"), FALSE, &e1, error) ||
+      !form_get_number (form, "e2", _("Outer face emissivity"), FALSE, &e2, error))
+    return FALSE;
+  next = lamina_edit_make_air (form_state (form), form_layer (form), (LaminaAirKind) kind,
+                               vent, e1, e2, error);
+  return form_apply_next (form, next, NULL);
+}
+
+void
+lamina_editor_edit_air (LaminaEditor *self)
+{
+  Form *form = form_new (self, _("Air Layer"), apply_air);
+  const char *kinds[] = { N_("Unventilated"), N_("Slightly ventilated"), N_("Well ventilated"), NULL };
+  g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
+  GtkWidget *dropdown;
+
+  for (guint i = 0; kinds[i]; i++)
+    gtk_string_list_append (names, _(kinds[i]));
+  dropdown = gtk_drop_down_new (G_LIST_MODEL (g_steal_pointer (&names)), NULL);
+  form_add (form, "kind", _("_Ventilation"), dropdown);
+  form_add_number (form, "vent", _("Vent _area (mm² per m)"), NAN, 0);
+  form_add_number (form, "e1", _("_Inner face ε"), 0.9, 2);
+  form_add_number (form, "e2", _("_Outer face ε"), 0.9, 2);
+  gtk_window_present (form->window);
+}
+
+/* Declared resistance */
+
+static gboolean
+apply_declared (Form    *form,
+                GError **error)
+{
+  double r;
+  LaminaConstruction *next;
+
+  if (!form_get_number (form, "r", _("Thermal resistance"), FALSE, &r, error))
+    return FALSE;
+  next = lamina_edit_make_declared (form_state (form), form_layer (form), r, error);
+  return form_apply_next (form, next, NULL);
+}
+
+void
+lamina_editor_edit_declared (LaminaEditor *self)
+{
+  Form *form = form_new (self, _("Declared Resistance"), apply_declared);
+
+  form_add_number (form, "r", _("_Thermal resistance R (m²·K/W)"), 0.5, 2);
+  gtk_window_present (form->window);
+}
+
+/* Corrections */
+
+static gboolean
+apply_corrections (Form    *form,
+                   GError **error)
+{
+  const LaminaLayer *layer = form_current_layer (form);
+  LaminaCorrections c;
+  LaminaConstruction *next;
+  double level;
+
+  if (layer == NULL)
+    return FALSE;
+  c = layer->corrections;
+  c.has_air_gaps = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "gaps"));
+  c.has_fasteners = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "fasteners"));
+  c.has_inverted_roof = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "inverted"));
+  if (!form_get_number (form, "level", _("Air gap level"), FALSE, &level, error) ||
+      !form_get_number (form, "lf", _("Fastener λ"), FALSE, &c.fastener_conductivity, error) ||
+      !form_get_number (form, "af", _("Fastener cross-section"), FALSE, &c.fastener_cross_section, error) ||
+      !form_get_number (form, "nf", _("Fasteners per m²"), FALSE, &c.fasteners_per_square_metre, error) ||
+      !form_get_number (form, "p", _("Precipitation"), FALSE, &c.precipitation, error) ||
+      !form_get_number (form, "f", _("Drainage factor"), FALSE, &c.drainage_factor, error))
+    return FALSE;
+  c.air_gap_level = (int) level;
+  next = lamina_edit_set_corrections (form_state (form), form_layer (form), &c, error);
+  return form_apply_next (form, next, NULL);
+}
+
+static GtkWidget *
+new_check (const char *label,
+           gboolean    active)
+{
+  GtkWidget *check = gtk_check_button_new ();
+
+  gtk_check_button_set_active (GTK_CHECK_BUTTON (check), active);
+  gtk_accessible_update_property (GTK_ACCESSIBLE (check), GTK_ACCESSIBLE_PROPERTY_LABEL, label, -1);
+  return check;
+}
+
+void
+lamina_editor_edit_corrections (LaminaEditor *self)
+{
+  Form *form = form_new (self, _("Corrections to U"), apply_corrections);
+  const LaminaLayer *layer = form_current_layer (form);
+  LaminaCorrections c = layer ? layer->corrections : (LaminaCorrections) { 0 };
+
+  form_add (form, "gaps", _("Air _gaps in this layer"), new_check (_("Air gaps"), c.has_air_gaps));
+  form_add_number (form, "level", _("Air gap _level (0–2)"), c.air_gap_level, 0);
+  form_add (form, "fasteners", _("_Fasteners through it"), new_check (_("Fasteners"), c.has_fasteners));
+  form_add_number (form, "lf", _("Fastener λ (W/(m·K))"), isnan (c.fastener_conductivity) || c.fastener_conductivity == 0 ? 50 : c.fastener_conductivity, 1);
+  form_add_number (form, "af", _("Cross-section (mm²)"), c.fastener_cross_section > 0 ? c.fastener_cross_section : 12.6, 1);
+  form_add_number (form, "nf", _("Fasteners per m²"), c.fasteners_per_square_metre > 0 ? c.fasteners_per_square_metre : 4, 1);
+  form_add (form, "inverted", _("_Inverted roof"), new_check (_("Inverted roof"), c.has_inverted_roof));
+  form_add_number (form, "p", _("Precipitation (mm/day)"), c.precipitation > 0 ? c.precipitation : 2, 1);
+  form_add_number (form, "f", _("Drainage factor f"), c.drainage_factor > 0 ? c.drainage_factor : 0.5, 2);
+  gtk_window_present (form->window);
+}

@@ -1,0 +1,107 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-editor-state.h: the edits the window can make to a construction,
+ * as pure functions.  Each takes the current state and returns a new one
+ * (the caller owns it); the input is never changed.  They return NULL with
+ * @error set (LAMINA_EDIT_ERROR, naming the layer or field) when the edit
+ * makes no sense.  No GTK: the window, undo/redo and the tests share them. */
+#pragma once
+
+#include "lamina-construction.h"
+
+G_BEGIN_DECLS
+
+#define LAMINA_EDIT_ERROR (lamina_edit_error_quark ())
+typedef enum
+{
+  LAMINA_EDIT_ERROR_NO_LAYER,  /* index out of range */
+  LAMINA_EDIT_ERROR_INVALID,   /* value out of range */
+} LaminaEditError;
+GQuark lamina_edit_error_quark (void);
+
+/* Thinnest layer the editor makes: 1 mm at the coarse step, the fine step
+ * below that (EN ISO 6946 has no minimum; thin membranes are ~0.2 mm). */
+#define LAMINA_EDIT_MIN_THICKNESS 0.1
+#define LAMINA_EDIT_MAX_THICKNESS 5000.0
+
+/* Rounds @thickness (mm) to the nearest multiple of @step (no rounding for
+ * @step ≤ 0), then clamps to at least one step (or the minimum). */
+double lamina_edit_snap (double thickness,
+                         double step);
+
+/* The thickness a boundary drag gives: the layer's thickness when the drag
+ * began plus the pointer travel converted to mm (@delta_px / @px_per_mm),
+ * snapped to @step. */
+double lamina_edit_drag_thickness (double start_thickness,
+                                   double delta_px,
+                                   double px_per_mm,
+                                   double step);
+
+LaminaConstruction *lamina_edit_set_thickness  (const LaminaConstruction *state,
+                                                guint                     index,
+                                                double                    thickness,
+                                                GError                  **error);
+/* Inserts a copy of @layer before @index (index = n appends). */
+LaminaConstruction *lamina_edit_insert_layer   (const LaminaConstruction *state,
+                                                guint                     index,
+                                                const LaminaLayer        *layer,
+                                                GError                  **error);
+LaminaConstruction *lamina_edit_remove_layer   (const LaminaConstruction *state,
+                                                guint                     index,
+                                                GError                  **error);
+/* The copy goes right after the original (outwards). */
+LaminaConstruction *lamina_edit_duplicate_layer (const LaminaConstruction *state,
+                                                 guint                     index,
+                                                 GError                  **error);
+/* Moves layer @from so that it ends at position @to. */
+LaminaConstruction *lamina_edit_move_layer     (const LaminaConstruction *state,
+                                                guint                     from,
+                                                guint                     to,
+                                                GError                  **error);
+/* A homogeneous layer of @material (copied); keeps the thickness. */
+LaminaConstruction *lamina_edit_set_material   (const LaminaConstruction *state,
+                                                guint                     index,
+                                                const LaminaMaterial     *material,
+                                                GError                  **error);
+/* A bridged layer: the layer's material (or @infill when the layer has
+ * none) fills between framing members of @framing, @width mm wide at
+ * @spacing mm centres, named @member. */
+LaminaConstruction *lamina_edit_make_bridged   (const LaminaConstruction *state,
+                                                guint                     index,
+                                                const LaminaMaterial     *infill,
+                                                const LaminaMaterial     *framing,
+                                                double                    width,
+                                                double                    spacing,
+                                                const char               *member,
+                                                GError                  **error);
+/* An air layer of class @air; Av in mm² per m (NAN = not given); face
+ * emissivities default to 0.9 when NAN. */
+LaminaConstruction *lamina_edit_make_air       (const LaminaConstruction *state,
+                                                guint                     index,
+                                                LaminaAirKind             air,
+                                                double                    vent_area,
+                                                double                    emissivity_inner,
+                                                double                    emissivity_outer,
+                                                GError                  **error);
+/* A layer with a declared thermal resistance (m²·K/W). */
+LaminaConstruction *lamina_edit_make_declared  (const LaminaConstruction *state,
+                                                guint                     index,
+                                                double                    resistance,
+                                                GError                  **error);
+LaminaConstruction *lamina_edit_set_corrections (const LaminaConstruction *state,
+                                                 guint                     index,
+                                                 const LaminaCorrections  *corrections,
+                                                 GError                  **error);
+/* Design conditions in °C and target U (NAN = none). */
+LaminaConstruction *lamina_edit_set_conditions (const LaminaConstruction *state,
+                                                double                    inside,
+                                                double                    outside,
+                                                double                    target_u,
+                                                GError                  **error);
+/* NULL leaves a field as it is. */
+LaminaConstruction *lamina_edit_set_names      (const LaminaConstruction *state,
+                                                const char               *code,
+                                                const char               *name,
+                                                const char               *description,
+                                                GError                  **error);
+
+G_END_DECLS

@@ -1,0 +1,39 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-editor.h: the editor of one construction: header, section view,
+ * layer stack and results.  Every change goes through the pure functions
+ * of lamina-editor-state.h into the LaminaDocument, which saves it. */
+#pragma once
+
+#include <gtk/gtk.h>
+
+#include "lamina-document.h"
+#include "lamina-results-view.h"
+#include "lamina-section-view.h"
+
+G_BEGIN_DECLS
+
+#define LAMINA_TYPE_EDITOR (lamina_editor_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaEditor, lamina_editor, LAMINA, EDITOR, GtkWidget)
+
+void               lamina_editor_set_document    (LaminaEditor   *self,
+                                                  LaminaDocument *document);
+LaminaDocument    *lamina_editor_get_document    (LaminaEditor   *self);
+LaminaSectionView *lamina_editor_get_section_view (LaminaEditor  *self);
+LaminaResultsView *lamina_editor_get_results_view (LaminaEditor  *self);
+void               lamina_editor_set_snap_step   (LaminaEditor   *self,
+                                                  double          step);
+/* Resizes layer @index: what the section view's drag, the keyboard and the
+ * thickness fields all call.  @live while a drag is under way (saved when
+ * the drag ends). */
+void               lamina_editor_resize_layer    (LaminaEditor   *self,
+                                                  guint           index,
+                                                  double          thickness,
+                                                  gboolean        live);
+int                lamina_editor_get_selected_layer (LaminaEditor *self);
+/* Applies the result of a pure edit (takes @next; NULL shows @error). */
+void               lamina_editor_apply           (LaminaEditor       *self,
+                                                  LaminaConstruction *next,
+                                                  const char         *group,
+                                                  GError             *error);
+
+G_END_DECLS

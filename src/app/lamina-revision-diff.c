@@ -1,0 +1,101 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "lamina-app"
+
+#include "config.h"
+
+#include "lamina-revision-diff.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+#include "lamina-text.h"
+
+static gboolean
+same (double a,
+      double b)
+{
+  return (isnan (a) && isnan (b)) || fabs (a - b) < 1e-9;
+}
+
+static void
+diff_number (GPtrArray  *out,
+             const char *what,
+             double      a,
+             double      b,
+             int         decimals)
+{
+  g_autofree char *x = NULL;
+  g_autofree char *y = NULL;
+
+  if (same (a, b))
+    return;
+  x = lamina_text_number (a, decimals);
+  y = lamina_text_number (b, decimals);
+  /* Translators: "Target U: 0.20 → 0.18" */
+  g_ptr_array_add (out, g_strdup_printf (_("%s: %s → %s"), what, x, y));
+}
+
+static void
+diff_text (GPtrArray  *out,
+           const char *what,
+           const char *a,
+           const char *b)
+{
+  if (g_strcmp0 (a, b) == 0)
+    return;
+  g_ptr_array_add (out, g_strdup_printf (_("%s: “%s” → “%s”"), what, a ? a : "", b ? b : ""));
+}
+
+static void
+diff_layers (GPtrArray                *out,
+             const LaminaConstruction *older,
+             const LaminaConstruction *newer)
+{
+  guint n = MAX (older->layers->len, newer->layers->len);
+
+  for (guint i = 0; i < n; i++)
+    {
+      const LaminaLayer *a = i < older->layers->len ? older->layers->pdata[i] : NULL;
+      const LaminaLayer *b = i < newer->layers->len ? newer->layers->pdata[i] : NULL;
+
+      if (a == NULL)
+        g_ptr_array_add (out, g_strdup_printf (_("Layer %u added: %s"), i + 1, lamina_layer_get_label (b)));
+      else if (b == NULL)
+        g_ptr_array_add (out, g_strdup_printf (_("Layer %u removed: %s"), i + 1, lamina_layer_get_label (a)));
+      else if (!lamina_layer_equal (a, b))
+        {
+          if (g_strcmp0 (lamina_layer_get_label (a), lamina_layer_get_label (b)) != 0 || a->kind != b->kind)
+            g_ptr_array_add (out, g_strdup_printf (_("Layer %u: %s → %s"), i + 1,
+                                                   lamina_layer_get_label (a), lamina_layer_get_label (b)));
+          if (!same (a->thickness, b->thickness))
+            {
+              g_autofree char *x = lamina_text_mm (a->thickness);
+              g_autofree char *y = lamina_text_mm (b->thickness);
+
+              g_ptr_array_add (out, g_strdup_printf (_("Layer %u, %s: %s → %s"), i + 1,
+                                                     lamina_layer_get_label (b), x, y));
+            }
+          else if (g_strcmp0 (lamina_layer_get_label (a), lamina_layer_get_label (b)) == 0 && a->kind == b->kind)
+            g_ptr_array_add (out, g_strdup_printf (_("Layer %u, %s: data changed"), i + 1,
+                                                   lamina_layer_get_label (b)));
+        }
+    }
+}
+
+GPtrArray *
+lamina_revision_diff (const LaminaConstruction *older,
+                      const LaminaConstruction *newer)
+{
+  GPtrArray *out = g_ptr_array_new_with_free_func (g_free);
+
+  g_return_val_if_fail (older != NULL && newer != NULL, out);
+
+  diff_text (out, _("Code"), older->code, newer->code);
+  diff_text (out, _("Name"), older->name, newer->name);
+  diff_text (out, _("Description"), older->description, newer->description);
+  diff_number (out, _("Target U"), older->target_u, newer->target_u, 2);
+  diff_number (out, _("Inside temperature"), older->inside_temperature, newer->inside_temperature, 1);
+  diff_number (out, _("Outside temperature"), older->outside_temperature, newer->outside_temperature, 1);
+  diff_layers (out, older, newer);
+  return out;
+}

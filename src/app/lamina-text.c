@@ -1,0 +1,147 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "lamina-app"
+
+#include "config.h"
+
+#include "lamina-text.h"
+
+#include <glib/gi18n.h>
+#include <locale.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "lamina-calc.h"
+
+static const char *
+get_decimal_point (void)
+{
+  const struct lconv *conv = localeconv ();
+
+  return conv->decimal_point != NULL && *conv->decimal_point ? conv->decimal_point : ".";
+}
+
+char *
+lamina_text_number (double value,
+                      int    decimals)
+{
+  if (isnan (value))
+    return g_strdup ("–");
+  /* printf follows LC_NUMERIC, which gtk_init sets from the environment. */
+  return g_strdup_printf ("%.*f", decimals, value);
+}
+
+char *
+lamina_text_u (double value)
+{
+  double rounded;
+  int decimals;
+
+  if (isnan (value))
+    return g_strdup ("–");
+  if (value == 0.0)
+    return g_strdup_printf ("%.*f", 2, 0.0);
+  rounded = lamina_round_significant (value, 2);
+  decimals = 1 - (int) floor (log10 (fabs (rounded)));
+  return g_strdup_printf ("%.*f", CLAMP (decimals, 0, 6), rounded);
+}
+
+char *
+lamina_text_mm (double value)
+{
+  if (isnan (value))
+    return g_strdup ("–");
+  if (fabs (value - round (value)) < 1e-6)
+    return g_strdup_printf ("%.0f mm", value);
+  return g_strdup_printf ("%.1f mm", value);
+}
+
+gboolean
+lamina_text_parse_number (const char *text,
+                     double     *value)
+{
+  g_autofree char *copy = NULL;
+  const char *point = get_decimal_point ();
+  char *end = NULL;
+  char *p;
+  double parsed;
+
+  g_return_val_if_fail (value != NULL, FALSE);
+
+  if (text == NULL)
+    return FALSE;
+  copy = g_strstrip (g_strdup (text));
+  if (*copy == '\0')
+    return FALSE;
+
+  /* Accept both the locale's separator and a point: people paste values
+   * from data sheets written in either notation.  A Unicode minus too. */
+  for (p = copy; *p; p++)
+    {
+      if (*p == ',' || (*p == '.' && strcmp (point, ".") != 0))
+        *p = '.';
+    }
+  if (g_str_has_prefix (copy, "−"))
+    {
+      char *minus = g_strconcat ("-", copy + strlen ("−"), NULL);
+
+      g_free (copy);
+      copy = minus;
+    }
+
+  parsed = g_ascii_strtod (copy, &end);
+  if (end == copy || !isfinite (parsed))
+    return FALSE;
+  while (*end == ' ')
+    end++;
+  /* A trailing unit is allowed but nothing numeric after the number. */
+  if (*end != '\0' && (g_ascii_isdigit (*end) || *end == '.' || *end == '-'))
+    return FALSE;
+  *value = parsed;
+  return TRUE;
+}
+
+gboolean
+lamina_text_is_blank (const char *text)
+{
+  if (text == NULL)
+    return TRUE;
+  for (; *text; text = g_utf8_next_char (text))
+    if (!g_unichar_isspace (g_utf8_get_char (text)))
+      return FALSE;
+  return TRUE;
+}
+
+const char *
+lamina_text_status_name (LaminaStatus status)
+{
+  switch (status)
+    {
+    case LAMINA_STATUS_CHECKED:
+      return C_("status", "Checked");
+    case LAMINA_STATUS_APPROVED:
+      return C_("status", "Approved");
+    case LAMINA_STATUS_DRAFT:
+    default:
+      return C_("status", "Draft");
+    }
+}
+
+const char *
+lamina_text_element_name (LaminaElement element)
+{
+  switch (element)
+    {
+    case LAMINA_ELEMENT_ROOF:
+      return _("Roof");
+    case LAMINA_ELEMENT_FLOOR:
+      return _("Floor");
+    case LAMINA_ELEMENT_CEILING:
+      return _("Ceiling");
+    case LAMINA_ELEMENT_PARTITION:
+      return _("Partition");
+    case LAMINA_ELEMENT_WALL:
+    default:
+      return _("Wall");
+    }
+}

@@ -1,0 +1,54 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-window-private.h: shared by lamina-window*.c. */
+#pragma once
+
+#include "lamina-document.h"
+#include "lamina-window.h"
+
+G_BEGIN_DECLS
+
+struct _LaminaWindow
+{
+  GtkApplicationWindow    parent_instance;
+
+  /* template */
+  GtkRevealer            *banner_revealer;
+  GtkLabel               *banner_label;
+  GtkPaned               *paned;
+  GtkSearchEntry         *search_entry;
+  GtkDropDown            *element_filter;
+  GtkDropDown            *status_filter;
+  GtkDropDown            *sort_dropdown;
+  GtkDropDown            *tag_filter;
+  GtkEntry               *min_u_entry;
+  GtkEntry               *max_u_entry;
+  GtkListView            *list_view;
+  GtkLabel               *count_label;
+  GtkStack               *main_stack;
+  LaminaEditor           *editor;
+  GtkRevealer            *toast_revealer;
+  GtkLabel               *toast_label;
+  GtkWidget              *toast_undo;
+
+  /* owned */
+  LaminaLibrary          *library;
+  LaminaConstructionList *list;
+  GtkSingleSelection     *selection;
+  LaminaDocument         *document;
+  GSettings              *settings;
+  GPtrArray              *tags;
+  GCancellable           *cancellable;
+  char                   *deleted_id;
+  char                   *notice;
+  guint                   toast_timeout;
+  gboolean                selecting;
+};
+
+void lamina_window_update_actions   (LaminaWindow *self);
+void lamina_window_refresh_list     (LaminaWindow *self);
+void lamina_window_install_actions  (GtkWidgetClass *widget_class);
+void lamina_window_show_undo_delete (LaminaWindow *self,
+                                     const char   *message,
+                                     const char   *id);
+
+G_END_DECLS

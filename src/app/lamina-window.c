@@ -1,0 +1,558 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "lamina-app"
+
+#include "config.h"
+
+#include "lamina-window-private.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+#include "lamina-construction-item.h"
+#include "lamina-text.h"
+
+G_DEFINE_FINAL_TYPE (LaminaWindow, lamina_window, GTK_TYPE_APPLICATION_WINDOW)
+
+/* List rows */
+
+typedef struct
+{
+  GtkLabel *code;
+  GtkLabel *name;
+  GtkLabel *detail;
+  GtkLabel *u;
+  GtkLabel *status;
+} RowWidgets;
+
+static void
+on_row_setup_cb (GtkSignalListItemFactory *factory,
+                 GtkListItem              *item,
+                 LaminaWindow             *self)
+{
+  RowWidgets *w = g_new0 (RowWidgets, 1);
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10);
+  GtkWidget *left = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
+  GtkWidget *right = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
+  GtkWidget *top = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
+
+  w->code = GTK_LABEL (gtk_label_new (NULL));
+  w->name = GTK_LABEL (gtk_label_new (NULL));
+  w->detail = GTK_LABEL (gtk_label_new (NULL));
+  w->u = GTK_LABEL (gtk_label_new (NULL));
+  w->status = GTK_LABEL (gtk_label_new (NULL));
+  gtk_widget_add_css_class (GTK_WIDGET (w->code), "lamina-row-code");
+  gtk_label_set_ellipsize (w->name, PANGO_ELLIPSIZE_END);
+  gtk_label_set_xalign (w->name, 0);
+  gtk_widget_set_hexpand (GTK_WIDGET (w->name), TRUE);
+  gtk_label_set_xalign (w->detail, 0);
+  gtk_widget_add_css_class (GTK_WIDGET (w->detail), "dim-label");
+  gtk_widget_add_css_class (GTK_WIDGET (w->detail), "caption");
+  gtk_label_set_xalign (w->u, 1);
+  gtk_widget_add_css_class (GTK_WIDGET (w->u), "lamina-row-u");
+  gtk_widget_add_css_class (GTK_WIDGET (w->status), "lamina-status");
+  gtk_widget_set_halign (GTK_WIDGET (w->status), GTK_ALIGN_END);
+
+  gtk_box_append (GTK_BOX (top), GTK_WIDGET (w->code));
+  gtk_box_append (GTK_BOX (top), GTK_WIDGET (w->name));
+  gtk_box_append (GTK_BOX (left), top);
+  gtk_box_append (GTK_BOX (left), GTK_WIDGET (w->detail));
+  gtk_widget_set_hexpand (left, TRUE);
+  gtk_box_append (GTK_BOX (right), GTK_WIDGET (w->u));
+  gtk_box_append (GTK_BOX (right), GTK_WIDGET (w->status));
+  gtk_box_append (GTK_BOX (box), left);
+  gtk_box_append (GTK_BOX (box), right);
+  gtk_widget_add_css_class (box, "lamina-library-row");
+  gtk_list_item_set_child (item, box);
+  g_object_set_data_full (G_OBJECT (item), "lamina-row", w, g_free);
+}
+
+static void
+on_row_bind_cb (GtkSignalListItemFactory *factory,
+                GtkListItem              *item,
+                LaminaWindow             *self)
+{
+  static const char *status_classes[] = { "draft", "checked", "approved" };
+  RowWidgets *w = g_object_get_data (G_OBJECT (item), "lamina-row");
+  LaminaConstructionItem *row = gtk_list_item_get_item (item);
+  const LaminaSummary *s;
+  g_autofree char *u = NULL;
+  g_autofree char *u_text = NULL;
+  g_autofree char *mm = NULL;
+  g_autofree char *detail = NULL;
+  g_autofree char *accessible = NULL;
+  GtkWidget *child = gtk_list_item_get_child (item);
+
+  if (row == NULL)
+    return;
+  s = lamina_construction_item_get_summary (row);
+  u = lamina_text_u (s->u_corrected);
+  u_text = g_strdup_printf ("U %s", u);
+  mm = lamina_text_mm (s->thickness);
+  detail = g_strdup_printf ("%s · %s%s", lamina_text_element_name (s->element), mm,
+                            (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _(" · material data changed") : "");
+  gtk_label_set_text (w->code, s->code ? s->code : "—");
+  gtk_label_set_text (w->name, s->name);
+  gtk_label_set_text (w->detail, detail);
+  gtk_label_set_text (w->u, u_text);
+  gtk_label_set_text (w->status, lamina_text_status_name (s->status));
+  for (guint i = 0; i < G_N_ELEMENTS (status_classes); i++)
+    gtk_widget_remove_css_class (GTK_WIDGET (w->status), status_classes[i]);
+  gtk_widget_add_css_class (GTK_WIDGET (w->status), status_classes[s->status % 3]);
+  if (s->flags & LAMINA_SUMMARY_TARGET_NOT_MET)
+    gtk_widget_add_css_class (GTK_WIDGET (w->u), "not-met");
+  else
+    gtk_widget_remove_css_class (GTK_WIDGET (w->u), "not-met");
+  if (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED)
+    gtk_widget_add_css_class (GTK_WIDGET (w->detail), "lamina-warning");
+  else
+    gtk_widget_remove_css_class (GTK_WIDGET (w->detail), "lamina-warning");
+
+  accessible = g_strdup_printf ("%s %s, %s, U %s, %s", s->code ? s->code : "", s->name,
+                                detail, u, lamina_text_status_name (s->status));
+  gtk_accessible_update_property (GTK_ACCESSIBLE (child), GTK_ACCESSIBLE_PROPERTY_LABEL, accessible, -1);
+}
+
+/* Selection */
+
+static void
+on_document_notice_cb (LaminaWindow *self,
+                       const char   *message)
+{
+  lamina_window_notify (self, message);
+  lamina_window_refresh_list (self);
+}
+
+static void
+on_document_conflict_cb (LaminaWindow *self)
+{
+  const char *conflict = self->document ? lamina_document_get_conflict (self->document) : NULL;
+
+  if (conflict != NULL)
+    {
+      g_autofree char *text = g_strdup_printf (_("Not saved: %s. Your version is kept on screen."), conflict);
+
+      gtk_label_set_text (self->banner_label, text);
+    }
+  gtk_revealer_set_reveal_child (self->banner_revealer, conflict != NULL);
+  lamina_window_update_actions (self);
+}
+
+static void
+on_document_changed_cb (LaminaWindow *self)
+{
+  lamina_window_update_actions (self);
+}
+
+static void
+set_document (LaminaWindow   *self,
+              LaminaDocument *document)
+{
+  if (self->document != NULL)
+    g_signal_handlers_disconnect_by_data (self->document, self);
+  g_set_object (&self->document, document);
+  if (document != NULL)
+    {
+      g_autofree char *reviewer = g_settings_get_string (self->settings, "reviewer-name");
+
+      lamina_document_set_author (document, reviewer);
+      g_signal_connect_object (document, "notice", G_CALLBACK (on_document_notice_cb), self, G_CONNECT_SWAPPED);
+      g_signal_connect_object (document, "notify::conflict", G_CALLBACK (on_document_conflict_cb), self, G_CONNECT_SWAPPED);
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed_cb), self, G_CONNECT_SWAPPED);
+    }
+  lamina_editor_set_document (self->editor, document);
+  gtk_stack_set_visible_child_name (self->main_stack, document ? "editor" : "empty");
+  on_document_conflict_cb (self);
+  lamina_window_update_actions (self);
+}
+
+gboolean
+lamina_window_open (LaminaWindow  *self,
+                    const char    *id,
+                    GError       **error)
+{
+  g_autoptr(LaminaDocument) document = NULL;
+  int position;
+
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), FALSE);
+
+  if (self->document != NULL)
+    lamina_document_commit (self->document, NULL);
+  document = lamina_document_new (self->library, id, error);
+  if (document == NULL)
+    return FALSE;
+  set_document (self, document);
+
+  position = lamina_construction_list_find (self->list, id);
+  if (position >= 0 && gtk_single_selection_get_selected (self->selection) != (guint) position)
+    {
+      self->selecting = TRUE;
+      gtk_single_selection_set_selected (self->selection, (guint) position);
+      self->selecting = FALSE;
+    }
+  return TRUE;
+}
+
+static void
+on_selection_changed_cb (LaminaWindow *self)
+{
+  LaminaConstructionItem *item = gtk_single_selection_get_selected_item (self->selection);
+  g_autoptr(GError) error = NULL;
+
+  if (self->selecting || item == NULL)
+    return;
+  if (self->document != NULL &&
+      g_strcmp0 (lamina_document_get_id (self->document), lamina_construction_item_get_id (item)) == 0)
+    return;
+  if (!lamina_window_open (self, lamina_construction_item_get_id (item), &error))
+    lamina_window_notify (self, error->message);
+}
+
+static void
+update_count (LaminaWindow *self)
+{
+  guint n = g_list_model_get_n_items (G_LIST_MODEL (self->list));
+  g_autofree char *text = g_strdup_printf (g_dngettext (NULL, "%u construction", "%u constructions", n), n);
+
+  gtk_label_set_text (self->count_label, text);
+}
+
+void
+lamina_window_refresh_list (LaminaWindow *self)
+{
+  const char *id = self->document ? lamina_document_get_id (self->document) : NULL;
+  int position;
+
+  self->selecting = TRUE;
+  lamina_construction_list_refresh (self->list);
+  position = id ? lamina_construction_list_find (self->list, id) : -1;
+  gtk_single_selection_set_selected (self->selection,
+                                     position >= 0 ? (guint) position : GTK_INVALID_LIST_POSITION);
+  self->selecting = FALSE;
+  update_count (self);
+}
+
+/* Filters */
+
+static void
+on_search_changed_cb (LaminaWindow *self)
+{
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (self->search_entry));
+
+  self->selecting = TRUE;
+  lamina_construction_list_set_text (self->list, text);
+  self->selecting = FALSE;
+  lamina_window_refresh_list (self);
+}
+
+void
+lamina_window_set_search (LaminaWindow *self,
+                          const char   *text)
+{
+  g_return_if_fail (LAMINA_IS_WINDOW (self));
+  gtk_editable_set_text (GTK_EDITABLE (self->search_entry), text);
+  on_search_changed_cb (self);
+}
+
+static void
+on_filters_changed_cb (LaminaWindow *self)
+{
+  guint element = gtk_drop_down_get_selected (self->element_filter);
+  guint status = gtk_drop_down_get_selected (self->status_filter);
+  guint sort = gtk_drop_down_get_selected (self->sort_dropdown);
+  guint tag = gtk_drop_down_get_selected (self->tag_filter);
+  double min_u = NAN, max_u = NAN;
+  static const LaminaSortKey sorts[] = {
+    LAMINA_SORT_CODE, LAMINA_SORT_NAME, LAMINA_SORT_U, LAMINA_SORT_THICKNESS, LAMINA_SORT_MODIFIED,
+  };
+
+  if (!lamina_text_parse_number (gtk_editable_get_text (GTK_EDITABLE (self->min_u_entry)), &min_u))
+    min_u = NAN;
+  if (!lamina_text_parse_number (gtk_editable_get_text (GTK_EDITABLE (self->max_u_entry)), &max_u))
+    max_u = NAN;
+
+  self->selecting = TRUE;
+  lamina_construction_list_set_element (self->list, element == 0 || element == GTK_INVALID_LIST_POSITION ? -1 : (int) element - 1);
+  lamina_construction_list_set_status (self->list, status == 0 || status == GTK_INVALID_LIST_POSITION ? -1 : (int) status - 1);
+  lamina_construction_list_set_tag (self->list, tag == 0 || tag == GTK_INVALID_LIST_POSITION || self->tags == NULL || tag > self->tags->len
+                                    ? NULL : g_ptr_array_index (self->tags, tag - 1));
+  lamina_construction_list_set_u_range (self->list, min_u, max_u);
+  lamina_construction_list_set_sort (self->list, sorts[MIN (sort, G_N_ELEMENTS (sorts) - 1)],
+                                     sort == 4 /* newest first */);
+  self->selecting = FALSE;
+  lamina_window_refresh_list (self);
+}
+
+static void
+set_strings (GtkDropDown *dropdown,
+             const char  *first,
+             ...)
+{
+  g_autoptr(GtkStringList) list = gtk_string_list_new (NULL);
+  va_list args;
+
+  va_start (args, first);
+  for (const char *s = first; s != NULL; s = va_arg (args, const char *))
+    gtk_string_list_append (list, s);
+  va_end (args);
+  gtk_drop_down_set_model (dropdown, G_LIST_MODEL (list));
+}
+
+static void
+load_tags (LaminaWindow *self)
+{
+  g_autoptr(GtkStringList) list = gtk_string_list_new (NULL);
+
+  g_clear_pointer (&self->tags, g_ptr_array_unref);
+  self->tags = lamina_library_list_tags (self->library, NULL);
+  gtk_string_list_append (list, _("Any tag"));
+  for (guint i = 0; self->tags != NULL && i < self->tags->len; i++)
+    gtk_string_list_append (list, g_ptr_array_index (self->tags, i));
+  gtk_drop_down_set_model (self->tag_filter, G_LIST_MODEL (list));
+}
+
+static void
+setup_filters (LaminaWindow *self)
+{
+  set_strings (self->element_filter, _("All elements"), _("Walls"), _("Roofs"), _("Floors"),
+               _("Ceilings"), _("Partitions"), NULL);
+  set_strings (self->status_filter, _("Any status"), C_("status", "Draft"), C_("status", "Checked"),
+               C_("status", "Approved"), NULL);
+  set_strings (self->sort_dropdown, _("Code"), _("Name"), _("U value"), _("Thickness"),
+               _("Newest first"), NULL);
+  load_tags (self);
+
+  g_signal_connect_object (self->search_entry, "search-changed", G_CALLBACK (on_search_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->element_filter, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->status_filter, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->sort_dropdown, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->tag_filter, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->min_u_entry, "changed", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->max_u_entry, "changed", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
+}
+
+/* Messages */
+
+static gboolean
+on_toast_timeout_cb (gpointer data)
+{
+  LaminaWindow *self = data;
+
+  self->toast_timeout = 0;
+  gtk_revealer_set_reveal_child (self->toast_revealer, FALSE);
+  return G_SOURCE_REMOVE;
+}
+
+void
+lamina_window_notify (LaminaWindow *self,
+                      const char   *message)
+{
+  g_return_if_fail (LAMINA_IS_WINDOW (self));
+
+  g_free (self->notice);
+  self->notice = g_strdup (message);
+  gtk_label_set_text (self->toast_label, message);
+  gtk_widget_set_visible (self->toast_undo, FALSE);
+  gtk_revealer_set_reveal_child (self->toast_revealer, TRUE);
+  g_clear_handle_id (&self->toast_timeout, g_source_remove);
+  self->toast_timeout = g_timeout_add_seconds (8, on_toast_timeout_cb, self);
+}
+
+void
+lamina_window_show_undo_delete (LaminaWindow *self,
+                                const char   *message,
+                                const char   *id)
+{
+  lamina_window_notify (self, message);
+  g_free (self->deleted_id);
+  self->deleted_id = g_strdup (id);
+  gtk_widget_set_visible (self->toast_undo, id != NULL);
+  lamina_window_update_actions (self);
+}
+
+const char *
+lamina_window_get_notice (LaminaWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
+  return self->notice;
+}
+
+/* Window state */
+
+static void
+on_snap_step_changed_cb (LaminaWindow *self)
+{
+  lamina_editor_set_snap_step (self->editor, g_settings_get_double (self->settings, "snap-step"));
+}
+
+static void
+on_reviewer_changed_cb (LaminaWindow *self)
+{
+  g_autofree char *reviewer = g_settings_get_string (self->settings, "reviewer-name");
+
+  if (self->document != NULL)
+    lamina_document_set_author (self->document, reviewer);
+  lamina_window_update_actions (self);
+}
+
+static void
+on_library_changed_cb (LaminaWindow *self)
+{
+  update_count (self);
+}
+
+static gboolean
+lamina_window_close_request (GtkWindow *window)
+{
+  LaminaWindow *self = LAMINA_WINDOW (window);
+  int width, height;
+
+  /* Nothing to ask: every edit is already in the library; a drag in
+   * progress is committed here. */
+  if (self->document != NULL)
+    lamina_document_commit (self->document, NULL);
+  gtk_window_get_default_size (window, &width, &height);
+  g_settings_set_int (self->settings, "window-width", width);
+  g_settings_set_int (self->settings, "window-height", height);
+  g_settings_set_boolean (self->settings, "window-maximized", gtk_window_is_maximized (window));
+  g_cancellable_cancel (self->cancellable);
+
+  return GTK_WINDOW_CLASS (lamina_window_parent_class)->close_request (window);
+}
+
+static void
+lamina_window_dispose (GObject *object)
+{
+  LaminaWindow *self = LAMINA_WINDOW (object);
+
+  g_clear_handle_id (&self->toast_timeout, g_source_remove);
+  if (self->document != NULL)
+    g_signal_handlers_disconnect_by_data (self->document, self);
+  g_clear_object (&self->document);
+  if (self->cancellable != NULL)
+    g_cancellable_cancel (self->cancellable);
+  gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_WINDOW);
+  g_clear_object (&self->selection);
+  g_clear_object (&self->list);
+  g_clear_object (&self->library);
+  g_clear_object (&self->settings);
+  g_clear_object (&self->cancellable);
+
+  G_OBJECT_CLASS (lamina_window_parent_class)->dispose (object);
+}
+
+static void
+lamina_window_finalize (GObject *object)
+{
+  LaminaWindow *self = LAMINA_WINDOW (object);
+
+  g_clear_pointer (&self->tags, g_ptr_array_unref);
+  g_clear_pointer (&self->deleted_id, g_free);
+  g_clear_pointer (&self->notice, g_free);
+
+  G_OBJECT_CLASS (lamina_window_parent_class)->finalize (object);
+}
+
+static void
+lamina_window_class_init (LaminaWindowClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  object_class->dispose = lamina_window_dispose;
+  object_class->finalize = lamina_window_finalize;
+  GTK_WINDOW_CLASS (klass)->close_request = lamina_window_close_request;
+
+  g_type_ensure (LAMINA_TYPE_EDITOR);
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-window.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, banner_revealer);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, banner_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, paned);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, search_entry);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, element_filter);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, status_filter);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, sort_dropdown);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, tag_filter);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, min_u_entry);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, max_u_entry);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, list_view);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, count_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, main_stack);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, editor);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_revealer);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_undo);
+
+  lamina_window_install_actions (widget_class);
+}
+
+static void
+lamina_window_init (LaminaWindow *self)
+{
+  gtk_widget_init_template (GTK_WIDGET (self));
+  self->cancellable = g_cancellable_new ();
+  self->settings = g_settings_new (APP_ID);
+}
+
+LaminaWindow *
+lamina_window_new (LaminaApplication *application,
+                   LaminaLibrary     *library)
+{
+  LaminaWindow *self;
+  GtkListItemFactory *factory;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (library), NULL);
+
+  self = g_object_new (LAMINA_TYPE_WINDOW, "application", application, NULL);
+  self->library = g_object_ref (library);
+  self->list = lamina_construction_list_new (library);
+  self->selection = gtk_single_selection_new (g_object_ref (G_LIST_MODEL (self->list)));
+  gtk_single_selection_set_autoselect (self->selection, FALSE);
+  gtk_single_selection_set_can_unselect (self->selection, TRUE);
+  gtk_single_selection_set_selected (self->selection, GTK_INVALID_LIST_POSITION);
+  factory = gtk_signal_list_item_factory_new ();
+  g_signal_connect_object (factory, "setup", G_CALLBACK (on_row_setup_cb), self, 0);
+  g_signal_connect_object (factory, "bind", G_CALLBACK (on_row_bind_cb), self, 0);
+  gtk_list_view_set_factory (self->list_view, factory);
+  g_object_unref (factory);
+  gtk_list_view_set_model (self->list_view, GTK_SELECTION_MODEL (self->selection));
+  g_signal_connect_object (self->selection, "notify::selected",
+                           G_CALLBACK (on_selection_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (library, "changed", G_CALLBACK (on_library_changed_cb), self, G_CONNECT_SWAPPED);
+
+  setup_filters (self);
+  update_count (self);
+
+  gtk_window_set_default_size (GTK_WINDOW (self),
+                               g_settings_get_int (self->settings, "window-width"),
+                               g_settings_get_int (self->settings, "window-height"));
+  if (g_settings_get_boolean (self->settings, "window-maximized"))
+    gtk_window_maximize (GTK_WINDOW (self));
+  g_signal_connect_object (self->settings, "changed::snap-step", G_CALLBACK (on_snap_step_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->settings, "changed::reviewer-name", G_CALLBACK (on_reviewer_changed_cb), self, G_CONNECT_SWAPPED);
+  on_snap_step_changed_cb (self);
+  g_settings_bind (self->settings, "show-temperatures", self->editor, "show-temperatures", G_SETTINGS_BIND_DEFAULT);
+
+  set_document (self, NULL);
+  return self;
+}
+
+LaminaLibrary *
+lamina_window_get_library (LaminaWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
+  return self->library;
+}
+
+LaminaConstructionList *
+lamina_window_get_list (LaminaWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
+  return self->list;
+}
+
+LaminaEditor *
+lamina_window_get_editor (LaminaWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
+  return self->editor;
+}

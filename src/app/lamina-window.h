@@ -1,0 +1,41 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-window.h: the main window: the library list beside the editor. */
+#pragma once
+
+#include <gtk/gtk.h>
+
+#include "lamina-application.h"
+#include "lamina-construction-list.h"
+#include "lamina-editor.h"
+#include "store/lamina-library.h"
+
+G_BEGIN_DECLS
+
+#define LAMINA_TYPE_WINDOW (lamina_window_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaWindow, lamina_window, LAMINA, WINDOW, GtkApplicationWindow)
+
+LaminaWindow           *lamina_window_new          (LaminaApplication *application,
+                                                    LaminaLibrary     *library);
+LaminaLibrary          *lamina_window_get_library  (LaminaWindow      *self);
+LaminaConstructionList *lamina_window_get_list     (LaminaWindow      *self);
+LaminaEditor           *lamina_window_get_editor   (LaminaWindow      *self);
+/* Opens construction @id in the editor (and selects its row). */
+gboolean                lamina_window_open         (LaminaWindow      *self,
+                                                    const char        *id,
+                                                    GError           **error);
+void                    lamina_window_set_search   (LaminaWindow      *self,
+                                                    const char        *text);
+/* Shows a short message at the bottom of the window. */
+void                    lamina_window_notify       (LaminaWindow      *self,
+                                                    const char        *message);
+const char             *lamina_window_get_notice   (LaminaWindow      *self);
+/* Writes the open construction's sheet to @path (what the export action
+ * does after the file chooser). */
+gboolean                lamina_window_export_sheet (LaminaWindow      *self,
+                                                    const char        *path,
+                                                    GError           **error);
+gboolean                lamina_window_export_catalogue (LaminaWindow  *self,
+                                                        const char    *path,
+                                                        GError       **error);
+
+G_END_DECLS
