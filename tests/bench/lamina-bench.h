@@ -1,51 +1,97 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* Shared reporting for the benchmark programs: median and spread over
- * repeated runs, as a table row and as one JSON line per figure. */
+/* lamina-bench.h: what the benchmark programs share.
+ *
+ * Reporting: every figure is the median over repeated runs with its
+ * spread (max − min of the runs), printed as one table row and as one JSON
+ * line (name, value, unit, spread, floor, ratio, target, …) for tracking.
+ * Benchmarks print figures; they never fail because a machine is slow.
+ *
+ * Data: synthetic constructions made from a deterministic seed, so that
+ * construction i is the same in every run and at every library size. */
 #pragma once
 
 #include <glib.h>
 #include <stdio.h>
-#include <stdlib.h>
 
-#define LAMINA_BENCH_RUNS 7
+#include "lamina-construction.h"
 
-static int
-lamina_bench_cmp (const void *a,
-                  const void *b)
+G_BEGIN_DECLS
+
+/* Runs per figure; LAMINA_BENCH_RUNS in the environment overrides it
+ * (3 … 31). */
+#define LAMINA_BENCH_DEFAULT_RUNS 7
+#define LAMINA_BENCH_SEED         6946u
+
+typedef enum
 {
-  double x = *(const double *) a, y = *(const double *) b;
-  return (x > y) - (x < y);
-}
+  LAMINA_BENCH_AT_MOST,   /* lower is better: times, memory */
+  LAMINA_BENCH_AT_LEAST,  /* higher is better: rates */
+} LaminaBenchGoal;
 
-static inline double
-lamina_bench_median (double *samples,
-                     int     n)
+typedef struct
 {
-  qsort (samples, n, sizeof (double), lamina_bench_cmp);
-  return samples[n / 2];
-}
+  const char      *name;        /* "module.what[.nSIZE]" */
+  const char      *unit;
+  double           value;       /* median of the runs */
+  double           spread;      /* max − min of the runs */
+  double           p99;         /* 99th percentile of single operations, or NAN */
+  double           floor;       /* the cheapest way to do the same work, or NAN */
+  double           target;      /* or NAN */
+  double           p99_target;  /* or NAN */
+  LaminaBenchGoal  goal;
+  guint            runs;
+  guint            size;        /* items (constructions, queries, sheets), 0 = n/a */
+} LaminaBenchFigure;
 
-/* @floor_samples may be NULL; @target is the figure's target in @unit. */
-static inline void
-lamina_bench_report (const char *name,
-                     double     *samples,
-                     double     *floor_samples,
-                     const char *unit,
-                     double      target)
-{
-  double median = lamina_bench_median (samples, LAMINA_BENCH_RUNS);
-  double spread = samples[LAMINA_BENCH_RUNS - 1] - samples[0];
-  double floor_value = floor_samples ? lamina_bench_median (floor_samples, LAMINA_BENCH_RUNS) : 0;
-  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+guint    lamina_bench_runs       (void);
+double   lamina_bench_now_ms     (void);
+/* Sorts @values in place. */
+double   lamina_bench_median     (double            *values,
+                                  guint              n);
+double   lamina_bench_percentile (double            *values,
+                                  guint              n,
+                                  double             percent);
 
-  printf ("%-44s %12.3f %-6s ±%-10.3f target %-10g %s%s\n", name, median, unit, spread / 2, target,
-          median <= target ? "met" : "MISSED",
-          "");
-  if (floor_samples)
-    printf ("%-44s %12.3f %-6s ratio %.1f\n", "  floor", floor_value, unit, median / floor_value);
-  printf ("{\"name\":\"%s\",\"value\":%s,", name, g_ascii_dtostr (buf, sizeof buf, median));
-  printf ("\"unit\":\"%s\",\"spread\":%s,", unit, g_ascii_dtostr (buf, sizeof buf, spread));
-  printf ("\"floor\":%s,", floor_samples ? g_ascii_dtostr (buf, sizeof buf, floor_value) : "null");
-  printf ("\"ratio\":%s,", floor_samples ? g_ascii_dtostr (buf, sizeof buf, median / floor_value) : "null");
-  printf ("\"target\":%s}\n", g_ascii_dtostr (buf, sizeof buf, target));
-}
+/* A figure with NAN floor, targets and p99. */
+void     lamina_bench_figure_init (LaminaBenchFigure *figure,
+                                   const char        *name,
+                                   const char        *unit);
+/* value = median, spread = max − min of @runs (sorted in place). */
+void     lamina_bench_figure_set_runs (LaminaBenchFigure *figure,
+                                       double            *runs,
+                                       guint              n);
+void     lamina_bench_print      (const LaminaBenchFigure *figure);
+/* How a figure grows with the number of items: per step the ratio of the
+ * values and the exponent log(v2/v1)/log(n2/n1) (1 = linear, 0 = flat). */
+void     lamina_bench_print_growth (const char   *name,
+                                    const char   *unit,
+                                    const guint  *sizes,
+                                    const double *values,
+                                    guint         n);
+/* A line saying a figure was not measured, and why (also as JSON). */
+void     lamina_bench_print_skip (const char        *name,
+                                  const char        *reason);
+
+/* Peak resident memory of this process (VmHWM), in MB. */
+double   lamina_bench_peak_rss_mb (void);
+/* Current resident memory (VmRSS), in MB. */
+double   lamina_bench_rss_mb      (void);
+
+/* Where cached synthetic libraries go: $LAMINA_BENCH_CACHE, else the
+ * temporary folder. */
+const char *lamina_bench_cache_dir (void);
+
+/* ---- Synthetic data (lamina-bench-data.c) ---------------------------- */
+
+/* The invented materials the synthetic constructions use (owned array of
+ * LaminaMaterial*). */
+GPtrArray          *lamina_bench_dup_materials   (void);
+/* Construction @index of the synthetic library with @seed: 3 to 12
+ * layers, some bridged, every element kind, words in code, name,
+ * description and tags that prefix searches hit; always calculable. */
+LaminaConstruction *lamina_bench_make_construction (guint32 seed,
+                                                    guint   index);
+/* The fixed 12-layer wall with 3 bridged layers of the engine figure. */
+LaminaConstruction *lamina_bench_make_wall_12     (void);
+
+G_END_DECLS
