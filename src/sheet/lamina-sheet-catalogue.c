@@ -47,6 +47,23 @@ sheet_draw_cover (SheetContext *ctx,
   sheet_draw_footer (ctx);
 }
 
+/* Tag attributes are parsed by cairo in the C locale: no decimal comma. */
+static char *
+dup_link_attributes (double x,
+                     double y,
+                     double width,
+                     double height,
+                     guint  sheet)
+{
+  char a[G_ASCII_DTOSTR_BUF_SIZE], b[G_ASCII_DTOSTR_BUF_SIZE];
+  char c[G_ASCII_DTOSTR_BUF_SIZE], d[G_ASCII_DTOSTR_BUF_SIZE];
+
+  return g_strdup_printf ("rect=[%s %s %s %s] dest='sheet-%u'",
+                          g_ascii_formatd (a, sizeof a, "%.2f", x), g_ascii_formatd (b, sizeof b, "%.2f", y),
+                          g_ascii_formatd (c, sizeof c, "%.2f", width),
+                          g_ascii_formatd (d, sizeof d, "%.2f", height), sheet);
+}
+
 guint
 sheet_index_rows_per_page (const SheetContext *ctx,
                            gboolean            first_page)
@@ -95,8 +112,7 @@ sheet_draw_index (SheetContext          *ctx,
                                                   sheet_status_label (e->status));
 
       g_snprintf (page, sizeof page, "%u", first_sheet_page + first + i);
-      link = g_strdup_printf ("rect=[%.2f %.2f %.2f %.2f] dest='sheet-%u'",
-                              ctx->left, y - 2, w, INDEX_ROW, first + i + 1);
+      link = dup_link_attributes (ctx->left, y - 2, w, INDEX_ROW, first + i + 1);
       cairo_tag_begin (cr, CAIRO_TAG_LINK, link);
       sheet_text_line (ctx, SHEET_FONT_BOLD, e->code, ctx->left, y, x_name - ctx->left - 6, PANGO_ALIGN_LEFT);
       sheet_text_line (ctx, SHEET_FONT_BODY, e->name, x_name, y, x_element - x_name - 8, PANGO_ALIGN_LEFT);

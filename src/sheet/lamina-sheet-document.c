@@ -240,8 +240,10 @@ write_pages (cairo_surface_t          *surface,
     {
       g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
       g_autoptr(LaminaResult) r = NULL;
+      /* Named destinations: cairo 1.16 drops a "page=" link to a page
+       * that is not written yet. */
       g_autofree char *dest = g_strdup_printf ("dest='sheet-%u'", i + 1);
-      g_autofree char *name = g_strdup_printf ("name='sheet-%u' x=0 y=0", i + 1);
+      g_autofree char *name = g_strdup_printf ("name='sheet-%u'", i + 1);
 
       if (c == NULL || (r = calculate (c, error)) == NULL)
         {
@@ -251,10 +253,10 @@ write_pages (cairo_surface_t          *surface,
       if (!source->front_matter)
         set_metadata (surface, &ctx, c->name);
       ctx.page = first_sheet + i;
-      cairo_tag_begin (cr, CAIRO_TAG_DEST, name);
-      cairo_tag_end (cr, CAIRO_TAG_DEST);
       add_sheet_outline (surface, parents, c, dest);
+      ctx.dest = name;
       sheet_draw_page (&ctx, c, r);
+      ctx.dest = NULL;
       cairo_show_page (cr);
       if (progress)
         progress (progress_data, i + 1, source->n);

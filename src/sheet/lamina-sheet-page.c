@@ -104,7 +104,11 @@ draw_header (SheetContext             *ctx,
                    w * 0.4, PANGO_ALIGN_RIGHT);
   set_black (ctx);
   y += 12;
+  if (ctx->dest)
+    cairo_tag_begin (cr, CAIRO_TAG_DEST, ctx->dest);
   sheet_text_line (ctx, SHEET_FONT_CODE, c->code ? c->code : c->id, ctx->left, y, w, PANGO_ALIGN_LEFT);
+  if (ctx->dest)
+    cairo_tag_end (cr, CAIRO_TAG_DEST);
   y += 25;
   y += sheet_text (ctx, SHEET_FONT_TITLE, c->name, ctx->left, y, w, PANGO_ALIGN_LEFT) + 8;
 

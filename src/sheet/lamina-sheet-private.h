@@ -46,6 +46,7 @@ typedef struct
   double                    left, right, top, bottom; /* content box */
   double                    grey;                   /* secondary text */
   guint                     page, n_pages;
+  const char               *dest;         /* named destination of the page */
   char                      printed[32];
 } SheetContext;
 
