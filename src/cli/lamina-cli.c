@@ -29,6 +29,9 @@ static const Command commands[] = {
   { "history", lamina_cli_history, N_("The revisions of a construction") },
   { "materials", lamina_cli_materials, N_("The materials of the library") },
   { "demo", lamina_cli_demo, N_("Fill an empty library with the demo build-ups") },
+  { "section", lamina_cli_section, N_("Draw a construction's section to a PNG image") },
+  { "sheet", lamina_cli_sheet, N_("Print a construction's specification sheet to PDF") },
+  { "catalogue", lamina_cli_catalogue, N_("Print a catalogue of sheets, with index, to PDF") },
 };
 
 void
