@@ -53,7 +53,7 @@ typedef enum
 GQuark lamina_library_error_quark (void);
 
 /* The schema version this build writes (PRAGMA user_version). */
-#define LAMINA_LIBRARY_SCHEMA_VERSION 2
+#define LAMINA_LIBRARY_SCHEMA_VERSION 3
 
 typedef enum
 {

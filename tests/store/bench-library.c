@@ -85,6 +85,9 @@ main (int    argc,
   printf ("prefix search as typed (page of 50 + count), %u queries: median %.2f ms, "
           "90th %.2f ms, max %.2f ms\n", n_times, times[n_times / 2],
           times[n_times * 9 / 10], times[n_times - 1]);
-  g_remove (path);
+  if (g_getenv ("LAMINA_BENCH_KEEP") != NULL)
+    printf ("library kept at %s\n", path);
+  else
+    g_remove (path);
   return 0;
 }
