@@ -82,7 +82,8 @@ sheet_draw_index (SheetContext          *ctx,
 {
   cairo_t *cr = ctx->cr;
   double w = ctx->right - ctx->left, y = ctx->top;
-  double x_name = ctx->left + 56, x_element = ctx->right - 200, x_u = ctx->right - 100;
+  double x_name = ctx->left + 56, x_element = ctx->right - 236, x_status = ctx->right - 178;
+  double x_u = ctx->right - 96;
   double x_d = ctx->right - 56, x_page = ctx->right;
   guint rows = sheet_index_rows_per_page (ctx, first == 0), i;
 
@@ -95,6 +96,7 @@ sheet_draw_index (SheetContext          *ctx,
   sheet_text_line (ctx, SHEET_FONT_LABEL, _("CODE"), ctx->left, y, 0, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_LABEL, _("NAME"), x_name, y, 0, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_LABEL, _("ELEMENT"), x_element, y, 0, PANGO_ALIGN_LEFT);
+  sheet_text_line (ctx, SHEET_FONT_LABEL, _("STATUS"), x_status, y, 0, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_LABEL, _("U  W/(m²·K)"), x_u, y, 0, PANGO_ALIGN_RIGHT);
   sheet_text_line (ctx, SHEET_FONT_LABEL, _("d  mm"), x_d, y, 0, PANGO_ALIGN_RIGHT);
   sheet_text_line (ctx, SHEET_FONT_LABEL, _("PAGE"), x_page, y, 0, PANGO_ALIGN_RIGHT);
@@ -108,15 +110,16 @@ sheet_draw_index (SheetContext          *ctx,
       const SheetIndexEntry *e = &entries[first + i];
       char u[LAMINA_FORMAT_SIZE], d[LAMINA_FORMAT_SIZE], page[16];
       g_autofree char *link = NULL;
-      g_autofree char *element = g_strdup_printf ("%s · %s", sheet_element_label (e->element),
-                                                  sheet_status_label (e->status));
 
       g_snprintf (page, sizeof page, "%u", first_sheet_page + first + i);
       link = dup_link_attributes (ctx->left, y - 2, w, INDEX_ROW, first + i + 1);
       cairo_tag_begin (cr, CAIRO_TAG_LINK, link);
       sheet_text_line (ctx, SHEET_FONT_BOLD, e->code, ctx->left, y, x_name - ctx->left - 6, PANGO_ALIGN_LEFT);
       sheet_text_line (ctx, SHEET_FONT_BODY, e->name, x_name, y, x_element - x_name - 8, PANGO_ALIGN_LEFT);
-      sheet_text_line (ctx, SHEET_FONT_BODY, element, x_element, y, x_u - x_element - 40, PANGO_ALIGN_LEFT);
+      sheet_text_line (ctx, SHEET_FONT_BODY, sheet_element_label (e->element), x_element, y,
+                       x_status - x_element - 4, PANGO_ALIGN_LEFT);
+      sheet_text_line (ctx, SHEET_FONT_BODY, sheet_status_label (e->status), x_status, y,
+                       x_u - x_status - 40, PANGO_ALIGN_LEFT);
       sheet_text_line (ctx, SHEET_FONT_BODY, lamina_format_u (u, e->u), x_u, y, 0, PANGO_ALIGN_RIGHT);
       sheet_text_line (ctx, SHEET_FONT_BODY, lamina_format_thickness (d, e->thickness), x_d, y, 0,
                        PANGO_ALIGN_RIGHT);

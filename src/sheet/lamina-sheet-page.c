@@ -333,7 +333,7 @@ draw_value_row (SheetContext *ctx,
 {
   sheet_text_line (ctx, SHEET_FONT_BOLD, symbol, x, y, 0, PANGO_ALIGN_LEFT);
   set_grey (ctx);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, label, x + 22, y + 1, width * 0.5, PANGO_ALIGN_LEFT);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, label, x + 22, y + 1, width * 0.78 - 56, PANGO_ALIGN_LEFT);
   set_black (ctx);
   sheet_text_line (ctx, SHEET_FONT_BODY, value, x + width * 0.78, y, 0, PANGO_ALIGN_RIGHT);
   set_grey (ctx);
@@ -390,7 +390,7 @@ draw_results (SheetContext             *ctx,
   double w = ctx->right - ctx->left, col = w * 0.36, x2 = ctx->left + col + 12;
   char v[LAMINA_FORMAT_SIZE], h[LAMINA_FORMAT_SIZE];
   const char *rk = "m²·K/W", *uk = "W/(m²·K)";
-  g_autofree char *rsi_label = g_strdup_printf (_("inside surface, heat flow %s"),
+  g_autofree char *rsi_label = g_strdup_printf (_("inside, heat flow %s"),
                                                 lamina_heat_flow_to_string (r->heat_flow));
   g_autofree char *e_label = NULL;
 
@@ -441,9 +441,8 @@ dup_warnings_text (const LaminaResult *r)
       const LaminaWarning *warning = r->warnings->pdata[i];
       if (text->len)
         g_string_append_c (text, '\n');
+      /* The engine's sentences name the layer themselves. */
       g_string_append (text, "⚠  ");
-      if (warning->layer > 0)
-        g_string_append_printf (text, _("Layer %d: "), warning->layer);
       g_string_append (text, warning->message);
     }
   return g_string_free (text, FALSE);
@@ -486,7 +485,8 @@ draw_block (SheetContext *ctx,
   y += 13;
   sheet_text_set (ctx, SHEET_FONT_BODY, text, w, NULL, &h);
   /* Too long for the page: cut with an ellipsis; the library keeps it all. */
-  pango_layout_set_height (ctx->layout, (int) (MAX (max_height, 10) * PANGO_SCALE));
+  /* A point of slack: the cut is for real overflow, not rounding. */
+  pango_layout_set_height (ctx->layout, (int) ((MAX (max_height, 10) + 1) * PANGO_SCALE));
   pango_layout_set_ellipsize (ctx->layout, PANGO_ELLIPSIZE_END);
   cairo_move_to (ctx->cr, ctx->left, y);
   pango_cairo_show_layout (ctx->cr, ctx->layout);
@@ -515,8 +515,8 @@ sheet_draw_page (SheetContext             *ctx,
   method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, get_method_text ());
 
   /* The section takes the height left, within bounds. */
-  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - notes_h - GAP;
-  section_h = CLAMP (room, page_h * 0.2, page_h * 0.36);
+  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - notes_h - 2 * GAP - 6;
+  section_h = CLAMP (room, page_h * 0.2, page_h * 0.4);
   y = draw_section (ctx, c, result, y, section_h);
   y = draw_layer_table (ctx, c, result, y);
   y = draw_results (ctx, c, result, y);
