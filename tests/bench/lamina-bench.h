@@ -44,7 +44,9 @@ typedef struct
 } LaminaBenchFigure;
 
 guint    lamina_bench_runs       (void);
+/* Milliseconds of process CPU time (or wall time, LAMINA_BENCH_CLOCK=wall). */
 double   lamina_bench_now_ms     (void);
+const char *lamina_bench_clock_name (void);
 /* Sorts @values in place. */
 double   lamina_bench_median     (double            *values,
                                   guint              n);
