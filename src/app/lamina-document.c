@@ -137,6 +137,11 @@ take_state (LaminaDocument     *self,
   g_clear_pointer (&self->state, lamina_construction_free);
   self->state = state;
   recalculate (self);
+}
+
+static void
+emit_changed (LaminaDocument *self)
+{
   g_signal_emit (self, signals[CHANGED], 0);
 }
 
@@ -202,6 +207,7 @@ load (LaminaDocument  *self,
   lamina_undo_stack_clear (self->undo);
   set_conflict (self, NULL);
   take_state (self, state);
+  emit_changed (self);
   return TRUE;
 }
 
@@ -295,18 +301,23 @@ lamina_document_apply (LaminaDocument     *self,
   take_state (self, next);
   if ((flags & LAMINA_APPLY_LIVE) == 0)
     save (self, NULL);
+  emit_changed (self);
 }
 
 gboolean
 lamina_document_commit (LaminaDocument  *self,
                         GError         **error)
 {
+  gboolean ok;
+
   g_return_val_if_fail (LAMINA_IS_DOCUMENT (self), FALSE);
 
   lamina_undo_stack_seal (self->undo);
   if (!self->unsaved)
     return TRUE;
-  return save (self, error);
+  ok = save (self, error);
+  emit_changed (self);
+  return ok;
 }
 
 gboolean
@@ -336,6 +347,7 @@ lamina_document_undo (LaminaDocument *self)
   self->unsaved = TRUE;
   take_state (self, state);
   save (self, NULL);
+  emit_changed (self);
 }
 
 void
@@ -351,6 +363,7 @@ lamina_document_redo (LaminaDocument *self)
   self->unsaved = TRUE;
   take_state (self, state);
   save (self, NULL);
+  emit_changed (self);
 }
 
 gboolean
@@ -358,6 +371,7 @@ lamina_document_keep_mine (LaminaDocument  *self,
                            GError         **error)
 {
   g_autoptr(LaminaConstruction) latest = NULL;
+  gboolean ok;
 
   g_return_val_if_fail (LAMINA_IS_DOCUMENT (self), FALSE);
 
@@ -367,7 +381,9 @@ lamina_document_keep_mine (LaminaDocument  *self,
   self->base_revision = latest->revision;
   self->base_status = latest->status;
   self->unsaved = TRUE;
-  return save (self, error);
+  ok = save (self, error);
+  emit_changed (self);
+  return ok;
 }
 
 gboolean

@@ -1,0 +1,302 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The window's edits as pure functions, undo/redo, the number notation
+ * and the document's autosave, without a display. */
+#include "config.h"
+
+#include <locale.h>
+#include <glib/gstdio.h>
+#include <math.h>
+#include <string.h>
+
+#include "lamina-calc.h"
+#include "lamina-document.h"
+#include "lamina-editor-state.h"
+#include "lamina-revision-diff.h"
+#include "lamina-text.h"
+#include "lamina-undo-stack.h"
+
+/* Gypsum plasterboard 700 kg/m³, λ 0.21 W/(m·K): EN ISO 10456:2007
+ * Table 3 (from memory).  Mineral wool λ 0.035: a typical declared value
+ * (common practice). */
+static LaminaConstruction *
+new_wall (void)
+{
+  LaminaConstruction *c = lamina_construction_new ("w", "Test wall", LAMINA_ELEMENT_WALL);
+
+  c->heat_flow = LAMINA_HEAT_FLOW_HORIZONTAL;
+  lamina_construction_add_layer (c, lamina_layer_new_material (
+    12.5, lamina_material_new ("gyp", "Plasterboard", LAMINA_CATEGORY_BOARD, 0.21)));
+  lamina_construction_add_layer (c, lamina_layer_new_material (
+    100, lamina_material_new ("mw", "Mineral wool", LAMINA_CATEGORY_INSULATION, 0.035)));
+  return c;
+}
+
+static double
+layer_thickness (const LaminaConstruction *c,
+                 guint                     i)
+{
+  return ((LaminaLayer *) g_ptr_array_index (c->layers, i))->thickness;
+}
+
+static void
+test_snap (void)
+{
+  /* Rounding to the nearest step (common practice for drawing tools). */
+  const struct { double in, step, out; } cases[] = {
+    { 123.0, 5.0, 125.0 },
+    { 122.4, 5.0, 120.0 },
+    { 122.5, 5.0, 125.0 },
+    { 1.0, 5.0, 5.0 },      /* never thinner than one step */
+    { -30.0, 5.0, 5.0 },
+    { 12.34, 0.5, 12.5 },   /* the fine step (a tenth of 5 mm) */
+    { 12.34, 0.0, 12.34 },  /* no snapping */
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    g_assert_cmpfloat_with_epsilon (lamina_edit_snap (cases[i].in, cases[i].step), cases[i].out, 1e-9);
+  /* 40 px at 2 px/mm is 20 mm more. */
+  g_assert_cmpfloat_with_epsilon (lamina_edit_drag_thickness (100, 40, 2, 5), 120, 1e-9);
+  g_assert_cmpfloat_with_epsilon (lamina_edit_drag_thickness (100, -43, 2, 5), 80, 1e-9);
+}
+
+static void
+test_set_thickness_series (void)
+{
+  g_autoptr(LaminaConstruction) c = new_wall ();
+  g_autoptr(LaminaConstruction) next = NULL;
+  g_autoptr(LaminaResult) before = NULL;
+  g_autoptr(LaminaResult) after = NULL;
+  g_autoptr(GError) error = NULL;
+
+  next = lamina_edit_set_thickness (c, 1, 150, &error);
+  g_assert_no_error (error);
+  /* The input is untouched: the editor keeps it for undo. */
+  g_assert_cmpfloat (layer_thickness (c, 1), ==, 100);
+  g_assert_cmpfloat (layer_thickness (next, 1), ==, 150);
+
+  before = lamina_calculate (c, &error);
+  g_assert_no_error (error);
+  after = lamina_calculate (next, &error);
+  g_assert_no_error (error);
+  /* EN ISO 6946:2017 6.7.1: R = d/λ, and resistances in series add, so
+   * 50 mm more at λ 0.035 adds 0.05/0.035 m²·K/W to RT. */
+  g_assert_cmpfloat_with_epsilon (1 / after->u - 1 / before->u, 0.050 / 0.035, 1e-9);
+  /* Rsi 0.13 + Rse 0.04 (Table 7, horizontal) + 0.0125/0.21 + 0.15/0.035. */
+  g_assert_cmpfloat_with_epsilon (after->r_total, 0.13 + 0.04 + 0.0125 / 0.21 + 0.15 / 0.035, 1e-9);
+
+  g_assert_null (lamina_edit_set_thickness (c, 5, 10, &error));
+  g_assert_error (error, LAMINA_EDIT_ERROR, LAMINA_EDIT_ERROR_NO_LAYER);
+  g_clear_error (&error);
+  g_assert_null (lamina_edit_set_thickness (c, 0, 0, &error));
+  g_assert_error (error, LAMINA_EDIT_ERROR, LAMINA_EDIT_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "Layer 1"));
+}
+
+static void
+test_layer_stack (void)
+{
+  g_autoptr(LaminaConstruction) c = new_wall ();
+  g_autoptr(LaminaConstruction) dup = NULL;
+  g_autoptr(LaminaConstruction) moved = NULL;
+  g_autoptr(LaminaConstruction) removed = NULL;
+  g_autoptr(GError) error = NULL;
+
+  dup = lamina_edit_duplicate_layer (c, 0, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (dup->layers->len, ==, 3);
+  g_assert_true (lamina_layer_equal (dup->layers->pdata[0], dup->layers->pdata[1]));
+
+  moved = lamina_edit_move_layer (c, 0, 1, &error);
+  g_assert_no_error (error);
+  g_assert_cmpstr (lamina_layer_get_label (moved->layers->pdata[1]), ==, "Plasterboard");
+  g_assert_cmpstr (lamina_layer_get_label (moved->layers->pdata[0]), ==, "Mineral wool");
+
+  removed = lamina_edit_remove_layer (c, 0, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (removed->layers->len, ==, 1);
+  g_assert_cmpuint (c->layers->len, ==, 2);
+}
+
+static void
+test_layer_kinds (void)
+{
+  g_autoptr(LaminaConstruction) c = new_wall ();
+  g_autoptr(LaminaMaterial) timber = lamina_material_new ("sw", "Softwood", LAMINA_CATEGORY_TIMBER, 0.13);
+  g_autoptr(LaminaConstruction) bridged = NULL;
+  g_autoptr(LaminaConstruction) declared = NULL;
+  g_autoptr(LaminaConstruction) air = NULL;
+  g_autoptr(LaminaResult) r = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaLayer *layer;
+
+  /* 45 mm studs at 600 mm centres: framing fraction 45/600 = 0.075. */
+  bridged = lamina_edit_make_bridged (c, 1, NULL, timber, 45, 600, "stud", &error);
+  g_assert_no_error (error);
+  layer = bridged->layers->pdata[1];
+  g_assert_cmpint (layer->kind, ==, LAMINA_LAYER_BRIDGED);
+  g_assert_cmpfloat_with_epsilon (lamina_layer_get_part_fraction (layer, 1), 0.075, 1e-12);
+  g_assert_cmpfloat_with_epsilon (lamina_layer_get_part_fraction (layer, 0), 0.925, 1e-12);
+  r = lamina_calculate (bridged, &error);
+  g_assert_no_error (error);
+  /* EN ISO 6946:2017 6.7.2: the upper limit is never below the lower. */
+  g_assert_cmpfloat (r->r_upper, >=, r->r_lower);
+  g_clear_pointer (&r, lamina_result_free);
+
+  g_assert_null (lamina_edit_make_bridged (c, 1, NULL, timber, 600, 45, "stud", &error));
+  g_assert_error (error, LAMINA_EDIT_ERROR, LAMINA_EDIT_ERROR_INVALID);
+  g_clear_error (&error);
+
+  declared = lamina_edit_make_declared (c, 1, 2.5, &error);
+  g_assert_no_error (error);
+  r = lamina_calculate (declared, &error);
+  g_assert_no_error (error);
+  /* A declared R adds as given (6.7.1). */
+  g_assert_cmpfloat_with_epsilon (r->r_total, 0.13 + 0.04 + 0.0125 / 0.21 + 2.5, 1e-9);
+  g_clear_pointer (&r, lamina_result_free);
+
+  /* 25 mm unventilated air layer, horizontal flow: 0.18 m²·K/W,
+   * EN ISO 6946:2017 Table 8 (from memory, REFERENCES.md). */
+  air = lamina_edit_set_thickness (c, 1, 25, &error);
+  g_assert_no_error (error);
+  g_clear_pointer (&c, lamina_construction_free);
+  c = lamina_edit_make_air (air, 1, LAMINA_AIR_UNVENTILATED, NAN, NAN, NAN, &error);
+  g_assert_no_error (error);
+  r = lamina_calculate (c, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat_with_epsilon (r->layers[1].resistance, 0.18, 0.005);
+}
+
+static void
+test_undo_stack (void)
+{
+  g_autoptr(LaminaUndoStack) stack = lamina_undo_stack_new (10);
+  g_autoptr(LaminaConstruction) a = new_wall ();
+  g_autoptr(LaminaConstruction) b = lamina_edit_set_thickness (a, 1, 120, NULL);
+  g_autoptr(LaminaConstruction) c = lamina_edit_set_thickness (b, 1, 140, NULL);
+  g_autoptr(LaminaConstruction) undone = NULL;
+  g_autoptr(LaminaConstruction) redone = NULL;
+
+  /* Two steps of one drag merge into one undo step. */
+  lamina_undo_stack_push (stack, a, "drag-1");
+  lamina_undo_stack_push (stack, b, "drag-1");
+  undone = lamina_undo_stack_undo (stack, c);
+  g_assert_cmpfloat (layer_thickness (undone, 1), ==, 100);
+  g_assert_false (lamina_undo_stack_can_undo (stack));
+  redone = lamina_undo_stack_redo (stack, undone);
+  g_assert_cmpfloat (layer_thickness (redone, 1), ==, 140);
+  g_assert_false (lamina_undo_stack_can_redo (stack));
+}
+
+static void
+test_text (void)
+{
+  double v = 0;
+
+  /* Two significant figures for U (REFERENCES.md, "Rounding"). */
+  g_autofree char *u1 = lamina_text_u (0.1849);
+  g_autofree char *u2 = lamina_text_u (2.149);
+  g_assert_cmpstr (u1, ==, "0.18");
+  g_assert_cmpstr (u2, ==, "2.1");
+  g_assert_true (lamina_text_parse_number ("0,035", &v));
+  g_assert_cmpfloat (v, ==, 0.035);
+  g_assert_true (lamina_text_parse_number (" 12.5 mm", &v));
+  g_assert_cmpfloat (v, ==, 12.5);
+  g_assert_true (lamina_text_parse_number ("−10", &v));
+  g_assert_cmpfloat (v, ==, -10);
+  g_assert_false (lamina_text_parse_number ("", &v));
+  g_assert_false (lamina_text_parse_number ("abc", &v));
+  g_assert_false (lamina_text_parse_number ("1.2.3", &v));
+}
+
+static void
+test_revision_diff (void)
+{
+  g_autoptr(LaminaConstruction) a = new_wall ();
+  g_autoptr(LaminaConstruction) b = lamina_edit_set_thickness (a, 1, 150, NULL);
+  g_autoptr(GPtrArray) same = lamina_revision_diff (a, a);
+  g_autoptr(GPtrArray) changed = lamina_revision_diff (a, b);
+
+  g_assert_cmpuint (same->len, ==, 0);
+  g_assert_cmpuint (changed->len, ==, 1);
+  g_assert_nonnull (strstr (changed->pdata[0], "Mineral wool"));
+  g_assert_nonnull (strstr (changed->pdata[0], "150 mm"));
+}
+
+static void
+test_document_conflict (void)
+{
+  g_autofree char *dir = g_dir_make_tmp ("lamina-doc-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "library.sqlite", NULL);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_NO_SEED, &error);
+  g_autoptr(LaminaLibrary) other = NULL;
+  g_autoptr(LaminaConstruction) wall = new_wall ();
+  g_autoptr(LaminaConstruction) theirs = NULL;
+  g_autoptr(LaminaConstruction) stored = NULL;
+  g_autoptr(LaminaDocument) doc = NULL;
+  g_autofree char *id = NULL;
+
+  g_assert_no_error (error);
+  g_clear_pointer (&wall->id, g_free);
+  id = lamina_library_create_construction (library, wall, "tester", &error);
+  g_assert_no_error (error);
+  doc = lamina_document_new (library, id, &error);
+  g_assert_no_error (error);
+
+  /* An edit is saved at once. */
+  lamina_document_apply (doc, lamina_edit_set_thickness (lamina_document_get_construction (doc), 1, 120, NULL),
+                         NULL, LAMINA_APPLY_DEFAULT);
+  stored = lamina_library_get_construction (library, id, 0, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (layer_thickness (stored, 1), ==, 120);
+  g_assert_cmpint (lamina_document_get_base_revision (doc), ==, stored->revision);
+
+  /* Someone else saves through another connection... */
+  other = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  g_assert_no_error (error);
+  theirs = lamina_library_get_construction (other, id, 0, &error);
+  ((LaminaLayer *) theirs->layers->pdata[0])->thickness = 15;
+  g_assert_true (lamina_library_save_construction (other, theirs, theirs->revision, "other", &error));
+  g_assert_no_error (error);
+
+  /* ...so our next save is refused, and our state stays on screen. */
+  lamina_document_apply (doc, lamina_edit_set_thickness (lamina_document_get_construction (doc), 1, 130, NULL),
+                         NULL, LAMINA_APPLY_DEFAULT);
+  g_assert_nonnull (lamina_document_get_conflict (doc));
+  g_assert_cmpfloat (layer_thickness (lamina_document_get_construction (doc), 1), ==, 130);
+  g_clear_pointer (&stored, lamina_construction_free);
+  stored = lamina_library_get_construction (library, id, 0, &error);
+  g_assert_cmpfloat (layer_thickness (stored, 0), ==, 15);
+  g_assert_cmpfloat (layer_thickness (stored, 1), ==, 120);
+
+  /* Keeping ours puts it on top of theirs as a new revision. */
+  g_assert_true (lamina_document_keep_mine (doc, &error));
+  g_assert_no_error (error);
+  g_assert_null (lamina_document_get_conflict (doc));
+  g_clear_pointer (&stored, lamina_construction_free);
+  stored = lamina_library_get_construction (library, id, 0, &error);
+  g_assert_cmpfloat (layer_thickness (stored, 1), ==, 130);
+  g_assert_cmpint (stored->revision, ==, theirs->revision + 1);
+
+  lamina_library_close (other);
+  lamina_library_close (library);
+  g_remove (path);
+}
+
+int
+main (int   argc,
+      char *argv[])
+{
+  setlocale (LC_ALL, "C.UTF-8");
+  g_test_init (&argc, &argv, NULL);
+
+  g_test_add_func ("/app/state/snap", test_snap);
+  g_test_add_func ("/app/state/set-thickness-series", test_set_thickness_series);
+  g_test_add_func ("/app/state/layer-stack", test_layer_stack);
+  g_test_add_func ("/app/state/layer-kinds", test_layer_kinds);
+  g_test_add_func ("/app/state/undo-stack", test_undo_stack);
+  g_test_add_func ("/app/state/text", test_text);
+  g_test_add_func ("/app/state/revision-diff", test_revision_diff);
+  g_test_add_func ("/app/document/conflict", test_document_conflict);
+  return g_test_run ();
+}

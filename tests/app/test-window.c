@@ -1,0 +1,384 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The window on a copy of the demo library, under Xvfb: select, drag a
+ * layer boundary (the gesture's own code path), undo/redo, search,
+ * approve then edit, export, the Danish decimal comma, and a PNG of the
+ * window. */
+#include "config.h"
+
+#include <glib/gstdio.h>
+#include <gtk/gtk.h>
+#include <locale.h>
+#include <math.h>
+#include <string.h>
+
+#include "lamina-application.h"
+#include "lamina-construction-item.h"
+#include "lamina-editor-state.h"
+#include "lamina-text.h"
+#include "lamina-window.h"
+
+typedef struct
+{
+  char          *dir;
+  LaminaLibrary *library;
+  LaminaWindow  *window;
+} Fixture;
+
+static void
+wait_for_draw (GtkWidget *widget)
+{
+  gtk_test_widget_wait_for_draw (widget);
+  while (g_main_context_pending (NULL))
+    g_main_context_iteration (NULL, FALSE);
+}
+
+static void
+fixture_setup (Fixture       *f,
+               gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *path = NULL;
+
+  f->dir = g_dir_make_tmp ("lamina-window-XXXXXX", &error);
+  g_assert_no_error (error);
+  path = g_build_filename (f->dir, "library.sqlite", NULL);
+  f->library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_application_load_demo (f->library, &error));
+  g_assert_no_error (error);
+
+  lamina_application_load_style ();
+  f->window = lamina_window_new (NULL, f->library);
+  gtk_window_set_default_size (GTK_WINDOW (f->window), 1200, 760);
+  gtk_window_present (GTK_WINDOW (f->window));
+  wait_for_draw (GTK_WIDGET (f->window));
+}
+
+static void
+fixture_teardown (Fixture       *f,
+                  gconstpointer  data)
+{
+  g_autoptr(GDir) dir = NULL;
+  const char *name;
+
+  gtk_window_destroy (GTK_WINDOW (f->window));
+  lamina_library_close (f->library);
+  g_clear_object (&f->library);
+  dir = g_dir_open (f->dir, 0, NULL);
+  while (dir && (name = g_dir_read_name (dir)) != NULL)
+    {
+      g_autofree char *p = g_build_filename (f->dir, name, NULL);
+      g_remove (p);
+    }
+  g_rmdir (f->dir);
+  g_free (f->dir);
+}
+
+/* The first wall in the list with no bridged layer and no corrections, and
+ * its thickest homogeneous layer: dragging it changes RT by exactly Δd/λ. */
+static char *
+find_plain_construction (Fixture *f,
+                         guint   *layer_index)
+{
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (f->window));
+
+  for (guint i = 0; i < g_list_model_get_n_items (list); i++)
+    {
+      g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, i);
+      g_autoptr(LaminaConstruction) c = lamina_library_get_construction (f->library,
+                                                                         lamina_construction_item_get_id (item), 0, NULL);
+      g_autoptr(LaminaResult) r = c ? lamina_calculate (c, NULL) : NULL;
+      double best = 0;
+      int best_index = -1;
+
+      /* One heat-flow section (no bridged layer): R'T = R''T = RT. */
+      if (r == NULL || r->delta_u != 0 || r->n_sections != 1 || c->element != LAMINA_ELEMENT_WALL)
+        continue;
+      for (guint j = 0; j < c->layers->len; j++)
+        {
+          const LaminaLayer *layer = c->layers->pdata[j];
+
+          if (layer->kind == LAMINA_LAYER_MATERIAL && !r->layers[j].disregarded && layer->thickness > best)
+            {
+              best = layer->thickness;
+              best_index = (int) j;
+            }
+        }
+      if (best_index >= 0)
+        {
+          *layer_index = (guint) best_index;
+          return g_strdup (c->id);
+        }
+    }
+  return NULL;
+}
+
+static const LaminaConstruction *
+open_state (Fixture *f)
+{
+  return lamina_document_get_construction (lamina_editor_get_document (lamina_window_get_editor (f->window)));
+}
+
+static const char *
+shown_u (Fixture *f)
+{
+  return lamina_results_view_get_u_text (lamina_editor_get_results_view (lamina_window_get_editor (f->window)));
+}
+
+static double
+stored_u (Fixture    *f,
+          const char *id)
+{
+  g_autoptr(LaminaResult) r = lamina_library_get_result (f->library, id, 0, NULL);
+
+  g_assert_nonnull (r);
+  return r->u_corrected;
+}
+
+static void
+test_drag_updates_u (Fixture       *f,
+                     gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  g_autoptr(LaminaResult) before = NULL;
+  g_autoptr(LaminaResult) after = NULL;
+  g_autofree char *expected = NULL;
+  LaminaSectionView *view;
+  const LaminaLayer *layer;
+  double x, y, d0, lambda, d1;
+  guint index = 0;
+
+  id = find_plain_construction (f, &index);
+  g_assert_nonnull (id);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  g_assert_no_error (error);
+  view = lamina_editor_get_section_view (lamina_window_get_editor (f->window));
+  wait_for_draw (GTK_WIDGET (view));
+
+  layer = open_state (f)->layers->pdata[index];
+  d0 = layer->thickness;
+  lambda = layer->material->conductivity;
+  before = lamina_calculate (open_state (f), &error);
+  g_assert_no_error (error);
+
+  /* Grab the outer boundary of the layer and pull it 30 px outwards
+   * (walls are drawn inside → outside, left → right). */
+  g_assert_true (lamina_section_view_get_boundary_point (view, index + 1, &x, &y));
+  g_assert_true (lamina_section_view_drag_begin (view, x, y));
+  lamina_section_view_drag_update (view, 15, 0, FALSE);
+  lamina_section_view_drag_update (view, 30, 0, FALSE);
+  /* Live: the state moved, the library not yet. */
+  d1 = ((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness;
+  g_assert_cmpfloat (d1, >, d0);
+  g_assert_cmpfloat_with_epsilon (fmod (d1, 5.0), 0, 1e-9); /* 5 mm snap step (default) */
+  g_assert_cmpfloat_with_epsilon (stored_u (f, id), before->u_corrected, 1e-12);
+  lamina_section_view_drag_end (view, 30, 0, FALSE);
+
+  after = lamina_calculate (open_state (f), &error);
+  g_assert_no_error (error);
+  /* EN ISO 6946:2017 6.7.1: R = d/λ, series resistances add: the drag
+   * adds (d1 − d0)/λ to RT. */
+  g_assert_cmpfloat_with_epsilon (1 / after->u - 1 / before->u, (d1 - d0) / 1000.0 / lambda, 1e-9);
+  /* The U on screen is that U to two significant figures, and the U
+   * stored is the same figure. */
+  expected = lamina_text_u (after->u_corrected);
+  g_assert_cmpstr (shown_u (f), ==, expected);
+  g_assert_cmpfloat_with_epsilon (stored_u (f, id), after->u_corrected, 1e-12);
+
+  /* Undo brings back both, redo both again. */
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL);
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, d0);
+  g_assert_cmpfloat_with_epsilon (stored_u (f, id), before->u_corrected, 1e-12);
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.redo", NULL);
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, d1);
+  g_assert_cmpfloat_with_epsilon (stored_u (f, id), after->u_corrected, 1e-12);
+
+  /* The keyboard: one snap step thinner on the selected layer. */
+  g_assert_cmpint (lamina_section_view_get_selected (view), ==, (int) index);
+  lamina_section_view_nudge (view, -1, FALSE);
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, d1 - 5);
+}
+
+static void
+test_search_narrows (Fixture       *f,
+                     gconstpointer  data)
+{
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (f->window));
+  guint all = g_list_model_get_n_items (list);
+  guint some;
+
+  /* The demo has 20 constructions (data/demo/README.md). */
+  g_assert_cmpuint (all, ==, 20);
+  lamina_window_set_search (f->window, "timb");
+  some = g_list_model_get_n_items (list);
+  g_assert_cmpuint (some, >, 0);
+  g_assert_cmpuint (some, <, all);
+  lamina_window_set_search (f->window, "zzzqqq");
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, 0);
+  lamina_window_set_search (f->window, "");
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, all);
+}
+
+static void
+test_approve_then_edit (Fixture       *f,
+                        gconstpointer  data)
+{
+  g_autoptr(GSettings) settings = g_settings_new (APP_ID);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaConstruction) approved = NULL;
+  g_autoptr(LaminaConstruction) latest = NULL;
+  g_autofree char *id = NULL;
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  const LaminaLayer *layer;
+  guint index = 0;
+  int revision;
+
+  g_settings_set_string (settings, "reviewer-name", "R. Testlund");
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  if (open_state (f)->status == LAMINA_STATUS_APPROVED)
+    {
+      /* Start from a draft so that the approval is ours. */
+      lamina_editor_resize_layer (editor, index, 200, FALSE);
+    }
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.approve", NULL));
+  g_test_message ("after approve: %s", lamina_window_get_notice (f->window));
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_APPROVED);
+  revision = open_state (f)->revision;
+  approved = lamina_library_get_construction (f->library, id, revision, &error);
+  g_assert_no_error (error);
+  g_assert_cmpstr (approved->approved_by, ==, "R. Testlund");
+
+  layer = open_state (f)->layers->pdata[index];
+  lamina_editor_resize_layer (editor, index, layer->thickness + 10, FALSE);
+  latest = lamina_library_get_construction (f->library, id, 0, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (latest->revision, ==, revision + 1);
+  g_assert_cmpint (latest->status, ==, LAMINA_STATUS_DRAFT);
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_DRAFT);
+  /* The approved revision is as it was, and the window says so. */
+  g_clear_pointer (&approved, lamina_construction_free);
+  approved = lamina_library_get_construction (f->library, id, revision, &error);
+  g_assert_cmpint (approved->status, ==, LAMINA_STATUS_APPROVED);
+  g_assert_nonnull (lamina_window_get_notice (f->window));
+  g_assert_nonnull (strstr (lamina_window_get_notice (f->window), "draft"));
+}
+
+static void
+assert_pdf (const char *path)
+{
+  g_autofree char *data = NULL;
+  gsize length = 0;
+
+  g_assert_true (g_file_get_contents (path, &data, &length, NULL));
+  g_assert_cmpuint (length, >, 1000);
+  g_assert_true (g_str_has_prefix (data, "%PDF-"));
+}
+
+static void
+test_export (Fixture       *f,
+             gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *sheet = g_build_filename (f->dir, "sheet.pdf", NULL);
+  g_autofree char *catalogue = g_build_filename (f->dir, "catalogue.pdf", NULL);
+  g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (G_LIST_MODEL (lamina_window_get_list (f->window)), 0);
+
+  g_assert_true (lamina_window_open (f->window, lamina_construction_item_get_id (item), &error));
+  g_assert_true (lamina_window_export_sheet (f->window, sheet, &error));
+  g_assert_no_error (error);
+  assert_pdf (sheet);
+  lamina_window_set_search (f->window, "brick");
+  g_assert_true (lamina_window_export_catalogue (f->window, catalogue, &error));
+  g_assert_no_error (error);
+  assert_pdf (catalogue);
+}
+
+static void
+save_png (GtkWidget  *widget,
+          const char *path)
+{
+  g_autoptr(GdkPaintable) paintable = gtk_widget_paintable_new (widget);
+  g_autoptr(GtkSnapshot) snapshot = gtk_snapshot_new ();
+  g_autoptr(GskRenderNode) node = NULL;
+  g_autoptr(GdkTexture) texture = NULL;
+  GskRenderer *renderer = gtk_native_get_renderer (gtk_widget_get_native (widget));
+  int width = gtk_widget_get_width (widget);
+  int height = gtk_widget_get_height (widget);
+
+  gdk_paintable_snapshot (paintable, GDK_SNAPSHOT (snapshot), width, height);
+  node = gtk_snapshot_free_to_node (g_steal_pointer (&snapshot));
+  g_assert_nonnull (node);
+  texture = gsk_renderer_render_texture (renderer, node, &GRAPHENE_RECT_INIT (0, 0, width, height));
+  g_assert_true (gdk_texture_save_to_png (texture, path));
+  g_assert_cmpint (gdk_texture_get_width (texture), ==, width);
+}
+
+static void
+test_render_png (Fixture       *f,
+                 gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "window.png", NULL);
+  g_autofree char *id = NULL;
+  guint index = 0;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  lamina_section_view_set_show_temperatures (lamina_editor_get_section_view (lamina_window_get_editor (f->window)), TRUE);
+  wait_for_draw (GTK_WIDGET (f->window));
+  save_png (GTK_WIDGET (f->window), path);
+  g_test_message ("window rendered to %s", path);
+}
+
+static void
+test_danish_comma (Fixture       *f,
+                   gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaConstructionItem) item = NULL;
+  const char *u;
+
+  if (strcmp (localeconv ()->decimal_point, ",") != 0)
+    {
+      g_test_skip ("the da_DK.UTF-8 locale is not available");
+      return;
+    }
+  item = g_list_model_get_item (G_LIST_MODEL (lamina_window_get_list (f->window)), 0);
+  g_assert_true (lamina_window_open (f->window, lamina_construction_item_get_id (item), &error));
+  u = shown_u (f);
+  /* Danish writes the decimal separator as a comma (CLDR da). */
+  g_assert_nonnull (strchr (u, ','));
+  g_assert_null (strchr (u, '.'));
+}
+
+int
+main (int   argc,
+      char *argv[])
+{
+  gboolean danish = argc > 1 && g_str_equal (argv[1], "--danish");
+
+  if (danish)
+    {
+      /* gtk_test_init sets the C locale; we want the environment's. */
+      argv[1] = argv[0];
+      argc--, argv++;
+    }
+  gtk_test_init (&argc, &argv, NULL);
+  if (danish)
+    setlocale (LC_ALL, "");
+
+  if (danish)
+    g_test_add ("/app/window/danish-comma", Fixture, NULL, fixture_setup, test_danish_comma, fixture_teardown);
+  else
+    {
+      g_test_add ("/app/window/drag-updates-u", Fixture, NULL, fixture_setup, test_drag_updates_u, fixture_teardown);
+      g_test_add ("/app/window/search-narrows", Fixture, NULL, fixture_setup, test_search_narrows, fixture_teardown);
+      g_test_add ("/app/window/approve-then-edit", Fixture, NULL, fixture_setup, test_approve_then_edit, fixture_teardown);
+      g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
+      g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
+    }
+  return g_test_run ();
+}
