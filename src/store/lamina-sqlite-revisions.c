@@ -168,15 +168,14 @@ store_tags_and_materials (LaminaSqlite              *self,
         return FALSE;
     }
 
-  /* The search index row has the construction's rowid. */
-  stmt = lamina_sqlite_prepare (self, "DELETE FROM construction_fts WHERE rowid = ?1;", error);
-  if (stmt == NULL)
-    return FALSE;
-  sqlite3_bind_int64 (stmt, 1, num);
-  if (!lamina_sqlite_step_done (self, stmt, error))
+  /* The search index row (the construction's rowid) is staged and written
+   * by flush_search_index() just before the commit. */
+  if (!lamina_sqlite_exec (self,
+        "CREATE TEMP TABLE IF NOT EXISTS construction_fts_stage ("
+        "  num INTEGER PRIMARY KEY, code, name, description, tags, materials);", error))
     return FALSE;
   stmt = lamina_sqlite_prepare (self,
-    "INSERT INTO construction_fts (rowid, code, name, description, tags, materials)"
+    "INSERT OR REPLACE INTO construction_fts_stage (num, code, name, description, tags, materials)"
     " VALUES (?1, ?2, ?3, ?4, ?5, ?6);", error);
   if (stmt == NULL)
     return FALSE;
@@ -190,6 +189,24 @@ store_tags_and_materials (LaminaSqlite              *self,
   lamina_sqlite_bind_text (stmt, 5, tags);
   lamina_sqlite_bind_text (stmt, 6, names->str);
   return lamina_sqlite_step_done (self, stmt, error);
+}
+
+/* Writes the staged search index rows in two statements.  FTS5 flushes
+ * its pending terms to a new index segment at every statement that runs
+ * while it is part of the transaction; touched once per construction in
+ * an import, it wrote thousands of tiny segments and spent most of the
+ * import merging them. */
+static gboolean
+flush_search_index (LaminaSqlite  *self,
+                    GError       **error)
+{
+  return lamina_sqlite_exec (self,
+           "CREATE TEMP TABLE IF NOT EXISTS construction_fts_stage ("
+           "  num INTEGER PRIMARY KEY, code, name, description, tags, materials);"
+           "DELETE FROM construction_fts WHERE rowid IN (SELECT num FROM construction_fts_stage);"
+           "INSERT INTO construction_fts (rowid, code, name, description, tags, materials)"
+           "  SELECT num, code, name, description, tags, materials FROM construction_fts_stage;"
+           "DELETE FROM construction_fts_stage;", error);
 }
 
 static gboolean
@@ -321,6 +338,7 @@ sqlite_store_revision (LaminaBackend                *backend,
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
   if (!store_revision_in_txn (SELF, rev, base_revision, error)
+      || !flush_search_index (SELF, error)
       || !lamina_sqlite_commit (SELF, error))
     {
       lamina_sqlite_rollback (SELF);
@@ -502,7 +520,7 @@ sqlite_apply_import (LaminaBackend  *backend,
     if (!store_revision_in_txn (SELF, revisions->pdata[i],
                                 g_array_index (base_revisions, int, i), &local))
       goto fail;
-  if (lamina_sqlite_commit (SELF, &local))
+  if (flush_search_index (SELF, &local) && lamina_sqlite_commit (SELF, &local))
     return TRUE;
 fail:
   lamina_sqlite_rollback (SELF);
