@@ -86,6 +86,25 @@ lamina_layer_row_new (void)
   return g_object_new (LAMINA_TYPE_LAYER_ROW, NULL);
 }
 
+/* A bridged layer is named by its parts: "Mineral wool + Softwood". */
+static char *
+dup_name (const LaminaLayer *layer)
+{
+  GString *text;
+
+  if (layer->kind != LAMINA_LAYER_BRIDGED || layer->parts == NULL || layer->parts->len == 0)
+    return g_strdup (lamina_layer_get_label (layer));
+  text = g_string_new (NULL);
+  for (guint i = 0; i < layer->parts->len; i++)
+    {
+      const LaminaPart *part = g_ptr_array_index (layer->parts, i);
+
+      g_string_append_printf (text, "%s%s", i ? " + " : "",
+                              part->material ? part->material->name : _("air"));
+    }
+  return g_string_free (text, FALSE);
+}
+
 static char *
 dup_detail (const LaminaLayer *layer)
 {
@@ -117,15 +136,13 @@ dup_detail (const LaminaLayer *layer)
     case LAMINA_LAYER_BRIDGED:
     default:
       {
-        GString *text = g_string_new (_("Bridged:"));
+        GString *text = g_string_new (_("Bridged"));
 
         for (guint i = 0; layer->parts != NULL && i < layer->parts->len; i++)
           {
-            const LaminaPart *part = g_ptr_array_index (layer->parts, i);
-            g_autofree char *share = lamina_text_number (lamina_layer_get_part_fraction (layer, i) * 100, 0);
+            g_autofree char *share = lamina_text_number (lamina_layer_get_part_fraction (layer, i) * 100, 1);
 
-            g_string_append_printf (text, "%s %s %s %%", i ? "," : "",
-                                    part->material ? part->material->name : _("air"), share);
+            g_string_append_printf (text, "%s %s %%", i ? " /" : "", share);
           }
         return g_string_free (text, FALSE);
       }
@@ -142,6 +159,7 @@ lamina_layer_row_update (LaminaLayerRow          *self,
 {
   g_autofree char *number = g_strdup_printf ("%u", index + 1);
   g_autofree char *detail = dup_detail (layer);
+  g_autofree char *name = dup_name (layer);
   g_autofree char *r = NULL;
   g_autofree char *r_text = NULL;
   g_autofree char *label = NULL;
@@ -152,7 +170,8 @@ lamina_layer_row_update (LaminaLayerRow          *self,
   self->index = index;
   self->updating = TRUE;
   gtk_label_set_text (self->number_label, number);
-  gtk_label_set_text (self->name_label, lamina_layer_get_label (layer));
+  gtk_label_set_text (self->name_label, name);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->name_label), name);
   gtk_label_set_text (self->detail_label, detail);
   gtk_adjustment_set_step_increment (gtk_spin_button_get_adjustment (self->thickness_spin),
                                      snap_step > 0 ? snap_step : 1.0);
@@ -177,7 +196,7 @@ lamina_layer_row_update (LaminaLayerRow          *self,
     gtk_widget_set_tooltip_text (GTK_WIDGET (self->share_bar), tip);
   }
 
-  label = g_strdup_printf (_("Layer %u, %s"), index + 1, lamina_layer_get_label (layer));
+  label = g_strdup_printf (_("Layer %u, %s"), index + 1, name);
   gtk_accessible_update_property (GTK_ACCESSIBLE (self), GTK_ACCESSIBLE_PROPERTY_LABEL, label, -1);
   gtk_accessible_update_property (GTK_ACCESSIBLE (self->thickness_spin),
                                   GTK_ACCESSIBLE_PROPERTY_LABEL, _("Thickness in millimetres"), -1);

@@ -239,9 +239,9 @@ update_target (LaminaResultsView        *self,
     }
   target = lamina_text_number (construction->target_u, 2);
   if (result->target_met)
-    text = g_strdup_printf (_("✓ Meets the target U of %s W/(m²·K)"), target);
+    text = g_strdup_printf (_("✓ Meets the target U of %s"), target);
   else
-    text = g_strdup_printf (_("✗ Does not meet the target U of %s W/(m²·K)"), target);
+    text = g_strdup_printf (_("✗ Does not meet the target U of %s"), target);
   gtk_label_set_text (self->target_label, text);
   gtk_widget_add_css_class (label, result->target_met ? "met" : "not-met");
 }

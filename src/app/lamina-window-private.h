@@ -41,6 +41,8 @@ struct _LaminaWindow
   char                   *deleted_id;
   char                   *notice;
   guint                   toast_timeout;
+  guint                   refresh_idle;
+  guint                   poll_timeout;
   gboolean                selecting;
 };
 

@@ -394,10 +394,33 @@ on_reviewer_changed_cb (LaminaWindow *self)
   lamina_window_update_actions (self);
 }
 
+static gboolean
+refresh_idle_cb (gpointer data)
+{
+  LaminaWindow *self = data;
+
+  self->refresh_idle = 0;
+  lamina_window_refresh_list (self);
+  return G_SOURCE_REMOVE;
+}
+
+/* Any write, ours or another process's: refresh the rows (U, status) once
+ * the burst of writes is over. */
 static void
 on_library_changed_cb (LaminaWindow *self)
 {
-  update_count (self);
+  if (self->refresh_idle == 0)
+    self->refresh_idle = g_idle_add (refresh_idle_cb, self);
+}
+
+static gboolean
+poll_library_cb (gpointer data)
+{
+  LaminaWindow *self = data;
+
+  /* Another copy of Lamina or the CLI may write to a shared library. */
+  lamina_library_check_for_changes (self->library);
+  return G_SOURCE_CONTINUE;
 }
 
 static gboolean
@@ -425,6 +448,8 @@ lamina_window_dispose (GObject *object)
   LaminaWindow *self = LAMINA_WINDOW (object);
 
   g_clear_handle_id (&self->toast_timeout, g_source_remove);
+  g_clear_handle_id (&self->refresh_idle, g_source_remove);
+  g_clear_handle_id (&self->poll_timeout, g_source_remove);
   if (self->document != NULL)
     g_signal_handlers_disconnect_by_data (self->document, self);
   g_clear_object (&self->document);
@@ -521,6 +546,7 @@ lamina_window_new (LaminaApplication *application,
 
   setup_filters (self);
   update_count (self);
+  self->poll_timeout = g_timeout_add_seconds (3, poll_library_cb, self);
 
   gtk_window_set_default_size (GTK_WINDOW (self),
                                g_settings_get_int (self->settings, "window-width"),
