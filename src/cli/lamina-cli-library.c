@@ -430,6 +430,27 @@ lamina_cli_materials (const LaminaCliGlobals *globals,
   return LAMINA_EXIT_OK;
 }
 
+/* A reviewer signs for the figures: repeat what the engine warned of (a
+ * target not met, the method outside its range) so that nobody approves
+ * such a build-up without having read it. */
+static void
+warn_on_review (LaminaLibrary *library,
+                const char    *id)
+{
+  g_autoptr(LaminaResult) result = lamina_library_get_result (library, id, 0, NULL);
+
+  if (result == NULL)
+    return;
+  for (guint i = 0; i < result->warnings->len; i++)
+    {
+      const LaminaWarning *w = result->warnings->pdata[i];
+
+      if (w->kind == LAMINA_WARNING_TARGET_NOT_MET || w->kind == LAMINA_WARNING_RATIO_OUT_OF_RANGE
+          || w->kind == LAMINA_WARNING_METAL_BRIDGED_INSULATION)
+        lamina_cli_error (_("caution: %s"), w->message);
+    }
+}
+
 static int
 review (const LaminaCliGlobals *globals,
         int                     argc,
@@ -476,6 +497,7 @@ review (const LaminaCliGlobals *globals,
       lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
+  warn_on_review (library, id);
   return LAMINA_EXIT_OK;
 }
 
