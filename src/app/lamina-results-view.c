@@ -64,6 +64,10 @@ add_figure (LaminaResultsView *self,
 
   gtk_label_set_xalign (GTK_LABEL (name_label), 0);
   gtk_widget_set_hexpand (name_label, TRUE);
+  /* Long names (Danish) must not widen the panel past the window. */
+  gtk_label_set_ellipsize (GTK_LABEL (name_label), PANGO_ELLIPSIZE_END);
+  gtk_label_set_width_chars (GTK_LABEL (name_label), 12);
+  gtk_widget_set_tooltip_text (name_label, name);
   gtk_label_set_xalign (GTK_LABEL (value_label), 1);
   gtk_label_set_selectable (GTK_LABEL (value_label), TRUE);
   gtk_widget_add_css_class (value_label, "numeric");
