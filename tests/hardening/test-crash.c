@@ -1,0 +1,428 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Crash consistency of the office library (issue 7).
+ *
+ * Every write through the store is run in a child process that dies
+ * (_exit, as under SIGKILL: no cleanup, no atexit) just before its k-th
+ * write-like file operation, for every k the operation performs (the
+ * lamina-fault-vfs shim counts them), and once more under SIGKILL at a
+ * sweep of times.  After each death the file must pass PRAGMA
+ * integrity_check and foreign_key_check, open and read fully, and hold
+ * exactly the state before the operation or exactly the state after it,
+ * never a mix.  A full disk (the shim's byte budget; ENOSPC from the
+ * write) must fail with a clear error and leave the old state.
+ *
+ * The reference for "atomic": SQLite's documented transaction guarantee
+ * (sqlite.org/atomiccommit.html, WAL mode) is what the store relies on;
+ * these tests check that the store never splits one user action across
+ * transactions. */
+#define G_LOG_DOMAIN "lamina-test"
+
+#include <glib.h>
+#include <glib/gstdio.h>
+#include <math.h>
+#include <signal.h>
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include "lamina-fault-vfs.h"
+#include "lamina-hardening-util.h"
+#include "lamina-sqlite-private.h"
+
+typedef gboolean (*Operation) (LaminaLibrary *library, GError **error);
+
+static guint n_kill_points;
+static guint n_states_checked;
+
+/* ---- the operations under test ---------------------------------------- */
+
+static gboolean
+op_save (LaminaLibrary  *library,
+         GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, "hw-1", 0, error);
+  LaminaLayer *layer;
+
+  if (c == NULL)
+    return FALSE;
+  layer = c->layers->pdata[1];
+  layer->thickness += 20;
+  g_free (c->name);
+  c->name = g_strdup ("Test wall 1, thicker insulation");
+  return lamina_library_save_construction (library, c, c->revision, "A. Editor", error);
+}
+
+static gboolean
+op_approve (LaminaLibrary  *library,
+            GError        **error)
+{
+  return lamina_library_approve (library, "hw-2", 0, "R. Reviewer", "2024-05-02", error);
+}
+
+static gboolean
+op_create (LaminaLibrary  *library,
+           GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_hardening_make_wall (library, 77);
+  g_autofree char *id = NULL;
+
+  c->id = g_strdup ("hw-new");
+  id = lamina_library_create_construction (library, c, "A. Editor", error);
+  return id != NULL;
+}
+
+static LaminaCatalogue *
+make_import (LaminaLibrary *library,
+             guint          n)
+{
+  LaminaCatalogue *cat = lamina_catalogue_new ();
+
+  for (guint i = 0; i < n; i++)
+    {
+      LaminaConstruction *c = lamina_hardening_make_wall (library, 100 + i);
+
+      c->id = g_strdup_printf ("imp-%u", i);
+      g_ptr_array_add (cat->constructions, c);
+    }
+  /* and a change to an existing draft: a new revision of hw-3 */
+  {
+    LaminaConstruction *c = lamina_library_get_construction (library, "hw-3", 0, NULL);
+
+    g_assert_nonnull (c);
+    ((LaminaLayer *) c->layers->pdata[0])->thickness = 15;
+    g_ptr_array_add (cat->constructions, c);
+  }
+  return cat;
+}
+
+static gboolean
+op_import (LaminaLibrary  *library,
+           GError        **error)
+{
+  g_autoptr(LaminaCatalogue) cat = make_import (library, 12);
+  g_autoptr(LaminaImportReport) report = lamina_library_import (library, cat, 0, "A. Importer",
+                                                                error);
+
+  return report != NULL;
+}
+
+static gboolean
+op_material (LaminaLibrary  *library,
+             GError        **error)
+{
+  g_autoptr(LaminaMaterial) m = lamina_library_get_material (library, "typical-mineral-wool-035",
+                                                             error);
+
+  if (m == NULL)
+    return FALSE;
+  m->conductivity = 0.032;
+  return lamina_library_put_material (library, m, error);
+}
+
+static gboolean
+op_delete (LaminaLibrary  *library,
+           GError        **error)
+{
+  return lamina_library_delete_construction (library, "hw-4", "A. Editor", error);
+}
+
+/* ---- running an operation in a child that may die ---------------------- */
+
+static void
+copy_file (const char *from,
+           const char *to)
+{
+  g_autofree char *data = NULL;
+  g_autofree char *wal = g_strconcat (to, "-wal", NULL);
+  g_autofree char *shm = g_strconcat (to, "-shm", NULL);
+  gsize len = 0;
+
+  g_unlink (wal);
+  g_unlink (shm);
+  g_assert_true (g_file_get_contents (from, &data, &len, NULL));
+  g_assert_true (g_file_set_contents (to, data, (gssize) len, NULL));
+}
+
+/* Runs @op on @path in a child.  @exit_after 0: to the end, and the child
+ * reports its count of write-like calls through a pipe (returned).
+ * @free_bytes ≥ 0: a full disk after that many bytes of growth; the
+ * child's error message is written to @message.  Returns the child's
+ * wait status in @status. */
+static guint64
+run_child (const char  *path,
+           Operation    op,
+           guint64      exit_after,
+           gint64       free_bytes,
+           int         *status,
+           char       **message)
+{
+  int fds[2];
+  pid_t pid;
+  guint64 count = 0;
+  g_autoptr(GString) text = g_string_new (NULL);
+  char buf[256];
+  ssize_t n;
+
+  g_assert_cmpint (pipe (fds), ==, 0);
+  pid = fork ();
+  g_assert_cmpint (pid, >=, 0);
+  if (pid == 0)
+    {
+      g_autoptr(GError) error = NULL;
+      LaminaLibrary *library;
+      gboolean ok;
+
+      close (fds[0]);
+      lamina_fault_vfs_install ();
+      lamina_fault_vfs_set_exit_after (exit_after);
+      library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+      if (library == NULL)
+        _exit (3);
+      lamina_fault_vfs_set_free_bytes (free_bytes);
+      ok = op (library, &error);
+      g_object_unref (library);
+      count = lamina_fault_vfs_get_count ();
+      if (write (fds[1], &count, sizeof count) != sizeof count)
+        _exit (4);
+      if (!ok && write (fds[1], error->message, strlen (error->message)) < 0)
+        _exit (4);
+      _exit (ok ? 0 : 1);
+    }
+  close (fds[1]);
+  if (read (fds[0], &count, sizeof count) != sizeof count)
+    count = 0;
+  while ((n = read (fds[0], buf, sizeof buf)) > 0)
+    g_string_append_len (text, buf, n);
+  close (fds[0]);
+  g_assert_cmpint (waitpid (pid, status, 0), ==, pid);
+  if (message)
+    *message = g_strdup (text->str);
+  return count;
+}
+
+static void
+assert_old_or_new (const char *path,
+                   const char *old_state,
+                   const char *new_state,
+                   gboolean   *was_new)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *state = NULL;
+
+  if (!lamina_hardening_check_library (path, &error))
+    g_error ("library damaged: %s", error->message);
+  state = lamina_hardening_dup_file_state (path, &error);
+  g_assert_no_error (error);
+  if (g_strcmp0 (state, old_state) != 0 && g_strcmp0 (state, new_state) != 0)
+    g_error ("%s holds neither the old nor the new state", path);
+  n_states_checked++;
+  if (was_new)
+    *was_new = g_strcmp0 (state, new_state) == 0;
+}
+
+static char *
+make_base (void)
+{
+  g_autofree char *dir = g_build_filename (g_get_user_data_dir (), "crash", NULL);
+  char *path = g_build_filename (dir, "base.sqlite", NULL);
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GError) error = NULL;
+
+  g_mkdir_with_parents (dir, 0700);
+  if (g_file_test (path, G_FILE_TEST_EXISTS))
+    return path;
+  library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  for (guint i = 1; i <= 5; i++)
+    {
+      g_autoptr(LaminaConstruction) c = lamina_hardening_make_wall (library, i);
+      g_autofree char *id = NULL;
+
+      c->id = g_strdup_printf ("hw-%u", i);
+      id = lamina_library_create_construction (library, c, "A. Author", &error);
+      g_assert_no_error (error);
+    }
+  g_assert_true (lamina_library_approve (library, "hw-5", 0, "R. Reviewer", "2024-04-30", &error));
+  return path;
+}
+
+static void
+sweep (Operation op)
+{
+  g_autofree char *base = make_base ();
+  g_autofree char *work = g_build_filename (g_get_user_data_dir (), "crash", "work.sqlite", NULL);
+  g_autofree char *old_state = lamina_hardening_dup_file_state (base, NULL);
+  g_autofree char *new_state = NULL;
+  guint64 total, step;
+  guint n_new = 0, n_here = 0;
+  int status;
+
+  g_assert_nonnull (old_state);
+  copy_file (base, work);
+  total = run_child (work, op, 0, -1, &status, NULL);
+  g_assert_true (WIFEXITED (status) && WEXITSTATUS (status) == 0);
+  new_state = lamina_hardening_dup_file_state (work, NULL);
+  g_assert_nonnull (new_state);
+  g_assert_cmpstr (new_state, !=, old_state);
+  g_assert_cmpuint (total, >, 0);
+
+  /* Every write-like call up to 200 of them, then a stride. */
+  step = total <= 200 ? 1 : total / 200 + 1;
+  for (guint64 k = 1; k <= total; k += step)
+    {
+      gboolean was_new = FALSE;
+
+      copy_file (base, work);
+      run_child (work, op, k, -1, &status, NULL);
+      g_assert_true (WIFEXITED (status));
+      g_assert_cmpint (WEXITSTATUS (status), ==, LAMINA_FAULT_EXIT_STATUS);
+      assert_old_or_new (work, old_state, new_state, &was_new);
+      n_new += was_new;
+      n_kill_points++;
+      n_here++;
+    }
+  g_test_message ("%" G_GUINT64_FORMAT " write-like calls; %u kill points, %u left the new state",
+                  total, n_here, n_new);
+}
+
+static void
+test_kill_save (void)     { sweep (op_save); }
+static void
+test_kill_approve (void)  { sweep (op_approve); }
+static void
+test_kill_create (void)   { sweep (op_create); }
+static void
+test_kill_import (void)   { sweep (op_import); }
+static void
+test_kill_material (void) { sweep (op_material); }
+static void
+test_kill_delete (void)   { sweep (op_delete); }
+
+/* Timing rather than file operations: a child importing in a loop is
+ * SIGKILLed after 2, 4, … ms. */
+static void
+test_sigkill_sweep (void)
+{
+  g_autofree char *base = make_base ();
+  g_autofree char *work = g_build_filename (g_get_user_data_dir (), "crash", "work.sqlite", NULL);
+
+  for (guint ms = 2; ms <= 40; ms += 2)
+    {
+      g_autofree char *before = NULL, *after = NULL;
+      pid_t pid;
+      int status;
+
+      copy_file (base, work);
+      before = lamina_hardening_dup_file_state (work, NULL);
+      pid = fork ();
+      g_assert_cmpint (pid, >=, 0);
+      if (pid == 0)
+        {
+          LaminaLibrary *library = lamina_library_open (work, LAMINA_LIBRARY_OPEN_EXISTING, NULL);
+
+          for (guint round = 0; library != NULL; round++)
+            {
+              g_autoptr(LaminaCatalogue) cat = make_import (library, 8);
+
+              for (guint i = 0; i < cat->constructions->len; i++)
+                {
+                  LaminaConstruction *c = cat->constructions->pdata[i];
+
+                  g_free (c->description);
+                  c->description = g_strdup_printf ("round %u", round);
+                }
+              LaminaImportReport *report = lamina_library_import (library, cat, 0, NULL, NULL);
+
+              if (report != NULL)
+                lamina_import_report_free (report);
+            }
+          _exit (3);
+        }
+      g_usleep (ms * 1000);
+      kill (pid, SIGKILL);
+      g_assert_cmpint (waitpid (pid, &status, 0), ==, pid);
+      /* Any number of whole imports may have committed: the library must
+       * be intact and every construction complete (each import brings 8
+       * new ones and one revision; no round may be half there). */
+      {
+        g_autoptr(GError) error = NULL;
+        g_autoptr(LaminaLibrary) library = NULL;
+        LaminaLibraryQuery q;
+        gint64 n;
+
+        if (!lamina_hardening_check_library (work, &error))
+          g_error ("library damaged after SIGKILL at %u ms: %s", ms, error->message);
+        library = lamina_library_open (work, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+        lamina_library_query_init (&q);
+        n = lamina_library_count (library, &q, &error);
+        g_assert_true (n == 5 || n == 13);
+      }
+      n_kill_points++;
+      n_states_checked++;
+    }
+}
+
+/* A full disk at a sweep of free space: the write fails with an error
+ * that says so, and the old state survives; or it fits and the new state
+ * is there. */
+static void
+test_full_disk (void)
+{
+  g_autofree char *base = make_base ();
+  g_autofree char *work = g_build_filename (g_get_user_data_dir (), "crash", "work.sqlite", NULL);
+  g_autofree char *old_state = lamina_hardening_dup_file_state (base, NULL);
+  g_autofree char *new_state = NULL;
+  guint n_failed = 0;
+  int status;
+
+  copy_file (base, work);
+  run_child (work, op_import, 0, -1, &status, NULL);
+  g_assert_true (WIFEXITED (status) && WEXITSTATUS (status) == 0);
+  new_state = lamina_hardening_dup_file_state (work, NULL);
+
+  for (gint64 free_bytes = 0; free_bytes <= 2 * 1024 * 1024; free_bytes = free_bytes * 2 + 4096)
+    {
+      g_autofree char *message = NULL;
+      gboolean was_new = FALSE;
+
+      copy_file (base, work);
+      run_child (work, op_import, 0, free_bytes, &status, &message);
+      g_assert_true (WIFEXITED (status));
+      assert_old_or_new (work, old_state, new_state, &was_new);
+      if (WEXITSTATUS (status) == 1)
+        {
+          /* Clear: names the file and says the disk is full. */
+          g_assert_nonnull (strstr (message, work));
+          g_assert_nonnull (strstr (message, "full"));
+          g_assert_false (was_new);
+          n_failed++;
+        }
+      else
+        {
+          g_assert_cmpint (WEXITSTATUS (status), ==, 0);
+          g_assert_true (was_new);
+        }
+    }
+  g_assert_cmpuint (n_failed, >, 0);
+  g_test_message ("full disk: %u budgets refused cleanly", n_failed);
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  int rc;
+
+  g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
+  g_test_add_func ("/hardening/crash/save", test_kill_save);
+  g_test_add_func ("/hardening/crash/approve", test_kill_approve);
+  g_test_add_func ("/hardening/crash/create", test_kill_create);
+  g_test_add_func ("/hardening/crash/import", test_kill_import);
+  g_test_add_func ("/hardening/crash/material", test_kill_material);
+  g_test_add_func ("/hardening/crash/delete", test_kill_delete);
+  g_test_add_func ("/hardening/crash/sigkill-import", test_sigkill_sweep);
+  g_test_add_func ("/hardening/crash/full-disk", test_full_disk);
+  rc = g_test_run ();
+  g_print ("# figures: %u kill points tried, %u states checked\n", n_kill_points,
+           n_states_checked);
+  return rc;
+}
