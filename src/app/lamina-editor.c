@@ -23,6 +23,7 @@ struct _LaminaEditor
   GtkLabel          *element_label;
   GtkLabel          *status_label;
   GtkLabel          *revision_label;
+  GtkWidget         *material_flag;
   LaminaSectionView *section_view;
   GtkListBox        *layer_list;
   LaminaResultsView *results_view;
@@ -31,6 +32,7 @@ struct _LaminaEditor
   LaminaDocument    *document;
   gulong             changed_id;
   guint              drag_serial;
+  int                flag_revision;
   double             snap_step;
   gboolean           updating;
 };
@@ -117,6 +119,53 @@ on_row_thickness_changed_cb (LaminaEditor *self,
   lamina_editor_resize_layer (self, index, thickness, FALSE);
 }
 
+static GdkContentProvider *
+on_row_drag_prepare_cb (GtkDragSource *source,
+                        double         x,
+                        double         y,
+                        LaminaEditor  *self)
+{
+  GtkWidget *row = gtk_event_controller_get_widget (GTK_EVENT_CONTROLLER (source));
+
+  return gdk_content_provider_new_typed (G_TYPE_UINT, (guint) gtk_list_box_row_get_index (GTK_LIST_BOX_ROW (row)));
+}
+
+static gboolean
+on_row_drop_cb (GtkDropTarget *target,
+                const GValue  *value,
+                double         x,
+                double         y,
+                LaminaEditor  *self)
+{
+  GtkWidget *row = gtk_event_controller_get_widget (GTK_EVENT_CONTROLLER (target));
+  g_autoptr(GError) error = NULL;
+  guint from = g_value_get_uint (value);
+  guint to = (guint) gtk_list_box_row_get_index (GTK_LIST_BOX_ROW (row));
+  LaminaConstruction *next;
+
+  if (from == to || get_state (self) == NULL)
+    return FALSE;
+  next = lamina_edit_move_layer (get_state (self), from, to, &error);
+  lamina_section_view_set_selected (self->section_view, (int) to);
+  lamina_editor_apply (self, next, NULL, error);
+  return next != NULL;
+}
+
+/* Layers reorder by drag and drop of their rows (and Alt+Up/Down). */
+static void
+add_row_dnd (LaminaEditor *self,
+             GtkWidget    *row)
+{
+  GtkDragSource *source = gtk_drag_source_new ();
+  GtkDropTarget *target = gtk_drop_target_new (G_TYPE_UINT, GDK_ACTION_MOVE);
+
+  gtk_drag_source_set_actions (source, GDK_ACTION_MOVE);
+  g_signal_connect_object (source, "prepare", G_CALLBACK (on_row_drag_prepare_cb), self, 0);
+  gtk_widget_add_controller (row, GTK_EVENT_CONTROLLER (source));
+  g_signal_connect_object (target, "drop", G_CALLBACK (on_row_drop_cb), self, 0);
+  gtk_widget_add_controller (row, GTK_EVENT_CONTROLLER (target));
+}
+
 static void
 update_rows (LaminaEditor             *self,
              const LaminaConstruction *state,
@@ -141,6 +190,7 @@ update_rows (LaminaEditor             *self,
 
       g_signal_connect_object (row, "thickness-changed",
                                G_CALLBACK (on_row_thickness_changed_cb), self, G_CONNECT_SWAPPED);
+      add_row_dnd (self, row);
       gtk_list_box_append (self->layer_list, row);
     }
 
@@ -174,6 +224,22 @@ update_actions (LaminaEditor *self)
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.corrections", has_layer);
 }
 
+/* "Material data changed since review": asked of the store once per saved
+ * revision, not per frame of a drag. */
+static void
+update_material_flag (LaminaEditor *self)
+{
+  g_autoptr(GPtrArray) changes = NULL;
+  int revision = lamina_document_get_base_revision (self->document);
+
+  if (revision == self->flag_revision)
+    return;
+  self->flag_revision = revision;
+  changes = lamina_library_list_material_changes (lamina_document_get_library (self->document),
+                                                  lamina_document_get_id (self->document), NULL);
+  gtk_widget_set_visible (self->material_flag, changes != NULL && changes->len > 0);
+}
+
 static void
 refresh (LaminaEditor *self)
 {
@@ -190,6 +256,7 @@ refresh (LaminaEditor *self)
   lamina_results_view_update (self->results_view, state, result,
                               lamina_document_get_calc_error (self->document));
   self->updating = FALSE;
+  update_material_flag (self);
   update_actions (self);
 }
 
@@ -479,6 +546,7 @@ lamina_editor_class_init (LaminaEditorClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, element_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, status_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, revision_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditor, material_flag);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, section_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, layer_list);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, results_view);
@@ -565,6 +633,7 @@ lamina_editor_set_document (LaminaEditor   *self,
       lamina_section_view_set_construction (self->section_view, NULL, NULL);
       lamina_section_view_set_selected (self->section_view, 0);
       lamina_section_view_set_zoom (self->section_view, 1.0);
+      self->flag_revision = -1;
       refresh (self);
     }
   else

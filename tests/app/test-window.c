@@ -267,6 +267,49 @@ test_approve_then_edit (Fixture       *f,
 }
 
 static void
+test_material_changed (Fixture       *f,
+                       gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaConstruction) before = NULL;
+  g_autoptr(LaminaConstruction) after = NULL;
+  g_autoptr(LaminaMaterial) material = NULL;
+  g_autoptr(LaminaConstructionItem) item = NULL;
+  g_autofree char *id = NULL;
+  const LaminaLayer *layer;
+  guint index = 0;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  before = lamina_construction_copy (open_state (f));
+  layer = before->layers->pdata[index];
+  g_assert_nonnull (layer->material->id);
+
+  /* The office revises a material's λ in the library... */
+  material = lamina_library_get_material (f->library, layer->material->id, &error);
+  g_assert_no_error (error);
+  material->conductivity *= 1.1;
+  g_assert_true (lamina_library_put_material (f->library, material, &error));
+  lamina_window_set_search (f->window, before->code);
+  item = g_list_model_get_item (G_LIST_MODEL (lamina_window_get_list (f->window)), 0);
+  g_assert_nonnull (item);
+  /* ...the construction is flagged but not changed under the user... */
+  g_assert_true (lamina_construction_item_get_summary (item)->flags & LAMINA_SUMMARY_MATERIAL_CHANGED);
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->material->conductivity,
+                     ==, layer->material->conductivity);
+  /* ...until the user takes the new data, as a new draft revision. */
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.update-materials", NULL);
+  after = lamina_library_get_construction (f->library, id, 0, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (after->revision, ==, before->revision + 1);
+  g_assert_cmpint (after->status, ==, LAMINA_STATUS_DRAFT);
+  g_assert_cmpfloat_with_epsilon (((LaminaLayer *) after->layers->pdata[index])->material->conductivity,
+                                  material->conductivity, 1e-12);
+  g_assert_cmpfloat_with_epsilon (((LaminaLayer *) open_state (f)->layers->pdata[index])->material->conductivity,
+                                  material->conductivity, 1e-12);
+}
+
+static void
 assert_pdf (const char *path)
 {
   g_autofree char *data = NULL;
@@ -403,6 +446,7 @@ main (int   argc,
       g_test_add ("/app/window/drag-updates-u", Fixture, NULL, fixture_setup, test_drag_updates_u, fixture_teardown);
       g_test_add ("/app/window/search-narrows", Fixture, NULL, fixture_setup, test_search_narrows, fixture_teardown);
       g_test_add ("/app/window/approve-then-edit", Fixture, NULL, fixture_setup, test_approve_then_edit, fixture_teardown);
+      g_test_add ("/app/window/material-changed", Fixture, NULL, fixture_setup, test_material_changed, fixture_teardown);
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
     }
