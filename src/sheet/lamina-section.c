@@ -261,6 +261,10 @@ draw_members (LaminaSection     *self,
       first = fmod (length / 2 + phase - width / 2, spacing);
       if (first > 0)
         first -= spacing;
+      /* A member cut by either end of the strip shows only its part inside. */
+      cairo_save (cr);
+      cairo_rectangle (cr, t0 - unit, 0, t1 - t0 + 2 * unit, length);
+      cairo_clip (cr);
       for (double s = first; s < length; s += spacing)
         {
           cairo_rectangle (cr, t0, s, t1 - t0, width);
@@ -273,6 +277,7 @@ draw_members (LaminaSection     *self,
           cairo_rectangle (cr, t0, s, t1 - t0, width);
           cairo_stroke (cr);
         }
+      cairo_restore (cr);
     }
 }
 

@@ -7,6 +7,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "lamina-catalogue.h"
 #include "lamina-section-private.h"
 #include "lamina-sheet-format.h"
 #include "lamina-test-constructions.h"
@@ -22,8 +23,9 @@ typedef struct
 } Render;
 
 static void
-render (Render                   *out,
-        const LaminaConstruction *c)
+render_with (Render                   *out,
+             const LaminaConstruction *c,
+             gboolean                  temperatures)
 {
   g_autoptr(LaminaSection) painter = lamina_section_new ();
   g_autoptr(LaminaResult) result = lamina_calculate (c, NULL);
@@ -35,11 +37,19 @@ render (Render                   *out,
   cairo_set_source_rgb (cr, 1, 1, 1);
   cairo_paint (cr);
   lamina_section_style_init (&out->style, 12);
+  out->style.temperatures = temperatures;
   lamina_section_layout_init (&out->layout);
   lamina_section_layout_compute (&out->layout, c, &out->style, 0, 0, WIDTH, HEIGHT);
   lamina_section_draw (painter, cr, &out->layout, c, result, &out->style);
   cairo_destroy (cr);
   cairo_surface_flush (out->surface);
+}
+
+static void
+render (Render                   *out,
+        const LaminaConstruction *c)
+{
+  render_with (out, c, TRUE);
 }
 
 static void
@@ -205,6 +215,68 @@ test_pixels (void)
     check_pixels (all->pdata[k]);
 }
 
+/* Framing members are drawn inside their layer only: the same build-up
+ * with each bridged layer filled by its main part alone must look the same
+ * outside the body of the section (a member cut by the end of the strip
+ * once spilled over the dimension chain). */
+static void
+test_members_stay_inside (void)
+{
+  g_autoptr(GPtrArray) all = lamina_test_constructions ();
+  g_autofree char *demo = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "demo", "lamina-demo.xml", NULL);
+  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (demo, NULL);
+
+  /* The demo library's build-ups too: their crossing battens once did it. */
+  g_assert_nonnull (catalogue);
+  for (guint k = 0; k < catalogue->constructions->len; k++)
+    g_ptr_array_add (all, lamina_construction_copy (catalogue->constructions->pdata[k]));
+
+  for (guint k = 0; k < all->len; k++)
+    {
+      const LaminaConstruction *c = all->pdata[k];
+      g_autoptr(LaminaConstruction) plain = lamina_construction_copy (c);
+      gboolean bridged = FALSE;
+      Render a, b;
+      const guint8 *da, *db;
+      int stride;
+
+      for (guint i = 0; i < plain->layers->len; i++)
+        {
+          LaminaLayer *layer = plain->layers->pdata[i];
+          LaminaPart *bulk;
+
+          if (layer->kind != LAMINA_LAYER_BRIDGED)
+            continue;
+          bulk = layer->parts->pdata[0];
+          for (guint p = 1; p < layer->parts->len; p++)
+            if (lamina_layer_get_part_fraction (layer, p) > lamina_layer_get_part_fraction (layer, 0))
+              bulk = layer->parts->pdata[p];
+          if (bulk->material == NULL)
+            continue;
+          layer->kind = LAMINA_LAYER_MATERIAL;
+          layer->material = lamina_material_copy (bulk->material);
+          bridged = TRUE;
+        }
+      if (!bridged)
+        continue;
+      render_with (&a, c, FALSE);
+      render_with (&b, plain, FALSE);
+      da = cairo_image_surface_get_data (a.surface);
+      db = cairo_image_surface_get_data (b.surface);
+      stride = cairo_image_surface_get_stride (a.surface);
+      for (int y = 0; y < HEIGHT; y++)
+        for (int x = 0; x < WIDTH; x++)
+          {
+            gboolean inside = x >= a.layout.body_x - 2 && x <= a.layout.body_x + a.layout.body_width + 2
+                              && y >= a.layout.body_y - 2 && y <= a.layout.body_y + a.layout.body_height + 2;
+            if (!inside && memcmp (da + y * stride + x * 4, db + y * stride + x * 4, 4) != 0)
+              g_error ("%s: a framing member shows outside the section at (%d, %d)", c->code, x, y);
+          }
+      render_clear (&a);
+      render_clear (&b);
+    }
+}
+
 static void
 test_deterministic (void)
 {
@@ -279,6 +351,7 @@ main (int    argc,
   g_test_add_func ("/sheet/section/hit-and-drag", test_hit_and_drag);
   g_test_add_func ("/sheet/section/pixels", test_pixels);
   g_test_add_func ("/sheet/section/deterministic", test_deterministic);
+  g_test_add_func ("/sheet/section/members-stay-inside", test_members_stay_inside);
   g_test_add_func ("/sheet/section/spread", test_spread);
   g_test_add_func ("/sheet/format/u", test_format_u);
   g_test_add_func ("/sheet/format/danish", test_format_danish);
