@@ -6,7 +6,6 @@
  * be exactly as before. */
 #include "lamina-hardening-util.h"
 
-#include <glib/gstdio.h>
 #include <stdint.h>
 #include <unistd.h>
 
@@ -32,20 +31,6 @@ set_up (void)
   g_assert_no_error (error);
 }
 
-static void
-fresh_copy (void)
-{
-  g_autofree char *contents = NULL;
-  g_autofree char *wal = g_strconcat (work_path, "-wal", NULL);
-  g_autofree char *shm = g_strconcat (work_path, "-shm", NULL);
-  gsize len = 0;
-
-  g_unlink (wal);
-  g_unlink (shm);
-  g_assert (g_file_get_contents (template_path, &contents, &len, NULL));
-  g_assert (g_file_set_contents (work_path, contents, (gssize) len, NULL));
-}
-
 int
 LLVMFuzzerTestOneInput (const uint8_t *data,
                         size_t         size)
@@ -61,7 +46,7 @@ LLVMFuzzerTestOneInput (const uint8_t *data,
     return 0;
   if (template_path == NULL)
     set_up ();
-  fresh_copy ();
+  lamina_hardening_copy_library (template_path, work_path);
   library = lamina_library_open (work_path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
   g_assert_no_error (error);
   report = lamina_library_import (library, catalogue, 0, "Fuzz", &error);

@@ -5,6 +5,7 @@
 #include "lamina-hardening-util.h"
 #include "lamina-store-test-util.h"
 
+#include <glib/gstdio.h>
 #include <math.h>
 #include <sqlite3.h>
 
@@ -198,4 +199,20 @@ lamina_hardening_make_wall (LaminaLibrary *library,
   g_autofree char *code = g_strdup_printf ("HW-%04u", n);
 
   return test_make_wall (library, code, name, "hardening", 100 + (n % 200));
+}
+
+void
+lamina_hardening_copy_library (const char *from,
+                               const char *to)
+{
+  g_autofree char *data = NULL;
+  g_autofree char *wal = g_strconcat (to, "-wal", NULL);
+  g_autofree char *shm = g_strconcat (to, "-shm", NULL);
+  gsize len = 0;
+
+  g_unlink (wal);
+  g_unlink (shm);
+  if (!g_file_get_contents (from, &data, &len, NULL)
+      || !g_file_set_contents (to, data, (gssize) len, NULL))
+    g_error ("cannot copy %s to %s", from, to);
 }

@@ -31,4 +31,9 @@ char     *lamina_hardening_dup_file_state (const char  *path,
 LaminaConstruction *lamina_hardening_make_wall (LaminaLibrary *library,
                                                 guint          n);
 
+/* Copies a closed library file over @to, removing @to's WAL and shared
+ * memory files first. */
+void      lamina_hardening_copy_library  (const char *from,
+                                          const char *to);
+
 G_END_DECLS

@@ -127,21 +127,6 @@ op_delete (LaminaLibrary  *library,
 
 /* ---- running an operation in a child that may die ---------------------- */
 
-static void
-copy_file (const char *from,
-           const char *to)
-{
-  g_autofree char *data = NULL;
-  g_autofree char *wal = g_strconcat (to, "-wal", NULL);
-  g_autofree char *shm = g_strconcat (to, "-shm", NULL);
-  gsize len = 0;
-
-  g_unlink (wal);
-  g_unlink (shm);
-  g_assert_true (g_file_get_contents (from, &data, &len, NULL));
-  g_assert_true (g_file_set_contents (to, data, (gssize) len, NULL));
-}
-
 /* Runs @op on @path in a child.  @exit_after 0: to the end, and the child
  * reports its count of write-like calls through a pipe (returned).
  * @free_bytes ≥ 0: a full disk after that many bytes of growth; the
@@ -257,7 +242,7 @@ sweep (Operation op)
   int status;
 
   g_assert_nonnull (old_state);
-  copy_file (base, work);
+  lamina_hardening_copy_library (base, work);
   total = run_child (work, op, 0, -1, &status, NULL);
   g_assert_true (WIFEXITED (status) && WEXITSTATUS (status) == 0);
   new_state = lamina_hardening_dup_file_state (work, NULL);
@@ -271,7 +256,7 @@ sweep (Operation op)
     {
       gboolean was_new = FALSE;
 
-      copy_file (base, work);
+      lamina_hardening_copy_library (base, work);
       run_child (work, op, k, -1, &status, NULL);
       g_assert_true (WIFEXITED (status));
       g_assert_cmpint (WEXITSTATUS (status), ==, LAMINA_FAULT_EXIT_STATUS);
@@ -311,7 +296,7 @@ test_sigkill_sweep (void)
       pid_t pid;
       int status;
 
-      copy_file (base, work);
+      lamina_hardening_copy_library (base, work);
       before = lamina_hardening_dup_file_state (work, NULL);
       pid = fork ();
       g_assert_cmpint (pid, >=, 0);
@@ -374,7 +359,7 @@ test_full_disk (void)
   guint n_failed = 0;
   int status;
 
-  copy_file (base, work);
+  lamina_hardening_copy_library (base, work);
   run_child (work, op_import, 0, -1, &status, NULL);
   g_assert_true (WIFEXITED (status) && WEXITSTATUS (status) == 0);
   new_state = lamina_hardening_dup_file_state (work, NULL);
@@ -384,7 +369,7 @@ test_full_disk (void)
       g_autofree char *message = NULL;
       gboolean was_new = FALSE;
 
-      copy_file (base, work);
+      lamina_hardening_copy_library (base, work);
       run_child (work, op_import, 0, free_bytes, &status, &message);
       g_assert_true (WIFEXITED (status));
       assert_old_or_new (work, old_state, new_state, &was_new);
