@@ -12,7 +12,7 @@
 #include "lamina-sheet-format.h"
 #include "lamina-test-constructions.h"
 
-#define PRACTICE "Holm & Brandt Architects"
+#define PRACTICE "Tamberlin Oke Architects"
 
 /* poppler-glib 22.12 defines no autoptr cleanups. */
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (PopplerPage, g_object_unref)
