@@ -9,10 +9,12 @@
 #include "lamina-cli-library.h"
 #include "lamina-cli-report.h"
 #include "lamina-library.h"
+#include "lamina-number.h"
 
 #include <glib/gi18n.h>
 #include <stdio.h>
 #include <math.h>
+#include <string.h>
 
 LaminaLibrary *
 lamina_cli_open_library (const LaminaCliGlobals *globals,
@@ -68,19 +70,57 @@ add_string (JsonBuilder *b,
     json_builder_add_string_value (b, value);
 }
 
+/* Every numeric option names itself and its allowed range when refused. */
 static gboolean
-parse_double (const char *text,
-              const char *option,
-              double     *value)
+parse_u (const char *text,
+         const char *option,
+         double     *value)
 {
-  char *end = NULL;
+  g_autoptr(GError) error = NULL;
 
   if (text == NULL)
     return TRUE;
-  *value = g_ascii_strtod (text, &end);
-  if (end == text || *end != '\0' || !isfinite (*value) || *value < 0)
+  if (!lamina_number_parse (LAMINA_FIELD_U_FILTER, text, value, &error))
     {
-      lamina_cli_error (_("%s: “%s” is not a number ≥ 0"), option, text);
+      lamina_cli_error ("%s: %s", option, error->message);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+gboolean
+lamina_cli_parse_revision (const char *text,
+                           int        *revision)
+{
+  guint64 n = 0;
+
+  if (text == NULL)
+    return TRUE;
+  if (!g_ascii_string_to_unsigned (text, 10, 1, G_MAXINT, &n, NULL))
+    {
+      lamina_cli_error (_("--revision: “%s” is not a revision number (allowed: 1 to %d)"),
+                        text, G_MAXINT);
+      return FALSE;
+    }
+  *revision = (int) n;
+  return TRUE;
+}
+
+/* YYYY-MM-DD, a real calendar date from 1900 to 2999. */
+static gboolean
+parse_date (const char *text)
+{
+  int y = 0, m = 0, d = 0;
+  char tail;
+
+  if (text == NULL)
+    return TRUE;
+  if (strlen (text) != 10 || sscanf (text, "%4d-%2d-%2d%c", &y, &m, &d, &tail) != 3
+      || !g_ascii_isdigit (text[0]) || text[4] != '-' || text[7] != '-'
+      || y < 1900 || y > 2999 || !g_date_valid_dmy ((GDateDay) d, (GDateMonth) m, (GDateYear) y))
+    {
+      lamina_cli_error (_("--date: “%s” is not a date (allowed: YYYY-MM-DD, 1900-01-01 to 2999-12-31)"),
+                        text);
       return FALSE;
     }
   return TRUE;
@@ -141,7 +181,7 @@ lamina_cli_list (const LaminaCliGlobals *globals,
         }
       q.status = st;
     }
-  if (!parse_double (max_u, "--max-u", &q.max_u))
+  if (!parse_u (max_u, "--max-u", &q.max_u))
     return LAMINA_EXIT_USAGE;
 
   library = lamina_cli_open_library (globals, FALSE);
@@ -236,8 +276,9 @@ lamina_cli_show (const LaminaCliGlobals *globals,
 {
   gboolean json = FALSE;
   int revision = 0;
+  g_autofree char *revision_text = NULL;
   const GOptionEntry entries[] = {
-    { "revision", 0, 0, G_OPTION_ARG_INT, &revision, N_("Show this revision (default: the latest)"), "N" },
+    { "revision", 0, 0, G_OPTION_ARG_STRING, &revision_text, N_("Show this revision (default: the latest)"), "N" },
     { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON with the keys of “calc --json”"), NULL },
     { NULL }
   };
@@ -256,6 +297,8 @@ lamina_cli_show (const LaminaCliGlobals *globals,
       lamina_cli_error (_("show takes one construction id (see “lamina-cli show --help”)"));
       return LAMINA_EXIT_USAGE;
     }
+  if (!lamina_cli_parse_revision (revision_text, &revision))
+    return LAMINA_EXIT_USAGE;
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
@@ -457,11 +500,11 @@ review (const LaminaCliGlobals *globals,
         char                  **argv,
         gboolean                approve)
 {
-  g_autofree char *by = NULL, *date = NULL, *id = NULL;
+  g_autofree char *by = NULL, *date = NULL, *id = NULL, *revision_text = NULL;
   int revision = 0;
   const GOptionEntry entries[] = {
     { "by", 0, 0, G_OPTION_ARG_STRING, &by, N_("Name of the reviewer (required)"), "NAME" },
-    { "revision", 0, 0, G_OPTION_ARG_INT, &revision, N_("The revision reviewed (default: the latest)"), "N" },
+    { "revision", 0, 0, G_OPTION_ARG_STRING, &revision_text, N_("The revision reviewed (default: the latest)"), "N" },
     { "date", 0, 0, G_OPTION_ARG_STRING, &date, N_("Approval date YYYY-MM-DD (default: today)"), "DATE" },
     { NULL }
   };
@@ -483,6 +526,13 @@ review (const LaminaCliGlobals *globals,
   if (!approve && date != NULL)
     {
       lamina_cli_error (_("--date: only for approve"));
+      return LAMINA_EXIT_USAGE;
+    }
+  if (!lamina_cli_parse_revision (revision_text, &revision) || !parse_date (date))
+    return LAMINA_EXIT_USAGE;
+  if (g_utf8_strlen (g_strstrip (by), -1) == 0 || g_utf8_strlen (by, -1) > 200)
+    {
+      lamina_cli_error (_("--by: the reviewer's name is required (allowed: 1 to 200 characters)"));
       return LAMINA_EXIT_USAGE;
     }
   library = lamina_cli_open_library (globals, FALSE);

@@ -19,4 +19,9 @@ char          *lamina_cli_resolve_id   (LaminaLibrary          *library,
 /* Prints @root (taken) as indented JSON on stdout. */
 void           lamina_cli_print_json   (JsonNode               *root);
 
+/* --revision N: 1 … G_MAXINT; @text NULL leaves @revision.  FALSE after
+ * printing a message that names the option and the range. */
+gboolean       lamina_cli_parse_revision (const char           *text,
+                                          int                  *revision);
+
 G_END_DECLS

@@ -22,6 +22,17 @@ run_cli (const char *const *args,
   g_autoptr(GError) error = NULL;
   int status = -1;
 
+  /* LAMINA_CLI_WRAPPER (e.g. "valgrind --leak-check=full -q") runs the
+   * CLI under a checker (build-aux/check-hardening). */
+  if (g_getenv ("LAMINA_CLI_WRAPPER") != NULL)
+    {
+      g_auto(GStrv) wrapper = NULL;
+
+      g_assert_true (g_shell_parse_argv (g_getenv ("LAMINA_CLI_WRAPPER"), NULL, &wrapper, NULL));
+      g_ptr_array_add (argv, g_find_program_in_path (wrapper[0]));
+      for (guint i = 1; wrapper[i] != NULL; i++)
+        g_ptr_array_add (argv, g_strdup (wrapper[i]));
+    }
   g_ptr_array_add (argv, g_build_filename (g_getenv ("LAMINA_BUILD_DIR"), "src", "cli", "lamina-cli", NULL));
   for (guint i = 0; args[i] != NULL; i++)
     g_ptr_array_add (argv, g_strdup (args[i]));

@@ -22,6 +22,17 @@ run (char       **out,
   va_list ap;
 
   g_assert_nonnull (build);
+  /* LAMINA_CLI_WRAPPER (e.g. "valgrind --leak-check=full -q") runs the
+   * CLI under a checker (build-aux/check-hardening). */
+  if (g_getenv ("LAMINA_CLI_WRAPPER") != NULL)
+    {
+      g_auto(GStrv) wrapper = NULL;
+
+      g_assert_true (g_shell_parse_argv (g_getenv ("LAMINA_CLI_WRAPPER"), NULL, &wrapper, NULL));
+      g_ptr_array_add (args, g_find_program_in_path (wrapper[0]));
+      for (guint i = 1; wrapper[i] != NULL; i++)
+        g_ptr_array_add (args, g_strdup (wrapper[i]));
+    }
   g_ptr_array_add (args, g_build_filename (build, "src", "cli", "lamina-cli", NULL));
   g_ptr_array_add (args, g_strdup ("--library"));
   g_ptr_array_add (args, g_strdup (library_path));
