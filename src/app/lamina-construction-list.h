@@ -34,7 +34,7 @@ void  lamina_construction_list_set_sort     (LaminaConstructionList *self,
                                              gboolean                descending);
 /* Re-reads the count and drops the cached pages. */
 void  lamina_construction_list_refresh      (LaminaConstructionList *self);
-/* Position of @id among the rows, or −1 (searches the store's order). */
+/* Position of @id among the first few hundred rows, or −1. */
 int   lamina_construction_list_find         (LaminaConstructionList *self,
                                              const char             *id);
 /* A copy of the current query without paging (strings borrowed from

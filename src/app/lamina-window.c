@@ -216,19 +216,26 @@ update_count (LaminaWindow *self)
   gtk_label_set_text (self->count_label, text);
 }
 
-void
-lamina_window_refresh_list (LaminaWindow *self)
+/* After the list changed: select the open construction's row again. */
+static void
+sync_selection (LaminaWindow *self)
 {
   const char *id = self->document ? lamina_document_get_id (self->document) : NULL;
   int position;
 
   self->selecting = TRUE;
-  lamina_construction_list_refresh (self->list);
   position = id ? lamina_construction_list_find (self->list, id) : -1;
   gtk_single_selection_set_selected (self->selection,
                                      position >= 0 ? (guint) position : GTK_INVALID_LIST_POSITION);
   self->selecting = FALSE;
   update_count (self);
+}
+
+void
+lamina_window_refresh_list (LaminaWindow *self)
+{
+  lamina_construction_list_refresh (self->list);
+  sync_selection (self);
 }
 
 /* Filters */
@@ -241,7 +248,7 @@ on_search_changed_cb (LaminaWindow *self)
   self->selecting = TRUE;
   lamina_construction_list_set_text (self->list, text);
   self->selecting = FALSE;
-  lamina_window_refresh_list (self);
+  sync_selection (self);
 }
 
 void
@@ -279,7 +286,7 @@ on_filters_changed_cb (LaminaWindow *self)
   lamina_construction_list_set_sort (self->list, sorts[MIN (sort, G_N_ELEMENTS (sorts) - 1)],
                                      sort == 4 /* newest first */);
   self->selecting = FALSE;
-  lamina_window_refresh_list (self);
+  sync_selection (self);
 }
 
 static void
