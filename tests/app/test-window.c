@@ -310,6 +310,39 @@ test_material_changed (Fixture       *f,
 }
 
 static void
+test_derive_delete_undo (Fixture       *f,
+                         gconstpointer  data)
+{
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (f->window));
+  g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, 0);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaConstruction) original = NULL;
+  g_autofree char *derived_id = NULL;
+  guint n = g_list_model_get_n_items (list);
+
+  g_assert_true (lamina_window_open (f->window, lamina_construction_item_get_id (item), &error));
+  original = lamina_construction_copy (open_state (f));
+
+  /* Derive: a new draft with the same build-up, opened in the editor. */
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.derive", NULL);
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, n + 1);
+  derived_id = g_strdup (open_state (f)->id);
+  g_assert_cmpstr (derived_id, !=, original->id);
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_DRAFT);
+  g_assert_cmpuint (open_state (f)->layers->len, ==, original->layers->len);
+  for (guint i = 0; i < original->layers->len; i++)
+    g_assert_true (lamina_layer_equal (open_state (f)->layers->pdata[i], original->layers->pdata[i]));
+
+  /* Delete it, then undo the delete from the message. */
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.delete", NULL);
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, n);
+  g_assert_null (lamina_library_get_construction (f->library, derived_id, 0, NULL));
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo-delete", NULL);
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, n + 1);
+  g_assert_cmpstr (open_state (f)->id, ==, derived_id);
+}
+
+static void
 assert_pdf (const char *path)
 {
   g_autofree char *data = NULL;
@@ -447,6 +480,7 @@ main (int   argc,
       g_test_add ("/app/window/search-narrows", Fixture, NULL, fixture_setup, test_search_narrows, fixture_teardown);
       g_test_add ("/app/window/approve-then-edit", Fixture, NULL, fixture_setup, test_approve_then_edit, fixture_teardown);
       g_test_add ("/app/window/material-changed", Fixture, NULL, fixture_setup, test_material_changed, fixture_teardown);
+      g_test_add ("/app/window/derive-delete-undo", Fixture, NULL, fixture_setup, test_derive_delete_undo, fixture_teardown);
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
     }
