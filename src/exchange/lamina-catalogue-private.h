@@ -22,6 +22,13 @@ xmlDoc *lamina_xml_document_parse (const char  *data,
                                    const char  *name,
                                    GError     **error);
 
+/* Checks a document Lamina wrote against the schema without building a
+ * tree (the writer's last guard). */
+gboolean lamina_xml_document_check (const char  *data,
+                                    gsize        length,
+                                    const char  *name,
+                                    GError     **error);
+
 /* The source line of an element (or of an attribute's element) of a
  * document from lamina_xml_document_parse. */
 int     lamina_xml_node_get_line  (xmlNode     *node);

@@ -448,7 +448,6 @@ lamina_catalogue_write_to_string (const LaminaCatalogue *catalogue,
 {
   g_autoptr(GString) out = g_string_new (NULL);
   g_autoptr(GError) local = NULL;
-  g_autoptr(xmlDoc) doc = NULL;
   Writer w = { out, error, NULL };
   gboolean ok;
 
@@ -464,8 +463,7 @@ lamina_catalogue_write_to_string (const LaminaCatalogue *catalogue,
     return NULL;
 
   /* A last guard: ids, names and dates must fit the schema too. */
-  doc = lamina_xml_document_parse (out->str, out->len, _("the written catalogue"), &local);
-  if (doc == NULL)
+  if (!lamina_xml_document_check (out->str, out->len, _("the written catalogue"), &local))
     {
       g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_INVALID,
                    _("The catalogue cannot be written as a valid document: %s"), local->message);
