@@ -81,6 +81,36 @@ ignore_generic_error_cb (void       *ctx,
 {
 }
 
+/* libxml2's global handlers are per thread; while a document is read they
+ * catch the few errors that do not go through a context (encoding
+ * conversion, memory) into @sink, and nothing is printed. */
+typedef struct
+{
+  xmlStructuredErrorFunc structured;
+  void                  *structured_context;
+  xmlGenericErrorFunc    generic;
+  void                  *generic_context;
+} ErrorHandlers;
+
+static void
+catch_errors (ErrorHandlers *saved,
+              ErrorSink     *sink)
+{
+  saved->structured = xmlStructuredError;
+  saved->structured_context = xmlStructuredErrorContext;
+  saved->generic = xmlGenericError;
+  saved->generic_context = xmlGenericErrorContext;
+  xmlSetStructuredErrorFunc (sink, sink_error_cb);
+  xmlSetGenericErrorFunc (NULL, ignore_generic_error_cb);
+}
+
+static void
+release_errors (const ErrorHandlers *saved)
+{
+  xmlSetStructuredErrorFunc (saved->structured_context, saved->structured);
+  xmlSetGenericErrorFunc (saved->generic_context, saved->generic);
+}
+
 /* Called at "<!DOCTYPE name": refuse before any declaration is read. */
 static void
 refuse_doctype_cb (void          *ctx,
@@ -286,9 +316,7 @@ lamina_xml_document_parse (const char  *data,
 {
   g_autoptr(xmlDoc) doc = NULL;
   ErrorSink sink = { 0 };
-  xmlStructuredErrorFunc old_structured;
-  xmlGenericErrorFunc old_generic;
-  void *old_structured_context, *old_generic_context;
+  ErrorHandlers handlers;
   gboolean ok = FALSE;
 
   g_return_val_if_fail (data != NULL || length == 0, NULL);
@@ -307,14 +335,7 @@ lamina_xml_document_parse (const char  *data,
     }
 
   xmlInitParser ();
-  /* These are per thread in libxml2; they catch the few errors that do not
-   * go through a context (encoding conversion, memory). */
-  old_structured = xmlStructuredError;
-  old_structured_context = xmlStructuredErrorContext;
-  old_generic = xmlGenericError;
-  old_generic_context = xmlGenericErrorContext;
-  xmlSetStructuredErrorFunc (&sink, sink_error_cb);
-  xmlSetGenericErrorFunc (NULL, ignore_generic_error_cb);
+  catch_errors (&handlers, &sink);
 
   doc = parse_safely (data, length, &sink);
   if (sink.doctype || (doc != NULL && (doc->intSubset != NULL || doc->extSubset != NULL)))
@@ -327,8 +348,7 @@ lamina_xml_document_parse (const char  *data,
   else if (check_root (doc, name, error))
     ok = validate (doc, name, &sink, error);
 
-  xmlSetStructuredErrorFunc (old_structured_context, old_structured);
-  xmlSetGenericErrorFunc (old_generic_context, old_generic);
+  release_errors (&handlers);
   g_free (sink.message);
   return ok ? g_steal_pointer (&doc) : NULL;
 }
@@ -348,9 +368,7 @@ lamina_xml_document_check (const char  *data,
   ErrorSink sink = { 0 };
   xmlParserInputBuffer *input;
   xmlSchemaValidCtxt *vctxt;
-  xmlStructuredErrorFunc old_structured;
-  xmlGenericErrorFunc old_generic;
-  void *old_structured_context, *old_generic_context;
+  ErrorHandlers handlers;
   int rc;
 
   if (schema == NULL)
@@ -361,12 +379,7 @@ lamina_xml_document_check (const char  *data,
   if (input == NULL)
     return fail (error, LAMINA_XML_ERROR_IO, name, 1, _("out of memory"));
 
-  old_structured = xmlStructuredError;
-  old_structured_context = xmlStructuredErrorContext;
-  old_generic = xmlGenericError;
-  old_generic_context = xmlGenericErrorContext;
-  xmlSetStructuredErrorFunc (&sink, sink_error_cb);
-  xmlSetGenericErrorFunc (NULL, ignore_generic_error_cb);
+  catch_errors (&handlers, &sink);
 
   /* No callbacks of our own: the schema's SAX plug sees every event and
    * nothing is built. */
@@ -377,8 +390,7 @@ lamina_xml_document_check (const char  *data,
   rc = xmlSchemaValidateStream (vctxt, input, XML_CHAR_ENCODING_NONE, &sax, NULL);
   xmlSchemaFreeValidCtxt (vctxt);
 
-  xmlSetStructuredErrorFunc (old_structured_context, old_structured);
-  xmlSetGenericErrorFunc (old_generic_context, old_generic);
+  release_errors (&handlers);
   if (rc != 0)
     fail (error, LAMINA_XML_ERROR_SCHEMA, name, sink.line,
           sink.message ? sink.message : _("the document breaks the catalogue schema"));
