@@ -12,6 +12,7 @@
 
 #include "lamina-editor-private.h"
 #include "lamina-editor-state.h"
+#include "lamina-number.h"
 #include "lamina-text.h"
 
 typedef struct _Form Form;
@@ -168,9 +169,13 @@ form_add_number (Form       *form,
   form_add (form, name, label, entry);
 }
 
+/* @kind is a LaminaNumberField, parsed by the core's field parser (range
+ * and unit checked, the field named in the message), or −1 for a value
+ * with no field of its own there. */
 static gboolean
 form_get_number (Form        *form,
                  const char  *name,
+                 int          kind,
                  const char  *field,
                  gboolean     optional,
                  double      *value,
@@ -183,6 +188,13 @@ form_get_number (Form        *form,
     {
       *value = NAN;
       return TRUE;
+    }
+  if (kind >= 0)
+    {
+      if (lamina_number_parse ((LaminaNumberField) kind, text, value, error))
+        return TRUE;
+      gtk_widget_add_css_class (entry, "error");
+      return FALSE;
     }
   if (lamina_text_parse_number (text, value))
     return TRUE;
@@ -269,17 +281,10 @@ apply_material (Form    *form,
       g_autoptr(LaminaLayer) layer = NULL;
       guint at = state->layers->len ? form_layer (form) + 1 : 0;
 
-      if (!form_get_number (form, "thickness", _("Thickness"), FALSE, &thickness, error))
+      if (!form_get_number (form, "thickness", LAMINA_FIELD_THICKNESS, _("Thickness"), FALSE, &thickness, error))
         return FALSE;
       layer = lamina_layer_new_material (thickness, lamina_material_copy (material));
       next = lamina_edit_insert_layer (state, at, layer, error);
-      if (next != NULL && !(thickness >= LAMINA_EDIT_MIN_THICKNESS))
-        {
-          lamina_construction_free (next);
-          g_set_error_literal (error, G_IO_ERROR, G_IO_ERROR_INVALID_DATA,
-                               _("Thickness: must be above 0 mm"));
-          return FALSE;
-        }
       if (!form_apply_next (form, next, NULL))
         return FALSE;
       lamina_section_view_set_selected (lamina_editor_get_section_view (form->editor), (int) at);
@@ -313,8 +318,8 @@ apply_bridged (Form    *form,
   const LaminaLayer *layer = form_current_layer (form);
   const LaminaMaterial *infill = layer && layer->kind == LAMINA_LAYER_MATERIAL ? layer->material : NULL;
 
-  if (!form_get_number (form, "width", _("Width"), FALSE, &width, error) ||
-      !form_get_number (form, "spacing", _("Spacing"), FALSE, &spacing, error))
+  if (!form_get_number (form, "width", LAMINA_FIELD_WIDTH, _("Width"), FALSE, &width, error) ||
+      !form_get_number (form, "spacing", LAMINA_FIELD_SPACING, _("Spacing"), FALSE, &spacing, error))
     return FALSE;
   next = lamina_edit_make_bridged (form_state (form), form_layer (form), infill,
                                    form_get_material (form, "framing"), width, spacing,
@@ -343,9 +348,9 @@ apply_air (Form    *form,
   LaminaConstruction *next;
   guint kind = gtk_drop_down_get_selected (g_hash_table_lookup (form->fields, "kind"));
 
-  if (!form_get_number (form, "vent", _("Vent area"), TRUE, &vent, error) ||
-      !form_get_number (form, "e1", _("Inner face emissivity"), FALSE, &e1, error) ||
-      !form_get_number (form, "e2", _("Outer face emissivity"), FALSE, &e2, error))
+  if (!form_get_number (form, "vent", -1, _("Vent area"), TRUE, &vent, error) ||
+      !form_get_number (form, "e1", LAMINA_FIELD_EMISSIVITY, _("Inner face emissivity"), FALSE, &e1, error) ||
+      !form_get_number (form, "e2", LAMINA_FIELD_EMISSIVITY, _("Outer face emissivity"), FALSE, &e2, error))
     return FALSE;
   next = lamina_edit_make_air (form_state (form), form_layer (form), (LaminaAirKind) kind,
                                vent, e1, e2, error);
@@ -379,7 +384,7 @@ apply_declared (Form    *form,
   double r;
   LaminaConstruction *next;
 
-  if (!form_get_number (form, "r", _("Thermal resistance"), FALSE, &r, error))
+  if (!form_get_number (form, "r", LAMINA_FIELD_THERMAL_RESISTANCE, _("Thermal resistance"), FALSE, &r, error))
     return FALSE;
   next = lamina_edit_make_declared (form_state (form), form_layer (form), r, error);
   return form_apply_next (form, next, NULL);
@@ -411,12 +416,12 @@ apply_corrections (Form    *form,
   c.has_air_gaps = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "gaps"));
   c.has_fasteners = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "fasteners"));
   c.has_inverted_roof = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "inverted"));
-  if (!form_get_number (form, "level", _("Air gap level"), FALSE, &level, error) ||
-      !form_get_number (form, "lf", _("Fastener λ"), FALSE, &c.fastener_conductivity, error) ||
-      !form_get_number (form, "af", _("Fastener cross-section"), FALSE, &c.fastener_cross_section, error) ||
-      !form_get_number (form, "nf", _("Fasteners per m²"), FALSE, &c.fasteners_per_square_metre, error) ||
-      !form_get_number (form, "p", _("Precipitation"), FALSE, &c.precipitation, error) ||
-      !form_get_number (form, "f", _("Drainage factor"), FALSE, &c.drainage_factor, error))
+  if (!form_get_number (form, "level", -1, _("Air gap level"), FALSE, &level, error) ||
+      !form_get_number (form, "lf", LAMINA_FIELD_CONDUCTIVITY, _("Fastener λ"), FALSE, &c.fastener_conductivity, error) ||
+      !form_get_number (form, "af", -1, _("Fastener cross-section"), FALSE, &c.fastener_cross_section, error) ||
+      !form_get_number (form, "nf", -1, _("Fasteners per m²"), FALSE, &c.fasteners_per_square_metre, error) ||
+      !form_get_number (form, "p", -1, _("Precipitation"), FALSE, &c.precipitation, error) ||
+      !form_get_number (form, "f", -1, _("Drainage factor"), FALSE, &c.drainage_factor, error))
     return FALSE;
   c.air_gap_level = (int) level;
   next = lamina_edit_set_corrections (form_state (form), form_layer (form), &c, error);

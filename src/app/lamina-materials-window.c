@@ -8,6 +8,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-number.h"
 #include "lamina-text.h"
 
 typedef struct
@@ -40,9 +41,9 @@ on_save_clicked_cb (GtkButton *button,
   g_autoptr(GError) error = NULL;
   double value;
 
-  if (!lamina_text_parse_number (gtk_editable_get_text (lambda), &value) || !(value > 0))
+  if (!lamina_number_parse (LAMINA_FIELD_CONDUCTIVITY, gtk_editable_get_text (lambda), &value, &error))
     {
-      g_autofree char *text = g_strdup_printf (_("%s: λ must be a number above 0"), material->name);
+      g_autofree char *text = g_strdup_printf ("%s: %s", material->name, error->message);
 
       gtk_label_set_text (m->status, text);
       gtk_widget_add_css_class (GTK_WIDGET (lambda), "error");

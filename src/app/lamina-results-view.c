@@ -8,6 +8,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-number.h"
 #include "lamina-text.h"
 
 typedef enum
@@ -96,16 +97,20 @@ static void
 emit_conditions (LaminaResultsView *self)
 {
   const char *text = gtk_editable_get_text (GTK_EDITABLE (self->target_entry));
+  g_autoptr(GError) error = NULL;
   double target = NAN;
 
   if (self->updating)
     return;
-  if (*text != '\0' && !lamina_text_parse_number (text, &target))
+  if (!lamina_text_is_blank (text) && !lamina_number_parse (LAMINA_FIELD_TARGET_U, text, &target, &error))
     {
+      /* The message names the field and the allowed range. */
       gtk_widget_add_css_class (GTK_WIDGET (self->target_entry), "error");
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->target_entry), error->message);
       return;
     }
   gtk_widget_remove_css_class (GTK_WIDGET (self->target_entry), "error");
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->target_entry), NULL);
   g_signal_emit (self, signals[CONDITIONS_CHANGED], 0,
                  gtk_spin_button_get_value (self->inside_spin),
                  gtk_spin_button_get_value (self->outside_spin),

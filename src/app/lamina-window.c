@@ -9,6 +9,7 @@
 #include <math.h>
 
 #include "lamina-construction-item.h"
+#include "lamina-number.h"
 #include "lamina-text.h"
 
 G_DEFINE_FINAL_TYPE (LaminaWindow, lamina_window, GTK_TYPE_APPLICATION_WINDOW)
@@ -260,6 +261,26 @@ lamina_window_set_search (LaminaWindow *self,
   on_search_changed_cb (self);
 }
 
+/* An empty bound is open; a bad one is marked and ignored. */
+static void
+read_u_bound (GtkEntry *entry,
+              double   *value)
+{
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (entry));
+  g_autoptr(GError) error = NULL;
+
+  *value = NAN;
+  if (lamina_text_is_blank (text) || lamina_number_parse (LAMINA_FIELD_U_FILTER, text, value, &error))
+    {
+      gtk_widget_remove_css_class (GTK_WIDGET (entry), "error");
+      gtk_widget_set_tooltip_text (GTK_WIDGET (entry), NULL);
+      return;
+    }
+  *value = NAN;
+  gtk_widget_add_css_class (GTK_WIDGET (entry), "error");
+  gtk_widget_set_tooltip_text (GTK_WIDGET (entry), error->message);
+}
+
 static void
 on_filters_changed_cb (LaminaWindow *self)
 {
@@ -272,10 +293,8 @@ on_filters_changed_cb (LaminaWindow *self)
     LAMINA_SORT_CODE, LAMINA_SORT_NAME, LAMINA_SORT_U, LAMINA_SORT_THICKNESS, LAMINA_SORT_MODIFIED,
   };
 
-  if (!lamina_text_parse_number (gtk_editable_get_text (GTK_EDITABLE (self->min_u_entry)), &min_u))
-    min_u = NAN;
-  if (!lamina_text_parse_number (gtk_editable_get_text (GTK_EDITABLE (self->max_u_entry)), &max_u))
-    max_u = NAN;
+  read_u_bound (self->min_u_entry, &min_u);
+  read_u_bound (self->max_u_entry, &max_u);
 
   self->selecting = TRUE;
   lamina_construction_list_set_element (self->list, element == 0 || element == GTK_INVALID_LIST_POSITION ? -1 : (int) element - 1);
