@@ -528,12 +528,15 @@ review (const LaminaCliGlobals *globals,
       lamina_cli_error (_("--date: only for approve"));
       return LAMINA_EXIT_USAGE;
     }
-  if (!lamina_cli_parse_revision (revision_text, &revision) || !parse_date (date))
+  if (!lamina_cli_parse_revision (revision_text, &revision))
     return LAMINA_EXIT_USAGE;
+  /* A wrong date or name is bad input (exit 1), as when the store refuses it. */
+  if (!parse_date (date))
+    return LAMINA_EXIT_BAD_INPUT;
   if (g_utf8_strlen (g_strstrip (by), -1) == 0 || g_utf8_strlen (by, -1) > 200)
     {
       lamina_cli_error (_("--by: the reviewer's name is required (allowed: 1 to 200 characters)"));
-      return LAMINA_EXIT_USAGE;
+      return LAMINA_EXIT_BAD_INPUT;
     }
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)

@@ -466,7 +466,9 @@ lamina_sqlite_backend_open (const char             *path,
                        "%s: no such library", path);
           return NULL;
         }
-      if (g_mkdir_with_parents (dir, 0700) != 0)
+      /* The user's normal permissions (the umask decides): an office
+       * library in a new shared folder must stay readable by colleagues. */
+      if (g_mkdir_with_parents (dir, 0777) != 0)
         {
           int saved = errno;
           g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
