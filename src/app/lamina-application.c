@@ -110,8 +110,10 @@ lamina_application_activate (GApplication *application)
       show_error (GTK_APPLICATION (self), error->message);
       return;
     }
-  /* A fresh library starts with the demo, so a new user sees real work. */
-  if ((self->demo || is_empty (self->library)) && is_empty (self->library) &&
+  /* Invented demo data goes into a library only when asked for (--demo
+   * or the button on an empty library), never into an office's own file
+   * by surprise. */
+  if (self->demo && is_empty (self->library) &&
       !lamina_application_load_demo (self->library, &error))
     g_warning ("Demo library: %s", error->message);
   window = GTK_WINDOW (lamina_window_new (self, self->library));

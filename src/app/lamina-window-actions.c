@@ -42,6 +42,8 @@ lamina_window_update_actions (LaminaWindow *self)
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.export-sheet", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.print", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo-delete", self->deleted_id != NULL);
+  gtk_widget_set_visible (self->demo_button,
+                          self->list != NULL && g_list_model_get_n_items (G_LIST_MODEL (self->list)) == 0);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.conflict-keep", conflict);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.conflict-reload", conflict);
 }
@@ -335,6 +337,23 @@ materials_action (GtkWidget  *widget,
 }
 
 static void
+load_demo_action (GtkWidget  *widget,
+                  const char *name,
+                  GVariant   *parameter)
+{
+  LaminaWindow *self = LAMINA_WINDOW (widget);
+  g_autoptr(GError) error = NULL;
+
+  if (!lamina_application_load_demo (self->library, &error))
+    {
+      lamina_window_notify (self, error->message);
+      return;
+    }
+  lamina_window_refresh_list (self);
+  lamina_window_notify (self, _("Demo build-ups loaded: an invented practice, not design values for real work"));
+}
+
+static void
 search_action (GtkWidget  *widget,
                const char *name,
                GVariant   *parameter)
@@ -362,6 +381,7 @@ lamina_window_install_actions (GtkWidgetClass *widget_class)
   gtk_widget_class_install_action (widget_class, "win.conflict-reload", NULL, conflict_action);
   gtk_widget_class_install_action (widget_class, "win.materials", NULL, materials_action);
   gtk_widget_class_install_action (widget_class, "win.search", NULL, search_action);
+  gtk_widget_class_install_action (widget_class, "win.load-demo", NULL, load_demo_action);
   lamina_window_install_export_actions (widget_class);
 
   gtk_widget_class_add_binding_action (widget_class, GDK_KEY_z, GDK_CONTROL_MASK, "win.undo", NULL);

@@ -29,6 +29,7 @@ struct _LaminaWindow
   GtkRevealer            *toast_revealer;
   GtkLabel               *toast_label;
   GtkWidget              *toast_undo;
+  GtkWidget              *demo_button;
 
   /* owned */
   LaminaLibrary          *library;

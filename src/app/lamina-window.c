@@ -230,6 +230,7 @@ sync_selection (LaminaWindow *self)
                                      position >= 0 ? (guint) position : GTK_INVALID_LIST_POSITION);
   self->selecting = FALSE;
   update_count (self);
+  lamina_window_update_actions (self);
 }
 
 void
@@ -532,6 +533,7 @@ lamina_window_class_init (LaminaWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_revealer);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_undo);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, demo_button);
 
   lamina_window_install_actions (widget_class);
 }
