@@ -202,9 +202,9 @@ lamina_cli_demo (const LaminaCliGlobals *globals,
   n = lamina_library_count (library, &q, &error);
   if (n != 0)
     {
-      lamina_cli_error (_("%s: the library holds %" G_GINT64_FORMAT " constructions; the demo "
+      lamina_cli_error (_("%s: the library holds %lld constructions; the demo "
                           "goes into an empty library only"),
-                        lamina_library_get_path (library), n);
+                        lamina_library_get_path (library), (long long) n);
       return LAMINA_EXIT_BAD_INPUT;
     }
   return import_catalogue (library, catalogue, "lamina-demo.xml", LAMINA_IMPORT_DEFAULT);

@@ -145,7 +145,8 @@ get_count (Reader     *r,
     return TRUE;
   if (!g_ascii_string_to_unsigned (text, 10, 0, max, &v, NULL))
     return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
-                 _("%s=“%s” is not a whole number from 0 to %" G_GUINT64_FORMAT), attr, text, max);
+                 _("%s=“%s” is not a whole number from 0 to %llu"), attr, text,
+                 (unsigned long long) max);
   *value = (int) v;
   return TRUE;
 }
