@@ -11,6 +11,7 @@
 #include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
+#include <unistd.h>
 
 /* Another process holding the write lock is waited for this long. */
 #define BUSY_TIMEOUT_MS 5000
@@ -448,6 +449,64 @@ open_file (const char    *path,
   return self;
 }
 
+static void
+remove_with_wal (const char *path)
+{
+  g_autofree char *wal = g_strconcat (path, "-wal", NULL);
+  g_autofree char *shm = g_strconcat (path, "-shm", NULL);
+
+  g_unlink (wal);
+  g_unlink (shm);
+  g_unlink (path);
+}
+
+/* Builds a complete new library beside @path and links it into place, so
+ * that no other process ever sees a half-made file: two colleagues
+ * opening a new office library at the same moment both end up in the one
+ * file that won (link() does not replace), and a failure leaves no file
+ * behind.  *@created tells whether ours won. */
+static gboolean
+create_library_file (const char  *path,
+                     gboolean     seed,
+                     gboolean    *created,
+                     GError     **error)
+{
+  /* The pid too: forked processes share the random generator's state. */
+  g_autofree char *tmp = g_strdup_printf ("%s.new-%ld-%08x", path, (long) getpid (),
+                                         g_random_int ());
+  LaminaSqlite *self = open_file (tmp, TRUE, error);
+  gboolean ok;
+
+  if (self == NULL)
+    {
+      remove_with_wal (tmp);
+      return FALSE;
+    }
+  ok = create_schema (self, LAMINA_LIBRARY_SCHEMA_VERSION, seed, error);
+  /* Closing the last connection checkpoints the WAL into the file. */
+  sqlite_close (&self->parent);
+  if (ok && link (tmp, path) == 0)
+    *created = TRUE;
+  else if (ok && errno != EEXIST)
+    {
+      int saved = errno;
+
+      /* Some network shares have no hard links: rename instead, which
+       * could only replace a file made in the very same instant. */
+      if ((saved == EPERM || saved == ENOTSUP || saved == ENOSYS)
+          && !g_file_test (path, G_FILE_TEST_EXISTS) && g_rename (tmp, path) == 0)
+        *created = TRUE;
+      else
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                       "%s: cannot create: %s", path, g_strerror (saved));
+          ok = FALSE;
+        }
+    }
+  remove_with_wal (tmp);
+  return ok;
+}
+
 LaminaBackend *
 lamina_sqlite_backend_open (const char             *path,
                             LaminaLibraryOpenFlags  flags,
@@ -455,6 +514,7 @@ lamina_sqlite_backend_open (const char             *path,
 {
   LaminaSqlite *self;
   int version = 0, rc;
+  gboolean created = FALSE;
 
   if (!g_file_test (path, G_FILE_TEST_EXISTS))
     {
@@ -475,39 +535,30 @@ lamina_sqlite_backend_open (const char             *path,
                        "%s: cannot create the folder: %s", dir, g_strerror (saved));
           return NULL;
         }
-      self = open_file (path, TRUE, error);
-      if (self == NULL)
+      if (!create_library_file (path, !(flags & LAMINA_LIBRARY_OPEN_NO_SEED), &created, error))
         return NULL;
-      if (!create_schema (self, LAMINA_LIBRARY_SCHEMA_VERSION,
-                          !(flags & LAMINA_LIBRARY_OPEN_NO_SEED), error))
-        {
-          sqlite_close (&self->parent);
-          g_unlink (path);
-          return NULL;
-        }
-      self->parent.opened_version = 0;
     }
-  else
+  /* A new file is opened like any other, once it is complete. */
+  if (!check_header (path, error))
+    return NULL;
+  self = open_file (path, FALSE, error);
+  if (self == NULL)
+    return NULL;
+  if (!recognise (self, &version, error))
     {
-      if (!check_header (path, error))
-        return NULL;
-      self = open_file (path, FALSE, error);
-      if (self == NULL)
-        return NULL;
-      if (!recognise (self, &version, error))
-        {
-          sqlite_close (&self->parent);
-          return NULL;
-        }
-      self->parent.opened_version = version;
-      if (version < LAMINA_LIBRARY_SCHEMA_VERSION
-          && (!lamina_sqlite_exec (self, "PRAGMA journal_mode = WAL;", error)
-              || !upgrade (self, version, error)))
-        {
-          sqlite_close (&self->parent);
-          return NULL;
-        }
+      sqlite_close (&self->parent);
+      return NULL;
     }
+  self->parent.opened_version = version;
+  if (version < LAMINA_LIBRARY_SCHEMA_VERSION
+      && (!lamina_sqlite_exec (self, "PRAGMA journal_mode = WAL;", error)
+          || !upgrade (self, version, error)))
+    {
+      sqlite_close (&self->parent);
+      return NULL;
+    }
+  if (created)
+    self->parent.opened_version = 0;
   self->data_version = query_int (self, "PRAGMA data_version;", &rc);
   return &self->parent;
 }

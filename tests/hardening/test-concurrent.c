@@ -25,6 +25,7 @@
 #include "lamina-hardening-util.h"
 
 #define N_SHARED 4
+#define BUSY_EXIT(e) (g_error_matches ((e), LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_BUSY) ? 3 : 2)
 
 typedef struct
 {
@@ -316,11 +317,82 @@ test_two_processes (void)
     g_free (logs[w]);
 }
 
+/* Two processes open a library that does not exist yet at the same
+ * moment (two colleagues starting the app on a new office file) and each
+ * saves a construction: both are kept, whoever created the file. */
+static void
+test_create_race (void)
+{
+  guint rounds = 12;
+
+  g_mkdir_with_parents (g_get_user_data_dir (), 0700);
+  for (guint round = 0; round < rounds; round++)
+    {
+      g_autofree char *path = g_strdup_printf ("%s/new-%u.sqlite", g_get_user_data_dir (), round);
+      g_autoptr(LaminaLibrary) library = NULL;
+      g_autoptr(GError) error = NULL;
+      int go[2];
+      pid_t pids[2];
+
+      g_assert_cmpint (pipe (go), ==, 0);
+      for (guint w = 0; w < 2; w++)
+        {
+          pids[w] = fork ();
+          g_assert_cmpint (pids[w], >=, 0);
+          if (pids[w] == 0)
+            {
+              LaminaLibrary *mine;
+              g_autoptr(LaminaConstruction) c = NULL;
+              char byte;
+
+              close (go[1]);
+              /* Both start when the pipe is closed. */
+              if (read (go[0], &byte, 1) < 0)
+                _exit (5);
+              mine = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+              if (mine == NULL)
+                {
+                  g_printerr ("worker %u: %s\n", w, error->message);
+                  _exit (BUSY_EXIT (error));
+                }
+              c = lamina_hardening_make_wall (mine, w);
+              c->id = g_strdup_printf ("first-%u", w);
+              g_free (lamina_library_create_construction (mine, c, "Author", &error));
+              g_object_unref (mine);
+              _exit (error == NULL ? 0 : 1);
+            }
+        }
+      close (go[0]);
+      g_usleep (20000);
+      close (go[1]);
+      for (guint w = 0; w < 2; w++)
+        {
+          int status;
+
+          g_assert_cmpint (waitpid (pids[w], &status, 0), ==, pids[w]);
+          g_assert_true (WIFEXITED (status));
+          g_assert_cmpint (WEXITSTATUS (status), ==, 0);
+        }
+      if (!lamina_hardening_check_library (path, &error))
+        g_error ("new library damaged: %s", error->message);
+      library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+      for (guint w = 0; w < 2; w++)
+        {
+          g_autofree char *id = g_strdup_printf ("first-%u", w);
+          g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, id, 0, &error);
+
+          if (c == NULL)
+            g_error ("round %u: construction of worker %u lost: %s", round, w, error->message);
+        }
+    }
+}
+
 int
 main (int    argc,
       char **argv)
 {
   g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
   g_test_add_func ("/hardening/concurrent/two-processes", test_two_processes);
+  g_test_add_func ("/hardening/concurrent/create-race", test_create_race);
   return g_test_run ();
 }
