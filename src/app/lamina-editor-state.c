@@ -386,6 +386,13 @@ lamina_edit_set_names (const LaminaConstruction *state,
                            _("Name: a construction needs a name"));
       return NULL;
     }
+  if (description != NULL && g_utf8_strlen (description, -1) > 100000)
+    {
+      /* The catalogue schema's "text" limit (data/lamina-catalogue-1.xsd). */
+      g_set_error (error, LAMINA_EDIT_ERROR, LAMINA_EDIT_ERROR_INVALID,
+                   _("Description: at most %d characters"), 100000);
+      return NULL;
+    }
   next = lamina_construction_copy (state);
   replace_string (&next->code, code);
   if (name != NULL)

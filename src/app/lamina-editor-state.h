@@ -104,4 +104,34 @@ LaminaConstruction *lamina_edit_set_names      (const LaminaConstruction *state,
                                                 const char               *description,
                                                 GError                  **error);
 
+/* The element.  A heat-flow direction (or outer side) that was the old
+ * element's default follows to the new element's default; one the user
+ * chose otherwise is kept (a roof pitched over 60° stays horizontal). */
+LaminaConstruction *lamina_edit_set_element    (const LaminaConstruction *state,
+                                                LaminaElement             element,
+                                                GError                  **error);
+/* The outer side an element takes when none is given: partitions indoor,
+ * everything else outdoor. */
+LaminaOuterSide     lamina_edit_default_outer_side (LaminaElement         element);
+LaminaConstruction *lamina_edit_set_heat_flow  (const LaminaConstruction *state,
+                                                LaminaHeatFlow            heat_flow,
+                                                GError                  **error);
+/* INDOOR: the outer surface faces another heated space, so Rsi applies on
+ * both sides (EN ISO 6946:2017 6.8). */
+LaminaConstruction *lamina_edit_set_outer_side (const LaminaConstruction *state,
+                                                LaminaOuterSide           outer_side,
+                                                GError                  **error);
+/* Free text; empty or NULL clears. */
+LaminaConstruction *lamina_edit_set_notes      (const LaminaConstruction *state,
+                                                const char               *notes,
+                                                GError                  **error);
+/* Adds @tag (trimmed); refuses a blank tag or one already there (letter
+ * case ignored). */
+LaminaConstruction *lamina_edit_add_tag        (const LaminaConstruction *state,
+                                                const char               *tag,
+                                                GError                  **error);
+LaminaConstruction *lamina_edit_remove_tag     (const LaminaConstruction *state,
+                                                const char               *tag,
+                                                GError                  **error);
+
 G_END_DECLS

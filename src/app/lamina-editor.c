@@ -11,6 +11,7 @@
 #include "lamina-editor-state.h"
 #include "lamina-text.h"
 #include "lamina-layer-row.h"
+#include "lamina-properties-view.h"
 
 struct _LaminaEditor
 {
@@ -27,6 +28,8 @@ struct _LaminaEditor
   LaminaSectionView *section_view;
   GtkListBox        *layer_list;
   LaminaResultsView *results_view;
+  LaminaPropertiesView *properties_view;
+  GtkStack          *page_stack;
 
   /* owned */
   LaminaDocument    *document;
@@ -255,6 +258,7 @@ refresh (LaminaEditor *self)
   update_rows (self, state, result);
   lamina_results_view_update (self->results_view, state, result,
                               lamina_document_get_calc_error (self->document));
+  lamina_properties_view_update (self->properties_view, state, result);
   self->updating = FALSE;
   update_material_flag (self);
   update_actions (self);
@@ -539,6 +543,7 @@ lamina_editor_class_init (LaminaEditorClass *klass)
 
   g_type_ensure (LAMINA_TYPE_SECTION_VIEW);
   g_type_ensure (LAMINA_TYPE_RESULTS_VIEW);
+  g_type_ensure (LAMINA_TYPE_PROPERTIES_VIEW);
   gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-editor.ui");
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, box);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, code_entry);
@@ -550,6 +555,8 @@ lamina_editor_class_init (LaminaEditorClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, section_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, layer_list);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, results_view);
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditor, properties_view);
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditor, page_stack);
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
 
   gtk_widget_class_install_action (widget_class, "editor.add-layer", NULL, add_layer_action);
@@ -624,6 +631,7 @@ lamina_editor_set_document (LaminaEditor   *self,
     return;
   if (self->document != NULL)
     g_clear_signal_handler (&self->changed_id, self->document);
+  lamina_properties_view_set_document (self->properties_view, document);
   g_set_object (&self->document, document);
   if (document != NULL)
     {
@@ -652,6 +660,22 @@ lamina_editor_get_section_view (LaminaEditor *self)
 {
   g_return_val_if_fail (LAMINA_IS_EDITOR (self), NULL);
   return self->section_view;
+}
+
+LaminaPropertiesView *
+lamina_editor_get_properties_view (LaminaEditor *self)
+{
+  g_return_val_if_fail (LAMINA_IS_EDITOR (self), NULL);
+  return self->properties_view;
+}
+
+/* "layers" or "construction". */
+void
+lamina_editor_show_page (LaminaEditor *self,
+                         const char   *name)
+{
+  g_return_if_fail (LAMINA_IS_EDITOR (self));
+  gtk_stack_set_visible_child_name (self->page_stack, name);
 }
 
 LaminaResultsView *

@@ -7,6 +7,7 @@
 #include <gtk/gtk.h>
 
 #include "lamina-document.h"
+#include "lamina-properties-view.h"
 #include "lamina-results-view.h"
 #include "lamina-section-view.h"
 
@@ -20,6 +21,10 @@ void               lamina_editor_set_document    (LaminaEditor   *self,
 LaminaDocument    *lamina_editor_get_document    (LaminaEditor   *self);
 LaminaSectionView *lamina_editor_get_section_view (LaminaEditor  *self);
 LaminaResultsView *lamina_editor_get_results_view (LaminaEditor  *self);
+LaminaPropertiesView *lamina_editor_get_properties_view (LaminaEditor *self);
+/* Shows the "layers" or the "construction" page beside the results. */
+void               lamina_editor_show_page       (LaminaEditor   *self,
+                                                  const char     *name);
 void               lamina_editor_set_snap_step   (LaminaEditor   *self,
                                                   double          step);
 /* Resizes layer @index: what the section view's drag, the keyboard and the

@@ -325,3 +325,17 @@ lamina_results_view_get_u_text (LaminaResultsView *self)
   g_return_val_if_fail (LAMINA_IS_RESULTS_VIEW (self), NULL);
   return gtk_label_get_text (self->u_label);
 }
+
+const char *
+lamina_results_view_get_rsi_text (LaminaResultsView *self)
+{
+  g_return_val_if_fail (LAMINA_IS_RESULTS_VIEW (self), NULL);
+  return gtk_label_get_text (self->values[FIGURE_RSI]);
+}
+
+const char *
+lamina_results_view_get_rse_text (LaminaResultsView *self)
+{
+  g_return_val_if_fail (LAMINA_IS_RESULTS_VIEW (self), NULL);
+  return gtk_label_get_text (self->values[FIGURE_RSE]);
+}

@@ -20,5 +20,8 @@ void        lamina_results_view_update   (LaminaResultsView        *self,
                                           const char               *error);
 /* The text of the U figure shown (for tests and accessibility). */
 const char *lamina_results_view_get_u_text (LaminaResultsView      *self);
+/* The Rsi and Rse figures shown. */
+const char *lamina_results_view_get_rsi_text (LaminaResultsView    *self);
+const char *lamina_results_view_get_rse_text (LaminaResultsView    *self);
 
 G_END_DECLS

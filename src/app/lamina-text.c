@@ -145,3 +145,18 @@ lamina_text_element_name (LaminaElement element)
       return _("Wall");
     }
 }
+
+const char *
+lamina_text_heat_flow_name (LaminaHeatFlow heat_flow)
+{
+  switch (heat_flow)
+    {
+    case LAMINA_HEAT_FLOW_UPWARD:
+      return C_("heat flow", "Upward");
+    case LAMINA_HEAT_FLOW_DOWNWARD:
+      return C_("heat flow", "Downward");
+    case LAMINA_HEAT_FLOW_HORIZONTAL:
+    default:
+      return C_("heat flow", "Horizontal");
+    }
+}

@@ -29,5 +29,6 @@ gboolean  lamina_text_is_blank    (const char  *text);
 /* Names for the screen, translated. */
 const char *lamina_text_status_name  (LaminaStatus  status);
 const char *lamina_text_element_name (LaminaElement element);
+const char *lamina_text_heat_flow_name (LaminaHeatFlow heat_flow);
 
 G_END_DECLS

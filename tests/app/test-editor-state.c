@@ -283,6 +283,85 @@ test_document_conflict (void)
   g_remove (path);
 }
 
+static void
+test_construction_properties (void)
+{
+  g_autoptr(LaminaConstruction) wall = new_wall ();
+  g_autoptr(LaminaConstruction) roof = NULL;
+  g_autoptr(LaminaConstruction) steep = NULL;
+  g_autoptr(LaminaConstruction) steep_ceiling = NULL;
+  g_autoptr(LaminaConstruction) partition = NULL;
+  g_autoptr(LaminaConstruction) indoor = NULL;
+  g_autoptr(LaminaConstruction) tagged = NULL;
+  g_autoptr(LaminaConstruction) untagged = NULL;
+  g_autoptr(LaminaConstruction) noted = NULL;
+  g_autoptr(LaminaResult) r_wall = NULL;
+  g_autoptr(LaminaResult) r_roof = NULL;
+  g_autoptr(LaminaResult) r_indoor = NULL;
+  g_autoptr(GError) error = NULL;
+
+  /* A wall at its default (horizontal) becomes a roof: the heat flow
+   * follows to the roof's default, upward (EN ISO 6946:2017 6.8). */
+  roof = lamina_edit_set_element (wall, LAMINA_ELEMENT_ROOF, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (wall->element, ==, LAMINA_ELEMENT_WALL);
+  g_assert_cmpint (roof->element, ==, LAMINA_ELEMENT_ROOF);
+  g_assert_cmpint (roof->heat_flow, ==, LAMINA_HEAT_FLOW_UPWARD);
+  g_assert_cmpint (roof->outer_side, ==, LAMINA_OUTER_SIDE_OUTDOOR);
+  /* Rsi 0.13 horizontal, 0.10 upward (EN ISO 6946:2017 Table 7). */
+  r_wall = lamina_calculate (wall, &error);
+  g_assert_no_error (error);
+  r_roof = lamina_calculate (roof, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat_with_epsilon (r_wall->rsi, 0.13, 1e-9);
+  g_assert_cmpfloat_with_epsilon (r_roof->rsi, 0.10, 1e-9);
+
+  /* A roof pitched over 60° has horizontal heat flow (flow within ±30° of
+   * the horizontal, EN ISO 6946:2017 6.8): a direction the user chose is
+   * kept when the element changes. */
+  steep = lamina_edit_set_heat_flow (roof, LAMINA_HEAT_FLOW_HORIZONTAL, &error);
+  g_assert_no_error (error);
+  steep_ceiling = lamina_edit_set_element (steep, LAMINA_ELEMENT_CEILING, &error);
+  g_assert_cmpint (steep_ceiling->heat_flow, ==, LAMINA_HEAT_FLOW_HORIZONTAL);
+  g_assert_null (lamina_edit_set_heat_flow (roof, LAMINA_N_HEAT_FLOWS, NULL));
+
+  /* A partition faces heated space on both sides (common practice; the
+   * core's default for a new partition). */
+  partition = lamina_edit_set_element (wall, LAMINA_ELEMENT_PARTITION, &error);
+  g_assert_cmpint (partition->outer_side, ==, LAMINA_OUTER_SIDE_INDOOR);
+  g_assert_cmpint (partition->heat_flow, ==, LAMINA_HEAT_FLOW_HORIZONTAL);
+
+  /* Indoor outer side: Rse = Rsi (EN ISO 6946:2017 6.8). */
+  indoor = lamina_edit_set_outer_side (wall, LAMINA_OUTER_SIDE_INDOOR, &error);
+  g_assert_no_error (error);
+  r_indoor = lamina_calculate (indoor, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat_with_epsilon (r_indoor->rse, r_indoor->rsi, 1e-12);
+  g_assert_cmpfloat_with_epsilon (r_wall->rse, 0.04, 1e-9);
+
+  /* Tags: trimmed, no blank, no duplicate (letter case ignored). */
+  tagged = lamina_edit_add_tag (wall, "  timber frame ", &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (tagged->tags->len, ==, 1);
+  g_assert_cmpstr (tagged->tags->pdata[0], ==, "timber frame");
+  g_assert_null (lamina_edit_add_tag (tagged, "Timber Frame", &error));
+  g_assert_error (error, LAMINA_EDIT_ERROR, LAMINA_EDIT_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "Tag"));
+  g_clear_error (&error);
+  g_assert_null (lamina_edit_add_tag (tagged, "   ", NULL));
+  untagged = lamina_edit_remove_tag (tagged, "timber frame", &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (untagged->tags->len, ==, 0);
+  g_assert_null (lamina_edit_remove_tag (untagged, "timber frame", NULL));
+
+  noted = lamina_edit_set_notes (wall, "Check the vapour control layer on site.", &error);
+  g_assert_no_error (error);
+  g_assert_cmpstr (noted->notes, ==, "Check the vapour control layer on site.");
+  g_clear_pointer (&noted, lamina_construction_free);
+  noted = lamina_edit_set_notes (wall, "", &error);
+  g_assert_null (noted->notes);
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -294,6 +373,7 @@ main (int   argc,
   g_test_add_func ("/app/state/set-thickness-series", test_set_thickness_series);
   g_test_add_func ("/app/state/layer-stack", test_layer_stack);
   g_test_add_func ("/app/state/layer-kinds", test_layer_kinds);
+  g_test_add_func ("/app/state/construction-properties", test_construction_properties);
   g_test_add_func ("/app/state/undo-stack", test_undo_stack);
   g_test_add_func ("/app/state/text", test_text);
   g_test_add_func ("/app/state/revision-diff", test_revision_diff);

@@ -418,6 +418,158 @@ test_render_png (Fixture       *f,
   g_test_message ("window rendered to %s", path);
 }
 
+/* The first construction of @element facing outdoors at the element's
+ * default heat flow, with no well-ventilated air layer (which would make
+ * Rse = Rsi, EN ISO 6946:2017 6.9.4). */
+static char *
+find_construction (Fixture       *f,
+                   LaminaElement  element)
+{
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (f->window));
+
+  for (guint i = 0; i < g_list_model_get_n_items (list); i++)
+    {
+      g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, i);
+      g_autoptr(LaminaConstruction) c = lamina_library_get_construction (f->library,
+                                                                         lamina_construction_item_get_id (item), 0, NULL);
+      g_autoptr(LaminaResult) r = c ? lamina_calculate (c, NULL) : NULL;
+
+      if (r != NULL && c->element == element && c->outer_side == LAMINA_OUTER_SIDE_OUTDOOR &&
+          c->heat_flow == lamina_element_default_heat_flow (element) && fabs (r->rse - 0.04) < 1e-9)
+        return g_strdup (c->id);
+    }
+  return NULL;
+}
+
+static const char *
+shown_rsi (Fixture *f)
+{
+  return lamina_results_view_get_rsi_text (lamina_editor_get_results_view (lamina_window_get_editor (f->window)));
+}
+
+static const char *
+shown_rse (Fixture *f)
+{
+  return lamina_results_view_get_rse_text (lamina_editor_get_results_view (lamina_window_get_editor (f->window)));
+}
+
+static GtkWidget *
+property_field (Fixture    *f,
+                const char *name)
+{
+  return lamina_properties_view_get_field (lamina_editor_get_properties_view (lamina_window_get_editor (f->window)),
+                                           name);
+}
+
+static void
+assert_figure (const char *shown,
+               double      value)
+{
+  g_autofree char *expected = lamina_text_number (value, 2);
+
+  g_assert_cmpstr (shown, ==, expected);
+}
+
+static void
+test_construction_properties (Fixture       *f,
+                              gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaConstruction) stored = NULL;
+  g_autofree char *id = find_construction (f, LAMINA_ELEMENT_WALL);
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  GtkDropDown *element, *heat_flow, *outer_side;
+  GtkWidget *tag_error;
+
+  g_assert_nonnull (id);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  lamina_editor_show_page (editor, "construction");
+  wait_for_draw (GTK_WIDGET (f->window));
+  element = GTK_DROP_DOWN (property_field (f, "element"));
+  heat_flow = GTK_DROP_DOWN (property_field (f, "heat-flow"));
+  outer_side = GTK_DROP_DOWN (property_field (f, "outer-side"));
+  g_assert_cmpuint (gtk_drop_down_get_selected (heat_flow), ==, 0); /* the element's default */
+
+  /* EN ISO 6946:2017 Table 7: Rsi 0.13 for horizontal heat flow (a wall),
+   * 0.10 upward (a roof); Rse 0.04 in both. */
+  assert_figure (shown_rsi (f), 0.13);
+  assert_figure (shown_rse (f), 0.04);
+  gtk_drop_down_set_selected (element, LAMINA_ELEMENT_ROOF);
+  g_assert_cmpint (open_state (f)->element, ==, LAMINA_ELEMENT_ROOF);
+  g_assert_cmpint (open_state (f)->heat_flow, ==, LAMINA_HEAT_FLOW_UPWARD);
+  g_assert_cmpuint (gtk_drop_down_get_selected (heat_flow), ==, 0);
+  assert_figure (shown_rsi (f), 0.10);
+  stored = lamina_library_get_construction (f->library, id, 0, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (stored->element, ==, LAMINA_ELEMENT_ROOF);
+  g_assert_cmpint (stored->heat_flow, ==, LAMINA_HEAT_FLOW_UPWARD);
+  g_assert_cmpfloat_with_epsilon (stored_u (f, id), lamina_document_get_result (lamina_editor_get_document (editor))->u_corrected, 1e-12);
+
+  /* Undo is one step back to the wall, horizontal again. */
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL);
+  g_assert_cmpint (open_state (f)->element, ==, LAMINA_ELEMENT_WALL);
+  g_assert_cmpuint (gtk_drop_down_get_selected (element), ==, LAMINA_ELEMENT_WALL);
+  assert_figure (shown_rsi (f), 0.13);
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.redo", NULL);
+  assert_figure (shown_rsi (f), 0.10);
+
+  /* A chosen direction (downward, item 1 + 2) is not the default and is
+   * kept through a change of element.  Downward Rsi 0.17 (Table 7). */
+  gtk_drop_down_set_selected (heat_flow, 1 + LAMINA_HEAT_FLOW_DOWNWARD);
+  assert_figure (shown_rsi (f), 0.17);
+  gtk_drop_down_set_selected (element, LAMINA_ELEMENT_WALL);
+  g_assert_cmpint (open_state (f)->heat_flow, ==, LAMINA_HEAT_FLOW_DOWNWARD);
+  gtk_drop_down_set_selected (heat_flow, 0);
+  g_assert_cmpint (open_state (f)->heat_flow, ==, LAMINA_HEAT_FLOW_HORIZONTAL);
+
+  /* Outer side indoor: the outer surface faces another heated space and
+   * takes Rsi too (EN ISO 6946:2017 6.8), so Rse shown = Rsi shown. */
+  gtk_drop_down_set_selected (outer_side, LAMINA_OUTER_SIDE_INDOOR);
+  g_assert_cmpint (open_state (f)->outer_side, ==, LAMINA_OUTER_SIDE_INDOOR);
+  g_assert_cmpstr (shown_rse (f), ==, shown_rsi (f));
+  assert_figure (shown_rse (f), 0.13);
+
+  /* Description, tags and notes are saved as they are made. */
+  gtk_editable_set_text (GTK_EDITABLE (property_field (f, "description")), "Party wall to the neighbour");
+  g_signal_emit_by_name (property_field (f, "description"), "activate");
+  gtk_editable_set_text (GTK_EDITABLE (property_field (f, "tag-entry")), "party wall");
+  g_signal_emit_by_name (property_field (f, "tag-entry"), "activate");
+  g_assert_cmpstr (gtk_editable_get_text (GTK_EDITABLE (property_field (f, "tag-entry"))), ==, "");
+  gtk_editable_set_text (GTK_EDITABLE (property_field (f, "tag-entry")), "Party Wall");
+  g_signal_emit_by_name (property_field (f, "tag-entry"), "activate");
+  tag_error = property_field (f, "tag-error");
+  g_assert_true (gtk_widget_get_visible (tag_error));
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (tag_error)), "Party Wall"));
+  gtk_text_buffer_set_text (gtk_text_view_get_buffer (GTK_TEXT_VIEW (property_field (f, "notes"))),
+                            "Fire rating by others.", -1);
+  lamina_properties_view_commit (lamina_editor_get_properties_view (editor));
+  g_clear_pointer (&stored, lamina_construction_free);
+  stored = lamina_library_get_construction (f->library, id, 0, &error);
+  g_assert_cmpstr (stored->description, ==, "Party wall to the neighbour");
+  g_assert_cmpint (stored->outer_side, ==, LAMINA_OUTER_SIDE_INDOOR);
+  g_assert_cmpstr (stored->notes, ==, "Fire rating by others.");
+  g_assert_true (g_ptr_array_find_with_equal_func (stored->tags, "party wall", g_str_equal, NULL));
+  gtk_widget_activate_action (GTK_WIDGET (property_field (f, "tag-entry")), "properties.remove-tag", "s", "party wall");
+  g_assert_false (g_ptr_array_find_with_equal_func (open_state (f)->tags, "party wall", g_str_equal, NULL));
+  /* Undo brings the tag back. */
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL);
+  g_assert_true (g_ptr_array_find_with_equal_func (open_state (f)->tags, "party wall", g_str_equal, NULL));
+
+  {
+    const char *build = g_getenv ("LAMINA_BUILD_DIR");
+    g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "window-properties.png", NULL);
+    g_autofree char *lower = g_build_filename (build ? build : ".", "tests", "app", "window-properties-lower.png", NULL);
+    GtkWidget *scroller = gtk_widget_get_ancestor (property_field (f, "notes"), GTK_TYPE_SCROLLED_WINDOW);
+    GtkAdjustment *adjustment = gtk_scrolled_window_get_vadjustment (GTK_SCROLLED_WINDOW (scroller));
+
+    wait_for_draw (GTK_WIDGET (f->window));
+    save_png (GTK_WIDGET (f->window), path);
+    gtk_adjustment_set_value (adjustment, gtk_adjustment_get_upper (adjustment));
+    wait_for_draw (GTK_WIDGET (f->window));
+    save_png (GTK_WIDGET (f->window), lower);
+  }
+}
+
 static void
 test_danish_comma (Fixture       *f,
                    gconstpointer  data)
@@ -481,6 +633,7 @@ main (int   argc,
       g_test_add ("/app/window/approve-then-edit", Fixture, NULL, fixture_setup, test_approve_then_edit, fixture_teardown);
       g_test_add ("/app/window/material-changed", Fixture, NULL, fixture_setup, test_material_changed, fixture_teardown);
       g_test_add ("/app/window/derive-delete-undo", Fixture, NULL, fixture_setup, test_derive_delete_undo, fixture_teardown);
+      g_test_add ("/app/window/construction-properties", Fixture, NULL, fixture_setup, test_construction_properties, fixture_teardown);
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
     }
