@@ -247,7 +247,11 @@ test_approved_immutable (void)
   /* CLI import of the changed copy: a conflict is reported, not applied. */
   g_assert_cmpint (run_cli (path, &out, &err, "import", xml, NULL), !=, 2);
   g_assert_nonnull (strstr (out, "conflict") ? out : strstr (err, "conflict") ? err : NULL);
-  g_assert_cmpstr (lamina_hardening_dup_file_state (path, NULL), ==, approved_state);
+  {
+    g_autofree char *state = lamina_hardening_dup_file_state (path, NULL);
+
+    g_assert_cmpstr (state, ==, approved_state);
+  }
   g_clear_pointer (&err, g_free);
   g_clear_pointer (&out, g_free);
 
