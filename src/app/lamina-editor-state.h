@@ -134,4 +134,49 @@ LaminaConstruction *lamina_edit_remove_tag     (const LaminaConstruction *state,
                                                 const char               *tag,
                                                 GError                  **error);
 
+/* Parts of bridged layer @index (lamina-editor-state-parts.c).  These
+ * check the value they set; whether the parts add up is the core's
+ * lamina_construction_validate, shown beside the parts as they are
+ * edited.  @material NULL is an air part. */
+LaminaConstruction *lamina_edit_add_part       (const LaminaConstruction *state,
+                                                guint                     index,
+                                                const LaminaMaterial     *material,
+                                                double                    fraction,
+                                                const char               *member,
+                                                GError                  **error);
+LaminaConstruction *lamina_edit_remove_part    (const LaminaConstruction *state,
+                                                guint                     index,
+                                                guint                     part,
+                                                GError                  **error);
+LaminaConstruction *lamina_edit_set_part_material (const LaminaConstruction *state,
+                                                   guint                     index,
+                                                   guint                     part,
+                                                   const LaminaMaterial     *material,
+                                                   GError                  **error);
+/* An area fraction (0 < f ≤ 1); clears width and spacing. */
+LaminaConstruction *lamina_edit_set_part_fraction (const LaminaConstruction *state,
+                                                   guint                     index,
+                                                   guint                     part,
+                                                   double                    fraction,
+                                                   GError                  **error);
+/* Width at spacing (mm, 0 < width < spacing); clears the fraction. */
+LaminaConstruction *lamina_edit_set_part_framing (const LaminaConstruction *state,
+                                                  guint                     index,
+                                                  guint                     part,
+                                                  double                    width,
+                                                  double                    spacing,
+                                                  GError                  **error);
+/* Makes @part the one that takes the remainder; the part that took it
+ * before keeps the fraction it had, so the layer's make-up is unchanged. */
+LaminaConstruction *lamina_edit_set_part_remainder (const LaminaConstruction *state,
+                                                    guint                     index,
+                                                    guint                     part,
+                                                    GError                  **error);
+/* The framing member's name (NULL or blank: none). */
+LaminaConstruction *lamina_edit_set_part_member (const LaminaConstruction *state,
+                                                 guint                     index,
+                                                 guint                     part,
+                                                 const char               *member,
+                                                 GError                  **error);
+
 G_END_DECLS

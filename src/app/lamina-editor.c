@@ -11,6 +11,7 @@
 #include "lamina-editor-state.h"
 #include "lamina-text.h"
 #include "lamina-layer-row.h"
+#include "lamina-parts-dialog.h"
 #include "lamina-properties-view.h"
 
 struct _LaminaEditor
@@ -222,6 +223,8 @@ update_actions (LaminaEditor *self)
                                  has_layer && state->layers->len > 1);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.choose-material", has_layer);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.make-bridged", has_layer);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.edit-parts",
+                                 has_layer && ((LaminaLayer *) state->layers->pdata[selected])->kind == LAMINA_LAYER_BRIDGED);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.make-air", has_layer);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.make-declared", has_layer);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.corrections", has_layer);
@@ -460,6 +463,8 @@ layer_kind_action (GtkWidget  *widget,
     lamina_editor_choose_material (self, FALSE);
   else if (g_str_equal (action_name, "editor.make-bridged"))
     lamina_editor_edit_bridged (self);
+  else if (g_str_equal (action_name, "editor.edit-parts"))
+    lamina_parts_dialog_present (self, get_selected_index (self));
   else if (g_str_equal (action_name, "editor.make-air"))
     lamina_editor_edit_air (self);
   else if (g_str_equal (action_name, "editor.make-declared"))
@@ -565,6 +570,7 @@ lamina_editor_class_init (LaminaEditorClass *klass)
   gtk_widget_class_install_action (widget_class, "editor.move-layer", "i", move_layer_action);
   gtk_widget_class_install_action (widget_class, "editor.choose-material", NULL, layer_kind_action);
   gtk_widget_class_install_action (widget_class, "editor.make-bridged", NULL, layer_kind_action);
+  gtk_widget_class_install_action (widget_class, "editor.edit-parts", NULL, layer_kind_action);
   gtk_widget_class_install_action (widget_class, "editor.make-air", NULL, layer_kind_action);
   gtk_widget_class_install_action (widget_class, "editor.make-declared", NULL, layer_kind_action);
   gtk_widget_class_install_action (widget_class, "editor.corrections", NULL, layer_kind_action);
