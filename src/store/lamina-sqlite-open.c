@@ -373,15 +373,31 @@ upgrade (LaminaSqlite  *self,
          GError       **error)
 {
   g_autofree char *backup = backup_path_for (self->parent.path, version);
-  char *quoted = sqlite3_mprintf ("VACUUM INTO %Q;", backup);
+  g_autofree char *partial = g_strdup_printf ("%s.partial-%ld", backup, (long) getpid ());
+  char *quoted = sqlite3_mprintf ("VACUUM INTO %Q;", partial);
   gboolean ok;
   int rc;
 
-  /* VACUUM INTO copies the whole database, WAL content included. */
+  /* VACUUM INTO copies the whole database, WAL content included.  It
+   * writes beside the copy's name and renames when complete, so that a
+   * crash or a full disk never leaves a partial copy under the name a
+   * user would restore from. */
+  g_unlink (partial);
   ok = lamina_sqlite_exec (self, quoted, error);
   sqlite3_free (quoted);
+  if (ok && g_rename (partial, backup) != 0)
+    {
+      int saved = errno;
+
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                   "%s: cannot keep a copy before the migration: %s", backup, g_strerror (saved));
+      ok = FALSE;
+    }
   if (!ok)
-    return FALSE;
+    {
+      g_unlink (partial);
+      return FALSE;
+    }
   self->parent.backup_path = g_steal_pointer (&backup);
   if (!lamina_sqlite_begin (self, error))
     return FALSE;

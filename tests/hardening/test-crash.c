@@ -21,12 +21,15 @@
 #include <glib/gstdio.h>
 #include <math.h>
 #include <signal.h>
+#include <string.h>
 #include <sys/wait.h>
 #include <unistd.h>
 
 #include "lamina-fault-vfs.h"
 #include "lamina-hardening-util.h"
 #include "lamina-sqlite-private.h"
+
+#include <sqlite3.h>
 
 typedef gboolean (*Operation) (LaminaLibrary *library, GError **error);
 
@@ -282,6 +285,100 @@ test_kill_material (void) { sweep (op_material); }
 static void
 test_kill_delete (void)   { sweep (op_delete); }
 
+static gboolean
+op_nothing (LaminaLibrary  *library,
+            GError        **error)
+{
+  return TRUE;
+}
+
+static int
+raw_user_version (const char *path)
+{
+  sqlite3 *db = NULL;
+  sqlite3_stmt *stmt = NULL;
+  int version = -1;
+
+  g_assert_cmpint (sqlite3_open_v2 (path, &db, SQLITE_OPEN_READWRITE, NULL), ==, SQLITE_OK);
+  g_assert_cmpint (sqlite3_prepare_v2 (db, "PRAGMA user_version;", -1, &stmt, NULL), ==, SQLITE_OK);
+  if (sqlite3_step (stmt) == SQLITE_ROW)
+    version = sqlite3_column_int (stmt, 0);
+  sqlite3_finalize (stmt);
+  sqlite3_close (db);
+  return version;
+}
+
+/* A copy kept before a migration is either absent or a whole schema-1
+ * library: a half-written copy would mislead whoever restores it. */
+static void
+assert_backups_whole (const char *dir)
+{
+  g_autoptr(GDir) d = g_dir_open (dir, 0, NULL);
+  const char *name;
+
+  while ((name = g_dir_read_name (d)) != NULL)
+    {
+      g_autofree char *path = NULL;
+      sqlite3 *db = NULL;
+      sqlite3_stmt *stmt = NULL;
+
+      /* A leftover "….partial-PID" is not a copy anyone restores. */
+      if (strstr (name, "-backup") == NULL || strstr (name, ".partial-") != NULL
+          || g_str_has_suffix (name, "-wal")
+          || g_str_has_suffix (name, "-shm") || g_str_has_suffix (name, "-journal"))
+        continue;
+      path = g_build_filename (dir, name, NULL);
+      g_assert_cmpint (sqlite3_open_v2 (path, &db, SQLITE_OPEN_READONLY, NULL), ==, SQLITE_OK);
+      if (sqlite3_prepare_v2 (db, "PRAGMA integrity_check;", -1, &stmt, NULL) != SQLITE_OK
+          || sqlite3_step (stmt) != SQLITE_ROW
+          || g_strcmp0 ((const char *) sqlite3_column_text (stmt, 0), "ok") != 0)
+        g_error ("%s: a partial copy was left: %s", name, sqlite3_errmsg (db));
+      sqlite3_finalize (stmt);
+      sqlite3_close (db);
+      g_assert_cmpint (raw_user_version (path), ==, 1);
+    }
+}
+
+/* Opening a library of schema 1 migrates it (after keeping a copy): a
+ * death anywhere in it leaves the file at schema 1 or fully migrated,
+ * intact either way, and the next open finishes the job. */
+static void
+test_kill_migration (void)
+{
+  g_autofree char *dir = g_build_filename (g_get_user_data_dir (), "migrate", NULL);
+  g_autofree char *base = g_build_filename (dir, "v1.sqlite", NULL);
+  g_autofree char *work = g_build_filename (dir, "work.sqlite", NULL);
+  g_autoptr(GError) error = NULL;
+  guint64 total;
+  int status;
+
+  g_mkdir_with_parents (dir, 0700);
+  g_assert_true (lamina_sqlite_create_at_version (base, 1, &error));
+  lamina_hardening_copy_library (base, work);
+  total = run_child (work, op_nothing, 0, -1, &status, NULL);
+  g_assert_true (WIFEXITED (status) && WEXITSTATUS (status) == 0);
+  g_assert_cmpint (raw_user_version (work), ==, LAMINA_LIBRARY_SCHEMA_VERSION);
+  for (guint64 k = 1; k <= total; k++)
+    {
+      int version;
+
+      lamina_hardening_copy_library (base, work);
+      run_child (work, op_nothing, k, -1, &status, NULL);
+      g_assert_true (WIFEXITED (status));
+      g_assert_cmpint (WEXITSTATUS (status), ==, LAMINA_FAULT_EXIT_STATUS);
+      version = raw_user_version (work);
+      g_assert_true (version == 1 || version == LAMINA_LIBRARY_SCHEMA_VERSION);
+      assert_backups_whole (dir);
+      /* The check opens through the store, which finishes the migration. */
+      if (!lamina_hardening_check_library (work, &error))
+        g_error ("kill point %" G_GUINT64_FORMAT " of the migration: %s", k, error->message);
+      g_assert_cmpint (raw_user_version (work), ==, LAMINA_LIBRARY_SCHEMA_VERSION);
+      n_kill_points++;
+      n_states_checked++;
+    }
+  g_test_message ("migration: %" G_GUINT64_FORMAT " kill points", total);
+}
+
 /* Timing rather than file operations: a child importing in a loop is
  * SIGKILLed after 2, 4, … ms. */
 static void
@@ -404,6 +501,7 @@ main (int    argc,
   g_test_add_func ("/hardening/crash/import", test_kill_import);
   g_test_add_func ("/hardening/crash/material", test_kill_material);
   g_test_add_func ("/hardening/crash/delete", test_kill_delete);
+  g_test_add_func ("/hardening/crash/migration", test_kill_migration);
   g_test_add_func ("/hardening/crash/sigkill-import", test_sigkill_sweep);
   g_test_add_func ("/hardening/crash/full-disk", test_full_disk);
   rc = g_test_run ();
