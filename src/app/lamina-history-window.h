@@ -1,6 +1,7 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* lamina-history-window.h: a construction's revisions, with who, when,
- * the review state and what changed from the revision before. */
+ * the review state and what changed from the revision before; and any two
+ * revisions compared. */
 #pragma once
 
 #include <gtk/gtk.h>
@@ -9,8 +10,12 @@
 
 G_BEGIN_DECLS
 
-void lamina_history_window_present (GtkWindow     *parent,
-                                    LaminaLibrary *library,
-                                    const char    *id);
+GtkWindow *lamina_history_window_present   (GtkWindow     *parent,
+                                            LaminaLibrary *library,
+                                            const char    *id);
+/* For tests: the "older" and "newer" revision pickers and the "diff"
+ * label; NULL when there is only one revision. */
+GtkWidget *lamina_history_window_get_field (GtkWindow     *window,
+                                            const char    *name);
 
 G_END_DECLS

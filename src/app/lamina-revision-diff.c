@@ -82,6 +82,43 @@ diff_layers (GPtrArray                *out,
     }
 }
 
+static char *
+join_tags (const LaminaConstruction *c)
+{
+  GString *out = g_string_new (NULL);
+
+  for (guint i = 0; i < c->tags->len; i++)
+    g_string_append_printf (out, i ? ", %s" : "%s", (const char *) c->tags->pdata[i]);
+  return g_string_free (out, FALSE);
+}
+
+static const char *
+outer_side_name (LaminaOuterSide side)
+{
+  return side == LAMINA_OUTER_SIDE_INDOOR ? _("Indoor (another heated space)") : _("Outdoor");
+}
+
+/* Element, heat flow, outer side, tags and notes. */
+static void
+diff_properties (GPtrArray                *out,
+                 const LaminaConstruction *older,
+                 const LaminaConstruction *newer)
+{
+  g_autofree char *tags_a = join_tags (older);
+  g_autofree char *tags_b = join_tags (newer);
+
+  if (older->element != newer->element)
+    diff_text (out, _("Element"), lamina_text_element_name (older->element),
+               lamina_text_element_name (newer->element));
+  if (older->heat_flow != newer->heat_flow)
+    diff_text (out, _("Heat flow"), lamina_text_heat_flow_name (older->heat_flow),
+               lamina_text_heat_flow_name (newer->heat_flow));
+  if (older->outer_side != newer->outer_side)
+    diff_text (out, _("Outer side"), outer_side_name (older->outer_side), outer_side_name (newer->outer_side));
+  diff_text (out, _("Tags"), tags_a, tags_b);
+  diff_text (out, _("Notes"), older->notes, newer->notes);
+}
+
 GPtrArray *
 lamina_revision_diff (const LaminaConstruction *older,
                       const LaminaConstruction *newer)
@@ -93,6 +130,7 @@ lamina_revision_diff (const LaminaConstruction *older,
   diff_text (out, _("Code"), older->code, newer->code);
   diff_text (out, _("Name"), older->name, newer->name);
   diff_text (out, _("Description"), older->description, newer->description);
+  diff_properties (out, older, newer);
   diff_number (out, _("Target U"), older->target_u, newer->target_u, 2);
   diff_number (out, _("Inside temperature"), older->inside_temperature, newer->inside_temperature, 1);
   diff_number (out, _("Outside temperature"), older->outside_temperature, newer->outside_temperature, 1);

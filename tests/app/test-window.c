@@ -15,6 +15,7 @@
 #include "lamina-application.h"
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
+#include "lamina-history-window.h"
 #include "lamina-parts-dialog.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
@@ -686,6 +687,59 @@ test_bridged_parts (Fixture       *f,
 }
 
 static void
+test_compare_revisions (Fixture       *f,
+                        gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  GtkWindow *history;
+  GtkDropDown *older, *newer;
+  const char *text;
+  guint index = 0;
+  int base;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  base = open_state (f)->revision;
+  /* Three saved edits: three new revisions. */
+  lamina_editor_resize_layer (editor, index, ((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness + 20, FALSE);
+  lamina_editor_apply (editor, lamina_edit_set_element (open_state (f), LAMINA_ELEMENT_PARTITION, NULL), NULL, NULL);
+  lamina_editor_apply (editor, lamina_edit_add_tag (open_state (f), "compare-me", NULL), NULL, NULL);
+  g_assert_cmpint (open_state (f)->revision, ==, base + 3);
+
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.history", NULL));
+  history = lamina_history_window_present (GTK_WINDOW (f->window), f->library, id);
+  older = GTK_DROP_DOWN (lamina_history_window_get_field (history, "older"));
+  newer = GTK_DROP_DOWN (lamina_history_window_get_field (history, "newer"));
+  /* Newest first: item 3 is the revision before the three edits. */
+  gtk_drop_down_set_selected (older, 3);
+  gtk_drop_down_set_selected (newer, 0);
+  text = gtk_label_get_text (GTK_LABEL (lamina_history_window_get_field (history, "diff")));
+  g_test_message ("%s", text);
+  g_assert_nonnull (strstr (text, "mm →"));
+  g_assert_nonnull (strstr (text, "Element: “Wall” → “Partition”"));
+  g_assert_nonnull (strstr (text, "compare-me"));
+  /* Between the last two only the tag changed. */
+  gtk_drop_down_set_selected (older, 1);
+  text = gtk_label_get_text (GTK_LABEL (lamina_history_window_get_field (history, "diff")));
+  g_assert_null (strstr (text, "Element"));
+  g_assert_nonnull (strstr (text, "compare-me"));
+  gtk_drop_down_set_selected (older, 0);
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (lamina_history_window_get_field (history, "diff"))),
+                            "different"));
+  gtk_drop_down_set_selected (older, 3);
+  {
+    const char *build = g_getenv ("LAMINA_BUILD_DIR");
+    g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "history.png", NULL);
+
+    wait_for_draw (GTK_WIDGET (history));
+    save_png (GTK_WIDGET (history), path);
+  }
+  gtk_window_destroy (history);
+}
+
+static void
 test_danish_comma (Fixture       *f,
                    gconstpointer  data)
 {
@@ -750,6 +804,7 @@ main (int   argc,
       g_test_add ("/app/window/derive-delete-undo", Fixture, NULL, fixture_setup, test_derive_delete_undo, fixture_teardown);
       g_test_add ("/app/window/construction-properties", Fixture, NULL, fixture_setup, test_construction_properties, fixture_teardown);
       g_test_add ("/app/window/bridged-parts", Fixture, NULL, fixture_setup, test_bridged_parts, fixture_teardown);
+      g_test_add ("/app/window/compare-revisions", Fixture, NULL, fixture_setup, test_compare_revisions, fixture_teardown);
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
     }
