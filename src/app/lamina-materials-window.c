@@ -28,6 +28,59 @@ manager_free (Manager *m)
 
 static void reload (Manager *m);
 
+/* The number fields beyond λ: blank means "not known" (NAN). */
+static const struct
+{
+  const char        *key;
+  LaminaNumberField  field;
+  gsize              offset;
+  int                decimals;
+  int                width;
+  const char        *label;      /* shown before the entry */
+  const char        *accessible;
+} numbers[] = {
+  { "density", LAMINA_FIELD_DENSITY, G_STRUCT_OFFSET (LaminaMaterial, density), 0, 5, "ρ", N_("Density ρ in kg/m³") },
+  { "heat", LAMINA_FIELD_SPECIFIC_HEAT, G_STRUCT_OFFSET (LaminaMaterial, specific_heat), 0, 5, "c", N_("Specific heat capacity c in J/(kg·K)") },
+  { "mu", LAMINA_FIELD_VAPOUR_RESISTANCE, G_STRUCT_OFFSET (LaminaMaterial, vapour_resistance_factor), 0, 6, "μ", N_("Water vapour resistance factor μ") },
+  { "emissivity", LAMINA_FIELD_EMISSIVITY, G_STRUCT_OFFSET (LaminaMaterial, emissivity), 2, 4, "ε", N_("Emissivity ε of the surface") },
+};
+
+static void
+show_row_error (GtkWidget  *row,
+                const char *message)
+{
+  GtkLabel *error = g_object_get_data (G_OBJECT (row), "error");
+
+  gtk_label_set_text (error, message ? message : "");
+  gtk_widget_set_visible (GTK_WIDGET (error), message != NULL);
+}
+
+static gboolean
+read_number (GtkWidget          *row,
+             const char         *key,
+             LaminaNumberField   field,
+             gboolean            optional,
+             double             *value)
+{
+  GtkWidget *entry = g_object_get_data (G_OBJECT (row), key);
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (entry));
+  g_autoptr(GError) error = NULL;
+
+  gtk_widget_remove_css_class (entry, "error");
+  if (optional && lamina_text_is_blank (text))
+    {
+      *value = NAN;
+      return TRUE;
+    }
+  if (lamina_number_parse (field, text, value, &error))
+    return TRUE;
+  /* The parser names the field and its allowed range. */
+  gtk_widget_add_css_class (entry, "error");
+  show_row_error (row, error->message);
+  gtk_widget_grab_focus (entry);
+  return FALSE;
+}
+
 static void
 on_save_clicked_cb (GtkButton *button,
                     Manager   *m)
@@ -35,41 +88,39 @@ on_save_clicked_cb (GtkButton *button,
   GtkWidget *row = gtk_widget_get_ancestor (GTK_WIDGET (button), GTK_TYPE_LIST_BOX_ROW);
   LaminaMaterial *material = g_object_get_data (G_OBJECT (row), "lamina-material");
   GtkEditable *name = g_object_get_data (G_OBJECT (row), "name");
-  GtkEditable *lambda = g_object_get_data (G_OBJECT (row), "lambda");
   GtkEditable *source = g_object_get_data (G_OBJECT (row), "source");
+  GtkEditable *notes = g_object_get_data (G_OBJECT (row), "notes");
+  GtkDropDown *category = g_object_get_data (G_OBJECT (row), "category");
   g_autoptr(LaminaMaterial) copy = lamina_material_copy (material);
   g_autoptr(GError) error = NULL;
-  double value;
+  g_autofree char *saved = NULL;
 
-  if (!lamina_number_parse (LAMINA_FIELD_CONDUCTIVITY, gtk_editable_get_text (lambda), &value, &error))
-    {
-      g_autofree char *text = g_strdup_printf ("%s: %s", material->name, error->message);
-
-      gtk_label_set_text (m->status, text);
-      gtk_widget_add_css_class (GTK_WIDGET (lambda), "error");
+  if (!read_number (row, "lambda", LAMINA_FIELD_CONDUCTIVITY, FALSE, &copy->conductivity))
+    return;
+  for (guint i = 0; i < G_N_ELEMENTS (numbers); i++)
+    if (!read_number (row, numbers[i].key, numbers[i].field, TRUE,
+                      &G_STRUCT_MEMBER (double, copy, numbers[i].offset)))
       return;
-    }
-  if (*gtk_editable_get_text (name) == '\0')
+  if (lamina_text_is_blank (gtk_editable_get_text (name)))
     {
-      gtk_label_set_text (m->status, _("Name: a material needs a name"));
+      show_row_error (row, _("Name: a material needs a name"));
       return;
     }
   g_free (copy->name);
-  copy->name = g_strdup (gtk_editable_get_text (name));
-  copy->conductivity = value;
+  copy->name = g_strstrip (g_strdup (gtk_editable_get_text (name)));
+  copy->category = (LaminaCategory) gtk_drop_down_get_selected (category);
   g_free (copy->source);
-  copy->source = g_strdup (gtk_editable_get_text (source));
+  copy->source = lamina_text_is_blank (gtk_editable_get_text (source)) ? NULL : g_strdup (gtk_editable_get_text (source));
+  g_free (copy->notes);
+  copy->notes = lamina_text_is_blank (gtk_editable_get_text (notes)) ? NULL : g_strdup (gtk_editable_get_text (notes));
   if (!lamina_library_put_material (m->library, copy, &error))
     {
-      gtk_label_set_text (m->status, error->message);
+      show_row_error (row, error->message);
       return;
     }
-  {
-    g_autofree char *text = g_strdup_printf (_("Saved “%s”. Constructions that use it are flagged for re-checking."),
-                                             copy->name);
-
-    gtk_label_set_text (m->status, text);
-  }
+  saved = g_strdup_printf (_("Saved “%s”. Constructions that use it are flagged “material data changed” for re-checking."),
+                           copy->name);
+  gtk_label_set_text (m->status, saved);
   reload (m);
 }
 
@@ -87,37 +138,91 @@ new_entry (const char *text,
 }
 
 static GtkWidget *
+new_number_entry (GtkWidget  *row,
+                  GtkWidget  *box,
+                  const char *key,
+                  const char *symbol,
+                  double      value,
+                  int         decimals,
+                  int         width,
+                  const char *accessible)
+{
+  g_autofree char *text = isnan (value) ? g_strdup ("") : lamina_text_number (value, decimals);
+  GtkWidget *label = gtk_label_new (symbol);
+  GtkWidget *entry = new_entry (text, width, accessible);
+
+  gtk_entry_set_input_purpose (GTK_ENTRY (entry), GTK_INPUT_PURPOSE_NUMBER);
+  gtk_entry_set_placeholder_text (GTK_ENTRY (entry), "–");
+  gtk_widget_set_tooltip_text (entry, accessible);
+  gtk_widget_add_css_class (label, "dim-label");
+  gtk_box_append (GTK_BOX (box), label);
+  gtk_box_append (GTK_BOX (box), entry);
+  g_object_set_data (G_OBJECT (row), key, entry);
+  return entry;
+}
+
+static GtkWidget *
+new_category_dropdown (LaminaCategory category)
+{
+  g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
+  GtkWidget *dropdown;
+
+  for (guint i = 0; i < LAMINA_N_CATEGORIES; i++)
+    gtk_string_list_append (names, lamina_text_category_name ((LaminaCategory) i));
+  dropdown = gtk_drop_down_new (G_LIST_MODEL (g_steal_pointer (&names)), NULL);
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (dropdown), (guint) category);
+  gtk_accessible_update_property (GTK_ACCESSIBLE (dropdown), GTK_ACCESSIBLE_PROPERTY_LABEL, _("Category"), -1);
+  return dropdown;
+}
+
+static GtkWidget *
 new_material_row (Manager        *m,
                   LaminaMaterial *material)
 {
   GtkWidget *row = gtk_list_box_row_new ();
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
-  g_autofree char *lambda = lamina_text_number (material->conductivity, 3);
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 4);
+  GtkWidget *top = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+  GtkWidget *bottom = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
   GtkWidget *name = new_entry (material->name, 24, _("Material name"));
-  GtkWidget *l = new_entry (lambda, 6, _("Thermal conductivity λ"));
-  GtkWidget *source = new_entry (material->source, 20, _("Source of the value"));
-  GtkWidget *category = gtk_label_new (lamina_category_to_string (material->category));
+  GtkWidget *category = new_category_dropdown (material->category);
+  GtkWidget *source = new_entry (material->source, 14, _("Source of the values"));
+  GtkWidget *notes = new_entry (material->notes, 14, _("Notes on the material"));
   GtkWidget *save = gtk_button_new_from_icon_name ("document-save-symbolic");
+  GtkWidget *error = gtk_label_new (NULL);
 
   gtk_widget_set_hexpand (name, TRUE);
-  gtk_widget_set_size_request (category, 90, -1);
-  gtk_label_set_xalign (GTK_LABEL (category), 0);
-  gtk_widget_add_css_class (category, "dim-label");
+  gtk_widget_set_hexpand (notes, TRUE);
+  gtk_entry_set_placeholder_text (GTK_ENTRY (source), _("Source"));
+  gtk_entry_set_placeholder_text (GTK_ENTRY (notes), _("Notes"));
   gtk_widget_set_tooltip_text (save, _("Save Material"));
   gtk_accessible_update_property (GTK_ACCESSIBLE (save), GTK_ACCESSIBLE_PROPERTY_LABEL, _("Save material"), -1);
-  g_object_set (box, "margin-start", 8, "margin-end", 8, "margin-top", 4, "margin-bottom", 4, NULL);
-  gtk_box_append (GTK_BOX (box), category);
-  gtk_box_append (GTK_BOX (box), name);
-  gtk_box_append (GTK_BOX (box), gtk_label_new ("λ"));
-  gtk_box_append (GTK_BOX (box), l);
-  gtk_box_append (GTK_BOX (box), source);
-  gtk_box_append (GTK_BOX (box), save);
+  gtk_label_set_xalign (GTK_LABEL (error), 0);
+  gtk_label_set_wrap (GTK_LABEL (error), TRUE);
+  gtk_widget_add_css_class (error, "lamina-error");
+  gtk_widget_add_css_class (error, "caption");
+  gtk_widget_set_visible (error, FALSE);
+  g_object_set (box, "margin-start", 8, "margin-end", 8, "margin-top", 6, "margin-bottom", 6, NULL);
+  gtk_box_append (GTK_BOX (top), category);
+  gtk_box_append (GTK_BOX (top), name);
+  new_number_entry (row, top, "lambda", "λ", material->conductivity, 3, 6, _("Thermal conductivity λ in W/(m·K)"));
+  gtk_box_append (GTK_BOX (top), save);
+  for (guint i = 0; i < G_N_ELEMENTS (numbers); i++)
+    new_number_entry (row, bottom, numbers[i].key, numbers[i].label,
+                      G_STRUCT_MEMBER (double, material, numbers[i].offset),
+                      numbers[i].decimals, numbers[i].width, _(numbers[i].accessible));
+  gtk_box_append (GTK_BOX (bottom), source);
+  gtk_box_append (GTK_BOX (bottom), notes);
+  gtk_box_append (GTK_BOX (box), top);
+  gtk_box_append (GTK_BOX (box), bottom);
+  gtk_box_append (GTK_BOX (box), error);
   gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (row), box);
   gtk_list_box_row_set_activatable (GTK_LIST_BOX_ROW (row), FALSE);
   g_object_set_data_full (G_OBJECT (row), "lamina-material", material, (GDestroyNotify) lamina_material_free);
   g_object_set_data (G_OBJECT (row), "name", name);
-  g_object_set_data (G_OBJECT (row), "lambda", l);
+  g_object_set_data (G_OBJECT (row), "category", category);
   g_object_set_data (G_OBJECT (row), "source", source);
+  g_object_set_data (G_OBJECT (row), "notes", notes);
+  g_object_set_data (G_OBJECT (row), "error", error);
   g_signal_connect (save, "clicked", G_CALLBACK (on_save_clicked_cb), m);
   return row;
 }
@@ -153,7 +258,7 @@ on_add_clicked_cb (Manager *m)
   reload (m);
 }
 
-void
+GtkWindow *
 lamina_materials_window_present (GtkWindow     *parent,
                                  LaminaLibrary *library)
 {
@@ -191,4 +296,20 @@ lamina_materials_window_present (GtkWindow     *parent,
   gtk_window_set_child (GTK_WINDOW (m->window), box);
   reload (m);
   gtk_window_present (GTK_WINDOW (m->window));
+  return GTK_WINDOW (m->window);
+}
+
+GtkWidget *
+lamina_materials_window_get_field (GtkWindow  *window,
+                                   guint       index,
+                                   const char *name)
+{
+  Manager *m = g_object_get_data (G_OBJECT (window), "lamina-manager");
+  GtkListBoxRow *row = m ? gtk_list_box_get_row_at_index (m->list, (int) index) : NULL;
+
+  if (row == NULL)
+    return NULL;
+  if (g_str_equal (name, "save"))
+    return gtk_widget_get_last_child (gtk_widget_get_first_child (gtk_widget_get_first_child (GTK_WIDGET (row))));
+  return g_object_get_data (G_OBJECT (row), name);
 }

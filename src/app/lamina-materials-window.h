@@ -10,7 +10,13 @@
 
 G_BEGIN_DECLS
 
-void lamina_materials_window_present (GtkWindow     *parent,
-                                      LaminaLibrary *library);
+GtkWindow *lamina_materials_window_present   (GtkWindow     *parent,
+                                              LaminaLibrary *library);
+/* For tests: a widget of row @index ("name", "category", "lambda",
+ * "density", "heat", "mu", "emissivity", "source", "notes", "error",
+ * "save"). */
+GtkWidget *lamina_materials_window_get_field (GtkWindow     *window,
+                                              guint          index,
+                                              const char    *name);
 
 G_END_DECLS

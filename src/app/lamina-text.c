@@ -160,3 +160,25 @@ lamina_text_heat_flow_name (LaminaHeatFlow heat_flow)
       return C_("heat flow", "Horizontal");
     }
 }
+
+const char *
+lamina_text_category_name (LaminaCategory category)
+{
+  switch (category)
+    {
+    case LAMINA_CATEGORY_INSULATION: return C_("category", "Insulation");
+    case LAMINA_CATEGORY_MASONRY: return C_("category", "Masonry");
+    case LAMINA_CATEGORY_CONCRETE: return C_("category", "Concrete");
+    case LAMINA_CATEGORY_TIMBER: return C_("category", "Timber");
+    case LAMINA_CATEGORY_BOARD: return C_("category", "Board");
+    case LAMINA_CATEGORY_MEMBRANE: return C_("category", "Membrane");
+    case LAMINA_CATEGORY_METAL: return C_("category", "Metal");
+    case LAMINA_CATEGORY_PLASTER: return C_("category", "Plaster");
+    case LAMINA_CATEGORY_STONE: return C_("category", "Stone");
+    case LAMINA_CATEGORY_GLASS: return C_("category", "Glass");
+    case LAMINA_CATEGORY_AIR: return C_("category", "Air");
+    case LAMINA_CATEGORY_OTHER:
+    case LAMINA_N_CATEGORIES:
+    default: return C_("category", "Other");
+    }
+}

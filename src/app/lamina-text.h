@@ -30,5 +30,6 @@ gboolean  lamina_text_is_blank    (const char  *text);
 const char *lamina_text_status_name  (LaminaStatus  status);
 const char *lamina_text_element_name (LaminaElement element);
 const char *lamina_text_heat_flow_name (LaminaHeatFlow heat_flow);
+const char *lamina_text_category_name  (LaminaCategory category);
 
 G_END_DECLS

@@ -16,6 +16,7 @@
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
 #include "lamina-history-window.h"
+#include "lamina-materials-window.h"
 #include "lamina-parts-dialog.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
@@ -740,6 +741,77 @@ test_compare_revisions (Fixture       *f,
 }
 
 static void
+test_materials_manager (Fixture       *f,
+                        gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) materials = lamina_library_list_materials (f->library, NULL);
+  g_autoptr(LaminaMaterial) stored = NULL;
+  g_autoptr(LaminaConstructionItem) item = NULL;
+  g_autofree char *id = NULL;
+  const LaminaMaterial *used;
+  GtkWindow *manager;
+  GtkWidget *save;
+  guint index = 0, row = 0;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  used = ((LaminaLayer *) open_state (f)->layers->pdata[index])->material;
+  for (row = 0; row < materials->len; row++)
+    if (g_strcmp0 (((LaminaMaterial *) materials->pdata[row])->id, used->id) == 0)
+      break;
+  g_assert_cmpuint (row, <, materials->len);
+
+  manager = lamina_materials_window_present (GTK_WINDOW (f->window), f->library);
+  save = lamina_materials_window_get_field (manager, row, "save");
+  /* A bad number is refused beside the row, naming the field. */
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "density")), "heavy");
+  g_signal_emit_by_name (save, "clicked");
+  g_assert_true (gtk_widget_get_visible (lamina_materials_window_get_field (manager, row, "error")));
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (lamina_materials_window_get_field (manager, row, "error"))),
+                            "density"));
+  stored = lamina_library_get_material (f->library, used->id, &error);
+  g_assert_true (lamina_material_equal (stored, materials->pdata[row]));
+
+  /* Every field saved: EN ISO 10456:2007 Table 3 values for dense
+   * concrete, from memory (λ 1.35, ρ 2000, c 1000, μ 100 dry). */
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "lambda")), "1.35");
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "density")), "2000");
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "heat")), "1000");
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "mu")), "100");
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "emissivity")), "0.9");
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "source")), "EN ISO 10456 Table 3");
+  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "notes")), "Test values");
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (lamina_materials_window_get_field (manager, row, "category")),
+                              LAMINA_CATEGORY_CONCRETE);
+  g_signal_emit_by_name (save, "clicked");
+  g_clear_pointer (&stored, lamina_material_free);
+  stored = lamina_library_get_material (f->library, used->id, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat_with_epsilon (stored->conductivity, 1.35, 1e-12);
+  g_assert_cmpfloat_with_epsilon (stored->density, 2000, 1e-12);
+  g_assert_cmpfloat_with_epsilon (stored->specific_heat, 1000, 1e-12);
+  g_assert_cmpfloat_with_epsilon (stored->vapour_resistance_factor, 100, 1e-12);
+  g_assert_cmpfloat_with_epsilon (stored->emissivity, 0.9, 1e-12);
+  g_assert_cmpint (stored->category, ==, LAMINA_CATEGORY_CONCRETE);
+  g_assert_cmpstr (stored->source, ==, "EN ISO 10456 Table 3");
+  g_assert_cmpstr (stored->notes, ==, "Test values");
+
+  /* The construction using it is flagged in the list. */
+  lamina_window_set_search (f->window, open_state (f)->code);
+  item = g_list_model_get_item (G_LIST_MODEL (lamina_window_get_list (f->window)), 0);
+  g_assert_true (lamina_construction_item_get_summary (item)->flags & LAMINA_SUMMARY_MATERIAL_CHANGED);
+  {
+    const char *build = g_getenv ("LAMINA_BUILD_DIR");
+    g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "materials.png", NULL);
+
+    wait_for_draw (GTK_WIDGET (manager));
+    save_png (GTK_WIDGET (manager), path);
+  }
+  gtk_window_destroy (manager);
+}
+
+static void
 test_danish_comma (Fixture       *f,
                    gconstpointer  data)
 {
@@ -805,6 +877,7 @@ main (int   argc,
       g_test_add ("/app/window/construction-properties", Fixture, NULL, fixture_setup, test_construction_properties, fixture_teardown);
       g_test_add ("/app/window/bridged-parts", Fixture, NULL, fixture_setup, test_bridged_parts, fixture_teardown);
       g_test_add ("/app/window/compare-revisions", Fixture, NULL, fixture_setup, test_compare_revisions, fixture_teardown);
+      g_test_add ("/app/window/materials-manager", Fixture, NULL, fixture_setup, test_materials_manager, fixture_teardown);
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
     }
