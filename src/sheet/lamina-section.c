@@ -6,6 +6,7 @@
 
 #include <glib/gi18n-lib.h>
 #include <math.h>
+#include <string.h>
 #include <pango/pangocairo.h>
 
 #include "lamina-hatch.h"
@@ -632,6 +633,16 @@ draw_sides (LaminaSection             *self,
   lamina_section_get_margins (layout->orientation, style, &m);
   inside = g_strconcat (_("inside"), sep, lamina_format_temperature (temp, inside_t), NULL);
   outside = g_strconcat (outer_name, sep, lamina_format_temperature (temp, outside_t), NULL);
+  /* Beside a wall the label column is narrow: a two-word name such as
+   * "adjacent space" goes on two lines rather than past the edge. */
+  if (layout->orientation == LAMINA_SECTION_ACROSS)
+    {
+      char *space = strchr (outside, ' ');
+      char *newline = strchr (outside, '\n');
+
+      if (space != NULL && newline != NULL && space < newline)
+        *space = '\n';
+    }
 
   pango_layout_set_alignment (self->layout, PANGO_ALIGN_CENTER);
   draw_label_at (self, cr, layout, inside, TEXT_BOLD, u, -m.t_before / 2, length / 2, 0, 0);
