@@ -280,6 +280,34 @@ test_search (void)
   g_assert_cmpint (lamina_library_count (library, &q, NULL), ==, 3);
 }
 
+/* The tag filter offers each tag in use once, sorted, and forgets the tags
+ * of deleted constructions (and a deleted text match is not counted). */
+static void
+test_list_tags (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("tags.sqlite");
+  g_autofree char *a = create_wall (library, "EW-20", "Wall A", "school", 200);
+  g_autofree char *b = create_wall (library, "EW-21", "Wall B", "school", 120);
+  g_autofree char *c = create_wall (library, "EW-22", "Wall C", "annex", 100);
+  g_autoptr(GPtrArray) tags = NULL;
+  g_autoptr(GError) error = NULL;
+
+  tags = lamina_library_list_tags (library, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (tags->len, ==, 2);
+  g_assert_cmpstr (tags->pdata[0], ==, "annex");
+  g_assert_cmpstr (tags->pdata[1], ==, "school");
+  g_clear_pointer (&tags, g_ptr_array_unref);
+
+  g_assert_true (lamina_library_delete_construction (library, c, "A. Planner", &error));
+  g_assert_no_error (error);
+  tags = lamina_library_list_tags (library, &error);
+  g_assert_cmpuint (tags->len, ==, 1);
+  g_assert_cmpstr (tags->pdata[0], ==, "school");
+  g_assert_cmpuint (count_text (library, "wall"), ==, 2);
+  g_assert_cmpuint (count_text (library, "annex"), ==, 0);
+}
+
 static void
 test_fts_query (void)
 {
@@ -303,5 +331,6 @@ main (int    argc,
   g_test_add_func ("/store/revisions/material-changed", test_material_changed);
   g_test_add_func ("/store/search/prefix-tag-material", test_search);
   g_test_add_func ("/store/search/fts-query", test_fts_query);
+  g_test_add_func ("/store/search/list-tags", test_list_tags);
   return g_test_run ();
 }
