@@ -212,6 +212,7 @@ form_add_materials (Form           *form,
 {
   LaminaLibrary *library = lamina_document_get_library (lamina_editor_get_document (form->editor));
   g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
+  GtkExpression *expression;
   GtkWidget *dropdown;
   guint preferred = 0;
 
@@ -230,8 +231,10 @@ form_add_materials (Form           *form,
     }
   dropdown = gtk_drop_down_new (G_LIST_MODEL (g_steal_pointer (&names)), NULL);
   gtk_drop_down_set_enable_search (GTK_DROP_DOWN (dropdown), TRUE);
-  gtk_drop_down_set_expression (GTK_DROP_DOWN (dropdown),
-                                gtk_property_expression_new (GTK_TYPE_STRING_OBJECT, NULL, "string"));
+  /* set_expression takes its own reference: ours is dropped here. */
+  expression = gtk_property_expression_new (GTK_TYPE_STRING_OBJECT, NULL, "string");
+  gtk_drop_down_set_expression (GTK_DROP_DOWN (dropdown), expression);
+  gtk_expression_unref (expression);
   gtk_drop_down_set_selected (GTK_DROP_DOWN (dropdown), preferred);
   form_add (form, name, label, dropdown);
   return dropdown;

@@ -285,6 +285,7 @@ new_material_dropdown (Row              *row,
 {
   g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
   gboolean in_library = FALSE;
+  g_autoptr(GtkExpression) expression = NULL;
   GtkWidget *dropdown;
 
   row->options = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
@@ -306,10 +307,11 @@ new_material_dropdown (Row              *row,
       g_ptr_array_add (row->options, lamina_material_copy (material));
       gtk_string_list_append (names, text);
     }
+  /* set_expression takes its own reference: ours is dropped here. */
+  expression = gtk_property_expression_new (GTK_TYPE_STRING_OBJECT, NULL, "string");
   dropdown = gtk_drop_down_new (G_LIST_MODEL (g_steal_pointer (&names)), NULL);
   gtk_drop_down_set_enable_search (GTK_DROP_DOWN (dropdown), TRUE);
-  gtk_drop_down_set_expression (GTK_DROP_DOWN (dropdown),
-                                gtk_property_expression_new (GTK_TYPE_STRING_OBJECT, NULL, "string"));
+  gtk_drop_down_set_expression (GTK_DROP_DOWN (dropdown), expression);
   gtk_widget_set_hexpand (dropdown, TRUE);
   gtk_accessible_update_property (GTK_ACCESSIBLE (dropdown), GTK_ACCESSIBLE_PROPERTY_LABEL,
                                   _("Material of the part"), -1);
