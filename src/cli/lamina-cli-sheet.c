@@ -199,9 +199,17 @@ lamina_cli_section (const LaminaCliGlobals *globals,
 
   if (!lamina_cli_parse (context, &argc, &argv))
     return LAMINA_EXIT_USAGE;
-  if (argc != 2 || job.width < 100 || job.height < 100 || job.width > 20000 || job.height > 20000)
+  if (job.width < 100 || job.width > 20000 || job.height < 100 || job.height > 20000)
     {
-      lamina_cli_error (_("usage: section ID -o FILE.png (width and height 100 to 20000 px)"));
+      gboolean w = job.width < 100 || job.width > 20000;
+
+      lamina_cli_error (_("--%s: %d px is outside the allowed range 100 to 20000 px"),
+                        w ? "width" : "height", w ? job.width : job.height);
+      return LAMINA_EXIT_USAGE;
+    }
+  if (argc != 2)
+    {
+      lamina_cli_error (_("usage: section ID -o FILE.png"));
       return LAMINA_EXIT_USAGE;
     }
   if (!check_output (&job, globals))
