@@ -326,20 +326,24 @@ add_snapped_rectangle (cairo_t *cr,
 
 /* Tiles */
 
-#define N_TILES 8
+/* Enough for every hatched layer of a large build-up plus the tiles of a
+ * layer being dragged; the least recently used goes first. */
+#define N_TILES 24
 
 typedef struct
 {
   LaminaCategory   category;
   double           unit;
   double           pixels;   /* device pixels per unit; 0 for vector */
+  int              width;    /* strips: the layer in device pixels; 0 for areas */
+  guint64          used;     /* when last used (the cache's clock) */
   cairo_pattern_t *pattern;
 } Tile;
 
 struct _LaminaHatchCache
 {
-  Tile  tiles[N_TILES];
-  guint next;                /* round-robin replacement */
+  Tile    tiles[N_TILES];
+  guint64 clock;
 };
 
 LaminaHatchCache *
@@ -384,6 +388,33 @@ get_tile_period (LaminaCategory category)
     case LAMINA_CATEGORY_AIR:
     case LAMINA_N_CATEGORIES:
     default:
+      return 0.0;
+    }
+}
+
+/* The patterns drawn from face to face of a layer (the batt wave, the
+ * grain, the board lines) depend on its width but repeat along it: their
+ * period in user units for a layer @width wide, or 0 for the others. */
+static double
+get_strip_period (LaminaCategory category,
+                  LaminaHatchUse use,
+                  double         width,
+                  double         unit)
+{
+  switch (category)
+    {
+    case LAMINA_CATEGORY_INSULATION:
+      /* Two half waves of stroke_batt. */
+      return 2 * CLAMP (width * 0.3, unit * 0.3, unit * 8);
+    case LAMINA_CATEGORY_TIMBER:
+      /* One wave of stroke_grain; a member cut across is one cross. */
+      return use == LAMINA_HATCH_LAYER ? unit * 5 : 0.0;
+    case LAMINA_CATEGORY_BOARD:
+      /* Straight lines: any period. */
+      return unit * 2;
+    default:
+      /* The area patterns have square tiles (get_tile_period); the rest
+       * are cheap as paths. */
       return 0.0;
     }
 }
@@ -442,6 +473,135 @@ create_tile (cairo_t        *cr,
   return pattern;
 }
 
+/* A strip tile: the whole width of a layer @width_px device pixels wide
+ * by one period along it, drawn as the paths would be for a layer starting
+ * at 0.  Raster only: on a vector target the strokes stay paths. */
+static cairo_pattern_t *
+create_strip_tile (LaminaCategory category,
+                   LaminaHatchUse use,
+                   int            width_px,
+                   double         unit,
+                   double         pixels)
+{
+  double width = width_px / pixels;
+  double period = get_strip_period (category, use, width, unit);
+  int size = MAX (2, (int) round (period * pixels));
+  cairo_surface_t *surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, width_px, size);
+  cairo_t *tile = cairo_create (surface);
+  cairo_pattern_t *pattern;
+  Box box = { 0, -period, width, 2 * period };
+
+  cairo_set_source_rgb (tile, 1, 1, 1);
+  cairo_paint (tile);
+  cairo_scale (tile, pixels, size / period);
+  cairo_rectangle (tile, 0, 0, width, period);
+  cairo_clip (tile);
+  set_pen (tile, unit);
+  draw_pattern (tile, category, use, 0, 0, width, period, &box, unit, 1);
+  cairo_destroy (tile);
+
+  pattern = cairo_pattern_create_for_surface (surface);
+  cairo_surface_destroy (surface);
+  cairo_pattern_set_extend (pattern, CAIRO_EXTEND_REPEAT);
+  cairo_pattern_set_filter (pattern, CAIRO_FILTER_NEAREST);
+  return pattern;
+}
+
+static Tile *
+lookup_tile (LaminaHatchCache *cache,
+             LaminaCategory    category,
+             double            unit,
+             double            pixels,
+             int               width)
+{
+  Tile *oldest = &cache->tiles[0];
+
+  cache->clock++;
+  for (guint i = 0; i < N_TILES; i++)
+    {
+      Tile *t = &cache->tiles[i];
+
+      if (t->pattern && t->category == category && t->unit == unit && t->pixels == pixels &&
+          t->width == width)
+        {
+          t->used = cache->clock;
+          return t;
+        }
+      if (t->used < oldest->used)
+        oldest = t;
+    }
+  g_clear_pointer (&oldest->pattern, cairo_pattern_destroy);
+  *oldest = (Tile) { category, unit, pixels, width, cache->clock, NULL };
+  return oldest;
+}
+
+/* Where user axis (ux, uy) lands on the device: which device axis (0 = x,
+ * 1 = y) and in which direction.  FALSE unless a quarter turn. */
+static gboolean
+get_device_axis (cairo_t *cr,
+                 double   ux,
+                 double   uy,
+                 int     *axis,
+                 double  *sign)
+{
+  cairo_user_to_device_distance (cr, &ux, &uy);
+  if (fabs (uy) < 1e-9 && fabs (ux) > 1e-9)
+    *axis = 0, *sign = ux > 0 ? 1 : -1;
+  else if (fabs (ux) < 1e-9 && fabs (uy) > 1e-9)
+    *axis = 1, *sign = uy > 0 ? 1 : -1;
+  else
+    return FALSE;
+  return TRUE;
+}
+
+/* Fills the visible part of a layer (x, width) with its strip tile on an
+ * image surface, pixel for pixel where the paths would be drawn. */
+static gboolean
+fill_from_strip (cairo_t          *cr,
+                 LaminaHatchCache *cache,
+                 LaminaCategory    category,
+                 LaminaHatchUse    use,
+                 double            x,
+                 double            width,
+                 const Box        *box,
+                 double            unit)
+{
+  double origin[2] = { 0, 0 }, from[2] = { x, 0 }, to[2] = { x + width, 0 };
+  double pixels, dx = 1, dy = 0, sx, sy, d0, px_width;
+  cairo_matrix_t matrix;
+  int ax, ay;
+  Tile *tile;
+
+  if (get_strip_period (category, use, width, unit) <= 0 ||
+      cairo_surface_get_type (cairo_get_target (cr)) != CAIRO_SURFACE_TYPE_IMAGE ||
+      !get_device_axis (cr, 1, 0, &ax, &sx) || !get_device_axis (cr, 0, 1, &ay, &sy) || ax == ay)
+    return FALSE;
+  cairo_user_to_device_distance (cr, &dx, &dy);
+  pixels = hypot (dx, dy);
+  cairo_user_to_device (cr, &origin[0], &origin[1]);
+  cairo_user_to_device (cr, &from[0], &from[1]);
+  cairo_user_to_device (cr, &to[0], &to[1]);
+  /* The layer's faces rounded to pixels, as add_snapped_rectangle does. */
+  d0 = round (from[ax]);
+  px_width = fabs (round (to[ax]) - d0);
+  /* Too thin for a pattern to show, or absurdly wide: paths. */
+  if (px_width < 2 || px_width > 8192)
+    return FALSE;
+  tile = lookup_tile (cache, category, unit, pixels, (int) px_width | (use << 16));
+  if (tile->pattern == NULL)
+    tile->pattern = create_strip_tile (category, use, (int) px_width, unit, pixels);
+  /* pattern = ±(device − the snapped inner face) across, and the device
+   * position on a whole-pixel offset along (rows anchored at y = 0). */
+  cairo_matrix_init (&matrix, pixels, 0, 0, pixels,
+                     sx * (origin[ax] - d0), sy * (origin[ay] - round (origin[ay])));
+  cairo_pattern_set_matrix (tile->pattern, &matrix);
+  cairo_set_source (cr, tile->pattern);
+  cairo_set_operator (cr, CAIRO_OPERATOR_SOURCE);
+  add_snapped_rectangle (cr, x, box->y0, width, box->y1 - box->y0);
+  cairo_fill (cr);
+  return TRUE;
+}
+
 static gboolean
 fill_from_tile (cairo_t          *cr,
                 LaminaHatchCache *cache,
@@ -451,7 +611,7 @@ fill_from_tile (cairo_t          *cr,
 {
   cairo_surface_type_t type = cairo_surface_get_type (cairo_get_target (cr));
   double pixels = 0.0, dx = 1, dy = 0;
-  Tile *tile = NULL;
+  Tile *tile;
 
   if (get_tile_period (category) <= 0)
     return FALSE;
@@ -463,22 +623,9 @@ fill_from_tile (cairo_t          *cr,
       if (fabs (dx) > 1e-6 && fabs (dy) > 1e-6)
         return FALSE;
     }
-  for (guint i = 0; i < N_TILES; i++)
-    {
-      Tile *t = &cache->tiles[i];
-      if (t->pattern && t->category == category && t->unit == unit && t->pixels == pixels)
-        {
-          tile = t;
-          break;
-        }
-    }
-  if (tile == NULL)
-    {
-      tile = &cache->tiles[cache->next];
-      cache->next = (cache->next + 1) % N_TILES;
-      g_clear_pointer (&tile->pattern, cairo_pattern_destroy);
-      *tile = (Tile) { category, unit, pixels, create_tile (cr, category, unit, pixels) };
-    }
+  tile = lookup_tile (cache, category, unit, pixels, 0);
+  if (tile->pattern == NULL)
+    tile->pattern = create_tile (cr, category, unit, pixels);
   if (pixels > 0)
     {
       cairo_matrix_t matrix;
@@ -524,7 +671,8 @@ lamina_hatch_fill (cairo_t          *cr,
   /* Tiles need no clip: a clip that is not on whole pixels would send
    * every later fill through a mask. */
   if (cache && get_visible_box (cr, x, y, width, height, &box) &&
-      fill_from_tile (cr, cache, category, &box, unit))
+      (fill_from_tile (cr, cache, category, &box, unit) ||
+       fill_from_strip (cr, cache, category, use, x, width, &box, unit)))
     {
       cairo_restore (cr);
       return;

@@ -23,7 +23,10 @@ typedef enum
 
 /* Tiles of the area patterns (masonry, stone, concrete, plaster, other),
  * drawn once and reused: image tiles at device resolution for raster
- * targets, recording surfaces (one PDF form per document) otherwise. */
+ * targets, recording surfaces (one PDF form per document) otherwise.
+ * On raster targets the face-to-face patterns (insulation, timber along
+ * the grain, boards) get a tile as wide as the layer and one period long,
+ * kept per width in device pixels; on vector targets they stay paths. */
 typedef struct _LaminaHatchCache LaminaHatchCache;
 
 LaminaHatchCache *lamina_hatch_cache_new  (void);

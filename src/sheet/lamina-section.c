@@ -20,14 +20,24 @@ struct _LaminaSection
 {
   /* owned */
   PangoContext         *context;
-  PangoLayout          *layout;
+  GHashTable           *texts;     /* "face size alignment text" → PangoLayout */
+  GString              *key;       /* scratch for looking up texts */
+  double                device[5]; /* the CTM's linear part and the font options'
+                                      hash the texts were laid out for */
   PangoFontDescription *font;
   PangoFontDescription *font_bold;
   double               *scratch;   /* 7 × capacity doubles */
   guint                 capacity;
   GPtrArray            *members;   /* borrowed member names, per draw */
   LaminaHatchCache     *hatches;
+  /* borrowed */
+  PangoLayout          *layout;    /* the current text, from texts */
+  PangoAlignment        alignment; /* for the next texts */
 };
+
+/* Texts laid out once and reused while the fonts and the device transform
+ * stay the same: shaping dominates a frame that is mostly numbers. */
+#define MAX_TEXTS 512
 
 typedef enum
 {
@@ -42,7 +52,9 @@ lamina_section_new (void)
 
   self->context = pango_font_map_create_context (pango_cairo_font_map_get_default ());
   pango_cairo_context_set_resolution (self->context, 72.0);
-  self->layout = pango_layout_new (self->context);
+  self->texts = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_object_unref);
+  self->key = g_string_sized_new (64);
+  self->alignment = PANGO_ALIGN_LEFT;
   self->font = pango_font_description_from_string ("DejaVu Sans Condensed");
   self->font_bold = pango_font_description_from_string ("DejaVu Sans Condensed Bold");
   self->members = g_ptr_array_new ();
@@ -55,7 +67,8 @@ lamina_section_free (LaminaSection *self)
 {
   if (self == NULL)
     return;
-  g_clear_object (&self->layout);
+  g_hash_table_unref (self->texts);
+  g_string_free (self->key, TRUE);
   g_clear_object (&self->context);
   pango_font_description_free (self->font);
   pango_font_description_free (self->font_bold);
@@ -85,15 +98,54 @@ set_text (LaminaSection *self,
           double        *width,
           double        *height)
 {
-  PangoFontDescription *font = face == TEXT_BOLD ? self->font_bold : self->font;
   PangoRectangle logical;
 
-  pango_font_description_set_absolute_size (font, size * PANGO_SCALE);
-  pango_layout_set_font_description (self->layout, font);
-  pango_layout_set_text (self->layout, text, -1);
+  g_string_printf (self->key, "%d %a %d %s", face, size, self->alignment, text);
+  self->layout = g_hash_table_lookup (self->texts, self->key->str);
+  if (self->layout == NULL)
+    {
+      PangoFontDescription *font = face == TEXT_BOLD ? self->font_bold : self->font;
+
+      if (g_hash_table_size (self->texts) >= MAX_TEXTS)
+        g_hash_table_remove_all (self->texts);
+      self->layout = pango_layout_new (self->context);
+      pango_font_description_set_absolute_size (font, size * PANGO_SCALE);
+      pango_layout_set_font_description (self->layout, font);
+      pango_layout_set_alignment (self->layout, self->alignment);
+      pango_layout_set_text (self->layout, text, -1);
+      g_hash_table_insert (self->texts, g_strdup (self->key->str), self->layout);
+    }
   pango_layout_get_extents (self->layout, NULL, &logical);
   *width = (double) logical.width / PANGO_SCALE;
   *height = (double) logical.height / PANGO_SCALE;
+}
+
+/* pango_cairo_update_context () marks the context changed on every call,
+ * which would lay every text out again: call it only when the device
+ * transform (its linear part: pango ignores the offset) or the font
+ * options differ from those the cached texts were laid out for. */
+static void
+update_context (LaminaSection *self,
+                cairo_t       *cr)
+{
+  cairo_font_options_t *options = cairo_font_options_create ();
+  cairo_font_options_t *own = cairo_font_options_create ();
+  cairo_matrix_t ctm;
+  double device[5];
+
+  cairo_surface_get_font_options (cairo_get_target (cr), options);
+  cairo_get_font_options (cr, own);
+  cairo_font_options_merge (options, own);
+  cairo_get_matrix (cr, &ctm);
+  device[0] = ctm.xx, device[1] = ctm.yx, device[2] = ctm.xy, device[3] = ctm.yy;
+  device[4] = (double) cairo_font_options_hash (options);
+  cairo_font_options_destroy (own);
+  cairo_font_options_destroy (options);
+  if (g_hash_table_size (self->texts) > 0 && memcmp (device, self->device, sizeof device) == 0)
+    return;
+  pango_cairo_update_context (cr, self->context);
+  g_hash_table_remove_all (self->texts);
+  memcpy (self->device, device, sizeof device);
 }
 
 /* Draws @text with its anchor (ax, ay: fractions of its box) at (x, y) in
@@ -644,10 +696,10 @@ draw_sides (LaminaSection             *self,
         *space = '\n';
     }
 
-  pango_layout_set_alignment (self->layout, PANGO_ALIGN_CENTER);
+  self->alignment = PANGO_ALIGN_CENTER;
   draw_label_at (self, cr, layout, inside, TEXT_BOLD, u, -m.t_before / 2, length / 2, 0, 0);
   draw_label_at (self, cr, layout, outside, TEXT_BOLD, u, total + m.t_after / 2, length / 2, 0, 0);
-  pango_layout_set_alignment (self->layout, PANGO_ALIGN_LEFT);
+  self->alignment = PANGO_ALIGN_LEFT;
 
   if (result && style->temperatures)
     {
@@ -678,8 +730,7 @@ lamina_section_draw (LaminaSection             *self,
   if (layout->n_layers == 0)
     return;
   reserve_scratch (self, layout->n_layers + 1);
-  pango_cairo_update_context (cr, self->context);
-  pango_layout_context_changed (self->layout);
+  update_context (self, cr);
 
   cairo_save (cr);
   lamina_section_layout_get_matrix (layout, &matrix);
