@@ -6,6 +6,7 @@
 #include "lamina-application.h"
 
 #include <glib/gi18n.h>
+#include <stdio.h>
 
 #include "exchange/lamina-catalogue.h"
 #include "lamina-preferences-window.h"
@@ -90,6 +91,35 @@ show_error (GtkApplication *app,
   gtk_window_present (GTK_WINDOW (window));
 }
 
+/* Benchmark hook (build-aux/bench, DEVELOPERS.md "Performance"): with
+ * LAMINA_BENCH_FIRST_FRAME set, print the monotonic time of the main
+ * window's first painted frame and quit. */
+static void
+on_first_frame_cb (GdkFrameClock *clock,
+                   gpointer       data)
+{
+  GApplication *application = data;
+
+  g_signal_handlers_disconnect_by_func (clock, on_first_frame_cb, data);
+  g_print ("lamina-first-frame-monotonic-us: %" G_GINT64_FORMAT "\n", g_get_monotonic_time ());
+  fflush (stdout);
+  g_application_quit (application);
+}
+
+static void
+watch_first_frame (LaminaApplication *self,
+                   GtkWindow         *window)
+{
+  GdkFrameClock *clock = gtk_widget_get_frame_clock (GTK_WIDGET (window));
+
+  if (clock == NULL)
+    {
+      g_warning ("LAMINA_BENCH_FIRST_FRAME: the window has no frame clock");
+      return;
+    }
+  g_signal_connect (clock, "after-paint", G_CALLBACK (on_first_frame_cb), self);
+}
+
 static void
 lamina_application_activate (GApplication *application)
 {
@@ -118,6 +148,8 @@ lamina_application_activate (GApplication *application)
     g_warning ("Demo library: %s", error->message);
   window = GTK_WINDOW (lamina_window_new (self, self->library));
   gtk_window_present (window);
+  if (g_getenv ("LAMINA_BENCH_FIRST_FRAME") != NULL)
+    watch_first_frame (self, window);
 }
 
 static int

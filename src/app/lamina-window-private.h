@@ -38,6 +38,7 @@ struct _LaminaWindow
   LaminaDocument         *document;
   GSettings              *settings;
   GPtrArray              *tags;
+  gboolean                tags_loaded; /* on first use of the tag filter */
   GCancellable           *cancellable;
   char                   *deleted_id;
   char                   *notice;

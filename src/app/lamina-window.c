@@ -329,6 +329,9 @@ load_tags (LaminaWindow *self)
 {
   g_autoptr(GtkStringList) list = gtk_string_list_new (NULL);
 
+  if (self->tags_loaded)
+    return;
+  self->tags_loaded = TRUE;
   g_clear_pointer (&self->tags, g_ptr_array_unref);
   self->tags = lamina_library_list_tags (self->library, NULL);
   gtk_string_list_append (list, _("Any tag"));
@@ -340,13 +343,27 @@ load_tags (LaminaWindow *self)
 static void
 setup_filters (LaminaWindow *self)
 {
+  GtkGesture *gesture;
+  GtkEventController *focus;
+
   set_strings (self->element_filter, _("All elements"), _("Walls"), _("Roofs"), _("Floors"),
                _("Ceilings"), _("Partitions"), NULL);
   set_strings (self->status_filter, _("Any status"), C_("status", "Draft"), C_("status", "Checked"),
                C_("status", "Approved"), NULL);
   set_strings (self->sort_dropdown, _("Code"), _("Name"), _("U value"), _("Thickness"),
                _("Newest first"), NULL);
-  load_tags (self);
+  set_strings (self->tag_filter, _("Any tag"), NULL);
+  /* The tags of a large library take a query over every construction: run
+   * it when the tag filter is first used (pointer, keyboard focus or its
+   * activate signal), not before the first frame. */
+  gesture = gtk_gesture_click_new ();
+  gtk_event_controller_set_propagation_phase (GTK_EVENT_CONTROLLER (gesture), GTK_PHASE_CAPTURE);
+  g_signal_connect_object (gesture, "pressed", G_CALLBACK (load_tags), self, G_CONNECT_SWAPPED);
+  gtk_widget_add_controller (GTK_WIDGET (self->tag_filter), GTK_EVENT_CONTROLLER (gesture));
+  focus = gtk_event_controller_focus_new ();
+  g_signal_connect_object (focus, "enter", G_CALLBACK (load_tags), self, G_CONNECT_SWAPPED);
+  gtk_widget_add_controller (GTK_WIDGET (self->tag_filter), focus);
+  g_signal_connect_object (self->tag_filter, "activate", G_CALLBACK (load_tags), self, G_CONNECT_SWAPPED);
 
   g_signal_connect_object (self->search_entry, "search-changed", G_CALLBACK (on_search_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (self->element_filter, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);

@@ -841,6 +841,47 @@ test_danish_comma (Fixture       *f,
   }
 }
 
+/* The tag filter lists the library's tags only once it is used: the query
+ * over every construction is not part of start-up. */
+static GtkDropDown *
+find_tag_filter (GtkWidget *widget)
+{
+  if (GTK_IS_DROP_DOWN (widget))
+    {
+      GListModel *model = gtk_drop_down_get_model (GTK_DROP_DOWN (widget));
+
+      if (model != NULL && GTK_IS_STRING_LIST (model) &&
+          g_strcmp0 (gtk_string_list_get_string (GTK_STRING_LIST (model), 0), _("Any tag")) == 0)
+        return GTK_DROP_DOWN (widget);
+    }
+  for (GtkWidget *child = gtk_widget_get_first_child (widget); child; child = gtk_widget_get_next_sibling (child))
+    {
+      GtkDropDown *found = find_tag_filter (child);
+      if (found != NULL)
+        return found;
+    }
+  return NULL;
+}
+
+static void
+test_tags_on_first_use (Fixture       *f,
+                        gconstpointer  data)
+{
+  g_autoptr(GPtrArray) tags = lamina_library_list_tags (f->library, NULL);
+  GtkDropDown *filter = find_tag_filter (GTK_WIDGET (f->window));
+  GListModel *model;
+
+  g_assert_nonnull (filter);
+  g_assert_nonnull (tags);
+  g_assert_cmpuint (tags->len, >, 0);
+  g_assert_cmpuint (g_list_model_get_n_items (gtk_drop_down_get_model (filter)), ==, 1);
+  gtk_widget_grab_focus (GTK_WIDGET (filter));
+  model = gtk_drop_down_get_model (filter);
+  g_assert_cmpuint (g_list_model_get_n_items (model), ==, tags->len + 1);
+  for (guint i = 0; i < tags->len; i++)
+    g_assert_cmpstr (gtk_string_list_get_string (GTK_STRING_LIST (model), i + 1), ==, tags->pdata[i]);
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -880,6 +921,7 @@ main (int   argc,
       g_test_add ("/app/window/materials-manager", Fixture, NULL, fixture_setup, test_materials_manager, fixture_teardown);
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
+      g_test_add ("/app/window/tags-on-first-use", Fixture, NULL, fixture_setup, test_tags_on_first_use, fixture_teardown);
     }
   return g_test_run ();
 }
