@@ -7,6 +7,7 @@
 
 #include <glib/gi18n.h>
 #include <math.h>
+#include <string.h>
 
 #include "lamina-editor-state.h"
 #include "lamina-text.h"
@@ -32,6 +33,19 @@ struct _LaminaSectionView
   double                    snap_step;
   double                    zoom;
   gboolean                  show_temperatures;
+
+  /* The drawing, kept between frames.  Drawn on an image surface of our
+   * own, not on the snapshot's cairo node: the node records the drawing
+   * and replays it, so the hatches would take their slow vector path on
+   * every frame.  Redrawn only when what it shows changed. */
+  cairo_surface_t          *frame;
+  guint                     generation;      /* bumped by set_construction */
+  guint                     frame_generation;
+  int                       frame_scale;     /* the widget's scale factor */
+  LaminaSectionStyle        frame_style;
+  double                   *frame_edges;     /* the layout drawn */
+  guint                     frame_n_edges;
+  double                    frame_body[4];
 
   /* during a drag */
   int                       drag_edge;       /* −1 when not dragging */
@@ -132,6 +146,63 @@ update_accessible (LaminaSectionView *self)
                                   -1);
 }
 
+static gboolean
+is_frame_current (LaminaSectionView *self,
+                  int                width,
+                  int                height)
+{
+  double body[4] = { self->layout.body_x, self->layout.body_y, self->layout.body_width, self->layout.body_height };
+  int scale = gtk_widget_get_scale_factor (GTK_WIDGET (self));
+
+  return self->frame != NULL &&
+         cairo_image_surface_get_width (self->frame) == width * scale &&
+         cairo_image_surface_get_height (self->frame) == height * scale &&
+         self->frame_scale == scale &&
+         self->frame_generation == self->generation &&
+         memcmp (&self->frame_style, &self->style, sizeof self->style) == 0 &&
+         memcmp (self->frame_body, body, sizeof body) == 0 &&
+         self->frame_n_edges == self->layout.n_layers + 1 &&
+         memcmp (self->frame_edges, self->layout.edges, self->frame_n_edges * sizeof (double)) == 0;
+}
+
+static void
+draw_frame (LaminaSectionView *self,
+            int                width,
+            int                height)
+{
+  int scale = gtk_widget_get_scale_factor (GTK_WIDGET (self));
+  cairo_t *cr;
+
+  if (self->frame == NULL ||
+      cairo_image_surface_get_width (self->frame) != width * scale ||
+      cairo_image_surface_get_height (self->frame) != height * scale)
+    {
+      g_clear_pointer (&self->frame, cairo_surface_destroy);
+      self->frame = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, width * scale, height * scale);
+      cairo_surface_set_device_scale (self->frame, scale, scale);
+    }
+  cr = cairo_create (self->frame);
+  /* The widget's background shows through where the drawing leaves it. */
+  cairo_set_operator (cr, CAIRO_OPERATOR_CLEAR);
+  cairo_paint (cr);
+  cairo_set_operator (cr, CAIRO_OPERATOR_OVER);
+  lamina_section_draw (self->painter, cr, &self->layout, self->construction,
+                       self->result, &self->style);
+  cairo_destroy (cr);
+  cairo_surface_flush (self->frame);
+
+  self->frame_scale = scale;
+  self->frame_generation = self->generation;
+  self->frame_style = self->style;
+  self->frame_body[0] = self->layout.body_x;
+  self->frame_body[1] = self->layout.body_y;
+  self->frame_body[2] = self->layout.body_width;
+  self->frame_body[3] = self->layout.body_height;
+  self->frame_n_edges = self->layout.n_layers + 1;
+  self->frame_edges = g_renew (double, self->frame_edges, self->frame_n_edges);
+  memcpy (self->frame_edges, self->layout.edges, self->frame_n_edges * sizeof (double));
+}
+
 static void
 lamina_section_view_snapshot (GtkWidget   *widget,
                               GtkSnapshot *snapshot)
@@ -150,9 +221,11 @@ lamina_section_view_snapshot (GtkWidget   *widget,
   self->style.highlight_boundary = self->drag_edge >= 0 ? self->drag_edge : self->hover_edge;
   self->style.temperatures = self->show_temperatures && self->result != NULL;
 
+  if (!is_frame_current (self, width, height))
+    draw_frame (self, width, height);
   cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
-  lamina_section_draw (self->painter, cr, &self->layout, self->construction,
-                       self->result, &self->style);
+  cairo_set_source_surface (cr, self->frame, 0, 0);
+  cairo_paint (cr);
   cairo_destroy (cr);
 }
 
@@ -302,6 +375,8 @@ lamina_section_view_finalize (GObject *object)
   LaminaSectionView *self = LAMINA_SECTION_VIEW (object);
 
   g_clear_pointer (&self->painter, lamina_section_free);
+  g_clear_pointer (&self->frame, cairo_surface_destroy);
+  g_clear_pointer (&self->frame_edges, g_free);
   lamina_section_layout_clear (&self->layout);
 
   G_OBJECT_CLASS (lamina_section_view_parent_class)->finalize (object);
@@ -454,6 +529,8 @@ lamina_section_view_set_construction (LaminaSectionView        *self,
 
   self->construction = construction;
   self->result = result;
+  /* The same construction may come back edited in place. */
+  self->generation++;
   if (construction == NULL || self->selected >= (int) construction->layers->len)
     set_selected_internal (self, construction && construction->layers->len ? (int) construction->layers->len - 1 : -1);
   update_accessible (self);
