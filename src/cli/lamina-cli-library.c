@@ -46,30 +46,6 @@ lamina_cli_print_json (JsonNode *root)
   json_node_unref (root);
 }
 
-static void
-add_number (JsonBuilder *b,
-            const char  *key,
-            double       value)
-{
-  json_builder_set_member_name (b, key);
-  if (isnan (value))
-    json_builder_add_null_value (b);
-  else
-    json_builder_add_double_value (b, value);
-}
-
-static void
-add_string (JsonBuilder *b,
-            const char  *key,
-            const char  *value)
-{
-  json_builder_set_member_name (b, key);
-  if (value == NULL)
-    json_builder_add_null_value (b);
-  else
-    json_builder_add_string_value (b, value);
-}
-
 /* Every numeric option names itself and its allowed range when refused. */
 static gboolean
 parse_u (const char *text,
@@ -205,17 +181,17 @@ lamina_cli_list (const LaminaCliGlobals *globals,
           LaminaSummary *s = rows->pdata[i];
 
           json_builder_begin_object (b);
-          add_string (b, "id", s->id);
-          add_string (b, "code", s->code);
-          add_string (b, "name", s->name);
-          add_string (b, "element", lamina_element_to_string (s->element));
-          add_string (b, "status", lamina_status_to_string (s->status));
+          lamina_cli_json_add_string (b, "id", s->id);
+          lamina_cli_json_add_string (b, "code", s->code);
+          lamina_cli_json_add_string (b, "name", s->name);
+          lamina_cli_json_add_string (b, "element", lamina_element_to_string (s->element));
+          lamina_cli_json_add_string (b, "status", lamina_status_to_string (s->status));
           json_builder_set_member_name (b, "revision");
           json_builder_add_int_value (b, s->revision);
-          add_number (b, "u", s->u);
-          add_number (b, "u_corrected", s->u_corrected);
-          add_number (b, "target_u", s->target_u);
-          add_number (b, "thickness", s->thickness / 1000.0);
+          lamina_cli_json_add_number (b, "u", s->u);
+          lamina_cli_json_add_number (b, "u_corrected", s->u_corrected);
+          lamina_cli_json_add_number (b, "target_u", s->target_u);
+          lamina_cli_json_add_number (b, "thickness", s->thickness / 1000.0);
           json_builder_set_member_name (b, "material_changed");
           json_builder_add_boolean_value (b, (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) != 0);
           json_builder_end_object (b);
@@ -389,15 +365,15 @@ lamina_cli_history (const LaminaCliGlobals *globals,
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "revision");
       json_builder_add_int_value (b, r->revision);
-      add_string (b, "status", lamina_status_to_string (r->status));
-      add_string (b, "modified_by", r->modified_by);
-      add_string (b, "modified_at", r->modified_at);
-      add_string (b, "checked_by", r->checked_by);
-      add_string (b, "checked_at", r->checked_at);
-      add_string (b, "approved_by", r->approved_by);
-      add_string (b, "approved_at", r->approved_at);
-      add_string (b, "comment", r->comment);
-      add_number (b, "u_corrected", r->u_corrected);
+      lamina_cli_json_add_string (b, "status", lamina_status_to_string (r->status));
+      lamina_cli_json_add_string (b, "modified_by", r->modified_by);
+      lamina_cli_json_add_string (b, "modified_at", r->modified_at);
+      lamina_cli_json_add_string (b, "checked_by", r->checked_by);
+      lamina_cli_json_add_string (b, "checked_at", r->checked_at);
+      lamina_cli_json_add_string (b, "approved_by", r->approved_by);
+      lamina_cli_json_add_string (b, "approved_at", r->approved_at);
+      lamina_cli_json_add_string (b, "comment", r->comment);
+      lamina_cli_json_add_number (b, "u_corrected", r->u_corrected);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
@@ -455,15 +431,15 @@ lamina_cli_materials (const LaminaCliGlobals *globals,
           continue;
         }
       json_builder_begin_object (b);
-      add_string (b, "id", m->id);
-      add_string (b, "name", m->name);
-      add_string (b, "category", lamina_category_to_string (m->category));
-      add_number (b, "conductivity", m->conductivity);
-      add_number (b, "density", m->density);
-      add_number (b, "specific_heat", m->specific_heat);
-      add_number (b, "vapour_resistance_factor", m->vapour_resistance_factor);
-      add_number (b, "emissivity", m->emissivity);
-      add_string (b, "source", m->source);
+      lamina_cli_json_add_string (b, "id", m->id);
+      lamina_cli_json_add_string (b, "name", m->name);
+      lamina_cli_json_add_string (b, "category", lamina_category_to_string (m->category));
+      lamina_cli_json_add_number (b, "conductivity", m->conductivity);
+      lamina_cli_json_add_number (b, "density", m->density);
+      lamina_cli_json_add_number (b, "specific_heat", m->specific_heat);
+      lamina_cli_json_add_number (b, "vapour_resistance_factor", m->vapour_resistance_factor);
+      lamina_cli_json_add_number (b, "emissivity", m->emissivity);
+      lamina_cli_json_add_string (b, "source", m->source);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);

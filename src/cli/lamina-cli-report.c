@@ -16,16 +16,28 @@ lamina_cli_caution (void)
            "professional before use.");
 }
 
-static void
-add_number (JsonBuilder *b,
-            const char  *key,
-            double       value)
+void
+lamina_cli_json_add_number (JsonBuilder *b,
+                            const char  *key,
+                            double       value)
 {
   json_builder_set_member_name (b, key);
   if (isfinite (value))
     json_builder_add_double_value (b, value);
   else
     json_builder_add_null_value (b);
+}
+
+void
+lamina_cli_json_add_string (JsonBuilder *b,
+                            const char  *key,
+                            const char  *value)
+{
+  json_builder_set_member_name (b, key);
+  if (value == NULL)
+    json_builder_add_null_value (b);
+  else
+    json_builder_add_string_value (b, value);
 }
 
 static void
@@ -40,16 +52,16 @@ add_layers (JsonBuilder              *b,
       const LaminaLayerResult *lr = &r->layers[i];
 
       json_builder_begin_object (b);
-      add_number (b, "thickness", lr->thickness / 1000.0);
-      add_number (b, "resistance", lr->resistance);
+      lamina_cli_json_add_number (b, "thickness", lr->thickness / 1000.0);
+      lamina_cli_json_add_number (b, "resistance", lr->resistance);
       json_builder_set_member_name (b, "label");
       json_builder_add_string_value (b, lamina_layer_get_label (c->layers->pdata[i]));
       json_builder_set_member_name (b, "bridged");
       json_builder_add_boolean_value (b, lr->bridged);
       json_builder_set_member_name (b, "disregarded");
       json_builder_add_boolean_value (b, lr->disregarded);
-      add_number (b, "temperature_inner", lr->temperature_inner);
-      add_number (b, "temperature_outer", lr->temperature_outer);
+      lamina_cli_json_add_number (b, "temperature_inner", lr->temperature_inner);
+      lamina_cli_json_add_number (b, "temperature_outer", lr->temperature_outer);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
@@ -75,21 +87,21 @@ lamina_cli_result_to_json (const LaminaConstruction *c,
   json_builder_add_string_value (b, lamina_element_to_string (c->element));
   json_builder_set_member_name (b, "heat_flow");
   json_builder_add_string_value (b, lamina_heat_flow_to_string (r->heat_flow));
-  add_number (b, "rsi", r->rsi);
-  add_number (b, "rse", r->rse);
-  add_number (b, "r_upper", r->r_upper);
-  add_number (b, "r_lower", r->r_lower);
-  add_number (b, "r_total", r->r_total);
-  add_number (b, "relative_error", r->relative_error);
-  add_number (b, "u", r->u);
-  add_number (b, "delta_u", r->delta_u);
-  add_number (b, "u_corrected", r->u_corrected);
-  add_number (b, "thickness", r->thickness / 1000.0);
+  lamina_cli_json_add_number (b, "rsi", r->rsi);
+  lamina_cli_json_add_number (b, "rse", r->rse);
+  lamina_cli_json_add_number (b, "r_upper", r->r_upper);
+  lamina_cli_json_add_number (b, "r_lower", r->r_lower);
+  lamina_cli_json_add_number (b, "r_total", r->r_total);
+  lamina_cli_json_add_number (b, "relative_error", r->relative_error);
+  lamina_cli_json_add_number (b, "u", r->u);
+  lamina_cli_json_add_number (b, "delta_u", r->delta_u);
+  lamina_cli_json_add_number (b, "u_corrected", r->u_corrected);
+  lamina_cli_json_add_number (b, "thickness", r->thickness / 1000.0);
   json_builder_set_member_name (b, "sections");
   json_builder_add_int_value (b, r->n_sections);
   if (r->has_target)
     {
-      add_number (b, "target_u", c->target_u);
+      lamina_cli_json_add_number (b, "target_u", c->target_u);
       json_builder_set_member_name (b, "target_met");
       json_builder_add_boolean_value (b, r->target_met);
     }

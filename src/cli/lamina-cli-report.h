@@ -16,6 +16,14 @@ JsonNode *lamina_cli_result_to_json   (const LaminaConstruction *construction,
                                        const LaminaResult       *result);
 /* {"constructions": [...]} from an array of the objects above (takes it). */
 char     *lamina_cli_json_document    (JsonArray                *constructions);
+/* A member whose value may be missing: null for NAN (or ±inf, which JSON
+ * cannot carry) and for a NULL string. */
+void      lamina_cli_json_add_number  (JsonBuilder              *builder,
+                                       const char               *key,
+                                       double                    value);
+void      lamina_cli_json_add_string  (JsonBuilder              *builder,
+                                       const char               *key,
+                                       const char               *value);
 /* A readable table with the caution line. */
 void      lamina_cli_print_result     (FILE                     *out,
                                        const LaminaConstruction *construction,
