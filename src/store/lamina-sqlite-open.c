@@ -293,10 +293,15 @@ configure (LaminaSqlite  *self,
   sqlite3_extended_result_codes (self->db, 1);
   /* A 32 MiB page cache (the default is 2 MiB) keeps a large import's
    * dirty pages in memory until the commit instead of spilling them to
-   * the WAL half-way; temporary tables stay in memory. */
+   * the WAL half-way; temporary tables stay in memory.  The staging table
+   * of the search index (lamina-sqlite-revisions.c) lives as long as the
+   * connection, in memory, and never touches the library file. */
   return lamina_sqlite_exec (self, "PRAGMA foreign_keys = ON;"
                                    "PRAGMA cache_size = -32768;"
-                                   "PRAGMA temp_store = MEMORY;", error);
+                                   "PRAGMA temp_store = MEMORY;"
+                                   "CREATE TEMP TABLE construction_fts_stage ("
+                                   "  num INTEGER PRIMARY KEY, code, name, description, tags, materials);",
+                             error);
 }
 
 /* Refuses what is not ours or is damaged, before anything is written. */

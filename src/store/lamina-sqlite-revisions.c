@@ -170,10 +170,6 @@ store_tags_and_materials (LaminaSqlite              *self,
 
   /* The search index row (the construction's rowid) is staged and written
    * by flush_search_index() just before the commit. */
-  if (!lamina_sqlite_exec (self,
-        "CREATE TEMP TABLE IF NOT EXISTS construction_fts_stage ("
-        "  num INTEGER PRIMARY KEY, code, name, description, tags, materials);", error))
-    return FALSE;
   stmt = lamina_sqlite_prepare (self,
     "INSERT OR REPLACE INTO construction_fts_stage (num, code, name, description, tags, materials)"
     " VALUES (?1, ?2, ?3, ?4, ?5, ?6);", error);
@@ -201,8 +197,6 @@ flush_search_index (LaminaSqlite  *self,
                     GError       **error)
 {
   return lamina_sqlite_exec (self,
-           "CREATE TEMP TABLE IF NOT EXISTS construction_fts_stage ("
-           "  num INTEGER PRIMARY KEY, code, name, description, tags, materials);"
            "DELETE FROM construction_fts WHERE rowid IN (SELECT num FROM construction_fts_stage);"
            "INSERT INTO construction_fts (rowid, code, name, description, tags, materials)"
            "  SELECT num, code, name, description, tags, materials FROM construction_fts_stage;"
