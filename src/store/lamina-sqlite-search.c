@@ -51,26 +51,29 @@ lamina_library_text_to_fts_query (const char *text)
 /* Builds the WHERE clause (and FROM) for @q; the bind order is fixed:
  * ?1 fts, ?2 element, ?3 status, ?4 tag, ?5 min U, ?6 max U,
  * ?7 min thickness, ?8 max thickness. */
-static const char *
-sort_index (LaminaSortKey key)
+/* Each sort key's ORDER BY expression and the partial index that holds
+ * the rows in that order (schema v2). */
+typedef struct
 {
-  switch (key)
-    {
-    case LAMINA_SORT_NAME:
-      return "construction_by_name";
-    case LAMINA_SORT_U:
-      return "construction_by_u";
-    case LAMINA_SORT_THICKNESS:
-      return "construction_by_thickness";
-    case LAMINA_SORT_MODIFIED:
-      return "construction_by_modified";
-    case LAMINA_SORT_RELEVANCE:
-      return NULL;
-    case LAMINA_SORT_CODE:
-    case LAMINA_N_SORTS:
-    default:
-      return "construction_by_code";
-    }
+  const char *order;
+  const char *index;
+} SortColumn;
+
+static const SortColumn sort_columns[] = {
+  [LAMINA_SORT_CODE] = { "c.code COLLATE NOCASE", "construction_by_code" },
+  [LAMINA_SORT_NAME] = { "c.name COLLATE NOCASE", "construction_by_name" },
+  [LAMINA_SORT_U] = { "c.u_corrected", "construction_by_u" },
+  [LAMINA_SORT_THICKNESS] = { "c.thickness", "construction_by_thickness" },
+  [LAMINA_SORT_MODIFIED] = { "c.modified_at", "construction_by_modified" },
+};
+
+/* Relevance without text, and anything unknown, sorts by code. */
+static const SortColumn *
+get_sort_column (LaminaSortKey key)
+{
+  if ((guint) key >= G_N_ELEMENTS (sort_columns) || sort_columns[key].order == NULL)
+    key = LAMINA_SORT_CODE;
+  return &sort_columns[key];
 }
 
 /* @sort_by: for a page in a sort key's order, walk that key's index and
@@ -131,31 +134,6 @@ bind_filters (sqlite3_stmt             *stmt,
   lamina_sqlite_bind_double (stmt, 8, q->max_thickness);
 }
 
-static const char *
-order_clause (LaminaSortKey key,
-              gboolean      has_text)
-{
-  switch (key)
-    {
-    case LAMINA_SORT_NAME:
-      return "c.name COLLATE NOCASE";
-    case LAMINA_SORT_U:
-      return "c.u_corrected";
-    case LAMINA_SORT_THICKNESS:
-      return "c.thickness";
-    case LAMINA_SORT_MODIFIED:
-      return "c.modified_at";
-    case LAMINA_SORT_RELEVANCE:
-      if (has_text)
-        return "f.rank";
-      G_GNUC_FALLTHROUGH;
-    case LAMINA_SORT_CODE:
-    case LAMINA_N_SORTS:
-    default:
-      return "c.code COLLATE NOCASE";
-    }
-}
-
 static GPtrArray *
 sqlite_search (LaminaBackend             *backend,
                const LaminaLibraryQuery  *q,
@@ -171,9 +149,9 @@ sqlite_search (LaminaBackend             *backend,
   sqlite3_stmt *stmt;
   int rc;
 
-  append_filters (sql, q, fts != NULL, rank, rank ? NULL : sort_index (q->sort));
+  append_filters (sql, q, fts != NULL, rank, rank ? NULL : get_sort_column (q->sort)->index);
   g_string_append (sql, " ORDER BY ");
-  g_string_append_printf (sql, "%s %s, c.id %s", order_clause (q->sort, fts != NULL), dir, dir);
+  g_string_append_printf (sql, "%s %s, c.id %s", rank ? "f.rank" : get_sort_column (q->sort)->order, dir, dir);
   g_string_append (sql, " LIMIT ?9 OFFSET ?10;");
   stmt = lamina_sqlite_prepare (SELF, sql->str, error);
   if (stmt == NULL)
