@@ -1,6 +1,6 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* lamina-sqlite-open.c: opening, recognising, checking and migrating a
- * library file; the small helpers every SQLite file of the backend uses. */
+ * library file; the backend's table of operations. */
 #define G_LOG_DOMAIN "lamina-store"
 
 #include "config.h"
@@ -9,172 +9,11 @@
 
 #include <errno.h>
 #include <glib/gstdio.h>
-#include <math.h>
 #include <string.h>
 #include <unistd.h>
 
 /* Another process holding the write lock is waited for this long. */
 #define BUSY_TIMEOUT_MS 5000
-
-void
-lamina_sqlite_set_error (LaminaSqlite  *self,
-                         int            rc,
-                         const char    *what,
-                         GError       **error)
-{
-  LaminaLibraryError code;
-
-  switch (rc & 0xff)
-    {
-    case SQLITE_BUSY:
-    case SQLITE_LOCKED:
-      code = LAMINA_LIBRARY_ERROR_BUSY;
-      break;
-    case SQLITE_CORRUPT:
-      code = LAMINA_LIBRARY_ERROR_CORRUPT;
-      break;
-    case SQLITE_NOTADB:
-      code = LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY;
-      break;
-    case SQLITE_READONLY:
-      code = LAMINA_LIBRARY_ERROR_READ_ONLY;
-      break;
-    case SQLITE_CANTOPEN:
-    case SQLITE_IOERR:
-    case SQLITE_FULL:
-      code = LAMINA_LIBRARY_ERROR_IO;
-      break;
-    case SQLITE_CONSTRAINT:
-      code = LAMINA_LIBRARY_ERROR_INVALID;
-      break;
-    default:
-      code = LAMINA_LIBRARY_ERROR_FAILED;
-    }
-  g_set_error (error, LAMINA_LIBRARY_ERROR, code, "%s: %s: %s",
-               self->parent.path, what,
-               self->db ? sqlite3_errmsg (self->db) : sqlite3_errstr (rc));
-}
-
-sqlite3_stmt *
-lamina_sqlite_prepare (LaminaSqlite  *self,
-                       const char    *sql,
-                       GError       **error)
-{
-  sqlite3_stmt *stmt = g_hash_table_lookup (self->statements, sql);
-  int rc;
-
-  if (stmt != NULL)
-    {
-      sqlite3_reset (stmt);
-      sqlite3_clear_bindings (stmt);
-      return stmt;
-    }
-  rc = sqlite3_prepare_v3 (self->db, sql, -1, SQLITE_PREPARE_PERSISTENT, &stmt, NULL);
-  if (rc != SQLITE_OK)
-    {
-      lamina_sqlite_set_error (self, rc, "cannot prepare a query", error);
-      return NULL;
-    }
-  g_hash_table_insert (self->statements, g_strdup (sql), stmt);
-  return stmt;
-}
-
-gboolean
-lamina_sqlite_exec (LaminaSqlite  *self,
-                    const char    *sql,
-                    GError       **error)
-{
-  int rc = sqlite3_exec (self->db, sql, NULL, NULL, NULL);
-
-  if (rc != SQLITE_OK)
-    {
-      lamina_sqlite_set_error (self, rc, "cannot update the library", error);
-      return FALSE;
-    }
-  return TRUE;
-}
-
-gboolean
-lamina_sqlite_begin (LaminaSqlite  *self,
-                     GError       **error)
-{
-  return lamina_sqlite_exec (self, "BEGIN IMMEDIATE;", error);
-}
-
-gboolean
-lamina_sqlite_commit (LaminaSqlite  *self,
-                      GError       **error)
-{
-  if (!lamina_sqlite_exec (self, "COMMIT;", error))
-    {
-      lamina_sqlite_rollback (self);
-      return FALSE;
-    }
-  return TRUE;
-}
-
-void
-lamina_sqlite_rollback (LaminaSqlite *self)
-{
-  if (!sqlite3_get_autocommit (self->db))
-    sqlite3_exec (self->db, "ROLLBACK;", NULL, NULL, NULL);
-}
-
-gboolean
-lamina_sqlite_step_done (LaminaSqlite  *self,
-                         sqlite3_stmt  *stmt,
-                         GError       **error)
-{
-  int rc = sqlite3_step (stmt);
-
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE && rc != SQLITE_ROW)
-    {
-      lamina_sqlite_set_error (self, rc, "cannot update the library", error);
-      return FALSE;
-    }
-  return TRUE;
-}
-
-void
-lamina_sqlite_bind_text (sqlite3_stmt *stmt,
-                         int           index,
-                         const char   *text)
-{
-  if (text == NULL)
-    sqlite3_bind_null (stmt, index);
-  else
-    sqlite3_bind_text (stmt, index, text, -1, SQLITE_TRANSIENT);
-}
-
-void
-lamina_sqlite_bind_double (sqlite3_stmt *stmt,
-                           int           index,
-                           double        value)
-{
-  if (isnan (value))
-    sqlite3_bind_null (stmt, index);
-  else
-    sqlite3_bind_double (stmt, index, value);
-}
-
-double
-lamina_sqlite_column_double (sqlite3_stmt *stmt,
-                             int           index)
-{
-  if (sqlite3_column_type (stmt, index) == SQLITE_NULL)
-    return NAN;
-  return sqlite3_column_double (stmt, index);
-}
-
-char *
-lamina_sqlite_column_dup (sqlite3_stmt *stmt,
-                          int           index)
-{
-  return g_strdup ((const char *) sqlite3_column_text (stmt, index));
-}
-
-/* Opening */
 
 static gint64
 query_int (LaminaSqlite *self,
@@ -200,7 +39,7 @@ query_int (LaminaSqlite *self,
 }
 
 static void
-sqlite_close (LaminaBackend *backend)
+lamina_sqlite_backend_close (LaminaBackend *backend)
 {
   LaminaSqlite *self = (LaminaSqlite *) backend;
 
@@ -217,7 +56,7 @@ sqlite_close (LaminaBackend *backend)
 }
 
 static gboolean
-sqlite_check_for_changes (LaminaBackend *backend)
+lamina_sqlite_backend_check_for_changes (LaminaBackend *backend)
 {
   LaminaSqlite *self = (LaminaSqlite *) backend;
   int rc;
@@ -235,20 +74,38 @@ finalize_statement (gpointer stmt)
   sqlite3_finalize (stmt);
 }
 
+/* The SQLite backend's operations, in one place; the operations live in
+ * lamina-sqlite-store.c (materials), lamina-sqlite-revisions.c
+ * (constructions, review, import) and lamina-sqlite-search.c. */
+static const LaminaBackendVTable sqlite_vtable = {
+  .close = lamina_sqlite_backend_close,
+  .check_for_changes = lamina_sqlite_backend_check_for_changes,
+
+  .list_materials = lamina_sqlite_backend_list_materials,
+  .get_material = lamina_sqlite_backend_get_material,
+  .put_material = lamina_sqlite_backend_put_material,
+  .delete_material = lamina_sqlite_backend_delete_material,
+
+  .get_construction = lamina_sqlite_backend_get_construction,
+  .store_revision = lamina_sqlite_backend_store_revision,
+  .set_deleted = lamina_sqlite_backend_set_deleted,
+  .get_history = lamina_sqlite_backend_get_history,
+  .set_status = lamina_sqlite_backend_set_status,
+
+  .search = lamina_sqlite_backend_search,
+  .count = lamina_sqlite_backend_count,
+  .list_tags = lamina_sqlite_backend_list_tags,
+
+  .apply_import = lamina_sqlite_backend_apply_import,
+  .list_ids = lamina_sqlite_backend_list_ids,
+};
+
 static LaminaSqlite *
 sqlite_new (const char *path)
 {
   LaminaSqlite *self = g_new0 (LaminaSqlite, 1);
-  static LaminaBackendVTable vtable;
 
-  if (vtable.close == NULL)
-    {
-      vtable.close = sqlite_close;
-      vtable.check_for_changes = sqlite_check_for_changes;
-      lamina_sqlite_store_init_vtable (&vtable);
-      lamina_sqlite_search_init_vtable (&vtable);
-    }
-  self->parent.vtable = &vtable;
+  self->parent.vtable = &sqlite_vtable;
   self->parent.path = g_strdup (path);
   self->statements = g_hash_table_new_full (g_str_hash, g_str_equal, g_free,
                                             finalize_statement);
@@ -459,12 +316,12 @@ open_file (const char    *path,
   if (rc != SQLITE_OK)
     {
       lamina_sqlite_set_error (self, rc, "cannot open", error);
-      sqlite_close (&self->parent);
+      lamina_sqlite_backend_close (&self->parent);
       return NULL;
     }
   if (!configure (self, error))
     {
-      sqlite_close (&self->parent);
+      lamina_sqlite_backend_close (&self->parent);
       return NULL;
     }
   return self;
@@ -505,7 +362,7 @@ create_library_file (const char  *path,
     }
   ok = create_schema (self, LAMINA_LIBRARY_SCHEMA_VERSION, seed, error);
   /* Closing the last connection checkpoints the WAL into the file. */
-  sqlite_close (&self->parent);
+  lamina_sqlite_backend_close (&self->parent);
   if (ok && link (tmp, path) == 0)
     *created = TRUE;
   else if (ok && errno != EEXIST)
@@ -530,8 +387,8 @@ create_library_file (const char  *path,
 
 LaminaBackend *
 lamina_sqlite_backend_open (const char             *path,
-                            LaminaLibraryOpenFlags  flags,
-                            GError                **error)
+                                           LaminaLibraryOpenFlags  flags,
+                                           GError                **error)
 {
   LaminaSqlite *self;
   int version = 0, rc;
@@ -567,7 +424,7 @@ lamina_sqlite_backend_open (const char             *path,
     return NULL;
   if (!recognise (self, &version, error))
     {
-      sqlite_close (&self->parent);
+      lamina_sqlite_backend_close (&self->parent);
       return NULL;
     }
   self->parent.opened_version = version;
@@ -575,7 +432,7 @@ lamina_sqlite_backend_open (const char             *path,
       && (!lamina_sqlite_exec (self, "PRAGMA journal_mode = WAL;", error)
           || !upgrade (self, version, error)))
     {
-      sqlite_close (&self->parent);
+      lamina_sqlite_backend_close (&self->parent);
       return NULL;
     }
   if (created)
@@ -598,6 +455,6 @@ lamina_sqlite_create_at_version (const char  *path,
   if (self == NULL)
     return FALSE;
   ok = create_schema (self, version, FALSE, error);
-  sqlite_close (&self->parent);
+  lamina_sqlite_backend_close (&self->parent);
   return ok;
 }

@@ -1,5 +1,7 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* lamina-sqlite-private.h: the SQLite backend's shared state (private). */
+/* lamina-sqlite-private.h: the SQLite backend's shared state (private).
+ * The helpers (lamina_sqlite_prepare … column_dup) are in
+ * lamina-sqlite-util.c. */
 #pragma once
 
 #include <sqlite3.h>
@@ -64,9 +66,61 @@ gboolean      lamina_sqlite_migrate   (LaminaSqlite  *self,
 gboolean      lamina_sqlite_seed_materials (LaminaSqlite *self,
                                             GError      **error);
 
-/* lamina-sqlite-store.c, lamina-sqlite-search.c: fill the vtable. */
-void          lamina_sqlite_store_init_vtable  (LaminaBackendVTable *vtable);
-void          lamina_sqlite_search_init_vtable (LaminaBackendVTable *vtable);
+/* The backend's operations (LaminaBackendVTable), gathered into its one
+ * table in lamina-sqlite-open.c.  lamina-sqlite-store.c: */
+GPtrArray          *lamina_sqlite_backend_list_materials   (LaminaBackend *backend,
+                                                            GError **error);
+LaminaMaterial     *lamina_sqlite_backend_get_material     (LaminaBackend *backend,
+                                                            const char *id,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_put_material     (LaminaBackend *backend,
+                                                            const LaminaMaterial *material,
+                                                            const char *now,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_delete_material  (LaminaBackend *backend,
+                                                            const char *id,
+                                                            GError **error);
+/* lamina-sqlite-revisions.c: */
+LaminaConstruction *lamina_sqlite_backend_get_construction (LaminaBackend *backend,
+                                                            const char *id,
+                                                            int revision,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_store_revision   (LaminaBackend *backend,
+                                                            const LaminaBackendRevision *rev,
+                                                            int base_revision,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_set_deleted      (LaminaBackend *backend,
+                                                            const char *id,
+                                                            const char *when,
+                                                            GError **error);
+GPtrArray          *lamina_sqlite_backend_get_history      (LaminaBackend *backend,
+                                                            const char *id,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_set_status       (LaminaBackend *backend,
+                                                            const char *id,
+                                                            int revision,
+                                                            LaminaStatus status,
+                                                            const char *name,
+                                                            const char *when,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_apply_import     (LaminaBackend *backend,
+                                                            GPtrArray *materials,
+                                                            GPtrArray *revisions,
+                                                            const GArray *base_revisions,
+                                                            const char *now,
+                                                            GError **error);
+GPtrArray          *lamina_sqlite_backend_list_ids         (LaminaBackend *backend,
+                                                            GError **error);
+/* lamina-sqlite-search.c: */
+GPtrArray          *lamina_sqlite_backend_search           (LaminaBackend *backend,
+                                                            const LaminaLibraryQuery *query,
+                                                            GError **error);
+gint64              lamina_sqlite_backend_count            (LaminaBackend *backend,
+                                                            const LaminaLibraryQuery *query,
+                                                            GError **error);
+GPtrArray          *lamina_sqlite_backend_list_tags        (LaminaBackend *backend,
+                                                            GError **error);
+
 /* Refreshes the "material data changed since review" flag of every
  * construction using @material_id (NULL: all). */
 gboolean      lamina_sqlite_refresh_material_flags (LaminaSqlite *self,
@@ -78,7 +132,6 @@ gboolean      lamina_sqlite_put_material (LaminaSqlite          *self,
                                           const LaminaMaterial  *material,
                                           const char            *now,
                                           GError               **error);
-void          lamina_sqlite_revisions_init_vtable (LaminaBackendVTable *vtable);
 
 /* For tests: creates a library file at schema @version (1 …) without
  * seeding, so migrations can be tested from every earlier schema. */

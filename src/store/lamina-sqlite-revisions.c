@@ -11,11 +11,11 @@
 
 #define SELF ((LaminaSqlite *) backend)
 
-static LaminaConstruction *
-sqlite_get_construction (LaminaBackend  *backend,
-                         const char     *id,
-                         int             revision,
-                         GError        **error)
+LaminaConstruction *
+lamina_sqlite_backend_get_construction (LaminaBackend  *backend,
+                                        const char     *id,
+                                        int             revision,
+                                        GError        **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT r.body, r.revision, r.status, r.modified_by, r.modified_at,"
@@ -323,11 +323,11 @@ store_revision_in_txn (LaminaSqlite                 *self,
   return lamina_sqlite_step_done (self, stmt, error);
 }
 
-static gboolean
-sqlite_store_revision (LaminaBackend                *backend,
-                       const LaminaBackendRevision  *rev,
-                       int                           base_revision,
-                       GError                      **error)
+gboolean
+lamina_sqlite_backend_store_revision (LaminaBackend                *backend,
+                                      const LaminaBackendRevision  *rev,
+                                      int                           base_revision,
+                                      GError                      **error)
 {
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
@@ -341,11 +341,11 @@ sqlite_store_revision (LaminaBackend                *backend,
   return TRUE;
 }
 
-static gboolean
-sqlite_set_deleted (LaminaBackend  *backend,
-                    const char     *id,
-                    const char     *when,
-                    GError        **error)
+gboolean
+lamina_sqlite_backend_set_deleted (LaminaBackend  *backend,
+                                   const char     *id,
+                                   const char     *when,
+                                   GError        **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "UPDATE construction SET deleted_at = ?2"
@@ -367,10 +367,10 @@ sqlite_set_deleted (LaminaBackend  *backend,
   return TRUE;
 }
 
-static GPtrArray *
-sqlite_get_history (LaminaBackend  *backend,
-                    const char     *id,
-                    GError        **error)
+GPtrArray *
+lamina_sqlite_backend_get_history (LaminaBackend  *backend,
+                                   const char     *id,
+                                   GError        **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT revision, status, modified_by, modified_at, checked_by, checked_at,"
@@ -475,14 +475,14 @@ set_status_in_txn (LaminaSqlite  *self,
   return lamina_sqlite_step_done (self, stmt, error);
 }
 
-static gboolean
-sqlite_set_status (LaminaBackend  *backend,
-                   const char     *id,
-                   int             revision,
-                   LaminaStatus    status,
-                   const char     *name,
-                   const char     *when,
-                   GError        **error)
+gboolean
+lamina_sqlite_backend_set_status (LaminaBackend  *backend,
+                                  const char     *id,
+                                  int             revision,
+                                  LaminaStatus    status,
+                                  const char     *name,
+                                  const char     *when,
+                                  GError        **error)
 {
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
@@ -495,13 +495,13 @@ sqlite_set_status (LaminaBackend  *backend,
   return TRUE;
 }
 
-static gboolean
-sqlite_apply_import (LaminaBackend  *backend,
-                     GPtrArray      *materials,
-                     GPtrArray      *revisions,
-                     const GArray   *base_revisions,
-                     const char     *now,
-                     GError        **error)
+gboolean
+lamina_sqlite_backend_apply_import (LaminaBackend  *backend,
+                                    GPtrArray      *materials,
+                                    GPtrArray      *revisions,
+                                    const GArray   *base_revisions,
+                                    const char     *now,
+                                    GError        **error)
 {
   g_autoptr(GError) local = NULL;
 
@@ -523,9 +523,9 @@ fail:
   return FALSE;
 }
 
-static GPtrArray *
-sqlite_list_ids (LaminaBackend  *backend,
-                 GError        **error)
+GPtrArray *
+lamina_sqlite_backend_list_ids (LaminaBackend  *backend,
+                                GError        **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT id FROM construction WHERE deleted_at IS NULL"
@@ -547,14 +547,3 @@ sqlite_list_ids (LaminaBackend  *backend,
   return g_steal_pointer (&ids);
 }
 
-void
-lamina_sqlite_revisions_init_vtable (LaminaBackendVTable *vtable)
-{
-  vtable->get_construction = sqlite_get_construction;
-  vtable->store_revision = sqlite_store_revision;
-  vtable->set_deleted = sqlite_set_deleted;
-  vtable->get_history = sqlite_get_history;
-  vtable->set_status = sqlite_set_status;
-  vtable->apply_import = sqlite_apply_import;
-  vtable->list_ids = sqlite_list_ids;
-}

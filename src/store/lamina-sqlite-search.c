@@ -134,10 +134,10 @@ bind_filters (sqlite3_stmt             *stmt,
   lamina_sqlite_bind_double (stmt, 8, q->max_thickness);
 }
 
-static GPtrArray *
-sqlite_search (LaminaBackend             *backend,
-               const LaminaLibraryQuery  *q,
-               GError                   **error)
+GPtrArray *
+lamina_sqlite_backend_search (LaminaBackend             *backend,
+                              const LaminaLibraryQuery  *q,
+                              GError                   **error)
 {
   g_autofree char *fts = lamina_library_text_to_fts_query (q->text);
   g_autoptr(GString) sql = g_string_new (
@@ -190,10 +190,10 @@ sqlite_search (LaminaBackend             *backend,
   return g_steal_pointer (&rows);
 }
 
-static gint64
-sqlite_count (LaminaBackend             *backend,
-              const LaminaLibraryQuery  *q,
-              GError                   **error)
+gint64
+lamina_sqlite_backend_count (LaminaBackend             *backend,
+                             const LaminaLibraryQuery  *q,
+                             GError                   **error)
 {
   g_autofree char *fts = lamina_library_text_to_fts_query (q->text);
   g_autoptr(GString) sql = g_string_new ("SELECT count(*)");
@@ -225,9 +225,9 @@ sqlite_count (LaminaBackend             *backend,
   return n;
 }
 
-static GPtrArray *
-sqlite_list_tags (LaminaBackend  *backend,
-                  GError        **error)
+GPtrArray *
+lamina_sqlite_backend_list_tags (LaminaBackend  *backend,
+                                 GError        **error)
 {
   /* Walk the distinct tags along their index (a handful in any office)
    * and keep those with a live construction, instead of joining every tag
@@ -258,10 +258,3 @@ sqlite_list_tags (LaminaBackend  *backend,
   return g_steal_pointer (&tags);
 }
 
-void
-lamina_sqlite_search_init_vtable (LaminaBackendVTable *vtable)
-{
-  vtable->search = sqlite_search;
-  vtable->count = sqlite_count;
-  vtable->list_tags = sqlite_list_tags;
-}

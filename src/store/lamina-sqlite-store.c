@@ -36,9 +36,9 @@ read_material_row (sqlite3_stmt *stmt)
   return m;
 }
 
-static GPtrArray *
-sqlite_list_materials (LaminaBackend  *backend,
-                       GError        **error)
+GPtrArray *
+lamina_sqlite_backend_list_materials (LaminaBackend  *backend,
+                                      GError        **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT " MATERIAL_COLUMNS " FROM material ORDER BY category, name COLLATE NOCASE, id;",
@@ -60,10 +60,10 @@ sqlite_list_materials (LaminaBackend  *backend,
   return g_steal_pointer (&list);
 }
 
-static LaminaMaterial *
-sqlite_get_material (LaminaBackend  *backend,
-                     const char     *id,
-                     GError        **error)
+LaminaMaterial *
+lamina_sqlite_backend_get_material (LaminaBackend  *backend,
+                                    const char     *id,
+                                    GError        **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT " MATERIAL_COLUMNS " FROM material WHERE id = ?1;", error);
@@ -138,11 +138,11 @@ put_material_in_txn (LaminaSqlite          *self,
          && lamina_sqlite_refresh_material_flags (self, m->id, error);
 }
 
-static gboolean
-sqlite_put_material (LaminaBackend         *backend,
-                     const LaminaMaterial  *material,
-                     const char            *now,
-                     GError               **error)
+gboolean
+lamina_sqlite_backend_put_material (LaminaBackend         *backend,
+                                    const LaminaMaterial  *material,
+                                    const char            *now,
+                                    GError               **error)
 {
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
@@ -160,10 +160,10 @@ delete_material_in_txn (LaminaSqlite  *self,
                         const char    *id,
                         GError       **error);
 
-static gboolean
-sqlite_delete_material (LaminaBackend  *backend,
-                        const char     *id,
-                        GError        **error)
+gboolean
+lamina_sqlite_backend_delete_material (LaminaBackend  *backend,
+                                       const char     *id,
+                                       GError        **error)
 {
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
@@ -208,12 +208,3 @@ lamina_sqlite_put_material (LaminaSqlite          *self,
   return put_material_in_txn (self, material, now, error);
 }
 
-void
-lamina_sqlite_store_init_vtable (LaminaBackendVTable *vtable)
-{
-  vtable->list_materials = sqlite_list_materials;
-  vtable->get_material = sqlite_get_material;
-  vtable->put_material = sqlite_put_material;
-  vtable->delete_material = sqlite_delete_material;
-  lamina_sqlite_revisions_init_vtable (vtable);
-}

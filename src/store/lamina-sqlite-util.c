@@ -1,0 +1,169 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-sqlite-util.c: the small helpers every SQLite file of the
+ * backend uses: errors mapped to LAMINA_LIBRARY_ERROR codes, cached
+ * statements, transactions, NULL-aware binding and reading. */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "config.h"
+
+#include "lamina-sqlite-private.h"
+
+#include <math.h>
+
+void
+lamina_sqlite_set_error (LaminaSqlite  *self,
+                         int            rc,
+                         const char    *what,
+                         GError       **error)
+{
+  LaminaLibraryError code;
+
+  switch (rc & 0xff)
+    {
+    case SQLITE_BUSY:
+    case SQLITE_LOCKED:
+      code = LAMINA_LIBRARY_ERROR_BUSY;
+      break;
+    case SQLITE_CORRUPT:
+      code = LAMINA_LIBRARY_ERROR_CORRUPT;
+      break;
+    case SQLITE_NOTADB:
+      code = LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY;
+      break;
+    case SQLITE_READONLY:
+      code = LAMINA_LIBRARY_ERROR_READ_ONLY;
+      break;
+    case SQLITE_CANTOPEN:
+    case SQLITE_IOERR:
+    case SQLITE_FULL:
+      code = LAMINA_LIBRARY_ERROR_IO;
+      break;
+    case SQLITE_CONSTRAINT:
+      code = LAMINA_LIBRARY_ERROR_INVALID;
+      break;
+    default:
+      code = LAMINA_LIBRARY_ERROR_FAILED;
+    }
+  g_set_error (error, LAMINA_LIBRARY_ERROR, code, "%s: %s: %s",
+               self->parent.path, what,
+               self->db ? sqlite3_errmsg (self->db) : sqlite3_errstr (rc));
+}
+
+sqlite3_stmt *
+lamina_sqlite_prepare (LaminaSqlite  *self,
+                       const char    *sql,
+                       GError       **error)
+{
+  sqlite3_stmt *stmt = g_hash_table_lookup (self->statements, sql);
+  int rc;
+
+  if (stmt != NULL)
+    {
+      sqlite3_reset (stmt);
+      sqlite3_clear_bindings (stmt);
+      return stmt;
+    }
+  rc = sqlite3_prepare_v3 (self->db, sql, -1, SQLITE_PREPARE_PERSISTENT, &stmt, NULL);
+  if (rc != SQLITE_OK)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot prepare a query", error);
+      return NULL;
+    }
+  g_hash_table_insert (self->statements, g_strdup (sql), stmt);
+  return stmt;
+}
+
+gboolean
+lamina_sqlite_exec (LaminaSqlite  *self,
+                    const char    *sql,
+                    GError       **error)
+{
+  int rc = sqlite3_exec (self->db, sql, NULL, NULL, NULL);
+
+  if (rc != SQLITE_OK)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot update the library", error);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+gboolean
+lamina_sqlite_begin (LaminaSqlite  *self,
+                     GError       **error)
+{
+  return lamina_sqlite_exec (self, "BEGIN IMMEDIATE;", error);
+}
+
+gboolean
+lamina_sqlite_commit (LaminaSqlite  *self,
+                      GError       **error)
+{
+  if (!lamina_sqlite_exec (self, "COMMIT;", error))
+    {
+      lamina_sqlite_rollback (self);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+void
+lamina_sqlite_rollback (LaminaSqlite *self)
+{
+  if (!sqlite3_get_autocommit (self->db))
+    sqlite3_exec (self->db, "ROLLBACK;", NULL, NULL, NULL);
+}
+
+gboolean
+lamina_sqlite_step_done (LaminaSqlite  *self,
+                         sqlite3_stmt  *stmt,
+                         GError       **error)
+{
+  int rc = sqlite3_step (stmt);
+
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE && rc != SQLITE_ROW)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot update the library", error);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+void
+lamina_sqlite_bind_text (sqlite3_stmt *stmt,
+                         int           index,
+                         const char   *text)
+{
+  if (text == NULL)
+    sqlite3_bind_null (stmt, index);
+  else
+    sqlite3_bind_text (stmt, index, text, -1, SQLITE_TRANSIENT);
+}
+
+void
+lamina_sqlite_bind_double (sqlite3_stmt *stmt,
+                           int           index,
+                           double        value)
+{
+  if (isnan (value))
+    sqlite3_bind_null (stmt, index);
+  else
+    sqlite3_bind_double (stmt, index, value);
+}
+
+double
+lamina_sqlite_column_double (sqlite3_stmt *stmt,
+                             int           index)
+{
+  if (sqlite3_column_type (stmt, index) == SQLITE_NULL)
+    return NAN;
+  return sqlite3_column_double (stmt, index);
+}
+
+char *
+lamina_sqlite_column_dup (sqlite3_stmt *stmt,
+                          int           index)
+{
+  return g_strdup ((const char *) sqlite3_column_text (stmt, index));
+}
