@@ -54,8 +54,8 @@ new_revision_row (LaminaLibrary            *library,
     }
   if (previous != NULL)
     {
-      g_autoptr(LaminaConstruction) a = lamina_library_get_construction (library, id, previous->revision, NULL);
-      g_autoptr(LaminaConstruction) b = lamina_library_get_construction (library, id, info->revision, NULL);
+      g_autoptr(LaminaConstruction) a = lamina_library_dup_construction (library, id, previous->revision, NULL);
+      g_autoptr(LaminaConstruction) b = lamina_library_dup_construction (library, id, info->revision, NULL);
       g_autoptr(GPtrArray) changes = a && b ? lamina_revision_diff (a, b) : NULL;
       g_autofree char *text = NULL;
       GtkWidget *c;
@@ -123,8 +123,8 @@ on_compare_changed_cb (Compare *c)
       gtk_label_set_text (c->diff, _("Pick two different revisions to see what changed."));
       return;
     }
-  older = lamina_library_get_construction (c->library, c->id, a, &error);
-  newer = older ? lamina_library_get_construction (c->library, c->id, b, &error) : NULL;
+  older = lamina_library_dup_construction (c->library, c->id, a, &error);
+  newer = older ? lamina_library_dup_construction (c->library, c->id, b, &error) : NULL;
   if (newer == NULL)
     {
       gtk_label_set_text (c->diff, error->message);
@@ -204,7 +204,7 @@ lamina_history_window_present (GtkWindow     *parent,
                                const char    *id)
 {
   g_autoptr(GError) error = NULL;
-  g_autoptr(GPtrArray) history = lamina_library_get_history (library, id, &error);
+  g_autoptr(GPtrArray) history = lamina_library_dup_history (library, id, &error);
   GtkWidget *window = gtk_window_new ();
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
   GtkWidget *scroller = gtk_scrolled_window_new ();

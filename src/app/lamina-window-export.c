@@ -152,7 +152,7 @@ fetch_construction_cb (gpointer   user_data,
 
   if (g_cancellable_set_error_if_cancelled (fetch->cancellable, error))
     return NULL;
-  return lamina_library_get_construction (fetch->library, g_ptr_array_index (fetch->ids, index), 0, error);
+  return lamina_library_dup_construction (fetch->library, g_ptr_array_index (fetch->ids, index), 0, error);
 }
 
 static void

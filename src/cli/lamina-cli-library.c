@@ -223,7 +223,7 @@ char *
 lamina_cli_resolve_id (LaminaLibrary *library,
                        const char    *key)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, key, 0, NULL);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, key, 0, NULL);
   g_autoptr(GPtrArray) rows = NULL;
   LaminaLibraryQuery q;
 
@@ -278,9 +278,9 @@ lamina_cli_show (const LaminaCliGlobals *globals,
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
-  c = lamina_library_get_construction (library, id, revision, &error);
+  c = lamina_library_dup_construction (library, id, revision, &error);
   if (c != NULL)
-    result = lamina_library_get_result (library, id, revision, &error);
+    result = lamina_library_dup_result (library, id, revision, &error);
   if (result == NULL)
     {
       lamina_cli_error ("%s", error->message);
@@ -336,7 +336,7 @@ lamina_cli_history (const LaminaCliGlobals *globals,
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
-  history = lamina_library_get_history (library, id, &error);
+  history = lamina_library_dup_history (library, id, &error);
   if (history == NULL)
     {
       lamina_cli_error ("%s", error->message);
@@ -456,7 +456,7 @@ static void
 warn_on_review (LaminaLibrary *library,
                 const char    *id)
 {
-  g_autoptr(LaminaResult) result = lamina_library_get_result (library, id, 0, NULL);
+  g_autoptr(LaminaResult) result = lamina_library_dup_result (library, id, 0, NULL);
 
   if (result == NULL)
     return;

@@ -98,7 +98,7 @@ fetch_cb (gpointer   user_data,
   const char *id = job->ids->pdata[index];
 
   if (job->library)
-    return lamina_library_get_construction (job->library, id, 0, error);
+    return lamina_library_dup_construction (job->library, id, 0, error);
   return lamina_construction_copy (lamina_catalogue_find (job->catalogue, id));
 }
 

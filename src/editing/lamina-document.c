@@ -198,7 +198,7 @@ load (LaminaDocument  *self,
 {
   LaminaConstruction *state;
 
-  state = lamina_library_get_construction (self->library, self->id, 0, error);
+  state = lamina_library_dup_construction (self->library, self->id, 0, error);
   if (state == NULL)
     return FALSE;
   self->base_revision = state->revision;
@@ -375,7 +375,7 @@ lamina_document_keep_mine (LaminaDocument  *self,
 
   g_return_val_if_fail (LAMINA_IS_DOCUMENT (self), FALSE);
 
-  latest = lamina_library_get_construction (self->library, self->id, 0, error);
+  latest = lamina_library_dup_construction (self->library, self->id, 0, error);
   if (latest == NULL)
     return FALSE;
   self->base_revision = latest->revision;

@@ -95,6 +95,20 @@ void           lamina_library_set_new_draft (LaminaConstruction *c,
                                              const char         *author);
 void           lamina_library_emit_changed (LaminaLibrary *self);
 
+/* For the front end's files: the library's backend and its table, and
+ * the refusal of every operation on a closed library. */
+#define BE(self) (lamina_library_get_backend (self))
+#define VT(self) (BE (self)->vtable)
+#define BACKEND_OR_FAIL(self, error, value)                                     \
+  G_STMT_START {                                                                \
+    if (BE (self) == NULL)                                                      \
+      {                                                                         \
+        g_set_error_literal ((error), LAMINA_LIBRARY_ERROR,                     \
+                             LAMINA_LIBRARY_ERROR_IO, "the library is closed"); \
+        return (value);                                                         \
+      }                                                                         \
+  } G_STMT_END
+
 /* lamina-sqlite-open.c */
 LaminaBackend *lamina_sqlite_backend_open (const char             *path,
                                            LaminaLibraryOpenFlags  flags,

@@ -10,19 +10,6 @@
 
 #include "lamina-library-backend.h"
 
-#define VT(self) (lamina_library_get_backend (self)->vtable)
-#define BE(self) (lamina_library_get_backend (self))
-
-#define BACKEND_OR_FAIL(self, error, value)                                     \
-  G_STMT_START {                                                                \
-    if (BE (self) == NULL)                                                      \
-      {                                                                         \
-        g_set_error_literal ((error), LAMINA_LIBRARY_ERROR,                     \
-                             LAMINA_LIBRARY_ERROR_IO, "the library is closed"); \
-        return (value);                                                         \
-      }                                                                         \
-  } G_STMT_END
-
 gboolean
 lamina_library_prepare_revision (LaminaConstruction  *c,
                                  LaminaResult       **result,
@@ -79,7 +66,7 @@ store (LaminaLibrary       *self,
 }
 
 LaminaConstruction *
-lamina_library_get_construction (LaminaLibrary  *self,
+lamina_library_dup_construction (LaminaLibrary  *self,
                                  const char     *id,
                                  int             revision,
                                  GError        **error)
@@ -91,12 +78,12 @@ lamina_library_get_construction (LaminaLibrary  *self,
 }
 
 LaminaResult *
-lamina_library_get_result (LaminaLibrary  *self,
+lamina_library_dup_result (LaminaLibrary  *self,
                            const char     *id,
                            int             revision,
                            GError        **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, revision, error);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, revision, error);
   g_autoptr(GError) local = NULL;
   LaminaResult *result;
 
@@ -126,7 +113,7 @@ lamina_library_save_construction (LaminaLibrary       *self,
   g_return_val_if_fail (base_revision > 0, FALSE);
   BACKEND_OR_FAIL (self, error, FALSE);
 
-  head = lamina_library_get_construction (self, construction->id, 0, error);
+  head = lamina_library_dup_construction (self, construction->id, 0, error);
   if (head == NULL)
     return FALSE;
   if (head->revision == base_revision && lamina_construction_equal_content (head, construction))
@@ -174,7 +161,7 @@ lamina_library_derive_construction (LaminaLibrary  *self,
                                     const char     *author,
                                     GError        **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, 0, error);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, 0, error);
   g_autofree char *comment = NULL;
   g_autofree char *name = NULL;
 
@@ -225,7 +212,7 @@ lamina_library_restore_construction (LaminaLibrary  *self,
 }
 
 GPtrArray *
-lamina_library_get_history (LaminaLibrary  *self,
+lamina_library_dup_history (LaminaLibrary  *self,
                             const char     *id,
                             GError        **error)
 {

@@ -8,9 +8,6 @@
 #include "lamina-library-backend.h"
 #include "lamina-store-json.h"
 
-#define VT(self) (lamina_library_get_backend (self)->vtable)
-#define BE(self) (lamina_library_get_backend (self))
-
 static void
 add_item (LaminaImportReport *report,
           LaminaImportAction  action,
@@ -337,7 +334,7 @@ lamina_library_list_material_changes (LaminaLibrary  *self,
                                       const char     *id,
                                       GError        **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, 0, error);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, 0, error);
   g_autoptr(GHashTable) seen = g_hash_table_new (g_str_hash, g_str_equal);
   GPtrArray *changes;
 
@@ -377,7 +374,7 @@ lamina_library_update_materials (LaminaLibrary  *self,
                                  const char     *author,
                                  GError        **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (self, id, 0, error);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, 0, error);
 
   if (c == NULL)
     return 0;

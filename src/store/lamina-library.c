@@ -28,18 +28,6 @@ enum
 
 static guint signals[N_SIGNALS];
 
-#define BACKEND_OR_FAIL(self, error, value)                                     \
-  G_STMT_START {                                                                \
-    if ((self)->backend == NULL)                                                \
-      {                                                                         \
-        g_set_error_literal ((error), LAMINA_LIBRARY_ERROR,                     \
-                             LAMINA_LIBRARY_ERROR_IO, "the library is closed"); \
-        return (value);                                                         \
-      }                                                                         \
-  } G_STMT_END
-
-#define VT(self) ((self)->backend->vtable)
-
 static void
 lamina_library_finalize (GObject *object)
 {
@@ -175,7 +163,7 @@ lamina_library_list_materials (LaminaLibrary  *self,
 }
 
 LaminaMaterial *
-lamina_library_get_material (LaminaLibrary  *self,
+lamina_library_dup_material (LaminaLibrary  *self,
                              const char     *id,
                              GError        **error)
 {

@@ -10,7 +10,7 @@
  * the history is kept.  A revision is draft, checked (by a named person)
  * or approved (by a named person, with date).  An approved revision never
  * changes: saving over it starts a new draft revision and the approved one
- * stays readable with lamina_library_get_construction (…, revision, …).
+ * stays readable with lamina_library_dup_construction (…, revision, …).
  * Each layer keeps the material data it was calculated with; when a
  * library material changes later, the constructions using it are flagged
  * (LAMINA_SUMMARY_MATERIAL_CHANGED) and nothing changes under them until
@@ -93,7 +93,7 @@ gboolean       lamina_library_check_for_changes (LaminaLibrary     *self);
 /* LaminaMaterial*, sorted by category then name. */
 GPtrArray     *lamina_library_list_materials (LaminaLibrary        *self,
                                               GError              **error);
-LaminaMaterial *lamina_library_get_material  (LaminaLibrary        *self,
+LaminaMaterial *lamina_library_dup_material  (LaminaLibrary        *self,
                                               const char           *id,
                                               GError              **error);
 /* Adds or replaces the material with @material->id (a NULL id gets a new
@@ -112,14 +112,14 @@ gboolean       lamina_library_delete_material (LaminaLibrary       *self,
 
 /* @revision 0 = the latest.  The result carries status, revision and the
  * review data of that revision.  A deleted construction is NOT_FOUND. */
-LaminaConstruction *lamina_library_get_construction (LaminaLibrary *self,
+LaminaConstruction *lamina_library_dup_construction (LaminaLibrary *self,
                                                      const char    *id,
                                                      int            revision,
                                                      GError       **error);
 /* The figures stored with a revision (0 = latest), as lamina_calculate
  * gave them at save time; NULL with NOT_FOUND, or when the construction
  * could not be calculated (an INVALID error naming why). */
-LaminaResult  *lamina_library_get_result   (LaminaLibrary          *self,
+LaminaResult  *lamina_library_dup_result   (LaminaLibrary          *self,
                                             const char             *id,
                                             int                     revision,
                                             GError                **error);
@@ -173,7 +173,7 @@ typedef struct
 
 void           lamina_revision_info_free   (LaminaRevisionInfo     *info);
 /* LaminaRevisionInfo*, newest first. */
-GPtrArray     *lamina_library_get_history  (LaminaLibrary          *self,
+GPtrArray     *lamina_library_dup_history  (LaminaLibrary          *self,
                                             const char             *id,
                                             GError                **error);
 

@@ -89,7 +89,7 @@ find_plain_construction (Fixture *f,
   for (guint i = 0; i < g_list_model_get_n_items (list); i++)
     {
       g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, i);
-      g_autoptr(LaminaConstruction) c = lamina_library_get_construction (f->library,
+      g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (f->library,
                                                                          lamina_construction_item_get_id (item), 0, NULL);
       g_autoptr(LaminaResult) r = c ? lamina_calculate (c, NULL) : NULL;
       double best = 0;
@@ -133,7 +133,7 @@ static double
 stored_u (Fixture    *f,
           const char *id)
 {
-  g_autoptr(LaminaResult) r = lamina_library_get_result (f->library, id, 0, NULL);
+  g_autoptr(LaminaResult) r = lamina_library_dup_result (f->library, id, 0, NULL);
 
   g_assert_nonnull (r);
   return r->u_corrected;
@@ -250,20 +250,20 @@ test_approve_then_edit (Fixture       *f,
   g_test_message ("after approve: %s", lamina_window_get_notice (f->window));
   g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_APPROVED);
   revision = open_state (f)->revision;
-  approved = lamina_library_get_construction (f->library, id, revision, &error);
+  approved = lamina_library_dup_construction (f->library, id, revision, &error);
   g_assert_no_error (error);
   g_assert_cmpstr (approved->approved_by, ==, "R. Testlund");
 
   layer = open_state (f)->layers->pdata[index];
   lamina_editor_resize_layer (editor, index, layer->thickness + 10, FALSE);
-  latest = lamina_library_get_construction (f->library, id, 0, &error);
+  latest = lamina_library_dup_construction (f->library, id, 0, &error);
   g_assert_no_error (error);
   g_assert_cmpint (latest->revision, ==, revision + 1);
   g_assert_cmpint (latest->status, ==, LAMINA_STATUS_DRAFT);
   g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_DRAFT);
   /* The approved revision is as it was, and the window says so. */
   g_clear_pointer (&approved, lamina_construction_free);
-  approved = lamina_library_get_construction (f->library, id, revision, &error);
+  approved = lamina_library_dup_construction (f->library, id, revision, &error);
   g_assert_cmpint (approved->status, ==, LAMINA_STATUS_APPROVED);
   g_assert_nonnull (lamina_window_get_notice (f->window));
   g_assert_nonnull (strstr (lamina_window_get_notice (f->window), "draft"));
@@ -289,7 +289,7 @@ test_material_changed (Fixture       *f,
   g_assert_nonnull (layer->material->id);
 
   /* The office revises a material's λ in the library... */
-  material = lamina_library_get_material (f->library, layer->material->id, &error);
+  material = lamina_library_dup_material (f->library, layer->material->id, &error);
   g_assert_no_error (error);
   material->conductivity *= 1.1;
   g_assert_true (lamina_library_put_material (f->library, material, &error));
@@ -302,7 +302,7 @@ test_material_changed (Fixture       *f,
                      ==, layer->material->conductivity);
   /* ...until the user takes the new data, as a new draft revision. */
   gtk_widget_activate_action (GTK_WIDGET (f->window), "win.update-materials", NULL);
-  after = lamina_library_get_construction (f->library, id, 0, &error);
+  after = lamina_library_dup_construction (f->library, id, 0, &error);
   g_assert_no_error (error);
   g_assert_cmpint (after->revision, ==, before->revision + 1);
   g_assert_cmpint (after->status, ==, LAMINA_STATUS_DRAFT);
@@ -339,7 +339,7 @@ test_derive_delete_undo (Fixture       *f,
   /* Delete it, then undo the delete from the message. */
   gtk_widget_activate_action (GTK_WIDGET (f->window), "win.delete", NULL);
   g_assert_cmpuint (g_list_model_get_n_items (list), ==, n);
-  g_assert_null (lamina_library_get_construction (f->library, derived_id, 0, NULL));
+  g_assert_null (lamina_library_dup_construction (f->library, derived_id, 0, NULL));
   gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo-delete", NULL);
   g_assert_cmpuint (g_list_model_get_n_items (list), ==, n + 1);
   g_assert_cmpstr (open_state (f)->id, ==, derived_id);
@@ -433,7 +433,7 @@ find_construction (Fixture       *f,
   for (guint i = 0; i < g_list_model_get_n_items (list); i++)
     {
       g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, i);
-      g_autoptr(LaminaConstruction) c = lamina_library_get_construction (f->library,
+      g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (f->library,
                                                                          lamina_construction_item_get_id (item), 0, NULL);
       g_autoptr(LaminaResult) r = c ? lamina_calculate (c, NULL) : NULL;
 
@@ -502,7 +502,7 @@ test_construction_properties (Fixture       *f,
   g_assert_cmpint (open_state (f)->heat_flow, ==, LAMINA_HEAT_FLOW_UPWARD);
   g_assert_cmpuint (gtk_drop_down_get_selected (heat_flow), ==, 0);
   assert_figure (shown_rsi (f), 0.10);
-  stored = lamina_library_get_construction (f->library, id, 0, &error);
+  stored = lamina_library_dup_construction (f->library, id, 0, &error);
   g_assert_no_error (error);
   g_assert_cmpint (stored->element, ==, LAMINA_ELEMENT_ROOF);
   g_assert_cmpint (stored->heat_flow, ==, LAMINA_HEAT_FLOW_UPWARD);
@@ -547,7 +547,7 @@ test_construction_properties (Fixture       *f,
                             "Fire rating by others.", -1);
   lamina_properties_view_commit (lamina_editor_get_properties_view (editor));
   g_clear_pointer (&stored, lamina_construction_free);
-  stored = lamina_library_get_construction (f->library, id, 0, &error);
+  stored = lamina_library_dup_construction (f->library, id, 0, &error);
   g_assert_cmpstr (stored->description, ==, "Party wall to the neighbour");
   g_assert_cmpint (stored->outer_side, ==, LAMINA_OUTER_SIDE_INDOOR);
   g_assert_cmpstr (stored->notes, ==, "Fire rating by others.");
@@ -770,7 +770,7 @@ test_materials_manager (Fixture       *f,
   g_assert_true (gtk_widget_get_visible (lamina_materials_window_get_field (manager, row, "error")));
   g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (lamina_materials_window_get_field (manager, row, "error"))),
                             "density"));
-  stored = lamina_library_get_material (f->library, used->id, &error);
+  stored = lamina_library_dup_material (f->library, used->id, &error);
   g_assert_true (lamina_material_equal (stored, materials->pdata[row]));
 
   /* Every field saved: EN ISO 10456:2007 Table 3 values for dense
@@ -786,7 +786,7 @@ test_materials_manager (Fixture       *f,
                               LAMINA_CATEGORY_CONCRETE);
   g_signal_emit_by_name (save, "clicked");
   g_clear_pointer (&stored, lamina_material_free);
-  stored = lamina_library_get_material (f->library, used->id, &error);
+  stored = lamina_library_dup_material (f->library, used->id, &error);
   g_assert_no_error (error);
   g_assert_cmpfloat_with_epsilon (stored->conductivity, 1.35, 1e-12);
   g_assert_cmpfloat_with_epsilon (stored->density, 2000, 1e-12);

@@ -246,7 +246,7 @@ test_document_conflict (void)
   /* An edit is saved at once. */
   lamina_document_apply (doc, lamina_edit_set_thickness (lamina_document_get_construction (doc), 1, 120, NULL),
                          NULL, LAMINA_APPLY_DEFAULT);
-  stored = lamina_library_get_construction (library, id, 0, &error);
+  stored = lamina_library_dup_construction (library, id, 0, &error);
   g_assert_no_error (error);
   g_assert_cmpfloat (layer_thickness (stored, 1), ==, 120);
   g_assert_cmpint (lamina_document_get_base_revision (doc), ==, stored->revision);
@@ -254,7 +254,7 @@ test_document_conflict (void)
   /* Someone else saves through another connection... */
   other = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
   g_assert_no_error (error);
-  theirs = lamina_library_get_construction (other, id, 0, &error);
+  theirs = lamina_library_dup_construction (other, id, 0, &error);
   ((LaminaLayer *) theirs->layers->pdata[0])->thickness = 15;
   g_assert_true (lamina_library_save_construction (other, theirs, theirs->revision, "other", &error));
   g_assert_no_error (error);
@@ -265,7 +265,7 @@ test_document_conflict (void)
   g_assert_nonnull (lamina_document_get_conflict (doc));
   g_assert_cmpfloat (layer_thickness (lamina_document_get_construction (doc), 1), ==, 130);
   g_clear_pointer (&stored, lamina_construction_free);
-  stored = lamina_library_get_construction (library, id, 0, &error);
+  stored = lamina_library_dup_construction (library, id, 0, &error);
   g_assert_cmpfloat (layer_thickness (stored, 0), ==, 15);
   g_assert_cmpfloat (layer_thickness (stored, 1), ==, 120);
 
@@ -274,7 +274,7 @@ test_document_conflict (void)
   g_assert_no_error (error);
   g_assert_null (lamina_document_get_conflict (doc));
   g_clear_pointer (&stored, lamina_construction_free);
-  stored = lamina_library_get_construction (library, id, 0, &error);
+  stored = lamina_library_dup_construction (library, id, 0, &error);
   g_assert_cmpfloat (layer_thickness (stored, 1), ==, 130);
   g_assert_cmpint (stored->revision, ==, theirs->revision + 1);
 

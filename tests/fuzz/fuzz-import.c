@@ -71,7 +71,7 @@ LLVMFuzzerTestOneInput (const uint8_t *data,
 
           if (want->id == NULL)
             continue;
-          got = lamina_library_get_construction (library, want->id, 0, &error);
+          got = lamina_library_dup_construction (library, want->id, 0, &error);
           if (got == NULL)
             g_error ("imported construction %s is missing: %s", want->id, error->message);
           if (!lamina_construction_equal_content (want, got))

@@ -67,7 +67,7 @@ read_everything (LaminaLibrary  *library,
   for (guint i = 0; i < rows->len; i++)
     {
       LaminaSummary *s = rows->pdata[i];
-      g_autoptr(GPtrArray) history = lamina_library_get_history (library, s->id, error);
+      g_autoptr(GPtrArray) history = lamina_library_dup_history (library, s->id, error);
 
       if (history == NULL)
         return FALSE;
@@ -75,7 +75,7 @@ read_everything (LaminaLibrary  *library,
         {
           LaminaRevisionInfo *info = history->pdata[h];
           g_autoptr(LaminaConstruction) c =
-            lamina_library_get_construction (library, s->id, info->revision, error);
+            lamina_library_dup_construction (library, s->id, info->revision, error);
 
           if (c == NULL)
             return FALSE;
@@ -147,7 +147,7 @@ lamina_hardening_dup_state (LaminaLibrary  *library,
   for (guint i = 0; i < rows->len; i++)
     {
       LaminaSummary *s_row = rows->pdata[i];
-      g_autoptr(GPtrArray) history = lamina_library_get_history (library, s_row->id, error);
+      g_autoptr(GPtrArray) history = lamina_library_dup_history (library, s_row->id, error);
 
       if (history == NULL)
         return NULL;
@@ -155,7 +155,7 @@ lamina_hardening_dup_state (LaminaLibrary  *library,
         {
           LaminaRevisionInfo *r = history->pdata[h];
           g_autoptr(LaminaConstruction) c =
-            lamina_library_get_construction (library, s_row->id, r->revision, error);
+            lamina_library_dup_construction (library, s_row->id, r->revision, error);
           g_autoptr(LaminaCatalogue) one = lamina_catalogue_new ();
           g_autofree char *xml = NULL;
           gsize len = 0;

@@ -80,7 +80,7 @@ do_edit (LaminaLibrary *library,
          Counts        *counts,
          GError       **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, id, 0, error);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, id, 0, error);
 
   if (c == NULL)
     return FALSE;
@@ -100,7 +100,7 @@ do_approve (LaminaLibrary *library,
             FILE          *log,
             GError       **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, id, 0, error);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, id, 0, error);
 
   if (c == NULL)
     return FALSE;
@@ -121,7 +121,7 @@ do_import (LaminaLibrary *library,
 {
   g_autoptr(LaminaCatalogue) cat = lamina_catalogue_new ();
   g_autoptr(LaminaImportReport) report = NULL;
-  LaminaConstruction *c = lamina_library_get_construction (library, id, 0, error);
+  LaminaConstruction *c = lamina_library_dup_construction (library, id, 0, error);
 
   if (c == NULL)
     return FALSE;
@@ -225,7 +225,7 @@ check_logs (const char *path,
           {
             int revision = atoi (f[2]);
             g_autoptr(LaminaConstruction) c =
-              lamina_library_get_construction (library, f[1], revision, &error);
+              lamina_library_dup_construction (library, f[1], revision, &error);
 
             g_assert_no_error (error);
             if (g_str_equal (f[0], "approve"))
@@ -245,7 +245,7 @@ check_logs (const char *path,
   for (guint i = 0; i < N_SHARED; i++)
     {
       g_autofree char *id = shared_id (i);
-      g_autoptr(GPtrArray) history = lamina_library_get_history (library, id, &error);
+      g_autoptr(GPtrArray) history = lamina_library_dup_history (library, id, &error);
 
       g_assert_no_error (error);
       /* Nothing lost, nothing extra: one revision per accepted write. */
@@ -379,7 +379,7 @@ test_create_race (void)
       for (guint w = 0; w < 2; w++)
         {
           g_autofree char *id = g_strdup_printf ("first-%u", w);
-          g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, id, 0, &error);
+          g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, id, 0, &error);
 
           if (c == NULL)
             g_error ("round %u: construction of worker %u lost: %s", round, w, error->message);

@@ -42,7 +42,7 @@ static gboolean
 op_save (LaminaLibrary  *library,
          GError        **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_get_construction (library, "hw-1", 0, error);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, "hw-1", 0, error);
   LaminaLayer *layer;
 
   if (c == NULL)
@@ -88,7 +88,7 @@ make_import (LaminaLibrary *library,
     }
   /* and a change to an existing draft: a new revision of hw-3 */
   {
-    LaminaConstruction *c = lamina_library_get_construction (library, "hw-3", 0, NULL);
+    LaminaConstruction *c = lamina_library_dup_construction (library, "hw-3", 0, NULL);
 
     g_assert_nonnull (c);
     ((LaminaLayer *) c->layers->pdata[0])->thickness = 15;
@@ -112,7 +112,7 @@ static gboolean
 op_material (LaminaLibrary  *library,
              GError        **error)
 {
-  g_autoptr(LaminaMaterial) m = lamina_library_get_material (library, "typical-mineral-wool-035",
+  g_autoptr(LaminaMaterial) m = lamina_library_dup_material (library, "typical-mineral-wool-035",
                                                              error);
 
   if (m == NULL)

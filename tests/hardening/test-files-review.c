@@ -193,7 +193,7 @@ test_approved_immutable (void)
     g_assert_no_error (error);
     g_assert_true (lamina_library_mark_checked (library, id, 1, "C. Checker", &error));
     g_assert_true (lamina_library_approve (library, id, 1, "R. Reviewer", "2024-03-15", &error));
-    approved = lamina_library_get_construction (library, id, 1, &error);
+    approved = lamina_library_dup_construction (library, id, 1, &error);
     approved_revision = approved->revision;
 
     /* API: reviewing an approved revision again is refused. */
@@ -261,8 +261,8 @@ test_approved_immutable (void)
   {
     g_autoptr(LaminaLibrary) library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING,
                                                             &error);
-    g_autoptr(LaminaConstruction) first = lamina_library_get_construction (library, id, 1, &error);
-    g_autoptr(LaminaConstruction) latest = lamina_library_get_construction (library, id, 0, &error);
+    g_autoptr(LaminaConstruction) first = lamina_library_dup_construction (library, id, 1, &error);
+    g_autoptr(LaminaConstruction) latest = lamina_library_dup_construction (library, id, 0, &error);
 
     g_assert_true (lamina_construction_equal_content (first, approved));
     g_assert_cmpint (first->status, ==, LAMINA_STATUS_APPROVED);
@@ -278,7 +278,7 @@ test_approved_immutable (void)
                                                      &error));
     g_assert_cmpint (latest->revision, ==, approved_revision + 2);
     g_clear_pointer (&first, lamina_construction_free);
-    first = lamina_library_get_construction (library, id, 1, &error);
+    first = lamina_library_dup_construction (library, id, 1, &error);
     g_assert_true (lamina_construction_equal_content (first, approved));
   }
 }
@@ -303,7 +303,7 @@ test_import_cannot_approve (void)
   id = lamina_library_create_construction (library, c, "Author", &error);
   g_assert_no_error (error);
   {
-    LaminaConstruction *forged = lamina_library_get_construction (library, id, 0, &error);
+    LaminaConstruction *forged = lamina_library_dup_construction (library, id, 0, &error);
 
     forged->status = LAMINA_STATUS_APPROVED;
     forged->approved_by = g_strdup ("Forger");
@@ -312,7 +312,7 @@ test_import_cannot_approve (void)
   }
   report = lamina_library_import (library, cat, 0, "Importer", &error);
   g_assert_no_error (error);
-  after = lamina_library_get_construction (library, id, 0, &error);
+  after = lamina_library_dup_construction (library, id, 0, &error);
   g_assert_cmpint (after->status, !=, LAMINA_STATUS_APPROVED);
   g_assert_null (after->approved_by);
 }

@@ -26,14 +26,14 @@ test_make_wall (LaminaLibrary *library,
   if (tag != NULL)
     lamina_construction_add_tag (c, tag);
   lamina_construction_add_layer (c, lamina_layer_new_material (12.5,
-    lamina_library_get_material (library, "iso10456-plasterboard-700", NULL)));
+    lamina_library_dup_material (library, "iso10456-plasterboard-700", NULL)));
   lamina_layer_add_part (bridged, lamina_part_new_framing (
-    lamina_library_get_material (library, "iso10456-softwood-500", NULL), 45, 600, "stud"));
+    lamina_library_dup_material (library, "iso10456-softwood-500", NULL), 45, 600, "stud"));
   lamina_layer_add_part (bridged, lamina_part_new (
-    lamina_library_get_material (library, "typical-mineral-wool-035", NULL), NAN));
+    lamina_library_dup_material (library, "typical-mineral-wool-035", NULL), NAN));
   lamina_construction_add_layer (c, bridged);
   lamina_construction_add_layer (c, lamina_layer_new_material (15,
-    lamina_library_get_material (library, "iso10456-osb-650", NULL)));
+    lamina_library_dup_material (library, "iso10456-osb-650", NULL)));
   c->target_u = 0.30;
   return c;
 }

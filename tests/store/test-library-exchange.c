@@ -87,10 +87,10 @@ test_round_trip (void)
   for (guint i = 0; i < 12; i++)
     {
       g_autofree char *id = g_strdup_printf ("test-%u", i);
-      g_autoptr(LaminaResult) ra = lamina_library_get_result (a, id, 0, NULL);
-      g_autoptr(LaminaResult) rb = lamina_library_get_result (b, id, 0, NULL);
-      g_autoptr(LaminaConstruction) ca = lamina_library_get_construction (a, id, 0, NULL);
-      g_autoptr(LaminaConstruction) cb = lamina_library_get_construction (b, id, 0, NULL);
+      g_autoptr(LaminaResult) ra = lamina_library_dup_result (a, id, 0, NULL);
+      g_autoptr(LaminaResult) rb = lamina_library_dup_result (b, id, 0, NULL);
+      g_autoptr(LaminaConstruction) ca = lamina_library_dup_construction (a, id, 0, NULL);
+      g_autoptr(LaminaConstruction) cb = lamina_library_dup_construction (b, id, 0, NULL);
 
       g_assert_nonnull (ra);
       g_assert_nonnull (rb);
@@ -139,10 +139,10 @@ test_merge (void)
   g_assert_cmpuint (report->n_conflicts, ==, 1);
   g_assert_cmpint (((LaminaImportItem *) report->items->pdata[2])->action, ==, LAMINA_IMPORT_CONFLICT);
 
-  approved = lamina_library_get_construction (library, "test-2", 0, NULL);
+  approved = lamina_library_dup_construction (library, "test-2", 0, NULL);
   g_assert_cmpint (approved->status, ==, LAMINA_STATUS_APPROVED);
   g_assert_cmpstr (approved->name, ==, "Timber frame wall 2");
-  revised = lamina_library_get_construction (library, "test-1", 0, NULL);
+  revised = lamina_library_dup_construction (library, "test-1", 0, NULL);
   g_assert_cmpint (revised->revision, ==, 2);
   g_assert_cmpint (revised->status, ==, LAMINA_STATUS_DRAFT);
   g_clear_pointer (&report, lamina_import_report_free);
@@ -151,7 +151,7 @@ test_merge (void)
   report = lamina_library_import (library, second, LAMINA_IMPORT_REVISE_APPROVED, "T", &error);
   g_assert_cmpuint (report->n_revised, ==, 1);
   g_clear_pointer (&approved, lamina_construction_free);
-  approved = lamina_library_get_construction (library, "test-2", 1, NULL);
+  approved = lamina_library_dup_construction (library, "test-2", 1, NULL);
   g_assert_cmpint (approved->status, ==, LAMINA_STATUS_APPROVED);
 }
 

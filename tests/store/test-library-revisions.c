@@ -62,9 +62,9 @@ test_approved_immutable (void)
   g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IMMUTABLE);
   g_clear_error (&error);
 
-  r1 = lamina_library_get_result (library, id, 0, &error);
+  r1 = lamina_library_dup_result (library, id, 0, &error);
   g_assert_no_error (error);
-  c = lamina_library_get_construction (library, id, 0, &error);
+  c = lamina_library_dup_construction (library, id, 0, &error);
   g_assert_cmpint (c->status, ==, LAMINA_STATUS_APPROVED);
   layer = c->layers->pdata[1];
   layer->thickness = 195;
@@ -75,21 +75,21 @@ test_approved_immutable (void)
   g_assert_null (c->approved_by);
 
   /* Revision 1 is still there, approved, with its figures. */
-  old = lamina_library_get_construction (library, id, 1, &error);
+  old = lamina_library_dup_construction (library, id, 1, &error);
   g_assert_no_error (error);
   g_assert_cmpint (old->status, ==, LAMINA_STATUS_APPROVED);
   g_assert_cmpstr (old->approved_by, ==, "D. Director");
   g_assert_cmpstr (old->approved_at, ==, "2026-03-01");
   g_assert_cmpstr (old->checked_by, ==, "C. Checker");
   g_assert_cmpfloat (((LaminaLayer *) old->layers->pdata[1])->thickness, ==, 145);
-  r2 = lamina_library_get_result (library, id, 1, &error);
+  r2 = lamina_library_dup_result (library, id, 1, &error);
   g_assert_cmpfloat (r2->u_corrected, ==, r1->u_corrected);
   g_clear_pointer (&r2, lamina_result_free);
   /* More insulation: lower U (EN ISO 6946 physics, R grows with d). */
-  r2 = lamina_library_get_result (library, id, 2, &error);
+  r2 = lamina_library_dup_result (library, id, 2, &error);
   g_assert_cmpfloat (r2->u_corrected, <, r1->u_corrected);
 
-  history = lamina_library_get_history (library, id, &error);
+  history = lamina_library_dup_history (library, id, &error);
   g_assert_no_error (error);
   g_assert_cmpuint (history->len, ==, 2);
   g_assert_cmpint (((LaminaRevisionInfo *) history->pdata[0])->revision, ==, 2);
@@ -114,8 +114,8 @@ test_stale_save (void)
   g_autoptr(LaminaLibrary) a = open_at ("shared.sqlite");
   g_autoptr(LaminaLibrary) b = open_at ("shared.sqlite");
   g_autofree char *id = create_wall (a, "EW-02", "Shared wall", NULL, 120);
-  g_autoptr(LaminaConstruction) ca = lamina_library_get_construction (a, id, 0, NULL);
-  g_autoptr(LaminaConstruction) cb = lamina_library_get_construction (b, id, 0, NULL);
+  g_autoptr(LaminaConstruction) ca = lamina_library_dup_construction (a, id, 0, NULL);
+  g_autoptr(LaminaConstruction) cb = lamina_library_dup_construction (b, id, 0, NULL);
   g_autoptr(LaminaConstruction) now = NULL;
   g_autoptr(GError) error = NULL;
 
@@ -133,7 +133,7 @@ test_stale_save (void)
   g_assert_nonnull (strstr (error->message, "someone else"));
   g_assert_cmpint (cb->revision, ==, 1);
   g_clear_error (&error);
-  now = lamina_library_get_construction (b, id, 0, &error);
+  now = lamina_library_dup_construction (b, id, 0, &error);
   g_assert_cmpstr (now->name, ==, "Shared wall, edited by A");
   g_assert_cmpint (now->revision, ==, 2);
 
@@ -155,7 +155,7 @@ test_delete_restore_derive (void)
   lamina_library_query_init (&q);
   g_assert_true (lamina_library_delete_construction (library, id, NULL, &error));
   g_assert_cmpint (lamina_library_count (library, &q, NULL), ==, 0);
-  g_assert_null (lamina_library_get_construction (library, id, 0, &error));
+  g_assert_null (lamina_library_dup_construction (library, id, 0, &error));
   g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
   g_clear_error (&error);
   g_assert_true (lamina_library_restore_construction (library, id, &error));
@@ -163,7 +163,7 @@ test_delete_restore_derive (void)
 
   copy = lamina_library_derive_construction (library, id, "B", &error);
   g_assert_no_error (error);
-  derived = lamina_library_get_construction (library, copy, 0, &error);
+  derived = lamina_library_dup_construction (library, copy, 0, &error);
   g_assert_cmpint (derived->revision, ==, 1);
   g_assert_null (derived->code);
   g_assert_nonnull (strstr (derived->name, "Wall to delete"));
@@ -177,8 +177,8 @@ test_material_changed (void)
 {
   g_autoptr(LaminaLibrary) library = open_at ("flag.sqlite");
   g_autofree char *id = create_wall (library, "EW-04", "Flagged wall", NULL, 145);
-  g_autoptr(LaminaMaterial) wool = lamina_library_get_material (library, "typical-mineral-wool-035", NULL);
-  g_autoptr(LaminaResult) before = lamina_library_get_result (library, id, 0, NULL);
+  g_autoptr(LaminaMaterial) wool = lamina_library_dup_material (library, "typical-mineral-wool-035", NULL);
+  g_autoptr(LaminaResult) before = lamina_library_dup_result (library, id, 0, NULL);
   g_autoptr(LaminaResult) still = NULL;
   g_autoptr(LaminaResult) after = NULL;
   g_autoptr(GPtrArray) rows = NULL;
@@ -192,7 +192,7 @@ test_material_changed (void)
   lamina_library_query_init (&q);
   rows = lamina_library_search (library, &q, &error);
   g_assert_true (((LaminaSummary *) rows->pdata[0])->flags & LAMINA_SUMMARY_MATERIAL_CHANGED);
-  still = lamina_library_get_result (library, id, 0, NULL);
+  still = lamina_library_dup_result (library, id, 0, NULL);
   g_assert_cmpfloat (still->u_corrected, ==, before->u_corrected);
   changes = lamina_library_list_material_changes (library, id, &error);
   g_assert_cmpuint (changes->len, ==, 1);
@@ -201,7 +201,7 @@ test_material_changed (void)
   rev = lamina_library_update_materials (library, id, 1, "A", &error);
   g_assert_no_error (error);
   g_assert_cmpint (rev, ==, 2);
-  after = lamina_library_get_result (library, id, 0, NULL);
+  after = lamina_library_dup_result (library, id, 0, NULL);
   g_assert_cmpfloat (after->u_corrected, >, before->u_corrected);
   g_clear_pointer (&rows, g_ptr_array_unref);
   rows = lamina_library_search (library, &q, &error);

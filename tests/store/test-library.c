@@ -92,7 +92,7 @@ test_seed_values (void)
   for (guint i = 0; i < G_N_ELEMENTS (table3); i++)
     {
       g_autoptr(GError) error = NULL;
-      g_autoptr(LaminaMaterial) m = lamina_library_get_material (library, table3[i].id, &error);
+      g_autoptr(LaminaMaterial) m = lamina_library_dup_material (library, table3[i].id, &error);
 
       g_assert_no_error (error);
       g_assert_cmpfloat_with_epsilon (m->conductivity, table3[i].lambda, 1e-12);
@@ -213,7 +213,7 @@ test_migrate_v1 (void)
   g_assert_nonnull (lamina_library_get_backup_path (library));
   g_assert_true (g_file_test (lamina_library_get_backup_path (library), G_FILE_TEST_EXISTS));
 
-  back = lamina_library_get_construction (library, "old-1", 0, &error);
+  back = lamina_library_dup_construction (library, "old-1", 0, &error);
   g_assert_no_error (error);
   g_assert_true (lamina_construction_equal_content (back, wall));
   g_assert_cmpint (back->status, ==, LAMINA_STATUS_APPROVED);
