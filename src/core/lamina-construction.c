@@ -110,6 +110,7 @@ layer_new (LaminaLayerKind kind,
   layer->emissivity_inner = LAMINA_DEFAULT_EMISSIVITY;
   layer->emissivity_outer = LAMINA_DEFAULT_EMISSIVITY;
   layer->corrections.fastener_penetration = NAN;
+  layer->sd = NAN;
   return layer;
 }
 
@@ -227,6 +228,7 @@ lamina_layer_equal (const LaminaLayer *a,
   if (a->kind != b->kind || !same_value (a->thickness, b->thickness))
     return FALSE;
   if (g_strcmp0 (a->note, b->note) != 0
+      || !same_value (a->sd, b->sd)
       || !corrections_equal (&a->corrections, &b->corrections))
     return FALSE;
   switch (a->kind)
@@ -304,6 +306,64 @@ lamina_layer_get_label (const LaminaLayer *layer)
     }
 }
 
+/* Moisture settings */
+
+LaminaMoistureSettings *
+lamina_moisture_settings_new (const char *climate)
+{
+  LaminaMoistureSettings *settings = g_new0 (LaminaMoistureSettings, 1);
+
+  settings->climate = g_strdup (climate);
+  settings->inside_humidity = NAN;
+  settings->inside_temperature = NAN;
+  return settings;
+}
+
+LaminaMoistureSettings *
+lamina_moisture_settings_copy (const LaminaMoistureSettings *settings)
+{
+  LaminaMoistureSettings *copy;
+
+  g_return_val_if_fail (settings != NULL, NULL);
+
+  copy = g_memdup2 (settings, sizeof *settings);
+  copy->climate = g_strdup (settings->climate);
+  return copy;
+}
+
+void
+lamina_moisture_settings_free (LaminaMoistureSettings *settings)
+{
+  if (settings == NULL)
+    return;
+  g_free (settings->climate);
+  g_free (settings);
+}
+
+gboolean
+lamina_moisture_settings_equal (const LaminaMoistureSettings *a,
+                                const LaminaMoistureSettings *b)
+{
+  if (a == b)
+    return TRUE;
+  if (a == NULL || b == NULL)
+    return FALSE;
+  return g_strcmp0 (a->climate, b->climate) == 0
+         && a->humidity_class == b->humidity_class
+         && same_value (a->inside_humidity, b->inside_humidity)
+         && same_value (a->inside_temperature, b->inside_temperature);
+}
+
+void
+lamina_construction_set_moisture (LaminaConstruction     *construction,
+                                  LaminaMoistureSettings *settings)
+{
+  g_return_if_fail (construction != NULL);
+
+  lamina_moisture_settings_free (construction->moisture);
+  construction->moisture = settings;
+}
+
 /* Constructions */
 
 LaminaConstruction *
@@ -354,6 +414,7 @@ lamina_construction_copy (const LaminaConstruction *construction)
   copy->layers = g_ptr_array_new_full (c->layers->len, (GDestroyNotify) lamina_layer_free);
   for (guint i = 0; i < c->layers->len; i++)
     g_ptr_array_add (copy->layers, lamina_layer_copy (c->layers->pdata[i]));
+  copy->moisture = c->moisture ? lamina_moisture_settings_copy (c->moisture) : NULL;
   return copy;
 }
 
@@ -377,6 +438,7 @@ lamina_construction_free (LaminaConstruction *construction)
   g_free (c->approved_at);
   g_ptr_array_unref (c->tags);
   g_ptr_array_unref (c->layers);
+  lamina_moisture_settings_free (c->moisture);
   g_free (c);
 }
 
@@ -422,7 +484,8 @@ lamina_construction_equal_content (const LaminaConstruction *a,
       || !same_value (a->inside_temperature, b->inside_temperature)
       || !same_value (a->outside_temperature, b->outside_temperature)
       || a->tags->len != b->tags->len
-      || a->layers->len != b->layers->len)
+      || a->layers->len != b->layers->len
+      || !lamina_moisture_settings_equal (a->moisture, b->moisture))
     return FALSE;
   for (guint i = 0; i < a->tags->len; i++)
     if (g_strcmp0 (a->tags->pdata[i], b->tags->pdata[i]) != 0)

@@ -59,9 +59,22 @@ typedef struct
   double            emissivity_outer;  /* ε of the face towards the outside */
   GPtrArray        *parts;             /* LaminaPart*, kind BRIDGED */
   LaminaCorrections corrections;
+  double            sd;                /* declared sd, m (membranes, foils), or NAN: μ·d */
   char             *note;
   int               line;
 } LaminaLayer;
+
+/* A construction's moisture check by EN ISO 13788 (lamina-moisture.h): the
+ * climate it is checked for and the inside conditions, either a humidity
+ * class (Annex A) or a fixed relative humidity. */
+typedef struct
+{
+  char   *climate;                     /* a LaminaClimate id */
+  int     humidity_class;              /* 1–5, or 0 when inside_humidity is given */
+  double  inside_humidity;             /* φi 0–1, or NAN */
+  double  inside_temperature;          /* θi °C, or NAN: the construction's */
+  int     line;
+} LaminaMoistureSettings;
 
 typedef struct
 {
@@ -78,6 +91,7 @@ typedef struct
   double           inside_temperature; /* °C, design condition */
   double           outside_temperature;/* °C, design condition */
   char            *notes;
+  LaminaMoistureSettings *moisture;    /* owned; NULL: no moisture check */
 
   /* Library data: kept by the store, carried by the catalogue XML. */
   LaminaStatus     status;
@@ -140,6 +154,14 @@ void                lamina_construction_add_layer (LaminaConstruction *construct
                                                    LaminaLayer        *layer);
 void                lamina_construction_add_tag   (LaminaConstruction *construction,
                                                    const char         *tag);
+LaminaMoistureSettings *lamina_moisture_settings_new  (const char                   *climate);
+LaminaMoistureSettings *lamina_moisture_settings_copy (const LaminaMoistureSettings *settings);
+void                lamina_moisture_settings_free (LaminaMoistureSettings *settings);
+gboolean            lamina_moisture_settings_equal (const LaminaMoistureSettings *a,
+                                                    const LaminaMoistureSettings *b);
+/* Takes ownership of @settings (NULL removes the check). */
+void                lamina_construction_set_moisture (LaminaConstruction     *construction,
+                                                      LaminaMoistureSettings *settings);
 /* Sum of the layer thicknesses, mm. */
 double              lamina_construction_get_thickness (const LaminaConstruction *construction);
 /* Same build-up, names, conditions and descriptive data; ignores the
@@ -157,5 +179,6 @@ gboolean            lamina_construction_validate (const LaminaConstruction *cons
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaPart, lamina_part_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaLayer, lamina_layer_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaConstruction, lamina_construction_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaMoistureSettings, lamina_moisture_settings_free)
 
 G_END_DECLS

@@ -307,6 +307,11 @@ check_layer (Check             *check,
     default:
       return fail_at (check, layer->line, where, _("unknown kind of layer"));
     }
+  /* EN ISO 13788:2012 3.1 (from memory): sd is the thickness of still air
+   * with the layer's vapour resistance; a foil's declared sd stands for μ·d. */
+  if (!isnan (layer->sd)
+      && !check_range (check, layer->line, where, N_("sd"), layer->sd, 0, 100000, TRUE, "m"))
+    return FALSE;
   return check_corrections (check, layer, where);
 }
 
@@ -353,6 +358,30 @@ check_members (Check                    *check,
   return TRUE;
 }
 
+/* The inside conditions of EN ISO 13788:2012 4.2.3 and Annex A. */
+static gboolean
+check_moisture (Check                        *check,
+                const LaminaMoistureSettings *m)
+{
+  const Where whole = { 0, 0 };
+
+  if (m == NULL)
+    return TRUE;
+  if (m->climate == NULL || m->climate[0] == '\0')
+    return fail (check, m->line, _("moisture check: no climate"));
+  if ((m->humidity_class != 0) == !isnan (m->inside_humidity))
+    return fail (check, m->line, _("moisture check: give either a humidity class or an inside humidity"));
+  if (m->humidity_class != 0 && (m->humidity_class < 1 || m->humidity_class > 5))
+    return fail (check, m->line, _("moisture check: humidity class %d is not 1 to 5"), m->humidity_class);
+  if (!isnan (m->inside_humidity)
+      && !check_range (check, m->line, whole, N_("inside humidity"), m->inside_humidity, 0, 1, TRUE, ""))
+    return FALSE;
+  if (!isnan (m->inside_temperature)
+      && !check_range (check, m->line, whole, N_("inside temperature"), m->inside_temperature, -60, 60, FALSE, "°C"))
+    return FALSE;
+  return TRUE;
+}
+
 gboolean
 lamina_construction_validate (const LaminaConstruction *construction,
                               int                      *line,
@@ -385,5 +414,7 @@ lamina_construction_validate (const LaminaConstruction *construction,
   for (guint i = 0; i < c->layers->len; i++)
     if (!check_layer (&check, c->layers->pdata[i], i + 1))
       return FALSE;
-  return check_members (&check, c);
+  if (!check_members (&check, c))
+    return FALSE;
+  return check_moisture (&check, c->moisture);
 }
