@@ -33,4 +33,56 @@ gboolean lamina_xml_document_check (const char  *data,
  * document from lamina_xml_document_parse. */
 int     lamina_xml_node_get_line  (xmlNode     *node);
 
+/* Reading values (lamina-xml-document.c): an attribute or the text of an
+ * element as an owned string (NULL if the attribute is absent); whether
+ * @node is the catalogue's element @name; a whole attribute as one finite
+ * number in the C locale, or FALSE with a message for the user. */
+char    *lamina_xml_dup_attr      (xmlNode     *node,
+                                   const char  *name);
+char    *lamina_xml_dup_text      (xmlNode     *node);
+gboolean lamina_xml_is_element    (xmlNode     *node,
+                                   const char  *name);
+gboolean lamina_xml_parse_number  (const char  *attr,
+                                   const char  *text,
+                                   double      *value,
+                                   char       **message);
+
+/* Writing (lamina-catalogue-writer.c), for the parts of the vocabulary
+ * kept in their own files: an escaped attribute (nothing if NULL), a
+ * number that reads back exactly (nothing if NAN), a text element, and
+ * the check that @text can be carried by XML at all. */
+void     lamina_xml_write_attr    (GString     *out,
+                                   const char  *name,
+                                   const char  *value);
+void     lamina_xml_write_number  (GString     *out,
+                                   const char  *name,
+                                   double       value);
+void     lamina_xml_write_text_element (GString    *out,
+                                        const char *indent,
+                                        const char *name,
+                                        const char *text);
+gboolean lamina_xml_check_text    (const char  *where,
+                                   const char  *field,
+                                   const char  *text,
+                                   GError     **error);
+
+/* Target sets and jobs (lamina-catalogue-jobs.c).  The reader calls
+ * these for each <target-set> and <job> element after the materials; the
+ * writer puts target sets before the constructions and jobs after them.
+ * Errors read "NAME:LINE: message". */
+gboolean lamina_catalogue_read_target_set (LaminaCatalogue  *catalogue,
+                                           xmlNode          *node,
+                                           const char       *name,
+                                           GError          **error);
+gboolean lamina_catalogue_read_job        (LaminaCatalogue  *catalogue,
+                                           xmlNode          *node,
+                                           const char       *name,
+                                           GError          **error);
+gboolean lamina_catalogue_write_target_sets (const LaminaCatalogue *catalogue,
+                                             GString               *out,
+                                             GError               **error);
+gboolean lamina_catalogue_write_jobs      (const LaminaCatalogue *catalogue,
+                                           GString               *out,
+                                           GError               **error);
+
 G_END_DECLS

@@ -63,31 +63,20 @@ static gboolean
 is_element (xmlNode    *node,
             const char *name)
 {
-  return node->type == XML_ELEMENT_NODE
-         && node->ns != NULL
-         && strcmp ((const char *) node->ns->href, LAMINA_CATALOGUE_NAMESPACE) == 0
-         && strcmp ((const char *) node->name, name) == 0;
+  return lamina_xml_is_element (node, name);
 }
 
 static char *
 dup_attr (xmlNode    *node,
           const char *name)
 {
-  xmlChar *value = xmlGetNoNsProp (node, (const xmlChar *) name);
-  char *copy = g_strdup ((const char *) value);
-
-  xmlFree (value);
-  return copy;
+  return lamina_xml_dup_attr (node, name);
 }
 
 static char *
 dup_text (xmlNode *node)
 {
-  xmlChar *value = xmlNodeGetContent (node);
-  char *copy = g_strdup (value ? (const char *) value : "");
-
-  xmlFree (value);
-  return copy;
+  return lamina_xml_dup_text (node);
 }
 
 /* Strict: the whole attribute is one finite number in the C locale.
@@ -99,23 +88,12 @@ get_number (Reader     *r,
             double     *value)
 {
   g_autofree char *text = dup_attr (node, attr);
-  char *end = NULL;
-  double v;
+  g_autofree char *message = NULL;
 
   if (text == NULL)
     return TRUE;
-  if (text[0] == '\0' || g_ascii_isspace (text[0]) || strpbrk (text, "xXnN") != NULL)
-    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
-                 _("%s=“%s” is not a number"), attr, text);
-  errno = 0;
-  v = g_ascii_strtod (text, &end);
-  if (end == text || *end != '\0')
-    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
-                 _("%s=“%s” is not a number"), attr, text);
-  if (!isfinite (v) || errno == ERANGE)
-    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
-                 _("%s=“%s” is out of range (not a finite number of usual size)"), attr, text);
-  *value = v;
+  if (!lamina_xml_parse_number (attr, text, value, &message))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, "%s", message);
   return TRUE;
 }
 
@@ -536,7 +514,14 @@ read_catalogue (Reader  *r,
   if (!check_snapshots (r))
     return FALSE;
   for (xmlNode *child = root->children; child != NULL; child = child->next)
+    if (is_element (child, "target-set")
+        && !lamina_catalogue_read_target_set (r->catalogue, child, r->name, r->error))
+      return FALSE;
+  for (xmlNode *child = root->children; child != NULL; child = child->next)
     if (is_element (child, "construction") && !read_construction (r, child))
+      return FALSE;
+  for (xmlNode *child = root->children; child != NULL; child = child->next)
+    if (is_element (child, "job") && !lamina_catalogue_read_job (r->catalogue, child, r->name, r->error))
       return FALSE;
   return TRUE;
 }

@@ -433,9 +433,13 @@ write_catalogue (Writer                *w,
   write_text_element (w, "  ", "title", catalogue->title);
   if (!write_materials (w))
     return FALSE;
+  if (!lamina_catalogue_write_target_sets (catalogue, w->out, w->error))
+    return FALSE;
   for (guint i = 0; i < catalogue->constructions->len; i++)
     if (!write_construction (w, catalogue->constructions->pdata[i], flags))
       return FALSE;
+  if (!lamina_catalogue_write_jobs (catalogue, w->out, w->error))
+    return FALSE;
   g_string_append (w->out, "</catalogue>\n");
   return TRUE;
 }
@@ -472,4 +476,48 @@ lamina_catalogue_write_to_string (const LaminaCatalogue *catalogue,
   if (length != NULL)
     *length = out->len;
   return g_string_free (g_steal_pointer (&out), FALSE);
+}
+
+/* The same writing for the parts of the vocabulary in their own files. */
+
+void
+lamina_xml_write_attr (GString    *out,
+                       const char *name,
+                       const char *value)
+{
+  Writer w = { out, NULL, NULL };
+
+  write_attr (&w, name, value);
+}
+
+void
+lamina_xml_write_number (GString    *out,
+                         const char *name,
+                         double      value)
+{
+  Writer w = { out, NULL, NULL };
+
+  write_number (&w, name, value);
+}
+
+void
+lamina_xml_write_text_element (GString    *out,
+                               const char *indent,
+                               const char *name,
+                               const char *text)
+{
+  Writer w = { out, NULL, NULL };
+
+  write_text_element (&w, indent, name, text);
+}
+
+gboolean
+lamina_xml_check_text (const char  *where,
+                       const char  *field,
+                       const char  *text,
+                       GError     **error)
+{
+  Writer w = { NULL, error, NULL };
+
+  return check_text (&w, where, field, text);
 }

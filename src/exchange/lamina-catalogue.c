@@ -18,6 +18,8 @@ lamina_catalogue_new (void)
 
   catalogue->materials = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
   catalogue->constructions = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
+  catalogue->target_sets = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_target_set_free);
+  catalogue->jobs = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_job_free);
   return catalogue;
 }
 
@@ -29,6 +31,8 @@ lamina_catalogue_free (LaminaCatalogue *catalogue)
   g_free (catalogue->title);
   g_ptr_array_unref (catalogue->materials);
   g_ptr_array_unref (catalogue->constructions);
+  g_ptr_array_unref (catalogue->target_sets);
+  g_ptr_array_unref (catalogue->jobs);
   g_free (catalogue);
 }
 
@@ -62,6 +66,38 @@ lamina_catalogue_find_material (const LaminaCatalogue *catalogue,
 
       if (g_strcmp0 (m->id, id) == 0)
         return m;
+    }
+  return NULL;
+}
+
+LaminaTargetSet *
+lamina_catalogue_find_target_set (const LaminaCatalogue *catalogue,
+                                  const char            *id)
+{
+  g_return_val_if_fail (catalogue != NULL, NULL);
+
+  for (guint i = 0; id != NULL && i < catalogue->target_sets->len; i++)
+    {
+      LaminaTargetSet *set = catalogue->target_sets->pdata[i];
+
+      if (g_strcmp0 (set->id, id) == 0)
+        return set;
+    }
+  return NULL;
+}
+
+LaminaJob *
+lamina_catalogue_find_job (const LaminaCatalogue *catalogue,
+                           const char            *id)
+{
+  g_return_val_if_fail (catalogue != NULL, NULL);
+
+  for (guint i = 0; id != NULL && i < catalogue->jobs->len; i++)
+    {
+      LaminaJob *job = catalogue->jobs->pdata[i];
+
+      if (g_strcmp0 (job->id, id) == 0)
+        return job;
     }
   return NULL;
 }

@@ -9,6 +9,8 @@
 
 #include "lamina-calc.h"
 #include "lamina-construction.h"
+#include "lamina-job.h"
+#include "lamina-target-set.h"
 
 G_BEGIN_DECLS
 
@@ -31,6 +33,9 @@ typedef struct
   GPtrArray *materials;      /* LaminaMaterial*, owned */
   GPtrArray *constructions;  /* LaminaConstruction*, owned; layers carry
                                 copies of the materials they use */
+  GPtrArray *target_sets;    /* LaminaTargetSet*, owned */
+  GPtrArray *jobs;           /* LaminaJob*, owned; entries name constructions
+                                of the document or of the library */
 } LaminaCatalogue;
 
 typedef enum
@@ -45,6 +50,10 @@ LaminaConstruction *lamina_catalogue_find      (const LaminaCatalogue *catalogue
                                                 const char            *id);
 /* A library material of the catalogue (not a layer's snapshot), or NULL. */
 LaminaMaterial  *lamina_catalogue_find_material (const LaminaCatalogue *catalogue,
+                                                 const char            *id);
+LaminaTargetSet *lamina_catalogue_find_target_set (const LaminaCatalogue *catalogue,
+                                                   const char            *id);
+LaminaJob       *lamina_catalogue_find_job      (const LaminaCatalogue *catalogue,
                                                  const char            *id);
 
 /* Errors read "NAME:LINE: message", NAME being @name (a file path). */

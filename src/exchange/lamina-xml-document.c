@@ -12,12 +12,14 @@
 
 #include "lamina-catalogue-private.h"
 
+#include <errno.h>
 #include <gio/gio.h>
 #include <glib/gi18n-lib.h>
 #include <libxml/parser.h>
 #include <libxml/parserInternals.h>
 #include <libxml/SAX2.h>
 #include <libxml/xmlschemas.h>
+#include <math.h>
 #include <string.h>
 
 #include "lamina-exchange-resources.h"
@@ -396,4 +398,68 @@ lamina_xml_document_check (const char  *data,
           sink.message ? sink.message : _("the document breaks the catalogue schema"));
   g_free (sink.message);
   return rc == 0;
+}
+
+/* Reading values */
+
+gboolean
+lamina_xml_is_element (xmlNode    *node,
+                       const char *name)
+{
+  return node->type == XML_ELEMENT_NODE
+         && node->ns != NULL
+         && strcmp ((const char *) node->ns->href, LAMINA_CATALOGUE_NAMESPACE) == 0
+         && strcmp ((const char *) node->name, name) == 0;
+}
+
+char *
+lamina_xml_dup_attr (xmlNode    *node,
+                     const char *name)
+{
+  xmlChar *value = xmlGetNoNsProp (node, (const xmlChar *) name);
+  char *copy = g_strdup ((const char *) value);
+
+  xmlFree (value);
+  return copy;
+}
+
+char *
+lamina_xml_dup_text (xmlNode *node)
+{
+  xmlChar *value = xmlNodeGetContent (node);
+  char *copy = g_strdup (value ? (const char *) value : "");
+
+  xmlFree (value);
+  return copy;
+}
+
+gboolean
+lamina_xml_parse_number (const char  *attr,
+                         const char  *text,
+                         double      *value,
+                         char       **message)
+{
+  char *end = NULL;
+  double v;
+
+  if (text[0] == '\0' || g_ascii_isspace (text[0]) || strpbrk (text, "xXnN") != NULL)
+    {
+      *message = g_strdup_printf (_("%s=“%s” is not a number"), attr, text);
+      return FALSE;
+    }
+  errno = 0;
+  v = g_ascii_strtod (text, &end);
+  if (end == text || *end != '\0')
+    {
+      *message = g_strdup_printf (_("%s=“%s” is not a number"), attr, text);
+      return FALSE;
+    }
+  if (!isfinite (v) || errno == ERANGE)
+    {
+      *message = g_strdup_printf (_("%s=“%s” is out of range (not a finite number of usual size)"),
+                                  attr, text);
+      return FALSE;
+    }
+  *value = v;
+  return TRUE;
 }

@@ -1,0 +1,217 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "lamina-core"
+
+#include "lamina-job-check.h"
+
+#include <glib/gi18n-lib.h>
+#include <math.h>
+
+static const char *const verdict_names[] = {
+  "met", "not-met", "no-target", "not-calculated",
+};
+G_STATIC_ASSERT (G_N_ELEMENTS (verdict_names) == LAMINA_N_VERDICTS);
+
+const char *
+lamina_verdict_to_string (LaminaVerdict verdict)
+{
+  g_return_val_if_fail ((guint) verdict < LAMINA_N_VERDICTS, NULL);
+  return verdict_names[verdict];
+}
+
+double
+lamina_job_result_u (const LaminaResult *result)
+{
+  return result != NULL ? result->u_corrected : NAN;
+}
+
+static void
+line_free (LaminaJobLine *line)
+{
+  g_ptr_array_unref (line->notes);
+  g_free (line);
+}
+
+void
+lamina_job_check_free (LaminaJobCheck *check)
+{
+  if (check == NULL)
+    return;
+  g_ptr_array_unref (check->lines);
+  g_free (check);
+}
+
+/* Flags the calculation itself raises. */
+static LaminaEntryFlags
+flags_of_result (const LaminaResult *result)
+{
+  LaminaEntryFlags flags = LAMINA_ENTRY_NONE;
+
+  for (guint i = 0; result != NULL && i < result->warnings->len; i++)
+    {
+      const LaminaWarning *w = g_ptr_array_index (result->warnings, i);
+
+      /* The construction's own target is not the job's. */
+      if (w->kind == LAMINA_WARNING_TARGET_NOT_MET)
+        continue;
+      if (w->kind == LAMINA_WARNING_RATIO_OUT_OF_RANGE
+          || w->kind == LAMINA_WARNING_METAL_BRIDGED_INSULATION)
+        flags |= LAMINA_ENTRY_OUT_OF_SCOPE;
+      else
+        flags |= LAMINA_ENTRY_WARNINGS;
+    }
+  return flags;
+}
+
+static void
+add_note (LaminaJobLine *line,
+          const char    *format,
+          ...) G_GNUC_PRINTF (2, 3);
+
+static void
+add_note (LaminaJobLine *line,
+          const char    *format,
+          ...)
+{
+  va_list args;
+
+  va_start (args, format);
+  g_ptr_array_add (line->notes, g_strdup_vprintf (format, args));
+  va_end (args);
+}
+
+/* One sentence per flag, in the order a reader should see them. */
+static void
+write_notes (LaminaJobLine *line)
+{
+  LaminaEntryFlags f = line->flags;
+
+  if (f & LAMINA_ENTRY_MISSING)
+    add_note (line, _("Revision %d of “%s” is not in the library."),
+              line->entry->revision, line->entry->construction);
+  if (line->verdict == LAMINA_VERDICT_NO_TARGET)
+    add_note (line, _("The job has no target for the use “%s”."), line->entry->use);
+  if (line->verdict == LAMINA_VERDICT_NOT_MET && line->u > line->max_u)
+    add_note (line, _("U %.3f W/(m²·K) is above the maximum %.3f for “%s”."),
+              line->u, line->max_u, line->entry->use);
+  if (f & LAMINA_ENTRY_FRSI_NOT_MET)
+    add_note (line, _("The temperature factor fRsi %.2f is below the minimum %.2f."),
+              line->frsi, line->target->min_frsi);
+  if (f & LAMINA_ENTRY_NOT_APPROVED)
+    add_note (line, _("Revision %d is not approved."), line->entry->revision);
+  if (f & LAMINA_ENTRY_NEWER_APPROVED)
+    add_note (line, _("Revision %d is approved and newer than the pinned revision %d."),
+              line->newer_revision, line->entry->revision);
+  if (f & LAMINA_ENTRY_MATERIAL_CHANGED)
+    add_note (line, _("Library material data changed since this revision was checked."));
+  if ((f & LAMINA_ENTRY_OUT_OF_SCOPE) && line->target != NULL && line->target->ground)
+    add_note (line, _("The target is for the floor with the ground (EN ISO 13370); this U is the "
+                      "floor construction's alone (EN ISO 6946)."));
+  else if (f & LAMINA_ENTRY_OUT_OF_SCOPE)
+    add_note (line, _("The construction is outside the scope of EN ISO 6946; see its sheet."));
+  if (f & LAMINA_ENTRY_WRONG_ELEMENT)
+    add_note (line, _("The use “%s” is for a %s, the construction is a %s."), line->entry->use,
+              lamina_element_to_string ((LaminaElement) line->target->element),
+              lamina_element_to_string (line->construction->element));
+  if (f & LAMINA_ENTRY_MOISTURE_OPEN)
+    add_note (line, _("The moisture criterion “%s” is to be shown by an EN ISO 13788 assessment."),
+              lamina_moisture_criterion_to_string (line->target->moisture));
+  if (f & LAMINA_ENTRY_WARNINGS)
+    add_note (line, _("The calculation gave warnings; see the construction's sheet."));
+}
+
+static LaminaJobLine *
+check_entry (const LaminaJobEntry  *entry,
+             const LaminaTargetSet *targets,
+             const LaminaJobInput  *input)
+{
+  LaminaJobLine *line = g_new0 (LaminaJobLine, 1);
+  const LaminaConstruction *c = input->construction;
+  const LaminaTarget *t = targets != NULL ? lamina_target_set_find (targets, entry->use) : NULL;
+
+  line->entry = entry;
+  line->construction = c;
+  line->target = t;
+  line->notes = g_ptr_array_new_with_free_func (g_free);
+  line->flags = input->flags | flags_of_result (input->result);
+  line->newer_revision = input->newer_revision;
+  line->u = input->construction != NULL ? lamina_job_result_u (input->result) : NAN;
+  line->max_u = t != NULL ? t->max_u : NAN;
+  line->frsi = 1.0 - LAMINA_FRSI_SURFACE_RESISTANCE * line->u;
+  line->ua = isnan (entry->area) ? NAN : line->u * entry->area;
+
+  if (c != NULL && c->status != LAMINA_STATUS_APPROVED)
+    line->flags |= LAMINA_ENTRY_NOT_APPROVED;
+  if (c != NULL && t != NULL && t->element >= 0 && (LaminaElement) t->element != c->element)
+    line->flags |= LAMINA_ENTRY_WRONG_ELEMENT;
+  if (t != NULL && t->ground)
+    line->flags |= LAMINA_ENTRY_OUT_OF_SCOPE;
+  if (t != NULL && t->moisture != LAMINA_MOISTURE_NONE)
+    line->flags |= LAMINA_ENTRY_MOISTURE_OPEN;
+
+  if (c == NULL || isnan (line->u))
+    line->verdict = LAMINA_VERDICT_NOT_CALCULATED;
+  else if (t == NULL)
+    line->verdict = LAMINA_VERDICT_NO_TARGET;
+  else
+    {
+      gboolean frsi_ok = isnan (t->min_frsi) || line->frsi >= t->min_frsi;
+
+      if (!frsi_ok)
+        line->flags |= LAMINA_ENTRY_FRSI_NOT_MET;
+      line->verdict = line->u <= t->max_u && frsi_ok ? LAMINA_VERDICT_MET : LAMINA_VERDICT_NOT_MET;
+    }
+  write_notes (line);
+  return line;
+}
+
+static void
+add_to_totals (LaminaJobCheck      *check,
+               const LaminaJobLine *line)
+{
+  LaminaKindTotal *kind;
+
+  if (isnan (line->ua) || line->construction == NULL)
+    return;
+  kind = &check->kinds[line->construction->element];
+  kind->area += line->entry->area;
+  kind->ua += line->ua;
+  check->area += line->entry->area;
+  check->h_t += line->ua;
+}
+
+LaminaJobCheck *
+lamina_job_check (const LaminaJob       *job,
+                  const LaminaTargetSet *targets,
+                  const LaminaJobInput  *inputs,
+                  guint                  n_inputs)
+{
+  LaminaJobCheck *check;
+
+  g_return_val_if_fail (job != NULL, NULL);
+  g_return_val_if_fail (n_inputs == job->entries->len, NULL);
+
+  check = g_new0 (LaminaJobCheck, 1);
+  check->lines = g_ptr_array_new_with_free_func ((GDestroyNotify) line_free);
+  for (guint i = 0; i < job->entries->len; i++)
+    {
+      LaminaJobLine *line = check_entry (g_ptr_array_index (job->entries, i), targets, &inputs[i]);
+
+      g_ptr_array_add (check->lines, line);
+      add_to_totals (check, line);
+      check->n_met += line->verdict == LAMINA_VERDICT_MET;
+      check->n_not_met += line->verdict == LAMINA_VERDICT_NOT_MET;
+      check->n_open += line->verdict >= LAMINA_VERDICT_NO_TARGET;
+      check->n_flagged += line->flags != LAMINA_ENTRY_NONE;
+    }
+  for (guint k = 0; k < LAMINA_N_ELEMENTS; k++)
+    check->kinds[k].mean_u = check->kinds[k].area > 0
+                             ? check->kinds[k].ua / check->kinds[k].area : NAN;
+  for (guint i = 0; i < job->junctions->len; i++)
+    {
+      const LaminaJobJunction *j = g_ptr_array_index (job->junctions, i);
+
+      check->h_junctions += j->psi * j->length;
+    }
+  check->h_total = check->h_t + check->h_junctions;
+  return check;
+}

@@ -1,0 +1,105 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-job-check.h: a job's schedule checked against its target set.
+ *
+ * Pure: the caller hands in, for each entry, the construction it pins and
+ * its result (calculated in the job's design conditions) and what the
+ * library knows about it (a newer approved revision, changed material
+ * data); the check gives each entry its target, verdict, U·A and flags,
+ * the area-weighted mean U per element kind and H_T.  H_T here is the
+ * transmission heat-loss coefficient of the listed elements' fabric only
+ * (Σ U·A, W/K); hand-entered ψ·l are summed beside it, never hidden in it. */
+#pragma once
+
+#include "lamina-calc.h"
+#include "lamina-construction.h"
+#include "lamina-job.h"
+#include "lamina-target-set.h"
+
+G_BEGIN_DECLS
+
+typedef enum
+{
+  LAMINA_VERDICT_MET,            /* U (and fRsi, if asked) within the target */
+  LAMINA_VERDICT_NOT_MET,
+  LAMINA_VERDICT_NO_TARGET,      /* the job has no target for this use */
+  LAMINA_VERDICT_NOT_CALCULATED, /* missing construction, or U not calculable */
+  LAMINA_N_VERDICTS
+} LaminaVerdict;
+
+typedef enum
+{
+  LAMINA_ENTRY_NONE             = 0,
+  LAMINA_ENTRY_NOT_APPROVED     = 1 << 0, /* the pinned revision is not approved */
+  LAMINA_ENTRY_NEWER_APPROVED   = 1 << 1, /* a newer approved revision exists */
+  LAMINA_ENTRY_MATERIAL_CHANGED = 1 << 2, /* library material data changed since */
+  LAMINA_ENTRY_OUT_OF_SCOPE     = 1 << 3, /* the target needs a method not applied */
+  LAMINA_ENTRY_WRONG_ELEMENT    = 1 << 4, /* not the element kind the use is for */
+  LAMINA_ENTRY_FRSI_NOT_MET     = 1 << 5,
+  LAMINA_ENTRY_MOISTURE_OPEN    = 1 << 6, /* moisture criterion not assessed here */
+  LAMINA_ENTRY_WARNINGS         = 1 << 7, /* the calculation gave warnings */
+  LAMINA_ENTRY_MISSING          = 1 << 8, /* the construction or revision is gone */
+} LaminaEntryFlags;
+
+/* What the caller knows about one entry. */
+typedef struct
+{
+  const LaminaConstruction *construction;   /* NULL if missing */
+  const LaminaResult       *result;         /* NULL if not calculable */
+  LaminaEntryFlags          flags;          /* NEWER_APPROVED, MATERIAL_CHANGED, MISSING */
+  int                       newer_revision; /* with NEWER_APPROVED */
+} LaminaJobInput;
+
+typedef struct
+{
+  const LaminaJobEntry     *entry;          /* borrowed from the job */
+  const LaminaConstruction *construction;   /* borrowed from the input */
+  const LaminaTarget       *target;         /* borrowed from the set, or NULL */
+  double                    u;              /* corrected U, W/(m²·K), or NAN */
+  double                    max_u;          /* NAN without a target */
+  double                    frsi;           /* 1 − Rsi·U, NAN if not calculated */
+  double                    ua;             /* W/K, NAN without an area */
+  LaminaVerdict             verdict;
+  LaminaEntryFlags          flags;
+  int                       newer_revision;
+  GPtrArray                *notes;          /* char*: one sentence per flag */
+} LaminaJobLine;
+
+typedef struct
+{
+  double area;     /* m² with a U */
+  double ua;       /* W/K */
+  double mean_u;   /* Σ U·A / Σ A, NAN without areas */
+} LaminaKindTotal;
+
+typedef struct
+{
+  GPtrArray       *lines;          /* LaminaJobLine*, schedule order */
+  LaminaKindTotal  kinds[LAMINA_N_ELEMENTS];
+  double           area;           /* Σ A of entries with an area and a U */
+  double           h_t;            /* Σ U·A over those entries, W/K */
+  double           h_junctions;    /* Σ ψ·l of the hand-entered junctions, W/K */
+  double           h_total;        /* h_t + h_junctions */
+  guint            n_met;
+  guint            n_not_met;
+  guint            n_open;         /* no target or not calculated */
+  guint            n_flagged;      /* entries with any flag */
+} LaminaJobCheck;
+
+/* The surface resistance for the temperature factor, EN ISO 13788:2012
+ * 4.2 (0.25 m²·K/W on the inside of opaque elements; from memory). */
+#define LAMINA_FRSI_SURFACE_RESISTANCE 0.25
+
+/* @inputs holds one LaminaJobInput per entry of @job, in order; @targets
+ * may be NULL (then nothing has a target). */
+LaminaJobCheck *lamina_job_check       (const LaminaJob       *job,
+                                        const LaminaTargetSet *targets,
+                                        const LaminaJobInput  *inputs,
+                                        guint                  n_inputs);
+void            lamina_job_check_free  (LaminaJobCheck        *check);
+const char     *lamina_verdict_to_string (LaminaVerdict        verdict);
+/* The U the job checks for @result: the corrected U. */
+double          lamina_job_result_u    (const LaminaResult    *result);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaJobCheck, lamina_job_check_free)
+
+G_END_DECLS
