@@ -169,17 +169,15 @@ form_add_number (Form       *form,
   form_add (form, name, label, entry);
 }
 
-/* @kind is a LaminaNumberField, parsed by the core's field parser (range
- * and unit checked, the field named in the message), or −1 for a value
- * with no field of its own there. */
+/* Parsed by the core's field parser: range and unit checked, the field
+ * named in the message. */
 static gboolean
-form_get_number (Form        *form,
-                 const char  *name,
-                 int          kind,
-                 const char  *field,
-                 gboolean     optional,
-                 double      *value,
-                 GError     **error)
+form_get_number (Form               *form,
+                 const char         *name,
+                 LaminaNumberField   field,
+                 gboolean            optional,
+                 double             *value,
+                 GError            **error)
 {
   GtkWidget *entry = g_hash_table_lookup (form->fields, name);
   const char *text = gtk_editable_get_text (GTK_EDITABLE (entry));
@@ -189,18 +187,9 @@ form_get_number (Form        *form,
       *value = NAN;
       return TRUE;
     }
-  if (kind >= 0)
-    {
-      if (lamina_number_parse ((LaminaNumberField) kind, text, value, error))
-        return TRUE;
-      gtk_widget_add_css_class (entry, "error");
-      return FALSE;
-    }
-  if (lamina_text_parse_number (text, value))
+  if (lamina_number_parse (field, text, value, error))
     return TRUE;
   gtk_widget_add_css_class (entry, "error");
-  g_set_error (error, G_IO_ERROR, G_IO_ERROR_INVALID_DATA,
-               _("%s: “%s” is not a number"), field, text);
   return FALSE;
 }
 
@@ -284,7 +273,7 @@ apply_material (Form    *form,
       g_autoptr(LaminaLayer) layer = NULL;
       guint at = state->layers->len ? form_layer (form) + 1 : 0;
 
-      if (!form_get_number (form, "thickness", LAMINA_FIELD_THICKNESS, _("Thickness"), FALSE, &thickness, error))
+      if (!form_get_number (form, "thickness", LAMINA_FIELD_THICKNESS, FALSE, &thickness, error))
         return FALSE;
       layer = lamina_layer_new_material (thickness, lamina_material_copy (material));
       next = lamina_edit_insert_layer (state, at, layer, error);
@@ -321,8 +310,8 @@ apply_bridged (Form    *form,
   const LaminaLayer *layer = form_current_layer (form);
   const LaminaMaterial *infill = layer && layer->kind == LAMINA_LAYER_MATERIAL ? layer->material : NULL;
 
-  if (!form_get_number (form, "width", LAMINA_FIELD_WIDTH, _("Width"), FALSE, &width, error) ||
-      !form_get_number (form, "spacing", LAMINA_FIELD_SPACING, _("Spacing"), FALSE, &spacing, error))
+  if (!form_get_number (form, "width", LAMINA_FIELD_WIDTH, FALSE, &width, error) ||
+      !form_get_number (form, "spacing", LAMINA_FIELD_SPACING, FALSE, &spacing, error))
     return FALSE;
   next = lamina_edit_make_bridged (form_state (form), form_layer (form), infill,
                                    form_get_material (form, "framing"), width, spacing,
@@ -351,9 +340,9 @@ apply_air (Form    *form,
   LaminaConstruction *next;
   guint kind = gtk_drop_down_get_selected (g_hash_table_lookup (form->fields, "kind"));
 
-  if (!form_get_number (form, "vent", -1, _("Vent area"), TRUE, &vent, error) ||
-      !form_get_number (form, "e1", LAMINA_FIELD_EMISSIVITY, _("Inner face emissivity"), FALSE, &e1, error) ||
-      !form_get_number (form, "e2", LAMINA_FIELD_EMISSIVITY, _("Outer face emissivity"), FALSE, &e2, error))
+  if (!form_get_number (form, "vent", LAMINA_FIELD_VENT_AREA, TRUE, &vent, error) ||
+      !form_get_number (form, "e1", LAMINA_FIELD_EMISSIVITY, FALSE, &e1, error) ||
+      !form_get_number (form, "e2", LAMINA_FIELD_EMISSIVITY, FALSE, &e2, error))
     return FALSE;
   next = lamina_edit_make_air (form_state (form), form_layer (form), (LaminaAirKind) kind,
                                vent, e1, e2, error);
@@ -387,7 +376,7 @@ apply_declared (Form    *form,
   double r;
   LaminaConstruction *next;
 
-  if (!form_get_number (form, "r", LAMINA_FIELD_THERMAL_RESISTANCE, _("Thermal resistance"), FALSE, &r, error))
+  if (!form_get_number (form, "r", LAMINA_FIELD_THERMAL_RESISTANCE, FALSE, &r, error))
     return FALSE;
   next = lamina_edit_make_declared (form_state (form), form_layer (form), r, error);
   return form_apply_next (form, next, NULL);
@@ -419,12 +408,12 @@ apply_corrections (Form    *form,
   c.has_air_gaps = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "gaps"));
   c.has_fasteners = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "fasteners"));
   c.has_inverted_roof = gtk_check_button_get_active (g_hash_table_lookup (form->fields, "inverted"));
-  if (!form_get_number (form, "level", -1, _("Air gap level"), FALSE, &level, error) ||
-      !form_get_number (form, "lf", LAMINA_FIELD_CONDUCTIVITY, _("Fastener λ"), FALSE, &c.fastener_conductivity, error) ||
-      !form_get_number (form, "af", -1, _("Fastener cross-section"), FALSE, &c.fastener_cross_section, error) ||
-      !form_get_number (form, "nf", -1, _("Fasteners per m²"), FALSE, &c.fasteners_per_square_metre, error) ||
-      !form_get_number (form, "p", -1, _("Precipitation"), FALSE, &c.precipitation, error) ||
-      !form_get_number (form, "f", -1, _("Drainage factor"), FALSE, &c.drainage_factor, error))
+  if (!form_get_number (form, "level", LAMINA_FIELD_AIR_GAP_LEVEL, FALSE, &level, error) ||
+      !form_get_number (form, "lf", LAMINA_FIELD_CONDUCTIVITY, FALSE, &c.fastener_conductivity, error) ||
+      !form_get_number (form, "af", LAMINA_FIELD_FASTENER_AREA, FALSE, &c.fastener_cross_section, error) ||
+      !form_get_number (form, "nf", LAMINA_FIELD_FASTENER_COUNT, FALSE, &c.fasteners_per_square_metre, error) ||
+      !form_get_number (form, "p", LAMINA_FIELD_PRECIPITATION, FALSE, &c.precipitation, error) ||
+      !form_get_number (form, "f", LAMINA_FIELD_DRAINAGE_FACTOR, FALSE, &c.drainage_factor, error))
     return FALSE;
   c.air_gap_level = (int) level;
   next = lamina_edit_set_corrections (form_state (form), form_layer (form), &c, error);

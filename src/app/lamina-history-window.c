@@ -17,9 +17,10 @@ new_revision_row (LaminaLibrary            *library,
                   const LaminaRevisionInfo *previous)
 {
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 4);
-  g_autofree char *u = lamina_text_u (info->u_corrected);
+  char u[LAMINA_U_TEXT_SIZE];
   g_autofree char *title = g_strdup_printf (_("Revision %d · %s · U %s"), info->revision,
-                                            lamina_text_status_name (info->status), u);
+                                            lamina_text_status_name (info->status),
+                                            lamina_format_u (u, info->u_corrected));
   g_autofree char *who = g_strdup_printf (_("Saved by %s on %s"),
                                           info->modified_by ? info->modified_by : _("unknown"),
                                           info->modified_at ? info->modified_at : "–");

@@ -280,7 +280,7 @@ lamina_results_view_update (LaminaResultsView        *self,
                             const LaminaResult       *result,
                             const char               *error)
 {
-  g_autofree char *u = NULL;
+  char u[LAMINA_U_TEXT_SIZE];
 
   g_return_if_fail (LAMINA_IS_RESULTS_VIEW (self));
 
@@ -307,8 +307,7 @@ lamina_results_view_update (LaminaResultsView        *self,
   set_figure (self, FIGURE_U, result->u, 3);
   set_figure (self, FIGURE_DELTA_U, result->delta_u, 3);
   set_figure (self, FIGURE_U_CORRECTED, result->u_corrected, 3);
-  u = lamina_text_u (result->u_corrected);
-  gtk_label_set_text (self->u_label, u);
+  gtk_label_set_text (self->u_label, lamina_format_u (u, result->u_corrected));
 
   for (guint i = 0; result->warnings != NULL && i < result->warnings->len; i++)
     {

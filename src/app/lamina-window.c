@@ -76,7 +76,7 @@ on_row_bind_cb (GtkSignalListItemFactory *factory,
   RowWidgets *w = g_object_get_data (G_OBJECT (item), "lamina-row");
   LaminaConstructionItem *row = gtk_list_item_get_item (item);
   const LaminaSummary *s;
-  g_autofree char *u = NULL;
+  char u[LAMINA_U_TEXT_SIZE];
   g_autofree char *u_text = NULL;
   g_autofree char *mm = NULL;
   g_autofree char *detail = NULL;
@@ -86,7 +86,7 @@ on_row_bind_cb (GtkSignalListItemFactory *factory,
   if (row == NULL)
     return;
   s = lamina_construction_item_get_summary (row);
-  u = lamina_text_u (s->u_corrected);
+  lamina_format_u (u, s->u_corrected);
   u_text = g_strdup_printf ("U %s", u);
   mm = lamina_text_mm (s->thickness);
   detail = g_strdup_printf ("%s · %s%s", lamina_text_element_name (s->element), mm,

@@ -195,6 +195,8 @@ lamina_cli_print_result (FILE                     *out,
                          const LaminaConstruction *c,
                          const LaminaResult       *r)
 {
+  char reported[LAMINA_U_TEXT_SIZE];
+
   fprintf (out, "%s%s%s — %s\n", c->code ? c->code : "", c->code ? " " : "", c->id, c->name);
   fprintf (out, _("  %s, heat flow %s, outer side %s\n"), lamina_element_to_string (c->element),
            lamina_heat_flow_to_string (r->heat_flow), lamina_outer_side_to_string (c->outer_side));
@@ -216,8 +218,8 @@ lamina_cli_print_result (FILE                     *out,
   fprintf (out, _("  Rsi %.2f   Rse %.2f   total thickness %.1f mm\n"), r->rsi, r->rse, r->thickness);
   fprintf (out, _("  R'T %.3f   R''T %.3f   RT %.3f m²K/W   relative error %.1f %%\n"),
            r->r_upper, r->r_lower, r->r_total, 100.0 * r->relative_error);
-  fprintf (out, _("  U %.4f   ΔU %.4f   Uc %.4f W/(m²K)   reported U = %.2g W/(m²K)\n"),
-           r->u, r->delta_u, r->u_corrected, lamina_round_significant (r->u_corrected, 2));
+  fprintf (out, _("  U %.4f   ΔU %.4f   Uc %.4f W/(m²K)   reported U = %s W/(m²K)\n"),
+           r->u, r->delta_u, r->u_corrected, lamina_format_u (reported, r->u_corrected));
   if (r->has_target)
     fprintf (out, _("  target U %.2f: %s\n"), c->target_u, r->target_met ? _("met") : _("NOT MET"));
   for (guint i = 0; i < r->warnings->len; i++)

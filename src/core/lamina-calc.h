@@ -110,10 +110,21 @@ gboolean      lamina_air_layer_resistance       (double         thickness,
                                                  double        *resistance,
                                                  GError       **error);
 
-/* Display rounding: a U to two significant figures (common reporting
- * convention stated in national guidance on EN ISO 6946). */
+/* Display rounding: a U to two significant figures (common practice
+ * for reporting U; intermediate values stay unrounded). */
 double        lamina_round_significant          (double value,
                                                  int    digits);
+
+/* Room for lamina_format_u's text. */
+#define LAMINA_U_TEXT_SIZE 32
+/* The one way a U is written for people (window, lamina-cli, sheets): two
+ * significant figures with the trailing zero kept ("0.20", not "0.2";
+ * "0.095", "1.2", "12"), in the C library's LC_NUMERIC notation (a
+ * decimal comma in Danish once setlocale has run).  "0.00" for 0 and
+ * two decimals for a negative value; an en dash for NaN or infinity.
+ * Writes into @buffer (LAMINA_U_TEXT_SIZE bytes) and returns it. */
+const char   *lamina_format_u                   (char   *buffer,
+                                                 double  u);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaResult, lamina_result_free)
 

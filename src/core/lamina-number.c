@@ -34,6 +34,12 @@ static const LaminaNumberRange ranges[LAMINA_N_FIELDS] = {
   [LAMINA_FIELD_VAPOUR_RESISTANCE]   = { N_("vapour resistance factor μ"), "", 1, 10000000, FALSE },
   [LAMINA_FIELD_SPACING]             = { N_("spacing"), "mm", 0, 100000, TRUE },
   [LAMINA_FIELD_WIDTH]               = { N_("width"), "mm", 0, 100000, TRUE },
+  [LAMINA_FIELD_VENT_AREA]           = { N_("vent area"), "mm²", 0, 1e6, FALSE },
+  [LAMINA_FIELD_AIR_GAP_LEVEL]       = { N_("air gap level"), "", 0, 2, FALSE },
+  [LAMINA_FIELD_FASTENER_AREA]       = { N_("fastener cross-section"), "mm²", 0, 10000, TRUE },
+  [LAMINA_FIELD_FASTENER_COUNT]      = { N_("fasteners per square metre"), "1/m²", 0, 1000, TRUE },
+  [LAMINA_FIELD_PRECIPITATION]       = { N_("precipitation"), "mm/day", 0, 100, FALSE },
+  [LAMINA_FIELD_DRAINAGE_FACTOR]     = { N_("drainage factor"), "", 0, 1, FALSE },
 };
 
 /* Other spellings of a unit that people type (ASCII forms). */
@@ -49,6 +55,7 @@ static const struct
   { "m²·K/W", "m2K/W" }, { "m²·K/W", "m²K/W" },
   { "°C", "C" }, { "°C", "℃" },
   { "kg/m³", "kg/m3" },
+  { "mm²", "mm2" }, { "1/m²", "1/m2" },
   { "J/(kg·K)", "J/kgK" }, { "J/(kg·K)", "J/(kgK)" },
 };
 

@@ -32,6 +32,12 @@ typedef enum
   LAMINA_FIELD_VAPOUR_RESISTANCE,    /* μ, 1 to 10000000 (dimensionless) */
   LAMINA_FIELD_SPACING,              /* framing spacing, mm, above 0 to 100000 */
   LAMINA_FIELD_WIDTH,                /* framing member width, mm, above 0 to 100000 */
+  LAMINA_FIELD_VENT_AREA,            /* air layer openings, mm² per m, 0 to 1000000 */
+  LAMINA_FIELD_AIR_GAP_LEVEL,        /* EN ISO 6946 Annex F level, 0 to 2 */
+  LAMINA_FIELD_FASTENER_AREA,        /* fastener cross-section, mm², above 0 to 10000 */
+  LAMINA_FIELD_FASTENER_COUNT,       /* fasteners per m², above 0 to 1000 */
+  LAMINA_FIELD_PRECIPITATION,        /* mm/day, 0 to 100 */
+  LAMINA_FIELD_DRAINAGE_FACTOR,      /* inverted roof f, 0 to 1 */
   LAMINA_N_FIELDS
 } LaminaNumberField;
 

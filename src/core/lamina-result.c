@@ -4,6 +4,7 @@
 #include "lamina-calc-private.h"
 
 #include <math.h>
+#include <stdio.h>
 
 G_DEFINE_BOXED_TYPE (LaminaResult, lamina_result, lamina_result_copy, lamina_result_free)
 
@@ -83,6 +84,31 @@ lamina_round_significant (double value,
   magnitude = floor (log10 (fabs (value)));
   factor = pow (10.0, digits - 1 - magnitude);
   return round (value * factor) / factor;
+}
+
+const char *
+lamina_format_u (char   *buffer,
+                 double  u)
+{
+  double rounded;
+  int decimals;
+
+  if (!isfinite (u))
+    {
+      g_strlcpy (buffer, "\xe2\x80\x93", LAMINA_U_TEXT_SIZE); /* en dash: no value */
+      return buffer;
+    }
+  if (u <= 0)
+    decimals = 2, rounded = u;
+  else
+    {
+      rounded = lamina_round_significant (u, 2);
+      /* 0.095 → 3 decimals, 0.20 → 2, 1.2 → 1, 12 → 0. */
+      decimals = CLAMP (1 - (int) floor (log10 (rounded)), 0, 6);
+    }
+  /* snprintf, not g_ascii_formatd: the reader's own decimal sign. */
+  snprintf (buffer, LAMINA_U_TEXT_SIZE, "%.*f", decimals, rounded);
+  return buffer;
 }
 
 /* Takes ownership of @message. */

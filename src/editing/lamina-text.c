@@ -13,14 +13,6 @@
 
 #include "lamina-calc.h"
 
-static const char *
-get_decimal_point (void)
-{
-  const struct lconv *conv = localeconv ();
-
-  return conv->decimal_point != NULL && *conv->decimal_point ? conv->decimal_point : ".";
-}
-
 char *
 lamina_text_number (double value,
                       int    decimals)
@@ -32,21 +24,6 @@ lamina_text_number (double value,
 }
 
 char *
-lamina_text_u (double value)
-{
-  double rounded;
-  int decimals;
-
-  if (isnan (value))
-    return g_strdup ("–");
-  if (value == 0.0)
-    return g_strdup_printf ("%.*f", 2, 0.0);
-  rounded = lamina_round_significant (value, 2);
-  decimals = 1 - (int) floor (log10 (fabs (rounded)));
-  return g_strdup_printf ("%.*f", CLAMP (decimals, 0, 6), rounded);
-}
-
-char *
 lamina_text_mm (double value)
 {
   if (isnan (value))
@@ -54,51 +31,6 @@ lamina_text_mm (double value)
   if (fabs (value - round (value)) < 1e-6)
     return g_strdup_printf ("%.0f mm", value);
   return g_strdup_printf ("%.1f mm", value);
-}
-
-gboolean
-lamina_text_parse_number (const char *text,
-                     double     *value)
-{
-  g_autofree char *copy = NULL;
-  const char *point = get_decimal_point ();
-  char *end = NULL;
-  char *p;
-  double parsed;
-
-  g_return_val_if_fail (value != NULL, FALSE);
-
-  if (text == NULL)
-    return FALSE;
-  copy = g_strstrip (g_strdup (text));
-  if (*copy == '\0')
-    return FALSE;
-
-  /* Accept both the locale's separator and a point: people paste values
-   * from data sheets written in either notation.  A Unicode minus too. */
-  for (p = copy; *p; p++)
-    {
-      if (*p == ',' || (*p == '.' && strcmp (point, ".") != 0))
-        *p = '.';
-    }
-  if (g_str_has_prefix (copy, "−"))
-    {
-      char *minus = g_strconcat ("-", copy + strlen ("−"), NULL);
-
-      g_free (copy);
-      copy = minus;
-    }
-
-  parsed = g_ascii_strtod (copy, &end);
-  if (end == copy || !isfinite (parsed))
-    return FALSE;
-  while (*end == ' ')
-    end++;
-  /* A trailing unit is allowed but nothing numeric after the number. */
-  if (*end != '\0' && (g_ascii_isdigit (*end) || *end == '.' || *end == '-'))
-    return FALSE;
-  *value = parsed;
-  return TRUE;
 }
 
 gboolean

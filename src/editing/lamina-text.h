@@ -12,16 +12,11 @@ G_BEGIN_DECLS
 /* @value with @decimals decimals in the locale's notation; "–" for NAN. */
 char     *lamina_text_number    (double       value,
                                    int          decimals);
-/* A U value to two significant figures (common reporting convention). */
-char     *lamina_text_u         (double       value);
+/* A U value: lamina_format_u (lamina-calc.h). */
 /* "%s mm" with no decimals unless the value has a fraction. */
 char     *lamina_text_mm        (double       value);
 
-/* Parses what a user typed: the locale's decimal separator, or a point,
- * with an optional trailing unit word ("mm", "W/(m·K)") which is ignored.
- * FALSE for empty or malformed text. */
-gboolean  lamina_text_parse_number     (const char  *text,
-                                   double      *value);
+/* What a user typed is parsed by lamina_number_parse (lamina-number.h). */
 
 /* TRUE for NULL, empty or only white space. */
 gboolean  lamina_text_is_blank    (const char  *text);

@@ -55,20 +55,6 @@ lamina_format_thickness (char   *buffer,
 }
 
 const char *
-lamina_format_u (char   *buffer,
-                 double  u)
-{
-  double rounded;
-  int decimals;
-
-  if (!isfinite (u) || u <= 0)
-    return lamina_format_fixed (buffer, u, 2);
-  rounded = lamina_round_significant (u, 2);
-  decimals = 1 - (int) floor (log10 (rounded));
-  return lamina_format_fixed (buffer, rounded, MAX (decimals, 0));
-}
-
-const char *
 lamina_format_temperature (char   *buffer,
                            double  celsius)
 {

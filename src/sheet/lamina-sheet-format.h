@@ -8,6 +8,8 @@
 
 #include <glib.h>
 
+#include "lamina-calc.h"
+
 G_BEGIN_DECLS
 
 #define LAMINA_FORMAT_SIZE 48
@@ -19,9 +21,8 @@ const char *lamina_format_fixed       (char   *buffer,
 /* A thickness in mm: whole millimetres, or one decimal when needed. */
 const char *lamina_format_thickness   (char   *buffer,
                                        double  millimetres);
-/* A U value to two significant figures (lamina_round_significant). */
-const char *lamina_format_u           (char   *buffer,
-                                       double  u);
+/* A U value: lamina_format_u (lamina-calc.h), the one formatter the
+ * window, lamina-cli and the sheets share. */
 /* A temperature with one decimal and " °C". */
 const char *lamina_format_temperature (char   *buffer,
                                        double  celsius);

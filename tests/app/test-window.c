@@ -147,7 +147,7 @@ test_drag_updates_u (Fixture       *f,
   g_autofree char *id = NULL;
   g_autoptr(LaminaResult) before = NULL;
   g_autoptr(LaminaResult) after = NULL;
-  g_autofree char *expected = NULL;
+  char expected[LAMINA_U_TEXT_SIZE];
   LaminaSectionView *view;
   const LaminaLayer *layer;
   double x, y, d0, lambda, d1;
@@ -186,8 +186,7 @@ test_drag_updates_u (Fixture       *f,
   g_assert_cmpfloat_with_epsilon (1 / after->u - 1 / before->u, (d1 - d0) / 1000.0 / lambda, 1e-9);
   /* The U on screen is that U to two significant figures, and the U
    * stored is the same figure. */
-  expected = lamina_text_u (after->u_corrected);
-  g_assert_cmpstr (shown_u (f), ==, expected);
+  g_assert_cmpstr (shown_u (f), ==, lamina_format_u (expected, after->u_corrected));
   g_assert_cmpfloat_with_epsilon (stored_u (f, id), after->u_corrected, 1e-12);
 
   /* Undo brings back both, redo both again. */
@@ -600,7 +599,7 @@ test_bridged_parts (Fixture       *f,
   g_autoptr(LaminaConstruction) by_hand = NULL;
   g_autoptr(LaminaResult) expected = NULL;
   g_autofree char *id = NULL;
-  g_autofree char *expected_u = NULL;
+  char expected_u[LAMINA_U_TEXT_SIZE];
   LaminaEditor *editor = lamina_window_get_editor (f->window);
   const LaminaMaterial *timber = find_timber (materials);
   const LaminaLayer *layer;
@@ -665,8 +664,7 @@ test_bridged_parts (Fixture       *f,
   g_assert_cmpfloat_with_epsilon (lamina_document_get_result (lamina_editor_get_document (editor))->u_corrected,
                                   expected->u_corrected, 1e-12);
   g_assert_cmpfloat_with_epsilon (stored_u (f, id), expected->u_corrected, 1e-12);
-  expected_u = lamina_text_u (expected->u_corrected);
-  g_assert_cmpstr (shown_u (f), ==, expected_u);
+  g_assert_cmpstr (shown_u (f), ==, lamina_format_u (expected_u, expected->u_corrected));
   /* Three sections through the layer, so the two limits differ. */
   g_assert_cmpfloat (expected->r_upper, >, expected->r_lower);
 

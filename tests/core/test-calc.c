@@ -288,16 +288,28 @@ test_temperatures (void)
   assert_close (r->surface_temperature_outer, -10 + 30 * 0.04 / rt, 1e-6);
 }
 
-/* A U is reported to two significant figures (national guidance restating
- * EN ISO 6946). */
+/* A U is reported to two significant figures (common practice; the
+ * figures below are rounded by hand). */
 static void
 test_rounding (void)
 {
+  char u[LAMINA_U_TEXT_SIZE];
+
   g_assert_cmpfloat_with_epsilon (lamina_round_significant (0.310049, 2), 0.31, 1e-12);
   g_assert_cmpfloat_with_epsilon (lamina_round_significant (0.2449, 2), 0.24, 1e-12);
   g_assert_cmpfloat_with_epsilon (lamina_round_significant (1.234, 2), 1.2, 1e-12);
   g_assert_cmpfloat_with_epsilon (lamina_round_significant (0.0876, 2), 0.088, 1e-12);
   g_assert_cmpfloat_with_epsilon (lamina_round_significant (0.1351, 2), 0.14, 1e-12);
+  /* The one text form of a U (window, lamina-cli, sheets): the trailing
+   * zero stays, so 0.20 does not read as a one-figure value. */
+  g_assert_cmpstr (lamina_format_u (u, 0.1849), ==, "0.18");
+  g_assert_cmpstr (lamina_format_u (u, 0.2), ==, "0.20");
+  g_assert_cmpstr (lamina_format_u (u, 0.19951), ==, "0.20");
+  g_assert_cmpstr (lamina_format_u (u, 0.0952), ==, "0.095");
+  g_assert_cmpstr (lamina_format_u (u, 2.149), ==, "2.1");
+  g_assert_cmpstr (lamina_format_u (u, 12.4), ==, "12");
+  g_assert_cmpstr (lamina_format_u (u, 0), ==, "0.00");
+  g_assert_cmpstr (lamina_format_u (u, NAN), ==, "\xe2\x80\x93");
 }
 
 /* More insulation, lower U (invariant). */
