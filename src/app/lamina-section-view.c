@@ -49,7 +49,7 @@ struct _LaminaSectionView
 
   /* during a drag */
   int                       drag_edge;       /* −1 when not dragging */
-  double                    drag_start_thickness;
+  double                    drag_x0, drag_y0;   /* the boundary where it began */
   double                    drag_scale;
   double                    drag_anchor;     /* inner face on the axis */
   double                    drag_thickness;
@@ -73,23 +73,6 @@ enum {
 
 static GParamSpec *properties[N_PROPS];
 static guint signals[N_SIGNALS];
-
-static double
-get_axis_delta (LaminaSectionView *self,
-                double             dx,
-                double             dy)
-{
-  switch (self->layout.orientation)
-    {
-    case LAMINA_SECTION_UPWARD:
-      return -dy;
-    case LAMINA_SECTION_DOWNWARD:
-      return dy;
-    case LAMINA_SECTION_ACROSS:
-    default:
-      return dx;
-    }
-}
 
 static double
 get_scale (LaminaSectionView *self,
@@ -628,8 +611,10 @@ lamina_section_view_drag_begin (LaminaSectionView *self,
     return FALSE;
 
   layer = g_ptr_array_index (self->construction->layers, index - 1);
+  /* From the boundary itself, not the pointer a few pixels off it, so
+   * that the layer keeps its thickness until the pointer moves. */
+  lamina_section_view_get_boundary_point (self, index, &self->drag_x0, &self->drag_y0);
   self->drag_edge = (int) index;
-  self->drag_start_thickness = layer->thickness;
   self->drag_thickness = layer->thickness;
   self->drag_scale = self->layout.scale;
   self->drag_anchor = self->layout.edges[0];
@@ -656,9 +641,12 @@ lamina_section_view_drag_update (LaminaSectionView *self,
 
   if (self->drag_edge < 0)
     return;
-  thickness = lamina_edit_drag_thickness (self->drag_start_thickness,
-                                          get_axis_delta (self, dx, dy),
-                                          self->drag_scale, get_step (self, fine));
+  /* The layout is frozen in scale with its inner face pinned while
+   * dragging (compute_layout), so its own geometry turns the pointer
+   * into a thickness whatever the drawing's orientation. */
+  thickness = lamina_section_layout_drag_thickness (&self->layout, (guint) self->drag_edge,
+                                                    self->drag_x0 + dx, self->drag_y0 + dy, 0.0);
+  thickness = lamina_edit_snap (thickness, get_step (self, fine));
   if (thickness == self->drag_thickness)
     return;
   self->drag_thickness = thickness;

@@ -55,17 +55,6 @@ lamina_edit_snap (double thickness,
   return CLAMP (snapped, minimum, LAMINA_EDIT_MAX_THICKNESS);
 }
 
-double
-lamina_edit_drag_thickness (double start_thickness,
-                            double delta_px,
-                            double px_per_mm,
-                            double step)
-{
-  g_return_val_if_fail (px_per_mm > 0, start_thickness);
-
-  return lamina_edit_snap (start_thickness + delta_px / px_per_mm, step);
-}
-
 LaminaConstruction *
 lamina_edit_set_thickness (const LaminaConstruction *state,
                            guint                     index,

@@ -28,14 +28,6 @@ GQuark lamina_edit_error_quark (void);
 double lamina_edit_snap (double thickness,
                          double step);
 
-/* The thickness a boundary drag gives: the layer's thickness when the drag
- * began plus the pointer travel converted to mm (@delta_px / @px_per_mm),
- * snapped to @step. */
-double lamina_edit_drag_thickness (double start_thickness,
-                                   double delta_px,
-                                   double px_per_mm,
-                                   double step);
-
 LaminaConstruction *lamina_edit_set_thickness  (const LaminaConstruction *state,
                                                 guint                     index,
                                                 double                    thickness,
