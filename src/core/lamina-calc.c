@@ -357,7 +357,7 @@ apply_corrections (const Calc   *calc,
         }
       /* F.2: ΔUg = ΔU'' (R1 / RT)² */
       if (k->has_air_gaps)
-        result->delta_u_air_gaps += air_gap_delta_u[k->air_gap_level] * share * share;
+        result->layers[i].delta_u_air_gaps = air_gap_delta_u[k->air_gap_level] * share * share;
       /* F.3: ΔUf = α λf Af nf / d0 · (R1 / RT,h)² */
       if (k->has_fasteners)
         {
@@ -372,14 +372,18 @@ apply_corrections (const Calc   *calc,
                              ? FASTENER_ALPHA
                              : FASTENER_ALPHA * k->fastener_penetration / layer->thickness;
 
-              result->delta_u_fasteners += alpha * k->fastener_conductivity
-                                           * k->fastener_cross_section * 1e-6
-                                           * k->fasteners_per_square_metre / d0 * share * share;
+              result->layers[i].delta_u_fasteners = alpha * k->fastener_conductivity
+                                                    * k->fastener_cross_section * 1e-6
+                                                    * k->fasteners_per_square_metre / d0 * share * share;
             }
         }
       /* F.4: ΔUr = p f x (R1 / RT)² */
       if (k->has_inverted_roof)
-        result->delta_u_inverted_roof += k->precipitation * k->drainage_factor * INVERTED_ROOF_X * share * share;
+        result->layers[i].delta_u_inverted_roof = k->precipitation * k->drainage_factor * INVERTED_ROOF_X
+                                                  * share * share;
+      result->delta_u_air_gaps += result->layers[i].delta_u_air_gaps;
+      result->delta_u_fasteners += result->layers[i].delta_u_fasteners;
+      result->delta_u_inverted_roof += result->layers[i].delta_u_inverted_roof;
     }
   result->delta_u = result->delta_u_air_gaps + result->delta_u_fasteners + result->delta_u_inverted_roof;
   result->u_corrected = result->u + result->delta_u;

@@ -36,6 +36,11 @@ typedef struct
   gboolean disregarded;        /* outside a well-ventilated air layer */
   double   temperature_inner;  /* °C at the inner face, design conditions */
   double   temperature_outer;  /* °C at the outer face */
+  /* This layer's share of the Annex F corrections, W/(m²·K) (0 when it
+   * has none): the sheet itemises ΔU by layer. */
+  double   delta_u_air_gaps;
+  double   delta_u_fasteners;
+  double   delta_u_inverted_roof;
 } LaminaLayerResult;
 
 typedef struct
@@ -72,6 +77,10 @@ LaminaResult *lamina_result_copy     (const LaminaResult *result);
 void          lamina_result_free     (LaminaResult       *result);
 gboolean      lamina_result_has_warning (const LaminaResult *result,
                                          LaminaWarningKind   kind);
+/* TRUE for what the method does as a matter of course and only needs
+ * saying (layers disregarded outside a well-ventilated layer, a small or
+ * no fastener correction): shown under "Notes", not "Warnings". */
+gboolean      lamina_warning_kind_is_note (LaminaWarningKind kind);
 
 /* Validates @construction and calculates it.  Returns NULL with @error set
  * (LAMINA_CALC_ERROR) when a value is invalid or the construction is

@@ -62,6 +62,24 @@ lamina_result_has_warning (const LaminaResult *result,
   return FALSE;
 }
 
+gboolean
+lamina_warning_kind_is_note (LaminaWarningKind kind)
+{
+  switch (kind)
+    {
+    case LAMINA_WARNING_LAYERS_DISREGARDED:
+    case LAMINA_WARNING_CORRECTION_SMALL:
+    case LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY:
+      return TRUE;
+    case LAMINA_WARNING_RATIO_OUT_OF_RANGE:
+    case LAMINA_WARNING_METAL_BRIDGED_INSULATION:
+    case LAMINA_WARNING_VENT_CLASS:
+    case LAMINA_WARNING_TARGET_NOT_MET:
+    default:
+      return FALSE;
+    }
+}
+
 LaminaResult *
 lamina_result_new (guint n_layers)
 {

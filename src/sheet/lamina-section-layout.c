@@ -24,6 +24,34 @@ lamina_section_orientation_for_element (LaminaElement element)
     }
 }
 
+LaminaSectionOrientation
+lamina_section_orientation_for (const LaminaConstruction *construction)
+{
+  LaminaSectionOrientation by_element;
+
+  g_return_val_if_fail (construction != NULL, LAMINA_SECTION_ACROSS);
+
+  by_element = lamina_section_orientation_for_element (construction->element);
+  if (by_element == LAMINA_SECTION_ACROSS)
+    return by_element;
+  /* Layers run from the heated side: heat flowing down (a ceiling over a
+   * cellar, a floor over an open passage) puts the inside on top, heat
+   * flowing up (a roof, a ceiling under a cold loft) puts it below.  A
+   * horizontal flow on a horizontal element (a steep roof taken as
+   * horizontal, EN ISO 6946 6.8) keeps the element's own way up. */
+  switch (construction->heat_flow)
+    {
+    case LAMINA_HEAT_FLOW_UPWARD:
+      return LAMINA_SECTION_UPWARD;
+    case LAMINA_HEAT_FLOW_DOWNWARD:
+      return LAMINA_SECTION_DOWNWARD;
+    case LAMINA_HEAT_FLOW_HORIZONTAL:
+    case LAMINA_N_HEAT_FLOWS:
+    default:
+      return by_element;
+    }
+}
+
 void
 lamina_section_style_init (LaminaSectionStyle *style,
                            double              unit)
@@ -87,7 +115,7 @@ lamina_section_fit_scale (const LaminaConstruction *construction,
 
   g_return_val_if_fail (construction != NULL && style != NULL, 0.0);
 
-  orientation = lamina_section_orientation_for_element (construction->element);
+  orientation = lamina_section_orientation_for (construction);
   lamina_section_get_margins (orientation, style, &m);
   get_axes (orientation, width, height, &t_extent, &s_extent);
   thickness = lamina_construction_get_thickness (construction);
@@ -132,7 +160,7 @@ lamina_section_layout_compute (LaminaSectionLayout      *layout,
       layout->capacity = MAX (n + 1, 16);
       layout->edges = g_renew (double, layout->edges, layout->capacity);
     }
-  layout->orientation = lamina_section_orientation_for_element (construction->element);
+  layout->orientation = lamina_section_orientation_for (construction);
   layout->x = x;
   layout->y = y;
   layout->width = width;
@@ -341,5 +369,32 @@ lamina_section_spread (const double *want,
       guint f = (guint) first[c], l = c + 1 < top ? (guint) first[c + 1] : n;
       for (guint j = f; j < l; j++)
         pos[j] = start[c] + off[j] - off[f];
+    }
+}
+
+void
+lamina_section_spread_within (const double *want,
+                              const double *size,
+                              guint         n,
+                              double        gap,
+                              double        lo,
+                              double        hi,
+                              double       *pos,
+                              double       *scratch)
+{
+  lamina_section_spread (want, size, n, gap, pos, scratch);
+  if (n == 0)
+    return;
+  /* Pushed in from the ends, then apart again from the first: when the
+   * labels fit between @lo and @hi none crosses an end or another. */
+  for (guint j = n; j-- > 0;)
+    {
+      double limit = j + 1 < n ? pos[j + 1] - (size[j] + size[j + 1]) / 2 - gap : hi - size[j] / 2;
+      pos[j] = MIN (pos[j], limit);
+    }
+  for (guint j = 0; j < n; j++)
+    {
+      double limit = j > 0 ? pos[j - 1] + (size[j - 1] + size[j]) / 2 + gap : lo + size[j] / 2;
+      pos[j] = MAX (pos[j], limit);
     }
 }

@@ -44,5 +44,15 @@ void   lamina_section_spread            (const double *want,
                                          double        gap,
                                          double       *pos,
                                          double       *scratch);
+/* The same, kept between @lo and @hi (the ends of the dimension chain,
+ * whose extension lines a label must not cross) where they fit. */
+void   lamina_section_spread_within     (const double *want,
+                                         const double *size,
+                                         guint         n,
+                                         double        gap,
+                                         double        lo,
+                                         double        hi,
+                                         double       *pos,
+                                         double       *scratch);
 
 G_END_DECLS

@@ -7,6 +7,7 @@
 #include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
+#include <cairo-svg.h>
 #include <pango/pangocairo.h>
 
 #include "lamina-hatch.h"
@@ -15,6 +16,8 @@
 #define OUTLINE 0.14
 #define LINE    0.09
 #define FINE    0.045
+/* A dimension moved off its layer: how far out from the chain, in units. */
+#define LEADER_OUT 1.05
 
 struct _LaminaSection
 {
@@ -26,7 +29,7 @@ struct _LaminaSection
                                       hash the texts were laid out for */
   PangoFontDescription *font;
   PangoFontDescription *font_bold;
-  double               *scratch;   /* 7 × capacity doubles */
+  double               *scratch;   /* 8 × capacity doubles */
   guint                 capacity;
   GPtrArray            *members;   /* borrowed member names, per draw */
   LaminaHatchCache     *hatches;
@@ -85,7 +88,7 @@ reserve_scratch (LaminaSection *self,
   if (self->capacity >= n)
     return;
   self->capacity = MAX (n, 32);
-  self->scratch = g_renew (double, self->scratch, 7 * self->capacity);
+  self->scratch = g_renew (double, self->scratch, 8 * self->capacity);
 }
 
 /* Text */
@@ -264,7 +267,7 @@ draw_air_label (LaminaSection     *self,
   cairo_save (cr);
   cairo_translate (cr, (t0 + t1) / 2, length / 2);
   cairo_rotate (cr, G_PI / 2);
-  cairo_set_source_rgb (cr, 0.2, 0.2, 0.2);
+  cairo_set_source_rgb (cr, 0, 0, 0);
   cairo_move_to (cr, -w / 2, -h / 2);
   pango_cairo_show_layout (cr, self->layout);
   cairo_restore (cr);
@@ -368,8 +371,6 @@ draw_layer (LaminaSection     *self,
     }
   lamina_hatch_fill (cr, self->hatches, get_layer_category (layer), LAMINA_HATCH_LAYER,
                      t0, 0, t1 - t0, length, unit, index * 7);
-  if (layer->kind == LAMINA_LAYER_AIR)
-    draw_air_label (self, cr, layer, t0, t1, length, unit);
 }
 
 static void
@@ -401,6 +402,9 @@ draw_body (LaminaSection             *self,
           cairo_rectangle (cr, t0, 0, t1 - t0, length);
           cairo_fill (cr);
         }
+      /* Over the veil of a disregarded layer: a label must print dark. */
+      if (layer->kind == LAMINA_LAYER_AIR)
+        draw_air_label (self, cr, layer, t0, t1, length, u);
       if ((int) i == style->highlight_layer)
         {
           cairo_set_source_rgba (cr, 0.16, 0.42, 0.85, 0.16);
@@ -541,6 +545,8 @@ draw_chain (LaminaSection             *self,
   double u = style->unit, size = u * 0.85;
   double chain = -1.6 * u, outer = layout->orientation == LAMINA_SECTION_ACROSS ? -4.2 * u : -5.6 * u;
   double *want = self->scratch, *extent = want + self->capacity, *pos = extent + self->capacity;
+  /* The spread's scratch takes 3 × capacity after pos; the flags follow. */
+  double *moved = pos + 4 * self->capacity;
   gboolean across = layout->orientation == LAMINA_SECTION_ACROSS;
   guint n = layout->n_layers;
   char text[LAMINA_FORMAT_SIZE];
@@ -554,7 +560,13 @@ draw_chain (LaminaSection             *self,
       measure_text (self, text, size, &w, &h);
       extent[i] = across ? w : h * 0.8;
     }
-  spread_labels (self, layout, n, u * 0.25);
+  /* Kept between the end extension lines; a label too big for its layer
+   * goes out beyond the ends of the inner extension lines on a leader. */
+  lamina_section_spread_within (want, extent, n, u * 0.25, u * 0.15, edge_t (layout, n) - u * 0.15,
+                                pos, pos + self->capacity);
+  for (guint i = 0; i < n; i++)
+    moved[i] = fabs (pos[i] - want[i]) > u * 0.1
+               || edge_t (layout, i + 1) - edge_t (layout, i) < extent[i] + u * 0.3;
 
   /* Lines in the local frame. */
   cairo_save (cr);
@@ -589,20 +601,20 @@ draw_chain (LaminaSection             *self,
   cairo_stroke (cr);
   cairo_set_line_width (cr, u * FINE);
   for (guint i = 0; i < n; i++)
-    if (fabs (pos[i] - want[i]) > u * 0.1)
+    if (moved[i])
       {
         cairo_move_to (cr, want[i], chain);
-        cairo_line_to (cr, pos[i], chain - 0.55 * u);
+        cairo_line_to (cr, want[i], chain - 0.5 * u);
+        cairo_line_to (cr, pos[i], chain - LEADER_OUT * u + 0.1 * u);
       }
   cairo_stroke (cr);
   cairo_restore (cr);
 
   for (guint i = 0; i < n; i++)
     {
-      gboolean moved = fabs (pos[i] - want[i]) > u * 0.1;
       lamina_format_thickness (text, ((LaminaLayer *) construction->layers->pdata[i])->thickness);
       draw_label_at (self, cr, layout, text, TEXT_REGULAR, size,
-                     pos[i], chain - (moved ? 0.55 : 0.2) * u, 0, -1);
+                     pos[i], chain - (moved[i] ? LEADER_OUT : 0.2) * u, 0, -1);
     }
   lamina_format_thickness (text, layout->thickness);
   draw_label_at (self, cr, layout, text, TEXT_BOLD, size,
@@ -751,6 +763,73 @@ lamina_section_draw (LaminaSection             *self,
   cairo_restore (cr);
 }
 
+static void
+render_whole (cairo_t                  *cr,
+              const LaminaConstruction *construction,
+              const LaminaResult       *result,
+              int                       width,
+              int                       height)
+{
+  g_autoptr(LaminaSection) painter = lamina_section_new ();
+  LaminaSectionLayout layout;
+  LaminaSectionStyle style;
+
+  lamina_section_style_init (&style, CLAMP (MIN (width, height) / 38.0, 9.0, 20.0));
+  lamina_section_layout_init (&layout);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  lamina_section_layout_compute (&layout, construction, &style, 0, 0, width, height);
+  lamina_section_draw (painter, cr, &layout, construction, result, &style);
+  lamina_section_layout_clear (&layout);
+}
+
+/* One writer for both formats: an image surface saved as PNG, or an SVG
+ * surface, whose write errors show only once it is finished. */
+static gboolean
+write_file (const LaminaConstruction *construction,
+            const LaminaResult       *result,
+            int                       width,
+            int                       height,
+            const char               *path,
+            gboolean                  svg,
+            GError                  **error)
+{
+  cairo_surface_t *surface;
+  cairo_status_t status;
+  cairo_t *cr;
+
+  g_return_val_if_fail (construction != NULL && path != NULL, FALSE);
+  g_return_val_if_fail (width > 0 && height > 0, FALSE);
+
+  if (svg)
+    {
+      surface = cairo_svg_surface_create (path, width, height);
+      /* Pixel units: a drawing program takes the size the PNG has. */
+      cairo_svg_surface_set_document_unit (surface, CAIRO_SVG_UNIT_PX);
+    }
+  else
+    surface = cairo_image_surface_create (CAIRO_FORMAT_RGB24, width, height);
+  cr = cairo_create (surface);
+  render_whole (cr, construction, result, width, height);
+  cairo_destroy (cr);
+  if (svg)
+    {
+      cairo_surface_finish (surface);
+      status = cairo_surface_status (surface);
+    }
+  else
+    status = cairo_surface_write_to_png (surface, path);
+  cairo_surface_destroy (surface);
+  if (status != CAIRO_STATUS_SUCCESS)
+    {
+      g_set_error (error, G_FILE_ERROR, G_FILE_ERROR_FAILED,
+                   svg ? _("%s: cannot write the SVG: %s") : _("%s: cannot write the PNG: %s"),
+                   path, cairo_status_to_string (status));
+      return FALSE;
+    }
+  return TRUE;
+}
+
 gboolean
 lamina_section_write_png (const LaminaConstruction *construction,
                           const LaminaResult       *result,
@@ -759,33 +838,16 @@ lamina_section_write_png (const LaminaConstruction *construction,
                           const char               *path,
                           GError                  **error)
 {
-  g_autoptr(LaminaSection) painter = lamina_section_new ();
-  LaminaSectionLayout layout;
-  LaminaSectionStyle style;
-  cairo_surface_t *surface;
-  cairo_status_t status;
-  cairo_t *cr;
+  return write_file (construction, result, width, height, path, FALSE, error);
+}
 
-  g_return_val_if_fail (construction != NULL && path != NULL, FALSE);
-  g_return_val_if_fail (width > 0 && height > 0, FALSE);
-
-  lamina_section_style_init (&style, CLAMP (MIN (width, height) / 38.0, 9.0, 20.0));
-  lamina_section_layout_init (&layout);
-  surface = cairo_image_surface_create (CAIRO_FORMAT_RGB24, width, height);
-  cr = cairo_create (surface);
-  cairo_set_source_rgb (cr, 1, 1, 1);
-  cairo_paint (cr);
-  lamina_section_layout_compute (&layout, construction, &style, 0, 0, width, height);
-  lamina_section_draw (painter, cr, &layout, construction, result, &style);
-  cairo_destroy (cr);
-  status = cairo_surface_write_to_png (surface, path);
-  cairo_surface_destroy (surface);
-  lamina_section_layout_clear (&layout);
-  if (status != CAIRO_STATUS_SUCCESS)
-    {
-      g_set_error (error, G_FILE_ERROR, G_FILE_ERROR_FAILED,
-                   _("%s: cannot write the PNG: %s"), path, cairo_status_to_string (status));
-      return FALSE;
-    }
-  return TRUE;
+gboolean
+lamina_section_write_svg (const LaminaConstruction *construction,
+                          const LaminaResult       *result,
+                          int                       width,
+                          int                       height,
+                          const char               *path,
+                          GError                  **error)
+{
+  return write_file (construction, result, width, height, path, TRUE, error);
 }

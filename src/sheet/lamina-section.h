@@ -2,10 +2,11 @@
 /* lamina-section.h: the section drawing of a construction, on any cairo
  * surface (screen, PNG, PDF).
  *
- * Orientation (one rule, by element): walls and partitions are drawn as a
- * plan section with the layers left → right from inside to outside; roofs
- * and ceilings as a vertical section with the inside at the bottom; floors
- * with the inside at the top.  The layers are to scale along the thickness
+ * Orientation: walls and partitions are drawn as a plan section with the
+ * layers left → right from inside to outside; roofs, ceilings and floors as
+ * a vertical section with the heated side where it is in the building: the
+ * inside at the bottom when the heat flows up, at the top when it flows
+ * down (a ceiling over a cellar).  The layers are to scale along the thickness
  * axis; the body is a strip of the construction whose length fills the
  * rectangle.  Around the body: inside/outside with the design
  * temperatures, a dimension chain (each thickness and the total) on one
@@ -72,7 +73,11 @@ typedef enum
 
 typedef struct _LaminaSection LaminaSection;
 
+/* The element's usual way up (its default direction of heat flow). */
 LaminaSectionOrientation lamina_section_orientation_for_element (LaminaElement element);
+/* The way the construction is drawn: by its element and, for horizontal
+ * elements, by its direction of heat flow. */
+LaminaSectionOrientation lamina_section_orientation_for (const LaminaConstruction *construction);
 
 void     lamina_section_style_init   (LaminaSectionStyle        *style,
                                       double                     unit);
@@ -125,6 +130,15 @@ void           lamina_section_draw   (LaminaSection             *self,
 /* Renders a whole section to a PNG file of @width × @height pixels on
  * white. */
 gboolean       lamina_section_write_png (const LaminaConstruction *construction,
+                                         const LaminaResult       *result,
+                                         int                       width,
+                                         int                       height,
+                                         const char               *path,
+                                         GError                  **error);
+
+/* The same drawing as an SVG of @width × @height px, for the office's
+ * drawings: lines and text stay vectors. */
+gboolean       lamina_section_write_svg (const LaminaConstruction *construction,
                                          const LaminaResult       *result,
                                          int                       width,
                                          int                       height,

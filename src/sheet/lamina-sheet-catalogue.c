@@ -21,6 +21,7 @@ sheet_draw_cover (SheetContext *ctx,
                                                          "%u constructions", n), n);
   g_autofree char *printed = g_strdup_printf (_("Printed %s"), ctx->printed);
 
+  g_clear_pointer (&ctx->footer, g_free);
   sheet_draw_frame (ctx, FALSE);
   cairo_set_line_width (ctx->cr, 2.0);
   cairo_move_to (ctx->cr, ctx->left, y - 14);
@@ -33,8 +34,6 @@ sheet_draw_cover (SheetContext *ctx,
   y += sheet_text (ctx, SHEET_FONT_TITLE, _("Thermal transmittance of building elements by EN ISO 6946:2017"),
                    ctx->left, y, w * 0.8, PANGO_ALIGN_LEFT) + 24;
   y += sheet_text (ctx, SHEET_FONT_BODY, count, ctx->left, y, w, PANGO_ALIGN_LEFT) + 2;
-  if (ctx->options->library)
-    y += sheet_text (ctx, SHEET_FONT_BODY, ctx->options->library, ctx->left, y, w, PANGO_ALIGN_LEFT) + 2;
   sheet_text (ctx, SHEET_FONT_BODY, printed, ctx->left, y, w, PANGO_ALIGN_LEFT);
 
   cairo_set_source_rgb (ctx->cr, ctx->grey, ctx->grey, ctx->grey);
@@ -87,6 +86,7 @@ sheet_draw_index (SheetContext          *ctx,
   double x_d = ctx->right - 56, x_page = ctx->right;
   guint rows = sheet_index_rows_per_page (ctx, first == 0), i;
 
+  g_clear_pointer (&ctx->footer, g_free);
   sheet_draw_frame (ctx, FALSE);
   if (first == 0)
     {

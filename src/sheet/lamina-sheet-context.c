@@ -20,7 +20,7 @@ static const struct
   [SHEET_FONT_BODY] = { "DejaVu Sans Condensed", 8.0 },
   [SHEET_FONT_BOLD] = { "DejaVu Sans Condensed Bold", 8.0 },
   [SHEET_FONT_SMALL] = { "DejaVu Sans Condensed", 6.6 },
-  [SHEET_FONT_LABEL] = { "DejaVu Sans Condensed", 5.8 },
+  [SHEET_FONT_LABEL] = { "DejaVu Sans Condensed", 6.2 },
   [SHEET_FONT_HEADING] = { "DejaVu Sans Condensed Bold", 8.6 },
   [SHEET_FONT_TITLE] = { "DejaVu Sans", 14.0 },
   [SHEET_FONT_CODE] = { "DejaVu Sans Bold", 20.0 },
@@ -118,7 +118,8 @@ sheet_context_init (SheetContext             *ctx,
   ctx->right = ctx->width - 14 * mm;
   ctx->top = 13 * mm;
   ctx->bottom = ctx->height - 12 * mm;
-  ctx->grey = 0.38;
+  /* Dark enough for small print on an office laser printer. */
+  ctx->grey = 0.3;
 
   ctx->layout = pango_cairo_create_layout (cr);
   context = pango_layout_get_context (ctx->layout);
@@ -148,6 +149,7 @@ void
 sheet_context_clear (SheetContext *ctx)
 {
   g_clear_object (&ctx->layout);
+  g_clear_pointer (&ctx->footer, g_free);
   for (guint i = 0; i < SHEET_N_FONTS; i++)
     g_clear_pointer (&ctx->fonts[i], pango_font_description_free);
   g_clear_pointer (&ctx->section, lamina_section_free);
@@ -281,12 +283,22 @@ sheet_draw_footer (SheetContext *ctx)
   g_autofree char *printed = g_strdup_printf (_("Printed %s · Lamina %s"), ctx->printed, PACKAGE_VERSION);
   g_autofree char *page = g_strdup_printf (_("Page %u of %u"), ctx->page, ctx->n_pages);
 
+  g_autofree char *what = NULL;
+
+  /* What the page is, never where the file lives: a path on a sheet sent
+   * out names someone's disk. */
+  if (ctx->footer == NULL)
+    {
+      const char *title = ctx->options->title ? ctx->options->title : _("Construction catalogue");
+      what = ctx->options->practice ? g_strdup_printf ("%s · %s", ctx->options->practice, title)
+                                    : g_strdup (title);
+    }
   sheet_rule (ctx, y - 4, 0.5, 0);
   cairo_set_source_rgb (cr, ctx->grey, ctx->grey, ctx->grey);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->library ? ctx->options->library : "",
-                   ctx->left, y, third, PANGO_ALIGN_LEFT);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, printed, ctx->left + third, y, third, PANGO_ALIGN_CENTER);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, page, ctx->left + 2 * third, y, third, PANGO_ALIGN_RIGHT);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->footer ? ctx->footer : what,
+                   ctx->left, y, third * 1.3, PANGO_ALIGN_LEFT);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, printed, ctx->left + third * 1.3, y, third * 0.9, PANGO_ALIGN_CENTER);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, page, ctx->left + 2.2 * third, y, third * 0.8, PANGO_ALIGN_RIGHT);
   cairo_set_source_rgb (cr, 0, 0, 0);
 }
 

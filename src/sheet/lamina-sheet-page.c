@@ -1,9 +1,10 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* lamina-sheet-page.c: the specification sheet of one construction.
  *
- * From the top: header (practice, code, name, library data), the section
- * drawing, the layer table, the results with the target, warnings, notes,
- * and at the foot the method statement and the cautions.  The section
+ * From the top: header (practice, code, name, review), the section
+ * drawing, the layer table, the results with the target, warnings, the
+ * corrections that make up ΔU, notes, and at the foot the method
+ * statement and the cautions.  The section
  * takes whatever height the other blocks leave. */
 #define G_LOG_DOMAIN "lamina-sheet"
 
@@ -54,7 +55,7 @@ date_part (const char *iso,
            char       *buffer)
 {
   if (iso == NULL || strlen (iso) < 10)
-    return "\xe2\x80\x93";
+    return "\xe2\x80\x94";
   memcpy (buffer, iso, 10);
   buffer[10] = '\0';
   return buffer;
@@ -66,15 +67,24 @@ static void
 draw_field (SheetContext *ctx,
             const char   *label,
             const char   *value,
+            const char   *when,
             double        x,
             double        y,
             double        width)
 {
+  char date[16];
+
   set_grey (ctx);
   sheet_text_line (ctx, SHEET_FONT_LABEL, label, x, y, width - 4, PANGO_ALIGN_LEFT);
   set_black (ctx);
-  sheet_text_line (ctx, SHEET_FONT_BODY, value && *value ? value : "\xe2\x80\x93",
+  sheet_text_line (ctx, SHEET_FONT_BODY, value && *value ? value : "\xe2\x80\x94",
                    x, y + 8, width - 4, PANGO_ALIGN_LEFT);
+  if (when && value && *value)
+    {
+      set_grey (ctx);
+      sheet_text_line (ctx, SHEET_FONT_SMALL, date_part (when, date), x, y + 18, width - 4, PANGO_ALIGN_LEFT);
+      set_black (ctx);
+    }
 }
 
 static double
@@ -85,8 +95,6 @@ draw_header (SheetContext             *ctx,
   double w = ctx->right - ctx->left, y = ctx->top, col = w / 6;
   gboolean draft = c->status == LAMINA_STATUS_DRAFT;
   char revision[16], date[16];
-  const char *reviewer = c->approved_by ? c->approved_by : c->checked_by;
-  const char *when = c->approved_at ? c->approved_at : c->checked_at ? c->checked_at : c->modified_at;
 
   if (draft)
     {
@@ -112,19 +120,41 @@ draw_header (SheetContext             *ctx,
   y += 25;
   y += sheet_text (ctx, SHEET_FONT_TITLE, c->name, ctx->left, y, w, PANGO_ALIGN_LEFT) + 8;
 
+  /* The same six columns whatever the status: a reader finds the review
+   * in the same place on every sheet, a dash where it has not happened. */
   sheet_rule (ctx, y, 0.4, 0.6);
   y += 4;
   g_snprintf (revision, sizeof revision, "%d", c->revision);
-  draw_field (ctx, _("ELEMENT"), sheet_element_label (c->element), ctx->left, y, col);
-  draw_field (ctx, _("REVISION"), c->revision > 0 ? revision : NULL, ctx->left + col, y, col);
-  draw_field (ctx, _("STATUS"), sheet_status_label (c->status), ctx->left + 2 * col, y, col);
-  draw_field (ctx, _("CHECKED BY"), c->checked_by, ctx->left + 3 * col, y, col);
-  draw_field (ctx, c->approved_by ? _("APPROVED BY") : _("REVIEWER"),
-              reviewer, ctx->left + 4 * col, y, col);
-  draw_field (ctx, _("DATE"), date_part (when, date), ctx->left + 5 * col, y, col);
-  y += 22;
+  draw_field (ctx, _("ELEMENT"), sheet_element_label (c->element), NULL, ctx->left, y, col);
+  draw_field (ctx, _("REVISION"), c->revision > 0 ? revision : NULL, NULL, ctx->left + col, y, col);
+  draw_field (ctx, _("STATUS"), sheet_status_label (c->status), NULL, ctx->left + 2 * col, y, col);
+  draw_field (ctx, _("CHECKED BY"), c->checked_by, c->checked_at, ctx->left + 3 * col, y, col);
+  draw_field (ctx, _("APPROVED BY"), c->approved_by, c->approved_at, ctx->left + 4 * col, y, col);
+  draw_field (ctx, _("REVISION DATE"), c->modified_at ? date_part (c->modified_at, date) : NULL, NULL,
+              ctx->left + 5 * col, y, col);
+  y += 29;
   sheet_rule (ctx, y, 0.4, 0.6);
   return y + GAP;
+}
+
+static char *
+dup_footer (SheetContext             *ctx,
+            const LaminaConstruction *c)
+{
+  GString *text = g_string_new (NULL);
+  char date[16];
+
+  if (ctx->options->practice)
+    g_string_append_printf (text, "%s · ", ctx->options->practice);
+  g_string_append (text, c->code ? c->code : c->id);
+  if (c->revision > 0)
+    {
+      g_string_append (text, " · ");
+      g_string_append_printf (text, _("revision %d"), c->revision);
+    }
+  if (c->modified_at)
+    g_string_append_printf (text, " · %s", date_part (c->modified_at, date));
+  return g_string_free (text, FALSE);
 }
 
 /* Section */
@@ -169,20 +199,62 @@ draw_section (SheetContext             *ctx,
 
 /* Layer table */
 
-static guint
-count_table_rows (const LaminaConstruction *c,
-                  double                   *height)
+/* The row pitch for @text wrapped to @width: long names take more lines
+ * rather than an ellipsis. */
+static double
+get_wrapped_pitch (SheetContext *ctx,
+                   SheetFont     font,
+                   const char   *text,
+                   double        width,
+                   double        pitch)
 {
-  guint rows = c->layers->len, subrows = 0;
+  double one, h;
 
+  sheet_text_set (ctx, font, "Ag", 0, NULL, &one);
+  sheet_text_set (ctx, font, text, width, NULL, &h);
+  return pitch + MAX (h - one, 0);
+}
+
+static char *
+dup_part_label (const LaminaLayer *layer,
+                guint              k)
+{
+  const LaminaPart *part = layer->parts->pdata[k];
+  const char *name = part->material ? part->material->name : _("air");
+  char f[LAMINA_FORMAT_SIZE];
+
+  lamina_format_percent (f, lamina_layer_get_part_fraction (layer, k));
+  if (part->width > 0 && part->spacing > 0)
+    {
+      char wd[LAMINA_FORMAT_SIZE], sp[LAMINA_FORMAT_SIZE];
+      return g_strdup_printf (_("%s, %s mm at %s mm (%s)"), name, lamina_format_thickness (wd, part->width),
+                              lamina_format_thickness (sp, part->spacing), f);
+    }
+  return g_strdup_printf ("%s (%s)", name, f);
+}
+
+static double
+measure_layer_table (SheetContext             *ctx,
+                     const LaminaConstruction *c)
+{
+  Columns col;
+  double height = 14 + ROW + ROW + 4;
+
+  get_columns (ctx, &col);
   for (guint i = 0; i < c->layers->len; i++)
     {
       const LaminaLayer *layer = c->layers->pdata[i];
+
+      height += get_wrapped_pitch (ctx, SHEET_FONT_BODY, lamina_layer_get_label (layer),
+                                   col.category - col.name - 6, ROW);
       if (layer->kind == LAMINA_LAYER_BRIDGED && layer->parts)
-        subrows += layer->parts->len;
+        for (guint k = 0; k < layer->parts->len; k++)
+          {
+            g_autofree char *label = dup_part_label (layer, k);
+            height += get_wrapped_pitch (ctx, SHEET_FONT_SMALL, label, col.category - col.name - 16, SUBROW);
+          }
     }
-  *height = 14 + ROW + rows * ROW + subrows * SUBROW + ROW + 4;
-  return rows;
+  return height;
 }
 
 static void
@@ -206,37 +278,50 @@ format_lambda (char   *buffer,
   return lamina_format_fixed (buffer, lambda, lambda >= 10 ? 0 : lambda >= 1 ? 2 : 3);
 }
 
+static const char *
+get_category_label (const LaminaLayer *layer)
+{
+  switch (layer->kind)
+    {
+    case LAMINA_LAYER_MATERIAL:
+      return layer->material ? lamina_category_to_string (layer->material->category) : "";
+    case LAMINA_LAYER_AIR:
+      switch (layer->air)
+        {
+        case LAMINA_AIR_UNVENTILATED: return _("still air");
+        case LAMINA_AIR_SLIGHTLY_VENTILATED: return _("slightly ventilated");
+        case LAMINA_AIR_WELL_VENTILATED: return _("well ventilated");
+        default: return _("air");
+        }
+    case LAMINA_LAYER_BRIDGED:
+      return _("bridged");
+    case LAMINA_LAYER_RESISTANCE:
+    case LAMINA_N_LAYER_KINDS:
+    default:
+      return "";
+    }
+}
+
 static double
 draw_parts (SheetContext      *ctx,
             const Columns     *col,
             const LaminaLayer *layer,
             double             y)
 {
-  char l[LAMINA_FORMAT_SIZE], r[LAMINA_FORMAT_SIZE], f[LAMINA_FORMAT_SIZE];
+  char l[LAMINA_FORMAT_SIZE], r[LAMINA_FORMAT_SIZE];
 
   for (guint k = 0; k < layer->parts->len; k++)
     {
       const LaminaPart *part = layer->parts->pdata[k];
-      double fraction = lamina_layer_get_part_fraction (layer, k);
-      const char *name = part->material ? part->material->name : _("air");
-      g_autofree char *label = NULL;
+      g_autofree char *label = dup_part_label (layer, k);
+      double width = col->category - col->name - 16;
 
-      lamina_format_percent (f, fraction);
-      if (part->width > 0 && part->spacing > 0)
-        {
-          char wd[LAMINA_FORMAT_SIZE], sp[LAMINA_FORMAT_SIZE];
-          label = g_strdup_printf (_("%s, %s mm at %s mm (%s)"), name, lamina_format_thickness (wd, part->width),
-                                   lamina_format_thickness (sp, part->spacing), f);
-        }
-      else
-        label = g_strdup_printf ("%s (%s)", name, f);
       set_grey (ctx);
       sheet_text_line (ctx, SHEET_FONT_SMALL, "\xe2\x80\x94", col->name + 2, y, 0, PANGO_ALIGN_LEFT);
-      sheet_text_line (ctx, SHEET_FONT_SMALL, label, col->name + 12, y, col->category - col->name - 16,
-                       PANGO_ALIGN_LEFT);
+      sheet_text (ctx, SHEET_FONT_SMALL, label, col->name + 12, y, width, PANGO_ALIGN_LEFT);
       sheet_text_line (ctx, SHEET_FONT_SMALL,
-                       part->material ? lamina_category_to_string (part->material->category) : "air",
-                       col->category, y, col->thickness - col->category - 50, PANGO_ALIGN_LEFT);
+                       part->material ? lamina_category_to_string (part->material->category) : _("air"),
+                       col->category, y, col->thickness - col->category - 28, PANGO_ALIGN_LEFT);
       if (part->material)
         {
           format_lambda (l, part->material->conductivity);
@@ -249,7 +334,7 @@ draw_parts (SheetContext      *ctx,
         }
       draw_number_cells (ctx, col, SHEET_FONT_SMALL, y, "", l, r);
       set_black (ctx);
-      y += SUBROW;
+      y += get_wrapped_pitch (ctx, SHEET_FONT_SMALL, label, width, SUBROW);
     }
   return y;
 }
@@ -280,22 +365,16 @@ draw_layer_table (SheetContext             *ctx,
     {
       const LaminaLayer *layer = c->layers->pdata[i];
       const LaminaLayerResult *lr = &result->layers[i];
+      const char *label = lamina_layer_get_label (layer);
+      double name_width = col.category - col.name - 6;
       char no[16];
-      const char *category = "";
 
       g_snprintf (no, sizeof no, "%u", i + 1);
       sheet_text_line (ctx, SHEET_FONT_BOLD, no, col.no, y, 0, PANGO_ALIGN_RIGHT);
-      sheet_text_line (ctx, SHEET_FONT_BODY, lamina_layer_get_label (layer), col.name, y,
-                       col.category - col.name - 6, PANGO_ALIGN_LEFT);
-      if (layer->kind == LAMINA_LAYER_MATERIAL && layer->material)
-        category = lamina_category_to_string (layer->material->category);
-      else if (layer->kind == LAMINA_LAYER_AIR)
-        category = lamina_air_kind_to_string (layer->air);
-      else if (layer->kind == LAMINA_LAYER_BRIDGED)
-        category = _("bridged");
+      sheet_text (ctx, SHEET_FONT_BODY, label, col.name, y, name_width, PANGO_ALIGN_LEFT);
       set_grey (ctx);
-      sheet_text_line (ctx, SHEET_FONT_SMALL, category, col.category, y + 1,
-                       col.thickness - col.category - 50, PANGO_ALIGN_LEFT);
+      sheet_text_line (ctx, SHEET_FONT_SMALL, get_category_label (layer), col.category, y + 1,
+                       col.thickness - col.category - 28, PANGO_ALIGN_LEFT);
       set_black (ctx);
       if (layer->kind == LAMINA_LAYER_MATERIAL && layer->material)
         format_lambda (l, layer->material->conductivity);
@@ -306,7 +385,7 @@ draw_layer_table (SheetContext             *ctx,
       else
         lamina_format_fixed (r, lr->resistance, 3);
       draw_number_cells (ctx, &col, SHEET_FONT_BODY, y, lamina_format_thickness (d, layer->thickness), l, r);
-      y += ROW;
+      y += get_wrapped_pitch (ctx, SHEET_FONT_BODY, label, name_width, ROW);
       if (layer->kind == LAMINA_LAYER_BRIDGED && layer->parts)
         y = draw_parts (ctx, &col, layer, y - 1);
       sheet_rule (ctx, y - 2.5, 0.25, 0.75);
@@ -321,24 +400,63 @@ draw_layer_table (SheetContext             *ctx,
 
 #define RESULTS_HEIGHT (14 + 6 * ROW + GAP)
 
-static void
-draw_value_row (SheetContext *ctx,
-                double        x,
-                double        y,
-                double        width,
-                const char   *symbol,
-                const char   *label,
-                const char   *value,
-                const char   *unit)
+typedef struct
 {
-  sheet_text_line (ctx, SHEET_FONT_BOLD, symbol, x, y, 0, PANGO_ALIGN_LEFT);
-  set_grey (ctx);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, label, x + 22, y + 1, width * 0.78 - 56, PANGO_ALIGN_LEFT);
-  set_black (ctx);
-  sheet_text_line (ctx, SHEET_FONT_BODY, value, x + width * 0.78, y, 0, PANGO_ALIGN_RIGHT);
-  set_grey (ctx);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, unit, x + width * 0.8, y + 1, width * 0.2, PANGO_ALIGN_LEFT);
-  set_black (ctx);
+  const char *symbol;
+  const char *label;
+  char        value[LAMINA_FORMAT_SIZE];
+  const char *unit;
+} ValueRow;
+
+#define N_VALUE_ROWS 6
+#define SYMBOL_WIDTH 22.0
+#define VALUE_WIDTH  38.0
+
+/* The widths a column of value rows needs: labels and units as long as
+ * their longest text, so that none is cut. */
+static void
+measure_value_rows (SheetContext   *ctx,
+                    const ValueRow *rows,
+                    double         *label_width,
+                    double         *unit_width)
+{
+  *label_width = *unit_width = 0;
+  for (guint i = 0; i < N_VALUE_ROWS; i++)
+    {
+      double w;
+
+      sheet_text_set (ctx, SHEET_FONT_SMALL, rows[i].label, 0, &w, NULL);
+      *label_width = MAX (*label_width, w);
+      sheet_text_set (ctx, SHEET_FONT_SMALL, rows[i].unit, 0, &w, NULL);
+      *unit_width = MAX (*unit_width, w);
+    }
+  *label_width += 4;
+}
+
+static double
+draw_value_rows (SheetContext   *ctx,
+                 const ValueRow *rows,
+                 double          x,
+                 double          y,
+                 double          label_width,
+                 double          unit_width)
+{
+  double value_right = x + SYMBOL_WIDTH + label_width + VALUE_WIDTH;
+
+  for (guint i = 0; i < N_VALUE_ROWS; i++, y += ROW)
+    {
+      sheet_text_line (ctx, SHEET_FONT_BOLD, rows[i].symbol, x, y, 0, PANGO_ALIGN_LEFT);
+      set_grey (ctx);
+      sheet_text_line (ctx, SHEET_FONT_SMALL, rows[i].label, x + SYMBOL_WIDTH, y + 1, label_width,
+                       PANGO_ALIGN_LEFT);
+      set_black (ctx);
+      sheet_text_line (ctx, SHEET_FONT_BODY, rows[i].value, value_right, y, 0, PANGO_ALIGN_RIGHT);
+      set_grey (ctx);
+      sheet_text_line (ctx, SHEET_FONT_SMALL, rows[i].unit, value_right + 3, y + 1, unit_width + 2,
+                       PANGO_ALIGN_LEFT);
+      set_black (ctx);
+    }
+  return value_right + 3 + unit_width;
 }
 
 static void
@@ -381,40 +499,67 @@ draw_u_box (SheetContext             *ctx,
   set_black (ctx);
 }
 
+static const char *
+get_heat_flow_label (LaminaHeatFlow heat_flow)
+{
+  switch (heat_flow)
+    {
+    case LAMINA_HEAT_FLOW_UPWARD: return _("inside, heat flow upward");
+    case LAMINA_HEAT_FLOW_DOWNWARD: return _("inside, heat flow downward");
+    case LAMINA_HEAT_FLOW_HORIZONTAL:
+    case LAMINA_N_HEAT_FLOWS:
+    default: return _("inside, heat flow horizontal");
+    }
+}
+
 static double
 draw_results (SheetContext             *ctx,
               const LaminaConstruction *c,
               const LaminaResult       *r,
               double                    y)
 {
-  double w = ctx->right - ctx->left, col = w * 0.36, x2 = ctx->left + col + 12;
-  char v[LAMINA_FORMAT_SIZE], h[LAMINA_FORMAT_SIZE];
   const char *rk = "m²·K/W", *uk = "W/(m²·K)";
-  g_autofree char *rsi_label = g_strdup_printf (_("inside, heat flow %s"),
-                                                lamina_heat_flow_to_string (r->heat_flow));
-  g_autofree char *e_label = NULL;
+  g_autofree char *e_label = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "relative error e, %u section",
+                                                           "relative error e, %u sections", r->n_sections),
+                                              r->n_sections);
+  ValueRow left[N_VALUE_ROWS] = {
+    { "Rsi", get_heat_flow_label (r->heat_flow), "", rk },
+    { "Rse", _("outside surface"), "", rk },
+    { "R′T", _("upper limit"), "", rk },
+    { "R″T", _("lower limit"), "", rk },
+    { "RT", _("total, (R′T + R″T)/2"), "", rk },
+    { "e", e_label, "", "" },
+  };
+  ValueRow right[N_VALUE_ROWS] = {
+    { "U", _("1/RT"), "", uk },
+    { "ΔU", _("corrections"), "", uk },
+    { "Uc", _("U + ΔU"), "", uk },
+    { "θsi", _("inner surface"), "", "" },
+    { "θi", _("inside, design"), "", "" },
+    { "θe", _("outside, design"), "", "" },
+  };
+  double lw1, uw1, lw2, uw2, x2, end;
+
+  lamina_format_fixed (left[0].value, r->rsi, 2);
+  lamina_format_fixed (left[1].value, r->rse, 2);
+  lamina_format_fixed (left[2].value, r->r_upper, 3);
+  lamina_format_fixed (left[3].value, r->r_lower, 3);
+  lamina_format_fixed (left[4].value, r->r_total, 3);
+  lamina_format_percent (left[5].value, r->relative_error);
+  lamina_format_u (right[0].value, r->u);
+  lamina_format_fixed (right[1].value, r->delta_u, 3);
+  lamina_format_u (right[2].value, r->u_corrected);
+  lamina_format_temperature (right[3].value, r->surface_temperature_inner);
+  lamina_format_temperature (right[4].value, r->inside_temperature);
+  lamina_format_temperature (right[5].value, r->outside_temperature);
 
   sheet_text_line (ctx, SHEET_FONT_HEADING, _("Results, EN ISO 6946:2017"), ctx->left, y, 0, PANGO_ALIGN_LEFT);
   y += 14;
-  draw_value_row (ctx, ctx->left, y, col, "Rsi", rsi_label, lamina_format_fixed (v, r->rsi, 2), rk);
-  draw_value_row (ctx, ctx->left, y + ROW, col, "Rse", _("outside surface"), lamina_format_fixed (v, r->rse, 2), rk);
-  draw_value_row (ctx, ctx->left, y + 2 * ROW, col, "R′T", _("upper limit"), lamina_format_fixed (v, r->r_upper, 3), rk);
-  draw_value_row (ctx, ctx->left, y + 3 * ROW, col, "R″T", _("lower limit"), lamina_format_fixed (v, r->r_lower, 3), rk);
-  draw_value_row (ctx, ctx->left, y + 4 * ROW, col, "RT", _("total, (R′T + R″T)/2"), lamina_format_fixed (v, r->r_total, 3), rk);
-  e_label = g_strdup_printf (_("relative error e, %u section(s)"), r->n_sections);
-  draw_value_row (ctx, ctx->left, y + 5 * ROW, col, "e", e_label, lamina_format_percent (v, r->relative_error), "");
-
-  draw_value_row (ctx, x2, y, col * 0.8, "U", _("1/RT"), lamina_format_u (v, r->u), uk);
-  draw_value_row (ctx, x2, y + ROW, col * 0.8, "ΔU", _("corrections"), lamina_format_fixed (v, r->delta_u, 3), uk);
-  draw_value_row (ctx, x2, y + 2 * ROW, col * 0.8, "Uc", _("U + ΔU"), lamina_format_u (v, r->u_corrected), uk);
-  draw_value_row (ctx, x2, y + 3 * ROW, col * 0.8, "θsi", _("inner surface"),
-                  lamina_format_temperature (h, r->surface_temperature_inner), "");
-  draw_value_row (ctx, x2, y + 4 * ROW, col * 0.8, "θi", _("inside, design"),
-                  lamina_format_temperature (h, r->inside_temperature), "");
-  draw_value_row (ctx, x2, y + 5 * ROW, col * 0.8, "θe", _("outside, design"),
-                  lamina_format_temperature (h, r->outside_temperature), "");
-
-  draw_u_box (ctx, c, r, ctx->right - w * 0.3, y, w * 0.3);
+  measure_value_rows (ctx, left, &lw1, &uw1);
+  measure_value_rows (ctx, right, &lw2, &uw2);
+  x2 = draw_value_rows (ctx, left, ctx->left, y, lw1, uw1) + 10;
+  end = draw_value_rows (ctx, right, x2, y, lw2, uw2) + 10;
+  draw_u_box (ctx, c, r, end, y, ctx->right - end);
   return y + 6 * ROW + GAP;
 }
 
@@ -439,6 +584,9 @@ dup_warnings_text (const LaminaResult *r)
   for (guint i = 0; i < r->warnings->len; i++)
     {
       const LaminaWarning *warning = r->warnings->pdata[i];
+
+      if (lamina_warning_kind_is_note (warning->kind))
+        continue;
       if (text->len)
         g_string_append_c (text, '\n');
       /* The engine's sentences name the layer themselves. */
@@ -448,12 +596,26 @@ dup_warnings_text (const LaminaResult *r)
   return g_string_free (text, FALSE);
 }
 
+/* The description, the notes, then what the method did as a matter of
+ * course (layers disregarded, a small correction). */
 static char *
-dup_notes_text (const LaminaConstruction *c)
+dup_notes_text (const LaminaConstruction *c,
+                const LaminaResult       *r)
 {
-  if (c->description && c->notes)
-    return g_strconcat (c->description, "\n", c->notes, NULL);
-  return g_strdup (c->description ? c->description : c->notes);
+  GString *text = g_string_new (NULL);
+
+  if (c->description && *c->description)
+    g_string_append (text, c->description);
+  if (c->notes && *c->notes)
+    g_string_append_printf (text, "%s%s", text->len ? "\n" : "", c->notes);
+  for (guint i = 0; i < r->warnings->len; i++)
+    {
+      const LaminaWarning *warning = r->warnings->pdata[i];
+
+      if (lamina_warning_kind_is_note (warning->kind))
+        g_string_append_printf (text, "%s%s", text->len ? "\n" : "", warning->message);
+    }
+  return g_string_free (text, FALSE);
 }
 
 static const char *
@@ -500,30 +662,38 @@ sheet_draw_page (SheetContext             *ctx,
                  const LaminaResult       *result)
 {
   g_autofree char *warnings = dup_warnings_text (result);
-  g_autofree char *notes = dup_notes_text (c);
-  double table_h, warn_h = 0, notes_h = 0, method_h, y, section_h, room;
+  g_autofree char *notes = dup_notes_text (c, result);
+  g_autofree char *corrections = sheet_dup_corrections_text (c, result);
+  double table_h, warn_h = 0, notes_h = 0, corr_h = 0, method_h, y, section_h, room;
   double page_h = ctx->bottom - ctx->top;
 
+  g_free (ctx->footer);
+  ctx->footer = dup_footer (ctx, c);
   sheet_draw_frame (ctx, c->status == LAMINA_STATUS_DRAFT);
   y = draw_header (ctx, c);
 
-  count_table_rows (c, &table_h);
+  table_h = measure_layer_table (ctx, c);
   if (*warnings)
     warn_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, warnings) + GAP;
-  if (notes && *notes)
+  if (corrections)
+    corr_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, corrections) + GAP;
+  if (*notes)
     notes_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, notes) + GAP;
   method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, get_method_text ());
 
   /* The section takes the height left, within bounds. */
-  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - notes_h - 2 * GAP - 6;
+  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - notes_h - 2 * GAP - 6;
   section_h = CLAMP (room, page_h * 0.2, page_h * 0.4);
   y = draw_section (ctx, c, result, y, section_h);
   y = draw_layer_table (ctx, c, result, y);
   y = draw_results (ctx, c, result, y);
   room = ctx->bottom - 24 - method_h - y;
   if (*warnings)
-    y = draw_block (ctx, _("Warnings"), warnings, y, room - 13 - GAP - (notes_h > 0 ? 40 : 0));
-  if (notes && *notes)
+    y = draw_block (ctx, _("Warnings"), warnings, y, room - 13 - GAP - (notes_h + corr_h > 0 ? 40 : 0));
+  if (corrections)
+    y = draw_block (ctx, _("Corrections to U, EN ISO 6946:2017 Annex F"), corrections, y,
+                    ctx->bottom - 24 - method_h - y - 13 - GAP - (notes_h > 0 ? 40 : 0));
+  if (*notes)
     y = draw_block (ctx, _("Notes"), notes, y, ctx->bottom - 24 - method_h - y - 13 - GAP);
 
   set_grey (ctx);

@@ -48,6 +48,9 @@ typedef struct
   guint                     page, n_pages;
   const char               *dest;         /* named destination of the page */
   char                      printed[32];
+  char                     *footer;       /* owned: what the page is (practice,
+                                             code, revision, date); NULL = the
+                                             practice and the title */
 } SheetContext;
 
 void   sheet_context_init    (SheetContext             *ctx,
@@ -100,6 +103,11 @@ guint  sheet_draw_index      (SheetContext           *ctx,
                               guint                   first_sheet_page);
 guint  sheet_index_rows_per_page (const SheetContext *ctx,
                                   gboolean            first_page);
+
+/* The Annex F corrections by layer, one line each, and the total; NULL
+ * when the construction has none. */
+char       *sheet_dup_corrections_text (const LaminaConstruction *c,
+                                        const LaminaResult       *result);
 
 const char *sheet_element_label (LaminaElement element);
 const char *sheet_status_label  (LaminaStatus  status);

@@ -35,7 +35,8 @@ typedef struct
 {
   const char  *practice;  /* header of every sheet; NULL = none */
   const char  *title;     /* catalogue title on the cover; NULL = default */
-  const char  *library;   /* footer: where the sheets come from */
+  const char  *library;   /* where the sheets come from; never printed
+                             (a local path has no place on a sheet) */
   const char  *printed;   /* print date as shown; NULL = today (or
                              SOURCE_DATE_EPOCH when set) */
   LaminaPaper  paper;

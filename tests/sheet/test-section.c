@@ -306,6 +306,69 @@ test_spread (void)
 }
 
 static void
+test_heated_side (void)
+{
+  /* A section is drawn the way up it is built, with the heated side where
+   * it is (common practice): layers run from the inside, so heat flowing
+   * down (a kitchen floor over a cellar) puts layer 1 on top, heat flowing
+   * up puts it at the bottom; walls read from the left.  Every demo
+   * build-up is checked, and CL-301 by name: its tiles lie on top. */
+  g_autofree char *demo = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "demo", "lamina-demo.xml", NULL);
+  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (demo, NULL);
+  gboolean cellar = FALSE;
+
+  g_assert_nonnull (catalogue);
+  for (guint k = 0; k < catalogue->constructions->len; k++)
+    {
+      const LaminaConstruction *c = catalogue->constructions->pdata[k];
+      LaminaSectionLayout layout;
+      LaminaSectionStyle style;
+      guint n = c->layers->len;
+
+      lamina_section_style_init (&style, 10);
+      lamina_section_layout_init (&layout);
+      lamina_section_layout_compute (&layout, c, &style, 0, 0, 800, 500);
+      if (c->element == LAMINA_ELEMENT_WALL || c->element == LAMINA_ELEMENT_PARTITION)
+        g_assert_cmpfloat (layout.edges[0], <, layout.edges[n]);
+      else if (c->heat_flow == LAMINA_HEAT_FLOW_DOWNWARD)
+        {
+          if (!(layout.edges[0] < layout.edges[n]))
+            g_error ("%s: heat flows down but the inside is not on top", c->code);
+        }
+      else if (c->heat_flow == LAMINA_HEAT_FLOW_UPWARD && !(layout.edges[0] > layout.edges[n]))
+        g_error ("%s: heat flows up but the inside is not at the bottom", c->code);
+      if (g_strcmp0 (c->code, "CL-301") == 0)
+        {
+          const LaminaLayer *tiles = c->layers->pdata[0];
+
+          cellar = TRUE;
+          g_assert_cmpint (c->element, ==, LAMINA_ELEMENT_CEILING);
+          g_assert_cmpstr (tiles->material->name, ==, "Ceramic floor tiles");
+          g_assert_cmpint (layout.orientation, ==, LAMINA_SECTION_DOWNWARD);
+          g_assert_cmpfloat_with_epsilon (layout.edges[0], layout.body_y, 1e-9);
+        }
+      lamina_section_layout_clear (&layout);
+    }
+  g_assert_true (cellar);
+}
+
+static void
+test_spread_within (void)
+{
+  /* Thin layers at the ends of the chain: their labels are pushed in so
+   * that none crosses an end (0 or 40) and none overlaps another. */
+  double want[4] = { 0.5, 1.5, 20, 39.5 }, size[4] = { 4, 4, 4, 4 }, pos[4], scratch[12];
+
+  lamina_section_spread_within (want, size, 4, 1, 0, 40, pos, scratch);
+  g_assert_cmpfloat (pos[0] - 2, >=, 0 - 1e-9);
+  g_assert_cmpfloat (pos[3] + 2, <=, 40 + 1e-9);
+  for (guint i = 1; i < 4; i++)
+    g_assert_cmpfloat (pos[i] - pos[i - 1], >=, 5 - 1e-9);
+  /* One that fits stays where it was wanted. */
+  g_assert_cmpfloat_with_epsilon (pos[2], 20, 1e-9);
+}
+
+static void
 test_format_u (void)
 {
   /* U to two significant figures on sheets (common practice for
@@ -350,6 +413,8 @@ main (int    argc,
   g_test_add_func ("/sheet/section/deterministic", test_deterministic);
   g_test_add_func ("/sheet/section/members-stay-inside", test_members_stay_inside);
   g_test_add_func ("/sheet/section/spread", test_spread);
+  g_test_add_func ("/sheet/section/spread-within", test_spread_within);
+  g_test_add_func ("/sheet/section/heated-side", test_heated_side);
   g_test_add_func ("/sheet/format/u", test_format_u);
   g_test_add_func ("/sheet/format/danish", test_format_danish);
   return g_test_run ();

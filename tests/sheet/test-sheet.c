@@ -8,6 +8,7 @@
 #include <poppler.h>
 #include <string.h>
 
+#include "lamina-catalogue.h"
 #include "lamina-sheet.h"
 #include "lamina-sheet-format.h"
 #include "lamina-test-constructions.h"
@@ -304,6 +305,7 @@ test_warnings_printed (void)
   g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 1);
   text = dup_page_text (doc, 0);
   assert_contains (text, "Warnings", c->code);
+  assert_contains (text, "⚠", c->code);
   check_sheet_text (text, c);
   {
     g_autoptr(PopplerPage) page = poppler_document_get_page (doc, 0);
@@ -379,6 +381,179 @@ test_paper (void)
   g_unlink (path);
 }
 
+/* Writes @c alone and returns the page's text. */
+static char *
+dup_sheet_text (const LaminaConstruction *c,
+                const LaminaSheetOptions *options)
+{
+  g_autofree char *path = dup_temp_path ("one.pdf");
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(GError) error = NULL;
+  char *text;
+
+  g_assert_true (lamina_sheet_write_pdf (path, TRUE, options, c, &error));
+  g_assert_no_error (error);
+  doc = open_pdf (path);
+  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 1);
+  text = dup_page_text (doc, 0);
+  g_unlink (path);
+  return text;
+}
+
+static void
+test_footer_no_path (void)
+{
+  /* A sheet sent out names what it is (practice, code, revision, date,
+   * page), never a file on someone's disk (common practice for issued
+   * drawings: the title block identifies the document). */
+  g_autoptr(LaminaConstruction) c = lamina_test_masonry_wall ();
+  g_autofree char *text = NULL;
+  LaminaSheetOptions options;
+
+  init_options (&options);
+  options.library = "/home/jpellan/projects/office-library.sqlite";
+  c->revision = 4;
+  g_free (c->modified_at);
+  c->modified_at = g_strdup ("2026-11-30T09:15:00Z");
+  text = dup_sheet_text (c, &options);
+  if (strstr (text, "jpellan") || strstr (text, ".sqlite"))
+    g_error ("a local path is printed: %s", text);
+  assert_contains (text, PRACTICE " · EW-01 · revision 4 · 2026-11-30", "footer");
+  assert_contains (text, "Page 1 of 1", "footer");
+}
+
+static void
+test_review_columns (void)
+{
+  /* The header has the same review fields for every status, a dash where
+   * the review has not happened yet. */
+  static const LaminaStatus statuses[] = { LAMINA_STATUS_DRAFT, LAMINA_STATUS_CHECKED, LAMINA_STATUS_APPROVED };
+  LaminaSheetOptions options;
+
+  init_options (&options);
+  for (guint i = 0; i < G_N_ELEMENTS (statuses); i++)
+    {
+      g_autoptr(LaminaConstruction) c = lamina_test_masonry_wall ();
+      g_autofree char *text = NULL;
+
+      c->status = statuses[i];
+      c->revision = 2;
+      g_clear_pointer (&c->checked_by, g_free);
+      g_clear_pointer (&c->approved_by, g_free);
+      if (statuses[i] != LAMINA_STATUS_DRAFT)
+        {
+          c->checked_by = g_strdup ("Ilse Tarrow");
+          c->checked_at = g_strdup ("2026-06-08T10:00:00Z");
+        }
+      if (statuses[i] == LAMINA_STATUS_APPROVED)
+        {
+          c->approved_by = g_strdup ("Maren Oakhurst");
+          c->approved_at = g_strdup ("2026-06-09T10:00:00Z");
+        }
+      text = dup_sheet_text (c, &options);
+      const char *header, *end;
+      guint dashes = 0;
+
+      assert_contains (text, "CHECKED BY", lamina_status_to_string (statuses[i]));
+      assert_contains (text, "APPROVED BY", lamina_status_to_string (statuses[i]));
+      g_assert_null (strstr (text, "REVIEWER"));
+      if (statuses[i] != LAMINA_STATUS_DRAFT)
+        assert_contains (text, "Ilse Tarrow", lamina_status_to_string (statuses[i]));
+      if (statuses[i] == LAMINA_STATUS_APPROVED)
+        assert_contains (text, "Maren Oakhurst", "approved");
+      /* Dashes in the header: two for a draft, one when only checked. */
+      header = strstr (text, "REVISION DATE");
+      end = strstr (text, "Section");
+      g_assert_nonnull (header);
+      g_assert_nonnull (end);
+      for (const char *p = header; (p = strstr (p, "\xe2\x80\x94")) && p < end; p += 3)
+        dashes++;
+      g_assert_cmpuint (dashes, ==, statuses[i] == LAMINA_STATUS_DRAFT ? 2
+                                    : statuses[i] == LAMINA_STATUS_CHECKED ? 1 : 0);
+    }
+}
+
+static void
+test_notes_not_warnings (void)
+{
+  /* Disregarding the layers outside a well-ventilated layer is the method
+   * (EN ISO 6946:2017 6.9.4), not a fault: it is a note.  The timber wall
+   * has a ventilated cavity and nothing to warn about. */
+  g_autoptr(LaminaConstruction) c = lamina_test_timber_wall ();
+  g_autoptr(LaminaResult) r = NULL;
+  g_autofree char *text = NULL;
+  LaminaSheetOptions options;
+
+  c->target_u = NAN; /* no target, so nothing else to warn about */
+  r = lamina_calculate (c, NULL);
+  g_assert_true (lamina_result_has_warning (r, LAMINA_WARNING_LAYERS_DISREGARDED));
+  init_options (&options);
+  text = dup_sheet_text (c, &options);
+  g_assert_null (strstr (text, "Warnings"));
+  g_assert_null (strstr (text, "⚠"));
+  assert_contains (text, "Notes", c->code);
+  for (guint i = 0; i < r->warnings->len; i++)
+    assert_contains (text, ((LaminaWarning *) r->warnings->pdata[i])->message, c->code);
+}
+
+static void
+test_corrections_itemised (void)
+{
+  /* 100 mm PIR (λ 0.022) with stainless wall ties through it, horizontal
+   * heat flow: EN ISO 6946:2017 Table 7 Rsi 0.13, Rse 0.04.
+   * R = 0.1/0.022 = 4.5455; RT = 4.7155.
+   * F.3: ΔUf = α λf Af nf / d0 (R1/RT)² = 0.8 × 17 × 12.6e-6 × 4.4 / 0.1
+   *      × (4.5455/4.7155)² = 0.0075398 × 0.92920 = 0.0070 W/(m²·K).
+   * Shank of 12.6 mm²: ⌀ = √(4 × 12.6/π) = 4.0 mm. */
+  g_autoptr(LaminaConstruction) c = lamina_construction_new ("ties", "Tie test wall", LAMINA_ELEMENT_WALL);
+  LaminaLayer *pir = lamina_layer_new_material (100, lamina_material_new ("pir", "PIR board",
+                                                                          LAMINA_CATEGORY_INSULATION, 0.022));
+  g_autofree char *text = NULL;
+  LaminaSheetOptions options;
+
+  c->code = g_strdup ("TW-1");
+  c->heat_flow = LAMINA_HEAT_FLOW_HORIZONTAL;
+  pir->corrections.has_fasteners = TRUE;
+  pir->corrections.fastener_conductivity = 17;
+  pir->corrections.fastener_cross_section = 12.6;
+  pir->corrections.fasteners_per_square_metre = 4.4;
+  pir->corrections.fastener_penetration = NAN;
+  pir->corrections.has_air_gaps = TRUE;
+  pir->corrections.air_gap_level = 1;
+  lamina_construction_add_layer (c, pir);
+  init_options (&options);
+  text = dup_sheet_text (c, &options);
+  assert_contains (text, "Corrections to U, EN ISO 6946:2017 Annex F", "heading");
+  assert_contains (text, "Layer 1, PIR board: fasteners (F.3): 4.4 per m², 12.6 mm² each (⌀ 4.0 mm), "
+                         "λf 17 W/(m·K), through the layer (α 0.8): ΔUf = 0.0070", "fasteners");
+  /* F.2, Table F.1: level 1, ΔU'' = 0.01; ΔUg = 0.01 × 0.92920 = 0.0093. */
+  assert_contains (text, "air gaps (F.2): level 1", "air gaps");
+  assert_contains (text, "ΔUg = 0.0093 W/(m²·K)", "air gaps");
+  /* ΔU = 0.0070 + 0.0093 = 0.0163 */
+  assert_contains (text, "ΔU = 0.0163 W/(m²·K)", "total");
+}
+
+static void
+test_demo_nothing_cut (void)
+{
+  /* Every label of every demo sheet is whole: wrapped or shortened by
+   * hand, never cut with an ellipsis. */
+  g_autofree char *demo = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "demo", "lamina-demo.xml", NULL);
+  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (demo, NULL);
+  LaminaSheetOptions options;
+
+  g_assert_nonnull (catalogue);
+  init_options (&options);
+  for (guint k = 0; k < catalogue->constructions->len; k++)
+    {
+      const LaminaConstruction *c = catalogue->constructions->pdata[k];
+      g_autofree char *text = dup_sheet_text (c, &options);
+
+      if (strstr (text, "\xe2\x80\xa6"))
+        g_error ("%s: a label is cut: %s", c->code, text);
+    }
+}
+
 int
 main (int    argc,
       char **argv)
@@ -396,6 +571,11 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/no-overwrite", test_no_overwrite);
   g_test_add_func ("/sheet/pdf/invalid", test_invalid_construction);
   g_test_add_func ("/sheet/pdf/paper", test_paper);
+  g_test_add_func ("/sheet/pdf/footer-no-path", test_footer_no_path);
+  g_test_add_func ("/sheet/pdf/review-columns", test_review_columns);
+  g_test_add_func ("/sheet/pdf/notes-not-warnings", test_notes_not_warnings);
+  g_test_add_func ("/sheet/pdf/corrections-itemised", test_corrections_itemised);
+  g_test_add_func ("/sheet/pdf/demo-nothing-cut", test_demo_nothing_cut);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
   g_assert_nonnull (temp_dir);
   status = g_test_run ();
