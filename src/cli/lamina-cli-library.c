@@ -13,8 +13,11 @@
 
 #include <glib/gi18n.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <math.h>
 #include <string.h>
+#include <sys/ioctl.h>
+#include <unistd.h>
 
 LaminaLibrary *
 lamina_cli_open_library (const LaminaCliGlobals *globals,
@@ -82,6 +85,19 @@ lamina_cli_parse_revision (const char *text,
   return TRUE;
 }
 
+gboolean
+lamina_cli_parse_status (const char   *text,
+                         LaminaStatus *status)
+{
+  /* "Approved" as typed at the start of a sentence is still a status. */
+  g_autofree char *lower = g_ascii_strdown (text, -1);
+
+  if (lamina_status_from_string (lower, status))
+    return TRUE;
+  lamina_cli_error (_("--status: unknown status “%s” (draft, checked, approved)"), text);
+  return FALSE;
+}
+
 /* YYYY-MM-DD, a real calendar date from 1900 to 2999. */
 static gboolean
 parse_date (const char *text)
@@ -100,6 +116,65 @@ parse_date (const char *text)
       return FALSE;
     }
   return TRUE;
+}
+
+/* The width of the terminal on standard output, or 0 when the output goes
+ * to a file or a pipe (then nothing is cut). */
+static int
+get_terminal_columns (void)
+{
+  struct winsize size;
+  const char *columns;
+
+  if (!isatty (STDOUT_FILENO))
+    return 0;
+  if (ioctl (STDOUT_FILENO, TIOCGWINSZ, &size) == 0 && size.ws_col > 0)
+    return size.ws_col;
+  columns = g_getenv ("COLUMNS");
+  return columns ? MAX (atoi (columns), 0) : 80;
+}
+
+/* Pads or cuts @text to @width characters; a cut ends in an ellipsis. */
+static char *
+dup_cell (const char *text,
+          int         width)
+{
+  long length = g_utf8_strlen (text, -1);
+  g_autofree char *cut = NULL;
+
+  if (length <= width)
+    return g_strdup_printf ("%s%*s", text, (int) (width - length), "");
+  cut = g_utf8_substring (text, 0, MAX (width - 1, 0));
+  return g_strconcat (cut, "…", NULL);
+}
+
+static void
+print_list (GPtrArray *rows)
+{
+  /* CODE 10, ELEMENT 9, STATUS 8, REV 4, U 7, MM 7, and the spaces. */
+  const int others = 10 + 9 + 8 + 4 + 7 + 7 + 6;
+  int columns = get_terminal_columns (), width = (int) g_utf8_strlen (_("NAME"), -1);
+  g_autofree char *header = NULL;
+
+  for (guint i = 0; i < rows->len; i++)
+    width = MAX (width, (int) g_utf8_strlen (((LaminaSummary *) rows->pdata[i])->name, -1));
+  /* Full names, unless the terminal is too narrow for them. */
+  if (columns > 0 && others + width > columns)
+    width = MAX (columns - others, 16);
+  header = dup_cell (_("NAME"), width);
+  printf ("%-10s %s %-9s %-8s %4s %7s %7s\n", _("CODE"), header, _("ELEMENT"), _("STATUS"), _("REV"), _("U"),
+          _("MM"));
+  for (guint i = 0; i < rows->len; i++)
+    {
+      LaminaSummary *s = rows->pdata[i];
+      g_autofree char *name = dup_cell (s->name, width);
+
+      /* Thickness to one decimal everywhere (a 12.5 mm board is common). */
+      printf ("%-10s %s %-9s %-8s %4d %7.2g %7.1f%s\n", s->code ? s->code : "-", name,
+              lamina_element_to_string (s->element), lamina_status_to_string (s->status),
+              s->revision, s->u_corrected, s->thickness,
+              (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _("  material data changed since review") : "");
+    }
 }
 
 /* list [--search TEXT] [--element E] [--status S] [--max-u X] [--json] */
@@ -141,7 +216,9 @@ lamina_cli_list (const LaminaCliGlobals *globals,
   q.tag = tag;
   if (element != NULL)
     {
-      if (!lamina_element_from_string (element, &el))
+      g_autofree char *lower = g_ascii_strdown (element, -1);
+
+      if (!lamina_element_from_string (lower, &el))
         {
           lamina_cli_error (_("--element: unknown element “%s” (wall, roof, floor, ceiling, partition)"), element);
           return LAMINA_EXIT_USAGE;
@@ -150,11 +227,8 @@ lamina_cli_list (const LaminaCliGlobals *globals,
     }
   if (status != NULL)
     {
-      if (!lamina_status_from_string (status, &st))
-        {
-          lamina_cli_error (_("--status: unknown status “%s” (draft, checked, approved)"), status);
-          return LAMINA_EXIT_USAGE;
-        }
+      if (!lamina_cli_parse_status (status, &st))
+        return LAMINA_EXIT_USAGE;
       q.status = st;
     }
   if (!parse_u (max_u, "--max-u", &q.max_u))
@@ -201,20 +275,7 @@ lamina_cli_list (const LaminaCliGlobals *globals,
       lamina_cli_print_json (json_builder_get_root (b));
       return LAMINA_EXIT_OK;
     }
-  printf ("%-10s %-40s %-9s %-8s %4s %7s %6s\n", _("CODE"), _("NAME"), _("ELEMENT"),
-          _("STATUS"), _("REV"), _("U"), _("MM"));
-  for (guint i = 0; i < rows->len; i++)
-    {
-      LaminaSummary *s = rows->pdata[i];
-      g_autofree char *name = g_utf8_strlen (s->name, -1) > 40
-                              ? g_utf8_substring (s->name, 0, 40) : g_strdup (s->name);
-      int pad = 40 - (int) g_utf8_strlen (name, -1);
-
-      printf ("%-10s %s%*s %-9s %-8s %4d %7.2g %6.0f%s\n", s->code ? s->code : "-", name, pad, "",
-              lamina_element_to_string (s->element), lamina_status_to_string (s->status),
-              s->revision, s->u_corrected, s->thickness,
-              (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _("  material data changed since review") : "");
-    }
+  print_list (rows);
   return LAMINA_EXIT_OK;
 }
 
@@ -470,6 +531,30 @@ warn_on_review (LaminaLibrary *library,
     }
 }
 
+/* Says what was done, in the words of the review record: "EW-102
+ * revision 4 checked by A. Reviewer". */
+static void
+report_review (LaminaLibrary *library,
+               const char    *id,
+               int            revision,
+               gboolean       approve)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, id, revision, NULL);
+  char date[11] = "";
+
+  if (c == NULL)
+    return;
+  if (approve)
+    {
+      if (c->approved_at)
+        g_strlcpy (date, c->approved_at, sizeof date);
+      printf (_("%s revision %d approved by %s on %s\n"), c->code ? c->code : c->id, c->revision,
+              c->approved_by, date);
+    }
+  else
+    printf (_("%s revision %d checked by %s\n"), c->code ? c->code : c->id, c->revision, c->checked_by);
+}
+
 static int
 review (const LaminaCliGlobals *globals,
         int                     argc,
@@ -527,6 +612,7 @@ review (const LaminaCliGlobals *globals,
       return LAMINA_EXIT_BAD_INPUT;
     }
   warn_on_review (library, id);
+  report_review (library, id, revision, approve);
   return LAMINA_EXIT_OK;
 }
 

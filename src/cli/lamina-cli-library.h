@@ -24,4 +24,9 @@ void           lamina_cli_print_json   (JsonNode               *root);
 gboolean       lamina_cli_parse_revision (const char           *text,
                                           int                  *revision);
 
+/* --status in any case ("Approved"); FALSE after printing a message that
+ * names the option and the allowed values. */
+gboolean       lamina_cli_parse_status   (const char           *text,
+                                          LaminaStatus         *status);
+
 G_END_DECLS

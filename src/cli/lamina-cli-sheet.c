@@ -125,7 +125,6 @@ fill_options (const Job          *job,
     }
   options->practice = job->practice ? job->practice : job->catalogue ? job->catalogue->title : NULL;
   options->title = job->title;
-  options->library = job->from ? job->from : lamina_library_get_path (job->library);
   return TRUE;
 }
 
@@ -183,7 +182,7 @@ create_context (Job        *job,
   return context;
 }
 
-/* section ID -o FILE.png [--from FILE.xml] [--width PX] [--height PX] */
+/* section ID -o FILE.png|FILE.svg [--from FILE.xml] [--width PX] [--height PX] */
 int
 lamina_cli_section (const LaminaCliGlobals *globals,
                     int                     argc,
@@ -196,6 +195,7 @@ lamina_cli_section (const LaminaCliGlobals *globals,
   g_autoptr(GError) error = NULL;
   g_autofree char *id = NULL;
   g_autofree char *tmp = NULL;
+  gboolean svg;
 
   if (!lamina_cli_parse (context, &argc, &argv))
     return LAMINA_EXIT_USAGE;
@@ -209,7 +209,7 @@ lamina_cli_section (const LaminaCliGlobals *globals,
     }
   if (argc != 2)
     {
-      lamina_cli_error (_("usage: section ID -o FILE.png"));
+      lamina_cli_error (_("usage: section ID -o FILE.png or FILE.svg"));
       return LAMINA_EXIT_USAGE;
     }
   if (!check_output (&job, globals))
@@ -228,13 +228,17 @@ lamina_cli_section (const LaminaCliGlobals *globals,
     }
   /* Atomic: a temporary file beside the target, then a rename. */
   tmp = g_strdup_printf ("%s.part-%d", job.output, (int) getpid ());
-  if (!lamina_section_write_png (c, result, job.width, job.height, tmp, &error) ||
+  svg = g_str_has_suffix (job.output, ".svg") || g_str_has_suffix (job.output, ".SVG");
+  if (!(svg ? lamina_section_write_svg : lamina_section_write_png) (c, result, job.width, job.height, tmp, &error) ||
       g_rename (tmp, job.output) != 0)
     {
       lamina_cli_error ("%s", error ? error->message : g_strerror (errno));
       g_unlink (tmp);
       return LAMINA_EXIT_BAD_INPUT;
     }
+  /* TRANSLATORS: "EW-101 revision 3: section drawn to ew-101.svg (SVG, 1600 × 1000 px)" */
+  printf (_("%s revision %d: section drawn to %s (%s, %d × %d px)\n"), c->code ? c->code : c->id, c->revision,
+          job.output, svg ? "SVG" : "PNG", job.width, job.height);
   return LAMINA_EXIT_OK;
 }
 
@@ -272,6 +276,9 @@ lamina_cli_sheet (const LaminaCliGlobals *globals,
       lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
+  /* TRANSLATORS: "EW-101 revision 3 (approved): sheet written to ew-101.pdf" */
+  printf (_("%s revision %d (%s): sheet written to %s\n"), c->code ? c->code : c->id, c->revision,
+          lamina_status_to_string (c->status), job.output);
   return LAMINA_EXIT_OK;
 }
 
@@ -283,11 +290,8 @@ select_ids (Job   *job,
   LaminaStatus status = LAMINA_STATUS_DRAFT;
 
   job->ids = g_ptr_array_new_with_free_func (g_free);
-  if (job->status && !lamina_status_from_string (job->status, &status))
-    {
-      lamina_cli_error (_("--status: unknown status “%s” (draft, checked or approved)"), job->status);
-      return FALSE;
-    }
+  if (job->status && !lamina_cli_parse_status (job->status, &status))
+    return FALSE;
   for (int i = 1; i < argc; i++)
     {
       char *id = resolve (job, argv[i]);
@@ -361,5 +365,8 @@ lamina_cli_catalogue (const LaminaCliGlobals *globals,
       lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
+  printf (g_dngettext (GETTEXT_PACKAGE, "Catalogue of %u sheet written to %s\n",
+                       "Catalogue of %u sheets written to %s\n", job.ids->len),
+          job.ids->len, job.output);
   return LAMINA_EXIT_OK;
 }

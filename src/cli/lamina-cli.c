@@ -29,7 +29,7 @@ static const Command commands[] = {
   { "history", lamina_cli_history, N_("The revisions of a construction") },
   { "materials", lamina_cli_materials, N_("The materials of the library") },
   { "demo", lamina_cli_demo, N_("Fill an empty library with the demo build-ups") },
-  { "section", lamina_cli_section, N_("Draw a construction's section to a PNG image") },
+  { "section", lamina_cli_section, N_("Draw a construction's section to a PNG or SVG image") },
   { "sheet", lamina_cli_sheet, N_("Print a construction's specification sheet to PDF") },
   { "catalogue", lamina_cli_catalogue, N_("Print a catalogue of sheets, with index, to PDF") },
 };
@@ -70,6 +70,51 @@ print_usage (FILE *out)
   for (guint i = 0; i < G_N_ELEMENTS (commands); i++)
     fprintf (out, "  %-10s %s\n", commands[i].name, _(commands[i].summary));
   fprintf (out, "\n%s\n", _("“lamina-cli COMMAND --help” describes a command."));
+}
+
+/* The global options are also taken after the command name ("export -o
+ * office.xml --force" as well as "--force export -o office.xml"), up to a
+ * "--" that ends the options.  Returns the command's argc and sets @rest
+ * to its argv (NULL-terminated, borrowed strings), or −1 on bad usage. */
+static int
+take_global_options (LaminaCliGlobals  *globals,
+                     int                argc,
+                     char             **argv,
+                     char            ***rest)
+{
+  char **out = g_new0 (char *, argc + 1);
+  int n = 0;
+  gboolean options = TRUE;
+
+  for (int j = 0; j < argc; j++)
+    {
+      if (j > 0 && options && strcmp (argv[j], "--") == 0)
+        options = FALSE;
+      else if (j > 0 && options && strcmp (argv[j], "--force") == 0)
+        {
+          globals->force = TRUE;
+          continue;
+        }
+      else if (j > 0 && options && strcmp (argv[j], "--library") == 0)
+        {
+          if (j + 1 >= argc)
+            {
+              lamina_cli_error (_("--library needs a PATH"));
+              g_free (out);
+              return -1;
+            }
+          globals->library_path = argv[++j];
+          continue;
+        }
+      else if (j > 0 && options && g_str_has_prefix (argv[j], "--library="))
+        {
+          globals->library_path = argv[j] + strlen ("--library=");
+          continue;
+        }
+      out[n++] = argv[j];
+    }
+  *rest = out;
+  return n;
 }
 
 int
@@ -117,7 +162,14 @@ main (int    argc,
     }
   for (guint k = 0; k < G_N_ELEMENTS (commands); k++)
     if (strcmp (argv[i], commands[k].name) == 0)
-      return commands[k].func (&globals, argc - i, argv + i);
+      {
+        g_autofree char **rest = NULL;
+        int n = take_global_options (&globals, argc - i, argv + i, &rest);
+
+        if (n < 0)
+          return LAMINA_EXIT_USAGE;
+        return commands[k].func (&globals, n, rest);
+      }
 
   lamina_cli_error (_("unknown command “%s”"), argv[i]);
   print_usage (stderr);
