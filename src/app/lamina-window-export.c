@@ -318,11 +318,7 @@ show_import_report (LaminaWindow             *self,
   GtkWidget *window = gtk_window_new ();
   GtkWidget *scroller = gtk_scrolled_window_new ();
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
-  g_autofree char *summary = g_strdup_printf (_("%u added, %u revised, %u unchanged, %u conflicts; "
-                                                "%u materials added, %u updated"),
-                                              report->n_added, report->n_revised, report->n_skipped,
-                                              report->n_conflicts, report->n_materials_added,
-                                              report->n_materials_updated);
+  g_autofree char *summary = lamina_import_report_dup_summary (report);
   GtkWidget *heading = gtk_label_new (summary);
 
   gtk_window_set_title (GTK_WINDOW (window), _("Import Report"));

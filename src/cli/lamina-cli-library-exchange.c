@@ -11,7 +11,6 @@
 #include <glib/gi18n.h>
 #include <stdio.h>
 
-static const char *const action_names[] = { "added", "revised", "skipped", "conflict" };
 
 static int
 import_catalogue (LaminaLibrary          *library,
@@ -21,6 +20,7 @@ import_catalogue (LaminaLibrary          *library,
 {
   g_autoptr(LaminaImportReport) report = NULL;
   g_autoptr(GError) error = NULL;
+  g_autofree char *summary = NULL;
 
   report = lamina_library_import (library, catalogue, flags, NULL, &error);
   if (report == NULL)
@@ -28,22 +28,26 @@ import_catalogue (LaminaLibrary          *library,
       lamina_cli_error ("%s: %s", name, error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
+  /* Each sentence says what happened to what; conflicts go to stderr. */
   for (guint i = 0; i < report->items->len; i++)
     {
       LaminaImportItem *item = report->items->pdata[i];
 
-      fprintf (item->action == LAMINA_IMPORT_CONFLICT ? stderr : stdout,
-               "%-8s %s\n", action_names[item->action], item->message);
+      if (item->action == LAMINA_IMPORT_CONFLICT)
+        lamina_cli_error (_("conflict: %s"), item->message);
+      else
+        printf ("%s\n", item->message);
     }
-  printf (_("%s%s: %u added, %u revised, %u identical (skipped), %u conflicts not applied; "
-            "%u materials added, %u replaced\n"),
-          (flags & LAMINA_IMPORT_DRY_RUN) ? _("dry run, nothing written: ") : "",
-          name, report->n_added, report->n_revised, report->n_skipped, report->n_conflicts,
-          report->n_materials_added, report->n_materials_updated);
+  summary = lamina_import_report_dup_summary (report);
+  printf ("%s%s: %s\n", (flags & LAMINA_IMPORT_DRY_RUN) ? _("dry run, nothing written: ") : "", name, summary);
   if (report->n_conflicts > 0)
     {
-      lamina_cli_error (_("%s: %u conflicts with approved revisions or library materials "
-                          "were not applied (see above)"), name, report->n_conflicts);
+      lamina_cli_error (g_dngettext (GETTEXT_PACKAGE,
+                                     "%s: %u conflict with an approved revision or a library material "
+                                     "was not applied (see above)",
+                                     "%s: %u conflicts with approved revisions or library materials "
+                                     "were not applied (see above)", report->n_conflicts),
+                        name, report->n_conflicts);
       return LAMINA_EXIT_BAD_INPUT;
     }
   return LAMINA_EXIT_OK;
@@ -143,6 +147,10 @@ lamina_cli_export (const LaminaCliGlobals *globals,
           lamina_cli_error ("%s", error->message);
           return LAMINA_EXIT_BAD_INPUT;
         }
+      /* On stdout only when the catalogue itself is not going there. */
+      printf (g_dngettext (GETTEXT_PACKAGE, "%u construction and %u materials exported to %s\n",
+                           "%u constructions and %u materials exported to %s\n", catalogue->constructions->len),
+              catalogue->constructions->len, catalogue->materials->len, output);
     }
   else
     {

@@ -8,6 +8,39 @@
 #include "lamina-library-backend.h"
 #include "lamina-store-json.h"
 
+#include <glib/gi18n-lib.h>
+
+/* How a report names a construction: the office code and the name a
+ * practitioner knows it by, never the internal id. */
+static char *
+dup_label (const LaminaConstruction *c)
+{
+  if (c->code && c->name)
+    return g_strdup_printf ("%s “%s”", c->code, c->name);
+  return g_strdup_printf ("“%s”", c->name ? c->name : c->id);
+}
+
+char *
+lamina_import_report_dup_summary (const LaminaImportReport *report)
+{
+  g_autofree char *constructions = NULL;
+  g_autofree char *conflicts = NULL;
+  g_autofree char *materials = NULL;
+
+  g_return_val_if_fail (report != NULL, NULL);
+
+  /* The same words as the window's report: added, revised, unchanged. */
+  constructions = g_strdup_printf (_("%u added, %u revised, %u unchanged"),
+                                   report->n_added, report->n_revised, report->n_skipped);
+  conflicts = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "%u conflict", "%u conflicts", report->n_conflicts),
+                               report->n_conflicts);
+  materials = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "%u material added, %u updated",
+                                            "%u materials added, %u updated", report->n_materials_added),
+                               report->n_materials_added, report->n_materials_updated);
+  /* TRANSLATORS: "20 added, 0 revised, 0 unchanged, 1 conflict; 33 materials added, 0 updated" */
+  return g_strdup_printf (_("%s, %s; %s"), constructions, conflicts, materials);
+}
+
 static void
 add_item (LaminaImportReport *report,
           LaminaImportAction  action,
@@ -52,7 +85,7 @@ merge_material (LaminaLibrary         *self,
     {
       report->n_materials_added++;
       add_item (report, LAMINA_IMPORT_ADDED, TRUE, m->id, m->name, 0,
-                g_strdup_printf ("material “%s” added", m->name));
+                g_strdup_printf (_("material “%s” added"), m->name));
       g_ptr_array_add (to_put, lamina_material_copy (m));
     }
   else if (!lamina_material_equal (existing, m))
@@ -61,17 +94,17 @@ merge_material (LaminaLibrary         *self,
         {
           report->n_materials_updated++;
           add_item (report, LAMINA_IMPORT_REVISED, TRUE, m->id, m->name, 0,
-                    g_strdup_printf ("material “%s” replaced; constructions using it "
-                                     "are flagged for review", m->name));
+                    g_strdup_printf (_("material “%s” updated; constructions using it "
+                                       "are flagged for review"), m->name));
           g_ptr_array_add (to_put, lamina_material_copy (m));
         }
       else
         {
           report->n_conflicts++;
           add_item (report, LAMINA_IMPORT_CONFLICT, TRUE, m->id, m->name, 0,
-                    g_strdup_printf ("material “%s” differs from the library's; the "
-                                     "library's is kept (imported layers keep their "
-                                     "own data)", m->name));
+                    g_strdup_printf (_("material “%s” differs from the library's; the "
+                                       "library's is kept (imported layers keep their "
+                                       "own data)"), m->name));
         }
     }
   return TRUE;
@@ -92,6 +125,7 @@ merge_construction (LaminaLibrary             *self,
   g_autoptr(GError) local = NULL;
   g_autoptr(LaminaConstruction) head = NULL;
   LaminaConstruction *c;
+  g_autofree char *label = NULL;
   int base = 0;
 
   head = VT (self)->get_construction (BE (self), imported->id, 0, &local);
@@ -103,23 +137,28 @@ merge_construction (LaminaLibrary             *self,
     }
   if (head != NULL && lamina_construction_equal_content (head, imported))
     {
+      g_autofree char *label = dup_label (head);
+
       report->n_skipped++;
       add_item (report, LAMINA_IMPORT_SKIPPED, FALSE, head->id, head->name, head->revision,
-                g_strdup_printf ("%s: identical to revision %d", head->id, head->revision));
+                g_strdup_printf (_("%s: unchanged, the same as revision %d"), label, head->revision));
       return TRUE;
     }
   if (head != NULL && head->status == LAMINA_STATUS_APPROVED
       && !(flags & LAMINA_IMPORT_REVISE_APPROVED))
     {
+      g_autofree char *label = dup_label (head);
+
       report->n_conflicts++;
       add_item (report, LAMINA_IMPORT_CONFLICT, FALSE, head->id, head->name, head->revision,
-                g_strdup_printf ("%s: differs from approved revision %d; not applied",
-                                 head->id, head->revision));
+                g_strdup_printf (_("%s: differs from approved revision %d; not applied"),
+                                 label, head->revision));
       return TRUE;
     }
 
   c = lamina_construction_copy (imported);
   g_ptr_array_add (keep, c);
+  label = dup_label (c);
   if (head == NULL)
     {
       /* A new construction keeps its revision number and review record. */
@@ -130,7 +169,7 @@ merge_construction (LaminaLibrary             *self,
         c->modified_at = lamina_library_dup_now ();
       report->n_added++;
       add_item (report, LAMINA_IMPORT_ADDED, FALSE, c->id, c->name, c->revision,
-                g_strdup_printf ("%s: added as revision %d (%s)", c->id, c->revision,
+                g_strdup_printf (_("%s: added as revision %d (%s)"), label, c->revision,
                                  lamina_status_to_string (c->status)));
     }
   else
@@ -139,8 +178,7 @@ merge_construction (LaminaLibrary             *self,
       lamina_library_set_new_draft (c, base + 1, author);
       report->n_revised++;
       add_item (report, LAMINA_IMPORT_REVISED, FALSE, c->id, c->name, c->revision,
-                g_strdup_printf ("%s: changed, stored as draft revision %d", c->id,
-                                 c->revision));
+                g_strdup_printf (_("%s: revised, stored as draft revision %d"), label, c->revision));
     }
   g_array_append_val (bases, base);
   return TRUE;

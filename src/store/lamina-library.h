@@ -335,6 +335,9 @@ typedef struct
 } LaminaImportReport;
 
 void           lamina_import_report_free   (LaminaImportReport     *report);
+/* One line for the window and the command line alike: "20 added,
+ * 0 revised, 0 unchanged, 1 conflict; 33 materials added, 0 updated". */
+char          *lamina_import_report_dup_summary (const LaminaImportReport *report);
 
 /* All or nothing, in one transaction: on error nothing is written.  The
  * computed figures in @catalogue are never trusted: every construction is

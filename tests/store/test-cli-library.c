@@ -161,11 +161,100 @@ test_commands (void)
   g_assert_nonnull (strstr (out, "\"conductivity\""));
 }
 
+static void
+clear_output (char **out,
+              char **err)
+{
+  g_clear_pointer (out, g_free);
+  g_clear_pointer (err, g_free);
+}
+
+/* What a practitioner meets every day: every writing command says what it
+ * did, options go before or after the command, words are the window's. */
+static void
+test_daily (void)
+{
+  g_autofree char *out = NULL, *err = NULL, *export_path = NULL, *changed_path = NULL;
+  g_autofree char *svg_path = NULL, *pdf_path = NULL, *xml = NULL, *svg = NULL;
+  g_autoptr(GString) changed = NULL;
+
+  library_path = test_library_path ("daily.sqlite");
+  export_path = test_library_path ("ew-101.xml");
+  changed_path = test_library_path ("ew-101-changed.xml");
+  svg_path = test_library_path ("cl-301.svg");
+  pdf_path = test_library_path ("ew-101.pdf");
+
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "20 added, 0 revised, 0 unchanged, 0 conflicts; 33 materials added, 0 updated"));
+  /* The report names constructions by code and name, not by internal id. */
+  g_assert_nonnull (strstr (out, "CL-301 “Cellar ceiling, concrete with mineral wool soffit boards”: added"));
+  g_assert_null (strstr (out, "demo-cl-301"));
+  clear_output (&out, &err);
+
+  g_assert_cmpint (run (&out, &err, "check", "EW-102", "--by", "A. Reviewer", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "EW-102 revision 1 checked by A. Reviewer"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "approve", "EW-102", "--by", "B. Partner", "--date", "2026-12-01", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "EW-102 revision 1 approved by B. Partner on 2026-12-01"));
+  clear_output (&out, &err);
+
+  /* --status in any case. */
+  g_assert_cmpint (run (&out, &err, "list", "--status", "Approved", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "EW-102"));
+  g_assert_null (strstr (out, "FL-301")); /* a draft */
+  /* Piped, nothing is cut; thickness to one decimal (12.5 mm boards). */
+  g_assert_nonnull (strstr (out, "Timber frame wall, insulated service void, wood-fibre sheathing"));
+  g_assert_null (strstr (out, "…"));
+  g_assert_nonnull (strstr (out, "344.5"));
+  g_assert_nonnull (strstr (out, "340.0"));
+  clear_output (&out, &err);
+
+  /* --force before or after the command name. */
+  g_assert_cmpint (run (&out, &err, "export", "EW-101", "-o", export_path, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "1 construction and 5 materials exported to"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "export", "EW-101", "-o", export_path, NULL), ==, 1);
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "export", "EW-101", "-o", export_path, "--force", NULL), ==, 0);
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "--force", "export", "EW-101", "-o", export_path, NULL), ==, 0);
+  clear_output (&out, &err);
+
+  /* The same construction back: unchanged.  Renamed: one conflict with
+   * the approved revision, in the singular. */
+  g_assert_cmpint (run (&out, &err, "import", export_path, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "EW-101 “Timber frame wall, insulated service void, wood-fibre sheathing”: "
+                                 "unchanged"));
+  g_assert_nonnull (strstr (out, "0 added, 0 revised, 1 unchanged, 0 conflicts"));
+  clear_output (&out, &err);
+  g_assert_true (g_file_get_contents (export_path, &xml, NULL, NULL));
+  changed = g_string_new (xml);
+  g_assert_cmpuint (g_string_replace (changed, "wood-fibre sheathing\"", "wood-fibre sheathing, variant\"", 1), ==, 1);
+  g_assert_true (g_file_set_contents (changed_path, changed->str, -1, NULL));
+  g_assert_cmpint (run (&out, &err, "import", changed_path, NULL), ==, 1);
+  g_assert_nonnull (strstr (out, "0 added, 0 revised, 0 unchanged, 1 conflict;"));
+  g_assert_nonnull (strstr (err, "1 conflict with an approved revision"));
+  clear_output (&out, &err);
+
+  /* The section as SVG, for the office's drawings. */
+  g_assert_cmpint (run (&out, &err, "section", "CL-301", "-o", svg_path, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "CL-301 revision 2: section drawn to"));
+  g_assert_true (g_file_get_contents (svg_path, &svg, NULL, NULL));
+  g_assert_true (g_str_has_prefix (svg, "<?xml"));
+  g_assert_nonnull (strstr (svg, "<svg"));
+  g_assert_nonnull (strstr (svg, "width=\"1600px\""));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "sheet", "EW-101", "-o", pdf_path, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "EW-101 revision 3 (approved): sheet written to"));
+  clear_output (&out, &err);
+}
+
 int
 main (int    argc,
       char **argv)
 {
   g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
   g_test_add_func ("/store/cli/commands", test_commands);
+  g_test_add_func ("/store/cli/daily", test_daily);
   return g_test_run ();
 }
