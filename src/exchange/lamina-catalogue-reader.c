@@ -6,6 +6,7 @@
 #define G_LOG_DOMAIN "lamina-exchange"
 
 #include "lamina-catalogue-private.h"
+#include "lamina-moisture.h"
 
 #include <errno.h>
 #include <glib/gi18n-lib.h>
@@ -215,6 +216,58 @@ read_material (Reader  *r,
   return TRUE;
 }
 
+/* Climates (EN ISO 13788:2012 4.2): twelve <month> children, each number
+ * once. */
+
+static gboolean
+read_month (Reader        *r,
+            xmlNode       *node,
+            LaminaClimate *climate)
+{
+  int number = 0;
+  double t = NAN, h = NAN;
+
+  if (!get_count (r, node, "number", LAMINA_MONTHS, &number)
+      || !get_required_number (r, node, "temperature", &t)
+      || !get_required_number (r, node, "humidity", &h))
+    return FALSE;
+  if (number < 1)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, _("month number=%d is not 1 to 12"), number);
+  if (!isnan (climate->temperature[number - 1]))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("climate “%s”: month %d is given twice"), climate->id, number);
+  climate->temperature[number - 1] = t;
+  climate->humidity[number - 1] = h;
+  return TRUE;
+}
+
+static gboolean
+read_climate (Reader  *r,
+              xmlNode *node)
+{
+  g_autofree char *id = dup_attr (node, "id");
+  g_autofree char *name = dup_attr (node, "name");
+  g_autoptr(LaminaClimate) climate = NULL;
+  g_autoptr(GError) local = NULL;
+  LaminaClimate *known;
+
+  if (id == NULL)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, _("<climate> needs an id="));
+  if ((known = lamina_catalogue_find_climate (r->catalogue, id)) != NULL)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("climate id “%s” is used twice (first on line %d)"), id, known->line);
+  climate = lamina_climate_new (id, name);
+  climate->source = dup_attr (node, "source");
+  climate->line = MAX (line_of (node), 1);
+  for (xmlNode *child = node->children; child != NULL; child = child->next)
+    if (is_element (child, "month") && !read_month (r, child, climate))
+      return FALSE;
+  if (!lamina_climate_validate (climate, &local))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, "%s", local->message);
+  g_ptr_array_add (r->catalogue->climates, g_steal_pointer (&climate));
+  return TRUE;
+}
+
 /* A snapshot keeps the library id of a material of the same document. */
 static gboolean
 check_snapshots (Reader *r)
@@ -366,7 +419,8 @@ read_layer (Reader             *r,
       || !get_number (r, node, "resistance", &layer->resistance)
       || !get_number (r, node, "vent-area", &layer->vent_area)
       || !get_number (r, node, "emissivity-inner", &layer->emissivity_inner)
-      || !get_number (r, node, "emissivity-outer", &layer->emissivity_outer))
+      || !get_number (r, node, "emissivity-outer", &layer->emissivity_outer)
+      || !get_number (r, node, "sd", &layer->sd))
     return FALSE;
   for (xmlNode *child = node->children; child != NULL; child = child->next)
     {
@@ -397,6 +451,27 @@ read_record (xmlNode  *node,
   *at = dup_attr (node, "at");
 }
 
+/* <moisture climate= humidity-class= | inside-humidity= [inside-temperature=]> */
+static gboolean
+read_moisture (Reader             *r,
+               xmlNode            *node,
+               LaminaConstruction *c)
+{
+  g_autoptr(LaminaMoistureSettings) m = NULL;
+  g_autofree char *climate = dup_attr (node, "climate");
+
+  m = lamina_moisture_settings_new (climate);
+  m->line = line_of (node);
+  if (!get_count (r, node, "humidity-class", 5, &m->humidity_class)
+      || !get_number (r, node, "inside-humidity", &m->inside_humidity)
+      || !get_number (r, node, "inside-temperature", &m->inside_temperature))
+    return FALSE;
+  if (xmlHasNsProp (node, (const xmlChar *) "humidity-class", NULL) && m->humidity_class == 0)
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, _("humidity-class=0 is not 1 to 5"));
+  lamina_construction_set_moisture (c, g_steal_pointer (&m));
+  return TRUE;
+}
+
 static gboolean
 read_construction_child (Reader             *r,
                          xmlNode            *child,
@@ -404,6 +479,8 @@ read_construction_child (Reader             *r,
 {
   if (is_element (child, "layer"))
     return read_layer (r, child, c);
+  if (is_element (child, "moisture"))
+    return read_moisture (r, child, c);
   if (is_element (child, "description"))
     c->description = dup_text (child);
   else if (is_element (child, "notes"))
@@ -450,6 +527,28 @@ new_construction (Reader  *r,
 }
 
 static gboolean
+check_moisture (Reader             *r,
+                LaminaConstruction *c)
+{
+  g_autoptr(GError) local = NULL;
+  g_autoptr(LaminaMoistureResult) result = NULL;
+  int line = 0;
+
+  if (c->moisture == NULL)
+    return TRUE;
+  if (!lamina_catalogue_check_moisture (r->catalogue, c, &line, &local))
+    return fail (r, line > 0 ? line : c->line, LAMINA_XML_ERROR_INVALID,
+                 _("construction “%s”: %s"), c->id, local->message);
+  /* Other needs of the method (a declared resistance without sd). */
+  result = lamina_moisture_calculate (c, lamina_catalogue_find_climate (r->catalogue, c->moisture->climate),
+                                      NAN, &local);
+  if (result == NULL)
+    return fail (r, c->moisture->line, LAMINA_XML_ERROR_INVALID,
+                 _("construction “%s”: %s"), c->id, local->message);
+  return TRUE;
+}
+
+static gboolean
 check_construction (Reader             *r,
                     LaminaConstruction *c)
 {
@@ -466,7 +565,7 @@ check_construction (Reader             *r,
   if (result == NULL)
     return fail (r, c->line, LAMINA_XML_ERROR_INVALID,
                  _("construction “%s”: %s"), c->id, local->message);
-  return TRUE;
+  return check_moisture (r, c);
 }
 
 static gboolean
@@ -509,6 +608,8 @@ read_catalogue (Reader  *r,
           r->catalogue->title = dup_text (child);
         }
       else if (is_element (child, "material") && !read_material (r, child))
+        return FALSE;
+      else if (is_element (child, "climate") && !read_climate (r, child))
         return FALSE;
     }
   if (!check_snapshots (r))

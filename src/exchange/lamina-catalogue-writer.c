@@ -301,6 +301,7 @@ write_layer_attributes (Writer            *w,
     default:
       break;
     }
+  write_number (w, "sd", layer->sd);
 }
 
 static void
@@ -326,6 +327,51 @@ write_layer (Writer            *w,
   g_string_append (w->out, "    </layer>\n");
 }
 
+/* Climates and moisture settings (EN ISO 13788) */
+
+static gboolean
+write_climate (Writer              *w,
+               const LaminaClimate *climate)
+{
+  g_autofree char *where = g_strdup_printf (_("climate “%s”"), climate->id ? climate->id : "");
+  g_autoptr(GError) local = NULL;
+
+  if (!lamina_climate_validate (climate, &local))
+    return fail (w, "%s", local->message);
+  if (!check_text (w, where, _("name"), climate->name) || !check_text (w, where, _("source"), climate->source))
+    return FALSE;
+  g_string_append (w->out, "  <climate");
+  write_attr (w, "id", climate->id);
+  write_attr (w, "name", climate->name ? climate->name : climate->id);
+  write_attr (w, "source", climate->source);
+  g_string_append (w->out, ">\n");
+  for (int m = 0; m < LAMINA_MONTHS; m++)
+    {
+      g_string_append (w->out, "    <month");
+      write_int (w, "number", m + 1);
+      write_number (w, "temperature", climate->temperature[m]);
+      write_number (w, "humidity", climate->humidity[m]);
+      g_string_append (w->out, "/>\n");
+    }
+  g_string_append (w->out, "  </climate>\n");
+  return TRUE;
+}
+
+static void
+write_moisture (Writer                       *w,
+                const LaminaMoistureSettings *m)
+{
+  if (m == NULL)
+    return;
+  g_string_append (w->out, "    <moisture");
+  write_attr (w, "climate", m->climate);
+  if (m->humidity_class != 0)
+    write_int (w, "humidity-class", m->humidity_class);
+  write_number (w, "inside-humidity", m->inside_humidity);
+  write_number (w, "inside-temperature", m->inside_temperature);
+  g_string_append (w->out, "/>\n");
+}
+
 /* Constructions */
 
 static void
@@ -347,6 +393,7 @@ write_derived (Writer             *w,
 
 static gboolean
 check_construction (Writer                   *w,
+                    const LaminaCatalogue    *catalogue,
                     const LaminaConstruction *c,
                     LaminaResult            **result)
 {
@@ -371,7 +418,7 @@ check_construction (Writer                   *w,
       return FALSE;
   /* What the reader would refuse is not written. */
   *result = lamina_calculate (c, &local);
-  if (*result == NULL)
+  if (*result == NULL || !lamina_catalogue_check_moisture (catalogue, c, NULL, &local))
     return fail (w, "%s: %s", where, local->message);
   return TRUE;
 }
@@ -398,12 +445,13 @@ write_construction_start (Writer                   *w,
 
 static gboolean
 write_construction (Writer                   *w,
+                    const LaminaCatalogue    *catalogue,
                     const LaminaConstruction *c,
                     LaminaWriteFlags          flags)
 {
   g_autoptr(LaminaResult) result = NULL;
 
-  if (!check_construction (w, c, &result))
+  if (!check_construction (w, catalogue, c, &result))
     return FALSE;
   write_construction_start (w, c);
   write_text_element (w, "    ", "description", c->description);
@@ -415,6 +463,7 @@ write_construction (Writer                   *w,
   write_record (w, "approved", c->approved_by, c->approved_at);
   for (guint i = 0; i < c->layers->len; i++)
     write_layer (w, c->layers->pdata[i]);
+  write_moisture (w, c->moisture);
   if (flags & LAMINA_WRITE_DERIVED)
     write_derived (w, result);
   g_string_append (w->out, "  </construction>\n");
@@ -433,10 +482,13 @@ write_catalogue (Writer                *w,
   write_text_element (w, "  ", "title", catalogue->title);
   if (!write_materials (w))
     return FALSE;
+  for (guint i = 0; i < catalogue->climates->len; i++)
+    if (!write_climate (w, catalogue->climates->pdata[i]))
+      return FALSE;
   if (!lamina_catalogue_write_target_sets (catalogue, w->out, w->error))
     return FALSE;
   for (guint i = 0; i < catalogue->constructions->len; i++)
-    if (!write_construction (w, catalogue->constructions->pdata[i], flags))
+    if (!write_construction (w, catalogue, catalogue->constructions->pdata[i], flags))
       return FALSE;
   if (!lamina_catalogue_write_jobs (catalogue, w->out, w->error))
     return FALSE;

@@ -8,6 +8,7 @@
 #include <errno.h>
 #include <glib/gi18n-lib.h>
 #include <glib/gstdio.h>
+#include <math.h>
 
 G_DEFINE_QUARK (lamina-xml-error-quark, lamina_xml_error)
 
@@ -17,6 +18,7 @@ lamina_catalogue_new (void)
   LaminaCatalogue *catalogue = g_new0 (LaminaCatalogue, 1);
 
   catalogue->materials = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
+  catalogue->climates = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_climate_free);
   catalogue->constructions = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
   catalogue->target_sets = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_target_set_free);
   catalogue->jobs = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_job_free);
@@ -30,6 +32,7 @@ lamina_catalogue_free (LaminaCatalogue *catalogue)
     return;
   g_free (catalogue->title);
   g_ptr_array_unref (catalogue->materials);
+  g_ptr_array_unref (catalogue->climates);
   g_ptr_array_unref (catalogue->constructions);
   g_ptr_array_unref (catalogue->target_sets);
   g_ptr_array_unref (catalogue->jobs);
@@ -100,6 +103,80 @@ lamina_catalogue_find_job (const LaminaCatalogue *catalogue,
         return job;
     }
   return NULL;
+}
+
+LaminaClimate *
+lamina_catalogue_find_climate (const LaminaCatalogue *catalogue,
+                               const char            *id)
+{
+  g_return_val_if_fail (catalogue != NULL, NULL);
+  g_return_val_if_fail (id != NULL, NULL);
+
+  for (guint i = 0; i < catalogue->climates->len; i++)
+    {
+      LaminaClimate *climate = catalogue->climates->pdata[i];
+
+      if (g_strcmp0 (climate->id, id) == 0)
+        return climate;
+    }
+  return NULL;
+}
+
+static gboolean
+check_vapour (const LaminaMaterial *material,
+              int                   line,
+              guint                 number,
+              int                  *out_line,
+              GError              **error)
+{
+  if (material == NULL || isfinite (material->vapour_resistance_factor))
+    return TRUE;
+  *out_line = line;
+  g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_INVALID,
+               _("layer %u: material “%s” has no vapour-resistance-factor, which <moisture> needs "
+                 "(or give the layer an sd)"), number, material->id);
+  return FALSE;
+}
+
+gboolean
+lamina_catalogue_check_moisture (const LaminaCatalogue    *catalogue,
+                                 const LaminaConstruction *construction,
+                                 int                      *line,
+                                 GError                  **error)
+{
+  const LaminaConstruction *c = construction;
+  int dummy;
+
+  g_return_val_if_fail (catalogue != NULL && c != NULL, FALSE);
+
+  line = line != NULL ? line : &dummy;
+  *line = 0;
+  if (c->moisture == NULL)
+    return TRUE;
+  if (lamina_catalogue_find_climate (catalogue, c->moisture->climate) == NULL)
+    {
+      *line = c->moisture->line;
+      g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_INVALID,
+                   _("unknown climate “%s”"), c->moisture->climate);
+      return FALSE;
+    }
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+
+      if (!isnan (layer->sd))
+        continue;
+      if (!check_vapour (layer->material, layer->line, i + 1, line, error))
+        return FALSE;
+      for (guint p = 0; layer->parts != NULL && p < layer->parts->len; p++)
+        {
+          const LaminaPart *part = layer->parts->pdata[p];
+
+          if (!check_vapour (part->material, part->line ? part->line : layer->line, i + 1, line, error))
+            return FALSE;
+        }
+    }
+  return TRUE;
 }
 
 LaminaCatalogue *

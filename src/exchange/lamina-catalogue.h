@@ -8,6 +8,7 @@
 #include <glib-object.h>
 
 #include "lamina-calc.h"
+#include "lamina-climate.h"
 #include "lamina-construction.h"
 #include "lamina-job.h"
 #include "lamina-target-set.h"
@@ -31,6 +32,7 @@ typedef struct
 {
   char      *title;          /* optional: the practice or library name */
   GPtrArray *materials;      /* LaminaMaterial*, owned */
+  GPtrArray *climates;       /* LaminaClimate*, owned (EN ISO 13788) */
   GPtrArray *constructions;  /* LaminaConstruction*, owned; layers carry
                                 copies of the materials they use */
   GPtrArray *target_sets;    /* LaminaTargetSet*, owned */
@@ -56,6 +58,16 @@ LaminaTargetSet *lamina_catalogue_find_target_set (const LaminaCatalogue *catalo
 LaminaJob       *lamina_catalogue_find_job      (const LaminaCatalogue *catalogue,
                                                  const char            *id);
 
+LaminaClimate   *lamina_catalogue_find_climate (const LaminaCatalogue *catalogue,
+                                                const char            *id);
+/* What a construction's <moisture> needs from the document: its climate
+ * among @catalogue's, and a vapour resistance factor on every material
+ * unless the layer declares sd.  @line receives the offending item's
+ * source line (0 if none).  Messages name the material. */
+gboolean         lamina_catalogue_check_moisture (const LaminaCatalogue    *catalogue,
+                                                  const LaminaConstruction *construction,
+                                                  int                      *line,
+                                                  GError                  **error);
 /* Errors read "NAME:LINE: message", NAME being @name (a file path). */
 LaminaCatalogue *lamina_catalogue_read_memory  (const char            *data,
                                                 gsize                  length,

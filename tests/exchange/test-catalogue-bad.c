@@ -34,6 +34,15 @@
   "      <part material=\"wood\" width=\"" w "\" spacing=\"600\" member=\"stud\"/>\n" \
   "    </layer>\n"
 
+/* A climate on lines 7–20 (EN ISO 13788: twelve monthly means), then a
+ * construction opening on line 21. */
+#define MONTH(n) "    <month number=\"" #n "\" temperature=\"0\" humidity=\"0.8\"/>\n"
+#define MONTHS_2_12 MONTH (2) MONTH (3) MONTH (4) MONTH (5) MONTH (6) MONTH (7) MONTH (8) \
+                    MONTH (9) MONTH (10) MONTH (11) MONTH (12)
+#define CLIMATE_OPEN "  <climate id=\"site\" name=\"Site\" source=\"invented\">\n"
+#define CLIMATE CLIMATE_OPEN MONTH (1) MONTHS_2_12 "  </climate>\n"
+#define OPEN_AFTER_CLIMATE "  <construction id=\"w\" name=\"Wall\" element=\"wall\">\n"
+
 typedef struct
 {
   const char *path;
@@ -226,6 +235,36 @@ static const BadCase cases[] = {
   { "/exchange/bad/undeclared-entity",
     HEAD "  <title>&secret;</title>\n</catalogue>\n",
     TRUE, LAMINA_XML_ERROR_MALFORMED, 7, "*secret*" },
+  /* EN ISO 13788 input: a material without μ in a construction with a
+   * moisture check is named with its line; the climate must be in the
+   * document, complete, and each month once. */
+  { "/exchange/bad/moisture-without-mu",
+    CLIMATE OPEN_AFTER_CLIMATE GOOD "    <moisture climate=\"site\" humidity-class=\"3\"/>\n" CLOSE,
+    FALSE, LAMINA_XML_ERROR_INVALID, 22, "*layer 1: material “gyp” has no vapour-resistance-factor*" },
+  { "/exchange/bad/moisture-unknown-climate",
+    OPEN GOOD "    <moisture climate=\"nowhere\" humidity-class=\"3\"/>\n" CLOSE,
+    FALSE, LAMINA_XML_ERROR_INVALID, 9, "*unknown climate “nowhere”*" },
+  { "/exchange/bad/moisture-class-and-humidity",
+    CLIMATE OPEN_AFTER_CLIMATE "    <layer thickness=\"12.5\" material=\"gyp\" sd=\"0.1\"/>\n"
+    "    <moisture climate=\"site\" humidity-class=\"3\" inside-humidity=\"0.5\"/>\n" CLOSE,
+    FALSE, LAMINA_XML_ERROR_INVALID, 23, "*either a humidity class or an inside humidity*" },
+  { "/exchange/bad/moisture-class-six",
+    OPEN GOOD "    <moisture climate=\"site\" humidity-class=\"6\"/>\n" CLOSE,
+    FALSE, LAMINA_XML_ERROR_SCHEMA, 9, "*humidity-class*" },
+  { "/exchange/bad/climate-eleven-months",
+    CLIMATE_OPEN MONTHS_2_12 "  </climate>\n</catalogue>\n",
+    FALSE, LAMINA_XML_ERROR_SCHEMA, 7, "*climate*" },
+  { "/exchange/bad/climate-month-twice",
+    CLIMATE_OPEN MONTH (2) MONTHS_2_12 "  </climate>\n</catalogue>\n",
+    FALSE, LAMINA_XML_ERROR_INVALID, 9, "*month 2 is given twice*" },
+  { "/exchange/bad/climate-humidity-over-one",
+    CLIMATE_OPEN MONTH (1) MONTH (2) "    <month number=\"3\" temperature=\"0\" humidity=\"1.5\"/>\n"
+    MONTH (4) MONTH (5) MONTH (6) MONTH (7) MONTH (8) MONTH (9) MONTH (10) MONTH (11) MONTH (12)
+    "  </climate>\n</catalogue>\n",
+    FALSE, LAMINA_XML_ERROR_INVALID, 7, "*climate “site”, month 3: relative humidity 1.5*" },
+  { "/exchange/bad/sd-negative",
+    OPEN "    <layer thickness=\"12.5\" material=\"gyp\" sd=\"-1\"/>\n" CLOSE,
+    FALSE, LAMINA_XML_ERROR_INVALID, 8, "*layer 1: sd -1 is outside*" },
 };
 
 static void

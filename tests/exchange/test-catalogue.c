@@ -552,6 +552,100 @@ test_examples (void)
   g_assert_cmpuint (n, >=, 3);
 }
 
+/* EN ISO 13788 input through the XML: a climate of twelve months, the
+ * moisture settings of a construction (a humidity class, or a fixed φi and
+ * θi) and a foil's declared sd survive a write and a read exactly, and the
+ * climates come after the materials and before the constructions. */
+static const char moisture_document[] =
+  "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n"
+  "<catalogue xmlns=\"urn:x-lamina:catalogue:1\" format=\"1\">\n"
+  "  <material id=\"gyp\" name=\"Gypsum board\" conductivity=\"0.25\" vapour-resistance-factor=\"10\"/>\n"
+  "  <material id=\"mw\" name=\"Mineral wool\" conductivity=\"0.035\" vapour-resistance-factor=\"1\"/>\n"
+  "  <material id=\"pe\" name=\"Polyethylene foil\" conductivity=\"0.4\"/>\n"
+  "  <construction id=\"w1\" name=\"Wall\" element=\"wall\">\n"
+  "    <layer thickness=\"12.5\" material=\"gyp\"/>\n"
+  "    <layer thickness=\"0.2\" material=\"pe\" sd=\"50\"/>\n"
+  "    <layer thickness=\"150\" material=\"mw\"/>\n"
+  "    <moisture climate=\"coast\" humidity-class=\"3\"/>\n"
+  "  </construction>\n"
+  "  <construction id=\"w2\" name=\"Wall 2\" element=\"wall\">\n"
+  "    <layer thickness=\"150\" material=\"mw\"/>\n"
+  "    <moisture climate=\"coast\" inside-humidity=\"0.55\" inside-temperature=\"21.5\"/>\n"
+  "  </construction>\n"
+  "  <climate id=\"coast\" name=\"Coast (invented)\" source=\"invented for a test\">\n"
+  "    <month number=\"2\" temperature=\"-0.5\" humidity=\"0.9\"/>\n"
+  "    <month number=\"1\" temperature=\"-1.25\" humidity=\"0.91\"/>\n"
+  "    <month number=\"3\" temperature=\"2\" humidity=\"0.85\"/>\n"
+  "    <month number=\"4\" temperature=\"6\" humidity=\"0.8\"/>\n"
+  "    <month number=\"5\" temperature=\"11\" humidity=\"0.75\"/>\n"
+  "    <month number=\"6\" temperature=\"15\" humidity=\"0.75\"/>\n"
+  "    <month number=\"7\" temperature=\"17\" humidity=\"0.76\"/>\n"
+  "    <month number=\"8\" temperature=\"17\" humidity=\"0.78\"/>\n"
+  "    <month number=\"9\" temperature=\"13.5\" humidity=\"0.8\"/>\n"
+  "    <month number=\"10\" temperature=\"9\" humidity=\"0.84\"/>\n"
+  "    <month number=\"11\" temperature=\"4\" humidity=\"0.88\"/>\n"
+  "    <month number=\"12\" temperature=\"0.5\" humidity=\"0.9\"/>\n"
+  "  </climate>\n"
+  "</catalogue>\n";
+
+static void
+test_moisture_round_trip (void)
+{
+  g_autoptr(LaminaCatalogue) a = read_or_die (moisture_document, sizeof moisture_document - 1);
+  g_autoptr(LaminaCatalogue) b = NULL;
+  g_autofree char *text = NULL;
+  g_autofree char *again = NULL;
+  gsize length, length_again;
+  LaminaClimate *climate;
+  LaminaConstruction *c;
+
+  g_assert_cmpuint (a->climates->len, ==, 1);
+  climate = lamina_catalogue_find_climate (a, "coast");
+  g_assert_nonnull (climate);
+  g_assert_cmpstr (climate->source, ==, "invented for a test");
+  g_assert_cmpfloat (climate->temperature[0], ==, -1.25);
+  g_assert_cmpfloat (climate->humidity[1], ==, 0.9);
+  c = lamina_catalogue_find (a, "w1");
+  g_assert_nonnull (c->moisture);
+  g_assert_cmpstr (c->moisture->climate, ==, "coast");
+  g_assert_cmpint (c->moisture->humidity_class, ==, 3);
+  g_assert_true (isnan (c->moisture->inside_humidity));
+  g_assert_cmpfloat (layer_at (c, 1)->sd, ==, 50);
+  g_assert_true (isnan (layer_at (c, 0)->sd));
+  c = lamina_catalogue_find (a, "w2");
+  g_assert_cmpfloat (c->moisture->inside_humidity, ==, 0.55);
+  g_assert_cmpfloat (c->moisture->inside_temperature, ==, 21.5);
+
+  text = write_or_die (a, LAMINA_WRITE_DEFAULT, &length);
+  /* order: materials, climates, constructions; the moisture after the layers */
+  g_assert_true (strstr (text, "<material id=\"pe\"") < strstr (text, "<climate"));
+  g_assert_true (strstr (text, "</climate>") < strstr (text, "<construction"));
+  g_assert_true (strstr (text, "<moisture climate=\"coast\" humidity-class=\"3\"/>") > strstr (text, "sd=\"50\""));
+  b = read_or_die (text, length);
+  g_assert_cmpuint (b->climates->len, ==, 1);
+  g_assert_true (lamina_climate_equal (a->climates->pdata[0], b->climates->pdata[0]));
+  for (guint i = 0; i < a->constructions->len; i++)
+    g_assert_true (lamina_construction_equal_content (a->constructions->pdata[i], b->constructions->pdata[i]));
+  again = write_or_die (b, LAMINA_WRITE_DEFAULT, &length_again);
+  g_assert_cmpstr (text, ==, again);
+}
+
+/* The writer refuses what the reader would: a construction whose climate is
+ * not in the catalogue. */
+static void
+test_moisture_write_refuses (void)
+{
+  g_autoptr(LaminaCatalogue) a = read_or_die (moisture_document, sizeof moisture_document - 1);
+  g_autoptr(GError) error = NULL;
+  g_autofree char *text = NULL;
+
+  g_ptr_array_remove_index (a->climates, 0);
+  text = lamina_catalogue_write_to_string (a, LAMINA_WRITE_DEFAULT, NULL, &error);
+  g_assert_null (text);
+  g_assert_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "unknown climate “coast”"));
+}
+
 int
 main (int    argc,
       char **argv)
@@ -567,5 +661,7 @@ main (int    argc,
   g_test_add_func ("/exchange/write/file", test_write_file);
   g_test_add_func ("/exchange/derived/ignored-on-read", test_derived);
   g_test_add_func ("/exchange/examples", test_examples);
+  g_test_add_func ("/exchange/round-trip/moisture", test_moisture_round_trip);
+  g_test_add_func ("/exchange/write/refuses-unknown-climate", test_moisture_write_refuses);
   return g_test_run ();
 }
