@@ -168,8 +168,8 @@ build_member_pattern (const LaminaConstruction *c,
   return TRUE;
 }
 
-static gboolean
-layer_has_members (const LaminaLayer *layer)
+gboolean
+lamina_layer_has_members (const LaminaLayer *layer)
 {
   for (guint p = 0; p < layer->parts->len; p++)
     if (((LaminaPart *) layer->parts->pdata[p])->member != NULL)
@@ -197,7 +197,7 @@ group_patterns (const LaminaConstruction *c,
   for (guint i = 0; i < n; i++)
     {
       const LaminaLayer *a = c->layers->pdata[i];
-      if (a->kind != LAMINA_LAYER_BRIDGED || !layer_has_members (a))
+      if (a->kind != LAMINA_LAYER_BRIDGED || !lamina_layer_has_members (a))
         continue;
       for (guint j = i + 1; j < n; j++)
         {
@@ -232,7 +232,7 @@ group_patterns (const LaminaConstruction *c,
         continue;
       pattern = &patterns[pattern_of_root[find_root (parent, i)]];
       pattern->layers[pattern->n_layers++] = i;
-      pattern->has_members |= layer_has_members (layer);
+      pattern->has_members |= lamina_layer_has_members (layer);
     }
   g_assert (used <= n);
   *out = patterns;

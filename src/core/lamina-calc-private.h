@@ -33,6 +33,27 @@ gboolean lamina_sections_build (const LaminaConstruction *construction,
                                 LaminaSections           *sections,
                                 GError                  **error);
 
+/* The ventilation class an air layer is calculated with: its vent area
+ * decides when given (6.9.3), else the declared class. */
+LaminaAirKind lamina_air_layer_effective_kind (const LaminaLayer *layer);
+
+/* Whether any part of the bridged layer names a framing member. */
+gboolean lamina_layer_has_members (const LaminaLayer *layer);
+/* A bridged layer in which metal (a metal category or λ ≥ 10) bridges
+ * insulation: outside the scope of EN ISO 6946 (clause 1). */
+gboolean lamina_layer_metal_bridges_insulation (const LaminaLayer *layer);
+
+/* A share [base, base + share] of the progress of a longer job, for the
+ * 2-D solver's passes. */
+typedef struct
+{
+  gboolean (*progress) (double fraction, gpointer user_data);
+  gpointer user_data;
+  double   base, share;
+} LaminaProgressShare;
+gboolean lamina_progress_share (double   fraction,
+                                gpointer share);
+
 /* A result with its arrays allocated, for the engine to fill. */
 LaminaResult *lamina_result_new     (guint                     n_layers);
 void          lamina_result_add_warning (LaminaResult         *result,

@@ -52,8 +52,8 @@ typedef struct
   LaminaScratch  *scratch;
 } Calc;
 
-static LaminaAirKind
-effective_air_class (const LaminaLayer *layer)
+LaminaAirKind
+lamina_air_layer_effective_kind (const LaminaLayer *layer)
 {
   if (isnan (layer->vent_area))
     return layer->air;
@@ -101,7 +101,7 @@ resolve_layers (Calc                     *calc,
           calc->r[i] = layer->resistance;
           break;
         case LAMINA_LAYER_AIR:
-          calc->air[i] = effective_air_class (layer);
+          calc->air[i] = lamina_air_layer_effective_kind (layer);
           if (!lamina_air_layer_resistance (layer->thickness, flow, layer->emissivity_inner,
                                             layer->emissivity_outer, &calc->r[i], error))
             return prefix_error (error, i + 1, 0);
@@ -233,6 +233,20 @@ is_metal (const LaminaMaterial *m)
                        || m->conductivity >= METAL_MIN_CONDUCTIVITY);
 }
 
+gboolean
+lamina_layer_metal_bridges_insulation (const LaminaLayer *layer)
+{
+  gboolean metal = FALSE, insulation = FALSE;
+
+  for (guint p = 0; p < layer->parts->len; p++)
+    {
+      const LaminaMaterial *m = ((LaminaPart *) layer->parts->pdata[p])->material;
+      metal |= is_metal (m);
+      insulation |= m != NULL && m->category == LAMINA_CATEGORY_INSULATION;
+    }
+  return metal && insulation;
+}
+
 static void
 check_scope (const Calc   *calc,
              LaminaResult *result)
@@ -240,15 +254,8 @@ check_scope (const Calc   *calc,
   for (guint k = 0; k < calc->n_bridged; k++)
     {
       const LaminaLayer *layer = calc->c->layers->pdata[calc->bridged[k]];
-      gboolean metal = FALSE, insulation = FALSE;
 
-      for (guint p = 0; p < layer->parts->len; p++)
-        {
-          const LaminaMaterial *m = ((LaminaPart *) layer->parts->pdata[p])->material;
-          metal |= is_metal (m);
-          insulation |= m != NULL && m->category == LAMINA_CATEGORY_INSULATION;
-        }
-      if (metal && insulation)
+      if (lamina_layer_metal_bridges_insulation (layer))
         lamina_result_add_warning (result, LAMINA_WARNING_METAL_BRIDGED_INSULATION, (int) calc->bridged[k] + 1,
                                    g_strdup_printf (_("Layer %u: insulation bridged by metal is outside the scope of "
                                                       "EN ISO 6946; a numerical calculation to EN ISO 10211 is needed."),
