@@ -464,7 +464,12 @@ layer_kind_action (GtkWidget  *widget,
   else if (g_str_equal (action_name, "editor.make-bridged"))
     lamina_editor_edit_bridged (self);
   else if (g_str_equal (action_name, "editor.edit-parts"))
-    lamina_parts_dialog_present (self, get_selected_index (self));
+    {
+      GtkRoot *root = gtk_widget_get_root (widget);
+
+      lamina_parts_dialog_present (GTK_IS_WINDOW (root) ? GTK_WINDOW (root) : NULL,
+                                   self->document, get_selected_index (self));
+    }
   else if (g_str_equal (action_name, "editor.make-air"))
     lamina_editor_edit_air (self);
   else if (g_str_equal (action_name, "editor.make-declared"))

@@ -42,7 +42,6 @@ typedef struct
 
 struct _Dialog
 {
-  LaminaEditor   *editor;
   LaminaDocument *document;
   guint           layer;
   GtkWindow      *window;
@@ -71,7 +70,6 @@ dialog_free (Dialog *d)
   g_ptr_array_unref (d->rows);
   g_ptr_array_unref (d->materials);
   g_object_unref (d->document);
-  g_object_unref (d->editor);
   g_free (d);
 }
 
@@ -596,11 +594,11 @@ on_close_clicked_cb (Dialog *d)
 }
 
 GtkWindow *
-lamina_parts_dialog_present (LaminaEditor *editor,
-                             guint         index)
+lamina_parts_dialog_present (GtkWindow      *parent,
+                             LaminaDocument *document,
+                             guint           index)
 {
   Dialog *d = g_new0 (Dialog, 1);
-  GtkRoot *root = gtk_widget_get_root (GTK_WIDGET (editor));
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 10);
   GtkWidget *intro = gtk_label_new (_("Each part is a material, or air, over a share of the layer’s area: the infill between the members and each kind of framing member (studs, noggings, battens). One part takes what the others leave. U is calculated by the upper and lower limits of EN ISO 6946, 6.7.2."));
   GtkWidget *scroller = gtk_scrolled_window_new ();
@@ -608,8 +606,7 @@ lamina_parts_dialog_present (LaminaEditor *editor,
   GtkWidget *close = gtk_button_new_with_mnemonic (_("_Close"));
   g_autofree char *title = g_strdup_printf (_("Parts of Layer %u"), index + 1);
 
-  d->editor = g_object_ref (editor);
-  d->document = g_object_ref (lamina_editor_get_document (editor));
+  d->document = g_object_ref (document);
   d->layer = index;
   d->rows = g_ptr_array_new_with_free_func ((GDestroyNotify) row_free);
   d->materials = lamina_library_list_materials (lamina_document_get_library (d->document), NULL);
@@ -619,8 +616,8 @@ lamina_parts_dialog_present (LaminaEditor *editor,
   gtk_window_set_title (d->window, title);
   gtk_window_set_modal (d->window, TRUE);
   gtk_window_set_default_size (d->window, 820, 360);
-  if (GTK_IS_WINDOW (root))
-    gtk_window_set_transient_for (d->window, GTK_WINDOW (root));
+  if (parent != NULL)
+    gtk_window_set_transient_for (d->window, parent);
   gtk_window_set_destroy_with_parent (d->window, TRUE);
   g_object_set_data_full (G_OBJECT (d->window), "lamina-parts", d, (GDestroyNotify) dialog_free);
 
