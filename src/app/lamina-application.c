@@ -8,7 +8,7 @@
 #include <glib/gi18n.h>
 #include <stdio.h>
 
-#include "exchange/lamina-catalogue.h"
+#include "lamina-demo.h"
 #include "lamina-preferences-window.h"
 #include "lamina-window.h"
 
@@ -23,29 +23,6 @@ struct _LaminaApplication
 };
 
 G_DEFINE_FINAL_TYPE (LaminaApplication, lamina_application, GTK_TYPE_APPLICATION)
-
-gboolean
-lamina_application_load_demo (LaminaLibrary  *library,
-                              GError        **error)
-{
-  g_autoptr(GBytes) bytes = NULL;
-  g_autoptr(LaminaCatalogue) catalogue = NULL;
-  g_autoptr(LaminaImportReport) report = NULL;
-  gsize size = 0;
-  const char *data;
-
-  g_return_val_if_fail (LAMINA_IS_LIBRARY (library), FALSE);
-
-  bytes = g_resources_lookup_data ("/org/example/Lamina/demo/lamina-demo.xml", 0, error);
-  if (bytes == NULL)
-    return FALSE;
-  data = g_bytes_get_data (bytes, &size);
-  catalogue = lamina_catalogue_read_memory (data, size, "lamina-demo.xml", error);
-  if (catalogue == NULL)
-    return FALSE;
-  report = lamina_library_import (library, catalogue, LAMINA_IMPORT_DEFAULT, NULL, error);
-  return report != NULL;
-}
 
 void
 lamina_application_load_style (void)
@@ -147,9 +124,9 @@ lamina_application_activate (GApplication *application)
    * or the button on an empty library), never into an office's own file
    * by surprise. */
   if (self->demo && is_empty (self->library) &&
-      !lamina_application_load_demo (self->library, &error))
+      !lamina_demo_load (self->library, &error))
     g_warning ("Demo library: %s", error->message);
-  window = GTK_WINDOW (lamina_window_new (self, self->library));
+  window = GTK_WINDOW (lamina_window_new (GTK_APPLICATION (self), self->library));
   gtk_window_present (window);
   if (g_getenv ("LAMINA_BENCH_FIRST_FRAME") != NULL)
     watch_first_frame (self, window);

@@ -14,9 +14,6 @@ G_DECLARE_FINAL_TYPE (LaminaApplication, lamina_application, LAMINA, APPLICATION
 
 LaminaApplication *lamina_application_new (void);
 
-/* Imports the demo library shipped in the resources into @library. */
-gboolean lamina_application_load_demo (LaminaLibrary  *library,
-                                       GError        **error);
 /* Loads the CSS and icons from the resources (for tests that build a
  * window without running the application). */
 void     lamina_application_load_style (void);

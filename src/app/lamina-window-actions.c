@@ -7,9 +7,9 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-demo.h"
 #include "lamina-history-window.h"
 #include "lamina-materials-window.h"
-#include "lamina-window-export.h"
 #include "lamina-window-private.h"
 
 static char *
@@ -344,7 +344,7 @@ load_demo_action (GtkWidget  *widget,
   LaminaWindow *self = LAMINA_WINDOW (widget);
   g_autoptr(GError) error = NULL;
 
-  if (!lamina_application_load_demo (self->library, &error))
+  if (!lamina_demo_load (self->library, &error))
     {
       lamina_window_notify (self, error->message);
       return;

@@ -14,7 +14,6 @@
 #endif
 
 #include "exchange/lamina-catalogue.h"
-#include "lamina-window-export.h"
 #include "lamina-window-private.h"
 #include "sheet/lamina-sheet.h"
 

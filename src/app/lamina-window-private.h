@@ -51,6 +51,8 @@ struct _LaminaWindow
 void lamina_window_update_actions   (LaminaWindow *self);
 void lamina_window_refresh_list     (LaminaWindow *self);
 void lamina_window_install_actions  (GtkWidgetClass *widget_class);
+/* lamina-window-export.c */
+void lamina_window_install_export_actions (GtkWidgetClass *widget_class);
 void lamina_window_show_undo_delete (LaminaWindow *self,
                                      const char   *message,
                                      const char   *id);

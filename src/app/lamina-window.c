@@ -564,7 +564,7 @@ lamina_window_init (LaminaWindow *self)
 }
 
 LaminaWindow *
-lamina_window_new (LaminaApplication *application,
+lamina_window_new (GtkApplication    *application,
                    LaminaLibrary     *library)
 {
   LaminaWindow *self;

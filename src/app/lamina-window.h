@@ -4,7 +4,6 @@
 
 #include <gtk/gtk.h>
 
-#include "lamina-application.h"
 #include "lamina-construction-list.h"
 #include "lamina-editor.h"
 #include "store/lamina-library.h"
@@ -14,7 +13,7 @@ G_BEGIN_DECLS
 #define LAMINA_TYPE_WINDOW (lamina_window_get_type ())
 G_DECLARE_FINAL_TYPE (LaminaWindow, lamina_window, LAMINA, WINDOW, GtkApplicationWindow)
 
-LaminaWindow           *lamina_window_new          (LaminaApplication *application,
+LaminaWindow           *lamina_window_new          (GtkApplication    *application,
                                                     LaminaLibrary     *library);
 LaminaLibrary          *lamina_window_get_library  (LaminaWindow      *self);
 LaminaConstructionList *lamina_window_get_list     (LaminaWindow      *self);

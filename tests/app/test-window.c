@@ -13,6 +13,7 @@
 #include <string.h>
 
 #include "lamina-application.h"
+#include "lamina-demo.h"
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
 #include "lamina-history-window.h"
@@ -48,7 +49,7 @@ fixture_setup (Fixture       *f,
   path = g_build_filename (f->dir, "library.sqlite", NULL);
   f->library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
   g_assert_no_error (error);
-  g_assert_true (lamina_application_load_demo (f->library, &error));
+  g_assert_true (lamina_demo_load (f->library, &error));
   g_assert_no_error (error);
 
   lamina_application_load_style ();
@@ -619,7 +620,7 @@ test_bridged_parts (Fixture       *f,
   lamina_editor_apply (editor, lamina_edit_make_bridged (open_state (f), index, NULL, timber, 45, 600, "stud", NULL),
                        NULL, NULL);
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (editor), "editor.edit-parts", NULL));
-  dialog = lamina_parts_dialog_present (editor, index);
+  dialog = lamina_parts_dialog_present (GTK_WINDOW (f->window), lamina_editor_get_document (editor), index);
   g_signal_emit_by_name (lamina_parts_dialog_get_field (dialog, G_MAXUINT, "add"), "clicked");
   layer = open_state (f)->layers->pdata[index];
   g_assert_cmpuint (layer->parts->len, ==, 3);
