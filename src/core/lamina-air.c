@@ -8,7 +8,7 @@
 #include <math.h>
 
 /* The method covers air layers up to 0.3 m thick (6.9.1). */
-#define MAX_AIR_THICKNESS 300.0
+#define MAX_AIR_THICKNESS LAMINA_AIR_LAYER_MAX_THICKNESS
 /* Table 8 applies to faces of emissivity not below 0.8. */
 #define HIGH_EMISSIVITY 0.8
 /* Annex D works at a mean temperature of 10 °C with ΔT ≤ 5 K. */

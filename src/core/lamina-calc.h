@@ -99,6 +99,9 @@ double        lamina_surface_resistance_from_coefficients (double hc,
                                                            double emissivity,
                                                            double mean_temperature);
 
+/* The thickest air layer EN ISO 6946:2017 6.9 covers, mm. */
+#define LAMINA_AIR_LAYER_MAX_THICKNESS 300.0
+
 /* EN ISO 6946:2017 6.9.2, Table 8: an unventilated air layer with both
  * faces of emissivity ≥ 0.8; linear interpolation by thickness (mm). */
 double        lamina_air_layer_resistance_table (double         thickness,

@@ -11,6 +11,7 @@ typedef enum
 {
   LAMINA_CALC_ERROR_INVALID,     /* a value is out of range or missing */
   LAMINA_CALC_ERROR_UNSUPPORTED, /* outside what EN ISO 6946 covers */
+  LAMINA_CALC_ERROR_UNREACHABLE, /* no thickness reaches a target */
 } LaminaCalcError;
 
 GQuark lamina_calc_error_quark (void);

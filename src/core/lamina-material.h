@@ -23,6 +23,10 @@ typedef struct
   double          emissivity;
   char           *source;
   char           *notes;
+  /* Thicknesses the product is sold in, mm, ascending; none when
+   * n_stock_thicknesses is 0.  Used to snap a solved thickness. */
+  double         *stock_thicknesses;
+  guint           n_stock_thicknesses;
 } LaminaMaterial;
 
 #define LAMINA_TYPE_MATERIAL (lamina_material_get_type ())
@@ -36,6 +40,18 @@ LaminaMaterial *lamina_material_copy     (const LaminaMaterial *material);
 void            lamina_material_free     (LaminaMaterial       *material);
 gboolean        lamina_material_equal    (const LaminaMaterial *a,
                                           const LaminaMaterial *b);
+/* Replaces the stock thicknesses with a sorted copy of @thicknesses
+ * (duplicates dropped); @n 0 clears them. */
+void            lamina_material_set_stock_thicknesses (LaminaMaterial *material,
+                                                       const double   *thicknesses,
+                                                       guint           n);
+/* "12.5 15 25" (C locale, as in the catalogue XML), or NULL when none. */
+char           *lamina_material_dup_stock_string      (const LaminaMaterial *material);
+/* Parses a space-separated list of positive thicknesses in mm; FALSE with
+ * @error naming the bad item. */
+gboolean        lamina_material_parse_stock_string    (LaminaMaterial *material,
+                                                       const char     *text,
+                                                       GError        **error);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaMaterial, lamina_material_free)
 

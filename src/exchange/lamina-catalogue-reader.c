@@ -178,6 +178,8 @@ read_material (Reader  *r,
   g_autoptr(LaminaMaterial) m = lamina_material_new (NULL, NULL, LAMINA_CATEGORY_OTHER, NAN);
   g_autofree char *id = dup_attr (node, "id");
   g_autofree char *snapshot_of = dup_attr (node, "snapshot-of");
+  g_autofree char *stock = dup_attr (node, "stock-thicknesses");
+  g_autoptr(GError) stock_error = NULL;
   Entry *entry, *known;
 
   if (id == NULL)
@@ -198,6 +200,8 @@ read_material (Reader  *r,
   m->id = g_strdup (id);
   if (!check_material_values (r, node, m))
     return FALSE;
+  if (stock != NULL && !lamina_material_parse_stock_string (m, stock, &stock_error))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, _("material “%s”: %s"), id, stock_error->message);
   g_clear_pointer (&m->id, g_free);
   for (xmlNode *child = node->children; child != NULL; child = child->next)
     if (is_element (child, "notes"))

@@ -204,6 +204,11 @@ write_material (Writer               *w,
   write_number (w, "vapour-resistance-factor", m->vapour_resistance_factor);
   write_number (w, "emissivity", m->emissivity);
   write_attr (w, "source", m->source);
+  if (m->n_stock_thicknesses > 0)
+    {
+      g_autofree char *stock = lamina_material_dup_stock_string (m);
+      write_attr (w, "stock-thicknesses", stock);
+    }
   if (m->notes == NULL)
     {
       g_string_append (w->out, "/>\n");

@@ -51,7 +51,36 @@ add_material (JsonBuilder          *b,
   add_number (b, "emissivity", m->emissivity);
   add_string (b, "source", m->source);
   add_string (b, "notes", m->notes);
+  if (m->n_stock_thicknesses > 0)
+    {
+      json_builder_set_member_name (b, "stock_thicknesses");
+      json_builder_begin_array (b);
+      for (guint i = 0; i < m->n_stock_thicknesses; i++)
+        json_builder_add_double_value (b, m->stock_thicknesses[i]);
+      json_builder_end_array (b);
+    }
   json_builder_end_object (b);
+}
+
+static void
+read_stock_thicknesses (JsonObject     *o,
+                        LaminaMaterial *m)
+{
+  JsonArray *a = json_object_has_member (o, "stock_thicknesses")
+                 ? json_object_get_array_member (o, "stock_thicknesses") : NULL;
+  g_autofree double *values = NULL;
+  guint n = 0;
+
+  if (a == NULL)
+    return;
+  values = g_new (double, json_array_get_length (a) + 1);
+  for (guint i = 0; i < json_array_get_length (a); i++)
+    {
+      double v = json_node_get_double (json_array_get_element (a, i));
+      if (isfinite (v) && v > 0)
+        values[n++] = v;
+    }
+  lamina_material_set_stock_thicknesses (m, values, n);
 }
 
 static void
@@ -212,6 +241,7 @@ read_material (JsonObject *parent,
   m->emissivity = get_number (o, "emissivity");
   m->source = dup_string (o, "source");
   m->notes = dup_string (o, "notes");
+  read_stock_thicknesses (o, m);
   return m;
 }
 

@@ -32,6 +32,18 @@ test_wall (void)
   return lamina_construction_new ("w", "test wall", LAMINA_ELEMENT_WALL);
 }
 
+/* The engine's result, failing the test on an error. */
+static inline LaminaResult *
+test_calculate (const LaminaConstruction *c)
+{
+  g_autoptr(GError) error = NULL;
+  LaminaResult *r = lamina_calculate (c, &error);
+
+  g_assert_no_error (error);
+  g_assert_nonnull (r);
+  return r;
+}
+
 /* Relative closeness, for figures re-derived by hand in the test. */
 #define assert_close(a, b, rel) \
   g_assert_cmpfloat_with_epsilon ((a), (b), (rel) * fabs (b) + 1e-12)

@@ -202,7 +202,9 @@ build_everything (void)
                                                    LAMINA_ELEMENT_WALL);
   LaminaMaterial *gyp = material ("gyp", "Gypsum board", LAMINA_CATEGORY_BOARD, 0.25);
   LaminaLayer *layer;
+  const double stock[] = { 15, 9.5, 12.5 };
 
+  lamina_material_set_stock_thicknesses (gyp, stock, G_N_ELEMENTS (stock));
   gyp->density = 900;
   gyp->specific_heat = 1000;
   gyp->vapour_resistance_factor = 10;
