@@ -177,14 +177,43 @@ print_list (GPtrArray *rows)
     }
 }
 
-/* list [--search TEXT] [--element E] [--status S] [--max-u X] [--json] */
+static const char *const sort_names[LAMINA_N_SORTS] = {
+  [LAMINA_SORT_CODE] = "code",
+  [LAMINA_SORT_NAME] = "name",
+  [LAMINA_SORT_U] = "u",
+  [LAMINA_SORT_THICKNESS] = "thickness",
+  [LAMINA_SORT_MODIFIED] = "modified",
+  [LAMINA_SORT_RELEVANCE] = "relevance",
+};
+
+static gboolean
+parse_sort (const char    *text,
+            LaminaSortKey *sort)
+{
+  if (text == NULL)
+    return TRUE;
+  for (guint i = 0; i < LAMINA_N_SORTS; i++)
+    if (sort_names[i] != NULL && strcmp (text, sort_names[i]) == 0)
+      {
+        *sort = (LaminaSortKey) i;
+        return TRUE;
+      }
+  lamina_cli_error (_("--sort: unknown order “%s” (code, name, u, thickness, modified, relevance)"), text);
+  return FALSE;
+}
+
+/* list [--search TEXT] [--element E] [--status S] [--max-u X]
+ *      [--meets U] [--sort KEY] [--json]
+ * --meets U is the design question "which of ours reach U?": the
+ * constructions whose corrected U is at most U; with --sort thickness the
+ * thinnest comes first. */
 int
 lamina_cli_list (const LaminaCliGlobals *globals,
                  int                     argc,
                  char                  **argv)
 {
   g_autofree char *search = NULL, *element = NULL, *status = NULL, *max_u = NULL;
-  g_autofree char *tag = NULL;
+  g_autofree char *tag = NULL, *meets = NULL, *sort = NULL;
   gboolean json = FALSE;
   const GOptionEntry entries[] = {
     { "search", 0, 0, G_OPTION_ARG_STRING, &search, N_("Words to find (prefixes of code, name, description, tags, materials)"), "TEXT" },
@@ -192,6 +221,8 @@ lamina_cli_list (const LaminaCliGlobals *globals,
     { "status", 0, 0, G_OPTION_ARG_STRING, &status, N_("Only this status: draft, checked, approved"), "S" },
     { "tag", 0, 0, G_OPTION_ARG_STRING, &tag, N_("Only constructions with this tag"), "TAG" },
     { "max-u", 0, 0, G_OPTION_ARG_STRING, &max_u, N_("Only corrected U up to X W/(m²·K)"), "X" },
+    { "meets", 0, 0, G_OPTION_ARG_STRING, &meets, N_("Only constructions that meet the target U (corrected U ≤ U)"), "U" },
+    { "sort", 0, 0, G_OPTION_ARG_STRING, &sort, N_("Order: code, name, u, thickness, modified, relevance"), "KEY" },
     { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON (SI units: thickness in m)"), NULL },
     { NULL }
   };
@@ -231,8 +262,16 @@ lamina_cli_list (const LaminaCliGlobals *globals,
         return LAMINA_EXIT_USAGE;
       q.status = st;
     }
-  if (!parse_u (max_u, "--max-u", &q.max_u))
+  if (!parse_u (max_u, "--max-u", &q.max_u) || !parse_sort (sort, &q.sort))
     return LAMINA_EXIT_USAGE;
+  if (meets != NULL)
+    {
+      double target;
+
+      if (!parse_u (meets, "--meets", &target))
+        return LAMINA_EXIT_USAGE;
+      q.max_u = isnan (q.max_u) ? target : MIN (q.max_u, target);
+    }
 
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL)

@@ -8,6 +8,8 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-dynamic.h"
+
 const char *
 lamina_cli_caution (void)
 {
@@ -67,11 +69,34 @@ add_layers (JsonBuilder              *b,
   json_builder_end_array (b);
 }
 
+/* "dynamic": EN ISO 13786 figures in the contract's units (κ in kJ). */
+static void
+add_dynamic (JsonBuilder         *b,
+             const LaminaDynamic *d)
+{
+  json_builder_set_member_name (b, "dynamic");
+  json_builder_begin_object (b);
+  lamina_cli_json_add_number (b, "decrement_factor", d->decrement_factor);
+  lamina_cli_json_add_number (b, "time_shift", d->time_shift);
+  lamina_cli_json_add_number (b, "periodic_transmittance", d->periodic_transmittance);
+  lamina_cli_json_add_number (b, "areal_heat_capacity_inner", d->areal_heat_capacity_inner / 1000.0);
+  lamina_cli_json_add_number (b, "areal_heat_capacity_outer", d->areal_heat_capacity_outer / 1000.0);
+  lamina_cli_json_add_number (b, "admittance_inner", d->admittance_inner);
+  lamina_cli_json_add_number (b, "admittance_outer", d->admittance_outer);
+  lamina_cli_json_add_number (b, "period", d->period);
+  json_builder_set_member_name (b, "bridged_equivalent");
+  json_builder_add_boolean_value (b, d->bridged_equivalent);
+  json_builder_end_object (b);
+}
+
 JsonNode *
 lamina_cli_result_to_json (const LaminaConstruction *c,
                            const LaminaResult       *r)
 {
   g_autoptr(JsonBuilder) b = json_builder_new ();
+  g_autoptr(GError) dynamic_error = NULL;
+  LaminaDynamic dynamic;
+  gboolean has_dynamic = lamina_dynamic_calculate (c, r, LAMINA_DYNAMIC_PERIOD_HOURS, &dynamic, &dynamic_error);
 
   json_builder_begin_object (b);
   json_builder_set_member_name (b, "id");
@@ -106,10 +131,14 @@ lamina_cli_result_to_json (const LaminaConstruction *c,
       json_builder_add_boolean_value (b, r->target_met);
     }
   add_layers (b, c, r);
+  if (has_dynamic)
+    add_dynamic (b, &dynamic);
   json_builder_set_member_name (b, "warnings");
   json_builder_begin_array (b);
   for (guint i = 0; i < r->warnings->len; i++)
     json_builder_add_string_value (b, ((LaminaWarning *) r->warnings->pdata[i])->message);
+  if (!has_dynamic)
+    json_builder_add_string_value (b, dynamic_error->message);
   json_builder_end_array (b);
   json_builder_end_object (b);
   return json_builder_get_root (b);
@@ -196,6 +225,8 @@ lamina_cli_print_result (FILE                     *out,
                          const LaminaResult       *r)
 {
   char reported[LAMINA_U_TEXT_SIZE];
+  g_autoptr(GError) dynamic_error = NULL;
+  LaminaDynamic dynamic;
 
   fprintf (out, "%s%s%s — %s\n", c->code ? c->code : "", c->code ? " " : "", c->id, c->name);
   fprintf (out, _("  %s, heat flow %s, outer side %s\n"), lamina_element_to_string (c->element),
@@ -222,7 +253,18 @@ lamina_cli_print_result (FILE                     *out,
            r->u, r->delta_u, r->u_corrected, lamina_format_u (reported, r->u_corrected));
   if (r->has_target)
     fprintf (out, _("  target U %.2f: %s\n"), c->target_u, r->target_met ? _("met") : _("NOT MET"));
+  if (lamina_dynamic_calculate (c, r, LAMINA_DYNAMIC_PERIOD_HOURS, &dynamic, &dynamic_error))
+    {
+      fprintf (out, _("  EN ISO 13786 (24 h): |Y12| %.4f W/(m²K)   f %.3f   time shift %.1f h   |Y11| %.2f W/(m²K)\n"),
+               dynamic.periodic_transmittance, dynamic.decrement_factor, dynamic.time_shift,
+               dynamic.admittance_inner);
+      fprintf (out, _("  κ1 %.1f   κ2 %.1f kJ/(m²K)%s\n"), dynamic.areal_heat_capacity_inner / 1000.0,
+               dynamic.areal_heat_capacity_outer / 1000.0,
+               dynamic.bridged_equivalent ? _("   (bridged layers by their lower-limit equivalent)") : "");
+    }
   for (guint i = 0; i < r->warnings->len; i++)
     fprintf (out, _("  warning: %s\n"), ((LaminaWarning *) r->warnings->pdata[i])->message);
+  if (dynamic_error != NULL)
+    fprintf (out, _("  warning: %s\n"), dynamic_error->message);
   fprintf (out, "  %s\n\n", lamina_cli_caution ());
 }

@@ -32,6 +32,7 @@ static const Command commands[] = {
   { "section", lamina_cli_section, N_("Draw a construction's section to a PNG or SVG image") },
   { "sheet", lamina_cli_sheet, N_("Print a construction's specification sheet to PDF") },
   { "catalogue", lamina_cli_catalogue, N_("Print a catalogue of sheets, with index, to PDF") },
+  { "solve", lamina_cli_solve, N_("The thickness of a layer that meets a target U") },
 };
 
 void

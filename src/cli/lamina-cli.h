@@ -43,6 +43,7 @@ int  lamina_cli_demo      (const LaminaCliGlobals *globals, int argc, char **arg
 int  lamina_cli_section   (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_sheet     (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_catalogue (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_solve     (const LaminaCliGlobals *globals, int argc, char **argv);
 
 /* Prints "lamina-cli: message" on stderr. */
 void lamina_cli_error   (const char *format,
