@@ -7,9 +7,11 @@
 #include "lamina-catalogue.h"
 #include "lamina-cli.h"
 #include "lamina-cli-library.h"
+#include "lamina-file.h"
 
 #include <glib/gi18n.h>
 #include <stdio.h>
+#include <string.h>
 
 
 static int
@@ -103,7 +105,7 @@ lamina_cli_export (const LaminaCliGlobals *globals,
   g_autofree char *output = NULL;
   gboolean force = globals->force;
   const GOptionEntry entries[] = {
-    { "output", 'o', 0, G_OPTION_ARG_FILENAME, &output, N_("Write to FILE (default: standard output)"), "FILE" },
+    { "output", 'o', 0, G_OPTION_ARG_FILENAME, &output, N_("Write to FILE (default or “-”: standard output)"), "FILE" },
     { "force", 0, 0, G_OPTION_ARG_NONE, &force, N_("Overwrite FILE if it exists"), NULL },
     { NULL }
   };
@@ -116,9 +118,9 @@ lamina_cli_export (const LaminaCliGlobals *globals,
   g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
   if (!lamina_cli_parse (context, &argc, &argv))
     return LAMINA_EXIT_USAGE;
-  if (output != NULL && !force && g_file_test (output, G_FILE_TEST_EXISTS))
+  if (output != NULL && !lamina_file_check_target (output, force, &error))
     {
-      lamina_cli_error (_("%s: exists already; not overwritten (use --force)"), output);
+      lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
   library = lamina_cli_open_library (globals, FALSE);
@@ -140,31 +142,19 @@ lamina_cli_export (const LaminaCliGlobals *globals,
       lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
-  if (output != NULL)
+  /* Standard output goes through the same checked writer as a file: a
+   * full disk behind a redirection is an error, not a short document. */
+  fflush (stdout);
+  if (!lamina_catalogue_write_file (catalogue, output ? output : "-", LAMINA_WRITE_DERIVED, &error))
     {
-      if (!lamina_catalogue_write_file (catalogue, output, LAMINA_WRITE_DERIVED, &error))
-        {
-          lamina_cli_error ("%s", error->message);
-          return LAMINA_EXIT_BAD_INPUT;
-        }
-      /* On stdout only when the catalogue itself is not going there. */
-      printf (g_dngettext (GETTEXT_PACKAGE, "%u construction and %u materials exported to %s\n",
-                           "%u constructions and %u materials exported to %s\n", catalogue->constructions->len),
-              catalogue->constructions->len, catalogue->materials->len, output);
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
     }
-  else
-    {
-      gsize len = 0;
-      g_autofree char *text = lamina_catalogue_write_to_string (catalogue, LAMINA_WRITE_DERIVED,
-                                                                &len, &error);
-
-      if (text == NULL)
-        {
-          lamina_cli_error ("%s", error->message);
-          return LAMINA_EXIT_BAD_INPUT;
-        }
-      fwrite (text, 1, len, stdout);
-    }
+  /* On stdout only when the catalogue itself is not going there. */
+  if (output != NULL && strcmp (output, "-") != 0)
+    printf (g_dngettext (GETTEXT_PACKAGE, "%u construction and %u materials exported to %s\n",
+                         "%u constructions and %u materials exported to %s\n", catalogue->constructions->len),
+            catalogue->constructions->len, catalogue->materials->len, output);
   return LAMINA_EXIT_OK;
 }
 

@@ -8,13 +8,12 @@
 #include "lamina-cli.h"
 #include "lamina-cli-library.h"
 #include "lamina-catalogue.h"
+#include "lamina-file.h"
 #include "lamina-library.h"
 #include "lamina-section.h"
 #include "lamina-sheet.h"
 
 #include <glib/gi18n.h>
-#include <glib/gstdio.h>
-#include <errno.h>
 #include <stdio.h>
 #include <string.h>
 #include <unistd.h>
@@ -132,14 +131,16 @@ static gboolean
 check_output (const Job              *job,
               const LaminaCliGlobals *globals)
 {
+  g_autoptr(GError) error = NULL;
+
   if (job->output == NULL)
     {
       lamina_cli_error (_("-o FILE is required"));
       return FALSE;
     }
-  if (!globals->force && g_file_test (job->output, G_FILE_TEST_EXISTS))
+  if (!lamina_file_check_target (job->output, globals->force, &error))
     {
-      lamina_cli_error (_("%s: the file exists (use --force to replace it)"), job->output);
+      lamina_cli_error ("%s", error->message);
       return FALSE;
     }
   return TRUE;
@@ -152,7 +153,7 @@ create_context (Job        *job,
                 gboolean    selection)
 {
   GOptionEntry common[] = {
-    { "output", 'o', 0, G_OPTION_ARG_FILENAME, &job->output, N_("Write to FILE"), "FILE" },
+    { "output", 'o', 0, G_OPTION_ARG_FILENAME, &job->output, N_("Write to FILE (“-”: standard output)"), "FILE" },
     { "from", 0, 0, G_OPTION_ARG_FILENAME, &job->from, N_("Read the constructions from a catalogue document"), "FILE.xml" },
     { NULL }
   };
@@ -194,7 +195,6 @@ lamina_cli_section (const LaminaCliGlobals *globals,
   g_autoptr(LaminaResult) result = NULL;
   g_autoptr(GError) error = NULL;
   g_autofree char *id = NULL;
-  g_autofree char *tmp = NULL;
   gboolean svg;
 
   if (!lamina_cli_parse (context, &argc, &argv))
@@ -226,18 +226,15 @@ lamina_cli_section (const LaminaCliGlobals *globals,
       lamina_cli_error ("%s: %s", argv[1], error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
-  /* Atomic: a temporary file beside the target, then a rename. */
-  tmp = g_strdup_printf ("%s.part-%d", job.output, (int) getpid ());
   svg = g_str_has_suffix (job.output, ".svg") || g_str_has_suffix (job.output, ".SVG");
-  if (!(svg ? lamina_section_write_svg : lamina_section_write_png) (c, result, job.width, job.height, tmp, &error) ||
-      g_rename (tmp, job.output) != 0)
+  if (!(svg ? lamina_section_write_svg : lamina_section_write_png) (c, result, job.width, job.height, job.output,
+                                                                    globals->force, &error))
     {
-      lamina_cli_error ("%s", error ? error->message : g_strerror (errno));
-      g_unlink (tmp);
+      lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
   /* TRANSLATORS: "EW-101 revision 3: section drawn to ew-101.svg (SVG, 1600 × 1000 px)" */
-  printf (_("%s revision %d: section drawn to %s (%s, %d × %d px)\n"), c->code ? c->code : c->id, c->revision,
+  fprintf (lamina_cli_message_stream (job.output), _("%s revision %d: section drawn to %s (%s, %d × %d px)\n"), c->code ? c->code : c->id, c->revision,
           job.output, svg ? "SVG" : "PNG", job.width, job.height);
   return LAMINA_EXIT_OK;
 }
@@ -277,7 +274,7 @@ lamina_cli_sheet (const LaminaCliGlobals *globals,
       return LAMINA_EXIT_BAD_INPUT;
     }
   /* TRANSLATORS: "EW-101 revision 3 (approved): sheet written to ew-101.pdf" */
-  printf (_("%s revision %d (%s): sheet written to %s\n"), c->code ? c->code : c->id, c->revision,
+  fprintf (lamina_cli_message_stream (job.output), _("%s revision %d (%s): sheet written to %s\n"), c->code ? c->code : c->id, c->revision,
           lamina_status_to_string (c->status), job.output);
   return LAMINA_EXIT_OK;
 }
@@ -365,7 +362,7 @@ lamina_cli_catalogue (const LaminaCliGlobals *globals,
       lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
-  printf (g_dngettext (GETTEXT_PACKAGE, "Catalogue of %u sheet written to %s\n",
+  fprintf (lamina_cli_message_stream (job.output), g_dngettext (GETTEXT_PACKAGE, "Catalogue of %u sheet written to %s\n",
                        "Catalogue of %u sheets written to %s\n", job.ids->len),
           job.ids->len, job.output);
   return LAMINA_EXIT_OK;

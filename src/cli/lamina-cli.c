@@ -35,6 +35,12 @@ static const Command commands[] = {
   { "solve", lamina_cli_solve, N_("The thickness of a layer that meets a target U") },
 };
 
+FILE *
+lamina_cli_message_stream (const char *output)
+{
+  return g_strcmp0 (output, "-") == 0 ? stderr : stdout;
+}
+
 void
 lamina_cli_error (const char *format,
                   ...)

@@ -4,6 +4,7 @@
 #pragma once
 
 #include <glib.h>
+#include <stdio.h>
 
 G_BEGIN_DECLS
 
@@ -45,6 +46,9 @@ int  lamina_cli_sheet     (const LaminaCliGlobals *globals, int argc, char **arg
 int  lamina_cli_catalogue (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_solve     (const LaminaCliGlobals *globals, int argc, char **argv);
 
+/* Where to say what was written: stdout, or stderr when the output
+ * itself goes to stdout ("-o -"). */
+FILE *lamina_cli_message_stream (const char *output);
 /* Prints "lamina-cli: message" on stderr. */
 void lamina_cli_error   (const char *format,
                          ...) G_GNUC_PRINTF (1, 2);

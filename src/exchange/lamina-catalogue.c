@@ -5,6 +5,8 @@
 
 #include "lamina-catalogue-private.h"
 
+#include "lamina-file.h"
+
 #include <errno.h>
 #include <glib/gi18n-lib.h>
 #include <glib/gstdio.h>
@@ -185,22 +187,20 @@ lamina_catalogue_read_file (const char  *path,
 {
   g_autofree char *data = NULL;
   g_autoptr(GError) local = NULL;
-  GStatBuf st;
   gsize length;
 
   g_return_val_if_fail (path != NULL, NULL);
 
-  /* Refuse a huge file before reading it into memory. */
-  if (g_stat (path, &st) == 0 && (guint64) st.st_size > LAMINA_CATALOGUE_MAX_SIZE)
+  /* The limit holds while reading, so that a pipe or a device
+   * (/dev/zero) cannot grow without bound either. */
+  data = lamina_file_read_limited (path, LAMINA_CATALOGUE_MAX_SIZE, &length, &local);
+  if (data == NULL)
     {
-      g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_MALFORMED,
-                   "%s:1: %s", path, _("the document is larger than 256 MiB"));
-      return NULL;
-    }
-  if (!g_file_get_contents (path, &data, &length, &local))
-    {
-      /* GFileError messages already name the file. */
-      g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_IO, "%s", local->message);
+      if (g_error_matches (local, LAMINA_FILE_ERROR, LAMINA_FILE_ERROR_TOO_BIG))
+        g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_MALFORMED,
+                     "%s:1: %s", path, _("the document is larger than 256 MiB"));
+      else
+        g_set_error_literal (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_IO, local->message);
       return NULL;
     }
   return lamina_catalogue_read_memory (data, length, path, error);
@@ -222,12 +222,10 @@ lamina_catalogue_write_file (const LaminaCatalogue *catalogue,
   text = lamina_catalogue_write_to_string (catalogue, flags, &length, error);
   if (text == NULL)
     return FALSE;
-  /* g_file_set_contents writes a temporary file beside @path, syncs it
-   * and renames it over @path: a reader sees the old or the new file. */
-  if (!g_file_set_contents_full (path, text, (gssize) length,
-                                 G_FILE_SET_CONTENTS_CONSISTENT, 0666, &local))
+  /* A reader sees the old or the new file; "-" is standard output. */
+  if (!lamina_file_write_contents (path, TRUE, text, length, &local))
     {
-      g_set_error (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_IO, "%s", local->message);
+      g_set_error_literal (error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_IO, local->message);
       return FALSE;
     }
   return TRUE;

@@ -10,6 +10,7 @@
 #include <cairo-svg.h>
 #include <pango/pangocairo.h>
 
+#include "lamina-cairo-output.h"
 #include "lamina-hatch.h"
 #include "lamina-sheet-format.h"
 
@@ -783,17 +784,20 @@ render_whole (cairo_t                  *cr,
   lamina_section_layout_clear (&layout);
 }
 
-/* One writer for both formats: an image surface saved as PNG, or an SVG
- * surface, whose write errors show only once it is finished. */
+/* One writer for both formats: an image surface streamed as PNG, or an
+ * SVG surface, whose write errors show only once it is finished; both
+ * through the safe writer ("-" = standard output). */
 static gboolean
 write_file (const LaminaConstruction *construction,
             const LaminaResult       *result,
             int                       width,
             int                       height,
             const char               *path,
+            gboolean                  overwrite,
             gboolean                  svg,
             GError                  **error)
 {
+  LaminaFileWriter *writer;
   cairo_surface_t *surface;
   cairo_status_t status;
   cairo_t *cr;
@@ -801,9 +805,12 @@ write_file (const LaminaConstruction *construction,
   g_return_val_if_fail (construction != NULL && path != NULL, FALSE);
   g_return_val_if_fail (width > 0 && height > 0, FALSE);
 
+  writer = lamina_cairo_output_open (path, overwrite, error);
+  if (writer == NULL)
+    return FALSE;
   if (svg)
     {
-      surface = cairo_svg_surface_create (path, width, height);
+      surface = cairo_svg_surface_create_for_stream (lamina_cairo_output_write_cb, writer, width, height);
       /* Pixel units: a drawing program takes the size the PNG has. */
       cairo_svg_surface_set_document_unit (surface, CAIRO_SVG_UNIT_PX);
     }
@@ -818,16 +825,9 @@ write_file (const LaminaConstruction *construction,
       status = cairo_surface_status (surface);
     }
   else
-    status = cairo_surface_write_to_png (surface, path);
+    status = cairo_surface_write_to_png_stream (surface, lamina_cairo_output_write_cb, writer);
   cairo_surface_destroy (surface);
-  if (status != CAIRO_STATUS_SUCCESS)
-    {
-      g_set_error (error, G_FILE_ERROR, G_FILE_ERROR_FAILED,
-                   svg ? _("%s: cannot write the SVG: %s") : _("%s: cannot write the PNG: %s"),
-                   path, cairo_status_to_string (status));
-      return FALSE;
-    }
-  return TRUE;
+  return lamina_cairo_output_close (writer, TRUE, status, error);
 }
 
 gboolean
@@ -836,9 +836,10 @@ lamina_section_write_png (const LaminaConstruction *construction,
                           int                       width,
                           int                       height,
                           const char               *path,
+                          gboolean                  overwrite,
                           GError                  **error)
 {
-  return write_file (construction, result, width, height, path, FALSE, error);
+  return write_file (construction, result, width, height, path, overwrite, FALSE, error);
 }
 
 gboolean
@@ -847,7 +848,8 @@ lamina_section_write_svg (const LaminaConstruction *construction,
                           int                       width,
                           int                       height,
                           const char               *path,
+                          gboolean                  overwrite,
                           GError                  **error)
 {
-  return write_file (construction, result, width, height, path, TRUE, error);
+  return write_file (construction, result, width, height, path, overwrite, TRUE, error);
 }

@@ -128,12 +128,13 @@ void           lamina_section_draw   (LaminaSection             *self,
                                       const LaminaSectionStyle  *style);
 
 /* Renders a whole section to a PNG file of @width × @height pixels on
- * white. */
+ * white, through lamina-file.h's safe writer ("-" = standard output). */
 gboolean       lamina_section_write_png (const LaminaConstruction *construction,
                                          const LaminaResult       *result,
                                          int                       width,
                                          int                       height,
                                          const char               *path,
+                                         gboolean                  overwrite,
                                          GError                  **error);
 
 /* The same drawing as an SVG of @width × @height px, for the office's
@@ -143,6 +144,7 @@ gboolean       lamina_section_write_svg (const LaminaConstruction *construction,
                                          int                       width,
                                          int                       height,
                                          const char               *path,
+                                         gboolean                  overwrite,
                                          GError                  **error);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaSection, lamina_section_free)

@@ -6,81 +6,10 @@
 #include "config.h"
 
 #include "lamina-sheet-private.h"
+#include "lamina-cairo-output.h"
 
 #include <cairo-pdf.h>
-#include <errno.h>
-#include <fcntl.h>
 #include <glib/gi18n-lib.h>
-#include <glib/gstdio.h>
-#include <unistd.h>
-
-typedef struct
-{
-  int  fd;
-  int  saved_errno;
-} Sink;
-
-static cairo_status_t
-write_cb (void                *closure,
-          const unsigned char *data,
-          unsigned int         length)
-{
-  Sink *sink = closure;
-
-  while (length > 0)
-    {
-      ssize_t done = write (sink->fd, data, length);
-      if (done < 0 && errno == EINTR)
-        continue;
-      if (done <= 0)
-        {
-          sink->saved_errno = done < 0 ? errno : EIO;
-          return CAIRO_STATUS_WRITE_ERROR;
-        }
-      data += done;
-      length -= (unsigned int) done;
-    }
-  return CAIRO_STATUS_SUCCESS;
-}
-
-static gboolean
-set_io_error (GError    **error,
-              const char *path,
-              int         saved_errno)
-{
-  g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_IO, "%s: %s", path, g_strerror (saved_errno));
-  return FALSE;
-}
-
-/* Moves the finished temporary file into place: rename() when
- * overwriting, link() otherwise, which fails if the target appeared
- * meanwhile instead of replacing it. */
-static gboolean
-commit_file (const char *tmp_path,
-             const char *path,
-             gboolean    overwrite,
-             GError    **error)
-{
-  if (overwrite)
-    {
-      if (g_rename (tmp_path, path) != 0)
-        return set_io_error (error, path, errno);
-      return TRUE;
-    }
-  if (link (tmp_path, path) != 0)
-    {
-      int saved = errno;
-      if (saved == EEXIST)
-        {
-          g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_EXISTS,
-                       _("%s: the file exists (use --force to replace it)"), path);
-          return FALSE;
-        }
-      return set_io_error (error, path, saved);
-    }
-  g_unlink (tmp_path);
-  return TRUE;
-}
 
 static char *
 dup_iso_date (const char *printed)
@@ -180,6 +109,7 @@ typedef struct
   LaminaSheetFetch  fetch;
   gpointer          fetch_data;
   gboolean          front_matter;
+  LaminaFileWriter *writer;       /* stop early once a write failed */
 } Source;
 
 static gboolean
@@ -236,7 +166,7 @@ write_pages (cairo_surface_t          *surface,
         }
     }
 
-  for (guint i = 0; i < source->n && ok; i++)
+  for (guint i = 0; i < source->n && ok && !lamina_file_writer_failed (source->writer); i++)
     {
       g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
       g_autoptr(LaminaResult) r = NULL;
@@ -274,53 +204,27 @@ write_document (const char               *path,
                 gpointer                  progress_data,
                 GError                  **error)
 {
-  g_autofree char *dir = g_path_get_dirname (path);
-  g_autofree char *base = g_path_get_basename (path);
-  g_autofree char *tmp_path = g_strdup_printf ("%s/.%s.XXXXXX", dir, base);
+  LaminaFileWriter *writer = lamina_cairo_output_open (path, overwrite, error);
+  Source output_source = *source;
   cairo_surface_t *surface;
   cairo_status_t status;
-  Sink sink = { -1, 0 };
   double width, height;
   gboolean ok;
   cairo_t *cr;
 
-  if (!overwrite && g_file_test (path, G_FILE_TEST_EXISTS))
-    {
-      g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_EXISTS,
-                   _("%s: the file exists (use --force to replace it)"), path);
-      return FALSE;
-    }
-  sink.fd = g_mkstemp_full (tmp_path, O_WRONLY | O_CLOEXEC, 0644);
-  if (sink.fd < 0)
-    return set_io_error (error, path, errno);
-
+  if (writer == NULL)
+    return FALSE;
   lamina_paper_get_size (options->paper, &width, &height);
-  surface = cairo_pdf_surface_create_for_stream (write_cb, &sink, width, height);
+  surface = cairo_pdf_surface_create_for_stream (lamina_cairo_output_write_cb, writer, width, height);
   cr = cairo_create (surface);
-  ok = write_pages (surface, cr, options, source, progress, progress_data, error);
+  output_source.writer = writer;
+  ok = write_pages (surface, cr, options, &output_source, progress, progress_data, error);
   cairo_destroy (cr);
+  /* cairo reports a failed write only here, after the trailer. */
   cairo_surface_finish (surface);
   status = cairo_surface_status (surface);
   cairo_surface_destroy (surface);
-
-  if (ok && status != CAIRO_STATUS_SUCCESS)
-    {
-      if (sink.saved_errno)
-        set_io_error (error, path, sink.saved_errno);
-      else
-        g_set_error (error, LAMINA_SHEET_ERROR, LAMINA_SHEET_ERROR_IO, "%s: %s", path,
-                     cairo_status_to_string (status));
-      ok = FALSE;
-    }
-  if (ok && fsync (sink.fd) != 0)
-    ok = set_io_error (error, path, errno);
-  if (close (sink.fd) != 0 && ok)
-    ok = set_io_error (error, path, errno);
-  if (ok)
-    ok = commit_file (tmp_path, path, overwrite, error);
-  if (!ok)
-    g_unlink (tmp_path);
-  return ok;
+  return lamina_cairo_output_close (writer, ok, status, error);
 }
 
 static LaminaConstruction *
@@ -338,7 +242,7 @@ lamina_sheet_write_pdf (const char               *path,
                         const LaminaConstruction *construction,
                         GError                  **error)
 {
-  Source source = { 1, fetch_single_cb, (gpointer) construction, FALSE };
+  Source source = { 1, fetch_single_cb, (gpointer) construction, FALSE, NULL };
 
   g_return_val_if_fail (path != NULL && options != NULL && construction != NULL, FALSE);
   return write_document (path, overwrite, options, &source, NULL, NULL, error);
@@ -355,7 +259,7 @@ lamina_sheet_write_catalogue (const char               *path,
                               gpointer                  progress_data,
                               GError                  **error)
 {
-  Source source = { n, fetch, fetch_data, TRUE };
+  Source source = { n, fetch, fetch_data, TRUE, NULL };
 
   g_return_val_if_fail (path != NULL && options != NULL && fetch != NULL, FALSE);
   return write_document (path, overwrite, options, &source, progress, progress_data, error);
