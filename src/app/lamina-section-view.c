@@ -535,13 +535,6 @@ lamina_section_view_set_selected (LaminaSectionView *self,
   set_selected_internal (self, layer);
 }
 
-double
-lamina_section_view_get_snap_step (LaminaSectionView *self)
-{
-  g_return_val_if_fail (LAMINA_IS_SECTION_VIEW (self), 0.0);
-  return self->snap_step;
-}
-
 void
 lamina_section_view_set_snap_step (LaminaSectionView *self,
                                    double             step)

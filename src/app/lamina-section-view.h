@@ -24,7 +24,6 @@ void       lamina_section_view_set_construction (LaminaSectionView        *self,
 int        lamina_section_view_get_selected   (LaminaSectionView        *self);
 void       lamina_section_view_set_selected   (LaminaSectionView        *self,
                                                int                       layer);
-double     lamina_section_view_get_snap_step  (LaminaSectionView        *self);
 void       lamina_section_view_set_snap_step  (LaminaSectionView        *self,
                                                double                    step);
 gboolean   lamina_section_view_get_show_temperatures (LaminaSectionView *self);

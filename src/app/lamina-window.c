@@ -208,13 +208,31 @@ on_selection_changed_cb (LaminaWindow *self)
     lamina_window_notify (self, error->message);
 }
 
+/* The number of rows, or why the library could not be read (a busy or
+ * damaged file, a closed library): an empty list must not pass for an
+ * empty result. */
 static void
 update_count (LaminaWindow *self)
 {
   guint n = g_list_model_get_n_items (G_LIST_MODEL (self->list));
-  g_autofree char *text = g_strdup_printf (g_dngettext (NULL, "%u construction", "%u constructions", n), n);
+  const char *error = lamina_construction_list_get_error (self->list);
+  g_autofree char *text = NULL;
 
+  if (error != NULL)
+    {
+      text = g_strdup_printf (_("The library could not be read: %s"), error);
+      gtk_widget_add_css_class (GTK_WIDGET (self->count_label), "lamina-error");
+      gtk_widget_remove_css_class (GTK_WIDGET (self->count_label), "dim-label");
+      gtk_label_set_wrap (self->count_label, TRUE);
+    }
+  else
+    {
+      text = g_strdup_printf (g_dngettext (NULL, "%u construction", "%u constructions", n), n);
+      gtk_widget_remove_css_class (GTK_WIDGET (self->count_label), "lamina-error");
+      gtk_widget_add_css_class (GTK_WIDGET (self->count_label), "dim-label");
+    }
   gtk_label_set_text (self->count_label, text);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->count_label), error != NULL ? text : NULL);
 }
 
 /* After the list changed: select the open construction's row again. */
@@ -605,13 +623,6 @@ lamina_window_new (GtkApplication    *application,
 
   set_document (self, NULL);
   return self;
-}
-
-LaminaLibrary *
-lamina_window_get_library (LaminaWindow *self)
-{
-  g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
-  return self->library;
 }
 
 LaminaConstructionList *

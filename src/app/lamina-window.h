@@ -15,7 +15,6 @@ G_DECLARE_FINAL_TYPE (LaminaWindow, lamina_window, LAMINA, WINDOW, GtkApplicatio
 
 LaminaWindow           *lamina_window_new          (GtkApplication    *application,
                                                     LaminaLibrary     *library);
-LaminaLibrary          *lamina_window_get_library  (LaminaWindow      *self);
 LaminaConstructionList *lamina_window_get_list     (LaminaWindow      *self);
 LaminaEditor           *lamina_window_get_editor   (LaminaWindow      *self);
 /* Opens construction @id in the editor (and selects its row). */

@@ -32,8 +32,6 @@ typedef struct
   gboolean            (*put_material)       (LaminaBackend *backend,
                                              const LaminaMaterial *material,
                                              const char *now, GError **error);
-  gboolean            (*delete_material)    (LaminaBackend *backend, const char *id,
-                                             GError **error);
 
   LaminaConstruction *(*get_construction)   (LaminaBackend *backend, const char *id,
                                              int revision, GError **error);

@@ -205,16 +205,3 @@ lamina_library_put_material (LaminaLibrary   *self,
   return TRUE;
 }
 
-gboolean
-lamina_library_delete_material (LaminaLibrary  *self,
-                                const char     *id,
-                                GError        **error)
-{
-  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
-  g_return_val_if_fail (id != NULL, FALSE);
-  BACKEND_OR_FAIL (self, error, FALSE);
-  if (!VT (self)->delete_material (self->backend, id, error))
-    return FALSE;
-  lamina_library_emit_changed (self);
-  return TRUE;
-}

@@ -102,11 +102,6 @@ LaminaMaterial *lamina_library_dup_material  (LaminaLibrary        *self,
 gboolean       lamina_library_put_material   (LaminaLibrary        *self,
                                               LaminaMaterial       *material,
                                               GError              **error);
-/* Layers keep their own copies, so removing a material changes no
- * construction. */
-gboolean       lamina_library_delete_material (LaminaLibrary       *self,
-                                               const char          *id,
-                                               GError             **error);
 
 /* ---- Constructions --------------------------------------------------- */
 

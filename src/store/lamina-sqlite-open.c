@@ -84,7 +84,6 @@ static const LaminaBackendVTable sqlite_vtable = {
   .list_materials = lamina_sqlite_backend_list_materials,
   .get_material = lamina_sqlite_backend_get_material,
   .put_material = lamina_sqlite_backend_put_material,
-  .delete_material = lamina_sqlite_backend_delete_material,
 
   .get_construction = lamina_sqlite_backend_get_construction,
   .store_revision = lamina_sqlite_backend_store_revision,

@@ -77,9 +77,6 @@ gboolean            lamina_sqlite_backend_put_material     (LaminaBackend *backe
                                                             const LaminaMaterial *material,
                                                             const char *now,
                                                             GError **error);
-gboolean            lamina_sqlite_backend_delete_material  (LaminaBackend *backend,
-                                                            const char *id,
-                                                            GError **error);
 /* lamina-sqlite-revisions.c: */
 LaminaConstruction *lamina_sqlite_backend_get_construction (LaminaBackend *backend,
                                                             const char *id,

@@ -155,50 +155,6 @@ lamina_sqlite_backend_put_material (LaminaBackend         *backend,
   return TRUE;
 }
 
-static gboolean
-delete_material_in_txn (LaminaSqlite  *self,
-                        const char    *id,
-                        GError       **error);
-
-gboolean
-lamina_sqlite_backend_delete_material (LaminaBackend  *backend,
-                                       const char     *id,
-                                       GError        **error)
-{
-  if (!lamina_sqlite_begin (SELF, error))
-    return FALSE;
-  if (!delete_material_in_txn (SELF, id, error) || !lamina_sqlite_commit (SELF, error))
-    {
-      lamina_sqlite_rollback (SELF);
-      return FALSE;
-    }
-  return TRUE;
-}
-
-static gboolean
-delete_material_in_txn (LaminaSqlite  *self,
-                        const char    *id,
-                        GError       **error)
-{
-  LaminaBackend *backend = &self->parent;
-
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
-    "DELETE FROM material WHERE id = ?1;", error);
-
-  if (stmt == NULL)
-    return FALSE;
-  lamina_sqlite_bind_text (stmt, 1, id);
-  if (!lamina_sqlite_step_done (SELF, stmt, error))
-    return FALSE;
-  if (sqlite3_changes (SELF->db) == 0)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
-                   "no material “%s” in the library", id);
-      return FALSE;
-    }
-  return lamina_sqlite_refresh_material_flags (SELF, id, error);
-}
-
 gboolean
 lamina_sqlite_put_material (LaminaSqlite          *self,
                             const LaminaMaterial  *material,

@@ -21,6 +21,7 @@
 #include "lamina-parts-dialog.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
+#include "lamina-window-private.h"
 
 typedef struct
 {
@@ -130,14 +131,28 @@ shown_u (Fixture *f)
   return lamina_results_view_get_u_text (lamina_editor_get_results_view (lamina_window_get_editor (f->window)));
 }
 
+/* The U the library stored with the latest revision of @id: the
+ * corrected-U column that the list and the search read, through the
+ * store's search (lamina_library_dup_result would calculate it again). */
 static double
 stored_u (Fixture    *f,
           const char *id)
 {
-  g_autoptr(LaminaResult) r = lamina_library_dup_result (f->library, id, 0, NULL);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) rows = NULL;
+  LaminaLibraryQuery query;
 
-  g_assert_nonnull (r);
-  return r->u_corrected;
+  lamina_library_query_init (&query);
+  rows = lamina_library_search (f->library, &query, &error);
+  g_assert_no_error (error);
+  for (guint i = 0; i < rows->len; i++)
+    {
+      const LaminaSummary *s = rows->pdata[i];
+
+      if (g_str_equal (s->id, id))
+        return s->u_corrected;
+    }
+  g_assert_not_reached ();
 }
 
 static void
@@ -222,6 +237,26 @@ test_search_narrows (Fixture       *f,
   g_assert_cmpuint (g_list_model_get_n_items (list), ==, 0);
   lamina_window_set_search (f->window, "");
   g_assert_cmpuint (g_list_model_get_n_items (list), ==, all);
+}
+
+/* A library that cannot be read is said so where the count stands, not
+ * shown as an empty list. */
+static void
+test_list_error_shown (Fixture       *f,
+                       gconstpointer  data)
+{
+  const char *text;
+
+  g_assert_cmpstr (lamina_construction_list_get_error (lamina_window_get_list (f->window)), ==, NULL);
+  g_assert_false (gtk_widget_has_css_class (GTK_WIDGET (f->window->count_label), "lamina-error"));
+  lamina_library_close (f->library);
+  g_test_expect_message ("lamina-app", G_LOG_LEVEL_WARNING, "Library list: *closed*");
+  lamina_window_set_search (f->window, "brick");
+  g_test_assert_expected_messages ();
+  text = gtk_label_get_text (f->window->count_label);
+  g_assert_true (g_str_has_prefix (text, "The library could not be read: "));
+  g_assert_nonnull (strstr (text, "the library is closed"));
+  g_assert_true (gtk_widget_has_css_class (GTK_WIDGET (f->window->count_label), "lamina-error"));
 }
 
 static void
@@ -911,6 +946,7 @@ main (int   argc,
     {
       g_test_add ("/app/window/drag-updates-u", Fixture, NULL, fixture_setup, test_drag_updates_u, fixture_teardown);
       g_test_add ("/app/window/search-narrows", Fixture, NULL, fixture_setup, test_search_narrows, fixture_teardown);
+      g_test_add ("/app/window/list-error-shown", Fixture, NULL, fixture_setup, test_list_error_shown, fixture_teardown);
       g_test_add ("/app/window/approve-then-edit", Fixture, NULL, fixture_setup, test_approve_then_edit, fixture_teardown);
       g_test_add ("/app/window/material-changed", Fixture, NULL, fixture_setup, test_material_changed, fixture_teardown);
       g_test_add ("/app/window/derive-delete-undo", Fixture, NULL, fixture_setup, test_derive_delete_undo, fixture_teardown);
