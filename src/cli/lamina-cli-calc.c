@@ -9,6 +9,7 @@
 #include "lamina-cli-report.h"
 
 #include <glib/gi18n.h>
+#include <math.h>
 
 int
 lamina_cli_calc (const LaminaCliGlobals *globals,
@@ -48,6 +49,8 @@ lamina_cli_calc (const LaminaCliGlobals *globals,
     {
       const LaminaConstruction *c = catalogue->constructions->pdata[i];
       g_autoptr(LaminaResult) result = NULL;
+      g_autoptr(LaminaMoistureResult) moisture = NULL;
+      JsonNode *moisture_node = NULL;
 
       if (id != NULL && g_strcmp0 (id, c->id) != 0)
         continue;
@@ -57,10 +60,34 @@ lamina_cli_calc (const LaminaCliGlobals *globals,
           fprintf (stderr, "%s:%d: %s\n", argv[1], c->line, error->message);
           return LAMINA_EXIT_BAD_INPUT;
         }
+      if (c->moisture != NULL)
+        {
+          const LaminaClimate *climate = lamina_catalogue_find_climate (catalogue, c->moisture->climate);
+
+          moisture = lamina_moisture_calculate (c, climate, NAN, &error);
+          if (moisture == NULL)
+            {
+              fprintf (stderr, "%s:%d: %s\n", argv[1], c->moisture->line, error->message);
+              return LAMINA_EXIT_BAD_INPUT;
+            }
+          if (json)
+            moisture_node = lamina_cli_moisture_to_json (c, climate, moisture);
+        }
       if (json)
-        json_array_add_element (array, lamina_cli_result_to_json (c, result));
+        {
+          JsonNode *node = lamina_cli_result_to_json (c, result);
+
+          if (moisture_node != NULL)
+            json_object_set_member (json_node_get_object (node), "moisture", moisture_node);
+          json_array_add_element (array, node);
+        }
       else
-        lamina_cli_print_result (stdout, c, result);
+        {
+          lamina_cli_print_result (stdout, c, result);
+          if (moisture != NULL)
+            lamina_cli_print_moisture (stdout, c, lamina_catalogue_find_climate (catalogue, c->moisture->climate),
+                                       moisture);
+        }
       n_done++;
     }
   if (id != NULL && n_done == 0)

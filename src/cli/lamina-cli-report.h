@@ -7,6 +7,7 @@
 #include <stdio.h>
 
 #include "lamina-calc.h"
+#include "lamina-moisture.h"
 
 G_BEGIN_DECLS
 
@@ -28,6 +29,14 @@ void      lamina_cli_json_add_string  (JsonBuilder              *builder,
 void      lamina_cli_print_result     (FILE                     *out,
                                        const LaminaConstruction *construction,
                                        const LaminaResult       *result);
+/* The "moisture" object of a construction (EN ISO 13788), and its text. */
+JsonNode *lamina_cli_moisture_to_json (const LaminaConstruction   *construction,
+                                       const LaminaClimate        *climate,
+                                       const LaminaMoistureResult *result);
+void      lamina_cli_print_moisture   (FILE                       *out,
+                                       const LaminaConstruction   *construction,
+                                       const LaminaClimate        *climate,
+                                       const LaminaMoistureResult *result);
 /* The caution printed under every result. */
 const char *lamina_cli_caution        (void);
 

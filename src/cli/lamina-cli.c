@@ -33,6 +33,7 @@ static const Command commands[] = {
   { "sheet", lamina_cli_sheet, N_("Print a construction's specification sheet to PDF") },
   { "catalogue", lamina_cli_catalogue, N_("Print a catalogue of sheets, with index, to PDF") },
   { "solve", lamina_cli_solve, N_("The thickness of a layer that meets a target U") },
+  { "moisture", lamina_cli_moisture, N_("Check the constructions of a catalogue file for condensation (EN ISO 13788)") },
 };
 
 FILE *

@@ -30,6 +30,9 @@ typedef int (*LaminaCliFunc) (const LaminaCliGlobals *globals,
 int  lamina_cli_calc    (const LaminaCliGlobals *globals,
                          int                     argc,
                          char                  **argv);
+int  lamina_cli_moisture (const LaminaCliGlobals *globals,
+                          int                     argc,
+                          char                  **argv);
 
 /* The office library (lamina-cli-library.c, lamina-cli-library-exchange.c). */
 int  lamina_cli_list      (const LaminaCliGlobals *globals, int argc, char **argv);

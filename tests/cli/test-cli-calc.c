@@ -177,6 +177,81 @@ test_usage (void)
   g_free (err);
 }
 
+/* lamina-cli moisture: the JSON contract of issue 13 and a month checked by
+ * hand (EN ISO 13788:2012 clause 7, from memory).  Construction "hand":
+ * plasterboard 12.5 (μ 10) / wool 150 (μ 1) / OSB 15 (μ 30), θi 20 °C,
+ * φi 0.5, θe −5 °C, φe 0.8 all year.  RT = 4.085385 (EN ISO 6946 Rsi 0.13,
+ * Rse 0.04); the wool/OSB plane is at −4.0491 °C, psat 435.07 Pa; pi =
+ * 1168.48, pe = 320.94; gc = 2e-10·[(1168.48 − 435.07)/0.275 − (435.07 −
+ * 320.94)/0.45] = 4.8266e-7 kg/(m²·s): January 1.2928 kg/m², and it never
+ * dries.  Surface (clause 5): fRsi = 1 − 0.25/4.205385 = 0.940552,
+ * fRsi,min = (12.6246 + 5)/25 = 0.70498. */
+static void
+test_moisture_json (void)
+{
+  g_autofree char *file = data_path ("moisture.xml");
+  const char *args[] = { "moisture", file, "--json", NULL };
+  g_autofree char *out = NULL;
+  g_autofree char *err = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  JsonObject *o, *m, *surface, *inter;
+  JsonArray *months, *list;
+
+  g_assert_cmpint (run_cli (args, &out, &err), ==, 0);
+  g_assert_true (json_parser_load_from_data (parser, out, -1, NULL));
+  list = json_object_get_array_member (json_node_get_object (json_parser_get_root (parser)), "constructions");
+  g_assert_cmpuint (json_array_get_length (list), ==, 2);   /* "plain" has no check */
+  o = find_construction (parser, "hand");
+  m = json_object_get_object_member (o, "moisture");
+  surface = json_object_get_object_member (m, "surface");
+  assert_figure (surface, "f_rsi", 0.940552);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (surface, "f_rsi_min"), 0.70498, 1e-5);
+  g_assert_cmpint (json_object_get_int_member (surface, "critical_month"), ==, 1);
+  g_assert_true (json_object_get_boolean_member (surface, "passes"));
+  inter = json_object_get_object_member (m, "interstitial");
+  g_assert_true (json_object_get_boolean_member (inter, "condensation"));
+  g_assert_false (json_object_get_boolean_member (inter, "dries_out"));
+  g_assert_cmpint (json_object_get_int_member (inter, "max_month"), ==, 12);
+  months = json_object_get_array_member (inter, "months");
+  g_assert_cmpuint (json_array_get_length (months), ==, 12);
+  g_assert_cmpint (json_object_get_int_member (json_array_get_object_element (months, 0), "month"), ==, 1);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (json_array_get_object_element (months, 0),
+                                                                 "accumulation"), 1.2928, 1e-4);
+  g_assert_cmpuint (json_array_get_length (json_object_get_array_member (m, "warnings")), >=, 3);
+  /* the vapour control layer (sd 100 m) stops it */
+  inter = json_object_get_object_member (json_object_get_object_member (find_construction (parser, "vcl"),
+                                                                        "moisture"), "interstitial");
+  g_assert_false (json_object_get_boolean_member (inter, "condensation"));
+  g_assert_cmpfloat (json_object_get_double_member (inter, "max_accumulation"), ==, 0.0);
+  g_assert_true (json_object_get_boolean_member (inter, "dries_out"));
+}
+
+/* calc --json carries the same block; --id of a construction without a
+ * check is an error naming it. */
+static void
+test_moisture_in_calc (void)
+{
+  g_autofree char *file = data_path ("moisture.xml");
+  const char *calc[] = { "calc", file, "--json", "--id", "hand", NULL };
+  const char *plain[] = { "moisture", file, "--id", "plain", NULL };
+  const char *text[] = { "moisture", file, "--id", "hand", NULL };
+  g_autofree char *out = NULL, *err = NULL, *out2 = NULL, *err2 = NULL, *out3 = NULL, *err3 = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  JsonObject *m;
+
+  g_assert_cmpint (run_cli (calc, &out, &err), ==, 0);
+  g_assert_true (json_parser_load_from_data (parser, out, -1, NULL));
+  m = json_object_get_object_member (find_construction (parser, "hand"), "moisture");
+  g_assert_nonnull (m);
+  g_assert_true (json_object_has_member (m, "surface"));
+  g_assert_cmpint (run_cli (plain, &out2, &err2), ==, 1);
+  g_assert_nonnull (strstr (err2, "moisture.xml:"));
+  g_assert_nonnull (strstr (err2, "plain"));
+  g_assert_cmpint (run_cli (text, &out3, &err3), ==, 0);
+  g_assert_nonnull (strstr (out3, "does NOT dry out"));
+  g_assert_nonnull (strstr (out3, "EN 15026"));
+}
+
 int
 main (int    argc,
       char **argv)
@@ -186,5 +261,7 @@ main (int    argc,
   g_test_add_func ("/cli/calc/text-report", test_text_report);
   g_test_add_func ("/cli/calc/bad-input", test_bad_input);
   g_test_add_func ("/cli/calc/usage", test_usage);
+  g_test_add_func ("/cli/moisture/json", test_moisture_json);
+  g_test_add_func ("/cli/moisture/in-calc", test_moisture_in_calc);
   return g_test_run ();
 }
