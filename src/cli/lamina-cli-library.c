@@ -207,6 +207,83 @@ parse_sort (const char    *text,
  * --meets U is the design question "which of ours reach U?": the
  * constructions whose corrected U is at most U; with --sort thickness the
  * thinnest comes first. */
+/* list's filter options into @q; FALSE (the option named on stderr) when
+ * one is not understood. */
+static gboolean
+parse_list_filters (const char         *element,
+                    const char         *status,
+                    const char         *max_u,
+                    const char         *meets,
+                    const char         *sort,
+                    LaminaLibraryQuery *q)
+{
+  LaminaElement el;
+  LaminaStatus st;
+
+  if (element != NULL)
+    {
+      g_autofree char *lower = g_ascii_strdown (element, -1);
+
+      if (!lamina_element_from_string (lower, &el))
+        {
+          lamina_cli_error (_("--element: unknown element “%s” (wall, roof, floor, ceiling, partition)"), element);
+          return FALSE;
+        }
+      q->element = el;
+    }
+  if (status != NULL)
+    {
+      if (!lamina_cli_parse_status (status, &st))
+        return FALSE;
+      q->status = st;
+    }
+  if (!parse_u (max_u, "--max-u", &q->max_u) || !parse_sort (sort, &q->sort))
+    return FALSE;
+  if (meets != NULL)
+    {
+      double target;
+
+      if (!parse_u (meets, "--meets", &target))
+        return FALSE;
+      q->max_u = isnan (q->max_u) ? target : MIN (q->max_u, target);
+    }
+  return TRUE;
+}
+
+/* list --json: {"constructions": [...]}, SI units. */
+static void
+print_list_json (GPtrArray *rows)
+{
+  g_autoptr(JsonBuilder) b = json_builder_new ();
+
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "constructions");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < rows->len; i++)
+    {
+      LaminaSummary *s = rows->pdata[i];
+
+      json_builder_begin_object (b);
+      lamina_cli_json_add_string (b, "id", s->id);
+      lamina_cli_json_add_string (b, "code", s->code);
+      lamina_cli_json_add_string (b, "name", s->name);
+      lamina_cli_json_add_string (b, "element", lamina_element_to_string (s->element));
+      lamina_cli_json_add_string (b, "status", lamina_status_to_string (s->status));
+      json_builder_set_member_name (b, "revision");
+      json_builder_add_int_value (b, s->revision);
+      lamina_cli_json_add_number (b, "u", s->u);
+      lamina_cli_json_add_number (b, "u_corrected", s->u_corrected);
+      lamina_cli_json_add_number (b, "target_u", s->target_u);
+      lamina_cli_json_add_number (b, "thickness", s->thickness / 1000.0);
+      json_builder_set_member_name (b, "material_changed");
+      json_builder_add_boolean_value (b, (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) != 0);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+  json_builder_end_object (b);
+  lamina_cli_print_json (json_builder_get_root (b));
+}
+
 int
 lamina_cli_list (const LaminaCliGlobals *globals,
                  int                     argc,
@@ -231,8 +308,6 @@ lamina_cli_list (const LaminaCliGlobals *globals,
   g_autoptr(GPtrArray) rows = NULL;
   g_autoptr(GError) error = NULL;
   LaminaLibraryQuery q;
-  LaminaElement el;
-  LaminaStatus st;
 
   g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
   if (!lamina_cli_parse (context, &argc, &argv))
@@ -245,33 +320,8 @@ lamina_cli_list (const LaminaCliGlobals *globals,
   lamina_library_query_init (&q);
   q.text = search;
   q.tag = tag;
-  if (element != NULL)
-    {
-      g_autofree char *lower = g_ascii_strdown (element, -1);
-
-      if (!lamina_element_from_string (lower, &el))
-        {
-          lamina_cli_error (_("--element: unknown element “%s” (wall, roof, floor, ceiling, partition)"), element);
-          return LAMINA_EXIT_USAGE;
-        }
-      q.element = el;
-    }
-  if (status != NULL)
-    {
-      if (!lamina_cli_parse_status (status, &st))
-        return LAMINA_EXIT_USAGE;
-      q.status = st;
-    }
-  if (!parse_u (max_u, "--max-u", &q.max_u) || !parse_sort (sort, &q.sort))
+  if (!parse_list_filters (element, status, max_u, meets, sort, &q))
     return LAMINA_EXIT_USAGE;
-  if (meets != NULL)
-    {
-      double target;
-
-      if (!parse_u (meets, "--meets", &target))
-        return LAMINA_EXIT_USAGE;
-      q.max_u = isnan (q.max_u) ? target : MIN (q.max_u, target);
-    }
 
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL)
@@ -283,38 +333,9 @@ lamina_cli_list (const LaminaCliGlobals *globals,
       return LAMINA_EXIT_BAD_INPUT;
     }
   if (json)
-    {
-      g_autoptr(JsonBuilder) b = json_builder_new ();
-
-      json_builder_begin_object (b);
-      json_builder_set_member_name (b, "constructions");
-      json_builder_begin_array (b);
-      for (guint i = 0; i < rows->len; i++)
-        {
-          LaminaSummary *s = rows->pdata[i];
-
-          json_builder_begin_object (b);
-          lamina_cli_json_add_string (b, "id", s->id);
-          lamina_cli_json_add_string (b, "code", s->code);
-          lamina_cli_json_add_string (b, "name", s->name);
-          lamina_cli_json_add_string (b, "element", lamina_element_to_string (s->element));
-          lamina_cli_json_add_string (b, "status", lamina_status_to_string (s->status));
-          json_builder_set_member_name (b, "revision");
-          json_builder_add_int_value (b, s->revision);
-          lamina_cli_json_add_number (b, "u", s->u);
-          lamina_cli_json_add_number (b, "u_corrected", s->u_corrected);
-          lamina_cli_json_add_number (b, "target_u", s->target_u);
-          lamina_cli_json_add_number (b, "thickness", s->thickness / 1000.0);
-          json_builder_set_member_name (b, "material_changed");
-          json_builder_add_boolean_value (b, (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) != 0);
-          json_builder_end_object (b);
-        }
-      json_builder_end_array (b);
-      json_builder_end_object (b);
-      lamina_cli_print_json (json_builder_get_root (b));
-      return LAMINA_EXIT_OK;
-    }
-  print_list (rows);
+    print_list_json (rows);
+  else
+    print_list (rows);
   return LAMINA_EXIT_OK;
 }
 

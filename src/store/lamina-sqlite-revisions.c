@@ -203,19 +203,16 @@ flush_search_index (LaminaSqlite  *self,
            "DELETE FROM construction_fts_stage;", error);
 }
 
+/* Refuses a revision that does not go on top of the latest: a new
+ * construction whose id is taken, an edit of a missing one, or an edit
+ * of a revision someone else has since saved over. */
 static gboolean
-store_revision_in_txn (LaminaSqlite                 *self,
-                       const LaminaBackendRevision  *rev,
-                       int                           base,
-                       GError                      **error)
+check_base (LaminaSqlite              *self,
+            const LaminaConstruction  *c,
+            int                        base,
+            GError                   **error)
 {
-  const LaminaConstruction *c = rev->construction;
-  const LaminaResult *r = rev->result;
-  g_autofree char *body = lamina_store_construction_to_json (c);
-  LaminaSummaryFlags flags = LAMINA_SUMMARY_NONE;
   gboolean deleted = FALSE;
-  sqlite3_stmt *stmt;
-  gint64 num;
   int head = get_head (self, c->id, &deleted, NULL, error);
 
   if (head < 0)
@@ -241,18 +238,33 @@ store_revision_in_txn (LaminaSqlite                 *self,
       return FALSE;
     }
   g_assert (c->revision == (base > 0 ? base + 1 : c->revision) && c->revision > 0);
+  return TRUE;
+}
+
+static LaminaSummaryFlags
+summary_flags (const LaminaResult *r)
+{
+  LaminaSummaryFlags flags = LAMINA_SUMMARY_NONE;
 
   if (r == NULL)
-    flags |= LAMINA_SUMMARY_NOT_CALCULATED;
-  else
-    {
-      if (r->has_target && !r->target_met)
-        flags |= LAMINA_SUMMARY_TARGET_NOT_MET;
-      if (r->warnings != NULL && r->warnings->len > 0)
-        flags |= LAMINA_SUMMARY_HAS_WARNINGS;
-    }
+    return LAMINA_SUMMARY_NOT_CALCULATED;
+  if (r->has_target && !r->target_met)
+    flags |= LAMINA_SUMMARY_TARGET_NOT_MET;
+  if (r->warnings != NULL && r->warnings->len > 0)
+    flags |= LAMINA_SUMMARY_HAS_WARNINGS;
+  return flags;
+}
 
-  stmt = lamina_sqlite_prepare (self,
+/* The construction's row: what the list and the search read (the figures
+ * of its latest revision).  Sets @num, the row's number. */
+static gboolean
+put_construction_row (LaminaSqlite              *self,
+                      const LaminaConstruction  *c,
+                      const LaminaResult        *r,
+                      gint64                    *num,
+                      GError                   **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "INSERT INTO construction (id, head, code, name, element, status, u, u_corrected,"
     "   target_u, thickness, flags, modified_at)"
     " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12)"
@@ -260,6 +272,7 @@ store_revision_in_txn (LaminaSqlite                 *self,
     "   status = ?6, u = ?7, u_corrected = ?8, target_u = ?9, thickness = ?10,"
     "   flags = ?11, modified_at = ?12"
     " RETURNING num;", error);
+
   if (stmt == NULL)
     return FALSE;
   lamina_sqlite_bind_text (stmt, 1, c->id);
@@ -272,22 +285,35 @@ store_revision_in_txn (LaminaSqlite                 *self,
   lamina_sqlite_bind_double (stmt, 8, r ? r->u_corrected : NAN);
   lamina_sqlite_bind_double (stmt, 9, c->target_u);
   lamina_sqlite_bind_double (stmt, 10, lamina_construction_get_thickness (c));
-  sqlite3_bind_int (stmt, 11, flags);
+  sqlite3_bind_int (stmt, 11, summary_flags (r));
   lamina_sqlite_bind_text (stmt, 12, c->modified_at);
   if (sqlite3_step (stmt) != SQLITE_ROW)
     {
       lamina_sqlite_set_error (self, sqlite3_reset (stmt), "cannot store a construction", error);
       return FALSE;
     }
-  num = sqlite3_column_int64 (stmt, 0);
+  *num = sqlite3_column_int64 (stmt, 0);
   sqlite3_reset (stmt);
+  return TRUE;
+}
 
-  stmt = lamina_sqlite_prepare (self,
+/* The revision itself: its body (the construction as JSON), figures and
+ * review fields. */
+static gboolean
+insert_revision_row (LaminaSqlite                 *self,
+                     const LaminaBackendRevision  *rev,
+                     GError                      **error)
+{
+  const LaminaConstruction *c = rev->construction;
+  const LaminaResult *r = rev->result;
+  g_autofree char *body = lamina_store_construction_to_json (c);
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "INSERT INTO revision (construction_id, revision, status, body, u, u_corrected,"
     "   r_total, thickness, calc_error, modified_by, modified_at, checked_by,"
     "   checked_at, approved_by, approved_at, comment)"
     " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16);",
     error);
+
   if (stmt == NULL)
     return FALSE;
   lamina_sqlite_bind_text (stmt, 1, c->id);
@@ -306,21 +332,43 @@ store_revision_in_txn (LaminaSqlite                 *self,
   lamina_sqlite_bind_text (stmt, 14, c->approved_by);
   lamina_sqlite_bind_text (stmt, 15, c->approved_at);
   lamina_sqlite_bind_text (stmt, 16, rev->comment);
-  if (!lamina_sqlite_step_done (self, stmt, error)
-      || !store_tags_and_materials (self, c, num, error))
-    return FALSE;
+  return lamina_sqlite_step_done (self, stmt, error);
+}
 
-  stmt = lamina_sqlite_prepare (self,
+/* "Material data changed since review" for the new revision: any of its
+ * materials whose library data differs from the copy it holds. */
+static gboolean
+refresh_material_changed (LaminaSqlite              *self,
+                          const LaminaConstruction  *c,
+                          GError                   **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "UPDATE construction SET material_changed = EXISTS ("
     "    SELECT 1 FROM revision_material rm JOIN material m ON m.id = rm.material_id"
     "     WHERE rm.construction_id = ?1 AND rm.revision = ?2"
     "       AND m.fingerprint <> rm.fingerprint)"
     " WHERE id = ?1;", error);
+
   if (stmt == NULL)
     return FALSE;
   lamina_sqlite_bind_text (stmt, 1, c->id);
   sqlite3_bind_int (stmt, 2, c->revision);
   return lamina_sqlite_step_done (self, stmt, error);
+}
+
+static gboolean
+store_revision_in_txn (LaminaSqlite                 *self,
+                       const LaminaBackendRevision  *rev,
+                       int                           base,
+                       GError                      **error)
+{
+  gint64 num;
+
+  return check_base (self, rev->construction, base, error)
+         && put_construction_row (self, rev->construction, rev->result, &num, error)
+         && insert_revision_row (self, rev, error)
+         && store_tags_and_materials (self, rev->construction, num, error)
+         && refresh_material_changed (self, rev->construction, error);
 }
 
 gboolean
