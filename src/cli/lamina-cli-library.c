@@ -365,6 +365,23 @@ lamina_cli_resolve_id (LaminaLibrary *library,
   return NULL;
 }
 
+/* The jobs whose schedules pin @id, one line each. */
+static void
+print_job_uses (LaminaLibrary *library,
+                const char    *id)
+{
+  g_autoptr(GPtrArray) uses = lamina_library_list_job_uses (library, id, NULL);
+
+  for (guint i = 0; uses != NULL && i < uses->len; i++)
+    {
+      const LaminaJobUse *use = uses->pdata[i];
+
+      printf (_("Used in job %s %s (entry %d, revision %d, %s)\n"),
+              use->job_number ? use->job_number : use->job_id, use->job_name, use->entry,
+              use->revision, use->use);
+    }
+}
+
 /* show ID [--revision N] [--json] */
 int
 lamina_cli_show (const LaminaCliGlobals *globals,
@@ -425,6 +442,7 @@ lamina_cli_show (const LaminaCliGlobals *globals,
     printf (_(", approved by %s on %s"), c->approved_by, c->approved_at);
   printf ("\n");
   lamina_cli_print_result (stdout, c, result);
+  print_job_uses (library, id);
   return LAMINA_EXIT_OK;
 }
 

@@ -34,6 +34,7 @@ static const Command commands[] = {
   { "catalogue", lamina_cli_catalogue, N_("Print a catalogue of sheets, with index, to PDF") },
   { "solve", lamina_cli_solve, N_("The thickness of a layer that meets a target U") },
   { "moisture", lamina_cli_moisture, N_("Check the constructions of a catalogue file for condensation (EN ISO 13788)") },
+  { "job", lamina_cli_job, N_("Jobs: new, list, show, add, remove, update") },
 };
 
 FILE *

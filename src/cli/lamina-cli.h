@@ -48,6 +48,8 @@ int  lamina_cli_section   (const LaminaCliGlobals *globals, int argc, char **arg
 int  lamina_cli_sheet     (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_catalogue (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_solve     (const LaminaCliGlobals *globals, int argc, char **argv);
+/* Jobs (lamina-cli-job.c, lamina-cli-job-show.c). */
+int  lamina_cli_job       (const LaminaCliGlobals *globals, int argc, char **argv);
 
 /* Where to say what was written: stdout, or stderr when the output
  * itself goes to stdout ("-o -"). */

@@ -21,6 +21,16 @@ typedef struct
   const char               *comment;
 } LaminaBackendRevision;
 
+/* Everything an import writes, in one transaction. */
+typedef struct
+{
+  GPtrArray    *materials;       /* LaminaMaterial* */
+  GPtrArray    *revisions;       /* LaminaBackendRevision* */
+  const GArray *base_revisions;  /* int, one per revision */
+  GPtrArray    *target_sets;     /* LaminaTargetSet*, replacing those of their id */
+  GPtrArray    *jobs;            /* LaminaJob*, replacing those of their id */
+} LaminaBackendImport;
+
 typedef struct
 {
   void                (*close)              (LaminaBackend *backend);
@@ -66,6 +76,32 @@ typedef struct
                                              const char *now, GError **error);
   /* Ids of every live construction, sorted by code. */
   GPtrArray          *(*list_ids)           (LaminaBackend *backend, GError **error);
+
+  /* Target sets and jobs (lamina-library-jobs.c). */
+  GPtrArray          *(*list_target_sets)   (LaminaBackend *backend, GError **error);
+  gboolean            (*put_target_set)     (LaminaBackend *backend,
+                                             const LaminaTargetSet *set,
+                                             const char *now, GError **error);
+  gboolean            (*delete_target_set)  (LaminaBackend *backend, const char *id,
+                                             GError **error);
+  /* LaminaJob*, by number, then name. */
+  GPtrArray          *(*list_jobs)          (LaminaBackend *backend, GError **error);
+  LaminaJob          *(*get_job)            (LaminaBackend *backend, const char *id,
+                                             GError **error);
+  /* @create: refused with EXISTS if the id is taken; otherwise NOT_FOUND
+   * unless it is. */
+  gboolean            (*put_job)            (LaminaBackend *backend, const LaminaJob *job,
+                                             gboolean create, GError **error);
+  gboolean            (*delete_job)         (LaminaBackend *backend, const char *id,
+                                             GError **error);
+  /* LaminaJobUse* of the entries pinning @construction_id. */
+  GPtrArray          *(*list_job_uses)      (LaminaBackend *backend,
+                                             const char *construction_id,
+                                             GError **error);
+  /* apply_import with the target sets and jobs of the document. */
+  gboolean            (*apply_import_records) (LaminaBackend *backend,
+                                               const LaminaBackendImport *import,
+                                               const char *now, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend
@@ -78,6 +114,36 @@ struct _LaminaBackend
 
 /* lamina-library-types.c */
 LaminaImportReport *lamina_import_report_new (void);
+/* Takes @message. */
+void           lamina_import_report_add_item (LaminaImportReport *report,
+                                              LaminaImportAction  action,
+                                              gboolean            is_material,
+                                              const char         *id,
+                                              const char         *name,
+                                              int                 revision,
+                                              char               *message);
+
+/* lamina-library-exchange.c: LaminaMaterialChange* for the layers of @c
+ * (any revision) against the library's materials now. */
+GPtrArray     *lamina_library_collect_material_changes (LaminaLibrary            *self,
+                                                        const LaminaConstruction *c);
+
+/* lamina-library-jobs.c, for the export of the whole library: adds every
+ * target set and job to @catalogue. */
+gboolean       lamina_library_export_records (LaminaLibrary   *self,
+                                              LaminaCatalogue *catalogue,
+                                              GError         **error);
+
+/* lamina-library-jobs.c, for the import: checks the target sets and jobs
+ * of @catalogue against the document and the library, re-pins entries
+ * to the revisions the import stores (from @report's items), and adds
+ * what is new or changed to @target_sets and @jobs (owned copies). */
+gboolean       lamina_library_merge_records (LaminaLibrary         *self,
+                                             const LaminaCatalogue *catalogue,
+                                             LaminaImportReport    *report,
+                                             GPtrArray             *target_sets,
+                                             GPtrArray             *jobs,
+                                             GError               **error);
 
 /* lamina-library.c, for lamina-library-exchange.c */
 LaminaBackend *lamina_library_get_backend  (LaminaLibrary *self);

@@ -50,15 +50,7 @@ add_item (LaminaImportReport *report,
           int                 revision,
           char               *message)
 {
-  LaminaImportItem *item = g_new0 (LaminaImportItem, 1);
-
-  item->action = action;
-  item->is_material = is_material;
-  item->id = g_strdup (id);
-  item->name = g_strdup (name);
-  item->revision = revision;
-  item->message = message;
-  g_ptr_array_add (report->items, item);
+  lamina_import_report_add_item (report, action, is_material, id, name, revision, message);
 }
 
 static gboolean
@@ -205,7 +197,10 @@ lamina_library_import (LaminaLibrary          *self,
   g_autoptr(GPtrArray) revisions = g_ptr_array_new_with_free_func ((GDestroyNotify) revision_free);
   g_autoptr(GArray) bases = g_array_new (FALSE, FALSE, sizeof (int));
   g_autoptr(GHashTable) seen = g_hash_table_new (g_str_hash, g_str_equal);
+  g_autoptr(GPtrArray) target_sets = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_target_set_free);
+  g_autoptr(GPtrArray) jobs = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_job_free);
   g_autofree char *now = lamina_library_dup_now ();
+  LaminaBackendImport import = { 0 };
 
   g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
   g_return_val_if_fail (catalogue != NULL, NULL);
@@ -253,11 +248,18 @@ lamina_library_import (LaminaLibrary          *self,
       rev->comment = "imported";
       g_ptr_array_add (revisions, rev);
     }
+  if (!lamina_library_merge_records (self, catalogue, report, target_sets, jobs, error))
+    return NULL;
   if (flags & LAMINA_IMPORT_DRY_RUN)
     return g_steal_pointer (&report);
-  if (!VT (self)->apply_import (BE (self), materials, revisions, bases, now, error))
+  import.materials = materials;
+  import.revisions = revisions;
+  import.base_revisions = bases;
+  import.target_sets = target_sets;
+  import.jobs = jobs;
+  if (!VT (self)->apply_import_records (BE (self), &import, now, error))
     return NULL;
-  if (materials->len > 0 || revisions->len > 0)
+  if (materials->len > 0 || revisions->len > 0 || target_sets->len > 0 || jobs->len > 0)
     lamina_library_emit_changed (self);
   return g_steal_pointer (&report);
 }
@@ -323,6 +325,8 @@ lamina_library_export (LaminaLibrary       *self,
         return NULL;
       for (guint i = 0; i < materials->len; i++)
         g_ptr_array_add (cat->materials, lamina_material_copy (materials->pdata[i]));
+      if (!lamina_library_export_records (self, cat, error))
+        return NULL;
     }
   else
     {
@@ -368,16 +372,12 @@ compare_material (LaminaLibrary        *self,
 }
 
 GPtrArray *
-lamina_library_list_material_changes (LaminaLibrary  *self,
-                                      const char     *id,
-                                      GError        **error)
+lamina_library_collect_material_changes (LaminaLibrary            *self,
+                                         const LaminaConstruction *c)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, 0, error);
   g_autoptr(GHashTable) seen = g_hash_table_new (g_str_hash, g_str_equal);
   GPtrArray *changes;
 
-  if (c == NULL)
-    return NULL;
   changes = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_change_free);
   for (guint i = 0; i < c->layers->len; i++)
     {
@@ -388,6 +388,18 @@ lamina_library_list_material_changes (LaminaLibrary  *self,
         compare_material (self, ((LaminaPart *) layer->parts->pdata[k])->material, seen, changes);
     }
   return changes;
+}
+
+GPtrArray *
+lamina_library_list_material_changes (LaminaLibrary  *self,
+                                      const char     *id,
+                                      GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, 0, error);
+
+  if (c == NULL)
+    return NULL;
+  return lamina_library_collect_material_changes (self, c);
 }
 
 static void

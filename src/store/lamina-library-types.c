@@ -84,6 +84,26 @@ lamina_import_report_new (void)
 }
 
 void
+lamina_import_report_add_item (LaminaImportReport *report,
+                               LaminaImportAction  action,
+                               gboolean            is_material,
+                               const char         *id,
+                               const char         *name,
+                               int                 revision,
+                               char               *message)
+{
+  LaminaImportItem *item = g_new0 (LaminaImportItem, 1);
+
+  item->action = action;
+  item->is_material = is_material;
+  item->id = g_strdup (id);
+  item->name = g_strdup (name);
+  item->revision = revision;
+  item->message = message;
+  g_ptr_array_add (report->items, item);
+}
+
+void
 lamina_import_report_free (LaminaImportReport *report)
 {
   if (report == NULL)

@@ -27,6 +27,7 @@
 
 #include "lamina-calc.h"
 #include "lamina-construction.h"
+#include "lamina-job-check.h"
 #include "lamina-material.h"
 #include "exchange/lamina-catalogue.h"
 
@@ -53,7 +54,7 @@ typedef enum
 GQuark lamina_library_error_quark (void);
 
 /* The schema version this build writes (PRAGMA user_version). */
-#define LAMINA_LIBRARY_SCHEMA_VERSION 3
+#define LAMINA_LIBRARY_SCHEMA_VERSION 4
 
 typedef enum
 {
@@ -349,6 +350,99 @@ LaminaCatalogue *lamina_library_export     (LaminaLibrary          *self,
                                             const char * const     *ids,
                                             GError                **error);
 
+/* ---- Target sets and jobs -------------------------------------------- */
+
+/* LaminaTargetSet*, by name. */
+GPtrArray     *lamina_library_list_target_sets (LaminaLibrary        *self,
+                                                GError              **error);
+LaminaTargetSet *lamina_library_dup_target_set (LaminaLibrary        *self,
+                                                const char           *id,
+                                                GError              **error);
+/* Adds or replaces the set of @set->id (INVALID names the faulty target). */
+gboolean       lamina_library_put_target_set   (LaminaLibrary         *self,
+                                                const LaminaTargetSet *set,
+                                                GError               **error);
+/* Refused (INVALID, naming the jobs) while a job uses the set. */
+gboolean       lamina_library_delete_target_set (LaminaLibrary       *self,
+                                                 const char          *id,
+                                                 GError             **error);
+
+/* LaminaJob*, by number, then name. */
+GPtrArray     *lamina_library_list_jobs        (LaminaLibrary        *self,
+                                                GError              **error);
+LaminaJob     *lamina_library_dup_job          (LaminaLibrary        *self,
+                                                const char           *id,
+                                                GError              **error);
+/* Stores a new job (EXISTS if the id is taken) or the changed one
+ * (NOT_FOUND if there is none); the job is validated, its target set must
+ * be in the library and every use one of the set's.  Sets modified_at. */
+gboolean       lamina_library_create_job       (LaminaLibrary        *self,
+                                                LaminaJob            *job,
+                                                GError              **error);
+gboolean       lamina_library_save_job         (LaminaLibrary        *self,
+                                                LaminaJob            *job,
+                                                GError              **error);
+gboolean       lamina_library_delete_job       (LaminaLibrary        *self,
+                                                const char           *id,
+                                                GError              **error);
+
+/* An entry of a job naming a construction (what the library shows for
+ * each construction). */
+typedef struct
+{
+  char            *job_id;
+  char            *job_name;
+  char            *job_number;
+  LaminaJobStatus  status;
+  int              entry;
+  int              revision;
+  char            *use;
+} LaminaJobUse;
+
+void           lamina_job_use_free             (LaminaJobUse         *use);
+/* LaminaJobUse*, by job number. */
+GPtrArray     *lamina_library_list_job_uses    (LaminaLibrary        *self,
+                                                const char           *construction_id,
+                                                GError              **error);
+
+/* The revision a new entry pins when none is asked (0): the latest
+ * approved revision, else the latest (then *@approved is FALSE).  A
+ * revision asked for must exist (NOT_FOUND). */
+int            lamina_library_pick_revision    (LaminaLibrary        *self,
+                                                const char           *construction_id,
+                                                int                   revision,
+                                                gboolean             *approved,
+                                                GError              **error);
+
+/* A job with everything its check and its sheets need, owned together:
+ * each entry's construction at its pinned revision in the job's design
+ * conditions (NULL if missing) and its result, the target set, and the
+ * check (lamina-job-check.h). */
+typedef struct
+{
+  LaminaJob          *job;
+  LaminaTargetSet    *targets;        /* NULL if the job has none */
+  GPtrArray          *constructions;  /* LaminaConstruction* or NULL, per entry */
+  GPtrArray          *results;        /* LaminaResult* or NULL, per entry */
+  LaminaJobInput     *inputs;
+  LaminaJobCheck     *check;
+} LaminaJobReport;
+
+void           lamina_job_report_free          (LaminaJobReport      *report);
+LaminaJobReport *lamina_library_check_job      (LaminaLibrary        *self,
+                                                const char           *id,
+                                                GError              **error);
+/* The user's act: moves entry @n of job @id to @revision (0 = the newest
+ * approved) and records who and when in the job's log. */
+gboolean       lamina_library_move_job_entry   (LaminaLibrary        *self,
+                                                const char           *id,
+                                                int                   n,
+                                                int                   revision,
+                                                const char           *author,
+                                                GError              **error);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaJobUse, lamina_job_use_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaJobReport, lamina_job_report_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaRevisionInfo, lamina_revision_info_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaMaterialChange, lamina_material_change_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaSummary, lamina_summary_free)

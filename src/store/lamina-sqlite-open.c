@@ -97,6 +97,15 @@ static const LaminaBackendVTable sqlite_vtable = {
 
   .apply_import = lamina_sqlite_backend_apply_import,
   .list_ids = lamina_sqlite_backend_list_ids,
+  .list_target_sets = lamina_sqlite_backend_list_target_sets,
+  .put_target_set = lamina_sqlite_backend_put_target_set,
+  .delete_target_set = lamina_sqlite_backend_delete_target_set,
+  .list_jobs = lamina_sqlite_backend_list_jobs,
+  .get_job = lamina_sqlite_backend_get_job,
+  .put_job = lamina_sqlite_backend_put_job,
+  .delete_job = lamina_sqlite_backend_delete_job,
+  .list_job_uses = lamina_sqlite_backend_list_job_uses,
+  .apply_import_records = lamina_sqlite_backend_apply_import_records,
 };
 
 static LaminaSqlite *

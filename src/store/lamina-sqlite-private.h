@@ -118,6 +118,49 @@ gint64              lamina_sqlite_backend_count            (LaminaBackend *backe
 GPtrArray          *lamina_sqlite_backend_list_tags        (LaminaBackend *backend,
                                                             GError **error);
 
+/* lamina-sqlite-jobs.c: */
+GPtrArray          *lamina_sqlite_backend_list_target_sets (LaminaBackend *backend,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_put_target_set   (LaminaBackend *backend,
+                                                            const LaminaTargetSet *set,
+                                                            const char *now,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_delete_target_set (LaminaBackend *backend,
+                                                             const char *id,
+                                                             GError **error);
+GPtrArray          *lamina_sqlite_backend_list_jobs        (LaminaBackend *backend,
+                                                            GError **error);
+LaminaJob          *lamina_sqlite_backend_get_job          (LaminaBackend *backend,
+                                                            const char *id,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_put_job          (LaminaBackend *backend,
+                                                            const LaminaJob *job,
+                                                            gboolean create,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_delete_job       (LaminaBackend *backend,
+                                                            const char *id,
+                                                            GError **error);
+GPtrArray          *lamina_sqlite_backend_list_job_uses    (LaminaBackend *backend,
+                                                            const char *construction_id,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_apply_import_records (LaminaBackend *backend,
+                                                                const LaminaBackendImport *import,
+                                                                const char *now,
+                                                                GError **error);
+/* Inside the caller's transaction. */
+gboolean      lamina_sqlite_put_target_set (LaminaSqlite          *self,
+                                            const LaminaTargetSet *set,
+                                            const char            *now,
+                                            GError               **error);
+gboolean      lamina_sqlite_put_job        (LaminaSqlite          *self,
+                                            const LaminaJob       *job,
+                                            GError               **error);
+gboolean      lamina_sqlite_put_records    (LaminaSqlite          *self,
+                                            GPtrArray             *target_sets,
+                                            GPtrArray             *jobs,
+                                            const char            *now,
+                                            GError               **error);
+
 /* Refreshes the "material data changed since review" flag of every
  * construction using @material_id (NULL: all). */
 gboolean      lamina_sqlite_refresh_material_flags (LaminaSqlite *self,

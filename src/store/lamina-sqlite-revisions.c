@@ -544,24 +544,24 @@ lamina_sqlite_backend_set_status (LaminaBackend  *backend,
 }
 
 gboolean
-lamina_sqlite_backend_apply_import (LaminaBackend  *backend,
-                                    GPtrArray      *materials,
-                                    GPtrArray      *revisions,
-                                    const GArray   *base_revisions,
-                                    const char     *now,
-                                    GError        **error)
+lamina_sqlite_backend_apply_import_records (LaminaBackend              *backend,
+                                            const LaminaBackendImport  *import,
+                                            const char                 *now,
+                                            GError                    **error)
 {
   g_autoptr(GError) local = NULL;
 
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
-  for (guint i = 0; i < materials->len; i++)
-    if (!lamina_sqlite_put_material (SELF, materials->pdata[i], now, &local))
+  for (guint i = 0; i < import->materials->len; i++)
+    if (!lamina_sqlite_put_material (SELF, import->materials->pdata[i], now, &local))
       goto fail;
-  for (guint i = 0; i < revisions->len; i++)
-    if (!store_revision_in_txn (SELF, revisions->pdata[i],
-                                g_array_index (base_revisions, int, i), &local))
+  for (guint i = 0; i < import->revisions->len; i++)
+    if (!store_revision_in_txn (SELF, import->revisions->pdata[i],
+                                g_array_index (import->base_revisions, int, i), &local))
       goto fail;
+  if (!lamina_sqlite_put_records (SELF, import->target_sets, import->jobs, now, &local))
+    goto fail;
   if (flush_search_index (SELF, &local) && lamina_sqlite_commit (SELF, &local))
     return TRUE;
 fail:
@@ -569,6 +569,19 @@ fail:
   g_propagate_prefixed_error (error, g_steal_pointer (&local),
                               "import cancelled, the library is unchanged: ");
   return FALSE;
+}
+
+gboolean
+lamina_sqlite_backend_apply_import (LaminaBackend  *backend,
+                                    GPtrArray      *materials,
+                                    GPtrArray      *revisions,
+                                    const GArray   *base_revisions,
+                                    const char     *now,
+                                    GError        **error)
+{
+  LaminaBackendImport import = { materials, revisions, base_revisions, NULL, NULL };
+
+  return lamina_sqlite_backend_apply_import_records (backend, &import, now, error);
 }
 
 GPtrArray *

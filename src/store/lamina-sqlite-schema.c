@@ -139,10 +139,39 @@ static const char schema_v3[] =
   "CREATE INDEX construction_deleted ON construction (num)"
   "  WHERE deleted_at IS NOT NULL;";
 
+/* Version 4: target sets and jobs.  A body is a catalogue document with
+ * the one record; job_entry mirrors each schedule so that the jobs using
+ * a construction are found by index. */
+static const char schema_v4[] =
+  "CREATE TABLE target_set ("
+  "  id TEXT PRIMARY KEY,"
+  "  name TEXT NOT NULL,"
+  "  body TEXT NOT NULL,"
+  "  modified_at TEXT"
+  ");"
+  "CREATE TABLE job ("
+  "  id TEXT PRIMARY KEY,"
+  "  name TEXT NOT NULL,"
+  "  number TEXT,"
+  "  status TEXT NOT NULL CHECK (status IN ('design', 'submitted', 'built')),"
+  "  body TEXT NOT NULL,"
+  "  modified_at TEXT"
+  ");"
+  "CREATE TABLE job_entry ("
+  "  job_id TEXT NOT NULL REFERENCES job (id),"
+  "  n INTEGER NOT NULL CHECK (n > 0),"
+  "  construction_id TEXT NOT NULL,"
+  "  revision INTEGER NOT NULL CHECK (revision > 0),"
+  "  use TEXT NOT NULL,"
+  "  PRIMARY KEY (job_id, n)"
+  ") WITHOUT ROWID;"
+  "CREATE INDEX job_entry_by_construction ON job_entry (construction_id);";
+
 static const char *const steps[] = {
   schema_v1,
   schema_v2,
   schema_v3,
+  schema_v4,
 };
 
 G_STATIC_ASSERT (G_N_ELEMENTS (steps) == LAMINA_LIBRARY_SCHEMA_VERSION);

@@ -1,0 +1,334 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-cli job list | show: the jobs of the library, and one job with
+ * its schedule checked against its targets. */
+#define G_LOG_DOMAIN "lamina-cli"
+
+#include "config.h"
+
+#include "lamina-cli-job.h"
+#include "lamina-cli-report.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+#include <stdio.h>
+
+/* job list [--json] */
+int
+lamina_cli_job_list (const LaminaCliGlobals *globals,
+                     int                     argc,
+                     char                  **argv)
+{
+  gboolean json = FALSE;
+  const GOptionEntry entries[] = {
+    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("— list the jobs of the library"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GPtrArray) jobs = NULL;
+  g_autoptr(GError) error = NULL;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 1)
+    {
+      lamina_cli_error (_("job list takes no arguments (see “lamina-cli job list --help”)"));
+      return LAMINA_EXIT_USAGE;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  jobs = lamina_library_list_jobs (library, &error);
+  if (jobs == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  if (json)
+    {
+      g_autoptr(JsonBuilder) b = json_builder_new ();
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "jobs");
+      json_builder_begin_array (b);
+      for (guint i = 0; i < jobs->len; i++)
+        {
+          const LaminaJob *job = jobs->pdata[i];
+
+          json_builder_begin_object (b);
+          lamina_cli_json_add_string (b, "id", job->id);
+          lamina_cli_json_add_string (b, "name", job->name);
+          lamina_cli_json_add_string (b, "number", job->number);
+          lamina_cli_json_add_string (b, "client", job->client);
+          lamina_cli_json_add_string (b, "status", lamina_job_status_to_string (job->status));
+          lamina_cli_json_add_string (b, "target_set", job->target_set);
+          json_builder_set_member_name (b, "n_entries");
+          json_builder_add_int_value (b, job->entries->len);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      json_builder_end_object (b);
+      lamina_cli_print_json (json_builder_get_root (b));
+      return LAMINA_EXIT_OK;
+    }
+  for (guint i = 0; i < jobs->len; i++)
+    {
+      const LaminaJob *job = jobs->pdata[i];
+
+      printf ("%-12s %-10s %-10s %s (%u)\n", job->id, job->number ? job->number : "–",
+              lamina_job_status_to_string (job->status), job->name, job->entries->len);
+    }
+  return LAMINA_EXIT_OK;
+}
+
+static void
+add_line (JsonBuilder         *b,
+          const LaminaJobLine *line)
+{
+  const LaminaJobEntry *e = line->entry;
+  const LaminaConstruction *c = line->construction;
+  static const struct { LaminaEntryFlags flag; const char *name; } flag_names[] = {
+    { LAMINA_ENTRY_NOT_APPROVED, "not-approved" },
+    { LAMINA_ENTRY_NEWER_APPROVED, "newer-approved" },
+    { LAMINA_ENTRY_MATERIAL_CHANGED, "material-changed" },
+    { LAMINA_ENTRY_OUT_OF_SCOPE, "out-of-scope" },
+    { LAMINA_ENTRY_WRONG_ELEMENT, "wrong-element" },
+    { LAMINA_ENTRY_FRSI_NOT_MET, "frsi-not-met" },
+    { LAMINA_ENTRY_MOISTURE_OPEN, "moisture-not-assessed" },
+    { LAMINA_ENTRY_WARNINGS, "warnings" },
+    { LAMINA_ENTRY_MISSING, "missing" },
+  };
+
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "n");
+  json_builder_add_int_value (b, e->n);
+  lamina_cli_json_add_string (b, "construction", e->construction);
+  json_builder_set_member_name (b, "revision");
+  json_builder_add_int_value (b, e->revision);
+  lamina_cli_json_add_string (b, "code", c != NULL ? c->code : NULL);
+  lamina_cli_json_add_string (b, "name", c != NULL ? c->name : NULL);
+  lamina_cli_json_add_string (b, "element", c != NULL ? lamina_element_to_string (c->element) : NULL);
+  lamina_cli_json_add_string (b, "use", e->use);
+  lamina_cli_json_add_string (b, "location", e->location);
+  lamina_cli_json_add_number (b, "u", line->u);
+  lamina_cli_json_add_number (b, "target", line->max_u);
+  json_builder_set_member_name (b, "met");
+  if (line->verdict == LAMINA_VERDICT_MET || line->verdict == LAMINA_VERDICT_NOT_MET)
+    json_builder_add_boolean_value (b, line->verdict == LAMINA_VERDICT_MET);
+  else
+    json_builder_add_null_value (b);
+  lamina_cli_json_add_number (b, "area", e->area);
+  lamina_cli_json_add_number (b, "ua", line->ua);
+  lamina_cli_json_add_string (b, "verdict", lamina_verdict_to_string (line->verdict));
+  lamina_cli_json_add_string (b, "origin", e->origin);
+  if (e->origin != NULL)
+    {
+      json_builder_set_member_name (b, "origin_revision");
+      json_builder_add_int_value (b, e->origin_revision);
+    }
+  json_builder_set_member_name (b, "flags");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < G_N_ELEMENTS (flag_names); i++)
+    if (line->flags & flag_names[i].flag)
+      json_builder_add_string_value (b, flag_names[i].name);
+  json_builder_end_array (b);
+  json_builder_set_member_name (b, "notes");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < line->notes->len; i++)
+    json_builder_add_string_value (b, line->notes->pdata[i]);
+  json_builder_end_array (b);
+  json_builder_end_object (b);
+}
+
+static void
+add_totals (JsonBuilder          *b,
+            const LaminaJobCheck *check)
+{
+  lamina_cli_json_add_number (b, "h_t", check->h_t);
+  lamina_cli_json_add_number (b, "h_junctions", check->h_junctions);
+  lamina_cli_json_add_number (b, "h_total", check->h_total);
+  lamina_cli_json_add_number (b, "area", check->area);
+  json_builder_set_member_name (b, "mean_u");
+  json_builder_begin_object (b);
+  for (guint k = 0; k < LAMINA_N_ELEMENTS; k++)
+    if (check->kinds[k].area > 0)
+      lamina_cli_json_add_number (b, lamina_element_to_string ((LaminaElement) k),
+                                  check->kinds[k].mean_u);
+  json_builder_end_object (b);
+  json_builder_set_member_name (b, "n_met");
+  json_builder_add_int_value (b, check->n_met);
+  json_builder_set_member_name (b, "n_not_met");
+  json_builder_add_int_value (b, check->n_not_met);
+  json_builder_set_member_name (b, "n_open");
+  json_builder_add_int_value (b, check->n_open);
+}
+
+static void
+add_job_data (JsonBuilder     *b,
+              const LaminaJob *job)
+{
+  lamina_cli_json_add_string (b, "id", job->id);
+  lamina_cli_json_add_string (b, "name", job->name);
+  lamina_cli_json_add_string (b, "number", job->number);
+  lamina_cli_json_add_string (b, "client", job->client);
+  lamina_cli_json_add_string (b, "site", job->site);
+  lamina_cli_json_add_string (b, "architect", job->architect);
+  lamina_cli_json_add_string (b, "status", lamina_job_status_to_string (job->status));
+  lamina_cli_json_add_string (b, "target_set", job->target_set);
+  lamina_cli_json_add_string (b, "climate", job->climate);
+  lamina_cli_json_add_number (b, "inside_temperature", job->inside_temperature);
+  lamina_cli_json_add_number (b, "outside_temperature", job->outside_temperature);
+  lamina_cli_json_add_number (b, "ground_b_prime", lamina_job_get_b_prime (job));
+}
+
+static void
+add_junctions_and_log (JsonBuilder     *b,
+                       const LaminaJob *job)
+{
+  json_builder_set_member_name (b, "junctions");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < job->junctions->len; i++)
+    {
+      const LaminaJobJunction *j = job->junctions->pdata[i];
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "n");
+      json_builder_add_int_value (b, j->n);
+      lamina_cli_json_add_string (b, "name", j->name);
+      lamina_cli_json_add_number (b, "psi", j->psi);
+      lamina_cli_json_add_number (b, "length", j->length);
+      lamina_cli_json_add_number (b, "psi_l", j->psi * j->length);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+  json_builder_set_member_name (b, "log");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < job->log->len; i++)
+    {
+      const LaminaJobEvent *event = job->log->pdata[i];
+
+      json_builder_begin_object (b);
+      lamina_cli_json_add_string (b, "at", event->at);
+      lamina_cli_json_add_string (b, "by", event->by);
+      lamina_cli_json_add_string (b, "text", event->text);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+}
+
+static void
+print_json (const LaminaJobReport *report)
+{
+  g_autoptr(JsonBuilder) b = json_builder_new ();
+
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "job");
+  json_builder_begin_object (b);
+  add_job_data (b, report->job);
+  json_builder_set_member_name (b, "entries");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < report->check->lines->len; i++)
+    add_line (b, report->check->lines->pdata[i]);
+  json_builder_end_array (b);
+  add_totals (b, report->check);
+  add_junctions_and_log (b, report->job);
+  json_builder_end_object (b);
+  json_builder_end_object (b);
+  lamina_cli_print_json (json_builder_get_root (b));
+}
+
+static const char *
+verdict_text (LaminaVerdict verdict)
+{
+  switch (verdict)
+    {
+    case LAMINA_VERDICT_MET:
+      return _("met");
+    case LAMINA_VERDICT_NOT_MET:
+      return _("NOT MET");
+    case LAMINA_VERDICT_NO_TARGET:
+      return _("no target");
+    case LAMINA_VERDICT_NOT_CALCULATED:
+    case LAMINA_N_VERDICTS:
+    default:
+      return _("not calculated");
+    }
+}
+
+static void
+print_text (const LaminaJobReport *report)
+{
+  const LaminaJob *job = report->job;
+  const LaminaJobCheck *check = report->check;
+
+  printf ("%s %s — %s\n", job->number ? job->number : "", job->name,
+          lamina_job_status_to_string (job->status));
+  if (job->client)
+    printf (_("Client: %s\n"), job->client);
+  if (job->architect)
+    printf (_("Architect: %s\n"), job->architect);
+  printf (_("Targets: %s; design conditions %g °C inside, %g °C outside\n"),
+          report->targets ? report->targets->name : _("none"),
+          job->inside_temperature, job->outside_temperature);
+  printf ("\n%3s  %-14s %-4s %-18s %7s %7s %-10s %8s %8s\n", "#", _("construction"), _("rev"),
+          _("use"), "U", _("max U"), _("verdict"), "A m²", "U·A W/K");
+  for (guint i = 0; i < check->lines->len; i++)
+    {
+      const LaminaJobLine *l = check->lines->pdata[i];
+      const LaminaConstruction *c = l->construction;
+
+      printf ("%3d  %-14s %-4d %-18s %7.3f %7.3f %-10s %8.1f %8.2f\n", l->entry->n,
+              c != NULL && c->code ? c->code : l->entry->construction, l->entry->revision,
+              l->entry->use, l->u, l->max_u, verdict_text (l->verdict), l->entry->area, l->ua);
+      for (guint k = 0; k < l->notes->len; k++)
+        printf ("       ! %s\n", (const char *) l->notes->pdata[k]);
+    }
+  printf (_("\nH_T of the listed elements' fabric only (Σ U·A): %.2f W/K over %.1f m²\n"),
+          check->h_t, check->area);
+  if (job->junctions->len > 0)
+    printf (_("Linear thermal bridges entered by hand (Σ ψ·l): %.2f W/K; together %.2f W/K\n"),
+            check->h_junctions, check->h_total);
+  printf (_("%u met, %u not met, %u open\n"), check->n_met, check->n_not_met, check->n_open);
+  printf ("%s\n", lamina_cli_caution ());
+}
+
+/* job show JOB [--json] */
+int
+lamina_cli_job_show (const LaminaCliGlobals *globals,
+                     int                     argc,
+                     char                  **argv)
+{
+  gboolean json = FALSE;
+  const GOptionEntry entries[] = {
+    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON (U in W/(m²·K), area in m², U·A and H_T in W/K)"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("JOB — a job, its schedule and its check"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaJobReport) report = NULL;
+  g_autoptr(GError) error = NULL;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 2)
+    {
+      lamina_cli_error (_("job show takes one job id (see “lamina-cli job show --help”)"));
+      return LAMINA_EXIT_USAGE;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  report = lamina_library_check_job (library, argv[1], &error);
+  if (report == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  if (json)
+    print_json (report);
+  else
+    print_text (report);
+  return LAMINA_EXIT_OK;
+}

@@ -1,0 +1,162 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* End-to-end tests of `lamina-cli job`: the keys of job show --json (the
+ * contract), the corrected U of each entry equal to the construction's
+ * own show --json, H_T equal to the hand sum of U·A, the default pin
+ * (latest approved, else latest with a note), and exit codes 0/1/2. */
+#include <json-glib/json-glib.h>
+#include <math.h>
+#include <string.h>
+
+#include "lamina-store-test-util.h"
+#include "lamina-cli-test-util.h"
+
+static JsonObject *
+parse_object (JsonParser *parser,
+              const char *text,
+              const char *member)
+{
+  g_assert_true (json_parser_load_from_data (parser, text, -1, NULL));
+  return json_object_get_object_member (json_node_get_object (json_parser_get_root (parser)),
+                                        member);
+}
+
+static double
+construction_u (const char *id)
+{
+  g_autofree char *out = NULL, *err = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  JsonObject *root;
+
+  g_assert_cmpint (run (&out, &err, "show", id, "--json", NULL), ==, 0);
+  g_assert_true (json_parser_load_from_data (parser, out, -1, NULL));
+  root = json_node_get_object (json_parser_get_root (parser));
+  return json_object_get_double_member (
+    json_array_get_object_element (json_object_get_array_member (root, "constructions"), 0),
+    "u_corrected");
+}
+
+/* The demo's school job: every contract key, the hall wall failing its
+ * invented target, and h_t = Σ u·area (EN ISO 13789:2017 8.2 H = Σ A·U,
+ * from memory) summed here by hand from the entries. */
+static void
+test_show_json (void)
+{
+  g_autofree char *out = NULL, *err = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  static const char *const keys[] = {
+    "construction", "revision", "use", "u", "target", "met", "area", "ua",
+  };
+  JsonObject *job;
+  JsonArray *entries;
+  double sum = 0;
+
+  library_path = test_library_path ("cli-job.sqlite");
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "demo-job-riverside", "--json", NULL), ==, 0);
+  job = parse_object (parser, out, "job");
+  g_assert_cmpstr (json_object_get_string_member (job, "id"), ==, "demo-job-riverside");
+  g_assert_true (json_object_has_member (job, "name"));
+  entries = json_object_get_array_member (job, "entries");
+  g_assert_cmpuint (json_array_get_length (entries), ==, 5);
+  for (guint i = 0; i < json_array_get_length (entries); i++)
+    {
+      JsonObject *e = json_array_get_object_element (entries, i);
+      double u = json_object_get_double_member (e, "u");
+
+      for (guint k = 0; k < G_N_ELEMENTS (keys); k++)
+        g_assert_true (json_object_has_member (e, keys[k]));
+      g_assert_cmpfloat_with_epsilon (u, construction_u (json_object_get_string_member (e, "construction")),
+                                      1e-12);
+      g_assert_cmpfloat_with_epsilon (json_object_get_double_member (e, "ua"),
+                                      u * json_object_get_double_member (e, "area"), 1e-9);
+      sum += u * json_object_get_double_member (e, "area");
+    }
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (job, "h_t"), sum, 1e-9);
+  /* EW-203: U 0.326 above the invented 0.18 for external walls. */
+  g_assert_cmpstr (json_object_get_string_member (json_array_get_object_element (entries, 1),
+                                                  "construction"), ==, "demo-ew-203");
+  g_assert_false (json_object_get_boolean_member (json_array_get_object_element (entries, 1), "met"));
+  g_assert_true (json_object_get_boolean_member (json_array_get_object_element (entries, 0), "met"));
+  g_assert_cmpfloat (json_object_get_double_member (json_array_get_object_element (entries, 1), "target"),
+                     ==, 0.18);
+}
+
+/* new, add, update, remove, list, and their refusals. */
+static void
+test_edit (void)
+{
+  g_autofree char *out = NULL, *err = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  static const struct { int status; const char *args[10]; const char *expect; } cases[] = {
+    { 0, { "job", "new", "j1", "--name", "Test job", "--number", "T-1", "--client", "C", "--targets" }, NULL },
+    { 1, { "job", "new", "j1", "--name", "Again" }, "exists" },
+    { 2, { "job", "new", "j2" }, "--name" },
+    { 2, { "job", "new", "j2", "--name", "X", "--status", "finished" }, "--status" },
+    { 2, { "job", "new", "j2", "--name", "X", "--outside-temperature", "-300" }, "--outside-temperature" },
+    { 1, { "job", "new", "j2", "--name", "X", "--targets", "nope" }, "no target set “nope”" },
+    { 0, { "job", "add", "j1", "EW-101", "--use", "external-wall", "--area", "100" }, NULL },
+    { 0, { "job", "add", "j1", "demo-ew-102", "--use", "external-wall" }, "not approved" },
+    { 1, { "job", "add", "j1", "EW-101", "--use", "balcony" }, "its uses: external-wall" },
+    { 2, { "job", "add", "j1", "EW-101", "--use", "roof", "--area", "-1" }, "--area" },
+    { 1, { "job", "add", "j1", "EW-999", "--use", "roof" }, "EW-999" },
+    { 1, { "job", "add", "j1", "EW-101", "--use", "roof", "--revision", "99" }, "no revision 99" },
+    { 2, { "job", "add", "j1", "EW-101" }, "--use" },
+    { 0, { "job", "add", "j1", "--junction", "eaves", "--psi", "0.05", "--length", "20" }, NULL },
+    { 0, { "job", "update", "j1", "--entry", "2", "--area", "40", "--location", "Gable" }, NULL },
+    { 0, { "job", "update", "j1", "--move", "1", "--revision", "3", "--by", "A. Architect" }, NULL },
+    { 1, { "job", "update", "j1", "--move", "9" }, "no entry 9" },
+    { 1, { "job", "show", "nope" }, "no job “nope”" },
+    { 2, { "job", "frobnicate" }, "unknown job command" },
+    { 0, { "job", "remove", "j1", "2" }, NULL },
+    { 1, { "job", "remove", "j1", "2" }, "no entry 2" },
+    { 2, { "job", "remove", "j1", "two" }, "entry number" },
+  };
+  JsonObject *job;
+  JsonArray *entries;
+
+  library_path = test_library_path ("cli-job-edit.sqlite");
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      const char *const *a = cases[i].args;
+      int status;
+
+      g_clear_pointer (&out, g_free);
+      g_clear_pointer (&err, g_free);
+      if (i == 0)
+        status = run (&out, &err, a[0], a[1], a[2], a[3], a[4], a[5], a[6], a[7], a[8], a[9],
+                      "demo-fallowmere-rules", NULL);
+      else
+        status = run (&out, &err, a[0], a[1], a[2], a[3], a[4], a[5], a[6], a[7], a[8], a[9], NULL);
+      if (status != cases[i].status)
+        g_error ("case %u (%s %s): exit %d, expected %d; %s", i, a[1], a[2], status,
+                 cases[i].status, err);
+      if (cases[i].expect != NULL && strstr (err, cases[i].expect) == NULL)
+        g_error ("case %u: “%s” does not name “%s”", i, err, cases[i].expect);
+    }
+  g_clear_pointer (&out, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "j1", "--json", NULL), ==, 0);
+  job = parse_object (parser, out, "job");
+  entries = json_object_get_array_member (job, "entries");
+  g_assert_cmpuint (json_array_get_length (entries), ==, 1);
+  /* The default pin is EW-101's approved revision 3 (data/demo). */
+  g_assert_cmpint (json_object_get_int_member (json_array_get_object_element (entries, 0), "revision"),
+                   ==, 3);
+  g_assert_cmpstr (json_object_get_string_member (job, "number"), ==, "T-1");
+  g_assert_cmpuint (json_array_get_length (json_object_get_array_member (job, "junctions")), ==, 1);
+  g_clear_pointer (&out, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "list", "--json", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "\"j1\""));
+}
+
+int
+main (int   argc,
+      char *argv[])
+{
+  g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
+  g_test_add_func ("/cli/job/show-json", test_show_json);
+  g_test_add_func ("/cli/job/edit", test_edit);
+  return g_test_run ();
+}

@@ -1,0 +1,337 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Jobs and target sets in the library: an entry pins the approved
+ * revision by default, the check uses each pinned revision's U (the
+ * stored figure of EN ISO 6946) and sums U·A to H_T, a newer approved
+ * revision or changed material data is flagged, moving an entry is an
+ * explicit act recorded in the job's log, the library names the jobs that
+ * use a construction, and jobs travel through export and import.  The
+ * target values are invented for the test. */
+#include "lamina-store-test-util.h"
+
+#include "lamina-sqlite-private.h"
+
+static LaminaLibrary *
+open_at (const char *name)
+{
+  g_autofree char *path = test_library_path (name);
+  g_autoptr(GError) error = NULL;
+  LaminaLibrary *library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+
+  g_assert_no_error (error);
+  return library;
+}
+
+static char *
+create_approved_wall (LaminaLibrary *library,
+                      const char    *code,
+                      double         mm)
+{
+  g_autoptr(LaminaConstruction) c = test_make_wall (library, code, code, NULL, mm);
+  g_autoptr(GError) error = NULL;
+  char *id = lamina_library_create_construction (library, c, "A. Planner", &error);
+
+  g_assert_no_error (error);
+  g_assert_true (lamina_library_mark_checked (library, id, 0, "C. Checker", &error));
+  g_assert_true (lamina_library_approve (library, id, 0, "D. Director", "2026-05-04", &error));
+  g_assert_no_error (error);
+  return id;
+}
+
+static void
+put_targets (LaminaLibrary *library)
+{
+  g_autoptr(LaminaTargetSet) set = lamina_target_set_new ("invented", "Invented table");
+  g_autoptr(GError) error = NULL;
+
+  set->source = g_strdup ("invented for a test; no regulation's values");
+  lamina_target_set_add (set, lamina_target_new ("external-wall", 0.30));
+  lamina_target_set_add (set, lamina_target_new ("wall-unheated", 0.20));
+  g_assert_true (lamina_library_put_target_set (library, set, &error));
+  g_assert_no_error (error);
+}
+
+static LaminaJobEntry *
+pin (LaminaLibrary *library,
+     LaminaJob     *job,
+     const char    *id,
+     const char    *use,
+     double         area)
+{
+  g_autoptr(GError) error = NULL;
+  gboolean approved = FALSE;
+  int revision = lamina_library_pick_revision (library, id, 0, &approved, &error);
+  LaminaJobEntry *e;
+
+  g_assert_no_error (error);
+  e = lamina_job_add_entry (job, lamina_job_entry_new (id, revision, use));
+  e->area = area;
+  return e;
+}
+
+static double
+stored_u (LaminaLibrary *library,
+          const char    *id,
+          int            revision)
+{
+  g_autoptr(LaminaResult) r = lamina_library_dup_result (library, id, revision, NULL);
+
+  g_assert_nonnull (r);
+  return r->u_corrected;
+}
+
+/* H_T = Σ U·A over the entries with an area (EN ISO 13789:2017 8.2, from
+ * memory); the U of each is the stored EN ISO 6946 figure of its pinned
+ * revision.  Two walls, 100 m² and 40 m², the 145 mm wall against both
+ * uses: met for 0.30, not met for the invented 0.20. */
+static void
+test_check_and_h_t (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("jobs.sqlite");
+  g_autofree char *a = create_approved_wall (library, "EW-145", 145);
+  g_autofree char *b = create_approved_wall (library, "EW-195", 195);
+  g_autoptr(LaminaJob) job = lamina_job_new ("j1", "Test house");
+  g_autoptr(LaminaJobReport) report = NULL;
+  g_autoptr(GError) error = NULL;
+  double ua, ub;
+  const LaminaJobLine *line;
+
+  put_targets (library);
+  job->target_set = g_strdup ("invented");
+  pin (library, job, a, "external-wall", 100);
+  pin (library, job, b, "external-wall", 40);
+  pin (library, job, a, "wall-unheated", NAN);
+  g_assert_true (lamina_library_create_job (library, job, &error));
+  g_assert_no_error (error);
+  g_assert_false (lamina_library_create_job (library, job, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS);
+  g_clear_error (&error);
+
+  report = lamina_library_check_job (library, "j1", &error);
+  g_assert_no_error (error);
+  ua = stored_u (library, a, 1);
+  ub = stored_u (library, b, 1);
+  g_assert_cmpfloat (ua, >, 0.20);
+  g_assert_cmpfloat (ua, <, 0.30);
+  line = report->check->lines->pdata[0];
+  g_assert_cmpfloat_with_epsilon (line->u, ua, 1e-12);
+  g_assert_cmpint (line->verdict, ==, LAMINA_VERDICT_MET);
+  g_assert_cmpint (line->flags, ==, LAMINA_ENTRY_NONE);
+  line = report->check->lines->pdata[2];
+  g_assert_cmpint (line->verdict, ==, LAMINA_VERDICT_NOT_MET);
+  g_assert_cmpfloat_with_epsilon (report->check->h_t, ua * 100 + ub * 40, 1e-9);
+  g_assert_cmpfloat_with_epsilon (report->check->kinds[LAMINA_ELEMENT_WALL].mean_u,
+                                  (ua * 100 + ub * 40) / 140, 1e-12);
+}
+
+/* Pinning and moving: an entry takes the approved revision while a newer
+ * draft exists; once a newer revision is approved the entry is flagged
+ * and stays put until the user moves it, which the log records. */
+static void
+test_pin_and_move (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("pins.sqlite");
+  g_autofree char *a = create_approved_wall (library, "EW-145", 145);
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, a, 0, NULL);
+  g_autoptr(LaminaJob) job = lamina_job_new ("j2", "Pins");
+  g_autoptr(LaminaJob) stored = NULL;
+  g_autoptr(LaminaJobReport) report = NULL;
+  g_autoptr(GPtrArray) uses = NULL;
+  g_autoptr(GError) error = NULL;
+  const LaminaJobLine *line;
+  const LaminaJobEvent *event;
+  gboolean approved = FALSE;
+
+  ((LaminaLayer *) c->layers->pdata[1])->thickness = 195;
+  g_assert_true (lamina_library_save_construction (library, c, 1, "A. Planner", &error));
+  g_assert_cmpint (lamina_library_pick_revision (library, a, 0, &approved, NULL), ==, 1);
+  g_assert_true (approved);
+  g_assert_cmpint (lamina_library_pick_revision (library, a, 2, &approved, NULL), ==, 2);
+  g_assert_false (approved);
+  g_assert_cmpint (lamina_library_pick_revision (library, a, 7, NULL, &error), ==, 0);
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+  g_clear_error (&error);
+
+  pin (library, job, a, "external-wall", 10);
+  g_assert_true (lamina_library_create_job (library, job, &error));
+  g_assert_true (lamina_library_mark_checked (library, a, 2, "C. Checker", NULL));
+  g_assert_true (lamina_library_approve (library, a, 2, "D. Director", NULL, NULL));
+
+  report = lamina_library_check_job (library, "j2", &error);
+  line = report->check->lines->pdata[0];
+  g_assert_cmpint (line->entry->revision, ==, 1);
+  g_assert_true (line->flags & LAMINA_ENTRY_NEWER_APPROVED);
+  g_assert_cmpint (line->newer_revision, ==, 2);
+  g_clear_pointer (&report, lamina_job_report_free);
+
+  g_assert_true (lamina_library_move_job_entry (library, "j2", 1, 0, "A. Architect", &error));
+  g_assert_no_error (error);
+  stored = lamina_library_dup_job (library, "j2", &error);
+  g_assert_cmpint (lamina_job_find_entry (stored, 1)->revision, ==, 2);
+  event = stored->log->pdata[stored->log->len - 1];
+  g_assert_cmpstr (event->by, ==, "A. Architect");
+  g_assert_nonnull (strstr (event->text, "revision 1 to revision 2"));
+  report = lamina_library_check_job (library, "j2", &error);
+  line = report->check->lines->pdata[0];
+  g_assert_false (line->flags & LAMINA_ENTRY_NEWER_APPROVED);
+  g_assert_cmpfloat_with_epsilon (line->u, stored_u (library, a, 2), 1e-12);
+
+  uses = lamina_library_list_job_uses (library, a, &error);
+  g_assert_cmpuint (uses->len, ==, 1);
+  g_assert_cmpstr (((LaminaJobUse *) uses->pdata[0])->job_id, ==, "j2");
+  g_assert_cmpint (((LaminaJobUse *) uses->pdata[0])->revision, ==, 2);
+  g_assert_false (lamina_library_move_job_entry (library, "j2", 5, 0, NULL, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+}
+
+/* A library material changed after the pinned revision was checked: the
+ * entry says so, and its U stays the pinned revision's. */
+static void
+test_material_changed (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("material.sqlite");
+  g_autofree char *a = create_approved_wall (library, "EW-145", 145);
+  g_autoptr(LaminaMaterial) wool = lamina_library_dup_material (library, "typical-mineral-wool-035", NULL);
+  g_autoptr(LaminaJob) job = lamina_job_new ("j3", "Material");
+  g_autoptr(LaminaJobReport) report = NULL;
+  g_autoptr(GError) error = NULL;
+  const LaminaJobLine *line;
+
+  pin (library, job, a, "external-wall", 10);
+  g_assert_true (lamina_library_create_job (library, job, &error));
+  wool->conductivity = 0.040;
+  g_assert_true (lamina_library_put_material (library, wool, &error));
+  report = lamina_library_check_job (library, "j3", &error);
+  line = report->check->lines->pdata[0];
+  g_assert_true (line->flags & LAMINA_ENTRY_MATERIAL_CHANGED);
+  g_assert_cmpfloat_with_epsilon (line->u, stored_u (library, a, 1), 1e-12);
+  /* No target set: nothing is met or failed. */
+  g_assert_cmpint (line->verdict, ==, LAMINA_VERDICT_NO_TARGET);
+}
+
+/* Refusals name what is wrong and write nothing. */
+static void
+test_refusals (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("refuse.sqlite");
+  g_autofree char *a = create_approved_wall (library, "EW-145", 145);
+  g_autoptr(LaminaJob) job = lamina_job_new ("j4", "Refusals");
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) jobs = NULL;
+
+  put_targets (library);
+  job->target_set = g_strdup ("invented");
+  pin (library, job, a, "roof", 10);
+  g_assert_false (lamina_library_create_job (library, job, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "the use “roof” is not in the target set “invented” "
+                                            "(its uses: external-wall, wall-unheated)"));
+  g_clear_error (&error);
+  jobs = lamina_library_list_jobs (library, &error);
+  g_assert_cmpuint (jobs->len, ==, 0);
+  g_free (((LaminaJobEntry *) job->entries->pdata[0])->use);
+  ((LaminaJobEntry *) job->entries->pdata[0])->use = g_strdup ("external-wall");
+  g_assert_true (lamina_library_create_job (library, job, &error));
+  g_assert_false (lamina_library_delete_target_set (library, "invented", &error));
+  g_assert_nonnull (strstr (error->message, "the job “j4” uses the target set"));
+  g_clear_error (&error);
+  g_assert_false (lamina_library_save_job (library, lamina_job_new ("nope", "N"), &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+  g_clear_error (&error);
+  g_assert_true (lamina_library_delete_job (library, "j4", &error));
+  g_assert_true (lamina_library_delete_target_set (library, "invented", &error));
+  g_assert_no_error (error);
+}
+
+/* The whole library exported and imported into an empty one: target sets
+ * and jobs arrive with entries pinned to the revisions the import stored;
+ * a second import changes nothing.  An entry whose construction is
+ * neither in the document nor in the library stops the whole import. */
+static void
+test_exchange (void)
+{
+  g_autoptr(LaminaLibrary) a = open_at ("from.sqlite");
+  g_autoptr(LaminaLibrary) b = open_at ("to.sqlite");
+  g_autofree char *id = create_approved_wall (a, "EW-145", 145);
+  g_autoptr(LaminaJob) job = lamina_job_new ("j5", "Exchange");
+  g_autoptr(LaminaCatalogue) cat = NULL;
+  g_autoptr(LaminaImportReport) report = NULL;
+  g_autoptr(LaminaJob) back = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) jobs = NULL;
+  g_autoptr(LaminaJobReport) check = NULL;
+
+  put_targets (a);
+  job->target_set = g_strdup ("invented");
+  job->client = g_strdup ("M. Client");
+  pin (a, job, id, "external-wall", 55);
+  lamina_job_add_junction (job, lamina_job_junction_new ("eaves", 0.05, 20));
+  g_assert_true (lamina_library_create_job (a, job, &error));
+  cat = lamina_library_export (a, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (cat->jobs->len, ==, 1);
+  g_assert_cmpuint (cat->target_sets->len, ==, 1);
+
+  report = lamina_library_import (b, cat, LAMINA_IMPORT_DEFAULT, "I. Importer", &error);
+  g_assert_no_error (error);
+  back = lamina_library_dup_job (b, "j5", &error);
+  g_assert_no_error (error);
+  g_assert_cmpstr (back->client, ==, "M. Client");
+  g_assert_cmpuint (back->junctions->len, ==, 1);
+  check = lamina_library_check_job (b, "j5", &error);
+  g_assert_no_error (error);
+  g_assert_nonnull (((LaminaJobLine *) check->check->lines->pdata[0])->construction);
+  g_clear_pointer (&report, lamina_import_report_free);
+  report = lamina_library_import (b, cat, LAMINA_IMPORT_DEFAULT, "I. Importer", &error);
+  g_assert_no_error (error);
+  for (guint i = 0; i < report->items->len; i++)
+    g_assert_cmpint (((LaminaImportItem *) report->items->pdata[i])->action, ==,
+                     LAMINA_IMPORT_SKIPPED);
+
+  g_free (((LaminaJobEntry *) ((LaminaJob *) cat->jobs->pdata[0])->entries->pdata[0])->construction);
+  ((LaminaJobEntry *) ((LaminaJob *) cat->jobs->pdata[0])->entries->pdata[0])->construction =
+    g_strdup ("elsewhere");
+  g_clear_pointer (&report, lamina_import_report_free);
+  g_free (((LaminaJob *) cat->jobs->pdata[0])->name);
+  ((LaminaJob *) cat->jobs->pdata[0])->name = g_strdup ("Changed");
+  report = lamina_library_import (b, cat, LAMINA_IMPORT_DEFAULT, NULL, &error);
+  g_assert_null (report);
+  g_assert_nonnull (strstr (error->message, "“elsewhere” is neither in the document nor in the library"));
+  g_clear_pointer (&back, lamina_job_free);
+  back = lamina_library_dup_job (b, "j5", NULL);
+  g_assert_cmpstr (back->name, ==, "Exchange");
+  jobs = lamina_library_list_jobs (b, NULL);
+  g_assert_cmpuint (jobs->len, ==, 1);
+}
+
+/* A version 3 library migrates to version 4 with empty job tables. */
+static void
+test_migration (void)
+{
+  g_autofree char *path = test_library_path ("v3.sqlite");
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GPtrArray) jobs = NULL;
+
+  g_assert_true (lamina_sqlite_create_at_version (path, 3, &error));
+  library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (lamina_library_get_opened_version (library), ==, 3);
+  jobs = lamina_library_list_jobs (library, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (jobs->len, ==, 0);
+  put_targets (library);
+}
+
+int
+main (int   argc,
+      char *argv[])
+{
+  g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
+  g_test_add_func ("/store/jobs/check-and-h-t", test_check_and_h_t);
+  g_test_add_func ("/store/jobs/pin-and-move", test_pin_and_move);
+  g_test_add_func ("/store/jobs/material-changed", test_material_changed);
+  g_test_add_func ("/store/jobs/refusals", test_refusals);
+  g_test_add_func ("/store/jobs/exchange", test_exchange);
+  g_test_add_func ("/store/jobs/migration", test_migration);
+  return g_test_run ();
+}
