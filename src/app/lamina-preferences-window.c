@@ -3,6 +3,7 @@
 
 #include "config.h"
 
+#include "lamina-settings.h"
 #include "lamina-preferences-window.h"
 
 struct _LaminaPreferencesWindow
@@ -53,7 +54,7 @@ static void
 lamina_preferences_window_init (LaminaPreferencesWindow *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
-  self->settings = g_settings_new (APP_ID);
+  self->settings = lamina_settings_new ();
   g_settings_bind (self->settings, "practice-name", self->practice_entry, "text", G_SETTINGS_BIND_DEFAULT);
   g_settings_bind (self->settings, "reviewer-name", self->reviewer_entry, "text", G_SETTINGS_BIND_DEFAULT);
   g_settings_bind (self->settings, "inside-temperature", self->inside_spin, "value", G_SETTINGS_BIND_DEFAULT);

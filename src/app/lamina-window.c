@@ -3,6 +3,7 @@
 
 #include "config.h"
 
+#include "lamina-settings.h"
 #include "lamina-window-private.h"
 
 #include <glib/gi18n.h>
@@ -578,7 +579,7 @@ lamina_window_init (LaminaWindow *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
   self->cancellable = g_cancellable_new ();
-  self->settings = g_settings_new (APP_ID);
+  self->settings = lamina_settings_new ();
 }
 
 LaminaWindow *

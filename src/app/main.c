@@ -6,6 +6,8 @@
 #include <glib/gi18n.h>
 #include <locale.h>
 
+#include "lamina-build-tree.h"
+
 #include "lamina-application.h"
 
 int
@@ -15,7 +17,7 @@ main (int   argc,
   g_autoptr(LaminaApplication) app = NULL;
 
   setlocale (LC_ALL, "");
-  bindtextdomain (GETTEXT_PACKAGE, LOCALEDIR);
+  bindtextdomain (GETTEXT_PACKAGE, lamina_get_locale_dir ());
   bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
   textdomain (GETTEXT_PACKAGE);
 

@@ -8,6 +8,8 @@
 
 #include <glib/gi18n.h>
 #include <locale.h>
+
+#include "lamina-build-tree.h"
 #include <stdio.h>
 #include <string.h>
 
@@ -134,7 +136,7 @@ main (int    argc,
   int i;
 
   setlocale (LC_ALL, "");
-  bindtextdomain (GETTEXT_PACKAGE, LOCALEDIR);
+  bindtextdomain (GETTEXT_PACKAGE, lamina_get_locale_dir ());
   bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
   textdomain (GETTEXT_PACKAGE);
 
