@@ -330,6 +330,18 @@ on_section_selected_cb (LaminaEditor *self)
   update_actions (self);
 }
 
+static gboolean
+on_layer_list_key_pressed_cb (LaminaEditor          *self,
+                              guint                  keyval,
+                              guint                  keycode,
+                              GdkModifierType        state,
+                              GtkEventControllerKey *controller)
+{
+  if (gtk_list_box_get_selected_row (self->layer_list) == NULL)
+    return FALSE;
+  return lamina_section_view_resize_key (self->section_view, keyval, state);
+}
+
 static void
 on_row_selected_cb (LaminaEditor  *self,
                     GtkListBoxRow *row)
@@ -604,6 +616,7 @@ static void
 lamina_editor_init (LaminaEditor *self)
 {
   GtkEventController *focus;
+  GtkEventController *key;
 
   gtk_widget_init_template (GTK_WIDGET (self));
   self->snap_step = 5.0;
@@ -616,6 +629,11 @@ lamina_editor_init (LaminaEditor *self)
                            G_CALLBACK (on_show_temperatures_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (self->layer_list, "row-selected",
                            G_CALLBACK (on_row_selected_cb), self, G_CONNECT_SWAPPED);
+  /* + and − on a selected layer row resize it, as in the section (an
+   * entry in the row keeps its own keys: it handles them first). */
+  key = gtk_event_controller_key_new ();
+  g_signal_connect_object (key, "key-pressed", G_CALLBACK (on_layer_list_key_pressed_cb), self, G_CONNECT_SWAPPED);
+  gtk_widget_add_controller (GTK_WIDGET (self->layer_list), key);
   g_signal_connect_object (self->results_view, "conditions-changed",
                            G_CALLBACK (on_conditions_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (self->code_entry, "activate",

@@ -356,7 +356,7 @@ new_row (Dialog           *d,
   gtk_box_append (GTK_BOX (row->framing_box), new_caption ("mm"));
   row->remainder = GTK_LABEL (new_caption (NULL));
   row->member = new_entry (row, 10, _("Framing member name"), G_CALLBACK (on_member_commit_cb));
-  gtk_entry_set_placeholder_text (row->member, _("member"));
+  gtk_entry_set_placeholder_text (row->member, _("e.g. stud"));
   gtk_widget_set_tooltip_text (GTK_WIDGET (row->member),
                                _("Name of the framing member (stud, nogging, batten). Parts of different layers with the same member name line up through the construction. The infill has no name."));
   row->remove = gtk_button_new_from_icon_name ("list-remove-symbolic");
@@ -575,7 +575,7 @@ on_add_clicked_cb (Dialog *d)
         material = d->materials->pdata[i];
         break;
       }
-  member = g_strdup_printf (_("member %u"), layer->parts->len + 1);
+  member = g_strdup_printf (_("framing %u"), layer->parts->len + 1);
   next = lamina_edit_add_part (lamina_document_get_construction (d->document), d->layer,
                                material, 0.05, member, &error);
   if (next == NULL)

@@ -84,6 +84,18 @@ get_scale (LaminaSectionView *self,
   return lamina_section_fit_scale (self->construction, &self->style, width, height) * self->zoom;
 }
 
+static gboolean
+is_body_inside (LaminaSectionView *self,
+                double             width,
+                double             height)
+{
+  const LaminaSectionLayout *l = &self->layout;
+  double margin = self->style.unit;
+
+  return l->body_x >= margin && l->body_y >= 0 && l->body_x + l->body_width <= width - margin
+         && l->body_y + l->body_height <= height - margin;
+}
+
 /* Lays out the drawing for the widget's size.  While dragging, the scale
  * is frozen and the inner face pinned where it was, so the boundary stays
  * under the pointer instead of the centred drawing sliding away. */
@@ -104,6 +116,19 @@ compute_layout (LaminaSectionView *self)
 
       lamina_section_layout_compute (&self->layout, self->construction, &self->style,
                                      x, y, width, height);
+      /* A layer dragged thicker than the frame holds: fit the drawing
+       * again and hold that scale and position from here on, so that the
+       * section never runs out of its frame (zoomed in, it may). */
+      if (self->zoom <= 1.0 && !is_body_inside (self, width, height))
+        {
+          double fit = lamina_section_fit_scale (self->construction, &self->style, width, height);
+
+          self->style.scale = MIN (self->drag_scale, fit);
+          lamina_section_layout_compute (&self->layout, self->construction, &self->style,
+                                         0, 0, width, height);
+          self->drag_scale = self->style.scale;
+          self->drag_anchor = self->layout.edges[0];
+        }
     }
 }
 
@@ -283,7 +308,40 @@ is_fine (GtkGesture *gesture)
 {
   GdkModifierType state = gtk_event_controller_get_current_event_state (GTK_EVENT_CONTROLLER (gesture));
 
-  return (state & GDK_SHIFT_MASK) != 0;
+  /* A pointer drag has no keyboard layout to fight: Shift, or Alt as for
+   * the keys. */
+  return (state & (GDK_SHIFT_MASK | GDK_ALT_MASK)) != 0;
+}
+
+gboolean
+lamina_section_view_resize_key (LaminaSectionView *self,
+                                guint              keyval,
+                                GdkModifierType    state)
+{
+  /* Many layouts need Shift to type "+": Shift must not make the step
+   * fine, so the fine step is on Alt. */
+  gboolean fine = (state & GDK_ALT_MASK) != 0;
+
+  g_return_val_if_fail (LAMINA_IS_SECTION_VIEW (self), FALSE);
+
+  if (self->construction == NULL || self->construction->layers->len == 0
+      || (state & GDK_CONTROL_MASK) != 0)
+    return FALSE;
+  switch (keyval)
+    {
+    case GDK_KEY_plus:
+    case GDK_KEY_KP_Add:
+    case GDK_KEY_equal:
+      lamina_section_view_nudge (self, 1, fine);
+      return TRUE;
+    case GDK_KEY_minus:
+    case GDK_KEY_KP_Subtract:
+    case GDK_KEY_underscore:
+      lamina_section_view_nudge (self, -1, fine);
+      return TRUE;
+    default:
+      return FALSE;
+    }
 }
 
 static void
@@ -321,7 +379,6 @@ on_key_pressed_cb (LaminaSectionView     *self,
                    GdkModifierType        state,
                    GtkEventControllerKey *controller)
 {
-  gboolean fine = (state & GDK_SHIFT_MASK) != 0;
   int n = self->construction ? (int) self->construction->layers->len : 0;
   gboolean forward = self->layout.orientation == LAMINA_SECTION_UPWARD
                      ? (keyval == GDK_KEY_Up || keyval == GDK_KEY_Right)
@@ -337,18 +394,8 @@ on_key_pressed_cb (LaminaSectionView     *self,
     case GDK_KEY_Down:
       set_selected_internal (self, CLAMP (self->selected + (forward ? 1 : -1), 0, n - 1));
       return TRUE;
-    case GDK_KEY_plus:
-    case GDK_KEY_KP_Add:
-    case GDK_KEY_equal:
-      lamina_section_view_nudge (self, 1, fine);
-      return TRUE;
-    case GDK_KEY_minus:
-    case GDK_KEY_KP_Subtract:
-    case GDK_KEY_underscore:
-      lamina_section_view_nudge (self, -1, fine);
-      return TRUE;
     default:
-      return FALSE;
+      return lamina_section_view_resize_key (self, keyval, state);
     }
 }
 

@@ -1,9 +1,9 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* lamina-section-view.h: the construction's section on screen, drawn by
  * the sheet module's painter.  Click selects a layer; dragging a boundary
- * resizes the layer inside it, snapped to the snap step (Shift: a tenth of
- * it); the keyboard selects (arrows) and resizes (+/−) for users who do
- * not use a pointer. */
+ * resizes the layer inside it, snapped to the snap step (Shift or Alt: a
+ * tenth of it); the keyboard selects (arrows) and resizes (+/−, Alt for
+ * the fine step) for users who do not use a pointer. */
 #pragma once
 
 #include <gtk/gtk.h>
@@ -59,5 +59,12 @@ gboolean   lamina_section_view_get_boundary_point (LaminaSectionView    *self,
 void       lamina_section_view_nudge          (LaminaSectionView        *self,
                                                int                       steps,
                                                gboolean                  fine);
+
+/* "+" and "−" on the selected layer, from the section or the layer list:
+ * one snap step whether or not the layout needs Shift for "+", a tenth of
+ * it with Alt.  TRUE when the key was one of them. */
+gboolean   lamina_section_view_resize_key     (LaminaSectionView        *self,
+                                               guint                     keyval,
+                                               GdkModifierType           state);
 
 G_END_DECLS

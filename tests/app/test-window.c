@@ -213,10 +213,38 @@ test_drag_updates_u (Fixture       *f,
   g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, d1);
   g_assert_cmpfloat_with_epsilon (stored_u (f, id), after->u_corrected, 1e-12);
 
+  /* Dragged far beyond the frame, the section re-fits and stays inside
+   * its frame: the outer surface is never drawn past the widget's edge. */
+  g_assert_true (lamina_section_view_get_boundary_point (view, index + 1, &x, &y));
+  g_assert_true (lamina_section_view_drag_begin (view, x, y));
+  for (int step = 1; step <= 8; step++)
+    {
+      double outer_x, outer_y;
+
+      lamina_section_view_drag_update (view, 150.0 * step, 0, FALSE);
+      wait_for_draw (GTK_WIDGET (view));
+      g_assert_true (lamina_section_view_get_boundary_point (view, open_state (f)->layers->len, &outer_x, &outer_y));
+      g_assert_cmpfloat (outer_x, <=, gtk_widget_get_width (GTK_WIDGET (view)));
+      g_assert_cmpfloat (outer_x, >=, 0);
+    }
+  lamina_section_view_drag_end (view, 1200, 0, FALSE);
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL);
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, d1);
+
   /* The keyboard: one snap step thinner on the selected layer. */
   g_assert_cmpint (lamina_section_view_get_selected (view), ==, (int) index);
   lamina_section_view_nudge (view, -1, FALSE);
   g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, d1 - 5);
+  /* "+" is one snap step even with the Shift many layouts need to type
+   * it; Alt gives a tenth of the step. */
+  g_assert_true (lamina_section_view_resize_key (view, GDK_KEY_plus, GDK_SHIFT_MASK));
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, d1);
+  g_assert_true (lamina_section_view_resize_key (view, GDK_KEY_plus, GDK_ALT_MASK));
+  g_assert_cmpfloat_with_epsilon (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, d1 + 0.5, 1e-9);
+  g_assert_true (lamina_section_view_resize_key (view, GDK_KEY_minus, GDK_ALT_MASK));
+  g_assert_cmpfloat_with_epsilon (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, d1, 1e-9);
+  /* Ctrl++ is the zoom, not a resize. */
+  g_assert_false (lamina_section_view_resize_key (view, GDK_KEY_plus, GDK_CONTROL_MASK));
 }
 
 static void
