@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "lamina-application.h"
+#include "lamina-close-keys.h"
 
 #include <glib/gi18n.h>
 #include <stdio.h>
@@ -220,6 +221,7 @@ lamina_application_startup (GApplication *application)
   gtk_application_set_accels_for_action (GTK_APPLICATION (application), "app.quit", quit_accels);
   gtk_application_set_accels_for_action (GTK_APPLICATION (application), "app.preferences", prefs_accels);
   gtk_window_set_default_icon_name (APP_ID);
+  lamina_close_keys_install ();
 }
 
 static void

@@ -16,6 +16,7 @@
 #include "lamina-demo.h"
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
+#include "lamina-close-keys.h"
 #include "lamina-history-window.h"
 #include "lamina-materials-window.h"
 #include "lamina-parts-dialog.h"
@@ -803,6 +804,36 @@ test_compare_revisions (Fixture       *f,
 }
 
 static void
+test_close_keys (Fixture       *f,
+                 gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  GListModel *toplevels = gtk_window_get_toplevels ();
+  guint index = 0, secondary = 0;
+
+  /* Esc and Ctrl+W close every secondary window (common practice in
+   * desktop applications); the main window keeps Esc for its own use. */
+  lamina_close_keys_install ();
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.history", NULL));
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.materials", NULL));
+  g_assert_false (lamina_close_keys_has (GTK_WINDOW (f->window)));
+  for (guint i = g_list_model_get_n_items (toplevels); i-- > 0;)
+    {
+      g_autoptr(GtkWindow) window = g_list_model_get_item (toplevels, i);
+
+      if (window == GTK_WINDOW (f->window) || !gtk_widget_get_visible (GTK_WIDGET (window)))
+        continue;
+      g_assert_true (lamina_close_keys_has (window));
+      secondary++;
+      g_assert_true (gtk_widget_activate_action (GTK_WIDGET (window), "window.close", NULL));
+    }
+  g_assert_cmpuint (secondary, >=, 2);
+}
+
+static void
 test_materials_manager (Fixture       *f,
                         gconstpointer  data)
 {
@@ -985,6 +1016,7 @@ main (int   argc,
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
       g_test_add ("/app/window/tags-on-first-use", Fixture, NULL, fixture_setup, test_tags_on_first_use, fixture_teardown);
+      g_test_add ("/app/window/close-keys", Fixture, NULL, fixture_setup, test_close_keys, fixture_teardown);
     }
   return g_test_run ();
 }
