@@ -21,9 +21,10 @@ new_revision_row (LaminaLibrary            *library,
   g_autofree char *title = g_strdup_printf (_("Revision %d · %s · U %s"), info->revision,
                                             lamina_text_status_name (info->status),
                                             lamina_format_u (u, info->u_corrected));
+  g_autofree char *saved_at = lamina_text_local_date (info->modified_at);
+  g_autofree char *reviewed_at = lamina_text_local_date (info->approved_by ? info->approved_at : info->checked_at);
   g_autofree char *who = g_strdup_printf (_("Saved by %s on %s"),
-                                          info->modified_by ? info->modified_by : _("unknown"),
-                                          info->modified_at ? info->modified_at : "–");
+                                          info->modified_by ? info->modified_by : _("unknown"), saved_at);
   GtkWidget *label = gtk_label_new (title);
   GtkWidget *detail = gtk_label_new (who);
 
@@ -38,8 +39,8 @@ new_revision_row (LaminaLibrary            *library,
   if (info->approved_by != NULL || info->checked_by != NULL)
     {
       g_autofree char *review = info->approved_by
-        ? g_strdup_printf (_("Approved by %s on %s"), info->approved_by, info->approved_at ? info->approved_at : "–")
-        : g_strdup_printf (_("Checked by %s on %s"), info->checked_by, info->checked_at ? info->checked_at : "–");
+        ? g_strdup_printf (_("Approved by %s on %s"), info->approved_by, reviewed_at)
+        : g_strdup_printf (_("Checked by %s on %s"), info->checked_by, reviewed_at);
       GtkWidget *r = gtk_label_new (review);
 
       gtk_label_set_xalign (GTK_LABEL (r), 0);

@@ -145,6 +145,21 @@ on_document_changed_cb (LaminaWindow *self)
   lamina_window_update_actions (self);
 }
 
+/* The name a revision is saved under: the one in the preferences, else
+ * the person's full name from the system, never a login name. */
+static char *
+dup_person_name (LaminaWindow *self)
+{
+  g_autofree char *name = g_settings_get_string (self->settings, "reviewer-name");
+  const char *real = g_get_real_name ();
+
+  if (name != NULL && *g_strstrip (name) != '\0')
+    return g_steal_pointer (&name);
+  if (real != NULL && *real != '\0' && g_strcmp0 (real, "Unknown") != 0 && g_strcmp0 (real, g_get_user_name ()) != 0)
+    return g_strdup (real);
+  return NULL;
+}
+
 static void
 set_document (LaminaWindow   *self,
               LaminaDocument *document)
@@ -154,7 +169,7 @@ set_document (LaminaWindow   *self,
   g_set_object (&self->document, document);
   if (document != NULL)
     {
-      g_autofree char *reviewer = g_settings_get_string (self->settings, "reviewer-name");
+      g_autofree char *reviewer = dup_person_name (self);
 
       lamina_document_set_author (document, reviewer);
       g_signal_connect_object (document, "notice", G_CALLBACK (on_document_notice_cb), self, G_CONNECT_SWAPPED);
@@ -450,7 +465,7 @@ on_snap_step_changed_cb (LaminaWindow *self)
 static void
 on_reviewer_changed_cb (LaminaWindow *self)
 {
-  g_autofree char *reviewer = g_settings_get_string (self->settings, "reviewer-name");
+  g_autofree char *reviewer = dup_person_name (self);
 
   if (self->document != NULL)
     lamina_document_set_author (self->document, reviewer);

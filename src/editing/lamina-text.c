@@ -114,3 +114,29 @@ lamina_text_category_name (LaminaCategory category)
     default: return C_("category", "Other");
     }
 }
+
+char *
+lamina_text_local_date (const char *iso)
+{
+  g_autoptr(GTimeZone) utc = g_time_zone_new_utc ();
+  g_autoptr(GDateTime) when = NULL;
+  g_autoptr(GDateTime) local = NULL;
+
+  if (iso == NULL || *iso == '\0')
+    return g_strdup ("\xe2\x80\x94");
+  /* A date alone (a review date typed as YYYY-MM-DD) has no time to show. */
+  if (strlen (iso) == 10)
+    {
+      g_autofree char *noon = g_strconcat (iso, "T12:00:00Z", NULL);
+
+      when = g_date_time_new_from_iso8601 (noon, utc);
+      /* Translators: a date as in "1 Dec 2026" (strftime format) */
+      return when ? g_date_time_format (when, C_("date", "%-d %b %Y")) : g_strdup (iso);
+    }
+  when = g_date_time_new_from_iso8601 (iso, utc);
+  if (when == NULL)
+    return g_strdup (iso);
+  local = g_date_time_to_local (when);
+  /* Translators: a date and local time as in "1 Dec 2026, 21:50" (strftime format) */
+  return g_date_time_format (local, C_("date", "%-d %b %Y, %H:%M"));
+}

@@ -27,4 +27,8 @@ const char *lamina_text_element_name (LaminaElement element);
 const char *lamina_text_heat_flow_name (LaminaHeatFlow heat_flow);
 const char *lamina_text_category_name  (LaminaCategory category);
 
+/* An ISO 8601 time from the library (UTC) as the reader's local date and
+ * time, "1 Dec 2026, 21:50"; a date alone as "1 Dec 2026"; NULL as "—". */
+char       *lamina_text_local_date      (const char   *iso);
+
 G_END_DECLS

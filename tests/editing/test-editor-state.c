@@ -370,6 +370,22 @@ test_construction_properties (void)
   g_assert_null (noted->notes);
 }
 
+static void
+test_local_date (void)
+{
+  /* The library keeps UTC (ISO 8601); people read their local date and
+   * time.  The tests run with TZ=UTC and the C locale's month names. */
+  g_autofree char *full = lamina_text_local_date ("2026-12-01T21:50:00Z");
+  g_autofree char *day = lamina_text_local_date ("2026-06-09");
+  g_autofree char *none = lamina_text_local_date (NULL);
+  g_autofree char *bad = lamina_text_local_date ("yesterday");
+
+  g_assert_cmpstr (full, ==, "1 Dec 2026, 21:50");
+  g_assert_cmpstr (day, ==, "9 Jun 2026");
+  g_assert_cmpstr (none, ==, "\xe2\x80\x94");
+  g_assert_cmpstr (bad, ==, "yesterday");
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -377,6 +393,7 @@ main (int   argc,
   setlocale (LC_ALL, "C.UTF-8");
   g_test_init (&argc, &argv, NULL);
 
+  g_test_add_func ("/app/state/local-date", test_local_date);
   g_test_add_func ("/app/state/snap", test_snap);
   g_test_add_func ("/app/state/set-thickness-series", test_set_thickness_series);
   g_test_add_func ("/app/state/layer-stack", test_layer_stack);
