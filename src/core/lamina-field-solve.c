@@ -331,7 +331,7 @@ typedef struct
   guint   nx, ny;
   gsize   n;
   double *ce, *cn;      /* links east and north, full (for heat flows) */
-  double *se, *sn;      /* links of the system (0 next to a fixed node) */
+  double *se, *sn;      /* links of the system; 0 next to a fixed node */
   double *diag;
   double *rhs;
   double *ge, *te;      /* boundary conductance and temperature per node */
