@@ -444,15 +444,24 @@ save_png (GtkWidget  *widget,
           const char *path)
 {
   g_autoptr(GdkPaintable) paintable = gtk_widget_paintable_new (widget);
-  g_autoptr(GtkSnapshot) snapshot = gtk_snapshot_new ();
   g_autoptr(GskRenderNode) node = NULL;
   g_autoptr(GdkTexture) texture = NULL;
   GskRenderer *renderer = gtk_native_get_renderer (gtk_widget_get_native (widget));
   int width = gtk_widget_get_width (widget);
   int height = gtk_widget_get_height (widget);
 
-  gdk_paintable_snapshot (paintable, GDK_SNAPSHOT (snapshot), width, height);
-  node = gtk_snapshot_free_to_node (g_steal_pointer (&snapshot));
+  /* On a loaded machine the widget may not have drawn yet after one
+   * frame (its paintable then snapshots to nothing): wait for more
+   * frames, a bounded number of times. */
+  for (int attempt = 0; node == NULL && attempt < 50; attempt++)
+    {
+      g_autoptr(GtkSnapshot) snapshot = gtk_snapshot_new ();
+
+      if (attempt > 0)
+        wait_for_draw (widget);
+      gdk_paintable_snapshot (paintable, GDK_SNAPSHOT (snapshot), width, height);
+      node = gtk_snapshot_free_to_node (g_steal_pointer (&snapshot));
+    }
   g_assert_nonnull (node);
   texture = gsk_renderer_render_texture (renderer, node, &GRAPHENE_RECT_INIT (0, 0, width, height));
   g_assert_true (gdk_texture_save_to_png (texture, path));
