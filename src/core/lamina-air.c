@@ -55,25 +55,62 @@ lamina_air_layer_resistance_table (double         thickness,
   g_assert_not_reached ();
 }
 
-/* D.2: the convective coefficient ha across the layer for ΔT ≤ 5 K;
- * d in metres.  0.025/d is conduction through still air. */
+/* D.2: the convective coefficient ha across the layer; d in metres.  For
+ * ΔT ≤ 5 K (or not known: NAN) the constants, above it the ΔT terms:
+ * horizontal 0.73 ΔT^⅓, upward 1.14 ΔT^⅓, downward 0.09 ΔT^0.187 d^−0.44
+ * (from memory).  0.025/d is conduction through still air. */
 static double
 air_convective_coefficient (double         d,
-                            LaminaHeatFlow heat_flow)
+                            LaminaHeatFlow heat_flow,
+                            double         delta_t)
 {
   double conduction = 0.025 / d;
+  gboolean large = delta_t > 5.0;
 
   switch (heat_flow)
     {
     case LAMINA_HEAT_FLOW_UPWARD:
-      return MAX (1.95, conduction);
+      return MAX (large ? 1.14 * cbrt (delta_t) : 1.95, conduction);
     case LAMINA_HEAT_FLOW_DOWNWARD:
-      return MAX (0.12 * pow (d, -0.44), conduction);
+      return MAX ((large ? 0.09 * pow (delta_t, 0.187) : 0.12) * pow (d, -0.44), conduction);
     case LAMINA_HEAT_FLOW_HORIZONTAL:
     case LAMINA_N_HEAT_FLOWS:
     default:
-      return MAX (1.25, conduction);
+      return MAX (large ? 0.73 * cbrt (delta_t) : 1.25, conduction);
     }
+}
+
+/* D.3: a small or divided space (width b < 10 d) sees its own side walls:
+ * hr = hr0 / (1/ε1 + 1/ε2 − 2 + 2 / (1 + √(1 + d²/b²) − d/b)). */
+static gboolean
+is_small_space (double d,
+                double b)
+{
+  return !isnan (b) && b > 0 && b < 10.0 * d;
+}
+
+double
+lamina_air_space_resistance (double         thickness,
+                             LaminaHeatFlow heat_flow,
+                             double         emissivity_1,
+                             double         emissivity_2,
+                             double         width,
+                             double         delta_t,
+                             double         mean_temperature)
+{
+  double d = thickness / 1000.0, b = width / 1000.0;
+  double hr0, hr;
+
+  g_return_val_if_fail (thickness > 0, NAN);
+
+  hr0 = lamina_radiative_coefficient (isnan (mean_temperature) ? AIR_MEAN_TEMPERATURE : mean_temperature);
+  if (is_small_space (d, b))
+    hr = hr0 / (1.0 / emissivity_1 + 1.0 / emissivity_2 - 2.0
+                + 2.0 / (1.0 + sqrt (1.0 + d * d / (b * b)) - d / b));
+  else
+    /* D.2: intersurface emittance between two parallel faces. */
+    hr = hr0 / (1.0 / emissivity_1 + 1.0 / emissivity_2 - 1.0);
+  return 1.0 / (air_convective_coefficient (d, heat_flow, delta_t) + hr);
 }
 
 double
@@ -82,15 +119,8 @@ lamina_air_layer_resistance_formula (double         thickness,
                                      double         emissivity_1,
                                      double         emissivity_2)
 {
-  double d = thickness / 1000.0;
-  double emittance, hr;
-
-  g_return_val_if_fail (thickness > 0, NAN);
-
-  /* D.2: intersurface emittance between two parallel faces. */
-  emittance = 1.0 / (1.0 / emissivity_1 + 1.0 / emissivity_2 - 1.0);
-  hr = emittance * lamina_radiative_coefficient (AIR_MEAN_TEMPERATURE);
-  return 1.0 / (air_convective_coefficient (d, heat_flow) + hr);
+  return lamina_air_space_resistance (thickness, heat_flow, emissivity_1, emissivity_2,
+                                      NAN, NAN, AIR_MEAN_TEMPERATURE);
 }
 
 gboolean
@@ -101,6 +131,19 @@ lamina_air_layer_resistance (double         thickness,
                              double        *resistance,
                              GError       **error)
 {
+  return lamina_air_layer_resistance_sized (thickness, NAN, heat_flow, emissivity_1, emissivity_2,
+                                            resistance, error);
+}
+
+gboolean
+lamina_air_layer_resistance_sized (double         thickness,
+                                   double         width,
+                                   LaminaHeatFlow heat_flow,
+                                   double         emissivity_1,
+                                   double         emissivity_2,
+                                   double        *resistance,
+                                   GError       **error)
+{
   if (thickness > MAX_AIR_THICKNESS)
     {
       g_set_error (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_UNSUPPORTED,
@@ -109,10 +152,11 @@ lamina_air_layer_resistance (double         thickness,
                    thickness, MAX_AIR_THICKNESS);
       return FALSE;
     }
-  if (emissivity_1 >= HIGH_EMISSIVITY && emissivity_2 >= HIGH_EMISSIVITY)
+  if (emissivity_1 >= HIGH_EMISSIVITY && emissivity_2 >= HIGH_EMISSIVITY
+      && !is_small_space (thickness, width))
     *resistance = lamina_air_layer_resistance_table (thickness, heat_flow);
   else
-    *resistance = lamina_air_layer_resistance_formula (thickness, heat_flow,
-                                                       emissivity_1, emissivity_2);
+    *resistance = lamina_air_space_resistance (thickness, heat_flow, emissivity_1, emissivity_2,
+                                               width, NAN, AIR_MEAN_TEMPERATURE);
   return TRUE;
 }

@@ -8,7 +8,13 @@
  *           ventilated (6.9.4, outer layers disregarded, Rse = Rsi)
  *   6.7.2   bridged layers: upper limit R'T, lower limit R''T, their mean
  *           and the maximum relative error
- *   Annex F corrections for air gaps, mechanical fasteners, inverted roofs */
+ *   Annex F corrections for air gaps, mechanical fasteners, inverted roofs
+ *   Annex C surface resistances from wind speed and emissivity
+ *   Annex D air layers at the ΔT of the temperature profile (iterated),
+ *           small or divided spaces, air parts with their own faces
+ *   Annex E tapered layers: the area-mean U over the plan
+ *   6.10    an unheated space outside as the resistance Ru
+ * and, for ground floors, EN ISO 13370 (lamina-ground.c). */
 #define G_LOG_DOMAIN "lamina-core"
 
 #include "lamina-calc-private.h"
@@ -34,6 +40,11 @@
  * steels, are about 15–17 W/(m·K), EN ISO 10456 Table 3). */
 #define METAL_MIN_CONDUCTIVITY 10.0
 
+/* Annex D by the temperature profile: stop when no air layer's R moves by
+ * more than this, m²·K/W; a handful of rounds suffice in practice. */
+#define AIR_ITERATION_TOLERANCE 1e-7
+#define AIR_ITERATION_MAX 50
+
 /* F.2, Table F.1: ΔU'' by level of air gaps. */
 static const double air_gap_delta_u[] = { 0.00, 0.01, 0.04 };
 
@@ -43,6 +54,7 @@ typedef struct
   guint           n;
   double          rsi;
   double          rse;
+  double          ru;         /* 6.10: unheated space outside, or 0 */
   double         *r;          /* per layer; equivalent R for bridged layers */
   double        **part_r;     /* per bridged layer, per part */
   LaminaAirKind  *air;        /* effective ventilation class of air layers */
@@ -79,6 +91,48 @@ prefix_error (GError **error,
   return FALSE;
 }
 
+/* 6.9.2 / Annex D: an air layer or part at the ΔT and mean temperature
+ * given (NAN on the first pass: the conventional ΔT ≤ 5 K, 10 °C). */
+static gboolean
+air_resistance (const Calc     *calc,
+                LaminaHeatFlow  flow,
+                double          thickness,
+                double          width,
+                double          emissivity_1,
+                double          emissivity_2,
+                double          delta_t,
+                double          mean_temperature,
+                double         *r,
+                GError        **error)
+{
+  if (!lamina_air_layer_resistance_sized (thickness, width, flow, emissivity_1, emissivity_2, r, error))
+    return FALSE;
+  if (calc->c->surfaces.air_from_profile)
+    *r = lamina_air_space_resistance (thickness, flow, emissivity_1, emissivity_2, width,
+                                      delta_t, mean_temperature);
+  return TRUE;
+}
+
+/* An air part of a bridged layer, with its own faces.  6.9.3 (from
+ * memory): a slightly ventilated cavity counts half its unventilated R. */
+static gboolean
+part_air_resistance (const Calc        *calc,
+                     LaminaHeatFlow     flow,
+                     const LaminaLayer *layer,
+                     const LaminaPart  *part,
+                     double             delta_t,
+                     double             mean_temperature,
+                     double            *r,
+                     GError           **error)
+{
+  if (!air_resistance (calc, flow, layer->thickness, NAN, part->emissivity_inner, part->emissivity_outer,
+                       delta_t, mean_temperature, r, error))
+    return FALSE;
+  if (part->air == LAMINA_AIR_SLIGHTLY_VENTILATED)
+    *r /= 2.0;
+  return TRUE;
+}
+
 /* Resistance of each layer and part, with air layers taken as unventilated. */
 static gboolean
 resolve_layers (Calc                     *calc,
@@ -102,8 +156,8 @@ resolve_layers (Calc                     *calc,
           break;
         case LAMINA_LAYER_AIR:
           calc->air[i] = lamina_air_layer_effective_kind (layer);
-          if (!lamina_air_layer_resistance (layer->thickness, flow, layer->emissivity_inner,
-                                            layer->emissivity_outer, &calc->r[i], error))
+          if (!air_resistance (calc, flow, layer->thickness, layer->air_width, layer->emissivity_inner,
+                               layer->emissivity_outer, NAN, NAN, &calc->r[i], error))
             return prefix_error (error, i + 1, 0);
           break;
         case LAMINA_LAYER_BRIDGED:
@@ -118,8 +172,7 @@ resolve_layers (Calc                     *calc,
 
                 if (lamina_part_is_air (part))
                   {
-                    if (!lamina_air_layer_resistance (layer->thickness, flow, LAMINA_DEFAULT_EMISSIVITY,
-                                                      LAMINA_DEFAULT_EMISSIVITY, &rp, error))
+                    if (!part_air_resistance (calc, flow, layer, part, NAN, NAN, &rp, error))
                       return prefix_error (error, i + 1, (int) p + 1);
                   }
                 else
@@ -310,7 +363,7 @@ fill_layers (const Calc   *calc,
              double        rse,
              LaminaResult *result)
 {
-  double total = calc->rsi + rse, cumulative = calc->rsi;
+  double total = calc->rsi + rse + (cut == calc->n ? calc->ru : 0.0), cumulative = calc->rsi;
   double ti = calc->c->inside_temperature, te = calc->c->outside_temperature;
 
   for (guint i = 0; i < cut; i++)
@@ -405,14 +458,157 @@ static void
 check_target (const LaminaConstruction *c,
               LaminaResult             *result)
 {
+  /* A ground floor's target is for its U with the ground. */
+  double u = result->has_ground ? result->ground.u : result->u_corrected;
+
   if (isnan (c->target_u))
     return;
   result->has_target = TRUE;
-  result->target_met = result->u_corrected <= c->target_u;
+  result->target_met = u <= c->target_u;
   if (!result->target_met)
     lamina_result_add_warning (result, LAMINA_WARNING_TARGET_NOT_MET, 0,
                                g_strdup_printf (_("U = %.3f W/(m²·K) does not meet the target of %.3f W/(m²·K)."),
-                                                result->u_corrected, c->target_u));
+                                                u, c->target_u));
+}
+
+/* The limits, RT, U and the temperature profile from the current layer
+ * resistances.  Ru sits in series beyond the outer layer (6.10). */
+static void
+solve (Calc         *calc,
+       guint         cut,
+       double        rse,
+       LaminaResult *result)
+{
+  compute_limits (calc, calc->n, calc->rse + calc->ru, &result->r_upper, &result->r_lower);
+  /* 6.7.2.1: RT = (R'T + R''T) / 2, e = (R'T − R''T) / (2 RT) */
+  result->r_total = (result->r_upper + result->r_lower) / 2.0;
+  result->relative_error = (result->r_upper - result->r_lower) / (2.0 * result->r_total);
+  result->u = 1.0 / result->r_total;
+  fill_layers (calc, cut, rse, result);
+}
+
+/* Annex D with ΔT > 5 K: the air layers' R depends on the temperatures,
+ * which depend on R.  Take ΔT and the mean temperature of each air layer
+ * (and of each bridged layer with air parts) from the profile, recompute,
+ * and repeat until nothing moves. */
+static gboolean
+iterate_air_layers (Calc         *calc,
+                    guint         cut,
+                    double        rse,
+                    LaminaResult *result,
+                    GError      **error)
+{
+  const LaminaConstruction *c = calc->c;
+
+  for (guint round = 1; round <= AIR_ITERATION_MAX; round++)
+    {
+      double change = 0.0;
+
+      for (guint i = 0; i < cut; i++)
+        {
+          const LaminaLayer *layer = c->layers->pdata[i];
+          const LaminaLayerResult *lr = &result->layers[i];
+          double dt = fabs (lr->temperature_inner - lr->temperature_outer);
+          double tm = (lr->temperature_inner + lr->temperature_outer) / 2.0;
+          double r;
+
+          if (layer->kind == LAMINA_LAYER_AIR)
+            {
+              if (!air_resistance (calc, c->heat_flow, layer->thickness, layer->air_width,
+                                   layer->emissivity_inner, layer->emissivity_outer, dt, tm, &r, error))
+                return prefix_error (error, i + 1, 0);
+              change = MAX (change, fabs (r - calc->r[i]));
+              calc->r[i] = r;
+            }
+          else if (layer->kind == LAMINA_LAYER_BRIDGED)
+            {
+              double conductance = 0.0;
+
+              for (guint p = 0; p < layer->parts->len; p++)
+                {
+                  const LaminaPart *part = layer->parts->pdata[p];
+
+                  if (lamina_part_is_air (part))
+                    {
+                      if (!part_air_resistance (calc, c->heat_flow, layer, part, dt, tm, &r, error))
+                        return prefix_error (error, i + 1, (int) p + 1);
+                      change = MAX (change, fabs (r - calc->part_r[i][p]));
+                      calc->part_r[i][p] = r;
+                    }
+                  conductance += lamina_layer_get_part_fraction (layer, p) / calc->part_r[i][p];
+                }
+              calc->r[i] = 1.0 / conductance;
+            }
+        }
+      solve (calc, cut, rse, result);
+      result->air_iterations = round;
+      if (change < AIR_ITERATION_TOLERANCE)
+        break;
+    }
+  return TRUE;
+}
+
+/* Annex E: RT so far is R0 (the thin end); the wedge adds R1 at its thick
+ * end, and U is the mean of 1/R over the plan. */
+static void
+apply_taper (const Calc   *calc,
+             LaminaResult *result)
+{
+  for (guint i = 0; i < calc->n; i++)
+    {
+      const LaminaLayer *layer = calc->c->layers->pdata[i];
+
+      if (!lamina_layer_is_tapered (layer) || result->layers[i].disregarded)
+        continue;
+      result->tapered = TRUE;
+      result->tapered_layer = i + 1;
+      result->tapered_r0 = result->r_total;
+      result->tapered_r1 = (layer->thickness_max - layer->thickness) / 1000.0 / layer->material->conductivity;
+      result->u_thin_end = 1.0 / result->tapered_r0;
+      result->u_thick_end = 1.0 / (result->tapered_r0 + result->tapered_r1);
+      result->u = lamina_tapered_u (layer->taper, result->tapered_r0, result->tapered_r1);
+      return;
+    }
+}
+
+/* EN ISO 13370 for the stated plan; Rf is the floor's own resistance
+ * without its surface resistances. */
+static void
+apply_ground (const LaminaConstruction *c,
+              LaminaResult             *result)
+{
+  if (!c->has_ground)
+    return;
+  result->has_ground = TRUE;
+  lamina_ground_calculate (&c->ground, 1.0 / result->u - result->rsi - result->rse, NAN, &result->ground);
+}
+
+static void
+note_method (const LaminaConstruction *c,
+             LaminaResult             *result)
+{
+  if (result->has_ground && result->ground.soil_assumed)
+    lamina_result_add_warning (result, LAMINA_WARNING_SOIL_ASSUMED, 0,
+                               g_strdup_printf (_("The soil is not known: λ = %.1f W/(m·K) is assumed "
+                                                  "(EN ISO 13370, sand or gravel)."),
+                                                result->ground.soil_conductivity));
+  if (result->has_ground)
+    lamina_result_add_warning (result, LAMINA_WARNING_GROUND, 0,
+                               g_strdup_printf (_("U with the ground (EN ISO 13370) is %.3f W/(m²·K) for "
+                                                  "B′ = %.2f m only; check it for each building's plan."),
+                                                result->ground.u, result->ground.b_prime));
+  if (result->tapered)
+    lamina_result_add_warning (result, LAMINA_WARNING_TAPERED, (int) result->tapered_layer,
+                               g_strdup_printf (_("Layer %u is tapered: U is the area mean over the plan "
+                                                  "(EN ISO 6946 Annex E), from %.3f at the thin end to "
+                                                  "%.3f W/(m²·K) at the thick end."),
+                                                result->tapered_layer, result->u_thin_end, result->u_thick_end));
+  if (result->r_unheated > 0)
+    lamina_result_add_warning (result, LAMINA_WARNING_UNHEATED_SPACE, 0,
+                               g_strdup_printf (_("The unheated space outside counts as Ru = %.3f m²·K/W "
+                                                  "(EN ISO 6946 6.10)."),
+                                                result->r_unheated));
+  (void) c;
 }
 
 LaminaResult *
@@ -432,10 +628,9 @@ lamina_calculate (const LaminaConstruction *construction,
 
   calc.c = c;
   calc.n = c->layers->len;
-  calc.rsi = lamina_surface_resistance_inside (c->heat_flow);
-  /* 6.8: a face to another indoor space takes Rsi on both sides. */
-  calc.rse = c->outer_side == LAMINA_OUTER_SIDE_INDOOR ? calc.rsi
-                                                       : lamina_surface_resistance_outside (c->heat_flow);
+  /* 6.8 / Annex C; a face to another indoor space takes Rsi on both sides. */
+  lamina_surface_resistances (c, &calc.rsi, &calc.rse);
+  calc.ru = lamina_unheated_resistance (&c->unheated);
   calc.scratch = lamina_scratch_begin ();
   calc.r = lamina_scratch_alloc (calc.scratch, sizeof (double) * calc.n);
   calc.part_r = lamina_scratch_alloc (calc.scratch, sizeof (double *) * calc.n);
@@ -460,16 +655,23 @@ lamina_calculate (const LaminaConstruction *construction,
   result->rsi = calc.rsi;
   result->rse = rse;
 
-  compute_limits (&calc, calc.n, calc.rse, &result->r_upper, &result->r_lower);
-  /* 6.7.2.1: RT = (R'T + R''T) / 2, e = (R'T − R''T) / (2 RT) */
-  result->r_total = (result->r_upper + result->r_lower) / 2.0;
-  result->relative_error = (result->r_upper - result->r_lower) / (2.0 * result->r_total);
-  result->u = 1.0 / result->r_total;
+  result->r_unheated = cut == calc.n ? calc.ru : 0.0;
 
-  fill_layers (&calc, cut, rse, result);
+  solve (&calc, cut, rse, result);
+  if (c->surfaces.air_from_profile
+      && !iterate_air_layers (&calc, cut, rse, result, error))
+    {
+      lamina_scratch_end (calc.scratch);
+      lamina_result_free (result);
+      return NULL;
+    }
+  apply_taper (&calc, result);
+
   note_ventilation (&calc, cut, result);
   check_scope (&calc, result);
   apply_corrections (&calc, cut, result);
+  apply_ground (c, result);
+  note_method (c, result);
   check_target (c, result);
 
   lamina_scratch_end (calc.scratch);

@@ -7,6 +7,7 @@
 
 #include "lamina-construction.h"
 #include "lamina-error.h"
+#include "lamina-ground.h"
 
 G_BEGIN_DECLS
 
@@ -19,6 +20,10 @@ typedef enum
   LAMINA_WARNING_CORRECTION_SMALL,     /* ΔU < 3 % of U (F.1) */
   LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY, /* λf < 1: no correction (F.3) */
   LAMINA_WARNING_TARGET_NOT_MET,
+  LAMINA_WARNING_SOIL_ASSUMED,         /* λ of unknown soil (EN ISO 13370) */
+  LAMINA_WARNING_GROUND,               /* U with the ground for one plan */
+  LAMINA_WARNING_TAPERED,              /* U is the area mean (Annex E) */
+  LAMINA_WARNING_UNHEATED_SPACE,       /* Ru included (6.10) */
 } LaminaWarningKind;
 
 typedef struct
@@ -69,6 +74,23 @@ typedef struct
   guint              n_layers;
   LaminaLayerResult *layers;
   GPtrArray         *warnings;      /* LaminaWarning* */
+
+  /* Annex E: with a tapered layer, r_upper, r_lower, r_total and the
+   * temperatures are those at its thin end (RT = R0) and u is the area
+   * mean over the plan. */
+  gboolean           tapered;
+  guint              tapered_layer; /* 1-based */
+  double             tapered_r0;
+  double             tapered_r1;
+  double             u_thin_end;    /* 1/R0 */
+  double             u_thick_end;   /* 1/(R0 + R1) */
+  /* 6.10: Ru of the unheated space outside, included in the totals. */
+  double             r_unheated;
+  /* Annex D: air layers taken at the ΔT of the temperature profile. */
+  guint              air_iterations;
+  /* EN ISO 13370: the floor with the ground for the stated plan. */
+  gboolean           has_ground;
+  LaminaGroundResult ground;
 } LaminaResult;
 
 #define LAMINA_TYPE_RESULT (lamina_result_get_type ())
@@ -121,6 +143,66 @@ gboolean      lamina_air_layer_resistance       (double         thickness,
                                                  double         emissivity_2,
                                                  double        *resistance,
                                                  GError       **error);
+
+/* As lamina_air_layer_resistance() for a space of width @width (mm, NAN
+ * for a wide layer): below 10 times its thickness Annex D's small-space
+ * formula applies (D.3). */
+gboolean      lamina_air_layer_resistance_sized (double         thickness,
+                                                 double         width,
+                                                 LaminaHeatFlow heat_flow,
+                                                 double         emissivity_1,
+                                                 double         emissivity_2,
+                                                 double        *resistance,
+                                                 GError       **error);
+/* Annex D in full: thickness and width in mm (width NAN: a wide layer),
+ * ΔT across the space in K (NAN or ≤ 5: the ΔT ≤ 5 K coefficients) and
+ * its mean temperature in °C. */
+double        lamina_air_space_resistance       (double         thickness,
+                                                 LaminaHeatFlow heat_flow,
+                                                 double         emissivity_1,
+                                                 double         emissivity_2,
+                                                 double         width,
+                                                 double         delta_t,
+                                                 double         mean_temperature);
+
+/* Annex C: Rsi from hci by flow direction and the surface emissivity, hr0
+ * at 20 °C; Rse from hce = 4 + 4v and the emissivity, hr0 at 0 °C. */
+double        lamina_surface_resistance_inside_annex  (LaminaHeatFlow heat_flow,
+                                                       double         emissivity);
+double        lamina_surface_resistance_outside_annex (double         wind_speed,
+                                                       double         emissivity);
+/* The construction's Rsi and Rse: Table 7, or Annex C when it states its
+ * own wind speed or emissivities; Rse = Rsi towards another indoor space. */
+void          lamina_surface_resistances        (const LaminaConstruction *construction,
+                                                 double                   *rsi,
+                                                 double                   *rse);
+
+/* EN ISO 6946:2017 Annex E: area-mean U of one tapered area, R0 the rest
+ * of the element with Rsi, Rse and the thin end, R1 the wedge alone. */
+double        lamina_tapered_u                  (LaminaTaper    shape,
+                                                 double         r0,
+                                                 double         r1);
+typedef struct
+{
+  LaminaTaper shape;
+  double      area;     /* m² */
+  double      r0;
+  double      r1;
+} LaminaTaperArea;
+/* E.4: several areas combined by area. */
+double        lamina_tapered_u_combined         (const LaminaTaperArea *areas,
+                                                 guint                  n_areas);
+
+/* EN ISO 6946:2017 6.10: Ru of a roof space by roof type (Table 9), of
+ * another unheated space from its areas and air change, and of the
+ * construction's unheated space (0 for none). */
+double        lamina_roof_space_resistance      (LaminaRoofType roof);
+double        lamina_unheated_space_resistance  (double         inner_area,
+                                                 double         outer_area,
+                                                 double         outer_u,
+                                                 double         air_change,
+                                                 double         volume);
+double        lamina_unheated_resistance        (const LaminaUnheated *unheated);
 
 /* Display rounding: a U to two significant figures (common practice
  * for reporting U; intermediate values stay unrounded). */

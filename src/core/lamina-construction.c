@@ -28,6 +28,9 @@ lamina_part_new (LaminaMaterial *material,
   part->fraction = fraction;
   part->width = NAN;
   part->spacing = NAN;
+  part->air = LAMINA_AIR_UNVENTILATED;
+  part->emissivity_inner = LAMINA_DEFAULT_EMISSIVITY;
+  part->emissivity_outer = LAMINA_DEFAULT_EMISSIVITY;
   return part;
 }
 
@@ -92,7 +95,10 @@ part_equal (const LaminaPart *a,
          && same_value (a->fraction, b->fraction)
          && same_value (a->width, b->width)
          && same_value (a->spacing, b->spacing)
-         && g_strcmp0 (a->member, b->member) == 0;
+         && g_strcmp0 (a->member, b->member) == 0
+         && a->air == b->air
+         && same_value (a->emissivity_inner, b->emissivity_inner)
+         && same_value (a->emissivity_outer, b->emissivity_outer);
 }
 
 /* Layers */
@@ -111,6 +117,9 @@ layer_new (LaminaLayerKind kind,
   layer->emissivity_outer = LAMINA_DEFAULT_EMISSIVITY;
   layer->corrections.fastener_penetration = NAN;
   layer->sd = NAN;
+  layer->taper = LAMINA_TAPER_NONE;
+  layer->thickness_max = NAN;
+  layer->air_width = NAN;
   return layer;
 }
 
@@ -230,6 +239,9 @@ lamina_layer_equal (const LaminaLayer *a,
   if (g_strcmp0 (a->note, b->note) != 0
       || !same_value (a->sd, b->sd)
       || !corrections_equal (&a->corrections, &b->corrections))
+    return FALSE;
+  if (a->taper != b->taper || !same_value (a->thickness_max, b->thickness_max)
+      || !same_value (a->air_width, b->air_width))
     return FALSE;
   switch (a->kind)
     {
@@ -385,6 +397,9 @@ lamina_construction_new (const char    *id,
   c->inside_temperature = LAMINA_DEFAULT_INSIDE_TEMPERATURE;
   c->outside_temperature = LAMINA_DEFAULT_OUTSIDE_TEMPERATURE;
   c->status = LAMINA_STATUS_DRAFT;
+  lamina_ground_init (&c->ground);
+  lamina_unheated_init (&c->unheated);
+  lamina_surface_conditions_init (&c->surfaces);
   return c;
 }
 
@@ -468,6 +483,107 @@ lamina_construction_get_thickness (const LaminaConstruction *construction)
   return total;
 }
 
+void
+lamina_ground_init (LaminaGround *ground)
+{
+  *ground = (LaminaGround) {
+    .kind = LAMINA_GROUND_SLAB,
+    .area = NAN, .perimeter = NAN, .wall_thickness = NAN,
+    .soil_conductivity = NAN, .soil = LAMINA_SOIL_UNKNOWN,
+    .underfloor_height = NAN, .vent_area = NAN, .underfloor_wall_u = NAN,
+    .wind_speed = NAN, .shielding_factor = NAN,
+    .depth = NAN, .basement_wall_resistance = NAN,
+    .edge = LAMINA_EDGE_NONE,
+    .edge_size = NAN, .edge_thickness = NAN, .edge_resistance = NAN,
+  };
+}
+
+void
+lamina_unheated_init (LaminaUnheated *unheated)
+{
+  *unheated = (LaminaUnheated) {
+    .kind = LAMINA_UNHEATED_NONE,
+    .roof = LAMINA_ROOF_TILES_FELT,
+    .inner_area = NAN, .outer_area = NAN, .outer_u = NAN,
+    .air_change = NAN, .volume = NAN,
+  };
+}
+
+void
+lamina_surface_conditions_init (LaminaSurfaceConditions *surfaces)
+{
+  *surfaces = (LaminaSurfaceConditions) {
+    .wind_speed = NAN, .emissivity_inside = NAN, .emissivity_outside = NAN,
+  };
+}
+
+gboolean
+lamina_surface_conditions_is_default (const LaminaSurfaceConditions *surfaces)
+{
+  return isnan (surfaces->wind_speed) && isnan (surfaces->emissivity_inside)
+         && isnan (surfaces->emissivity_outside) && !surfaces->air_from_profile;
+}
+
+gboolean
+lamina_layer_is_tapered (const LaminaLayer *layer)
+{
+  return layer->taper != LAMINA_TAPER_NONE;
+}
+
+static gboolean
+ground_equal (const LaminaGround *a,
+              const LaminaGround *b)
+{
+  return a->kind == b->kind && a->soil == b->soil && a->edge == b->edge
+         && same_value (a->area, b->area)
+         && same_value (a->perimeter, b->perimeter)
+         && same_value (a->wall_thickness, b->wall_thickness)
+         && same_value (a->soil_conductivity, b->soil_conductivity)
+         && same_value (a->underfloor_height, b->underfloor_height)
+         && same_value (a->vent_area, b->vent_area)
+         && same_value (a->underfloor_wall_u, b->underfloor_wall_u)
+         && same_value (a->wind_speed, b->wind_speed)
+         && same_value (a->shielding_factor, b->shielding_factor)
+         && same_value (a->depth, b->depth)
+         && same_value (a->basement_wall_resistance, b->basement_wall_resistance)
+         && same_value (a->edge_size, b->edge_size)
+         && same_value (a->edge_thickness, b->edge_thickness)
+         && same_value (a->edge_resistance, b->edge_resistance);
+}
+
+static gboolean
+unheated_equal (const LaminaUnheated *a,
+                const LaminaUnheated *b)
+{
+  if (a->kind != b->kind)
+    return FALSE;
+  switch (a->kind)
+    {
+    case LAMINA_UNHEATED_ROOF_SPACE:
+      return a->roof == b->roof;
+    case LAMINA_UNHEATED_OTHER:
+      return same_value (a->inner_area, b->inner_area)
+             && same_value (a->outer_area, b->outer_area)
+             && same_value (a->outer_u, b->outer_u)
+             && same_value (a->air_change, b->air_change)
+             && same_value (a->volume, b->volume);
+    case LAMINA_UNHEATED_NONE:
+    case LAMINA_N_UNHEATED_KINDS:
+    default:
+      return TRUE;
+    }
+}
+
+static gboolean
+surfaces_equal (const LaminaSurfaceConditions *a,
+                const LaminaSurfaceConditions *b)
+{
+  return same_value (a->wind_speed, b->wind_speed)
+         && same_value (a->emissivity_inside, b->emissivity_inside)
+         && same_value (a->emissivity_outside, b->emissivity_outside)
+         && a->air_from_profile == b->air_from_profile;
+}
+
 gboolean
 lamina_construction_equal_content (const LaminaConstruction *a,
                                    const LaminaConstruction *b)
@@ -486,6 +602,11 @@ lamina_construction_equal_content (const LaminaConstruction *a,
       || a->tags->len != b->tags->len
       || a->layers->len != b->layers->len
       || !lamina_moisture_settings_equal (a->moisture, b->moisture))
+    return FALSE;
+  if (a->has_ground != b->has_ground
+      || (a->has_ground && !ground_equal (&a->ground, &b->ground))
+      || !unheated_equal (&a->unheated, &b->unheated)
+      || !surfaces_equal (&a->surfaces, &b->surfaces))
     return FALSE;
   for (guint i = 0; i < a->tags->len; i++)
     if (g_strcmp0 (a->tags->pdata[i], b->tags->pdata[i]) != 0)

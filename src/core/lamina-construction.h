@@ -26,6 +26,11 @@ typedef struct
   double          spacing;    /* mm, or NAN */
   char           *member;     /* framing member name, or NULL */
   int             line;       /* source line for messages, 0 if none */
+  /* An air part's own faces and ventilation (EN ISO 6946:2017 6.9, Annex
+   * D): unventilated or slightly ventilated; ε 0.9 unless given. */
+  LaminaAirKind   air;
+  double          emissivity_inner;
+  double          emissivity_outer;
 } LaminaPart;
 
 /* Corrections to U, EN ISO 6946:2017 Annex F, attached to the layer they
@@ -62,6 +67,12 @@ typedef struct
   double            sd;                /* declared sd, m (membranes, foils), or NAN: μ·d */
   char             *note;
   int               line;
+  /* A tapered layer (EN ISO 6946:2017 Annex E): a material layer whose
+   * thickness runs from @thickness (thin end) to @thickness_max. */
+  LaminaTaper       taper;
+  double            thickness_max;     /* mm, or NAN */
+  /* Width b of a small or divided air space (Annex D), mm, or NAN. */
+  double            air_width;
 } LaminaLayer;
 
 /* A construction's moisture check by EN ISO 13788 (lamina-moisture.h): the
@@ -75,6 +86,55 @@ typedef struct
   double  inside_temperature;          /* θi °C, or NAN: the construction's */
   int     line;
 } LaminaMoistureSettings;
+/* The building a ground floor sits in, EN ISO 13370:2017.  A catalogue
+ * construction is the floor's build-up; this says for which plan its U
+ * with the ground is stated.  NAN = not given. */
+typedef struct
+{
+  LaminaGroundKind kind;
+  double     area;                 /* A, m² */
+  double     perimeter;            /* P, exposed perimeter, m */
+  double     wall_thickness;       /* w, mm */
+  double     soil_conductivity;    /* λ, W/(m·K); NAN: from @soil */
+  LaminaSoil soil;
+  double     underfloor_height;    /* h, m (suspended) */
+  double     vent_area;            /* ε, m² per m of perimeter (suspended) */
+  double     underfloor_wall_u;    /* Uw, W/(m²·K) (suspended) */
+  double     wind_speed;           /* v, m/s at 10 m (suspended); NAN = 4 */
+  double     shielding_factor;     /* fw (suspended); NAN = 0.05 */
+  double     depth;                /* z, m below ground (basement) */
+  double     basement_wall_resistance; /* Rw, m²·K/W (basement), or NAN */
+  LaminaEdge edge;                 /* edge insulation, Annex B (slab) */
+  double     edge_size;            /* D, m: width or depth */
+  double     edge_thickness;       /* dn, mm */
+  double     edge_resistance;      /* Rn, m²·K/W */
+  int        line;
+} LaminaGround;
+
+/* An unheated space beyond the outer surface, treated as a resistance Ru
+ * (EN ISO 6946:2017 6.10). */
+typedef struct
+{
+  LaminaUnheatedKind kind;
+  LaminaRoofType     roof;         /* roof space */
+  double             inner_area;   /* Ai, m²: between heated and unheated */
+  double             outer_area;   /* Ae, m²: unheated space to outside */
+  double             outer_u;      /* Ue, W/(m²·K), area-weighted mean */
+  double             air_change;   /* n, 1/h */
+  double             volume;       /* V, m³ */
+  int                line;
+} LaminaUnheated;
+
+/* Surface and air-space conditions of EN ISO 6946:2017 Annexes C and D;
+ * NAN = the conventional values of Table 7. */
+typedef struct
+{
+  double   wind_speed;             /* v, m/s */
+  double   emissivity_inside;      /* ε of the inner surface */
+  double   emissivity_outside;     /* ε of the outer surface */
+  gboolean air_from_profile;       /* air layers by ΔT of the profile (D.2) */
+  int      line;
+} LaminaSurfaceConditions;
 
 typedef struct
 {
@@ -92,6 +152,13 @@ typedef struct
   double           outside_temperature;/* °C, design condition */
   char            *notes;
   LaminaMoistureSettings *moisture;    /* owned; NULL: no moisture check */
+
+  /* The rest of the method (issue 14): plain values, copied with the
+   * construction. */
+  gboolean                has_ground;
+  LaminaGround            ground;
+  LaminaUnheated          unheated;
+  LaminaSurfaceConditions surfaces;
 
   /* Library data: kept by the store, carried by the catalogue XML. */
   LaminaStatus     status;
@@ -168,6 +235,15 @@ double              lamina_construction_get_thickness (const LaminaConstruction 
  * library data (status, revision, who and when) and source lines. */
 gboolean            lamina_construction_equal_content (const LaminaConstruction *a,
                                                        const LaminaConstruction *b);
+
+/* Defaults: a slab on ground with nothing given, no unheated space,
+ * conventional surfaces. */
+void                lamina_ground_init        (LaminaGround         *ground);
+void                lamina_unheated_init      (LaminaUnheated       *unheated);
+void                lamina_surface_conditions_init (LaminaSurfaceConditions *surfaces);
+gboolean            lamina_surface_conditions_is_default (const LaminaSurfaceConditions *surfaces);
+/* TRUE when @layer is tapered (Annex E). */
+gboolean            lamina_layer_is_tapered   (const LaminaLayer    *layer);
 
 /* Checks every value the method needs and names the layer, part and field
  * of the first one that is wrong (LAMINA_CALC_ERROR_INVALID).  @line, if

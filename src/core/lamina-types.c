@@ -24,7 +24,31 @@ static const char *const air_kind_names[] = {
 static const char *const status_names[] = {
   "draft", "checked", "approved",
 };
+static const char *const taper_names[] = {
+  "none", "rectangle", "apex-thick", "apex-thin",
+};
+static const char *const ground_kind_names[] = {
+  "slab", "suspended", "basement",
+};
+static const char *const soil_names[] = {
+  "unknown", "clay-silt", "sand-gravel", "rock",
+};
+static const char *const edge_names[] = {
+  "none", "horizontal", "vertical",
+};
+static const char *const unheated_kind_names[] = {
+  "none", "roof-space", "other",
+};
+static const char *const roof_type_names[] = {
+  "tiles-bare", "tiles-felt", "low-emissivity", "boards-felt",
+};
 
+G_STATIC_ASSERT (G_N_ELEMENTS (taper_names) == LAMINA_N_TAPERS);
+G_STATIC_ASSERT (G_N_ELEMENTS (ground_kind_names) == LAMINA_N_GROUND_KINDS);
+G_STATIC_ASSERT (G_N_ELEMENTS (soil_names) == LAMINA_N_SOILS);
+G_STATIC_ASSERT (G_N_ELEMENTS (edge_names) == LAMINA_N_EDGES);
+G_STATIC_ASSERT (G_N_ELEMENTS (unheated_kind_names) == LAMINA_N_UNHEATED_KINDS);
+G_STATIC_ASSERT (G_N_ELEMENTS (roof_type_names) == LAMINA_N_ROOF_TYPES);
 G_STATIC_ASSERT (G_N_ELEMENTS (element_names) == LAMINA_N_ELEMENTS);
 G_STATIC_ASSERT (G_N_ELEMENTS (heat_flow_names) == LAMINA_N_HEAT_FLOWS);
 G_STATIC_ASSERT (G_N_ELEMENTS (outer_side_names) == LAMINA_N_OUTER_SIDES);
@@ -75,6 +99,12 @@ DEFINE_NAMES (LaminaOuterSide, lamina_outer_side, outer_side_names, LAMINA_N_OUT
 DEFINE_NAMES (LaminaCategory, lamina_category, category_names, LAMINA_N_CATEGORIES)
 DEFINE_NAMES (LaminaAirKind, lamina_air_kind, air_kind_names, LAMINA_N_AIR_KINDS)
 DEFINE_NAMES (LaminaStatus, lamina_status, status_names, LAMINA_N_STATUSES)
+DEFINE_NAMES (LaminaTaper, lamina_taper, taper_names, LAMINA_N_TAPERS)
+DEFINE_NAMES (LaminaGroundKind, lamina_ground_kind, ground_kind_names, LAMINA_N_GROUND_KINDS)
+DEFINE_NAMES (LaminaSoil, lamina_soil, soil_names, LAMINA_N_SOILS)
+DEFINE_NAMES (LaminaEdge, lamina_edge, edge_names, LAMINA_N_EDGES)
+DEFINE_NAMES (LaminaUnheatedKind, lamina_unheated_kind, unheated_kind_names, LAMINA_N_UNHEATED_KINDS)
+DEFINE_NAMES (LaminaRoofType, lamina_roof_type, roof_type_names, LAMINA_N_ROOF_TYPES)
 
 LaminaHeatFlow
 lamina_element_default_heat_flow (LaminaElement element)

@@ -81,6 +81,66 @@ typedef enum
   LAMINA_N_STATUSES
 } LaminaStatus;
 
+/* Shape of a tapered layer on plan, EN ISO 6946:2017 Annex E: a
+ * rectangle sloping one way, or a triangle whose apex is the thickest or
+ * the thinnest point. */
+typedef enum
+{
+  LAMINA_TAPER_NONE,
+  LAMINA_TAPER_RECTANGLE,
+  LAMINA_TAPER_APEX_THICK,
+  LAMINA_TAPER_APEX_THIN,
+  LAMINA_N_TAPERS
+} LaminaTaper;
+
+/* Ground floors, EN ISO 13370:2017 clause 9. */
+typedef enum
+{
+  LAMINA_GROUND_SLAB,       /* slab on ground (9.1) */
+  LAMINA_GROUND_SUSPENDED,  /* suspended floor over a ventilated space (9.3) */
+  LAMINA_GROUND_BASEMENT,   /* floor of a heated basement (9.4) */
+  LAMINA_N_GROUND_KINDS
+} LaminaGroundKind;
+
+/* Soil classes, EN ISO 13370:2017 Table 1 (from memory). */
+typedef enum
+{
+  LAMINA_SOIL_UNKNOWN,      /* λ 2.0 is used, and said so */
+  LAMINA_SOIL_CLAY_SILT,    /* 1.5 W/(m·K) */
+  LAMINA_SOIL_SAND_GRAVEL,  /* 2.0 */
+  LAMINA_SOIL_ROCK,         /* 3.5, homogeneous rock */
+  LAMINA_N_SOILS
+} LaminaSoil;
+
+/* Edge insulation of a slab on ground, EN ISO 13370:2017 Annex B. */
+typedef enum
+{
+  LAMINA_EDGE_NONE,
+  LAMINA_EDGE_HORIZONTAL,
+  LAMINA_EDGE_VERTICAL,
+  LAMINA_N_EDGES
+} LaminaEdge;
+
+/* An unheated space beyond the outer surface, EN ISO 6946:2017 6.10. */
+typedef enum
+{
+  LAMINA_UNHEATED_NONE,
+  LAMINA_UNHEATED_ROOF_SPACE,   /* Ru from the table by roof type */
+  LAMINA_UNHEATED_OTHER,        /* Ru from areas and air change */
+  LAMINA_N_UNHEATED_KINDS
+} LaminaUnheatedKind;
+
+/* Roof types of the roof-space table, EN ISO 6946:2017 Table 9 (2007:
+ * Table 3), from memory. */
+typedef enum
+{
+  LAMINA_ROOF_TILES_BARE,       /* tiles, no felt, boards or similar: 0.06 */
+  LAMINA_ROOF_TILES_FELT,       /* sheeted, or tiles on felt or boards: 0.2 */
+  LAMINA_ROOF_LOW_EMISSIVITY,   /* as above, low-emissivity underside: 0.3 */
+  LAMINA_ROOF_BOARDS_FELT,      /* roof lined with boards and felt: 0.3 */
+  LAMINA_N_ROOF_TYPES
+} LaminaRoofType;
+
 /* Names as used in the catalogue XML (urn:x-lamina:catalogue:1), the CLI
  * and JSON.  _from_string returns FALSE for an unknown name. */
 const char *lamina_element_to_string     (LaminaElement   value);
@@ -101,6 +161,25 @@ gboolean    lamina_air_kind_from_string  (const char     *name,
 const char *lamina_status_to_string      (LaminaStatus    value);
 gboolean    lamina_status_from_string    (const char     *name,
                                           LaminaStatus   *value);
+
+const char *lamina_taper_to_string       (LaminaTaper     value);
+gboolean    lamina_taper_from_string     (const char     *name,
+                                          LaminaTaper    *value);
+const char *lamina_ground_kind_to_string (LaminaGroundKind value);
+gboolean    lamina_ground_kind_from_string (const char       *name,
+                                            LaminaGroundKind *value);
+const char *lamina_soil_to_string        (LaminaSoil      value);
+gboolean    lamina_soil_from_string      (const char     *name,
+                                          LaminaSoil     *value);
+const char *lamina_edge_to_string        (LaminaEdge      value);
+gboolean    lamina_edge_from_string      (const char     *name,
+                                          LaminaEdge     *value);
+const char *lamina_unheated_kind_to_string (LaminaUnheatedKind value);
+gboolean    lamina_unheated_kind_from_string (const char         *name,
+                                              LaminaUnheatedKind *value);
+const char *lamina_roof_type_to_string   (LaminaRoofType  value);
+gboolean    lamina_roof_type_from_string (const char     *name,
+                                          LaminaRoofType *value);
 
 /* The heat-flow direction an element takes when none is given: walls and
  * partitions horizontal, roofs and ceilings upward, floors downward. */

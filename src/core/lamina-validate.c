@@ -150,6 +150,16 @@ check_part (Check             *check,
 
   if (!lamina_part_is_air (part) && !check_material (check, part->line, where, part->material))
     return FALSE;
+  if (lamina_part_is_air (part))
+    {
+      if (part->air != LAMINA_AIR_UNVENTILATED && part->air != LAMINA_AIR_SLIGHTLY_VENTILATED)
+        return fail_at (check, part->line, where,
+                        _("an air part may be unventilated or slightly ventilated; make a well ventilated "
+                          "space its own layer"));
+      if (!check_range (check, part->line, where, N_("inner emissivity"), part->emissivity_inner, 0, 1, TRUE, "")
+          || !check_range (check, part->line, where, N_("outer emissivity"), part->emissivity_outer, 0, 1, TRUE, ""))
+        return FALSE;
+    }
   if (has_fraction && (has_width || has_spacing))
     return fail_at (check, part->line, where, _("give either a fraction or width and spacing, not both"));
   if (has_width != has_spacing)
@@ -264,6 +274,30 @@ check_corrections (Check             *check,
   return TRUE;
 }
 
+/* Annex E: a tapered layer is a material layer thicker at one end. */
+static gboolean
+check_taper (Check             *check,
+             const LaminaLayer *layer,
+             Where              where)
+{
+  if ((guint) layer->taper >= LAMINA_N_TAPERS)
+    return fail_at (check, layer->line, where, _("unknown taper shape"));
+  if (!lamina_layer_is_tapered (layer))
+    {
+      if (!isnan (layer->thickness_max))
+        return fail_at (check, layer->line, where, _("a maximum thickness needs a taper shape"));
+      return TRUE;
+    }
+  if (layer->kind != LAMINA_LAYER_MATERIAL)
+    return fail_at (check, layer->line, where, _("only a layer of one material can be tapered"));
+  if (isnan (layer->thickness_max))
+    return fail_at (check, layer->line, where, _("a tapered layer needs its maximum thickness"));
+  if (!(layer->thickness_max > layer->thickness))
+    return fail_at (check, layer->line, where, _("maximum thickness %g mm is not above the thickness %g mm of the thin end"),
+                    layer->thickness_max, layer->thickness);
+  return check_range (check, layer->line, where, N_("maximum thickness"), layer->thickness_max, 0, 10000, TRUE, "mm");
+}
+
 static gboolean
 check_layer (Check             *check,
              const LaminaLayer *layer,
@@ -298,6 +332,10 @@ check_layer (Check             *check,
         return FALSE;
       if (layer->air == LAMINA_AIR_SLIGHTLY_VENTILATED && isnan (layer->vent_area))
         return fail_at (check, layer->line, where, _("a slightly ventilated air layer needs its vent area"));
+      if (!isnan (layer->air_width)
+          && !check_range (check, layer->line, where, N_("air space width"),
+                           layer->air_width, 0, 100000, TRUE, "mm"))
+        return FALSE;
       break;
     case LAMINA_LAYER_BRIDGED:
       if (!check_parts (check, layer, where))
@@ -311,6 +349,8 @@ check_layer (Check             *check,
    * with the layer's vapour resistance; a foil's declared sd stands for μ·d. */
   if (!isnan (layer->sd)
       && !check_range (check, layer->line, where, N_("sd"), layer->sd, 0, 100000, TRUE, "m"))
+    return FALSE;
+  if (!check_taper (check, layer, where))
     return FALSE;
   return check_corrections (check, layer, where);
 }
@@ -382,6 +422,135 @@ check_moisture (Check                        *check,
   return TRUE;
 }
 
+typedef struct
+{
+  const char *field;
+  double      value;
+  double      min;
+  double      max;
+  gboolean    open_min;
+  gboolean    required;
+  const char *unit;
+} Bound;
+
+static gboolean
+check_bounds (Check       *check,
+              int          line,
+              const Bound *bounds,
+              guint        n_bounds)
+{
+  const Where whole = { 0, 0 };
+
+  for (guint i = 0; i < n_bounds; i++)
+    {
+      const Bound *b = &bounds[i];
+
+      if (isnan (b->value) && !b->required)
+        continue;
+      if (isnan (b->value))
+        return fail (check, line, _("%s is needed"), _(b->field));
+      if (!check_range (check, line, whole, b->field, b->value, b->min, b->max, b->open_min, b->unit))
+        return FALSE;
+    }
+  return TRUE;
+}
+
+/* EN ISO 13370: the plan and the ground under a floor. */
+static gboolean
+check_ground (Check                    *check,
+              const LaminaConstruction *c)
+{
+  const LaminaGround *g = &c->ground;
+  gboolean suspended = g->kind == LAMINA_GROUND_SUSPENDED;
+  gboolean basement = g->kind == LAMINA_GROUND_BASEMENT;
+  gboolean edge = g->edge != LAMINA_EDGE_NONE;
+  const Bound bounds[] = {
+    { N_("ground floor area"), g->area, 0, 1e7, TRUE, TRUE, "m²" },
+    { N_("ground floor perimeter"), g->perimeter, 0, 1e6, TRUE, TRUE, "m" },
+    { N_("wall thickness"), g->wall_thickness, 0, 5000, FALSE, TRUE, "mm" },
+    { N_("soil conductivity"), g->soil_conductivity, 0, 20, TRUE, FALSE, "W/(m·K)" },
+    { N_("underfloor height"), g->underfloor_height, 0, 20, FALSE, suspended, "m" },
+    { N_("underfloor vent area"), g->vent_area, 0, 1, FALSE, suspended, "m²/m" },
+    { N_("underfloor wall U"), g->underfloor_wall_u, 0, 10, FALSE, suspended, "W/(m²·K)" },
+    { N_("wind speed"), g->wind_speed, 0, 50, FALSE, FALSE, "m/s" },
+    { N_("shielding factor"), g->shielding_factor, 0, 1, FALSE, FALSE, "" },
+    { N_("basement depth"), g->depth, 0, 50, TRUE, basement, "m" },
+    { N_("basement wall resistance"), g->basement_wall_resistance, 0, 100, FALSE, FALSE, "m²·K/W" },
+    { N_("edge insulation width or depth"), g->edge_size, 0, 20, TRUE, edge, "m" },
+    { N_("edge insulation thickness"), g->edge_thickness, 0, 2000, TRUE, edge, "mm" },
+    { N_("edge insulation resistance"), g->edge_resistance, 0, 100, TRUE, edge, "m²·K/W" },
+  };
+
+  if (!c->has_ground)
+    return TRUE;
+  if (c->element != LAMINA_ELEMENT_FLOOR)
+    return fail (check, g->line, _("ground: only a floor can lie on or over the ground"));
+  if ((guint) g->kind >= LAMINA_N_GROUND_KINDS || (guint) g->soil >= LAMINA_N_SOILS
+      || (guint) g->edge >= LAMINA_N_EDGES)
+    return fail (check, g->line, _("ground: unknown kind, soil or edge insulation"));
+  if (edge && g->kind != LAMINA_GROUND_SLAB)
+    return fail (check, g->line, _("ground: edge insulation applies to a slab on ground"));
+  if (!check_bounds (check, g->line, bounds, G_N_ELEMENTS (bounds)))
+    {
+      g_prefix_error (check->error, _("ground: "));
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* EN ISO 6946 6.10 and Annex C. */
+static gboolean
+check_unheated_surfaces (Check                    *check,
+                         const LaminaConstruction *c)
+{
+  const LaminaUnheated *u = &c->unheated;
+  const LaminaSurfaceConditions *s = &c->surfaces;
+  gboolean other = u->kind == LAMINA_UNHEATED_OTHER;
+  const Bound unheated_bounds[] = {
+    { N_("area towards the unheated space"), u->inner_area, 0, 1e6, TRUE, TRUE, "m²" },
+    { N_("area of the unheated space to outside"), u->outer_area, 0, 1e6, TRUE, TRUE, "m²" },
+    { N_("U of the unheated space to outside"), u->outer_u, 0, 10, TRUE, TRUE, "W/(m²·K)" },
+    { N_("air change of the unheated space"), u->air_change, 0, 100, FALSE, TRUE, "1/h" },
+    { N_("volume of the unheated space"), u->volume, 0, 1e7, FALSE, TRUE, "m³" },
+  };
+  const Bound surface_bounds[] = {
+    { N_("wind speed"), s->wind_speed, 0, 50, FALSE, FALSE, "m/s" },
+    { N_("inner surface emissivity"), s->emissivity_inside, 0, 1, TRUE, FALSE, "" },
+    { N_("outer surface emissivity"), s->emissivity_outside, 0, 1, TRUE, FALSE, "" },
+  };
+
+  if ((guint) u->kind >= LAMINA_N_UNHEATED_KINDS || (guint) u->roof >= LAMINA_N_ROOF_TYPES)
+    return fail (check, u->line, _("unheated space: unknown kind or roof type"));
+  if (u->kind != LAMINA_UNHEATED_NONE && c->outer_side == LAMINA_OUTER_SIDE_INDOOR)
+    return fail (check, u->line, _("unheated space: the outer side must face outdoors"));
+  if (other && !check_bounds (check, u->line, unheated_bounds, G_N_ELEMENTS (unheated_bounds)))
+    {
+      g_prefix_error (check->error, _("unheated space: "));
+      return FALSE;
+    }
+  return check_bounds (check, s->line, surface_bounds, G_N_ELEMENTS (surface_bounds));
+}
+
+static gboolean
+check_single_taper (Check                    *check,
+                    const LaminaConstruction *c)
+{
+  guint first = 0;
+
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+
+      if (!lamina_layer_is_tapered (layer))
+        continue;
+      if (first > 0)
+        return fail (check, layer->line, _("layer %u: only one layer can be tapered (layer %u already is)"),
+                     i + 1, first);
+      first = i + 1;
+    }
+  return TRUE;
+}
+
 gboolean
 lamina_construction_validate (const LaminaConstruction *construction,
                               int                      *line,
@@ -414,6 +583,9 @@ lamina_construction_validate (const LaminaConstruction *construction,
   for (guint i = 0; i < c->layers->len; i++)
     if (!check_layer (&check, c->layers->pdata[i], i + 1))
       return FALSE;
+  if (!check_single_taper (&check, c) || !check_ground (&check, c)
+      || !check_unheated_surfaces (&check, c))
+    return FALSE;
   if (!check_members (&check, c))
     return FALSE;
   return check_moisture (&check, c->moisture);
