@@ -331,9 +331,18 @@ read_part (Reader      *r,
   part = lamina_part_new (material, NAN);
   part->member = dup_attr (node, "member");
   part->line = line_of (node);
+  if (air)
+    GET_ENUM (r, node, "air", lamina_air_kind_from_string, &part->air);
+  if (!air
+      && (xmlHasNsProp (node, (const xmlChar *) "emissivity-inner", NULL)
+          || xmlHasNsProp (node, (const xmlChar *) "emissivity-outer", NULL)))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("the emissivities of a <part> belong to an air part (air=)"));
   if (!get_number (r, node, "fraction", &part->fraction)
       || !get_number (r, node, "width", &part->width)
-      || !get_number (r, node, "spacing", &part->spacing))
+      || !get_number (r, node, "spacing", &part->spacing)
+      || !get_number (r, node, "emissivity-inner", &part->emissivity_inner)
+      || !get_number (r, node, "emissivity-outer", &part->emissivity_outer))
     return FALSE;
   lamina_layer_add_part (layer, g_steal_pointer (&part));
   return TRUE;
@@ -419,7 +428,13 @@ read_layer (Reader             *r,
     return FALSE;
   layer->line = line_of (node);
   GET_ENUM (r, node, "air", lamina_air_kind_from_string, &layer->air);
+  GET_ENUM (r, node, "taper", lamina_taper_from_string, &layer->taper);
+  if (layer->kind != LAMINA_LAYER_AIR && xmlHasNsProp (node, (const xmlChar *) "air-space-width", NULL))
+    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
+                 _("air-space-width= belongs to an air layer (air=)"));
   if (!get_required_number (r, node, "thickness", &layer->thickness)
+      || !get_number (r, node, "thickness-max", &layer->thickness_max)
+      || !get_number (r, node, "air-space-width", &layer->air_width)
       || !get_number (r, node, "resistance", &layer->resistance)
       || !get_number (r, node, "vent-area", &layer->vent_area)
       || !get_number (r, node, "emissivity-inner", &layer->emissivity_inner)
@@ -476,6 +491,69 @@ read_moisture (Reader             *r,
   return TRUE;
 }
 
+/* EN ISO 13370: the plan of a ground floor. */
+static gboolean
+read_ground (Reader             *r,
+             xmlNode            *node,
+             LaminaConstruction *c)
+{
+  LaminaGround *g = &c->ground;
+
+  c->has_ground = TRUE;
+  g->line = line_of (node);
+  GET_ENUM (r, node, "kind", lamina_ground_kind_from_string, &g->kind);
+  GET_ENUM (r, node, "soil", lamina_soil_from_string, &g->soil);
+  GET_ENUM (r, node, "edge-insulation", lamina_edge_from_string, &g->edge);
+  return get_required_number (r, node, "area", &g->area)
+         && get_required_number (r, node, "perimeter", &g->perimeter)
+         && get_required_number (r, node, "wall-thickness", &g->wall_thickness)
+         && get_number (r, node, "soil-conductivity", &g->soil_conductivity)
+         && get_number (r, node, "underfloor-height", &g->underfloor_height)
+         && get_number (r, node, "vent-area", &g->vent_area)
+         && get_number (r, node, "underfloor-wall-u", &g->underfloor_wall_u)
+         && get_number (r, node, "wind-speed", &g->wind_speed)
+         && get_number (r, node, "shielding-factor", &g->shielding_factor)
+         && get_number (r, node, "depth", &g->depth)
+         && get_number (r, node, "basement-wall-resistance", &g->basement_wall_resistance)
+         && get_number (r, node, "edge-extent", &g->edge_size)
+         && get_number (r, node, "edge-thickness", &g->edge_thickness)
+         && get_number (r, node, "edge-resistance", &g->edge_resistance);
+}
+
+/* EN ISO 6946 6.10: an unheated space outside. */
+static gboolean
+read_unheated_space (Reader             *r,
+                     xmlNode            *node,
+                     LaminaConstruction *c)
+{
+  LaminaUnheated *u = &c->unheated;
+
+  u->line = line_of (node);
+  GET_ENUM (r, node, "kind", lamina_unheated_kind_from_string, &u->kind);
+  GET_ENUM (r, node, "roof", lamina_roof_type_from_string, &u->roof);
+  return get_number (r, node, "inner-area", &u->inner_area)
+         && get_number (r, node, "outer-area", &u->outer_area)
+         && get_number (r, node, "outer-u", &u->outer_u)
+         && get_number (r, node, "air-change", &u->air_change)
+         && get_number (r, node, "volume", &u->volume);
+}
+
+/* EN ISO 6946 Annexes C and D. */
+static gboolean
+read_surfaces (Reader             *r,
+               xmlNode            *node,
+               LaminaConstruction *c)
+{
+  LaminaSurfaceConditions *s = &c->surfaces;
+  g_autofree char *air_layers = dup_attr (node, "air-layers");
+
+  s->line = line_of (node);
+  s->air_from_profile = g_strcmp0 (air_layers, "profile") == 0;
+  return get_number (r, node, "wind-speed", &s->wind_speed)
+         && get_number (r, node, "emissivity-inside", &s->emissivity_inside)
+         && get_number (r, node, "emissivity-outside", &s->emissivity_outside);
+}
+
 static gboolean
 read_construction_child (Reader             *r,
                          xmlNode            *child,
@@ -485,6 +563,12 @@ read_construction_child (Reader             *r,
     return read_layer (r, child, c);
   if (is_element (child, "moisture"))
     return read_moisture (r, child, c);
+  if (is_element (child, "ground"))
+    return read_ground (r, child, c);
+  if (is_element (child, "unheated-space"))
+    return read_unheated_space (r, child, c);
+  if (is_element (child, "surfaces"))
+    return read_surfaces (r, child, c);
   if (is_element (child, "description"))
     c->description = dup_text (child);
   else if (is_element (child, "notes"))

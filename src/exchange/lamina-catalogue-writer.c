@@ -244,11 +244,15 @@ write_part (Writer           *w,
   if (part->material != NULL)
     write_attr (w, "material", lamina_material_ids_lookup (w->ids, part->material));
   else
-    write_attr (w, "air", "unventilated");
+    write_attr (w, "air", lamina_air_kind_to_string (part->air));
   write_number (w, "fraction", part->fraction);
   write_number (w, "width", part->width);
   write_number (w, "spacing", part->spacing);
   write_attr (w, "member", part->member);
+  if (part->material == NULL && part->emissivity_inner != LAMINA_DEFAULT_EMISSIVITY)
+    write_number (w, "emissivity-inner", part->emissivity_inner);
+  if (part->material == NULL && part->emissivity_outer != LAMINA_DEFAULT_EMISSIVITY)
+    write_number (w, "emissivity-outer", part->emissivity_outer);
   g_string_append (w->out, "/>\n");
 }
 
@@ -300,6 +304,7 @@ write_layer_attributes (Writer            *w,
         write_number (w, "emissivity-inner", layer->emissivity_inner);
       if (layer->emissivity_outer != LAMINA_DEFAULT_EMISSIVITY)
         write_number (w, "emissivity-outer", layer->emissivity_outer);
+      write_number (w, "air-space-width", layer->air_width);
       break;
     case LAMINA_LAYER_BRIDGED:
     case LAMINA_N_LAYER_KINDS:
@@ -307,6 +312,72 @@ write_layer_attributes (Writer            *w,
       break;
     }
   write_number (w, "sd", layer->sd);
+  if (lamina_layer_is_tapered (layer))
+    {
+      write_number (w, "thickness-max", layer->thickness_max);
+      write_attr (w, "taper", lamina_taper_to_string (layer->taper));
+    }
+}
+
+/* EN ISO 13370, 6946 6.10 and Annexes C/D: after the layers. */
+static void
+write_method (Writer                   *w,
+              const LaminaConstruction *c)
+{
+  const LaminaGround *g = &c->ground;
+  const LaminaUnheated *u = &c->unheated;
+  const LaminaSurfaceConditions *s = &c->surfaces;
+
+  if (c->has_ground)
+    {
+      g_string_append (w->out, "    <ground");
+      write_attr (w, "kind", lamina_ground_kind_to_string (g->kind));
+      write_number (w, "area", g->area);
+      write_number (w, "perimeter", g->perimeter);
+      write_number (w, "wall-thickness", g->wall_thickness);
+      write_number (w, "soil-conductivity", g->soil_conductivity);
+      if (g->soil != LAMINA_SOIL_UNKNOWN)
+        write_attr (w, "soil", lamina_soil_to_string (g->soil));
+      write_number (w, "underfloor-height", g->underfloor_height);
+      write_number (w, "vent-area", g->vent_area);
+      write_number (w, "underfloor-wall-u", g->underfloor_wall_u);
+      write_number (w, "wind-speed", g->wind_speed);
+      write_number (w, "shielding-factor", g->shielding_factor);
+      write_number (w, "depth", g->depth);
+      write_number (w, "basement-wall-resistance", g->basement_wall_resistance);
+      if (g->edge != LAMINA_EDGE_NONE)
+        write_attr (w, "edge-insulation", lamina_edge_to_string (g->edge));
+      write_number (w, "edge-extent", g->edge_size);
+      write_number (w, "edge-thickness", g->edge_thickness);
+      write_number (w, "edge-resistance", g->edge_resistance);
+      g_string_append (w->out, "/>\n");
+    }
+  if (u->kind != LAMINA_UNHEATED_NONE)
+    {
+      g_string_append (w->out, "    <unheated-space");
+      write_attr (w, "kind", lamina_unheated_kind_to_string (u->kind));
+      if (u->kind == LAMINA_UNHEATED_ROOF_SPACE)
+        write_attr (w, "roof", lamina_roof_type_to_string (u->roof));
+      else
+        {
+          write_number (w, "inner-area", u->inner_area);
+          write_number (w, "outer-area", u->outer_area);
+          write_number (w, "outer-u", u->outer_u);
+          write_number (w, "air-change", u->air_change);
+          write_number (w, "volume", u->volume);
+        }
+      g_string_append (w->out, "/>\n");
+    }
+  if (!lamina_surface_conditions_is_default (s))
+    {
+      g_string_append (w->out, "    <surfaces");
+      write_number (w, "wind-speed", s->wind_speed);
+      write_number (w, "emissivity-inside", s->emissivity_inside);
+      write_number (w, "emissivity-outside", s->emissivity_outside);
+      if (s->air_from_profile)
+        write_attr (w, "air-layers", "profile");
+      g_string_append (w->out, "/>\n");
+    }
 }
 
 static void
@@ -469,6 +540,7 @@ write_construction (Writer                   *w,
   for (guint i = 0; i < c->layers->len; i++)
     write_layer (w, c->layers->pdata[i]);
   write_moisture (w, c->moisture);
+  write_method (w, c);
   if (flags & LAMINA_WRITE_DERIVED)
     write_derived (w, result);
   g_string_append (w->out, "  </construction>\n");
