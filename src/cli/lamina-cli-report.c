@@ -89,6 +89,79 @@ add_dynamic (JsonBuilder         *b,
   json_builder_end_object (b);
 }
 
+/* EN ISO 13370 and EN ISO 6946 Annex E, 6.10, Annex D (issue 14). */
+static void
+add_method (JsonBuilder              *b,
+            const LaminaConstruction *c,
+            const LaminaResult       *r)
+{
+  if (r->has_ground)
+    {
+      const LaminaGroundResult *g = &r->ground;
+      double table[LAMINA_GROUND_TABLE_ROWS];
+
+      json_builder_set_member_name (b, "ground");
+      json_builder_begin_object (b);
+      lamina_cli_json_add_number (b, "b_prime", g->b_prime);
+      lamina_cli_json_add_number (b, "dt", g->dt);
+      lamina_cli_json_add_number (b, "u", g->u);
+      lamina_cli_json_add_string (b, "kind", lamina_ground_kind_to_string (c->ground.kind));
+      lamina_cli_json_add_number (b, "soil_conductivity", g->soil_conductivity);
+      json_builder_set_member_name (b, "soil_assumed");
+      json_builder_add_boolean_value (b, g->soil_assumed);
+      if (c->ground.edge != LAMINA_EDGE_NONE)
+        {
+          lamina_cli_json_add_number (b, "u_without_edge", g->u_without_edge);
+          lamina_cli_json_add_number (b, "delta_psi", g->delta_psi);
+        }
+      if (c->ground.kind == LAMINA_GROUND_SUSPENDED)
+        {
+          lamina_cli_json_add_number (b, "u_floor", g->u_floor);
+          lamina_cli_json_add_number (b, "u_ground", g->u_ground);
+          lamina_cli_json_add_number (b, "u_exchange", g->u_exchange);
+        }
+      if (!isnan (g->u_walls))
+        {
+          lamina_cli_json_add_number (b, "dw", g->dw);
+          lamina_cli_json_add_number (b, "u_walls", g->u_walls);
+          lamina_cli_json_add_number (b, "u_basement", g->u_basement);
+        }
+      lamina_result_ground_table (c, r, table);
+      json_builder_set_member_name (b, "by_b_prime");
+      json_builder_begin_array (b);
+      for (guint i = 0; i < LAMINA_GROUND_TABLE_ROWS; i++)
+        {
+          json_builder_begin_object (b);
+          lamina_cli_json_add_number (b, "b_prime", lamina_ground_table_b_prime[i]);
+          lamina_cli_json_add_number (b, "u", table[i]);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      json_builder_end_object (b);
+    }
+  if (r->tapered)
+    {
+      json_builder_set_member_name (b, "tapered");
+      json_builder_begin_object (b);
+      lamina_cli_json_add_number (b, "r0", r->tapered_r0);
+      lamina_cli_json_add_number (b, "r1", r->tapered_r1);
+      json_builder_set_member_name (b, "layer");
+      json_builder_add_int_value (b, r->tapered_layer);
+      lamina_cli_json_add_string (b, "taper",
+                                  lamina_taper_to_string (((LaminaLayer *) c->layers->pdata[r->tapered_layer - 1])->taper));
+      lamina_cli_json_add_number (b, "u_thin_end", r->u_thin_end);
+      lamina_cli_json_add_number (b, "u_thick_end", r->u_thick_end);
+      json_builder_end_object (b);
+    }
+  if (r->r_unheated > 0)
+    lamina_cli_json_add_number (b, "r_unheated", r->r_unheated);
+  if (r->air_iterations > 0)
+    {
+      json_builder_set_member_name (b, "air_iterations");
+      json_builder_add_int_value (b, r->air_iterations);
+    }
+}
+
 JsonNode *
 lamina_cli_result_to_json (const LaminaConstruction *c,
                            const LaminaResult       *r)
@@ -133,6 +206,7 @@ lamina_cli_result_to_json (const LaminaConstruction *c,
   add_layers (b, c, r);
   if (has_dynamic)
     add_dynamic (b, &dynamic);
+  add_method (b, c, r);
   json_builder_set_member_name (b, "warnings");
   json_builder_begin_array (b);
   for (guint i = 0; i < r->warnings->len; i++)
@@ -219,6 +293,34 @@ print_parts (FILE              *out,
     }
 }
 
+static void
+print_method (FILE                     *out,
+              const LaminaConstruction *c,
+              const LaminaResult       *r)
+{
+  if (r->tapered)
+    fprintf (out, _("  tapered layer %u: R0 %.3f  R1 %.3f m²K/W   U %.4f (thin end) to %.4f (thick end), "
+                    "area mean %.4f W/(m²K)\n"),
+             r->tapered_layer, r->tapered_r0, r->tapered_r1, r->u_thin_end, r->u_thick_end, r->u);
+  if (r->r_unheated > 0)
+    fprintf (out, _("  unheated space outside: Ru %.3f m²K/W (included in RT)\n"), r->r_unheated);
+  if (r->has_ground)
+    {
+      double table[LAMINA_GROUND_TABLE_ROWS];
+      char reported[LAMINA_U_TEXT_SIZE];
+
+      fprintf (out, _("  with the ground (EN ISO 13370, %s): B′ %.2f m   dt %.2f m   λ %.1f W/(mK)   "
+                      "U %.4f W/(m²K)   reported U = %s W/(m²K)\n"),
+               lamina_ground_kind_to_string (c->ground.kind), r->ground.b_prime, r->ground.dt,
+               r->ground.soil_conductivity, r->ground.u, lamina_format_u (reported, r->ground.u));
+      lamina_result_ground_table (c, r, table);
+      fprintf (out, _("  U by B′:"));
+      for (guint i = 0; i < LAMINA_GROUND_TABLE_ROWS; i++)
+        fprintf (out, "  %g m %.3f", lamina_ground_table_b_prime[i], table[i]);
+      fprintf (out, "\n");
+    }
+}
+
 void
 lamina_cli_print_result (FILE                     *out,
                          const LaminaConstruction *c,
@@ -251,6 +353,7 @@ lamina_cli_print_result (FILE                     *out,
            r->r_upper, r->r_lower, r->r_total, 100.0 * r->relative_error);
   fprintf (out, _("  U %.4f   ΔU %.4f   Uc %.4f W/(m²K)   reported U = %s W/(m²K)\n"),
            r->u, r->delta_u, r->u_corrected, lamina_format_u (reported, r->u_corrected));
+  print_method (out, c, r);
   if (r->has_target)
     fprintf (out, _("  target U %.2f: %s\n"), c->target_u, r->target_met ? _("met") : _("NOT MET"));
   if (lamina_dynamic_calculate (c, r, LAMINA_DYNAMIC_PERIOD_HOURS, &dynamic, &dynamic_error))

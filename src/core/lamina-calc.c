@@ -571,8 +571,14 @@ apply_taper (const Calc   *calc,
     }
 }
 
-/* EN ISO 13370 for the stated plan; Rf is the floor's own resistance
- * without its surface resistances. */
+/* EN ISO 13370: Rf is the floor's own resistance without its surface
+ * resistances (area mean with a tapered layer). */
+static double
+floor_resistance (const LaminaResult *result)
+{
+  return 1.0 / result->u - result->rsi - result->rse;
+}
+
 static void
 apply_ground (const LaminaConstruction *c,
               LaminaResult             *result)
@@ -580,7 +586,26 @@ apply_ground (const LaminaConstruction *c,
   if (!c->has_ground)
     return;
   result->has_ground = TRUE;
-  lamina_ground_calculate (&c->ground, 1.0 / result->u - result->rsi - result->rse, NAN, &result->ground);
+  lamina_ground_calculate (&c->ground, floor_resistance (result), NAN, &result->ground);
+}
+
+const double lamina_ground_table_b_prime[LAMINA_GROUND_TABLE_ROWS] = { 2, 4, 6, 8, 10, 15, 20 };
+
+void
+lamina_result_ground_table (const LaminaConstruction *construction,
+                            const LaminaResult       *result,
+                            double                    u[LAMINA_GROUND_TABLE_ROWS])
+{
+  g_return_if_fail (construction->has_ground && result->has_ground);
+
+  for (guint i = 0; i < LAMINA_GROUND_TABLE_ROWS; i++)
+    {
+      LaminaGroundResult row;
+
+      lamina_ground_calculate (&construction->ground, floor_resistance (result),
+                               lamina_ground_table_b_prime[i], &row);
+      u[i] = row.u;
+    }
 }
 
 static void

@@ -204,6 +204,15 @@ double        lamina_unheated_space_resistance  (double         inner_area,
                                                  double         volume);
 double        lamina_unheated_resistance        (const LaminaUnheated *unheated);
 
+/* EN ISO 13370 for a catalogue floor: U with the ground at the B′ of
+ * lamina_ground_table_b_prime (2, 4, 6, 8, 10, 15, 20 m), for the sheet and
+ * the window, from a result that has_ground. */
+#define LAMINA_GROUND_TABLE_ROWS 7
+extern const double lamina_ground_table_b_prime[LAMINA_GROUND_TABLE_ROWS];
+void          lamina_result_ground_table        (const LaminaConstruction *construction,
+                                                 const LaminaResult       *result,
+                                                 double                    u[LAMINA_GROUND_TABLE_ROWS]);
+
 /* Display rounding: a U to two significant figures (common practice
  * for reporting U; intermediate values stay unrounded). */
 double        lamina_round_significant          (double value,

@@ -145,13 +145,84 @@ add_layer (JsonBuilder       *b,
           add_number (b, "width", p->width);
           add_number (b, "spacing", p->spacing);
           add_string (b, "member", p->member);
+          if (p->material == NULL)
+            {
+              add_string (b, "air", lamina_air_kind_to_string (p->air));
+              add_number (b, "emissivity_inner", p->emissivity_inner);
+              add_number (b, "emissivity_outer", p->emissivity_outer);
+            }
           json_builder_end_object (b);
         }
       json_builder_end_array (b);
     }
   add_corrections (b, &layer->corrections);
   add_string (b, "note", layer->note);
+  if (lamina_layer_is_tapered (layer))
+    {
+      add_string (b, "taper", lamina_taper_to_string (layer->taper));
+      add_number (b, "thickness_max", layer->thickness_max);
+    }
+  if (!isnan (layer->air_width))
+    add_number (b, "air_space_width", layer->air_width);
   json_builder_end_object (b);
+}
+
+/* EN ISO 13370, EN ISO 6946 6.10 and Annexes C/D (issue 14). */
+static void
+add_method (JsonBuilder              *b,
+            const LaminaConstruction *c)
+{
+  const LaminaGround *g = &c->ground;
+  const LaminaUnheated *u = &c->unheated;
+  const LaminaSurfaceConditions *s = &c->surfaces;
+
+  if (c->has_ground)
+    {
+      json_builder_set_member_name (b, "ground");
+      json_builder_begin_object (b);
+      add_string (b, "kind", lamina_ground_kind_to_string (g->kind));
+      add_number (b, "area", g->area);
+      add_number (b, "perimeter", g->perimeter);
+      add_number (b, "wall_thickness", g->wall_thickness);
+      add_number (b, "soil_conductivity", g->soil_conductivity);
+      add_string (b, "soil", lamina_soil_to_string (g->soil));
+      add_number (b, "underfloor_height", g->underfloor_height);
+      add_number (b, "vent_area", g->vent_area);
+      add_number (b, "underfloor_wall_u", g->underfloor_wall_u);
+      add_number (b, "wind_speed", g->wind_speed);
+      add_number (b, "shielding_factor", g->shielding_factor);
+      add_number (b, "depth", g->depth);
+      add_number (b, "basement_wall_resistance", g->basement_wall_resistance);
+      add_string (b, "edge", lamina_edge_to_string (g->edge));
+      add_number (b, "edge_extent", g->edge_size);
+      add_number (b, "edge_thickness", g->edge_thickness);
+      add_number (b, "edge_resistance", g->edge_resistance);
+      json_builder_end_object (b);
+    }
+  if (u->kind != LAMINA_UNHEATED_NONE)
+    {
+      json_builder_set_member_name (b, "unheated_space");
+      json_builder_begin_object (b);
+      add_string (b, "kind", lamina_unheated_kind_to_string (u->kind));
+      add_string (b, "roof", lamina_roof_type_to_string (u->roof));
+      add_number (b, "inner_area", u->inner_area);
+      add_number (b, "outer_area", u->outer_area);
+      add_number (b, "outer_u", u->outer_u);
+      add_number (b, "air_change", u->air_change);
+      add_number (b, "volume", u->volume);
+      json_builder_end_object (b);
+    }
+  if (!lamina_surface_conditions_is_default (s))
+    {
+      json_builder_set_member_name (b, "surfaces");
+      json_builder_begin_object (b);
+      add_number (b, "wind_speed", s->wind_speed);
+      add_number (b, "emissivity_inside", s->emissivity_inside);
+      add_number (b, "emissivity_outside", s->emissivity_outside);
+      json_builder_set_member_name (b, "air_from_profile");
+      json_builder_add_boolean_value (b, s->air_from_profile);
+      json_builder_end_object (b);
+    }
 }
 
 char *
@@ -184,6 +255,7 @@ lamina_store_construction_to_json (const LaminaConstruction *c)
   add_number (b, "inside_temperature", c->inside_temperature);
   add_number (b, "outside_temperature", c->outside_temperature);
   add_string (b, "notes", c->notes);
+  add_method (b, c);
   json_builder_end_object (b);
 
   root = json_builder_get_root (b);
@@ -277,6 +349,36 @@ read_corrections (JsonObject        *o,
     }
 }
 
+/* An unknown name leaves the value alone (the validation names it). */
+#define read_enum(o, key, from_string, value)                 \
+  G_STMT_START {                                              \
+    g_autofree char *name_ = dup_string (o, key);             \
+    if (name_ != NULL)                                        \
+      from_string (name_, value);                             \
+  } G_STMT_END
+
+static JsonObject *
+get_object (JsonObject *o,
+            const char *key)
+{
+  JsonNode *n = json_object_get_member (o, key);
+
+  return n != NULL && JSON_NODE_HOLDS_OBJECT (n) ? json_node_get_object (n) : NULL;
+}
+
+static void
+read_part_air (JsonObject *o,
+               LaminaPart *part)
+{
+  if (part->material != NULL)
+    return;
+  read_enum (o, "air", lamina_air_kind_from_string, &part->air);
+  if (json_object_has_member (o, "emissivity_inner"))
+    part->emissivity_inner = get_number (o, "emissivity_inner");
+  if (json_object_has_member (o, "emissivity_outer"))
+    part->emissivity_outer = get_number (o, "emissivity_outer");
+}
+
 static LaminaLayer *
 read_layer (JsonObject *o)
 {
@@ -311,12 +413,68 @@ read_layer (JsonObject *o)
           p->width = get_number (po, "width");
           p->spacing = get_number (po, "spacing");
           p->member = dup_string (po, "member");
+          read_part_air (po, p);
           lamina_layer_add_part (layer, p);
         }
     }
   read_corrections (o, &layer->corrections);
   layer->note = dup_string (o, "note");
+  read_enum (o, "taper", lamina_taper_from_string, &layer->taper);
+  layer->thickness_max = get_number (o, "thickness_max");
+  layer->air_width = get_number (o, "air_space_width");
   return layer;
+}
+
+static void
+read_method (JsonObject         *o,
+             LaminaConstruction *c)
+{
+  JsonObject *sub;
+
+  if ((sub = get_object (o, "ground")) != NULL)
+    {
+      LaminaGround *g = &c->ground;
+
+      c->has_ground = TRUE;
+      read_enum (sub, "kind", lamina_ground_kind_from_string, &g->kind);
+      read_enum (sub, "soil", lamina_soil_from_string, &g->soil);
+      read_enum (sub, "edge", lamina_edge_from_string, &g->edge);
+      g->area = get_number (sub, "area");
+      g->perimeter = get_number (sub, "perimeter");
+      g->wall_thickness = get_number (sub, "wall_thickness");
+      g->soil_conductivity = get_number (sub, "soil_conductivity");
+      g->underfloor_height = get_number (sub, "underfloor_height");
+      g->vent_area = get_number (sub, "vent_area");
+      g->underfloor_wall_u = get_number (sub, "underfloor_wall_u");
+      g->wind_speed = get_number (sub, "wind_speed");
+      g->shielding_factor = get_number (sub, "shielding_factor");
+      g->depth = get_number (sub, "depth");
+      g->basement_wall_resistance = get_number (sub, "basement_wall_resistance");
+      g->edge_size = get_number (sub, "edge_extent");
+      g->edge_thickness = get_number (sub, "edge_thickness");
+      g->edge_resistance = get_number (sub, "edge_resistance");
+    }
+  if ((sub = get_object (o, "unheated_space")) != NULL)
+    {
+      LaminaUnheated *u = &c->unheated;
+
+      read_enum (sub, "kind", lamina_unheated_kind_from_string, &u->kind);
+      read_enum (sub, "roof", lamina_roof_type_from_string, &u->roof);
+      u->inner_area = get_number (sub, "inner_area");
+      u->outer_area = get_number (sub, "outer_area");
+      u->outer_u = get_number (sub, "outer_u");
+      u->air_change = get_number (sub, "air_change");
+      u->volume = get_number (sub, "volume");
+    }
+  if ((sub = get_object (o, "surfaces")) != NULL)
+    {
+      LaminaSurfaceConditions *s = &c->surfaces;
+
+      s->wind_speed = get_number (sub, "wind_speed");
+      s->emissivity_inside = get_number (sub, "emissivity_inside");
+      s->emissivity_outside = get_number (sub, "emissivity_outside");
+      s->air_from_profile = json_object_get_boolean_member_with_default (sub, "air_from_profile", FALSE);
+    }
 }
 
 LaminaConstruction *
@@ -368,6 +526,7 @@ lamina_store_construction_from_json (const char  *json,
   c->inside_temperature = get_number (o, "inside_temperature");
   c->outside_temperature = get_number (o, "outside_temperature");
   c->notes = dup_string (o, "notes");
+  read_method (o, c);
   return c;
 }
 

@@ -252,6 +252,47 @@ test_moisture_in_calc (void)
   g_assert_nonnull (strstr (out3, "EN 15026"));
 }
 
+/* The contract of issue 14: "ground":{"b_prime","dt","u"} for a floor with
+ * <ground>, "tapered":{"r0","r1"} with "u" the area mean.  Figures:
+ * slab (EN ISO 13370 9.1, from memory): Rf = 0.07/1.35 + 0.15/1.35 +
+ * 0.12/0.035 = 3.59153; clay λ 1.5 (Table 1); B′ = 120/23 = 5.21739;
+ * dt = 0.35 + 1.5·(0.17 + 3.59153 + 0.04) = 6.05230 ≥ B′ →
+ * U0 = 1.5/(0.457·5.21739 + 6.05230) = 0.17780; vertical edge insulation
+ * (Annex B) D 0.6, dn 0.06, Rn 1.7: d′ = (1.7 − 0.06/1.5)·1.5 = 2.49;
+ * ΔΨ = −1.5/π·[ln (1.2/6.05230 + 1) − ln (1.2/8.54230 + 1)] = −0.023603;
+ * U = 0.17780 − 2·0.023603/5.21739 = 0.16875.
+ * Tapered roof (EN ISO 6946 Annex E, from memory; Table 7 upward):
+ * R0 = 0.10 + 0.2/2.3 + 0.06/0.022 + 0.01 + 0.04 = 2.96423,
+ * R1 = 0.16/0.022 = 7.27273; thick apex:
+ * U = 2/R1·[(1 + R0/R1)·ln (1 + R1/R0) − 1] = 0.20475. */
+static void
+test_method_json (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "examples",
+                                            "ground-floor-and-tapered-roof.xml", NULL);
+  const char *args[] = { "calc", "--json", path, NULL };
+  g_autofree char *out = NULL, *err = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  g_autoptr(GError) error = NULL;
+  JsonObject *slab, *roof, *ground, *tapered;
+
+  g_assert_cmpint (run_cli (args, &out, &err), ==, 0);
+  g_assert_true (json_parser_load_from_data (parser, out, -1, &error));
+  slab = find_construction (parser, "slab-on-ground");
+  ground = json_object_get_object_member (slab, "ground");
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (ground, "b_prime"), 5.21739, 1e-5);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (ground, "dt"), 6.05230, 1e-5);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (ground, "u"), 0.16875, 1e-5);
+  g_assert_false (json_object_has_member (slab, "tapered"));
+
+  roof = find_construction (parser, "tapered-flat-roof");
+  tapered = json_object_get_object_member (roof, "tapered");
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (tapered, "r0"), 2.96423, 1e-5);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (tapered, "r1"), 7.27273, 1e-5);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (roof, "u"), 0.20475, 1e-5);
+  g_assert_false (json_object_has_member (roof, "ground"));
+}
+
 int
 main (int    argc,
       char **argv)
@@ -263,5 +304,6 @@ main (int    argc,
   g_test_add_func ("/cli/calc/usage", test_usage);
   g_test_add_func ("/cli/moisture/json", test_moisture_json);
   g_test_add_func ("/cli/moisture/in-calc", test_moisture_in_calc);
+  g_test_add_func ("/cli/calc/method-json", test_method_json);
   return g_test_run ();
 }
