@@ -9,6 +9,7 @@
 #include "lamina-cli-library.h"
 #include "lamina-catalogue.h"
 #include "lamina-file.h"
+#include "lamina-design.h"
 #include "lamina-library.h"
 #include "lamina-section.h"
 #include "lamina-sheet.h"
@@ -365,5 +366,107 @@ lamina_cli_catalogue (const LaminaCliGlobals *globals,
   fprintf (lamina_cli_message_stream (job.output), g_dngettext (GETTEXT_PACKAGE, "Catalogue of %u sheet written to %s\n",
                        "Catalogue of %u sheets written to %s\n", job.ids->len),
           job.ids->len, job.output);
+  return LAMINA_EXIT_OK;
+}
+
+/* "ID" or "ID@N" (revision N of a library construction). */
+static LaminaConstruction *
+fetch_side (Job        *job,
+            const char *arg,
+            GError    **error)
+{
+  g_autofree char *key = g_strdup (arg);
+  g_autofree char *id = NULL;
+  char *at = strrchr (key, '@');
+  int revision = 0;
+
+  if (at != NULL && job->library != NULL)
+    {
+      *at = '\0';
+      if (!lamina_cli_parse_revision (at + 1, &revision))
+        return NULL;
+    }
+  if ((id = resolve (job, key)) == NULL)
+    return NULL;
+  if (job->library)
+    return lamina_library_dup_construction (job->library, id, revision, error);
+  return lamina_construction_copy (lamina_catalogue_find (job->catalogue, id));
+}
+
+static void
+print_comparison (const LaminaConstruction *a,
+                  const LaminaConstruction *b)
+{
+  g_autoptr(LaminaResult) ra = lamina_calculate (a, NULL);
+  g_autoptr(LaminaResult) rb = lamina_calculate (b, NULL);
+  g_autoptr(GPtrArray) rows = NULL;
+
+  if (ra == NULL || rb == NULL)
+    return;
+  rows = lamina_comparison_rows (a, ra, b, rb);
+  printf ("A  %s — %s\nB  %s — %s\n\n", a->code ? a->code : a->id, a->name, b->code ? b->code : b->id, b->name);
+  printf ("  %36s %12s %12s %10s\n", "", "A", "B", "B-A");
+  for (guint i = 0; i < rows->len; i++)
+    {
+      const LaminaComparisonRow *r = rows->pdata[i];
+      /* printf pads by bytes; −, ≤ and ² are several. */
+      int pl = 36 - (int) g_utf8_strlen (r->label, -1), pa = 12 - (int) g_utf8_strlen (r->a, -1);
+      int pb = 12 - (int) g_utf8_strlen (r->b, -1), pd = 10 - (int) g_utf8_strlen (r->difference, -1);
+
+      printf ("  %s%*s %*s%s %*s%s %*s%s  %s\n", r->label, MAX (pl, 0), "", MAX (pa, 0), "", r->a,
+              MAX (pb, 0), "", r->b, MAX (pd, 0), "", r->difference, r->unit);
+    }
+  printf ("\n");
+}
+
+/* compare A B [-o FILE.pdf] [--from FILE.xml] [--practice NAME] [--paper SIZE]
+ * A and B are ids or codes; ID@N is revision N of a library construction. */
+int
+lamina_cli_compare (const LaminaCliGlobals *globals,
+                    int                     argc,
+                    char                  **argv)
+{
+  g_auto(Job) job = { 0 };
+  g_autoptr(GOptionContext) context = create_context (&job, _("A B — two build-ups side by side (ID or ID@REVISION)"),
+                                                      TRUE, FALSE);
+  g_autoptr(LaminaConstruction) a = NULL;
+  g_autoptr(LaminaConstruction) b = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaSheetOptions options;
+
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 3)
+    {
+      lamina_cli_error (_("usage: compare A B [-o FILE.pdf] (ids or codes; ID@N for revision N)"));
+      return LAMINA_EXIT_USAGE;
+    }
+  if (job.output != NULL && !check_output (&job, globals))
+    return LAMINA_EXIT_BAD_INPUT;
+  if (!fill_options (&job, &options))
+    return LAMINA_EXIT_USAGE;
+  if (!open_source (&job, globals))
+    return LAMINA_EXIT_BAD_INPUT;
+  a = fetch_side (&job, argv[1], &error);
+  if (a != NULL)
+    b = fetch_side (&job, argv[2], &error);
+  if (b == NULL)
+    {
+      if (error != NULL)
+        lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  if (job.output == NULL)
+    {
+      print_comparison (a, b);
+      return LAMINA_EXIT_OK;
+    }
+  if (!lamina_comparison_write_pdf (job.output, globals->force, &options, a, NULL, b, NULL, &error))
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  fprintf (lamina_cli_message_stream (job.output), _("%s and %s: comparison written to %s\n"), a->code ? a->code : a->id, b->code ? b->code : b->id,
+          job.output);
   return LAMINA_EXIT_OK;
 }

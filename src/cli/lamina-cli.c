@@ -38,6 +38,7 @@ static const Command commands[] = {
   { "moisture", lamina_cli_moisture, N_("Check the constructions of a catalogue file for condensation (EN ISO 13788)") },
   { "job", lamina_cli_job, N_("Jobs: new, list, show, add, remove, update") },
   { "field", lamina_cli_field, N_("2-D check of one module of a construction (EN ISO 10211), with a field picture") },
+  { "compare", lamina_cli_compare, N_("Two build-ups side by side, as a table or a one-page PDF") },
 };
 
 FILE *

@@ -110,6 +110,10 @@ typedef struct
   gpointer          fetch_data;
   gboolean          front_matter;
   LaminaFileWriter *writer;       /* stop early once a write failed */
+  /* A page of its own (a comparison) instead of sheets: */
+  SheetPaintFunc    paint;
+  gpointer          paint_data;
+  const char       *title;
 } Source;
 
 static gboolean
@@ -128,6 +132,14 @@ write_pages (cairo_surface_t          *surface,
   gboolean ok = TRUE;
 
   sheet_context_init (&ctx, cr, options);
+  if (source->paint != NULL)
+    {
+      set_metadata (surface, &ctx, source->title);
+      ok = source->paint (&ctx, source->paint_data, error);
+      cairo_show_page (cr);
+      sheet_context_clear (&ctx);
+      return ok;
+    }
   if (source->front_matter)
     {
       guint left;
@@ -242,7 +254,7 @@ lamina_sheet_write_pdf (const char               *path,
                         const LaminaConstruction *construction,
                         GError                  **error)
 {
-  Source source = { 1, fetch_single_cb, (gpointer) construction, FALSE, NULL };
+  Source source = { 1, fetch_single_cb, (gpointer) construction, FALSE, NULL, NULL, NULL, NULL };
 
   g_return_val_if_fail (path != NULL && options != NULL && construction != NULL, FALSE);
   return write_document (path, overwrite, options, &source, NULL, NULL, error);
@@ -259,8 +271,22 @@ lamina_sheet_write_catalogue (const char               *path,
                               gpointer                  progress_data,
                               GError                  **error)
 {
-  Source source = { n, fetch, fetch_data, TRUE, NULL };
+  Source source = { n, fetch, fetch_data, TRUE, NULL, NULL, NULL, NULL };
 
   g_return_val_if_fail (path != NULL && options != NULL && fetch != NULL, FALSE);
   return write_document (path, overwrite, options, &source, progress, progress_data, error);
+}
+
+gboolean
+sheet_write_single_page (const char               *path,
+                         gboolean                  overwrite,
+                         const LaminaSheetOptions *options,
+                         const char               *title,
+                         SheetPaintFunc            paint,
+                         gpointer                  paint_data,
+                         GError                  **error)
+{
+  Source source = { 0, NULL, NULL, FALSE, NULL, paint, paint_data, title };
+
+  return write_document (path, overwrite, options, &source, NULL, NULL, error);
 }

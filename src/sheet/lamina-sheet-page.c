@@ -14,6 +14,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "lamina-design.h"
 #include "lamina-sheet-format.h"
 
 #define ROW     11.5   /* table row pitch, pt */
@@ -664,7 +665,8 @@ sheet_draw_page (SheetContext             *ctx,
   g_autofree char *warnings = dup_warnings_text (result);
   g_autofree char *notes = dup_notes_text (c, result);
   g_autofree char *corrections = sheet_dup_corrections_text (c, result);
-  double table_h, warn_h = 0, notes_h = 0, corr_h = 0, method_h, y, section_h, room;
+  g_autofree char *dynamic = lamina_dynamic_dup_text (c, result);
+  double table_h, warn_h = 0, notes_h = 0, corr_h = 0, dyn_h, method_h, y, section_h, room;
   double page_h = ctx->bottom - ctx->top;
 
   g_free (ctx->footer);
@@ -679,10 +681,11 @@ sheet_draw_page (SheetContext             *ctx,
     corr_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, corrections) + GAP;
   if (*notes)
     notes_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, notes) + GAP;
+  dyn_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, dynamic) + GAP;
   method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, get_method_text ());
 
   /* The section takes the height left, within bounds. */
-  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - notes_h - 2 * GAP - 6;
+  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - dyn_h - notes_h - 2 * GAP - 6;
   section_h = CLAMP (room, page_h * 0.2, page_h * 0.4);
   y = draw_section (ctx, c, result, y, section_h);
   y = draw_layer_table (ctx, c, result, y);
@@ -692,7 +695,9 @@ sheet_draw_page (SheetContext             *ctx,
     y = draw_block (ctx, _("Warnings"), warnings, y, room - 13 - GAP - (notes_h + corr_h > 0 ? 40 : 0));
   if (corrections)
     y = draw_block (ctx, _("Corrections to U, EN ISO 6946:2017 Annex F"), corrections, y,
-                    ctx->bottom - 24 - method_h - y - 13 - GAP - (notes_h > 0 ? 40 : 0));
+                    ctx->bottom - 24 - method_h - y - 13 - GAP - (notes_h > 0 ? 40 : 0) - 30);
+  y = draw_block (ctx, _("Dynamic thermal characteristics, EN ISO 13786:2017"), dynamic, y,
+                  ctx->bottom - 24 - method_h - y - 13 - GAP - (notes_h > 0 ? 40 : 0));
   if (*notes)
     y = draw_block (ctx, _("Notes"), notes, y, ctx->bottom - 24 - method_h - y - 13 - GAP);
 

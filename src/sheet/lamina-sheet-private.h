@@ -109,6 +109,19 @@ guint  sheet_index_rows_per_page (const SheetContext *ctx,
 char       *sheet_dup_corrections_text (const LaminaConstruction *c,
                                         const LaminaResult       *result);
 
+/* A one-page PDF drawn by @paint (atomic like the sheets); @title goes
+ * into the metadata. */
+typedef gboolean (*SheetPaintFunc) (SheetContext *ctx,
+                                    gpointer      user_data,
+                                    GError      **error);
+gboolean    sheet_write_single_page (const char               *path,
+                                     gboolean                  overwrite,
+                                     const LaminaSheetOptions *options,
+                                     const char               *title,
+                                     SheetPaintFunc            paint,
+                                     gpointer                  paint_data,
+                                     GError                  **error);
+
 const char *sheet_element_label (LaminaElement element);
 const char *sheet_status_label  (LaminaStatus  status);
 

@@ -5,6 +5,7 @@
  * 6.4, 7; clause numbers from memory). */
 #include <json-glib/json-glib.h>
 #include <math.h>
+#include <glib/gstdio.h>
 #include <string.h>
 
 #include "lamina-cli-test-util.h"
@@ -159,6 +160,38 @@ test_library (void)
   g_free (err4);
 }
 
+/* compare: a table on stdout, or a one-page PDF; the PDF itself is read
+ * back in tests/sheet/test-design.c. */
+static void
+test_compare (void)
+{
+  g_autofree char *file = data_path ("design-checks.xml");
+  g_autofree char *pdf = g_build_filename (g_get_user_data_dir (), "compare.pdf", NULL);
+  const char *table[] = { "compare", "wall", "slab", "--from", file, NULL };
+  const char *to_pdf[] = { "compare", "wall", "slab", "--from", file, "-o", pdf, NULL };
+  const char *missing[] = { "compare", "wall", "nope", "--from", file, NULL };
+  const char *one[] = { "compare", "wall", "--from", file, NULL };
+  g_autofree char *out = NULL, *err = NULL, *out2 = NULL, *err2 = NULL;
+  char *out3 = NULL, *err3 = NULL;
+
+  g_assert_cmpint (g_mkdir_with_parents (g_get_user_data_dir (), 0700), ==, 0);
+  g_assert_cmpint (run_cli (table, &out, &err), ==, 0);
+  /* wall U 0.310, slab U 3.704 (see the dynamic test): B − A = +3.394. */
+  g_assert_nonnull (strstr (out, "Corrected U"));
+  g_assert_nonnull (strstr (out, "0.310"));
+  g_assert_nonnull (strstr (out, "3.704"));
+  g_assert_nonnull (strstr (out, "+3.394"));
+  g_assert_cmpint (run_cli (to_pdf, &out2, &err2), ==, 0);
+  g_assert_true (g_file_test (pdf, G_FILE_TEST_IS_REGULAR));
+  g_assert_cmpint (run_cli (missing, &out3, &err3), ==, 1);
+  g_assert_nonnull (strstr (err3, "nope"));
+  g_clear_pointer (&out3, g_free);
+  g_clear_pointer (&err3, g_free);
+  g_assert_cmpint (run_cli (one, &out3, &err3), ==, 2);
+  g_free (out3);
+  g_free (err3);
+}
+
 int
 main (int    argc,
       char **argv)
@@ -168,5 +201,6 @@ main (int    argc,
   g_test_add_func ("/cli/solve/refusals", test_solve_refusals);
   g_test_add_func ("/cli/dynamic/json", test_dynamic_json);
   g_test_add_func ("/cli/design/library", test_library);
+  g_test_add_func ("/cli/design/compare", test_compare);
   return g_test_run ();
 }
