@@ -168,11 +168,15 @@ print_list (GPtrArray *rows)
     {
       LaminaSummary *s = rows->pdata[i];
       g_autofree char *name = dup_cell (s->name, width);
+      char u[LAMINA_U_TEXT_SIZE];
 
-      /* Thickness to one decimal everywhere (a 12.5 mm board is common). */
-      printf ("%-10s %s %-9s %-8s %4d %7.2g %7.1f%s\n", s->code ? s->code : "-", name,
+      /* U as everywhere (lamina_format_u, "0.20" not "0.2"); thickness to
+       * one decimal everywhere (a 12.5 mm board is common).  The width
+       * counts characters: "–" (no U) is three bytes. */
+      lamina_format_u (u, s->u_corrected);
+      printf ("%-10s %s %-9s %-8s %4d %*s %7.1f%s\n", s->code ? s->code : "-", name,
               lamina_element_to_string (s->element), lamina_status_to_string (s->status),
-              s->revision, s->u_corrected, s->thickness,
+              s->revision, 7 + (int) (strlen (u) - g_utf8_strlen (u, -1)), u, s->thickness,
               (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _("  material data changed since review") : "");
     }
 }

@@ -8,7 +8,9 @@
  * layer that shares no member with another is a pattern of its own whose
  * sections are its parts.  Patterns are independent of each other (crossing
  * battens): the sections of the construction are every combination, with
- * the product of the fractions.
+ * the product of the fractions.  The standard names no rule for crossing
+ * patterns; the product (independent placement) is this program's
+ * reading of 6.7.2.
  *
  * All working memory comes from the calculation's scratch arena. */
 #define G_LOG_DOMAIN "lamina-core"

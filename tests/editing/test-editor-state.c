@@ -153,7 +153,7 @@ test_layer_kinds (void)
   g_clear_pointer (&r, lamina_result_free);
 
   /* 25 mm unventilated air layer, horizontal flow: 0.18 m²·K/W,
-   * EN ISO 6946:2017 Table 8 (from memory, REFERENCES.md). */
+   * EN ISO 6946:2017 Table 8 (from memory). */
   air = lamina_edit_set_thickness (c, 1, 25, &error);
   g_assert_no_error (error);
   g_clear_pointer (&c, lamina_construction_free);

@@ -134,19 +134,57 @@ check_layer_rows (PopplerPage              *page,
     }
 }
 
+/* The U each test construction's sheet must show, worked by hand by
+ * EN ISO 6946:2017: RT = Rsi + Σ d/λ + Rse (6.7.1), walls Rsi 0.13 and
+ * Rse 0.04, a roof (heat flow up) Rsi 0.10, a floor (heat flow down)
+ * Rsi 0.17 (Table 7); a 10 mm unventilated air layer, horizontal flow,
+ * 0.15 (Table 8, from memory); behind a well-ventilated air layer the
+ * outer layers are disregarded and Rse = Rsi (6.9.4); a bridged layer by
+ * the upper and lower limits, RT = (R'T + R''T)/2 (6.7.2).  U to two
+ * significant figures (common practice). */
+static const struct
+{
+  const char *code;
+  const char *u;
+} hand_worked[] = {
+  /* 0.13 + 0.015/0.57 + 0.100/0.15 + 0.190/0.034 + 0.15 + 0.108/0.77
+   * + 0.04 = 6.7415 m²·K/W; U = 0.1483. */
+  { "EW-01", "U = 0.15" },
+  /* Homogeneous: 0.13 + 0.0125/0.21 + 0.0002/0.33 + 0.012/0.13
+   * + 0.022/0.048 + 0.13 = 0.87077; studs 45/600 = 0.075 of 195 mm:
+   * infill 0.195/0.037 = 5.2703, timber 0.195/0.13 = 1.5.
+   * R'T = 1/(0.925/6.1410 + 0.075/2.3708) = 5.4866;
+   * R''T = 0.87077 + 1/(0.925/5.2703 + 0.075/1.5) = 5.3051;
+   * RT = 5.3959; U = 0.1853. */
+  { "EW-04", "U = 0.19" },
+  /* 0.10 + 0.2/2.3 + 0.004/0.17 + 0.18/0.022 + 0.008/0.17 + 0.04
+   * = 8.4794; U = 0.1179. */
+  { "RF-02", "U = 0.12" },
+  /* 0.17 + 0.02/0.18 + 0.06/1.0 + 0.15/2.0 + 0.0003/0.33 + 0.25/0.035
+   * + 0.04 = 7.5999; U = 0.1316. */
+  { "GF-01", "U = 0.13" },
+  /* Homogeneous: 0.13 + 0.0125/0.21 + 0.012/0.35 + 0.1/0.034 + 0.008/1.0
+   * + 0.04 = 3.2130; steel 0.003 of 100 mm: 0.1/50 = 0.002, infill
+   * 0.1/0.037 = 2.7027.  R'T = 1/(0.997/5.9157 + 0.003/3.2150) = 5.9008;
+   * R''T = 3.2130 + 1/(0.997/2.7027 + 0.003/0.002) = 3.7481;
+   * RT = 4.8244; U = 0.2073. */
+  { "IW-09", "U = 0.21" },
+};
+
 static void
 check_sheet_text (const char               *text,
                   const LaminaConstruction *c)
 {
   g_autoptr(LaminaResult) r = lamina_calculate (c, NULL);
-  char buffer[LAMINA_FORMAT_SIZE];
-  g_autofree char *u = NULL;
+  const char *u = NULL;
 
   g_assert_nonnull (r);
   assert_contains (text, c->code, c->code);
   assert_contains (text, c->name, c->code);
-  /* U as lamina_calculate gives it, to two significant figures. */
-  u = g_strdup_printf ("U = %s", lamina_format_u (buffer, r->u_corrected));
+  for (guint i = 0; i < G_N_ELEMENTS (hand_worked); i++)
+    if (g_str_equal (hand_worked[i].code, c->code))
+      u = hand_worked[i].u;
+  g_assert_nonnull (u);
   assert_contains (text, u, c->code);
   assert_contains (text, "EN ISO 6946:2017", c->code);
   assert_contains (text, "not a condensation risk assessment", c->code);
