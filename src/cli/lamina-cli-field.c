@@ -74,17 +74,11 @@ print_field (const LaminaConstruction *c,
 static gboolean
 write_png (const LaminaConstruction *c,
            const LaminaFieldResult  *f,
-           const char               *path,
-           gboolean                  force)
+           const char               *path)
 {
   g_autoptr(GError) error = NULL;
   g_autofree char *tmp = NULL;
 
-  if (!force && g_file_test (path, G_FILE_TEST_EXISTS))
-    {
-      lamina_cli_error (_("%s exists; use --force to replace it"), path);
-      return FALSE;
-    }
   /* A temporary file beside the target, then a rename. */
   tmp = g_strdup_printf ("%s.part-%d", path, (int) getpid ());
   if (!lamina_field_write_png (c, f, PNG_WIDTH, 0, tmp, &error) || g_rename (tmp, path) != 0)
@@ -115,6 +109,7 @@ lamina_cli_field (const LaminaCliGlobals *globals,
   g_autoptr(GPtrArray) constructions = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
   g_autoptr(JsonArray) array = json_array_new ();
   g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) store = NULL;
   const char *source;
   gboolean from_file;
 
@@ -172,11 +167,17 @@ lamina_cli_field (const LaminaCliGlobals *globals,
           return LAMINA_EXIT_BAD_INPUT;
         }
       g_ptr_array_add (constructions, c);
+      store = g_steal_pointer (&library);
     }
   if (png != NULL && constructions->len != 1)
     {
       lamina_cli_error (_("--png draws one construction: name it with --id"));
       return LAMINA_EXIT_USAGE;
+    }
+  if (png != NULL && !globals->force && g_file_test (png, G_FILE_TEST_EXISTS))
+    {
+      lamina_cli_error (_("%s exists; use --force to replace it"), png);
+      return LAMINA_EXIT_BAD_INPUT;
     }
 
   for (guint i = 0; i < constructions->len; i++)
@@ -192,7 +193,15 @@ lamina_cli_field (const LaminaCliGlobals *globals,
             lamina_cli_error ("%s: %s", source, error->message);
           return LAMINA_EXIT_BAD_INPUT;
         }
-      if (png != NULL && !write_png (c, f, png, globals->force))
+      /* Kept with the revision it was calculated for. */
+      if (store != NULL && !lamina_library_put_field_check (store, c->id, c->revision, f, &error))
+        {
+          lamina_cli_error (_("%s: the 2-D check was not stored: %s"), source, error->message);
+          g_clear_error (&error);
+        }
+      else if (store != NULL && !json)
+        printf (_("2-D check stored with revision %d of %s\n"), c->revision, c->code ? c->code : c->id);
+      if (png != NULL && !write_png (c, f, png))
         return LAMINA_EXIT_BAD_INPUT;
       if (json)
         json_array_add_element (array, field_to_json (c, f));

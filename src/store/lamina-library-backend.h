@@ -102,6 +102,14 @@ typedef struct
   gboolean            (*apply_import_records) (LaminaBackend *backend,
                                                const LaminaBackendImport *import,
                                                const char *now, GError **error);
+
+  /* The 2-D check stored with a revision (lamina-library-field.c): its
+   * JSON body, or NULL without an error when the revision has none. */
+  char               *(*get_field_check)    (LaminaBackend *backend, const char *id,
+                                             int revision, GError **error);
+  gboolean            (*put_field_check)    (LaminaBackend *backend, const char *id,
+                                             int revision, const char *body,
+                                             const char *now, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend

@@ -27,6 +27,7 @@
 
 #include "lamina-calc.h"
 #include "lamina-construction.h"
+#include "lamina-field.h"
 #include "lamina-job-check.h"
 #include "lamina-material.h"
 #include "exchange/lamina-catalogue.h"
@@ -54,7 +55,7 @@ typedef enum
 GQuark lamina_library_error_quark (void);
 
 /* The schema version this build writes (PRAGMA user_version). */
-#define LAMINA_LIBRARY_SCHEMA_VERSION 4
+#define LAMINA_LIBRARY_SCHEMA_VERSION 5
 
 typedef enum
 {
@@ -447,5 +448,66 @@ G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaRevisionInfo, lamina_revision_info_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaMaterialChange, lamina_material_change_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaSummary, lamina_summary_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaImportReport, lamina_import_report_free)
+
+/* ---- The 2-D check (EN ISO 10211) stored with a revision --------------
+ *
+ * EN ISO 6946 does not apply where metal bridges insulation or R'T/R''T
+ * exceeds 1.5 (the engine's method-limit warnings, see
+ * lamina_field_is_advised ()).  A 2-D check of one module answers for
+ * such a construction; its figures are stored with the revision they were
+ * calculated for.  A revision never changes, so a stored check stays true
+ * of it; a new revision (changed content) has none until it is checked
+ * again (lamina_library_refresh_field_check ()). */
+typedef struct
+{
+  int      revision;
+  double   u;                 /* W/(m²·K), 2-D plus the Annex F ΔU */
+  double   u_6946;
+  double   heat_flow;         /* W/m per module, design temperatures */
+  double   min_inner_surface_temperature;     /* °C, Rsi as for U */
+  double   f_rsi;
+  double   min_inner_surface_temperature_mould; /* °C, Rsi 0.25 */
+  double   f_rsi_mould;
+  double   module_width;      /* mm */
+  guint    cells;
+  gboolean converged;         /* the last halving changed U < 0.1 % */
+  double   change;            /* relative change of the last halving */
+} LaminaFieldCheck;
+
+void              lamina_field_check_free (LaminaFieldCheck *check);
+/* The figures of @result for @revision. */
+LaminaFieldCheck *lamina_field_check_new_from_result (const LaminaFieldResult *result,
+                                                      int                      revision);
+
+/* The check stored with revision @revision of @id (0 = the latest); NULL
+ * with LAMINA_LIBRARY_ERROR_NOT_FOUND when that revision has none (a check
+ * of an earlier revision does not count: the content changed since). */
+LaminaFieldCheck *lamina_library_dup_field_check (LaminaLibrary *self,
+                                                  const char    *id,
+                                                  int            revision,
+                                                  GError       **error);
+/* Whether revision @revision (0 = latest) has a stored 2-D check: what the
+ * approval of a construction with a method-limit warning asks for. */
+gboolean          lamina_library_has_field_check (LaminaLibrary *self,
+                                                  const char    *id,
+                                                  int            revision);
+/* Stores @result as the check of revision @revision (which must exist). */
+gboolean          lamina_library_put_field_check (LaminaLibrary           *self,
+                                                  const char              *id,
+                                                  int                      revision,
+                                                  const LaminaFieldResult *result,
+                                                  GError                 **error);
+/* The check of the latest revision: the stored one, or calculated now
+ * (lamina_field_calculate, slow: seconds) and stored.  @result, if not
+ * NULL, receives the full result (with the field for a picture) when one
+ * was calculated, else NULL. */
+LaminaFieldCheck *lamina_library_refresh_field_check (LaminaLibrary       *self,
+                                                      const char          *id,
+                                                      LaminaFieldProgress  progress,
+                                                      gpointer             user_data,
+                                                      LaminaFieldResult  **result,
+                                                      GError             **error);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaFieldCheck, lamina_field_check_free)
 
 G_END_DECLS

@@ -106,6 +106,8 @@ static const LaminaBackendVTable sqlite_vtable = {
   .delete_job = lamina_sqlite_backend_delete_job,
   .list_job_uses = lamina_sqlite_backend_list_job_uses,
   .apply_import_records = lamina_sqlite_backend_apply_import_records,
+  .get_field_check = lamina_sqlite_backend_get_field_check,
+  .put_field_check = lamina_sqlite_backend_put_field_check,
 };
 
 static LaminaSqlite *

@@ -118,6 +118,18 @@ gint64              lamina_sqlite_backend_count            (LaminaBackend *backe
 GPtrArray          *lamina_sqlite_backend_list_tags        (LaminaBackend *backend,
                                                             GError **error);
 
+/* lamina-sqlite-field.c: the body of the 2-D check of a revision, NULL
+ * (no error) when there is none. */
+char               *lamina_sqlite_backend_get_field_check  (LaminaBackend *backend,
+                                                            const char *id,
+                                                            int revision,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_put_field_check  (LaminaBackend *backend,
+                                                            const char *id,
+                                                            int revision,
+                                                            const char *body,
+                                                            const char *now,
+                                                            GError **error);
 /* lamina-sqlite-jobs.c: */
 GPtrArray          *lamina_sqlite_backend_list_target_sets (LaminaBackend *backend,
                                                             GError **error);

@@ -167,11 +167,24 @@ static const char schema_v4[] =
   ") WITHOUT ROWID;"
   "CREATE INDEX job_entry_by_construction ON job_entry (construction_id);";
 
+/* Version 5: the 2-D checks (EN ISO 10211), one per revision that was
+ * checked.  Kept beside the revision, whose content never changes. */
+static const char schema_v5[] =
+  "CREATE TABLE field_check ("
+  "  construction_id TEXT NOT NULL,"
+  "  revision INTEGER NOT NULL CHECK (revision > 0),"
+  "  body TEXT NOT NULL,"
+  "  computed_at TEXT NOT NULL,"
+  "  PRIMARY KEY (construction_id, revision),"
+  "  FOREIGN KEY (construction_id, revision) REFERENCES revision (construction_id, revision)"
+  ") WITHOUT ROWID;";
+
 static const char *const steps[] = {
   schema_v1,
   schema_v2,
   schema_v3,
   schema_v4,
+  schema_v5,
 };
 
 G_STATIC_ASSERT (G_N_ELEMENTS (steps) == LAMINA_LIBRARY_SCHEMA_VERSION);

@@ -146,6 +146,8 @@ test_library (void)
   g_autofree char *demo = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "demo", "lamina-demo.xml", NULL);
   const char *fill[] = { "--library", library, "demo", NULL };
   const char *args[] = { "--library", library, "field", "EW-202", "--json", NULL };
+  const char *text_args[] = { "--library", library, "field", "EW-202", NULL };
+  g_autofree char *tout = NULL, *terr = NULL;
   const char *file_args[] = { "field", demo, "--id", "demo-ew-202", "--json", NULL };
   g_autofree char *out = NULL, *err = NULL, *fout = NULL, *ferr = NULL, *o1 = NULL, *e1 = NULL;
   g_autoptr(JsonParser) p1 = json_parser_new ();
@@ -160,6 +162,9 @@ test_library (void)
   /* The same construction gives the same figures from either source. */
   g_assert_cmpfloat_with_epsilon (json_object_get_double_member (from_library, "u"),
                                   json_object_get_double_member (from_file, "u"), 1e-12);
+  /* The library form keeps the check with the revision it is of. */
+  g_assert_cmpint (run_cli (text_args, &tout, &terr), ==, 0);
+  g_assert_nonnull (strstr (tout, "2-D check stored with revision 1 of EW-202"));
   g_unlink (library);
   {
     g_autofree char *wal = g_strconcat (library, "-wal", NULL);
