@@ -3,7 +3,7 @@
 
 #include "config.h"
 
-#include "lamina-history-window.h"
+#include "lamina-history-window-private.h"
 
 #include <glib/gi18n.h>
 
@@ -78,58 +78,44 @@ new_revision_row (LaminaLibrary            *library,
   return box;
 }
 
-/* Comparing any two revisions: the pickers and the sentences between. */
-typedef struct
-{
-  LaminaLibrary *library;
-  char          *id;
-  GPtrArray     *history;  /* LaminaRevisionInfo*, newest first; owned */
-  GtkDropDown   *older;
-  GtkDropDown   *newer;
-  GtkLabel      *diff;
-} Compare;
-
-static void
-compare_free (Compare *c)
-{
-  g_object_unref (c->library);
-  g_free (c->id);
-  g_ptr_array_unref (c->history);
-  g_free (c);
-}
+G_DEFINE_FINAL_TYPE (LaminaHistoryWindow, lamina_history_window, GTK_TYPE_WINDOW)
 
 static int
-picked_revision (Compare     *c,
-                 GtkDropDown *dropdown)
+picked_revision (LaminaHistoryWindow *self,
+                 GtkDropDown         *dropdown)
 {
   guint i = gtk_drop_down_get_selected (dropdown);
 
-  return i < c->history->len ? ((LaminaRevisionInfo *) c->history->pdata[i])->revision : 0;
+  return i < self->history->len ? ((LaminaRevisionInfo *) self->history->pdata[i])->revision : 0;
 }
 
+/* Comparing any two revisions: the sentences between the two picked. */
 static void
-on_compare_changed_cb (Compare *c)
+on_compare_changed_cb (LaminaHistoryWindow *self)
 {
-  int a = picked_revision (c, c->older);
-  int b = picked_revision (c, c->newer);
   g_autoptr(GError) error = NULL;
   g_autoptr(LaminaConstruction) older = NULL;
   g_autoptr(LaminaConstruction) newer = NULL;
   g_autoptr(GPtrArray) changes = NULL;
   g_autofree char *text = NULL;
+  int a, b;
 
+  if (self->history == NULL || self->history->len < 2)
+    return;
+  a = picked_revision (self, self->older);
+  b = picked_revision (self, self->newer);
   if (a == 0 || b == 0)
     return;
   if (a == b)
     {
-      gtk_label_set_text (c->diff, _("Pick two different revisions to see what changed."));
+      gtk_label_set_text (self->diff, _("Pick two different revisions to see what changed."));
       return;
     }
-  older = lamina_library_dup_construction (c->library, c->id, a, &error);
-  newer = older ? lamina_library_dup_construction (c->library, c->id, b, &error) : NULL;
+  older = lamina_library_dup_construction (self->library, self->id, a, &error);
+  newer = older ? lamina_library_dup_construction (self->library, self->id, b, &error) : NULL;
   if (newer == NULL)
     {
-      gtk_label_set_text (c->diff, error->message);
+      gtk_label_set_text (self->diff, error->message);
       return;
     }
   changes = lamina_revision_diff (older, newer);
@@ -140,64 +126,92 @@ on_compare_changed_cb (Compare *c)
       g_ptr_array_add (changes, NULL);
       text = g_strjoinv ("\n", (char **) changes->pdata);
     }
-  gtk_label_set_text (c->diff, text);
+  gtk_label_set_text (self->diff, text);
 }
 
-static GtkDropDown *
-new_revision_picker (Compare    *c,
-                     guint       selected,
-                     const char *accessible)
+static void
+set_up_compare (LaminaHistoryWindow *self)
 {
   g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
-  GtkWidget *dropdown;
 
-  for (guint i = 0; i < c->history->len; i++)
+  for (guint i = 0; i < self->history->len; i++)
     {
-      const LaminaRevisionInfo *info = c->history->pdata[i];
+      const LaminaRevisionInfo *info = self->history->pdata[i];
       g_autofree char *text = g_strdup_printf (_("Revision %d · %s"), info->revision,
                                                lamina_text_status_name (info->status));
 
       gtk_string_list_append (names, text);
     }
-  dropdown = gtk_drop_down_new (G_LIST_MODEL (g_steal_pointer (&names)), NULL);
-  gtk_drop_down_set_selected (GTK_DROP_DOWN (dropdown), MIN (selected, c->history->len - 1));
-  gtk_accessible_update_property (GTK_ACCESSIBLE (dropdown), GTK_ACCESSIBLE_PROPERTY_LABEL, accessible, -1);
-  g_signal_connect_swapped (dropdown, "notify::selected", G_CALLBACK (on_compare_changed_cb), c);
-  return GTK_DROP_DOWN (dropdown);
+  gtk_drop_down_set_model (self->older, G_LIST_MODEL (names));
+  gtk_drop_down_set_model (self->newer, G_LIST_MODEL (names));
+  gtk_drop_down_set_selected (self->older, 1);
+  gtk_drop_down_set_selected (self->newer, 0);
+  gtk_widget_set_visible (self->compare_box, TRUE);
+  on_compare_changed_cb (self);
 }
 
-static GtkWidget *
-new_compare_box (GtkWidget     *window,
-                 LaminaLibrary *library,
-                 const char    *id,
-                 GPtrArray     *history)
+static void
+lamina_history_window_dispose (GObject *object)
 {
-  Compare *c = g_new0 (Compare, 1);
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
-  GtkWidget *line = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
-  GtkWidget *title = gtk_label_new (_("Compare"));
+  LaminaHistoryWindow *self = LAMINA_HISTORY_WINDOW (object);
 
-  c->library = g_object_ref (library);
-  c->id = g_strdup (id);
-  c->history = g_ptr_array_ref (history);
-  g_object_set_data_full (G_OBJECT (window), "lamina-compare", c, (GDestroyNotify) compare_free);
-  c->older = new_revision_picker (c, 1, _("Older revision"));
-  c->newer = new_revision_picker (c, 0, _("Newer revision"));
-  c->diff = GTK_LABEL (gtk_label_new (NULL));
-  gtk_label_set_xalign (c->diff, 0);
-  gtk_label_set_wrap (c->diff, TRUE);
-  gtk_label_set_selectable (c->diff, TRUE);
-  gtk_widget_add_css_class (GTK_WIDGET (c->diff), "lamina-diff");
-  gtk_widget_add_css_class (title, "heading");
-  gtk_box_append (GTK_BOX (line), title);
-  gtk_box_append (GTK_BOX (line), GTK_WIDGET (c->older));
-  gtk_box_append (GTK_BOX (line), gtk_label_new ("→"));
-  gtk_box_append (GTK_BOX (line), GTK_WIDGET (c->newer));
-  gtk_box_append (GTK_BOX (box), line);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (c->diff));
-  g_object_set (box, "margin-start", 12, "margin-end", 12, "margin-top", 12, NULL);
-  on_compare_changed_cb (c);
-  return box;
+  gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_HISTORY_WINDOW);
+  g_clear_object (&self->library);
+  g_clear_pointer (&self->id, g_free);
+  g_clear_pointer (&self->history, g_ptr_array_unref);
+
+  G_OBJECT_CLASS (lamina_history_window_parent_class)->dispose (object);
+}
+
+static void
+lamina_history_window_class_init (LaminaHistoryWindowClass *klass)
+{
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  G_OBJECT_CLASS (klass)->dispose = lamina_history_window_dispose;
+
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-history-window.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaHistoryWindow, compare_box);
+  gtk_widget_class_bind_template_child (widget_class, LaminaHistoryWindow, older);
+  gtk_widget_class_bind_template_child (widget_class, LaminaHistoryWindow, newer);
+  gtk_widget_class_bind_template_child (widget_class, LaminaHistoryWindow, diff);
+  gtk_widget_class_bind_template_child (widget_class, LaminaHistoryWindow, list);
+  gtk_widget_class_bind_template_callback (widget_class, on_compare_changed_cb);
+}
+
+static void
+lamina_history_window_init (LaminaHistoryWindow *self)
+{
+  gtk_widget_init_template (GTK_WIDGET (self));
+}
+
+LaminaHistoryWindow *
+lamina_history_window_new (GtkWindow     *parent,
+                           LaminaLibrary *library,
+                           const char    *id)
+{
+  g_autoptr(GError) error = NULL;
+  LaminaHistoryWindow *self;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (library), NULL);
+  g_return_val_if_fail (id != NULL, NULL);
+
+  self = g_object_new (LAMINA_TYPE_HISTORY_WINDOW, "transient-for", parent, NULL);
+  self->library = g_object_ref (library);
+  self->id = g_strdup (id);
+  self->history = lamina_library_dup_history (library, id, &error);
+  if (self->history == NULL)
+    {
+      gtk_list_box_append (self->list, gtk_label_new (error->message));
+      return self;
+    }
+  for (guint i = 0; i < self->history->len; i++)
+    gtk_list_box_append (self->list,
+                         new_revision_row (library, id, self->history->pdata[i],
+                                           i + 1 < self->history->len ? self->history->pdata[i + 1] : NULL));
+  if (self->history->len > 1)
+    set_up_compare (self);
+  return self;
 }
 
 GtkWindow *
@@ -205,48 +219,8 @@ lamina_history_window_present (GtkWindow     *parent,
                                LaminaLibrary *library,
                                const char    *id)
 {
-  g_autoptr(GError) error = NULL;
-  g_autoptr(GPtrArray) history = lamina_library_dup_history (library, id, &error);
-  GtkWidget *window = gtk_window_new ();
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
-  GtkWidget *scroller = gtk_scrolled_window_new ();
-  GtkWidget *list = gtk_list_box_new ();
+  GtkWindow *window = GTK_WINDOW (lamina_history_window_new (parent, library, id));
 
-  gtk_window_set_title (GTK_WINDOW (window), _("Revision History"));
-  gtk_window_set_transient_for (GTK_WINDOW (window), parent);
-  gtk_window_set_default_size (GTK_WINDOW (window), 560, 600);
-  gtk_list_box_set_selection_mode (GTK_LIST_BOX (list), GTK_SELECTION_NONE);
-  gtk_widget_add_css_class (list, "boxed-list");
-  gtk_accessible_update_property (GTK_ACCESSIBLE (list), GTK_ACCESSIBLE_PROPERTY_LABEL,
-                                  _("Revisions, newest first"), -1);
-  if (history == NULL)
-    gtk_list_box_append (GTK_LIST_BOX (list), gtk_label_new (error->message));
-  for (guint i = 0; history != NULL && i < history->len; i++)
-    gtk_list_box_append (GTK_LIST_BOX (list),
-                         new_revision_row (library, id, history->pdata[i],
-                                           i + 1 < history->len ? history->pdata[i + 1] : NULL));
-  g_object_set (list, "margin-start", 12, "margin-end", 12, "margin-top", 12, "margin-bottom", 12, NULL);
-  if (history != NULL && history->len > 1)
-    gtk_box_append (GTK_BOX (box), new_compare_box (window, library, id, history));
-  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (scroller), list);
-  gtk_widget_set_vexpand (scroller, TRUE);
-  gtk_box_append (GTK_BOX (box), scroller);
-  gtk_window_set_child (GTK_WINDOW (window), box);
-  gtk_window_present (GTK_WINDOW (window));
-  return GTK_WINDOW (window);
-}
-
-GtkWidget *
-lamina_history_window_get_field (GtkWindow  *window,
-                                 const char *name)
-{
-  Compare *c = g_object_get_data (G_OBJECT (window), "lamina-compare");
-
-  if (c == NULL)
-    return NULL;
-  if (g_str_equal (name, "older"))
-    return GTK_WIDGET (c->older);
-  if (g_str_equal (name, "newer"))
-    return GTK_WIDGET (c->newer);
-  return g_str_equal (name, "diff") ? GTK_WIDGET (c->diff) : NULL;
+  gtk_window_present (window);
+  return window;
 }

@@ -10,12 +10,16 @@
 
 G_BEGIN_DECLS
 
-GtkWindow *lamina_history_window_present   (GtkWindow     *parent,
-                                            LaminaLibrary *library,
-                                            const char    *id);
-/* For tests: the "older" and "newer" revision pickers and the "diff"
- * label; NULL when there is only one revision. */
-GtkWidget *lamina_history_window_get_field (GtkWindow     *window,
-                                            const char    *name);
+#define LAMINA_TYPE_HISTORY_WINDOW (lamina_history_window_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaHistoryWindow, lamina_history_window, LAMINA, HISTORY_WINDOW, GtkWindow)
+
+/* The history of construction @id, transient for @parent (may be NULL). */
+LaminaHistoryWindow *lamina_history_window_new     (GtkWindow     *parent,
+                                                    LaminaLibrary *library,
+                                                    const char    *id);
+/* The same, presented. */
+GtkWindow           *lamina_history_window_present (GtkWindow     *parent,
+                                                    LaminaLibrary *library,
+                                                    const char    *id);
 
 G_END_DECLS

@@ -17,7 +17,7 @@
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
 #include "lamina-close-keys.h"
-#include "lamina-history-window.h"
+#include "lamina-history-window-private.h"
 #include "lamina-materials-window.h"
 #include "lamina-parts-dialog.h"
 #include "lamina-text.h"
@@ -770,7 +770,7 @@ test_compare_revisions (Fixture       *f,
   g_autoptr(GError) error = NULL;
   g_autofree char *id = NULL;
   LaminaEditor *editor = lamina_window_get_editor (f->window);
-  GtkWindow *history;
+  LaminaHistoryWindow *history;
   GtkDropDown *older, *newer;
   const char *text;
   guint index = 0;
@@ -786,24 +786,25 @@ test_compare_revisions (Fixture       *f,
   g_assert_cmpint (open_state (f)->revision, ==, base + 3);
 
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.history", NULL));
-  history = lamina_history_window_present (GTK_WINDOW (f->window), f->library, id);
-  older = GTK_DROP_DOWN (lamina_history_window_get_field (history, "older"));
-  newer = GTK_DROP_DOWN (lamina_history_window_get_field (history, "newer"));
+  history = lamina_history_window_new (GTK_WINDOW (f->window), f->library, id);
+  gtk_window_present (GTK_WINDOW (history));
+  older = history->older;
+  newer = history->newer;
   /* Newest first: item 3 is the revision before the three edits. */
   gtk_drop_down_set_selected (older, 3);
   gtk_drop_down_set_selected (newer, 0);
-  text = gtk_label_get_text (GTK_LABEL (lamina_history_window_get_field (history, "diff")));
+  text = gtk_label_get_text (history->diff);
   g_test_message ("%s", text);
   g_assert_nonnull (strstr (text, "mm →"));
   g_assert_nonnull (strstr (text, "Element: “Wall” → “Partition”"));
   g_assert_nonnull (strstr (text, "compare-me"));
   /* Between the last two only the tag changed. */
   gtk_drop_down_set_selected (older, 1);
-  text = gtk_label_get_text (GTK_LABEL (lamina_history_window_get_field (history, "diff")));
+  text = gtk_label_get_text (history->diff);
   g_assert_null (strstr (text, "Element"));
   g_assert_nonnull (strstr (text, "compare-me"));
   gtk_drop_down_set_selected (older, 0);
-  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (lamina_history_window_get_field (history, "diff"))),
+  g_assert_nonnull (strstr (gtk_label_get_text (history->diff),
                             "different"));
   gtk_drop_down_set_selected (older, 3);
   {
@@ -813,7 +814,7 @@ test_compare_revisions (Fixture       *f,
     wait_for_draw (GTK_WIDGET (history));
     save_png (GTK_WIDGET (history), path);
   }
-  gtk_window_destroy (history);
+  gtk_window_destroy (GTK_WINDOW (history));
 }
 
 static void
