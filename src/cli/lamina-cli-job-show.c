@@ -1,12 +1,14 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* lamina-cli job list | show: the jobs of the library, and one job with
- * its schedule checked against its targets. */
+/* lamina-cli job list | show | sheets: the jobs of the library, one job
+ * with its schedule checked against its targets, and its sheet set. */
 #define G_LOG_DOMAIN "lamina-cli"
 
 #include "config.h"
 
 #include "lamina-cli-job.h"
 #include "lamina-cli-report.h"
+#include "lamina-file.h"
+#include "lamina-sheet.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -330,5 +332,65 @@ lamina_cli_job_show (const LaminaCliGlobals *globals,
     print_json (report);
   else
     print_text (report);
+  return LAMINA_EXIT_OK;
+}
+
+/* job sheets JOB -o FILE.pdf [--practice NAME] [--paper SIZE] */
+int
+lamina_cli_job_sheets (const LaminaCliGlobals *globals,
+                       int                     argc,
+                       char                  **argv)
+{
+  g_autofree char *output = NULL, *practice = NULL, *paper = NULL;
+  const GOptionEntry entries[] = {
+    { "output", 'o', 0, G_OPTION_ARG_FILENAME, &output, N_("Write to FILE (“-”: standard output)"), "FILE" },
+    { "practice", 0, 0, G_OPTION_ARG_STRING, &practice, N_("Practice name in the header"), "NAME" },
+    { "paper", 0, 0, G_OPTION_ARG_STRING, &paper, N_("Paper size: a4, a3 or letter"), "SIZE" },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (_("JOB — print a job's sheet set to one PDF"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaJobReport) report = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaSheetOptions options;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, &argc, &argv))
+    return LAMINA_EXIT_USAGE;
+  if (argc != 2)
+    {
+      lamina_cli_error (_("usage: job sheets JOB -o FILE.pdf"));
+      return LAMINA_EXIT_USAGE;
+    }
+  if (output == NULL)
+    {
+      lamina_cli_error (_("-o FILE is required"));
+      return LAMINA_EXIT_USAGE;
+    }
+  lamina_sheet_options_init (&options);
+  if (paper && !lamina_paper_from_string (paper, &options.paper))
+    {
+      lamina_cli_error (_("--paper: unknown paper “%s” (a4, a3 or letter)"), paper);
+      return LAMINA_EXIT_USAGE;
+    }
+  options.practice = practice;
+  if (!lamina_file_check_target (output, globals->force, &error))
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  report = lamina_library_check_job (library, argv[1], &error);
+  if (report == NULL
+      || !lamina_sheet_write_job (output, globals->force, &options, report->job, report->targets,
+                                  report->check, &error))
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  fprintf (lamina_cli_message_stream (output), _("job “%s”: %u entries, sheet set written to %s\n"),
+           report->job->id, report->check->lines->len, output);
   return LAMINA_EXIT_OK;
 }

@@ -436,6 +436,7 @@ static const struct
   { "add", lamina_cli_job_add, N_("Pin a construction (or a junction) in a job's schedule") },
   { "remove", lamina_cli_job_remove, N_("Remove an entry from a job's schedule") },
   { "update", lamina_cli_job_update, N_("Change a job's data; move an entry to another revision") },
+  { "sheets", lamina_cli_job_sheets, N_("Print a job's sheet set to one PDF") },
 };
 
 /* job SUBCOMMAND … */

@@ -18,6 +18,7 @@ int  lamina_cli_job_update (const LaminaCliGlobals *globals, int argc, char **ar
 /* lamina-cli-job-show.c */
 int  lamina_cli_job_list   (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_job_show   (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_job_sheets (const LaminaCliGlobals *globals, int argc, char **argv);
 
 /* A number option within [@min, @max]; @text NULL leaves @value.  FALSE
  * after a message naming the option and the range. */

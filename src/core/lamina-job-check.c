@@ -50,8 +50,9 @@ flags_of_result (const LaminaResult *result)
     {
       const LaminaWarning *w = g_ptr_array_index (result->warnings, i);
 
-      /* The construction's own target is not the job's. */
-      if (w->kind == LAMINA_WARNING_TARGET_NOT_MET)
+      /* The construction's own target is not the job's; notes say what
+       * the method did as a matter of course. */
+      if (w->kind == LAMINA_WARNING_TARGET_NOT_MET || lamina_warning_kind_is_note (w->kind))
         continue;
       if (w->kind == LAMINA_WARNING_RATIO_OUT_OF_RANGE
           || w->kind == LAMINA_WARNING_METAL_BRIDGED_INSULATION)

@@ -114,6 +114,7 @@ typedef struct
   SheetPaintFunc    paint;
   gpointer          paint_data;
   const char       *title;
+  const SheetJobSet *job_set;     /* a job's cover and schedule before the sheets */
 } Source;
 
 static gboolean
@@ -159,7 +160,14 @@ write_pages (cairo_surface_t          *surface,
         }
     }
   first_sheet = source->front_matter ? 2 + index_pages : 1;
+  if (source->job_set != NULL)
+    first_sheet = 1 + sheet_job_count_front (&ctx, source->job_set);
   ctx.n_pages = first_sheet - 1 + source->n;
+  if (source->job_set != NULL)
+    {
+      set_metadata (surface, &ctx, source->job_set->job->name);
+      sheet_job_draw_front (&ctx, source->job_set, first_sheet);
+    }
 
   if (source->front_matter)
     {
@@ -192,8 +200,10 @@ write_pages (cairo_surface_t          *surface,
           ok = FALSE;
           break;
         }
-      if (!source->front_matter)
+      if (!source->front_matter && source->job_set == NULL)
         set_metadata (surface, &ctx, c->name);
+      if (source->job_set != NULL)
+        ctx.job_use = ((const LaminaJobLine *) source->job_set->sheets->pdata[i])->entry->use;
       ctx.page = first_sheet + i;
       add_sheet_outline (surface, parents, c, dest);
       ctx.dest = name;
@@ -254,7 +264,7 @@ lamina_sheet_write_pdf (const char               *path,
                         const LaminaConstruction *construction,
                         GError                  **error)
 {
-  Source source = { 1, fetch_single_cb, (gpointer) construction, FALSE, NULL, NULL, NULL, NULL };
+  Source source = { 1, fetch_single_cb, (gpointer) construction, FALSE, NULL, NULL, NULL, NULL, NULL };
 
   g_return_val_if_fail (path != NULL && options != NULL && construction != NULL, FALSE);
   return write_document (path, overwrite, options, &source, NULL, NULL, error);
@@ -271,7 +281,7 @@ lamina_sheet_write_catalogue (const char               *path,
                               gpointer                  progress_data,
                               GError                  **error)
 {
-  Source source = { n, fetch, fetch_data, TRUE, NULL, NULL, NULL, NULL };
+  Source source = { n, fetch, fetch_data, TRUE, NULL, NULL, NULL, NULL, NULL };
 
   g_return_val_if_fail (path != NULL && options != NULL && fetch != NULL, FALSE);
   return write_document (path, overwrite, options, &source, progress, progress_data, error);
@@ -286,7 +296,31 @@ sheet_write_single_page (const char               *path,
                          gpointer                  paint_data,
                          GError                  **error)
 {
-  Source source = { 0, NULL, NULL, FALSE, NULL, paint, paint_data, title };
+  Source source = { 0, NULL, NULL, FALSE, NULL, paint, paint_data, title, NULL };
 
   return write_document (path, overwrite, options, &source, NULL, NULL, error);
+static LaminaConstruction *
+fetch_job_sheet_cb (gpointer   user_data,
+                    guint      index,
+                    GError   **error)
+{
+  const SheetJobSet *set = user_data;
+  const LaminaJobLine *line = set->sheets->pdata[index];
+  LaminaConstruction *c = lamina_construction_copy (line->construction);
+
+  /* The sheet compares U with the job's target for the entry's use. */
+  c->target_u = line->max_u;
+  return c;
+}
+
+gboolean
+sheet_write_job_document (const char        *path,
+                          gboolean           overwrite,
+                          const SheetJobSet *set,
+                          GError           **error)
+{
+  Source source = { set->sheets->len, fetch_job_sheet_cb, (gpointer) set, FALSE, NULL,
+                    NULL, NULL, NULL, set };
+
+  return write_document (path, overwrite, &set->options, &source, NULL, NULL, error);
 }

@@ -107,6 +107,8 @@ draw_header (SheetContext             *ctx,
                        ctx->left + 6, y + 3, w - 12, PANGO_ALIGN_LEFT);
       y += 15 + 6;
     }
+  if (ctx->options->job != NULL)
+    y = sheet_draw_job_band (ctx, y);
   set_grey (ctx);
   sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->practice, ctx->left, y, w * 0.6, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_SMALL, _("Construction specification"), ctx->left + w * 0.6, y,

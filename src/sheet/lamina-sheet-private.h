@@ -51,7 +51,36 @@ typedef struct
   char                     *footer;       /* owned: what the page is (practice,
                                              code, revision, date); NULL = the
                                              practice and the title */
+  const char               *job_use;      /* the entry's use on a job's sheet */
 } SheetContext;
+
+/* A job's sheet set being written (lamina-sheet-job.c). */
+typedef struct
+{
+  const LaminaJob       *job;
+  const LaminaTargetSet *targets;    /* NULL if none */
+  const LaminaJobCheck  *check;
+  GPtrArray             *sheets;     /* LaminaJobLine* with a construction */
+  LaminaSheetJob         band;
+  LaminaSheetOptions     options;    /* the caller's, with .job = &band */
+} SheetJobSet;
+
+/* Pages of the cover and the schedule. */
+guint  sheet_job_count_front (SheetContext      *ctx,
+                              const SheetJobSet *set);
+/* Draws and ends the cover and schedule pages from page 1. */
+void   sheet_job_draw_front  (SheetContext      *ctx,
+                              const SheetJobSet *set,
+                              guint              first_sheet_page);
+/* The band with the job above a construction's header; returns the y
+ * below it. */
+double sheet_draw_job_band   (SheetContext      *ctx,
+                              double             y);
+/* lamina-sheet-document.c: the pages of a job's set. */
+gboolean sheet_write_job_document (const char        *path,
+                                   gboolean           overwrite,
+                                   const SheetJobSet *set,
+                                   GError           **error);
 
 void   sheet_context_init    (SheetContext             *ctx,
                               cairo_t                  *cr,

@@ -11,6 +11,7 @@
 
 #include "lamina-calc.h"
 #include "lamina-construction.h"
+#include "lamina-job-check.h"
 
 G_BEGIN_DECLS
 
@@ -31,6 +32,16 @@ typedef enum
   LAMINA_N_PAPERS
 } LaminaPaper;
 
+/* The job a sheet is issued for: a band above the construction's header
+ * with the job's name and number, the client and the entry's use. */
+typedef struct
+{
+  const char  *name;
+  const char  *number;
+  const char  *client;
+  const char  *use;       /* the entry's use, or NULL */
+} LaminaSheetJob;
+
 typedef struct
 {
   const char  *practice;  /* header of every sheet; NULL = none */
@@ -40,6 +51,7 @@ typedef struct
   const char  *printed;   /* print date as shown; NULL = today (or
                              SOURCE_DATE_EPOCH when set) */
   LaminaPaper  paper;
+  const LaminaSheetJob *job; /* NULL: a library sheet */
 } LaminaSheetOptions;
 
 /* Returns an owned construction for @index (0 … n − 1), or NULL with
@@ -76,6 +88,19 @@ gboolean lamina_sheet_write_catalogue (const char               *path,
                                        gpointer                  fetch_data,
                                        LaminaSheetProgress       progress,
                                        gpointer                  progress_data,
+                                       GError                  **error);
+
+/* A job's sheet set: a cover (job, number, client, architect, date,
+ * status), the schedule with its check and totals, then the sheet of each
+ * entry's construction with the job's band.  @check's lines hold the
+ * constructions in the job's design conditions (lamina_library_check_job);
+ * an entry whose construction is missing is listed, with no sheet. */
+gboolean lamina_sheet_write_job       (const char               *path,
+                                       gboolean                  overwrite,
+                                       const LaminaSheetOptions *options,
+                                       const LaminaJob          *job,
+                                       const LaminaTargetSet    *targets,
+                                       const LaminaJobCheck     *check,
                                        GError                  **error);
 
 G_END_DECLS

@@ -151,6 +151,34 @@ test_edit (void)
   g_assert_nonnull (strstr (out, "\"j1\""));
 }
 
+/* job sheets: one PDF (%PDF), refused without -o (2) and over an existing
+ * file without --force (1). */
+static void
+test_sheets (void)
+{
+  g_autofree char *out = NULL, *err = NULL, *pdf = NULL, *data = NULL;
+  gsize length = 0;
+
+  library_path = test_library_path ("cli-job-sheets.sqlite");
+  pdf = test_library_path ("riverside.pdf");
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "sheets", "demo-job-riverside", "-o", pdf, NULL), ==, 0);
+  g_assert_true (g_file_get_contents (pdf, &data, &length, NULL));
+  g_assert_true (length > 1000 && memcmp (data, "%PDF", 4) == 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "sheets", "demo-job-riverside", "-o", pdf, NULL), ==, 1);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "sheets", "demo-job-riverside", NULL), ==, 2);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "--force", "job", "sheets", "nope", "-o", pdf, NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "no job “nope”"));
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -158,5 +186,6 @@ main (int   argc,
   g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
   g_test_add_func ("/cli/job/show-json", test_show_json);
   g_test_add_func ("/cli/job/edit", test_edit);
+  g_test_add_func ("/cli/job/sheets", test_sheets);
   return g_test_run ();
 }

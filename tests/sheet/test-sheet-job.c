@@ -1,0 +1,189 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* A job's sheet set read back with poppler: the cover with the job's data,
+ * the schedule with each entry's U, target, verdict and U·A and H_T equal
+ * to the sum of U·A over the entries with an area (EN ISO 13789:2017 8.2,
+ * H = Σ A·U; from memory), then one sheet per construction with the job's
+ * band (job, number, client, the entry's use).  The targets are invented
+ * for the test. */
+#define G_LOG_DOMAIN "lamina-test"
+
+#include <glib/gstdio.h>
+#include <locale.h>
+#include <math.h>
+#include <poppler.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "lamina-sheet.h"
+#include "lamina-test-constructions.h"
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (PopplerPage, g_object_unref)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (PopplerDocument, g_object_unref)
+
+static char *
+dup_page_text (PopplerDocument *doc,
+               int              index)
+{
+  g_autoptr(PopplerPage) page = poppler_document_get_page (doc, index);
+  g_autofree char *text = poppler_page_get_text (page);
+  g_auto(GStrv) words = g_strsplit_set (text, " \n\t\r", -1);
+  GString *out = g_string_new (NULL);
+
+  for (guint i = 0; words[i]; i++)
+    if (*words[i])
+      g_string_append_printf (out, "%s%s", out->len ? " " : "", words[i]);
+  return g_string_free (out, FALSE);
+}
+
+static void
+assert_contains (const char *text,
+                 const char *what,
+                 const char *where)
+{
+  if (strstr (text, what) == NULL)
+    g_error ("%s: “%s” not found in: %s", where, what, text);
+}
+
+typedef struct
+{
+  LaminaJob          *job;
+  LaminaTargetSet    *targets;
+  GPtrArray          *constructions;  /* owned */
+  GPtrArray          *results;        /* owned */
+  LaminaJobInput      inputs[4];
+  LaminaJobCheck     *check;
+} Fixture;
+
+static void
+fixture_set_up (Fixture *f)
+{
+  const char *uses[] = { "external-wall", "roof", "floor-ground", "external-wall" };
+  const double areas[] = { 120.5, 80, NAN, 10 };
+  LaminaConstruction *made[] = { lamina_test_masonry_wall (), lamina_test_flat_roof (),
+                                 lamina_test_ground_floor (), NULL };
+
+  memset (f, 0, sizeof *f);
+  f->job = lamina_job_new ("j", "Test house by the mill");
+  f->job->number = g_strdup ("T-204");
+  f->job->client = g_strdup ("M. Client");
+  f->job->architect = g_strdup ("A. Architect");
+  f->job->status = LAMINA_JOB_STATUS_SUBMITTED;
+  f->job->target_set = g_strdup ("invented");
+  f->targets = lamina_target_set_new ("invented", "Invented test table");
+  lamina_target_set_add (f->targets, lamina_target_new ("external-wall", 0.25));
+  lamina_target_set_add (f->targets, lamina_target_new ("roof", 0.10));
+  lamina_target_set_add (f->targets, lamina_target_new ("floor-ground", 0.30));
+  f->constructions = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
+  f->results = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_result_free);
+  for (guint i = 0; i < G_N_ELEMENTS (uses); i++)
+    {
+      LaminaJobEntry *e = lamina_job_add_entry (f->job, lamina_job_entry_new (made[i] ? made[i]->id : "gone",
+                                                                              1, uses[i]));
+
+      e->area = areas[i];
+      if (made[i] == NULL)
+        {
+          f->inputs[i].flags = LAMINA_ENTRY_MISSING;
+          continue;
+        }
+      made[i]->inside_temperature = 21;
+      g_ptr_array_add (f->constructions, made[i]);
+      g_ptr_array_add (f->results, lamina_calculate (made[i], NULL));
+      f->inputs[i].construction = made[i];
+      f->inputs[i].result = f->results->pdata[f->results->len - 1];
+    }
+  f->check = lamina_job_check (f->job, f->targets, f->inputs, G_N_ELEMENTS (uses));
+}
+
+static void
+fixture_tear_down (Fixture *f)
+{
+  lamina_job_check_free (f->check);
+  g_ptr_array_unref (f->results);
+  g_ptr_array_unref (f->constructions);
+  lamina_target_set_free (f->targets);
+  lamina_job_free (f->job);
+}
+
+static void
+test_sheet_set (void)
+{
+  Fixture f;
+  g_autofree char *dir = g_dir_make_tmp ("lamina-job-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "job.pdf", NULL);
+  g_autofree char *uri = g_filename_to_uri (path, NULL, NULL);
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *cover = NULL, *schedule = NULL;
+  LaminaSheetOptions options;
+  double h_t = 0;
+  char expect[64];
+
+  fixture_set_up (&f);
+  lamina_sheet_options_init (&options);
+  options.practice = "Tamberlin Oke Architects";
+  options.printed = "2024-05-02";
+  g_assert_true (lamina_sheet_write_job (path, FALSE, &options, f.job, f.targets, f.check, &error));
+  g_assert_no_error (error);
+  doc = poppler_document_new_from_file (uri, NULL, &error);
+  g_assert_no_error (error);
+  /* Cover, schedule, three sheets: the missing construction has none. */
+  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 5);
+
+  cover = dup_page_text (doc, 0);
+  assert_contains (cover, "Test house by the mill", "cover");
+  assert_contains (cover, "T-204", "cover");
+  assert_contains (cover, "M. Client", "cover");
+  assert_contains (cover, "A. Architect", "cover");
+  assert_contains (cover, "2024-05-02", "cover");
+  assert_contains (cover, "Submitted", "cover");
+  assert_contains (cover, "Invented test table", "cover");
+
+  schedule = dup_page_text (doc, 1);
+  for (guint i = 0; i < f.constructions->len; i++)
+    {
+      const LaminaConstruction *c = f.constructions->pdata[i];
+      const LaminaResult *r = f.results->pdata[i];
+
+      assert_contains (schedule, c->code, "schedule");
+      g_snprintf (expect, sizeof expect, "%.3f", r->u_corrected);
+      assert_contains (schedule, expect, "schedule U");
+      if (i < 2)
+        h_t += r->u_corrected * (i == 0 ? 120.5 : 80);
+    }
+  /* The hand sum of U·A over the two entries with an area (the floor has
+   * none; the missing entry has no U), to two decimals as printed. */
+  g_snprintf (expect, sizeof expect, "%.2f", h_t);
+  assert_contains (schedule, expect, "schedule H_T");
+  g_assert_cmpfloat_with_epsilon (f.check->h_t, h_t, 1e-9);
+  assert_contains (schedule, "fabric of the listed elements only", "schedule");
+  assert_contains (schedule, "Revision 1 of “gone” is not in the library.", "schedule");
+  /* The flat roof does not meet the invented 0.10. */
+  assert_contains (schedule, "NO", "schedule");
+
+  for (int p = 2; p < 5; p++)
+    {
+      g_autofree char *text = dup_page_text (doc, p);
+      const LaminaJobLine *line = f.check->lines->pdata[p - 2];
+
+      assert_contains (text, "T-204 Test house by the mill", "sheet band");
+      assert_contains (text, "Client: M. Client", "sheet band");
+      assert_contains (text, line->entry->use, "sheet band");
+      assert_contains (text, line->construction->code, "sheet");
+      /* The job's design conditions: 21 °C inside. */
+      assert_contains (text, "21.0 °C", "sheet conditions");
+    }
+  g_unlink (path);
+  g_rmdir (dir);
+  fixture_tear_down (&f);
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  setlocale (LC_ALL, "");
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/sheet/job/sheet-set", test_sheet_set);
+  return g_test_run ();
+}
