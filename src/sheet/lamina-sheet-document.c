@@ -299,6 +299,8 @@ sheet_write_single_page (const char               *path,
   Source source = { 0, NULL, NULL, FALSE, NULL, paint, paint_data, title, NULL };
 
   return write_document (path, overwrite, options, &source, NULL, NULL, error);
+}
+
 static LaminaConstruction *
 fetch_job_sheet_cb (gpointer   user_data,
                     guint      index,
