@@ -648,9 +648,11 @@ review (const LaminaCliGlobals *globals,
   const GOptionEntry entries[] = {
     { "by", 0, 0, G_OPTION_ARG_STRING, &by, N_("Name of the reviewer (required)"), "NAME" },
     { "revision", 0, 0, G_OPTION_ARG_STRING, &revision_text, N_("The revision reviewed (default: the latest)"), "N" },
+    /* Options of approve only: check --help does not list them. */
     { "date", 0, 0, G_OPTION_ARG_STRING, &date, N_("Approval date YYYY-MM-DD (default: today)"), "DATE" },
     { NULL }
   };
+  GOptionEntry check_entries[G_N_ELEMENTS (entries)];
   g_autoptr(GOptionContext) context = g_option_context_new (approve
     ? _("ID --by NAME — approve the latest revision")
     : _("ID --by NAME — mark the latest revision checked"));
@@ -658,7 +660,9 @@ review (const LaminaCliGlobals *globals,
   g_autoptr(GError) error = NULL;
   gboolean ok;
 
-  g_option_context_add_main_entries (context, approve ? entries : entries, GETTEXT_PACKAGE);
+  memcpy (check_entries, entries, sizeof entries);
+  memset (&check_entries[2], 0, sizeof check_entries[2]);
+  g_option_context_add_main_entries (context, approve ? entries : check_entries, GETTEXT_PACKAGE);
   if (!lamina_cli_parse (context, &argc, &argv))
     return LAMINA_EXIT_USAGE;
   if (argc != 2 || by == NULL)
@@ -666,16 +670,11 @@ review (const LaminaCliGlobals *globals,
       lamina_cli_error (_("%s takes one construction id and --by NAME"), argv[0]);
       return LAMINA_EXIT_USAGE;
     }
-  if (!approve && date != NULL)
-    {
-      lamina_cli_error (_("--date: only for approve"));
-      return LAMINA_EXIT_USAGE;
-    }
   if (!lamina_cli_parse_revision (revision_text, &revision))
     return LAMINA_EXIT_USAGE;
-  /* A wrong date or name is bad input (exit 1), as when the store refuses it. */
+  /* A date that is not a date is a mistake in the command line (exit 2). */
   if (!parse_date (date))
-    return LAMINA_EXIT_BAD_INPUT;
+    return LAMINA_EXIT_USAGE;
   if (g_utf8_strlen (g_strstrip (by), -1) == 0 || g_utf8_strlen (by, -1) > 200)
     {
       lamina_cli_error (_("--by: the reviewer's name is required (allowed: 1 to 200 characters)"));

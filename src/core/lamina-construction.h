@@ -13,6 +13,11 @@
 
 G_BEGIN_DECLS
 
+/* A layer is at least a foil (0.01 mm) and at most 10 m thick, mm (common
+ * practice). */
+#define LAMINA_MIN_THICKNESS 0.01
+#define LAMINA_MAX_THICKNESS 10000.0
+
 /* One part of a bridged layer: a material (or an air layer) over an area
  * fraction.  The fraction is given directly, or as width / spacing, or left
  * out (both NAN) by exactly one part of the layer, which then takes the

@@ -8,6 +8,13 @@
 
 G_BEGIN_DECLS
 
+/* The physical range of a design thermal conductivity, W/(m·K): the lowest
+ * of a building material is a vacuum insulation panel's, about 0.007, the
+ * highest copper's, 380 (EN ISO 10456:2007, Table 3; from memory); the
+ * limits leave room on both sides and refuse a typing slip (1e-300). */
+#define LAMINA_MIN_CONDUCTIVITY 0.001
+#define LAMINA_MAX_CONDUCTIVITY 1000.0
+
 /* Units: conductivity λ W/(m·K), density kg/m³, specific heat J/(kg·K),
  * vapour resistance factor μ (dimensionless), emissivity 0–1.  A value that
  * is not known is NAN (except conductivity, which a material must have). */

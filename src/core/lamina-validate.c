@@ -135,7 +135,7 @@ check_material (Check                *check,
   if (material == NULL)
     return fail_at (check, line, where, _("no material"));
   return check_range (check, line, where, N_("thermal conductivity"),
-                      material->conductivity, 0, 1000, TRUE, "W/(m·K)");
+                      material->conductivity, LAMINA_MIN_CONDUCTIVITY, LAMINA_MAX_CONDUCTIVITY, FALSE, "W/(m·K)");
 }
 
 static gboolean
@@ -252,7 +252,7 @@ check_corrections (Check             *check,
   if (k->has_fasteners)
     {
       if (!check_range (check, layer->line, where, N_("fastener conductivity"),
-                        k->fastener_conductivity, 0, 1000, TRUE, "W/(m·K)")
+                        k->fastener_conductivity, LAMINA_MIN_CONDUCTIVITY, LAMINA_MAX_CONDUCTIVITY, FALSE, "W/(m·K)")
           || !check_range (check, layer->line, where, N_("fastener cross-section"),
                            k->fastener_cross_section, 0, 10000, TRUE, "mm²")
           || !check_range (check, layer->line, where, N_("fasteners per square metre"),
@@ -305,7 +305,8 @@ check_layer (Check             *check,
 {
   Where where = { number, 0 };
 
-  if (!check_range (check, layer->line, where, N_("thickness"), layer->thickness, 0, 10000, TRUE, "mm"))
+  if (!check_range (check, layer->line, where, N_("thickness"), layer->thickness,
+                   LAMINA_MIN_THICKNESS, LAMINA_MAX_THICKNESS, FALSE, "mm"))
     return FALSE;
   switch (layer->kind)
     {
@@ -565,13 +566,12 @@ lamina_construction_validate (const LaminaConstruction *construction,
   if (line != NULL)
     *line = 0;
   if (c->layers->len == 0)
-    return fail (&check, c->line, _("construction “%s”: no layers"), c->id ? c->id : "");
+    return fail (&check, c->line, "%s", _("no layers"));
   if (c->layers->len > MAX_LAYERS)
-    return fail (&check, c->line, _("construction “%s”: more than %d layers"), c->id ? c->id : "", MAX_LAYERS);
+    return fail (&check, c->line, _("more than %d layers"), MAX_LAYERS);
   if ((guint) c->element >= LAMINA_N_ELEMENTS || (guint) c->heat_flow >= LAMINA_N_HEAT_FLOWS
       || (guint) c->outer_side >= LAMINA_N_OUTER_SIDES)
-    return fail (&check, c->line, _("construction “%s”: unknown element, heat flow or outer side"),
-                 c->id ? c->id : "");
+    return fail (&check, c->line, "%s", _("unknown element, heat flow or outer side"));
   if (!check_range (&check, c->line, whole, N_("inside temperature"),
                     c->inside_temperature, -60, 60, FALSE, "°C")
       || !check_range (&check, c->line, whole, N_("outside temperature"),

@@ -149,7 +149,7 @@ check_material_values (Reader               *r,
                        const LaminaMaterial *m)
 {
   struct { const char *attr; double value, min, max; gboolean open_min; } checks[] = {
-    { "conductivity", m->conductivity, 0, 1000, TRUE },
+    { "conductivity", m->conductivity, LAMINA_MIN_CONDUCTIVITY, LAMINA_MAX_CONDUCTIVITY, FALSE },
     { "density", m->density, 0, 25000, FALSE },
     { "specific-heat", m->specific_heat, 0, 100000, FALSE },
     { "vapour-resistance-factor", m->vapour_resistance_factor, 0, 1e7, FALSE },

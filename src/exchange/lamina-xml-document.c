@@ -36,6 +36,33 @@ typedef struct
   int       doctype_line;
 } ErrorSink;
 
+/* libxml2 suggests its own options ("Excessive depth in document: 256
+ * use XML_PARSE_HUGE option"): a user of Lamina cannot set them and must
+ * not, so say what is wrong in the document's terms instead. */
+static void
+strip_parser_options (GString *message)
+{
+  char *option = strstr (message->str, "XML_PARSE_");
+  char *cut;
+
+  if (strstr (message->str, "Excessive depth in document") != NULL)
+    {
+      g_string_assign (message, _("the elements are nested too deeply (more than 256 levels)"));
+      return;
+    }
+  if (option == NULL)
+    return;
+  /* Cut the advice from the word that introduces it ("use", "try"). */
+  cut = option;
+  while (cut > message->str && cut[-1] == ' ')
+    cut--;
+  while (cut > message->str && cut[-1] != ' ' && cut[-1] != ',' && cut[-1] != ':' && cut[-1] != ';')
+    cut--;
+  while (cut > message->str && (cut[-1] == ' ' || cut[-1] == ',' || cut[-1] == ';'))
+    cut--;
+  g_string_truncate (message, cut - message->str);
+}
+
 static void
 record_error (ErrorSink         *sink,
               const xmlError    *err)
@@ -56,6 +83,7 @@ record_error (ErrorSink         *sink,
   g_string_replace (message, "is not accepted by the pattern '" NUMBER_PATTERN "'",
                     _("is not a plain decimal number such as 12.5 (no units, blanks, NaN or INF)"), 0);
   g_string_replace (message, "\n", " ", 0);
+  strip_parser_options (message);
   sink->message = g_string_free (message, FALSE);
   sink->line = err->node != NULL ? lamina_xml_node_get_line (err->node) : err->line;
 }

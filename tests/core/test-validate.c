@@ -60,6 +60,9 @@ static void spoil_penetration (LaminaConstruction *c)
   k->fasteners_per_square_metre = 4;
   k->fastener_penetration = 20;
 }
+static void spoil_tiny_conductivity (LaminaConstruction *c) { LAYER (c, 0)->material->conductivity = 1e-300; }
+static void spoil_tiny_thickness (LaminaConstruction *c) { LAYER (c, 0)->thickness = 1e-300; }
+static void spoil_huge_conductivity (LaminaConstruction *c) { LAYER (c, 0)->material->conductivity = 5000; }
 static void spoil_temperature (LaminaConstruction *c) { c->outside_temperature = -90; }
 static void spoil_target (LaminaConstruction *c) { c->target_u = 0; }
 static void spoil_no_layers (LaminaConstruction *c) { g_ptr_array_set_size (c->layers, 0); }
@@ -92,7 +95,17 @@ test_bad_values (void)
     { "penetration", spoil_penetration, "layer 1: fastener penetration 20" },
     { "temperature", spoil_temperature, "outside temperature -90" },
     { "target", spoil_target, "target U 0" },
+    /* The message is the bare fact: the caller names the construction. */
     { "no layers", spoil_no_layers, "no layers" },
+    /* Physical ranges, with the allowed range in the message: the lowest
+     * design λ of a building material is a vacuum insulation panel's,
+     * about 0.007 W/(m·K), the highest copper's, 380 W/(m·K)
+     * (EN ISO 10456:2007, Table 3; from memory). */
+    { "tiny conductivity", spoil_tiny_conductivity,
+      "layer 1: thermal conductivity 1e-300 is outside the allowed range 0.001 to 1000 W/(m·K)" },
+    { "huge conductivity", spoil_huge_conductivity, "layer 1: thermal conductivity 5000 is outside the allowed range 0.001 to 1000 W/(m·K)" },
+    { "tiny thickness", spoil_tiny_thickness,
+      "layer 1: thickness 1e-300 is outside the allowed range 0.01 to 10000 mm" },
     { "duplicate member", spoil_duplicate_member, "member “stud” appears twice" },
   };
 

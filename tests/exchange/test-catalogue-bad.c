@@ -65,6 +65,13 @@ static const BadCase cases[] = {
     FALSE, LAMINA_XML_ERROR_INVALID, 7, "*conductivity=-0.04*" },
   { "/exchange/bad/density-negative", "  <material id=\"x\" name=\"X\" conductivity=\"1\" density=\"-1\"/>\n" "</catalogue>\n",
     FALSE, LAMINA_XML_ERROR_INVALID, 7, "*density=-1*" },
+  /* Physical ranges, with the allowed range: the lowest design λ of a
+   * building material is about 0.007 W/(m·K) (vacuum insulation panel;
+   * EN ISO 10456:2007, Table 3, from memory). */
+  { "/exchange/bad/conductivity-tiny", "  <material id=\"x\" name=\"X\" conductivity=\"1e-300\"/>\n" "</catalogue>\n",
+    FALSE, LAMINA_XML_ERROR_INVALID, 7, "material “x”: conductivity=1e-300 is outside the allowed range 0.001 to 1000" },
+  { "/exchange/bad/thickness-tiny", OPEN "    <layer thickness=\"1e-300\" material=\"gyp\"/>\n" CLOSE,
+    FALSE, LAMINA_XML_ERROR_INVALID, 8, "construction “w”: layer 1: thickness 1e-300 is outside the allowed range 0.01 to 10000 mm" },
   /* Lexical form of numbers: the schema refuses NaN, INF, blanks, units. */
   { "/exchange/bad/nan", OPEN "    <layer thickness=\"NaN\" material=\"gyp\"/>\n" CLOSE,
     FALSE, LAMINA_XML_ERROR_SCHEMA, 8, "*thickness*NaN*" },
@@ -370,6 +377,42 @@ test_too_large (void)
   g_rmdir (dir);
 }
 
+/* A message names its construction once: the writer puts "construction
+ * “w”: " in front of what the model says, and the model does not say it
+ * again. */
+static void
+test_named_once (void)
+{
+  g_autoptr(LaminaCatalogue) cat = lamina_catalogue_new ();
+  g_autoptr(GError) error = NULL;
+  g_autofree char *text = NULL;
+  gsize length;
+
+  g_ptr_array_add (cat->constructions, lamina_construction_new ("w", "Wall", LAMINA_ELEMENT_WALL));
+  text = lamina_catalogue_write_to_string (cat, 0, &length, &error);
+  g_assert_null (text);
+  g_assert_cmpstr (error->message, ==, "construction “w”: no layers");
+}
+
+/* Nesting deeper than the parser's limit is said in the document's terms,
+ * without the parser's option names. */
+static void
+test_depth_in_words (void)
+{
+  g_autoptr(GString) doc = g_string_new ("<?xml version=\"1.0\"?>\n"
+                                         "<catalogue xmlns=\"urn:x-lamina:catalogue:1\" format=\"1\">\n");
+  g_autoptr(LaminaCatalogue) cat = NULL;
+  g_autoptr(GError) error = NULL;
+
+  for (int i = 0; i < 400; i++)
+    g_string_append (doc, "<notes>");
+  cat = lamina_catalogue_read_memory (doc->str, doc->len, "deep.xml", &error);
+  g_assert_null (cat);
+  g_assert_nonnull (strstr (error->message, "deep.xml:"));
+  g_assert_nonnull (strstr (error->message, "nested too deeply"));
+  g_assert_null (strstr (error->message, "XML_PARSE"));
+}
+
 int
 main (int    argc,
       char **argv)
@@ -378,6 +421,8 @@ main (int    argc,
   for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
     g_test_add_data_func (cases[i].path, &cases[i], test_bad_case);
   g_test_add_func ("/exchange/bad/quiet", test_quiet);
+  g_test_add_func ("/exchange/bad/named-once", test_named_once);
+  g_test_add_func ("/exchange/bad/depth-in-words", test_depth_in_words);
   g_test_add_func ("/exchange/bad/file-names", test_file_names);
   g_test_add_func ("/exchange/bad/big-line-numbers", test_big_line_numbers);
   g_test_add_func ("/exchange/bad/too-large", test_too_large);

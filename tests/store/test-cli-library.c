@@ -97,8 +97,17 @@ test_commands (void)
   g_assert_cmpint (run (&out, &err, "check", "EW-102", "--by", "K. Reviewer", NULL), ==, 0);
   g_clear_pointer (&out, g_free);
   g_clear_pointer (&err, g_free);
-  g_assert_cmpint (run (&out, &err, "approve", "EW-102", "--by", "M. Lead", "--date", "2026-13-01", NULL), ==, 1);
+  /* A date that is not a date is a usage error (exit 2), like any bad
+   * option value. */
+  g_assert_cmpint (run (&out, &err, "approve", "EW-102", "--by", "M. Lead", "--date", "2026-13-01", NULL), ==, 2);
   g_assert_nonnull (strstr (err, "YYYY-MM-DD"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  /* check --help lists only what check accepts. */
+  g_assert_cmpint (run (&out, &err, "check", "--help", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "--by"));
+  g_assert_nonnull (strstr (out, "--revision"));
+  g_assert_null (strstr (out, "--date"));
   g_clear_pointer (&out, g_free);
   g_clear_pointer (&err, g_free);
   g_assert_cmpint (run (&out, &err, "approve", "EW-102", "--by", "M. Lead", NULL), ==, 0);
