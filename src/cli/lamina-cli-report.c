@@ -355,7 +355,7 @@ lamina_cli_print_result (FILE                     *out,
            r->u, r->delta_u, r->u_corrected, lamina_format_u (reported, r->u_corrected));
   print_method (out, c, r);
   if (r->has_target)
-    fprintf (out, _("  target U %.2f: %s\n"), c->target_u, r->target_met ? _("met") : _("NOT MET"));
+    fprintf (out, _("  target U %g: %s\n"), c->target_u, r->target_met ? _("met") : _("NOT MET"));
   if (lamina_dynamic_calculate (c, r, LAMINA_DYNAMIC_PERIOD_HOURS, &dynamic, &dynamic_error))
     {
       fprintf (out, _("  EN ISO 13786 (24 h): |Y12| %.4f W/(m²K)   f %.3f   time shift %.1f h   |Y11| %.2f W/(m²K)\n"),

@@ -39,6 +39,7 @@
  * (common practice: the least conductive structural metals, stainless
  * steels, are about 15–17 W/(m·K), EN ISO 10456 Table 3). */
 #define METAL_MIN_CONDUCTIVITY 10.0
+#define INSULATING_MAX_CONDUCTIVITY 0.1
 
 /* Annex D by the temperature profile: stop when no air layer's R moves by
  * more than this, m²·K/W; a handful of rounds suffice in practice. */
@@ -286,6 +287,17 @@ is_metal (const LaminaMaterial *m)
                        || m->conductivity >= METAL_MIN_CONDUCTIVITY);
 }
 
+/* Insulating for the scope check by what it does, whatever its category:
+ * λ ≤ 0.1 W/(m·K) (common practice; insulation products are declared at
+ * 0.02–0.05, and a light timber or an insulating block is not bridged by
+ * metal in a way the limits method misses by much). */
+static gboolean
+is_insulating (const LaminaMaterial *m)
+{
+  return m != NULL && (m->category == LAMINA_CATEGORY_INSULATION
+                       || m->conductivity <= INSULATING_MAX_CONDUCTIVITY);
+}
+
 gboolean
 lamina_layer_metal_bridges_insulation (const LaminaLayer *layer)
 {
@@ -294,8 +306,11 @@ lamina_layer_metal_bridges_insulation (const LaminaLayer *layer)
   for (guint p = 0; p < layer->parts->len; p++)
     {
       const LaminaMaterial *m = ((LaminaPart *) layer->parts->pdata[p])->material;
-      metal |= is_metal (m);
-      insulation |= m != NULL && m->category == LAMINA_CATEGORY_INSULATION;
+
+      if (is_metal (m))
+        metal = TRUE;
+      else if (is_insulating (m))
+        insulation = TRUE;
     }
   return metal && insulation;
 }
@@ -392,6 +407,79 @@ fill_layers (const Calc   *calc,
     }
 }
 
+/* The resistance of layer @i ignoring thermal bridging: for a bridged
+ * layer, the path through its main part (the largest area fraction). */
+static double
+unbridged_resistance (const Calc *calc,
+                      guint       i)
+{
+  const LaminaLayer *layer = calc->c->layers->pdata[i];
+  double best = -1.0, r = calc->r[i];
+
+  if (layer->kind != LAMINA_LAYER_BRIDGED)
+    return r;
+  for (guint p = 0; p < layer->parts->len; p++)
+    {
+      double f = lamina_layer_get_part_fraction (layer, p);
+
+      if (f > best)
+        {
+          best = f;
+          r = calc->part_r[i][p];
+        }
+    }
+  return r;
+}
+
+/* F.3: RT,h, the total resistance of the component ignoring thermal
+ * bridging, over the layers that count. */
+static double
+total_unbridged_resistance (const Calc         *calc,
+                            guint               cut,
+                            const LaminaResult *result)
+{
+  double total = result->rsi + result->rse + (cut == calc->n ? calc->ru : 0.0);
+
+  for (guint i = 0; i < cut; i++)
+    total += unbridged_resistance (calc, i);
+  return total;
+}
+
+/* F.3: ΔUf = α λf Af nf / d0 · (R1 / RT,h)², R1 the insulation layer's
+ * resistance, both ignoring thermal bridging.  None for ties across an
+ * empty cavity (they bridge an air layer only) nor for λf below 1. */
+static void
+correct_fasteners (const Calc   *calc,
+                   guint         i,
+                   double        rt_h,
+                   LaminaResult *result)
+{
+  const LaminaLayer *layer = calc->c->layers->pdata[i];
+  const LaminaCorrections *k = &layer->corrections;
+  double d0, alpha, share;
+
+  if (layer->kind == LAMINA_LAYER_AIR)
+    {
+      lamina_result_add_warning (result, LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY, (int) i + 1,
+                                 g_strdup_printf (_("Layer %u: ties across an empty cavity bridge only an air "
+                                                    "layer and need no correction (EN ISO 6946 F.3)."), i + 1));
+      return;
+    }
+  if (k->fastener_conductivity < FASTENER_MIN_CONDUCTIVITY)
+    {
+      lamina_result_add_warning (result, LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY, (int) i + 1,
+                                 g_strdup_printf (_("Layer %u: fasteners with λ below 1 W/(m·K) need no "
+                                                    "correction (EN ISO 6946 F.3)."), i + 1));
+      return;
+    }
+  d0 = layer->thickness / 1000.0;
+  alpha = isnan (k->fastener_penetration) ? FASTENER_ALPHA
+                                          : FASTENER_ALPHA * k->fastener_penetration / layer->thickness;
+  share = unbridged_resistance (calc, i) / rt_h;
+  result->layers[i].delta_u_fasteners = alpha * k->fastener_conductivity * k->fastener_cross_section * 1e-6
+                                        * k->fasteners_per_square_metre / d0 * share * share;
+}
+
 /* Annex F: ΔU for the corrections on the layers that count. */
 static void
 apply_corrections (const Calc   *calc,
@@ -399,6 +487,7 @@ apply_corrections (const Calc   *calc,
                    LaminaResult *result)
 {
   double rt = result->r_total;
+  double rt_h = total_unbridged_resistance (calc, cut, result);
 
   for (guint i = 0; i < calc->n; i++)
     {
@@ -418,25 +507,8 @@ apply_corrections (const Calc   *calc,
       /* F.2: ΔUg = ΔU'' (R1 / RT)² */
       if (k->has_air_gaps)
         result->layers[i].delta_u_air_gaps = air_gap_delta_u[k->air_gap_level] * share * share;
-      /* F.3: ΔUf = α λf Af nf / d0 · (R1 / RT,h)² */
       if (k->has_fasteners)
-        {
-          if (k->fastener_conductivity < FASTENER_MIN_CONDUCTIVITY)
-            lamina_result_add_warning (result, LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY, (int) i + 1,
-                                       g_strdup_printf (_("Layer %u: fasteners with λ below 1 W/(m·K) need no "
-                                                          "correction (EN ISO 6946 F.3)."), i + 1));
-          else
-            {
-              double d0 = layer->thickness / 1000.0;
-              double alpha = isnan (k->fastener_penetration)
-                             ? FASTENER_ALPHA
-                             : FASTENER_ALPHA * k->fastener_penetration / layer->thickness;
-
-              result->layers[i].delta_u_fasteners = alpha * k->fastener_conductivity
-                                                    * k->fastener_cross_section * 1e-6
-                                                    * k->fasteners_per_square_metre / d0 * share * share;
-            }
-        }
+        correct_fasteners (calc, i, rt_h, result);
       /* F.4: ΔUr = p f x (R1 / RT)² */
       if (k->has_inverted_roof)
         result->layers[i].delta_u_inverted_roof = k->precipitation * k->drainage_factor * INVERTED_ROOF_X
@@ -466,9 +538,15 @@ check_target (const LaminaConstruction *c,
   result->has_target = TRUE;
   result->target_met = u <= c->target_u;
   if (!result->target_met)
-    lamina_result_add_warning (result, LAMINA_WARNING_TARGET_NOT_MET, 0,
-                               g_strdup_printf (_("U = %.3f W/(m²·K) does not meet the target of %.3f W/(m²·K)."),
-                                                u, c->target_u));
+    {
+      char text[LAMINA_U_TEXT_SIZE];
+
+      /* "U 0.1801 exceeds the target 0.18": as many digits as show the miss;
+       * the target as it was set. */
+      lamina_result_add_warning (result, LAMINA_WARNING_TARGET_NOT_MET, 0,
+                                 g_strdup_printf (_("U %s exceeds the target %g W/(m²·K)."),
+                                                  lamina_format_u_against (text, u, c->target_u), c->target_u));
+    }
 }
 
 /* The limits, RT, U and the temperature profile from the current layer

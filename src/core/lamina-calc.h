@@ -18,7 +18,8 @@ typedef enum
   LAMINA_WARNING_VENT_CLASS,           /* declared class differs from Av */
   LAMINA_WARNING_LAYERS_DISREGARDED,   /* outside a well-ventilated layer */
   LAMINA_WARNING_CORRECTION_SMALL,     /* ΔU < 3 % of U (F.1) */
-  LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY, /* λf < 1: no correction (F.3) */
+  LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY, /* no fastener correction (F.3): λf < 1,
+                                             * or ties across an empty cavity */
   LAMINA_WARNING_TARGET_NOT_MET,
   LAMINA_WARNING_SOIL_ASSUMED,         /* λ of unknown soil (EN ISO 13370) */
   LAMINA_WARNING_GROUND,               /* U with the ground for one plan */
@@ -228,6 +229,12 @@ double        lamina_round_significant          (double value,
  * Writes into @buffer (LAMINA_U_TEXT_SIZE bytes) and returns it. */
 const char   *lamina_format_u                   (char   *buffer,
                                                  double  u);
+/* A U beside a limit: two significant figures, or as many more (up to
+ * six) as it takes to show on which side of @limit it lies ("0.1801"
+ * against 0.18, never "0.18 exceeds 0.18").  Same notation as above. */
+const char   *lamina_format_u_against           (char   *buffer,
+                                                 double  u,
+                                                 double  limit);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaResult, lamina_result_free)
 

@@ -129,6 +129,30 @@ lamina_format_u (char   *buffer,
   return buffer;
 }
 
+const char *
+lamina_format_u_against (char   *buffer,
+                         double  u,
+                         double  limit)
+{
+  int digits = 2;
+  double rounded = u;
+
+  if (!isfinite (u) || !isfinite (limit) || u <= 0 || u == limit)
+    return lamina_format_u (buffer, u);
+  for (; digits <= 6; digits++)
+    {
+      rounded = lamina_round_significant (u, digits);
+      if ((u > limit) == (rounded > limit) && rounded != limit)
+        break;
+    }
+  if (digits == 2)
+    return lamina_format_u (buffer, u);
+  digits = MIN (digits, 6);
+  snprintf (buffer, LAMINA_U_TEXT_SIZE, "%.*f",
+            CLAMP (digits - 1 - (int) floor (log10 (rounded)), 0, 8), rounded);
+  return buffer;
+}
+
 /* Takes ownership of @message. */
 void
 lamina_result_add_warning (LaminaResult      *result,

@@ -487,8 +487,16 @@ draw_u_box (SheetContext             *ctx,
   sheet_text_line (ctx, SHEET_FONT_BIG, big, x + 8, y + 15, width - 16, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_SMALL, "W/(m²·K)", x + 8, y + 37, width - 16, PANGO_ALIGN_LEFT);
   if (r->has_target)
-    target = g_strdup_printf (r->target_met ? _("✓ Meets the target U ≤ %s") : _("✗ Exceeds the target U ≤ %s"),
-                              lamina_format_u (t, c->target_u));
+    {
+      /* The target as it was set (0.175 is not 0.18), and a U that misses
+       * it with the digits that show the miss. */
+      g_snprintf (t, sizeof t, "%g", c->target_u);
+      if (r->target_met)
+        target = g_strdup_printf (_("✓ Meets the target U ≤ %s"), t);
+      else
+        target = g_strdup_printf (_("✗ U %s exceeds the target U ≤ %s"),
+                                  lamina_format_u_against (u, r->u_corrected, c->target_u), t);
+    }
   else
     target = g_strdup (_("No target U set"));
   if (r->has_target && !r->target_met)

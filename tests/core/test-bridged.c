@@ -194,6 +194,37 @@ test_metal_bridging_warns (void)
   g_assert_true (lamina_result_has_warning (r, LAMINA_WARNING_RATIO_OUT_OF_RANGE));
 }
 
+/* EN ISO 6946:2017 clause 1: insulation bridged by metal is outside the
+ * scope, whatever the materials are called: a part with λ ≥ 10 W/(m·K)
+ * (metal; stainless steel 17, EN ISO 10456 Table 3) beside a part with
+ * λ ≤ 0.1 (insulating; common practice).  Here the steel is filed as
+ * "other" and the insulating part is a wood-fibre board (λ 0.04) filed
+ * as "board"; a steel stud in concrete bridges nothing insulating. */
+static void
+test_metal_bridging_by_conductivity (void)
+{
+  const struct { LaminaCategory category; double lambda; gboolean warns; } cases[] = {
+    { LAMINA_CATEGORY_BOARD, 0.04, TRUE },
+    { LAMINA_CATEGORY_TIMBER, 0.10, TRUE },
+    { LAMINA_CATEGORY_CONCRETE, 1.15, FALSE },
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      g_autoptr(LaminaConstruction) c = test_wall ();
+      g_autoptr(LaminaResult) r = NULL;
+      LaminaLayer *layer = lamina_layer_new_bridged (100);
+
+      lamina_layer_add_part (layer, lamina_part_new (test_material ("fill", cases[i].category, cases[i].lambda), NAN));
+      lamina_layer_add_part (layer, lamina_part_new_framing (test_material ("steel", LAMINA_CATEGORY_OTHER, 17),
+                                                             40, 600, "stud"));
+      lamina_construction_add_layer (c, test_layer (12.5, "plasterboard", LAMINA_CATEGORY_BOARD, 0.25));
+      lamina_construction_add_layer (c, layer);
+      r = calc_ok (c);
+      g_assert_cmpint (lamina_result_has_warning (r, LAMINA_WARNING_METAL_BRIDGED_INSULATION), ==, cases[i].warns);
+    }
+}
+
 /* Invariants over many generated build-ups (EN ISO 6946:2017 6.7.2):
  * R'T ≥ R''T (parallel paths never conduct less than the isothermal
  * planes allow) and e ≥ 0.  A generated pattern whose member "m0" or
@@ -300,6 +331,7 @@ main (int    argc,
   g_test_add_func ("/core/bridged/member-pattern", test_member_pattern);
   g_test_add_func ("/core/bridged/air-part", test_air_part);
   g_test_add_func ("/core/bridged/metal-bridging-warns", test_metal_bridging_warns);
+  g_test_add_func ("/core/bridged/metal-bridging-by-conductivity", test_metal_bridging_by_conductivity);
   g_test_add_func ("/core/bridged/limits-invariant", test_limits_invariant);
   g_test_add_func ("/core/bridged/single-part-is-homogeneous", test_single_part_is_homogeneous);
   g_test_add_func ("/core/bridged/member-mismatch", test_member_mismatch);

@@ -238,6 +238,62 @@ test_fasteners (void)
   lamina_result_free (r);
 }
 
+/* Annex F.3 (EN ISO 6946:2017): R1 and RT,h ignore thermal bridging.  The
+ * same warm deck with the PIR bridged by timber battens (λ 0.13, EN ISO
+ * 10456 Table 3) 50 mm wide at 600 mm: the path through the main part
+ * (the PIR, 11/12 of the area) gives R1 = 0.16/0.022 = 7.272727 and
+ * RT,h = 0.10 + 0.086957 + 7.272727 + 0.04 = 7.499684, so ΔUf is the
+ * unbridged deck's 0.017731 W/(m²·K).  With the bridged R and RT it would
+ * be 0.8·50·12.57e-6·6/0.16·(Rbridged/RT)², smaller. */
+static void
+test_fasteners_ignore_bridging (void)
+{
+  g_autoptr(LaminaConstruction) c = warm_deck ();
+  LaminaLayer *bridged = lamina_layer_new_bridged (160);
+  g_autoptr(LaminaResult) r = NULL;
+
+  lamina_layer_add_part (bridged, lamina_part_new (test_material ("pir", LAMINA_CATEGORY_INSULATION, 0.022), NAN));
+  lamina_layer_add_part (bridged, lamina_part_new_framing (test_material ("batten", LAMINA_CATEGORY_TIMBER, 0.13),
+                                                           50, 600, "batten"));
+  bridged->corrections.has_fasteners = TRUE;
+  bridged->corrections.fastener_conductivity = 50;
+  bridged->corrections.fastener_cross_section = 12.57;
+  bridged->corrections.fasteners_per_square_metre = 6;
+  g_ptr_array_remove_index (c->layers, 1);
+  g_ptr_array_insert (c->layers, 1, bridged);
+  r = calc_ok (c);
+  assert_close (r->delta_u_fasteners, 0.017731, 1e-4);
+  assert_close (r->delta_u_fasteners,
+                0.8 * 50 * 12.57e-6 * 6 / 0.16 * pow ((0.16 / 0.022) / (0.10 + 0.2 / 2.3 + 0.16 / 0.022 + 0.04), 2),
+                1e-9);
+}
+
+/* Annex F.3 (EN ISO 6946:2017): wall ties across an empty cavity need no
+ * correction, since they bridge an air layer only.  Brick 102.5 mm
+ * (λ 0.77), a 50 mm unventilated cavity with stainless ties (λ 17,
+ * EN ISO 10456 Table 3; 2.5 per m², 12.57 mm²), mineral wool 100 mm,
+ * block 100 mm (λ 0.19). */
+static void
+test_ties_across_empty_cavity (void)
+{
+  g_autoptr(LaminaConstruction) c = test_wall ();
+  g_autoptr(LaminaResult) r = NULL;
+  LaminaLayer *cavity = lamina_layer_new_air (50, LAMINA_AIR_UNVENTILATED);
+
+  cavity->corrections.has_fasteners = TRUE;
+  cavity->corrections.fastener_conductivity = 17;
+  cavity->corrections.fastener_cross_section = 12.57;
+  cavity->corrections.fasteners_per_square_metre = 2.5;
+  lamina_construction_add_layer (c, test_layer (100, "block", LAMINA_CATEGORY_MASONRY, 0.19));
+  lamina_construction_add_layer (c, test_layer (100, "mw", LAMINA_CATEGORY_INSULATION, 0.035));
+  lamina_construction_add_layer (c, cavity);
+  lamina_construction_add_layer (c, test_layer (102.5, "brick", LAMINA_CATEGORY_MASONRY, 0.77));
+  r = calc_ok (c);
+  g_assert_cmpfloat (r->delta_u_fasteners, ==, 0.0);
+  g_assert_cmpfloat (r->u_corrected, ==, r->u);
+  g_assert_true (lamina_result_has_warning (r, LAMINA_WARNING_FASTENER_LOW_CONDUCTIVITY));
+}
+
 /* Annex F.4: ΔUr = p f x (R1/RT)², x = 0.04; p = 2 mm/day, f = 0.5. */
 static void
 test_inverted_roof (void)
@@ -328,6 +384,41 @@ test_u_falls_with_insulation (void)
     }
 }
 
+/* A U that misses its target by less than the reported rounding is said
+ * with the digits that show it (a U is reported to two significant
+ * figures: common practice, e.g. national guidance restating EN ISO
+ * 6946), never "0.18 does not meet 0.18". */
+static void
+test_target_miss_digits (void)
+{
+  char text[LAMINA_U_TEXT_SIZE];
+  g_autoptr(LaminaConstruction) c = homogeneous_wall (100);
+  LaminaResult *r;
+  g_autofree char *expect = NULL;
+  double u;
+
+  g_assert_cmpstr (lamina_format_u_against (text, 0.18012, 0.18), ==, "0.1801");
+  g_assert_cmpstr (lamina_format_u_against (text, 0.17996, 0.18), ==, "0.17996");
+  g_assert_cmpstr (lamina_format_u_against (text, 0.2, 0.18), ==, "0.20");
+  g_assert_cmpstr (lamina_format_u_against (text, 0.25, 0.18), ==, "0.25");
+
+  r = calc_ok (c);
+  u = r->u_corrected;
+  lamina_result_free (r);
+  /* A target 0.01 % under U: two figures would show U equal to it. */
+  c->target_u = lamina_round_significant (u * 0.9999, 2) == lamina_round_significant (u, 2)
+                ? lamina_round_significant (u, 2) : u * 0.9999;
+  if (c->target_u >= u)
+    c->target_u = u * 0.9999;
+  r = calc_ok (c);
+  g_assert_false (r->target_met);
+  expect = g_strdup_printf ("U %s exceeds the target %g W/(m²·K).",
+                            lamina_format_u_against (text, u, c->target_u), c->target_u);
+  g_assert_cmpstr (((LaminaWarning *) r->warnings->pdata[r->warnings->len - 1])->message, ==, expect);
+  g_assert_cmpuint (strlen (text), >, 4);
+  lamina_result_free (r);
+}
+
 static void
 test_target (void)
 {
@@ -374,6 +465,9 @@ main (int    argc,
   g_test_add_func ("/core/air/vent-area-classes", test_vent_area_classes);
   g_test_add_func ("/core/corrections/air-gaps", test_air_gaps);
   g_test_add_func ("/core/corrections/fasteners", test_fasteners);
+  g_test_add_func ("/core/target/miss-digits", test_target_miss_digits);
+  g_test_add_func ("/core/corrections/fasteners-ignore-bridging", test_fasteners_ignore_bridging);
+  g_test_add_func ("/core/corrections/ties-across-empty-cavity", test_ties_across_empty_cavity);
   g_test_add_func ("/core/corrections/inverted-roof", test_inverted_roof);
   g_test_add_func ("/core/corrections/small-noted", test_small_correction_noted);
   g_test_add_func ("/core/calc/temperatures", test_temperatures);
