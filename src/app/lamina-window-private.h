@@ -24,6 +24,7 @@ struct _LaminaWindow
   GtkEntry               *max_u_entry;
   GtkListView            *list_view;
   GtkLabel               *count_label;
+  GtkFlowBox             *filter_chips;
   GtkStack               *main_stack;
   LaminaEditor           *editor;
   GtkRevealer            *toast_revealer;

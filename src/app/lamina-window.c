@@ -224,6 +224,14 @@ on_selection_changed_cb (LaminaWindow *self)
     lamina_window_notify (self, error->message);
 }
 
+static gboolean
+is_filtered (const LaminaLibraryQuery *q)
+{
+  return (q->text != NULL && !lamina_text_is_blank (q->text)) || q->element >= 0 || q->status >= 0
+         || q->tag != NULL || !isnan (q->min_u) || !isnan (q->max_u) || !isnan (q->min_thickness)
+         || !isnan (q->max_thickness) || q->material_changed_only;
+}
+
 /* The number of rows, or why the library could not be read (a busy or
  * damaged file, a closed library): an empty list must not pass for an
  * empty result. */
@@ -243,7 +251,19 @@ update_count (LaminaWindow *self)
     }
   else
     {
-      text = g_strdup_printf (g_dngettext (NULL, "%u construction", "%u constructions", n), n);
+      LaminaLibraryQuery q, all;
+      gint64 total = -1;
+
+      lamina_construction_list_get_query (self->list, &q);
+      lamina_library_query_init (&all);
+      if (is_filtered (&q))
+        total = lamina_library_count (self->library, &all, NULL);
+      /* "4 of 20 constructions" while a filter narrows the list. */
+      if (total >= 0)
+        text = g_strdup_printf (g_dngettext (NULL, "%u of %u construction", "%u of %u constructions", (gulong) total),
+                                n, (guint) total);
+      else
+        text = g_strdup_printf (g_dngettext (NULL, "%u construction", "%u constructions", n), n);
       gtk_widget_remove_css_class (GTK_WIDGET (self->count_label), "lamina-error");
       gtk_widget_add_css_class (GTK_WIDGET (self->count_label), "dim-label");
     }
@@ -317,6 +337,73 @@ read_u_bound (GtkEntry *entry,
 }
 
 static void
+on_chip_clicked_cb (GtkButton    *chip,
+                    LaminaWindow *self)
+{
+  const char *which = g_object_get_data (G_OBJECT (chip), "lamina-filter");
+
+  if (g_strcmp0 (which, "u") == 0)
+    {
+      gtk_editable_set_text (GTK_EDITABLE (self->min_u_entry), "");
+      gtk_editable_set_text (GTK_EDITABLE (self->max_u_entry), "");
+    }
+  else if (g_strcmp0 (which, "tag") == 0)
+    gtk_drop_down_set_selected (self->tag_filter, 0);
+}
+
+static void
+add_chip (LaminaWindow *self,
+          const char   *which,
+          const char   *text)
+{
+  GtkWidget *chip = gtk_button_new ();
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 4);
+  g_autofree char *tooltip = g_strdup_printf (_("Remove the filter “%s”"), text);
+
+  gtk_box_append (GTK_BOX (box), gtk_label_new (text));
+  gtk_box_append (GTK_BOX (box), gtk_image_new_from_icon_name ("window-close-symbolic"));
+  gtk_button_set_child (GTK_BUTTON (chip), box);
+  gtk_widget_set_tooltip_text (chip, tooltip);
+  gtk_widget_add_css_class (chip, "lamina-filter-chip");
+  gtk_widget_add_css_class (chip, "pill");
+  g_object_set_data_full (G_OBJECT (chip), "lamina-filter", g_strdup (which), g_free);
+  g_signal_connect_object (chip, "clicked", G_CALLBACK (on_chip_clicked_cb), self, 0);
+  gtk_flow_box_append (self->filter_chips, chip);
+}
+
+/* The filters that the dropdowns do not show themselves, as chips that
+ * say what narrows the list and remove it with one click. */
+static void
+update_chips (LaminaWindow *self,
+              double        min_u,
+              double        max_u)
+{
+  guint tag = gtk_drop_down_get_selected (self->tag_filter);
+  GtkWidget *child;
+
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->filter_chips))) != NULL)
+    gtk_flow_box_remove (self->filter_chips, child);
+  if (!isnan (min_u) || !isnan (max_u))
+    {
+      g_autofree char *lo = isnan (min_u) ? NULL : lamina_text_number (min_u, 2);
+      g_autofree char *hi = isnan (max_u) ? NULL : lamina_text_number (max_u, 2);
+      g_autofree char *text = lo && hi ? g_strdup_printf (_("U %s to %s W/(m²·K)"), lo, hi)
+                              : lo ? g_strdup_printf (_("U ≥ %s W/(m²·K)"), lo)
+                              : g_strdup_printf (_("U ≤ %s W/(m²·K)"), hi);
+
+      add_chip (self, "u", text);
+    }
+  if (tag > 0 && tag != GTK_INVALID_LIST_POSITION && self->tags != NULL && tag <= self->tags->len)
+    {
+      g_autofree char *text = g_strdup_printf (_("Tag: %s"), (const char *) g_ptr_array_index (self->tags, tag - 1));
+
+      add_chip (self, "tag", text);
+    }
+  gtk_widget_set_visible (GTK_WIDGET (self->filter_chips),
+                          gtk_widget_get_first_child (GTK_WIDGET (self->filter_chips)) != NULL);
+}
+
+static void
 on_filters_changed_cb (LaminaWindow *self)
 {
   guint element = gtk_drop_down_get_selected (self->element_filter);
@@ -340,6 +427,7 @@ on_filters_changed_cb (LaminaWindow *self)
   lamina_construction_list_set_sort (self->list, sorts[MIN (sort, G_N_ELEMENTS (sorts) - 1)],
                                      sort == 4 /* newest first */);
   self->selecting = FALSE;
+  update_chips (self, min_u, max_u);
   sync_selection (self);
 }
 
@@ -579,6 +667,7 @@ lamina_window_class_init (LaminaWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, max_u_entry);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, list_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, count_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, filter_chips);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, main_stack);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, editor);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_revealer);

@@ -272,6 +272,37 @@ test_search_narrows (Fixture       *f,
   g_assert_cmpstr (gtk_label_get_text (f->window->count_label), ==, "20 constructions");
 }
 
+static void
+test_u_filter_chip (Fixture       *f,
+                    gconstpointer  data)
+{
+  LaminaWindow *w = f->window;
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (w));
+  g_autofree char *expected = NULL;
+  GtkWidget *chip;
+  guint some;
+
+  /* The U range is a filter of its own, with its unit beside it; when set
+   * it shows as a chip, and the count says how many of how many. */
+  g_assert_cmpstr (gtk_label_get_text (w->count_label), ==, "20 constructions");
+  g_assert_false (gtk_widget_get_visible (GTK_WIDGET (w->filter_chips)));
+  gtk_editable_set_text (GTK_EDITABLE (w->max_u_entry), "0.18");
+  some = g_list_model_get_n_items (list);
+  g_assert_cmpuint (some, >, 0);
+  g_assert_cmpuint (some, <, 20);
+  expected = g_strdup_printf ("%u of 20 constructions", some);
+  g_assert_cmpstr (gtk_label_get_text (w->count_label), ==, expected);
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (w->filter_chips)));
+  chip = gtk_flow_box_child_get_child (GTK_FLOW_BOX_CHILD (gtk_widget_get_first_child (GTK_WIDGET (w->filter_chips))));
+  g_assert_true (GTK_IS_BUTTON (chip));
+  g_assert_cmpstr (gtk_widget_get_tooltip_text (chip), ==, "Remove the filter “U ≤ 0.18 W/(m²·K)”");
+  /* One click on the chip removes the filter. */
+  g_signal_emit_by_name (chip, "clicked");
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, 20);
+  g_assert_cmpstr (gtk_label_get_text (w->count_label), ==, "20 constructions");
+  g_assert_false (gtk_widget_get_visible (GTK_WIDGET (w->filter_chips)));
+}
+
 /* A library that cannot be read is said so where the count stands, not
  * shown as an empty list. */
 static void
@@ -1031,6 +1062,7 @@ main (int   argc,
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
       g_test_add ("/app/window/tags-on-first-use", Fixture, NULL, fixture_setup, test_tags_on_first_use, fixture_teardown);
       g_test_add ("/app/window/close-keys", Fixture, NULL, fixture_setup, test_close_keys, fixture_teardown);
+      g_test_add ("/app/window/u-filter-chip", Fixture, NULL, fixture_setup, test_u_filter_chip, fixture_teardown);
     }
   return g_test_run ();
 }
