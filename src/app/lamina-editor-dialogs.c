@@ -193,17 +193,56 @@ form_get_number (Form               *form,
   return FALSE;
 }
 
+static void
+setup_material_row_cb (GtkSignalListItemFactory *factory,
+                       GtkListItem              *item)
+{
+  GtkWidget *label = gtk_label_new (NULL);
+
+  gtk_label_set_xalign (GTK_LABEL (label), 0);
+  gtk_label_set_ellipsize (GTK_LABEL (label), PANGO_ELLIPSIZE_END);
+  gtk_list_item_set_child (item, label);
+}
+
+static void
+bind_material_row_cb (GtkSignalListItemFactory *factory,
+                      GtkListItem              *item)
+{
+  GtkStringObject *text = gtk_list_item_get_item (item);
+  GtkWidget *label = gtk_list_item_get_child (item);
+
+  gtk_label_set_text (GTK_LABEL (label), gtk_string_object_get_string (text));
+  gtk_widget_set_tooltip_text (label, gtk_string_object_get_string (text));
+}
+
+static void
+on_material_search_changed_cb (GtkSearchEntry  *entry,
+                               GtkStringFilter *filter)
+{
+  gtk_string_filter_set_search (filter, gtk_editable_get_text (GTK_EDITABLE (entry)));
+}
+
+/* A list that filters as one types, by any part of a word ("fibre" finds
+ * "Wood-fibre"), at a fixed height so that the form and its buttons keep
+ * still while it filters; the layer's own material comes selected. */
 static GtkWidget *
 form_add_materials (Form           *form,
                     const char     *name,
                     const char     *label,
-                    LaminaCategory  prefer)
+                    LaminaCategory  prefer,
+                    const char     *current_id)
 {
   LaminaLibrary *library = lamina_document_get_library (lamina_editor_get_document (form->editor));
-  g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
-  GtkExpression *expression;
-  GtkWidget *dropdown;
-  guint preferred = 0;
+  GtkStringList *names = gtk_string_list_new (NULL);
+  GtkStringFilter *filter;
+  GtkFilterListModel *filtered;
+  GtkSingleSelection *selection;
+  GtkListItemFactory *factory = gtk_signal_list_item_factory_new ();
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
+  GtkWidget *search = gtk_search_entry_new ();
+  GtkWidget *scroller = gtk_scrolled_window_new ();
+  GtkWidget *list;
+  guint preferred = GTK_INVALID_LIST_POSITION, current = GTK_INVALID_LIST_POSITION;
 
   form->materials = lamina_library_list_materials (library, NULL);
   if (form->materials == NULL)
@@ -213,32 +252,60 @@ form_add_materials (Form           *form,
       const LaminaMaterial *material = g_ptr_array_index (form->materials, i);
       g_autofree char *lambda = lamina_text_number (material->conductivity, 3);
       g_autofree char *text = g_strdup_printf ("%s (λ %s)", material->name, lambda);
+      g_autoptr(GObject) item = NULL;
 
       gtk_string_list_append (names, text);
-      if (material->category == prefer && preferred == 0)
+      item = g_list_model_get_item (G_LIST_MODEL (names), i);
+      g_object_set_data (item, "lamina-index", GUINT_TO_POINTER (i + 1));
+      if (material->category == prefer && preferred == GTK_INVALID_LIST_POSITION)
         preferred = i;
+      if (current_id != NULL && g_strcmp0 (material->id, current_id) == 0)
+        current = i;
     }
-  dropdown = gtk_drop_down_new (G_LIST_MODEL (g_steal_pointer (&names)), NULL);
-  gtk_drop_down_set_enable_search (GTK_DROP_DOWN (dropdown), TRUE);
-  /* set_expression takes its own reference: ours is dropped here. */
-  expression = gtk_property_expression_new (GTK_TYPE_STRING_OBJECT, NULL, "string");
-  gtk_drop_down_set_expression (GTK_DROP_DOWN (dropdown), expression);
-  gtk_expression_unref (expression);
-  gtk_drop_down_set_selected (GTK_DROP_DOWN (dropdown), preferred);
-  form_add (form, name, label, dropdown);
-  return dropdown;
+  filter = gtk_string_filter_new (gtk_property_expression_new (GTK_TYPE_STRING_OBJECT, NULL, "string"));
+  gtk_string_filter_set_match_mode (filter, GTK_STRING_FILTER_MATCH_MODE_SUBSTRING);
+  gtk_string_filter_set_ignore_case (filter, TRUE);
+  filtered = gtk_filter_list_model_new (G_LIST_MODEL (names), GTK_FILTER (filter));
+  selection = gtk_single_selection_new (G_LIST_MODEL (filtered));
+  g_signal_connect (factory, "setup", G_CALLBACK (setup_material_row_cb), NULL);
+  g_signal_connect (factory, "bind", G_CALLBACK (bind_material_row_cb), NULL);
+  list = gtk_list_view_new (GTK_SELECTION_MODEL (selection), factory);
+  gtk_single_selection_set_selected (selection, current != GTK_INVALID_LIST_POSITION ? current
+                                                : preferred != GTK_INVALID_LIST_POSITION ? preferred : 0);
+
+  g_object_set (search, "placeholder-text", _("Search by any part of the name"), NULL);
+  g_signal_connect_object (search, "search-changed", G_CALLBACK (on_material_search_changed_cb), filter, 0);
+  g_signal_connect_swapped (search, "activate", G_CALLBACK (on_apply_clicked_cb), form);
+  g_signal_connect_swapped (list, "activate", G_CALLBACK (on_apply_clicked_cb), form);
+  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (scroller), list);
+  gtk_scrolled_window_set_policy (GTK_SCROLLED_WINDOW (scroller), GTK_POLICY_NEVER, GTK_POLICY_AUTOMATIC);
+  gtk_widget_set_size_request (scroller, 380, 240);
+  gtk_widget_add_css_class (scroller, "frame");
+  gtk_box_append (GTK_BOX (box), search);
+  gtk_box_append (GTK_BOX (box), scroller);
+  g_object_set_data (G_OBJECT (box), "lamina-selection", selection); /* owned by the list */
+  g_object_set_data (G_OBJECT (box), "lamina-search", search);
+  gtk_accessible_update_property (GTK_ACCESSIBLE (list), GTK_ACCESSIBLE_PROPERTY_LABEL, _("Materials"), -1);
+  form_add (form, name, label, box);
+  /* The selected material in view once the list has its size. */
+  if (gtk_single_selection_get_selected (selection) != GTK_INVALID_LIST_POSITION)
+    gtk_widget_activate_action (list, "list.scroll-to-item", "u", gtk_single_selection_get_selected (selection));
+  gtk_widget_grab_focus (search);
+  return box;
 }
 
 static const LaminaMaterial *
 form_get_material (Form       *form,
                    const char *name)
 {
-  GtkDropDown *dropdown = g_hash_table_lookup (form->fields, name);
-  guint selected = gtk_drop_down_get_selected (dropdown);
+  GtkWidget *box = g_hash_table_lookup (form->fields, name);
+  GtkSingleSelection *selection = g_object_get_data (G_OBJECT (box), "lamina-selection");
+  GObject *item = gtk_single_selection_get_selected_item (selection);
+  guint index = item ? GPOINTER_TO_UINT (g_object_get_data (item, "lamina-index")) : 0;
 
-  if (form->materials == NULL || selected >= form->materials->len)
+  if (form->materials == NULL || index == 0 || index > form->materials->len)
     return NULL;
-  return g_ptr_array_index (form->materials, selected);
+  return g_ptr_array_index (form->materials, index - 1);
 }
 
 static gboolean
@@ -292,8 +359,11 @@ lamina_editor_choose_material (LaminaEditor *self,
 {
   Form *form = form_new (self, insert ? _("Add Layer") : _("Layer Material"), apply_material);
 
+  const LaminaLayer *layer = insert ? NULL : form_current_layer (form);
+  const LaminaMaterial *current = layer && layer->kind == LAMINA_LAYER_MATERIAL ? layer->material : NULL;
+
   form->insert = insert;
-  form_add_materials (form, "material", _("_Material"), LAMINA_CATEGORY_INSULATION);
+  form_add_materials (form, "material", _("_Material"), LAMINA_CATEGORY_INSULATION, current ? current->id : NULL);
   if (insert)
     form_add_number (form, "thickness", _("_Thickness (mm)"), 50, 0);
   gtk_window_present (form->window);
@@ -324,7 +394,7 @@ lamina_editor_edit_bridged (LaminaEditor *self)
 {
   Form *form = form_new (self, _("Bridged Layer"), apply_bridged);
 
-  form_add_materials (form, "framing", _("_Framing member"), LAMINA_CATEGORY_TIMBER);
+  form_add_materials (form, "framing", _("_Framing member"), LAMINA_CATEGORY_TIMBER, NULL);
   form_add_number (form, "width", _("_Width (mm)"), 45, 0);
   form_add_number (form, "spacing", _("_Spacing, centres (mm)"), 600, 0);
   gtk_window_present (form->window);

@@ -272,6 +272,102 @@ test_search_narrows (Fixture       *f,
   g_assert_cmpstr (gtk_label_get_text (f->window->count_label), ==, "20 constructions");
 }
 
+static GtkWidget *
+find_widget_of_type (GtkWidget *widget,
+                     GType      type)
+{
+  if (G_TYPE_CHECK_INSTANCE_TYPE (widget, type))
+    return widget;
+  for (GtkWidget *child = gtk_widget_get_first_child (widget); child; child = gtk_widget_get_next_sibling (child))
+    {
+      GtkWidget *found = find_widget_of_type (child, type);
+      if (found)
+        return found;
+    }
+  return NULL;
+}
+
+static GtkWindow *
+find_other_window (Fixture *f)
+{
+  GListModel *toplevels = gtk_window_get_toplevels ();
+
+  for (guint i = 0; i < g_list_model_get_n_items (toplevels); i++)
+    {
+      g_autoptr(GtkWindow) window = g_list_model_get_item (toplevels, i);
+
+      if (window != GTK_WINDOW (f->window) && gtk_widget_get_visible (GTK_WIDGET (window)))
+        return window;
+    }
+  return NULL;
+}
+
+static void
+test_material_chooser (Fixture       *f,
+                       gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  const LaminaMaterial *current;
+  GtkWindow *chooser;
+  GtkWidget *search, *list, *apply;
+  GtkSingleSelection *selection;
+  GListModel *shown;
+  graphene_rect_t before, after;
+  guint index = 0, n;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  lamina_section_view_set_selected (lamina_editor_get_section_view (editor), (int) index);
+  current = ((LaminaLayer *) open_state (f)->layers->pdata[index])->material;
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (editor), "editor.choose-material", NULL));
+  chooser = find_other_window (f);
+  g_assert_nonnull (chooser);
+  wait_for_draw (GTK_WIDGET (chooser));
+  search = find_widget_of_type (GTK_WIDGET (chooser), GTK_TYPE_SEARCH_ENTRY);
+  list = find_widget_of_type (GTK_WIDGET (chooser), GTK_TYPE_LIST_VIEW);
+  g_assert_nonnull (search);
+  g_assert_nonnull (list);
+  selection = GTK_SINGLE_SELECTION (gtk_list_view_get_model (GTK_LIST_VIEW (list)));
+  shown = gtk_single_selection_get_model (selection);
+
+  /* The layer's own material comes selected. */
+  g_assert_true (g_str_has_prefix (gtk_string_object_get_string (gtk_single_selection_get_selected_item (selection)),
+                                   current->name));
+  apply = gtk_window_get_default_widget (chooser);
+  g_assert_true (gtk_widget_compute_bounds (apply, GTK_WIDGET (chooser), &before));
+
+  /* Inside words: "fibre" finds the wood-fibre boards of the demo. */
+  gtk_editable_set_text (GTK_EDITABLE (search), "fibre");
+  g_signal_emit_by_name (search, "search-changed");
+  n = g_list_model_get_n_items (shown);
+  g_assert_cmpuint (n, >, 0);
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr(GtkStringObject) item = g_list_model_get_item (shown, i);
+      g_autofree char *folded = g_utf8_casefold (gtk_string_object_get_string (item), -1);
+
+      g_assert_nonnull (strstr (folded, "fibre"));
+    }
+  {
+    gboolean wood = FALSE;
+
+    for (guint i = 0; i < n; i++)
+      {
+        g_autoptr(GtkStringObject) item = g_list_model_get_item (shown, i);
+        wood |= g_str_has_prefix (gtk_string_object_get_string (item), "Wood-fibre");
+      }
+    g_assert_true (wood);
+  }
+  /* The buttons keep still while the list filters. */
+  wait_for_draw (GTK_WIDGET (chooser));
+  g_assert_true (gtk_widget_compute_bounds (apply, GTK_WIDGET (chooser), &after));
+  g_assert_cmpfloat (after.origin.x, ==, before.origin.x);
+  g_assert_cmpfloat (after.origin.y, ==, before.origin.y);
+  gtk_window_destroy (chooser);
+}
+
 static void
 test_u_filter_chip (Fixture       *f,
                     gconstpointer  data)
@@ -1063,6 +1159,7 @@ main (int   argc,
       g_test_add ("/app/window/tags-on-first-use", Fixture, NULL, fixture_setup, test_tags_on_first_use, fixture_teardown);
       g_test_add ("/app/window/close-keys", Fixture, NULL, fixture_setup, test_close_keys, fixture_teardown);
       g_test_add ("/app/window/u-filter-chip", Fixture, NULL, fixture_setup, test_u_filter_chip, fixture_teardown);
+      g_test_add ("/app/window/material-chooser", Fixture, NULL, fixture_setup, test_material_chooser, fixture_teardown);
     }
   return g_test_run ();
 }
