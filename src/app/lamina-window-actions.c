@@ -7,6 +7,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-derive-dialog.h"
 #include "lamina-demo.h"
 #include "lamina-history-window.h"
 #include "lamina-materials-window.h"
@@ -206,6 +207,23 @@ new_construction_action (GtkWidget  *widget,
 }
 
 static void
+on_derived_cb (GtkWindow  *parent,
+               const char *id,
+               GError     *error)
+{
+  LaminaWindow *self = LAMINA_WINDOW (parent);
+  g_autoptr(GError) open_error = NULL;
+
+  if (id == NULL || !lamina_window_open (self, id, &open_error))
+    {
+      lamina_window_notify (self, error ? error->message : open_error->message);
+      return;
+    }
+  lamina_window_refresh_list (self);
+  lamina_window_notify (self, _("Derived a new draft: give it a code and a name for the new job"));
+}
+
+static void
 derive_action (GtkWidget  *widget,
                const char *name,
                GVariant   *parameter)
@@ -213,20 +231,12 @@ derive_action (GtkWidget  *widget,
   LaminaWindow *self = LAMINA_WINDOW (widget);
   g_autoptr(GError) error = NULL;
   g_autofree char *reviewer = dup_reviewer (self);
-  g_autofree char *id = NULL;
 
   if (self->document == NULL)
     return;
   lamina_document_commit (self->document, NULL);
-  id = lamina_library_derive_construction (self->library, lamina_document_get_id (self->document),
-                                           reviewer, &error);
-  if (id == NULL || !lamina_window_open (self, id, &error))
-    {
-      lamina_window_notify (self, error->message);
-      return;
-    }
-  lamina_window_refresh_list (self);
-  lamina_window_notify (self, _("Derived a new draft: give it a code and a name for the new job"));
+  lamina_derive_dialog_present (GTK_WINDOW (self), self->library, lamina_document_get_construction (self->document),
+                                reviewer, on_derived_cb);
 }
 
 static void

@@ -161,19 +161,40 @@ lamina_library_derive_construction (LaminaLibrary  *self,
                                     const char     *author,
                                     GError        **error)
 {
+  return lamina_library_derive_for_job (self, id, TRUE, TRUE, NULL, author, error);
+}
+
+char *
+lamina_library_derive_for_job (LaminaLibrary      *self,
+                               const char         *id,
+                               gboolean            keep_description,
+                               gboolean            keep_notes,
+                               const char * const *tags,
+                               const char         *author,
+                               GError            **error)
+{
   g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, 0, error);
   g_autofree char *comment = NULL;
   g_autofree char *name = NULL;
 
   if (c == NULL)
     return NULL;
-  comment = g_strdup_printf ("derived from %s revision %d", id, c->revision);
+  comment = g_strdup_printf ("derived from %s revision %d", c->code ? c->code : id, c->revision);
   name = g_strdup_printf (_("%s (copy)"), c->name);
   g_free (c->name);
   c->name = g_steal_pointer (&name);
   g_clear_pointer (&c->code, g_free);
   g_free (c->id);
   c->id = g_uuid_string_random ();
+  /* The old job's words do not belong to the new one unless asked for. */
+  if (!keep_description)
+    g_clear_pointer (&c->description, g_free);
+  if (!keep_notes)
+    g_clear_pointer (&c->notes, g_free);
+  if (tags != NULL)
+    for (guint i = c->tags->len; i-- > 0;)
+      if (!g_strv_contains (tags, c->tags->pdata[i]))
+        g_ptr_array_remove_index (c->tags, i);
   lamina_library_set_new_draft (c, 1, author);
   if (!store (self, c, 0, comment, error))
     return NULL;

@@ -129,22 +129,22 @@ merge_construction (LaminaLibrary             *self,
     }
   if (head != NULL && lamina_construction_equal_content (head, imported))
     {
-      g_autofree char *label = dup_label (head);
+      g_autofree char *head_label = dup_label (head);
 
       report->n_skipped++;
       add_item (report, LAMINA_IMPORT_SKIPPED, FALSE, head->id, head->name, head->revision,
-                g_strdup_printf (_("%s: unchanged, the same as revision %d"), label, head->revision));
+                g_strdup_printf (_("%s: unchanged, the same as revision %d"), head_label, head->revision));
       return TRUE;
     }
   if (head != NULL && head->status == LAMINA_STATUS_APPROVED
       && !(flags & LAMINA_IMPORT_REVISE_APPROVED))
     {
-      g_autofree char *label = dup_label (head);
+      g_autofree char *head_label = dup_label (head);
 
       report->n_conflicts++;
       add_item (report, LAMINA_IMPORT_CONFLICT, FALSE, head->id, head->name, head->revision,
                 g_strdup_printf (_("%s: differs from approved revision %d; not applied"),
-                                 label, head->revision));
+                                 head_label, head->revision));
       return TRUE;
     }
 

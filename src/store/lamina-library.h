@@ -143,6 +143,15 @@ char          *lamina_library_derive_construction (LaminaLibrary *self,
                                                    const char    *id,
                                                    const char    *author,
                                                    GError       **error);
+/* The same for a new job, keeping what the user chose: the description
+ * and the notes or not, and only the @tags listed (NULL keeps them all). */
+char          *lamina_library_derive_for_job      (LaminaLibrary      *self,
+                                                   const char         *id,
+                                                   gboolean            keep_description,
+                                                   gboolean            keep_notes,
+                                                   const char * const *tags,
+                                                   const char         *author,
+                                                   GError            **error);
 /* Deleting hides a construction and keeps its history; restoring brings
  * it back as it was (the window's undo). */
 gboolean       lamina_library_delete_construction  (LaminaLibrary *self,

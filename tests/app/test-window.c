@@ -14,6 +14,7 @@
 
 #include "lamina-application.h"
 #include "lamina-demo.h"
+#include "lamina-derive-dialog.h"
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
 #include "lamina-close-keys.h"
@@ -521,8 +522,28 @@ test_derive_delete_undo (Fixture       *f,
   g_assert_true (lamina_window_open (f->window, lamina_construction_item_get_id (item), &error));
   original = lamina_construction_copy (open_state (f));
 
-  /* Derive: a new draft with the same build-up, opened in the editor. */
+  /* Derive: asked what to keep; by default the old job's description and
+   * notes stay behind and the tags come along; one tag is unticked. */
+  g_assert_cmpuint (original->tags->len, >=, 2);
+  g_assert_nonnull (original->description);
   gtk_widget_activate_action (GTK_WIDGET (f->window), "win.derive", NULL);
+  {
+    GtkWindow *dialog = find_other_window (f);
+    const char *dropped = original->tags->pdata[0];
+
+    g_assert_nonnull (dialog);
+    g_assert_false (gtk_check_button_get_active (lamina_derive_dialog_get_check (dialog, "description")));
+    g_assert_false (gtk_check_button_get_active (lamina_derive_dialog_get_check (dialog, "notes")));
+    for (guint i = 0; i < original->tags->len; i++)
+      g_assert_true (gtk_check_button_get_active (lamina_derive_dialog_get_check (dialog, original->tags->pdata[i])));
+    gtk_check_button_set_active (lamina_derive_dialog_get_check (dialog, dropped), FALSE);
+    lamina_derive_dialog_accept (dialog);
+    g_assert_null (open_state (f)->description);
+    g_assert_null (open_state (f)->notes);
+    g_assert_cmpuint (open_state (f)->tags->len, ==, original->tags->len - 1);
+    for (guint i = 0; i < open_state (f)->tags->len; i++)
+      g_assert_cmpstr (open_state (f)->tags->pdata[i], !=, dropped);
+  }
   g_assert_cmpuint (g_list_model_get_n_items (list), ==, n + 1);
   derived_id = g_strdup (open_state (f)->id);
   g_assert_cmpstr (derived_id, !=, original->id);
