@@ -266,7 +266,7 @@ test_search_narrows (Fixture       *f,
   /* A search that matches nothing says so (and is not an error). */
   lamina_window_set_search (f->window, "zzzqqq");
   g_assert_cmpuint (g_list_model_get_n_items (list), ==, 0);
-  g_assert_cmpstr (gtk_label_get_text (f->window->count_label), ==, "0 constructions");
+  g_assert_cmpstr (gtk_label_get_text (f->window->count_label), ==, "0 of 20 constructions");
   g_assert_false (gtk_widget_has_css_class (GTK_WIDGET (f->window->count_label), "lamina-error"));
   lamina_window_set_search (f->window, "");
   g_assert_cmpuint (g_list_model_get_n_items (list), ==, all);
