@@ -10,13 +10,15 @@
 
 G_BEGIN_DECLS
 
-GtkWindow *lamina_materials_window_present   (GtkWindow     *parent,
-                                              LaminaLibrary *library);
-/* For tests: a widget of row @index ("name", "category", "lambda",
- * "density", "heat", "mu", "emissivity", "source", "notes", "error",
- * "save"). */
-GtkWidget *lamina_materials_window_get_field (GtkWindow     *window,
-                                              guint          index,
-                                              const char    *name);
+#define LAMINA_TYPE_MATERIALS_WINDOW (lamina_materials_window_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaMaterialsWindow, lamina_materials_window, LAMINA, MATERIALS_WINDOW, GtkWindow)
+
+/* @library's materials, one LaminaMaterialRow each; transient for @parent
+ * (may be NULL). */
+LaminaMaterialsWindow *lamina_materials_window_new     (GtkWindow     *parent,
+                                                        LaminaLibrary *library);
+/* The same, presented. */
+GtkWindow             *lamina_materials_window_present (GtkWindow     *parent,
+                                                        LaminaLibrary *library);
 
 G_END_DECLS

@@ -19,7 +19,8 @@
 #include "lamina-editor-state.h"
 #include "lamina-close-keys.h"
 #include "lamina-history-window-private.h"
-#include "lamina-materials-window.h"
+#include "lamina-material-row-private.h"
+#include "lamina-materials-window-private.h"
 #include "lamina-parts-dialog.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
@@ -1005,8 +1006,8 @@ test_materials_manager (Fixture       *f,
   g_autoptr(LaminaConstructionItem) item = NULL;
   g_autofree char *id = NULL;
   const LaminaMaterial *used;
-  GtkWindow *manager;
-  GtkWidget *save;
+  LaminaMaterialsWindow *manager;
+  LaminaMaterialRow *r;
   guint index = 0, row = 0;
 
   id = find_plain_construction (f, &index);
@@ -1017,29 +1018,30 @@ test_materials_manager (Fixture       *f,
       break;
   g_assert_cmpuint (row, <, materials->len);
 
-  manager = lamina_materials_window_present (GTK_WINDOW (f->window), f->library);
-  save = lamina_materials_window_get_field (manager, row, "save");
+  manager = lamina_materials_window_new (GTK_WINDOW (f->window), f->library);
+  gtk_window_present (GTK_WINDOW (manager));
+  r = LAMINA_MATERIAL_ROW (gtk_list_box_get_row_at_index (manager->list, (int) row));
   /* A bad number is refused beside the row, naming the field. */
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "density")), "heavy");
-  g_signal_emit_by_name (save, "clicked");
-  g_assert_true (gtk_widget_get_visible (lamina_materials_window_get_field (manager, row, "error")));
-  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (lamina_materials_window_get_field (manager, row, "error"))),
+  gtk_editable_set_text (GTK_EDITABLE (r->density), "heavy");
+  g_signal_emit_by_name (r->save, "clicked");
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (r->error)));
+  g_assert_nonnull (strstr (gtk_label_get_text (r->error),
                             "density"));
   stored = lamina_library_dup_material (f->library, used->id, &error);
   g_assert_true (lamina_material_equal (stored, materials->pdata[row]));
 
   /* Every field saved: EN ISO 10456:2007 Table 3 values for dense
    * concrete, from memory (λ 1.35, ρ 2000, c 1000, μ 100 dry). */
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "lambda")), "1.35");
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "density")), "2000");
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "heat")), "1000");
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "mu")), "100");
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "emissivity")), "0.9");
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "source")), "EN ISO 10456 Table 3");
-  gtk_editable_set_text (GTK_EDITABLE (lamina_materials_window_get_field (manager, row, "notes")), "Test values");
-  gtk_drop_down_set_selected (GTK_DROP_DOWN (lamina_materials_window_get_field (manager, row, "category")),
+  gtk_editable_set_text (GTK_EDITABLE (r->lambda), "1.35");
+  gtk_editable_set_text (GTK_EDITABLE (r->density), "2000");
+  gtk_editable_set_text (GTK_EDITABLE (r->heat), "1000");
+  gtk_editable_set_text (GTK_EDITABLE (r->mu), "100");
+  gtk_editable_set_text (GTK_EDITABLE (r->emissivity), "0.9");
+  gtk_editable_set_text (GTK_EDITABLE (r->source), "EN ISO 10456 Table 3");
+  gtk_editable_set_text (GTK_EDITABLE (r->notes), "Test values");
+  gtk_drop_down_set_selected (r->category,
                               LAMINA_CATEGORY_CONCRETE);
-  g_signal_emit_by_name (save, "clicked");
+  g_signal_emit_by_name (r->save, "clicked");
   g_clear_pointer (&stored, lamina_material_free);
   stored = lamina_library_dup_material (f->library, used->id, &error);
   g_assert_no_error (error);
@@ -1063,7 +1065,7 @@ test_materials_manager (Fixture       *f,
     wait_for_draw (GTK_WIDGET (manager));
     save_png (GTK_WIDGET (manager), path);
   }
-  gtk_window_destroy (manager);
+  gtk_window_destroy (GTK_WINDOW (manager));
 }
 
 static void
