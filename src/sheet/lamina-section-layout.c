@@ -104,6 +104,22 @@ get_axes (LaminaSectionOrientation orientation,
 }
 
 double
+lamina_section_layer_drawn_thickness (const LaminaLayer *layer)
+{
+  return lamina_layer_is_tapered (layer) ? layer->thickness_max : layer->thickness;
+}
+
+static double
+get_drawn_thickness (const LaminaConstruction *construction)
+{
+  double total = 0.0;
+
+  for (guint i = 0; i < construction->layers->len; i++)
+    total += lamina_section_layer_drawn_thickness (construction->layers->pdata[i]);
+  return total;
+}
+
+double
 lamina_section_fit_scale (const LaminaConstruction *construction,
                           const LaminaSectionStyle *style,
                           double                    width,
@@ -118,7 +134,7 @@ lamina_section_fit_scale (const LaminaConstruction *construction,
   orientation = lamina_section_orientation_for (construction);
   lamina_section_get_margins (orientation, style, &m);
   get_axes (orientation, width, height, &t_extent, &s_extent);
-  thickness = lamina_construction_get_thickness (construction);
+  thickness = get_drawn_thickness (construction);
   if (!(thickness > 0))
     return 1.0;
   return MAX (t_extent - m.t_before - m.t_after, 1.0) / thickness;
@@ -166,7 +182,7 @@ lamina_section_layout_compute (LaminaSectionLayout      *layout,
   layout->width = width;
   layout->height = height;
   layout->n_layers = n;
-  layout->thickness = lamina_construction_get_thickness (construction);
+  layout->thickness = get_drawn_thickness (construction);
   layout->scale = style->scale > 0 ? style->scale
                                    : lamina_section_fit_scale (construction, style, width, height);
 
@@ -198,7 +214,7 @@ lamina_section_layout_compute (LaminaSectionLayout      *layout,
     {
       layout->edges[i] = lamina_section_layout_t_to_axis (layout, pos);
       if (i < n)
-        pos += ((LaminaLayer *) construction->layers->pdata[i])->thickness * layout->scale;
+        pos += lamina_section_layer_drawn_thickness (construction->layers->pdata[i]) * layout->scale;
     }
 }
 

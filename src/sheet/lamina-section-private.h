@@ -27,6 +27,9 @@ void   lamina_section_get_margins       (LaminaSectionOrientation   orientation,
 double lamina_section_layout_t_to_axis  (const LaminaSectionLayout *layout,
                                          double                     t);
 double lamina_section_layout_s_extent   (const LaminaSectionLayout *layout);
+/* A tapered layer (EN ISO 6946 Annex E) is laid out at its thick end, the
+ * end drawn beside the dimension chain. */
+double lamina_section_layer_drawn_thickness (const LaminaLayer  *layer);
 void   lamina_section_layout_get_matrix (const LaminaSectionLayout *layout,
                                          cairo_matrix_t            *matrix);
 

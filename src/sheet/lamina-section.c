@@ -374,6 +374,65 @@ draw_layer (LaminaSection     *self,
                      t0, 0, t1 - t0, length, unit, index * 7);
 }
 
+/* A tapered layer (Annex E) is drawn as a wedge: at its full thickness at
+ * s = 0 (beside the dimension chain), at its thin end at s = length.  The
+ * layers outside it follow its slope, a shear of the local frame. */
+static int
+find_tapered (const LaminaConstruction *construction)
+{
+  for (guint i = 0; i < construction->layers->len; i++)
+    if (lamina_layer_is_tapered (construction->layers->pdata[i]))
+      return (int) i;
+  return -1;
+}
+
+static double
+get_taper_drop (const LaminaSectionLayout *layout,
+                const LaminaConstruction  *construction,
+                int                        tapered)
+{
+  const LaminaLayer *layer;
+
+  if (tapered < 0)
+    return 0.0;
+  layer = construction->layers->pdata[tapered];
+  return (layer->thickness_max - layer->thickness) * layout->scale;
+}
+
+/* Enters the frame of layer or edge @i: sheared beyond the wedge, clipped
+ * to the wedge for the tapered layer itself (@clip). */
+static void
+push_taper_frame (cairo_t                   *cr,
+                  const LaminaSectionLayout *layout,
+                  int                        tapered,
+                  double                     drop,
+                  guint                      i,
+                  gboolean                   beyond,
+                  double                     length)
+{
+  cairo_save (cr);
+  if (tapered < 0)
+    return;
+  if (beyond && (int) i > tapered)
+    {
+      cairo_matrix_t shear;
+
+      cairo_matrix_init (&shear, 1, 0, -drop / length, 1, 0, 0);
+      cairo_transform (cr, &shear);
+    }
+  else if (!beyond && (int) i == tapered)
+    {
+      double t0 = edge_t (layout, i), t1 = edge_t (layout, i + 1);
+
+      cairo_move_to (cr, t0, 0);
+      cairo_line_to (cr, t1, 0);
+      cairo_line_to (cr, t1 - drop, length);
+      cairo_line_to (cr, t0, length);
+      cairo_close_path (cr);
+      cairo_clip (cr);
+    }
+}
+
 static void
 draw_body (LaminaSection             *self,
            cairo_t                   *cr,
@@ -385,6 +444,8 @@ draw_body (LaminaSection             *self,
   double length = lamina_section_layout_s_extent (layout);
   double total = edge_t (layout, layout->n_layers);
   double u = style->unit;
+  int tapered = find_tapered (construction);
+  double drop = get_taper_drop (layout, construction, tapered);
 
   cairo_set_source_rgb (cr, 1, 1, 1);
   cairo_rectangle (cr, 0, 0, total, length);
@@ -396,6 +457,8 @@ draw_body (LaminaSection             *self,
       const LaminaLayer *layer = construction->layers->pdata[i];
       double t0 = edge_t (layout, i), t1 = edge_t (layout, i + 1);
 
+      push_taper_frame (cr, layout, tapered, drop, i, TRUE, length);
+      push_taper_frame (cr, layout, tapered, drop, i, FALSE, length);
       draw_layer (self, cr, layer, i, t0, t1, length, layout->scale, u);
       if (result && i < result->n_layers && result->layers[i].disregarded)
         {
@@ -412,30 +475,34 @@ draw_body (LaminaSection             *self,
           cairo_rectangle (cr, t0, 0, t1 - t0, length);
           cairo_fill (cr);
         }
+      cairo_restore (cr);
+      cairo_restore (cr);
     }
 
   /* Faces: heavy at the surfaces, medium between layers; thin ends where
-   * the strip is cut. */
+   * the strip is cut.  Beyond a wedge the faces slope with it. */
   cairo_set_source_rgb (cr, 0, 0, 0);
   cairo_set_line_cap (cr, CAIRO_LINE_CAP_BUTT);
   cairo_set_line_width (cr, u * LINE);
   for (guint i = 1; i < layout->n_layers; i++)
     {
+      double shift = tapered >= 0 && (int) i > tapered ? drop : 0.0;
+
       cairo_move_to (cr, edge_t (layout, i), 0);
-      cairo_line_to (cr, edge_t (layout, i), length);
+      cairo_line_to (cr, edge_t (layout, i) - shift, length);
     }
   cairo_stroke (cr);
   cairo_set_line_width (cr, u * FINE);
   cairo_move_to (cr, 0, 0);
   cairo_line_to (cr, total, 0);
   cairo_move_to (cr, 0, length);
-  cairo_line_to (cr, total, length);
+  cairo_line_to (cr, total - drop, length);
   cairo_stroke (cr);
   cairo_set_line_width (cr, u * OUTLINE);
   cairo_move_to (cr, 0, 0);
   cairo_line_to (cr, 0, length);
   cairo_move_to (cr, total, 0);
-  cairo_line_to (cr, total, length);
+  cairo_line_to (cr, total - drop, length);
   cairo_stroke (cr);
 
   if (style->highlight_boundary >= 0 && (guint) style->highlight_boundary <= layout->n_layers)
@@ -557,7 +624,7 @@ draw_chain (LaminaSection             *self,
     {
       double w, h;
       want[i] = (edge_t (layout, i) + edge_t (layout, i + 1)) / 2;
-      lamina_format_thickness (text, ((LaminaLayer *) construction->layers->pdata[i])->thickness);
+      lamina_format_layer_thickness (text, construction->layers->pdata[i]);
       measure_text (self, text, size, &w, &h);
       extent[i] = across ? w : h * 0.8;
     }
@@ -613,7 +680,7 @@ draw_chain (LaminaSection             *self,
 
   for (guint i = 0; i < n; i++)
     {
-      lamina_format_thickness (text, ((LaminaLayer *) construction->layers->pdata[i])->thickness);
+      lamina_format_layer_thickness (text, construction->layers->pdata[i]);
       draw_label_at (self, cr, layout, text, TEXT_REGULAR, size,
                      pos[i], chain - (moved[i] ? LEADER_OUT : 0.2) * u, 0, -1);
     }

@@ -77,3 +77,16 @@ lamina_format_percent (char   *buffer,
   g_strlcat (buffer, "\xc2\xa0%", LAMINA_FORMAT_SIZE);
   return buffer;
 }
+
+const char *
+lamina_format_layer_thickness (char              *buffer,
+                               const LaminaLayer *layer)
+{
+  char thin[LAMINA_FORMAT_SIZE], thick[LAMINA_FORMAT_SIZE];
+
+  if (!lamina_layer_is_tapered (layer))
+    return lamina_format_thickness (buffer, layer->thickness);
+  g_snprintf (buffer, LAMINA_FORMAT_SIZE, "%s–%s", lamina_format_thickness (thin, layer->thickness),
+              lamina_format_thickness (thick, layer->thickness_max));
+  return buffer;
+}

@@ -21,6 +21,9 @@ const char *lamina_format_fixed       (char   *buffer,
 /* A thickness in mm: whole millimetres, or one decimal when needed. */
 const char *lamina_format_thickness   (char   *buffer,
                                        double  millimetres);
+/* A layer's thickness; a tapered layer gives both ends, "60–220". */
+const char *lamina_format_layer_thickness (char              *buffer,
+                                           const LaminaLayer *layer);
 /* A U value: lamina_format_u (lamina-calc.h), the one formatter the
  * window, lamina-cli and the sheets share. */
 /* A temperature with one decimal and " °C". */

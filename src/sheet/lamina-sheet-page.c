@@ -387,7 +387,7 @@ draw_layer_table (SheetContext             *ctx,
         g_strlcpy (r, _("disregarded"), sizeof r);
       else
         lamina_format_fixed (r, lr->resistance, 3);
-      draw_number_cells (ctx, &col, SHEET_FONT_BODY, y, lamina_format_thickness (d, layer->thickness), l, r);
+      draw_number_cells (ctx, &col, SHEET_FONT_BODY, y, lamina_format_layer_thickness (d, layer), l, r);
       y += get_wrapped_pitch (ctx, SHEET_FONT_BODY, label, name_width, ROW);
       if (layer->kind == LAMINA_LAYER_BRIDGED && layer->parts)
         y = draw_parts (ctx, &col, layer, y - 1);
@@ -462,6 +462,16 @@ draw_value_rows (SheetContext   *ctx,
   return value_right + 3 + unit_width;
 }
 
+static const char *
+get_u_box_label (const LaminaResult *r)
+{
+  if (r->has_ground)
+    return _("WITH THE GROUND, EN ISO 13370, THIS PLAN");
+  if (r->tapered)
+    return _("AREA-AVERAGE, TAPERED LAYER, CORRECTED");
+  return _("THERMAL TRANSMITTANCE, CORRECTED");
+}
+
 static void
 draw_u_box (SheetContext             *ctx,
             const LaminaConstruction *c,
@@ -480,10 +490,10 @@ draw_u_box (SheetContext             *ctx,
   cairo_rectangle (cr, x, y, width, h);
   cairo_stroke (cr);
   set_grey (ctx);
-  sheet_text_line (ctx, SHEET_FONT_LABEL, _("THERMAL TRANSMITTANCE, CORRECTED"), x + 8, y + 6, width - 16,
-                   PANGO_ALIGN_LEFT);
+  sheet_text_line (ctx, SHEET_FONT_LABEL, get_u_box_label (r), x + 8, y + 6, width - 16, PANGO_ALIGN_LEFT);
   set_black (ctx);
-  big = g_strdup_printf ("U = %s", lamina_format_u (u, r->u_corrected));
+  /* A ground floor is stated with the ground (EN ISO 13370) for its plan. */
+  big = g_strdup_printf ("U = %s", lamina_format_u (u, r->has_ground ? r->ground.u : r->u_corrected));
   sheet_text_line (ctx, SHEET_FONT_BIG, big, x + 8, y + 15, width - 16, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_SMALL, "W/(m²·K)", x + 8, y + 37, width - 16, PANGO_ALIGN_LEFT);
   if (r->has_target)
@@ -542,7 +552,7 @@ draw_results (SheetContext             *ctx,
     { "e", e_label, "", "" },
   };
   ValueRow right[N_VALUE_ROWS] = {
-    { "U", _("1/RT"), "", uk },
+    { "U", r->tapered ? _("area mean, Annex E") : _("1/RT"), "", uk },
     { "ΔU", _("corrections"), "", uk },
     { "Uc", _("U + ΔU"), "", uk },
     { "θsi", _("inner surface"), "", "" },
@@ -623,6 +633,9 @@ dup_notes_text (const LaminaConstruction *c,
     {
       const LaminaWarning *warning = r->warnings->pdata[i];
 
+      /* The method block says these with their figures. */
+      if (warning->kind == LAMINA_WARNING_TAPERED || warning->kind == LAMINA_WARNING_UNHEATED_SPACE)
+        continue;
       if (lamina_warning_kind_is_note (warning->kind))
         g_string_append_printf (text, "%s%s", text->len ? "\n" : "", warning->message);
     }
@@ -639,8 +652,9 @@ get_method_text (void)
            "Cautions. The results hold for the stated design values and conditions only. Check the "
            "design values against the product declarations, and the construction against the local "
            "building code and licensed professional practice. This sheet is not a condensation risk "
-           "assessment (EN ISO 13788) and covers neither heat transfer via the ground (EN ISO 13370) "
-           "nor linear thermal bridges (EN ISO 10211).");
+           "assessment (EN ISO 13788) and does not cover linear thermal bridges (EN ISO 10211). A ground "
+           "floor's U with the ground (EN ISO 13370) holds for the stated plan; use the table by B′ for "
+           "another building and confirm the soil.");
 }
 
 static double
@@ -676,7 +690,9 @@ sheet_draw_page (SheetContext             *ctx,
   g_autofree char *notes = dup_notes_text (c, result);
   g_autofree char *corrections = sheet_dup_corrections_text (c, result);
   g_autofree char *dynamic = lamina_dynamic_dup_text (c, result);
+  g_autofree char *method = sheet_dup_method_text (c, result);
   double table_h, warn_h = 0, notes_h = 0, corr_h = 0, dyn_h, method_h, y, section_h, room;
+  double ground_h = sheet_measure_ground (ctx, c, result), applied_h = 0;
   double page_h = ctx->bottom - ctx->top;
 
   g_free (ctx->footer);
@@ -692,14 +708,21 @@ sheet_draw_page (SheetContext             *ctx,
   if (*notes)
     notes_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, notes) + GAP;
   dyn_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, dynamic) + GAP;
+  if (method)
+    applied_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, method) + GAP;
   method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, get_method_text ());
 
   /* The section takes the height left, within bounds. */
-  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - dyn_h - notes_h - 2 * GAP - 6;
+  room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - dyn_h - notes_h
+         - ground_h - applied_h - 2 * GAP - 6;
   section_h = CLAMP (room, page_h * 0.2, page_h * 0.4);
   y = draw_section (ctx, c, result, y, section_h);
   y = draw_layer_table (ctx, c, result, y);
   y = draw_results (ctx, c, result, y);
+  y = sheet_draw_ground (ctx, c, result, y);
+  if (method)
+    y = draw_block (ctx, _("Method for this construction"), method, y,
+                    ctx->bottom - 24 - method_h - y - 13 - GAP - (warn_h + notes_h > 0 ? 40 : 0));
   room = ctx->bottom - 24 - method_h - y;
   if (*warnings)
     y = draw_block (ctx, _("Warnings"), warnings, y, room - 13 - GAP - (notes_h + corr_h > 0 ? 40 : 0));

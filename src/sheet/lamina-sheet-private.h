@@ -150,6 +150,18 @@ gboolean    sheet_write_single_page (const char               *path,
                                      SheetPaintFunc            paint,
                                      gpointer                  paint_data,
                                      GError                  **error);
+/* EN ISO 13370 block of a ground floor (0 / @y when there is none), and
+ * the lines on a tapered layer, an unheated space and Annex C/D (NULL
+ * when none applies); lamina-sheet-method.c. */
+double      sheet_measure_ground       (SheetContext             *ctx,
+                                        const LaminaConstruction *c,
+                                        const LaminaResult       *result);
+double      sheet_draw_ground          (SheetContext             *ctx,
+                                        const LaminaConstruction *c,
+                                        const LaminaResult       *result,
+                                        double                    y);
+char       *sheet_dup_method_text      (const LaminaConstruction *c,
+                                        const LaminaResult       *result);
 
 const char *sheet_element_label (LaminaElement element);
 const char *sheet_status_label  (LaminaStatus  status);

@@ -571,6 +571,79 @@ test_corrections_itemised (void)
   assert_contains (text, "ΔU = 0.0163 W/(m²·K)", "total");
 }
 
+/* The sheet of a ground floor states U with the ground for its plan and
+ * the table by B′ (EN ISO 13370:2017 9.1, from memory): concrete 150 mm
+ * (λ 1.35) and EPS 100 mm (λ 0.035), Rf = 2.96825; A 100 m², P 40 m,
+ * B′ 5 m; walls 300 mm; soil unknown, λ 2.0: dt = 0.3 + 2·(0.21 + 2.96825)
+ * = 6.6565 ≥ B′ → U = 2/(0.457·5 + 6.6565) = 0.224 → "0.22".  At B′ 2 m:
+ * dt ≥ B′, U = 2/(0.914 + 6.6565) = 0.264 → "0.26"; at 20 m: dt < B′,
+ * U = 4/(20π + 6.6565)·ln (20π/6.6565 + 1) = 0.135 → "0.14". */
+static void
+test_ground_floor_block (void)
+{
+  g_autoptr(LaminaConstruction) c = lamina_construction_new ("gf", "Ground floor", LAMINA_ELEMENT_FLOOR);
+  g_autofree char *path = dup_temp_path ("ground.pdf");
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(PopplerPage) page = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *text = NULL;
+  LaminaSheetOptions options;
+
+  c->code = g_strdup ("GF-1");
+  lamina_construction_add_layer (c, lamina_layer_new_material (150, lamina_material_new ("c", "Concrete",
+                                                                                        LAMINA_CATEGORY_CONCRETE, 1.35)));
+  lamina_construction_add_layer (c, lamina_layer_new_material (100, lamina_material_new ("e", "EPS",
+                                                                                        LAMINA_CATEGORY_INSULATION, 0.035)));
+  c->has_ground = TRUE;
+  c->ground.area = 100;
+  c->ground.perimeter = 40;
+  c->ground.wall_thickness = 300;
+  init_options (&options);
+  g_assert_true (lamina_sheet_write_pdf (path, TRUE, &options, c, &error));
+  g_assert_no_error (error);
+  doc = open_pdf (path);
+  text = dup_page_text (doc, 0);
+  assert_contains (text, "Ground floor, EN ISO 13370:2017", "heading");
+  assert_contains (text, "B′ = A/(0.5 P) = 5.00 m", "plan");
+  assert_contains (text, "(soil not known: assumed)", "soil");
+  assert_contains (text, "U with the ground 0.22 W/(m²·K) for this plan", "stated U");
+  assert_contains (text, "WITH THE GROUND, EN ISO 13370, THIS PLAN", "U box");
+  page = poppler_document_get_page (doc, 0);
+  g_assert_true (find_on_row (page, "U W/(m²·K)", "0.26", TRUE));
+  g_assert_true (find_on_row (page, "U W/(m²·K)", "0.14", TRUE));
+  g_assert_true (find_on_row (page, "B′ m", "20", TRUE));
+  g_unlink (path);
+}
+
+/* A tapered layer: both ends in the table and the area-average U
+ * (EN ISO 6946:2017 Annex E, from memory).  Reinforced concrete 200 mm
+ * (λ 2.3), PIR 60–220 mm (λ 0.022), thickest at the apex; upward Table 7:
+ * R0 = 0.10 + 0.08696 + 2.72727 + 0.04 = 2.95423, R1 = 7.27273;
+ * U = 2/R1·[(1 + R0/R1)·ln (1 + R1/R0) − 1] = 0.2052 → "0.21". */
+static void
+test_tapered_block (void)
+{
+  g_autoptr(LaminaConstruction) c = lamina_construction_new ("tr", "Tapered roof", LAMINA_ELEMENT_ROOF);
+  LaminaLayer *wedge = lamina_layer_new_material (60, lamina_material_new ("p", "PIR", LAMINA_CATEGORY_INSULATION,
+                                                                           0.022));
+  g_autofree char *text = NULL;
+  LaminaSheetOptions options;
+
+  c->code = g_strdup ("TR-1");
+  wedge->taper = LAMINA_TAPER_APEX_THICK;
+  wedge->thickness_max = 220;
+  lamina_construction_add_layer (c, lamina_layer_new_material (200, lamina_material_new ("rc", "RC",
+                                                                                        LAMINA_CATEGORY_CONCRETE, 2.3)));
+  lamina_construction_add_layer (c, wedge);
+  init_options (&options);
+  text = dup_sheet_text (c, &options);
+  assert_contains (text, "60–220", "both ends");
+  assert_contains (text, "thickness 60 mm at the thin end to 220 mm at the thick end", "method block");
+  assert_contains (text, "R0 2.954", "R0");
+  assert_contains (text, "R1 7.273", "R1");
+  assert_contains (text, "average U = 0.21 W/(m²·K)", "U");
+}
+
 static void
 test_demo_nothing_cut (void)
 {
@@ -614,6 +687,8 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/notes-not-warnings", test_notes_not_warnings);
   g_test_add_func ("/sheet/pdf/corrections-itemised", test_corrections_itemised);
   g_test_add_func ("/sheet/pdf/demo-nothing-cut", test_demo_nothing_cut);
+  g_test_add_func ("/sheet/pdf/ground-floor-block", test_ground_floor_block);
+  g_test_add_func ("/sheet/pdf/tapered-block", test_tapered_block);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
   g_assert_nonnull (temp_dir);
   status = g_test_run ();
