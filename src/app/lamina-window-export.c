@@ -154,22 +154,6 @@ fetch_construction_cb (gpointer   user_data,
   return lamina_library_dup_construction (fetch->library, g_ptr_array_index (fetch->ids, index), 0, error);
 }
 
-static void
-on_progress_cb (gpointer user_data,
-                guint    done,
-                guint    total)
-{
-  GtkProgressBar *bar = user_data;
-
-  if (bar == NULL || total == 0)
-    return;
-  gtk_progress_bar_set_fraction (bar, (double) done / total);
-  /* The catalogue is written on the main thread (the library is used from
-   * one thread at a time): let the progress and Cancel button breathe. */
-  while (g_main_context_pending (NULL))
-    g_main_context_iteration (NULL, FALSE);
-}
-
 static GPtrArray *
 dup_listed_ids (LaminaWindow  *self,
                 GError       **error)
@@ -188,17 +172,17 @@ dup_listed_ids (LaminaWindow  *self,
   return ids;
 }
 
-static gboolean
-write_catalogue (LaminaWindow    *self,
-                 const char      *path,
-                 GtkProgressBar  *bar,
-                 GCancellable    *cancellable,
-                 GError         **error)
+gboolean
+lamina_window_export_catalogue (LaminaWindow  *self,
+                                const char    *path,
+                                GError       **error)
 {
   g_autofree char *practice = NULL;
   g_autoptr(GPtrArray) ids = NULL;
   LaminaSheetOptions options;
   CatalogueFetch fetch;
+
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), FALSE);
 
   if (self->document != NULL)
     lamina_document_commit (self->document, NULL);
@@ -206,19 +190,150 @@ write_catalogue (LaminaWindow    *self,
   if (ids == NULL)
     return FALSE;
   init_options (self, &options, &practice);
-  fetch = (CatalogueFetch) { self->library, ids, cancellable };
+  fetch = (CatalogueFetch) { self->library, ids, NULL };
   return lamina_sheet_write_catalogue (path, TRUE, &options, ids->len,
-                                       fetch_construction_cb, &fetch,
-                                       on_progress_cb, bar, error);
+                                       fetch_construction_cb, &fetch, NULL, NULL, error);
+}
+
+/* The same in a worker thread (GTask), for the window: the worker reads
+ * the library through a connection of its own (a LaminaLibrary is used
+ * from one thread at a time), reports progress through two atomic
+ * counters that the main thread shows, and stops at the next construction
+ * once cancelled. */
+typedef struct
+{
+  char           *library_path;
+  char           *path;
+  char           *practice;
+  GPtrArray      *ids;
+  GtkProgressBar *bar;       /* main thread only; weak */
+  guint           progress_timeout;
+  int             done;      /* atomic */
+  int             total;     /* atomic */
+} CatalogueJob;
+
+static void
+catalogue_job_free (CatalogueJob *job)
+{
+  g_clear_handle_id (&job->progress_timeout, g_source_remove);
+  g_clear_weak_pointer (&job->bar);
+  g_free (job->library_path);
+  g_free (job->path);
+  g_free (job->practice);
+  g_ptr_array_unref (job->ids);
+  g_free (job);
+}
+
+static void
+on_worker_progress_cb (gpointer user_data,
+                       guint    done,
+                       guint    total)
+{
+  CatalogueJob *job = user_data;
+
+  g_atomic_int_set (&job->total, (int) total);
+  g_atomic_int_set (&job->done, (int) done);
+}
+
+static gboolean
+show_progress_cb (gpointer user_data)
+{
+  CatalogueJob *job = user_data;
+  int total = g_atomic_int_get (&job->total);
+
+  if (job->bar != NULL && total > 0)
+    gtk_progress_bar_set_fraction (job->bar, (double) g_atomic_int_get (&job->done) / total);
+  return G_SOURCE_CONTINUE;
+}
+
+static void
+write_catalogue_thread (GTask        *task,
+                        gpointer      source,
+                        gpointer      task_data,
+                        GCancellable *cancellable)
+{
+  CatalogueJob *job = task_data;
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaSheetOptions options;
+  CatalogueFetch fetch;
+
+  library = lamina_library_open (job->library_path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  if (library == NULL)
+    {
+      g_task_return_error (task, g_steal_pointer (&error));
+      return;
+    }
+  lamina_sheet_options_init (&options);
+  options.practice = job->practice;
+  options.library = job->library_path;
+  fetch = (CatalogueFetch) { library, job->ids, cancellable };
+  if (lamina_sheet_write_catalogue (job->path, TRUE, &options, job->ids->len,
+                                    fetch_construction_cb, &fetch,
+                                    on_worker_progress_cb, job, &error))
+    g_task_return_boolean (task, TRUE);
+  else
+    g_task_return_error (task, g_steal_pointer (&error));
+}
+
+void
+lamina_window_export_catalogue_async (LaminaWindow        *self,
+                                      const char          *path,
+                                      GtkProgressBar      *bar,
+                                      GCancellable        *cancellable,
+                                      GAsyncReadyCallback  callback,
+                                      gpointer             user_data)
+{
+  g_autoptr(GTask) task = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *practice = NULL;
+  LaminaSheetOptions options;
+  CatalogueJob *job;
+  GPtrArray *ids;
+
+  g_return_if_fail (LAMINA_IS_WINDOW (self));
+
+  task = g_task_new (self, cancellable, callback, user_data);
+  g_task_set_source_tag (task, lamina_window_export_catalogue_async);
+  /* Save what is on screen first: the worker reads the file. */
+  if (self->document != NULL)
+    lamina_document_commit (self->document, NULL);
+  ids = dup_listed_ids (self, &error);
+  if (ids == NULL)
+    {
+      g_task_return_error (task, g_steal_pointer (&error));
+      return;
+    }
+  init_options (self, &options, &practice);
+  job = g_new0 (CatalogueJob, 1);
+  job->library_path = g_strdup (lamina_library_get_path (self->library));
+  job->path = g_strdup (path);
+  job->practice = g_strdup (options.practice);
+  job->ids = ids;
+  g_set_weak_pointer (&job->bar, bar);
+  if (bar != NULL)
+    job->progress_timeout = g_timeout_add (100, show_progress_cb, job);
+  g_task_set_task_data (task, job, (GDestroyNotify) catalogue_job_free);
+  g_task_run_in_thread (task, write_catalogue_thread);
 }
 
 gboolean
-lamina_window_export_catalogue (LaminaWindow  *self,
-                                const char    *path,
-                                GError       **error)
+lamina_window_export_catalogue_finish (LaminaWindow  *self,
+                                       GAsyncResult  *result,
+                                       GError       **error)
 {
-  g_return_val_if_fail (LAMINA_IS_WINDOW (self), FALSE);
-  return write_catalogue (self, path, NULL, NULL, error);
+  CatalogueJob *job;
+
+  g_return_val_if_fail (g_task_is_valid (result, self), FALSE);
+
+  /* No more progress once done (the bar goes with its window). */
+  job = g_task_get_task_data (G_TASK (result));
+  if (job != NULL)
+    {
+      show_progress_cb (job);
+      g_clear_handle_id (&job->progress_timeout, g_source_remove);
+    }
+  return g_task_propagate_boolean (G_TASK (result), error);
 }
 
 static void
@@ -228,13 +343,32 @@ on_cancel_clicked_cb (GCancellable *cancellable)
 }
 
 static void
+catalogue_written_cb (GObject      *source,
+                      GAsyncResult *result,
+                      gpointer      user_data)
+{
+  LaminaWindow *self = LAMINA_WINDOW (source);
+  g_autoptr(GtkWindow) progress = user_data;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *message = NULL;
+  CatalogueJob *job = g_task_get_task_data (G_TASK (result));
+
+  if (lamina_window_export_catalogue_finish (self, result, &error))
+    message = g_strdup_printf (_("Catalogue written to %s"), job->path);
+  else if (g_error_matches (error, G_IO_ERROR, G_IO_ERROR_CANCELLED))
+    message = g_strdup (_("Catalogue cancelled; nothing was written"));
+  else
+    message = g_strdup (error->message);
+  gtk_window_destroy (progress);
+  lamina_window_notify (self, message);
+}
+
+static void
 catalogue_chosen (LaminaWindow *self,
                   GFile        *file)
 {
-  g_autoptr(GError) error = NULL;
   g_autoptr(GCancellable) cancellable = g_cancellable_new ();
   g_autofree char *path = g_file_get_path (file);
-  g_autofree char *message = NULL;
   GtkWidget *window = gtk_window_new ();
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 12);
   GtkWidget *bar = gtk_progress_bar_new ();
@@ -251,17 +385,12 @@ catalogue_chosen (LaminaWindow *self,
   gtk_box_append (GTK_BOX (box), bar);
   gtk_box_append (GTK_BOX (box), cancel);
   gtk_window_set_child (GTK_WINDOW (window), box);
-  g_signal_connect_swapped (cancel, "clicked", G_CALLBACK (on_cancel_clicked_cb), cancellable);
+  g_signal_connect_object (cancel, "clicked", G_CALLBACK (on_cancel_clicked_cb), cancellable,
+                           G_CONNECT_SWAPPED);
   gtk_window_present (GTK_WINDOW (window));
 
-  if (write_catalogue (self, path, GTK_PROGRESS_BAR (bar), cancellable, &error))
-    message = g_strdup_printf (_("Catalogue written to %s"), path);
-  else if (g_error_matches (error, G_IO_ERROR, G_IO_ERROR_CANCELLED))
-    message = g_strdup (_("Catalogue cancelled; nothing was written"));
-  else
-    message = g_strdup (error->message);
-  gtk_window_destroy (GTK_WINDOW (window));
-  lamina_window_notify (self, message);
+  lamina_window_export_catalogue_async (self, path, GTK_PROGRESS_BAR (bar), cancellable,
+                                        catalogue_written_cb, g_object_ref (window));
 }
 
 static void

@@ -54,6 +54,18 @@ void lamina_window_refresh_list     (LaminaWindow *self);
 void lamina_window_install_actions  (GtkWidgetClass *widget_class);
 /* lamina-window-export.c */
 void lamina_window_install_export_actions (GtkWidgetClass *widget_class);
+/* The listed constructions' catalogue written in a worker thread;
+ * @bar (may be NULL) shows the progress.  Cancelling stops at the next
+ * construction and writes nothing (G_IO_ERROR_CANCELLED). */
+void     lamina_window_export_catalogue_async  (LaminaWindow        *self,
+                                                const char          *path,
+                                                GtkProgressBar      *bar,
+                                                GCancellable        *cancellable,
+                                                GAsyncReadyCallback  callback,
+                                                gpointer             user_data);
+gboolean lamina_window_export_catalogue_finish (LaminaWindow        *self,
+                                                GAsyncResult        *result,
+                                                GError             **error);
 void lamina_window_show_undo_delete (LaminaWindow *self,
                                      const char   *message,
                                      const char   *id);

@@ -592,6 +592,55 @@ test_export (Fixture       *f,
   assert_pdf (catalogue);
 }
 
+typedef struct
+{
+  gboolean  done;
+  gboolean  written;
+  GError   *error;
+} Written;
+
+static void
+on_catalogue_written_cb (GObject      *source,
+                         GAsyncResult *result,
+                         gpointer      user_data)
+{
+  Written *w = user_data;
+
+  w->written = lamina_window_export_catalogue_finish (LAMINA_WINDOW (source), result, &w->error);
+  w->done = TRUE;
+}
+
+/* The window's catalogue: written by a worker thread while the main loop
+ * runs, its progress on the bar; cancelled, nothing is written. */
+static void
+test_export_in_worker (Fixture       *f,
+                       gconstpointer  data)
+{
+  g_autofree char *catalogue = g_build_filename (f->dir, "worker.pdf", NULL);
+  g_autofree char *cancelled = g_build_filename (f->dir, "cancelled.pdf", NULL);
+  g_autoptr(GCancellable) cancellable = g_cancellable_new ();
+  GtkProgressBar *bar = GTK_PROGRESS_BAR (g_object_ref_sink (gtk_progress_bar_new ()));
+  Written first = { 0 }, second = { 0 };
+
+  lamina_window_export_catalogue_async (f->window, catalogue, bar, NULL, on_catalogue_written_cb, &first);
+  while (!first.done)
+    g_main_context_iteration (NULL, TRUE);
+  g_assert_no_error (first.error);
+  g_assert_true (first.written);
+  assert_pdf (catalogue);
+  g_assert_cmpfloat (gtk_progress_bar_get_fraction (bar), ==, 1.0);
+
+  g_cancellable_cancel (cancellable);
+  lamina_window_export_catalogue_async (f->window, cancelled, NULL, cancellable, on_catalogue_written_cb, &second);
+  while (!second.done)
+    g_main_context_iteration (NULL, TRUE);
+  g_assert_error (second.error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
+  g_clear_error (&second.error);
+  g_assert_false (second.written);
+  g_assert_false (g_file_test (cancelled, G_FILE_TEST_EXISTS));
+  g_object_unref (bar);
+}
+
 static void
 save_png (GtkWidget  *widget,
           const char *path)
@@ -1170,6 +1219,7 @@ main (int   argc,
       g_test_add ("/app/window/drag-updates-u", Fixture, NULL, fixture_setup, test_drag_updates_u, fixture_teardown);
       g_test_add ("/app/window/search-narrows", Fixture, NULL, fixture_setup, test_search_narrows, fixture_teardown);
       g_test_add ("/app/window/list-error-shown", Fixture, NULL, fixture_setup, test_list_error_shown, fixture_teardown);
+      g_test_add ("/app/window/export-in-worker", Fixture, NULL, fixture_setup, test_export_in_worker, fixture_teardown);
       g_test_add ("/app/window/approve-then-edit", Fixture, NULL, fixture_setup, test_approve_then_edit, fixture_teardown);
       g_test_add ("/app/window/material-changed", Fixture, NULL, fixture_setup, test_material_changed, fixture_teardown);
       g_test_add ("/app/window/derive-delete-undo", Fixture, NULL, fixture_setup, test_derive_delete_undo, fixture_teardown);
