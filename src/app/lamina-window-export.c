@@ -508,6 +508,22 @@ import_xml_action (GtkWidget  *widget,
 /* Printing: the sheet PDF, drawn page by page through poppler, so that
  * paper and PDF come from one renderer. */
 
+double
+lamina_window_print_scale (double paper_width,
+                           double paper_height,
+                           double sheet_width,
+                           double sheet_height)
+{
+  /* Full size whenever the sheet fits the paper (half a millimetre of
+   * slack for rounded paper sizes): a drawing stated at 1:5 must measure
+   * 1:5 with a scale rule. */
+  const double slack = 72.0 / 25.4 * 0.5;
+
+  if (sheet_width <= paper_width + slack && sheet_height <= paper_height + slack)
+    return 1.0;
+  return MIN (paper_width / sheet_width, paper_height / sheet_height);
+}
+
 #ifdef HAVE_POPPLER
 static void
 on_draw_page_cb (GtkPrintOperation *operation,
@@ -517,16 +533,103 @@ on_draw_page_cb (GtkPrintOperation *operation,
 {
   PopplerPage *page = poppler_document_get_page (document, page_nr);
   cairo_t *cr = gtk_print_context_get_cairo_context (context);
-  double width, height, scale;
+  double width, height, paper_width, paper_height, scale;
 
   poppler_page_get_size (page, &width, &height);
-  scale = MIN (gtk_print_context_get_width (context) / width,
-               gtk_print_context_get_height (context) / height);
+  paper_width = gtk_print_context_get_width (context);
+  paper_height = gtk_print_context_get_height (context);
+  scale = lamina_window_print_scale (paper_width, paper_height, width, height);
+  cairo_save (cr);
+  cairo_translate (cr, (paper_width - width * scale) / 2, (paper_height - height * scale) / 2);
   cairo_scale (cr, scale, scale);
   poppler_page_render_for_printing (page, cr);
+  cairo_restore (cr);
+  if (scale < 1.0)
+    {
+      /* Reduced to fit a smaller paper: say so on the paper itself. */
+      g_autofree char *note = g_strdup_printf (_("Printed at %.0f %% of full size: a drawing stated at 1:N "
+                                                 "measures 1:(N × %.2f) on this paper."),
+                                               scale * 100, 1.0 / scale);
+      PangoLayout *layout = gtk_print_context_create_pango_layout (context);
+      PangoFontDescription *font = pango_font_description_from_string ("DejaVu Sans Condensed Bold 7");
+
+      pango_layout_set_font_description (layout, font);
+      pango_layout_set_text (layout, note, -1);
+      cairo_move_to (cr, 18, 6);
+      cairo_set_source_rgb (cr, 0, 0, 0);
+      pango_cairo_show_layout (cr, layout);
+      pango_font_description_free (font);
+      g_object_unref (layout);
+    }
   g_object_unref (page);
 }
 #endif
+
+/* Prints the open construction's sheet through the print dialog, or
+ * straight to the PDF @export_path (tests, and what "Print to File"
+ * gives). */
+gboolean
+lamina_window_print (LaminaWindow  *self,
+                     const char    *export_path,
+                     GError       **error)
+{
+#ifdef HAVE_POPPLER
+  g_autoptr(GtkPrintOperation) operation = NULL;
+  g_autoptr(GObject) document = NULL; /* PopplerDocument: no autoptr in Debian 12's poppler */
+  g_autoptr(GtkPageSetup) setup = gtk_page_setup_new ();
+  g_autoptr(GtkPaperSize) a4 = gtk_paper_size_new (GTK_PAPER_NAME_A4);
+  g_autofree char *dir = NULL;
+  g_autofree char *path = NULL;
+  g_autofree char *uri = NULL;
+  GtkPrintOperationResult result;
+
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), FALSE);
+  g_return_val_if_fail (self->document != NULL, FALSE);
+
+  dir = g_dir_make_tmp ("lamina-print-XXXXXX", error);
+  if (dir != NULL)
+    {
+      path = g_build_filename (dir, "sheet.pdf", NULL);
+      if (lamina_window_export_sheet (self, path, error))
+        {
+          uri = g_filename_to_uri (path, NULL, error);
+          document = uri ? G_OBJECT (poppler_document_new_from_file (uri, NULL, error)) : NULL;
+        }
+    }
+  if (document == NULL)
+    {
+      if (path != NULL)
+        g_unlink (path);
+      if (dir != NULL)
+        g_rmdir (dir);
+      return FALSE;
+    }
+  operation = gtk_print_operation_new ();
+  gtk_print_operation_set_n_pages (operation, poppler_document_get_n_pages (POPPLER_DOCUMENT (document)));
+  gtk_print_operation_set_job_name (operation, lamina_document_get_construction (self->document)->name);
+  gtk_print_operation_set_embed_page_setup (operation, TRUE);
+  /* The sheet has its own margins: print on the whole paper, in points,
+   * starting from the sheet's own paper size. */
+  gtk_print_operation_set_use_full_page (operation, TRUE);
+  gtk_print_operation_set_unit (operation, GTK_UNIT_POINTS);
+  gtk_page_setup_set_paper_size_and_default_margins (setup, a4);
+  gtk_print_operation_set_default_page_setup (operation, setup);
+  g_signal_connect (operation, "draw-page", G_CALLBACK (on_draw_page_cb), document);
+  if (export_path != NULL)
+    gtk_print_operation_set_export_filename (operation, export_path);
+  result = gtk_print_operation_run (operation,
+                                    export_path ? GTK_PRINT_OPERATION_ACTION_EXPORT
+                                                : GTK_PRINT_OPERATION_ACTION_PRINT_DIALOG,
+                                    GTK_WINDOW (self), error);
+  g_unlink (path);
+  g_rmdir (dir);
+  return result != GTK_PRINT_OPERATION_RESULT_ERROR;
+#else
+  g_set_error_literal (error, G_IO_ERROR, G_IO_ERROR_NOT_SUPPORTED,
+                       _("Printing needs poppler-glib; export the sheet as PDF instead"));
+  return FALSE;
+#endif
+}
 
 static void
 print_action (GtkWidget  *widget,
@@ -534,44 +637,10 @@ print_action (GtkWidget  *widget,
               GVariant   *parameter)
 {
   LaminaWindow *self = LAMINA_WINDOW (widget);
-#ifdef HAVE_POPPLER
   g_autoptr(GError) error = NULL;
-  g_autoptr(GtkPrintOperation) operation = NULL;
-  g_autoptr(GObject) document = NULL; /* PopplerDocument: no autoptr in Debian 12's poppler */
-  g_autofree char *dir = NULL;
-  g_autofree char *path = NULL;
-  g_autofree char *uri = NULL;
 
-  if (self->document == NULL)
-    return;
-  dir = g_dir_make_tmp ("lamina-print-XXXXXX", &error);
-  if (dir != NULL)
-    {
-      path = g_build_filename (dir, "sheet.pdf", NULL);
-      if (lamina_window_export_sheet (self, path, &error))
-        {
-          uri = g_filename_to_uri (path, NULL, &error);
-          document = uri ? G_OBJECT (poppler_document_new_from_file (uri, NULL, &error)) : NULL;
-        }
-    }
-  if (document == NULL)
-    {
-      lamina_window_notify (self, error->message);
-      return;
-    }
-  operation = gtk_print_operation_new ();
-  gtk_print_operation_set_n_pages (operation, poppler_document_get_n_pages (POPPLER_DOCUMENT (document)));
-  gtk_print_operation_set_job_name (operation, lamina_document_get_construction (self->document)->name);
-  gtk_print_operation_set_embed_page_setup (operation, TRUE);
-  g_signal_connect (operation, "draw-page", G_CALLBACK (on_draw_page_cb), document);
-  if (gtk_print_operation_run (operation, GTK_PRINT_OPERATION_ACTION_PRINT_DIALOG,
-                               GTK_WINDOW (self), &error) == GTK_PRINT_OPERATION_RESULT_ERROR)
+  if (self->document != NULL && !lamina_window_print (self, NULL, &error))
     lamina_window_notify (self, error->message);
-  g_unlink (path);
-  g_rmdir (dir);
-#else
-  lamina_window_notify (self, _("Printing needs poppler-glib; export the sheet as PDF instead"));
-#endif
 }
 
 void

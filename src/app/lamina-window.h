@@ -35,5 +35,18 @@ gboolean                lamina_window_export_sheet (LaminaWindow      *self,
 gboolean                lamina_window_export_catalogue (LaminaWindow  *self,
                                                         const char    *path,
                                                         GError       **error);
+/* Prints the open construction's sheet through the print dialog, or to
+ * the PDF @export_path without a dialog. */
+gboolean                lamina_window_print        (LaminaWindow      *self,
+                                                    const char        *export_path,
+                                                    GError           **error);
+/* The factor a sheet of @sheet_width × @sheet_height pt is printed at on
+ * paper of @paper_width × @paper_height pt: 1 (full size, the stated
+ * scale holds) whenever it fits, else the largest that fits, which the
+ * printed page then states. */
+double                  lamina_window_print_scale  (double             paper_width,
+                                                    double             paper_height,
+                                                    double             sheet_width,
+                                                    double             sheet_height);
 
 G_END_DECLS

@@ -11,6 +11,10 @@
 #include <locale.h>
 #include <math.h>
 #include <string.h>
+#if __has_include(<poppler.h>)
+#include <poppler.h>
+#define HAVE_POPPLER_TEST 1
+#endif
 
 #include "lamina-application.h"
 #include "lamina-demo.h"
@@ -369,6 +373,79 @@ test_material_chooser (Fixture       *f,
   g_assert_cmpfloat (after.origin.y, ==, before.origin.y);
   gtk_window_destroy (chooser);
 }
+
+static void
+test_print_scale (void)
+{
+  /* ISO 216 A4 is 210 × 297 mm = 595.3 × 841.9 pt; ANSI letter 8.5 × 11 in
+   * = 612 × 792 pt.  An A4 sheet prints at 100 % on A4 (and on A3), so
+   * "Scale 1:5" holds; on letter it must shrink to 792/841.9 = 0.941,
+   * which the page then states. */
+  const double mm = 72.0 / 25.4;
+
+  g_assert_cmpfloat (lamina_window_print_scale (210 * mm, 297 * mm, 210 * mm, 297 * mm), ==, 1.0);
+  g_assert_cmpfloat (lamina_window_print_scale (297 * mm, 420 * mm, 210 * mm, 297 * mm), ==, 1.0);
+  /* A printer's paper size rounded to whole points still counts as A4. */
+  g_assert_cmpfloat (lamina_window_print_scale (595, 842, 210 * mm, 297 * mm), ==, 1.0);
+  g_assert_cmpfloat_with_epsilon (lamina_window_print_scale (612, 792, 210 * mm, 297 * mm), 792 / (297 * mm), 1e-9);
+}
+
+#ifdef HAVE_POPPLER_TEST
+static void
+test_print_full_size (Fixture       *f,
+                      gconstpointer  data)
+{
+  /* Printed through the print operation, the sheet lands on A4 at full
+   * size: its page is A4 and nothing says it was reduced. */
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *path = g_build_filename (f->dir, "printed.pdf", NULL);
+  g_autofree char *uri = g_filename_to_uri (path, NULL, NULL);
+  g_autoptr(GObject) doc = NULL;
+  g_autoptr(GObject) page = NULL;
+  g_autofree char *text = NULL;
+  guint index = 0;
+  double w, h;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  g_assert_true (lamina_window_print (f->window, path, &error));
+  g_assert_no_error (error);
+  doc = G_OBJECT (poppler_document_new_from_file (uri, NULL, &error));
+  g_assert_no_error (error);
+  page = G_OBJECT (poppler_document_get_page (POPPLER_DOCUMENT (doc), 0));
+  poppler_page_get_size (POPPLER_PAGE (page), &w, &h);
+  g_assert_cmpfloat_with_epsilon (w, 210 * 72 / 25.4, 1.0);
+  g_assert_cmpfloat_with_epsilon (h, 297 * 72 / 25.4, 1.0);
+  text = poppler_page_get_text (POPPLER_PAGE (page));
+  g_assert_nonnull (strstr (text, "Scale 1:"));
+  g_assert_null (strstr (text, "Printed at"));
+  /* The same text at the same place as on the sheet PDF: not reduced. */
+  {
+    g_autofree char *sheet_path = g_build_filename (f->dir, "sheet.pdf", NULL);
+    g_autofree char *sheet_uri = g_filename_to_uri (sheet_path, NULL, NULL);
+    g_autoptr(GObject) sheet = NULL;
+    g_autoptr(GObject) sheet_page = NULL;
+    GList *a, *b;
+
+    g_assert_true (lamina_window_export_sheet (f->window, sheet_path, &error));
+    sheet = G_OBJECT (poppler_document_new_from_file (sheet_uri, NULL, &error));
+    g_assert_no_error (error);
+    sheet_page = G_OBJECT (poppler_document_get_page (POPPLER_DOCUMENT (sheet), 0));
+    a = poppler_page_find_text (POPPLER_PAGE (page), "Construction specification");
+    b = poppler_page_find_text (POPPLER_PAGE (sheet_page), "Construction specification");
+    g_assert_nonnull (a);
+    g_assert_nonnull (b);
+    g_assert_cmpfloat_with_epsilon (((PopplerRectangle *) a->data)->x1, ((PopplerRectangle *) b->data)->x1, 0.5);
+    g_assert_cmpfloat_with_epsilon (((PopplerRectangle *) a->data)->x2 - ((PopplerRectangle *) a->data)->x1,
+                                    ((PopplerRectangle *) b->data)->x2 - ((PopplerRectangle *) b->data)->x1, 0.5);
+    g_list_free_full (a, (GDestroyNotify) poppler_rectangle_free);
+    g_list_free_full (b, (GDestroyNotify) poppler_rectangle_free);
+    g_unlink (sheet_path);
+  }
+  g_unlink (path);
+}
+#endif
 
 static void
 test_u_filter_chip (Fixture       *f,
@@ -1232,6 +1309,10 @@ main (int   argc,
       g_test_add ("/app/window/tags-on-first-use", Fixture, NULL, fixture_setup, test_tags_on_first_use, fixture_teardown);
       g_test_add ("/app/window/close-keys", Fixture, NULL, fixture_setup, test_close_keys, fixture_teardown);
       g_test_add ("/app/window/u-filter-chip", Fixture, NULL, fixture_setup, test_u_filter_chip, fixture_teardown);
+      g_test_add_func ("/app/window/print-scale", test_print_scale);
+#ifdef HAVE_POPPLER_TEST
+      g_test_add ("/app/window/print-full-size", Fixture, NULL, fixture_setup, test_print_full_size, fixture_teardown);
+#endif
       g_test_add ("/app/window/material-chooser", Fixture, NULL, fixture_setup, test_material_chooser, fixture_teardown);
     }
   return g_test_run ();
