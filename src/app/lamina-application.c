@@ -5,6 +5,7 @@
 
 #include "lamina-application.h"
 #include "lamina-close-keys.h"
+#include "lamina-settings.h"
 
 #include <glib/gi18n.h>
 #include <stdio.h>
@@ -21,6 +22,7 @@ struct _LaminaApplication
   char           *library_path;
   gboolean        demo;
   LaminaLibrary  *library;
+  GSettings      *settings;  /* carries the style's signal */
 };
 
 G_DEFINE_FINAL_TYPE (LaminaApplication, lamina_application, GTK_TYPE_APPLICATION)
@@ -222,6 +224,8 @@ lamina_application_startup (GApplication *application)
   gtk_application_set_accels_for_action (GTK_APPLICATION (application), "app.preferences", prefs_accels);
   gtk_window_set_default_icon_name (APP_ID);
   lamina_close_keys_install ();
+  LAMINA_APPLICATION (application)->settings = lamina_settings_new ();
+  lamina_settings_follow_style (LAMINA_APPLICATION (application)->settings);
 }
 
 static void
@@ -230,6 +234,7 @@ lamina_application_finalize (GObject *object)
   LaminaApplication *self = LAMINA_APPLICATION (object);
 
   g_clear_object (&self->library);
+  g_clear_object (&self->settings);
   g_clear_pointer (&self->library_path, g_free);
 
   G_OBJECT_CLASS (lamina_application_parent_class)->finalize (object);

@@ -16,6 +16,7 @@ struct _LaminaPreferencesWindow
   GtkSpinButton *inside_spin;
   GtkSpinButton *outside_spin;
   GtkSpinButton *snap_spin;
+  GtkDropDown   *style_dropdown;
 
   /* owned */
   GSettings     *settings;
@@ -34,6 +35,34 @@ lamina_preferences_window_dispose (GObject *object)
   G_OBJECT_CLASS (lamina_preferences_window_parent_class)->dispose (object);
 }
 
+static const char *const style_names[] = { "system", "light", "dark" };
+
+static gboolean
+style_to_selected (GValue   *value,
+                   GVariant *variant,
+                   gpointer  user_data)
+{
+  const char *name = g_variant_get_string (variant, NULL);
+
+  for (guint i = 0; i < G_N_ELEMENTS (style_names); i++)
+    if (g_str_equal (name, style_names[i]))
+      {
+        g_value_set_uint (value, i);
+        return TRUE;
+      }
+  return FALSE;
+}
+
+static GVariant *
+selected_to_style (const GValue       *value,
+                   const GVariantType *type,
+                   gpointer            user_data)
+{
+  guint i = g_value_get_uint (value);
+
+  return g_variant_new_string (style_names[i < G_N_ELEMENTS (style_names) ? i : 0]);
+}
+
 static void
 lamina_preferences_window_class_init (LaminaPreferencesWindowClass *klass)
 {
@@ -47,6 +76,7 @@ lamina_preferences_window_class_init (LaminaPreferencesWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaPreferencesWindow, inside_spin);
   gtk_widget_class_bind_template_child (widget_class, LaminaPreferencesWindow, outside_spin);
   gtk_widget_class_bind_template_child (widget_class, LaminaPreferencesWindow, snap_spin);
+  gtk_widget_class_bind_template_child (widget_class, LaminaPreferencesWindow, style_dropdown);
   gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Escape, 0, "window.close", NULL);
 }
 
@@ -60,6 +90,8 @@ lamina_preferences_window_init (LaminaPreferencesWindow *self)
   g_settings_bind (self->settings, "inside-temperature", self->inside_spin, "value", G_SETTINGS_BIND_DEFAULT);
   g_settings_bind (self->settings, "outside-temperature", self->outside_spin, "value", G_SETTINGS_BIND_DEFAULT);
   g_settings_bind (self->settings, "snap-step", self->snap_spin, "value", G_SETTINGS_BIND_DEFAULT);
+  g_settings_bind_with_mapping (self->settings, "style", self->style_dropdown, "selected", G_SETTINGS_BIND_DEFAULT,
+                                style_to_selected, selected_to_style, NULL, NULL);
 }
 
 GtkWindow *

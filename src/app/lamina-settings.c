@@ -8,6 +8,8 @@
 
 #include "lamina-settings.h"
 
+#include <gtk/gtk.h>
+
 #define G_SETTINGS_ENABLE_BACKEND
 #include <gio/gsettingsbackend.h>
 #include <glib/gstdio.h>
@@ -84,4 +86,30 @@ lamina_settings_new (void)
     }
   g_return_val_if_fail (schema != NULL, NULL);
   return g_settings_new_full (schema, memory_backend, NULL);
+}
+
+static void
+apply_style (GSettings *settings)
+{
+  static gboolean system_dark = -1;
+  GtkSettings *gtk = gtk_settings_get_default ();
+  g_autofree char *style = g_settings_get_string (settings, "style");
+
+  if (gtk == NULL)
+    return;
+  /* "Follow the system" is whatever GTK had before we touched it. */
+  if (system_dark == -1)
+    g_object_get (gtk, "gtk-application-prefer-dark-theme", &system_dark, NULL);
+  g_object_set (gtk, "gtk-application-prefer-dark-theme",
+                g_str_equal (style, "dark") ? TRUE : g_str_equal (style, "light") ? FALSE : system_dark,
+                NULL);
+}
+
+void
+lamina_settings_follow_style (GSettings *settings)
+{
+  g_return_if_fail (G_IS_SETTINGS (settings));
+
+  apply_style (settings);
+  g_signal_connect (settings, "changed::style", G_CALLBACK (apply_style), NULL);
 }

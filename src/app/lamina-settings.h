@@ -11,4 +11,8 @@ G_BEGIN_DECLS
  * built into the program, kept in memory for the session. */
 GSettings *lamina_settings_new (void);
 
+/* Applies the "style" setting (system, light, dark) to GTK now and
+ * whenever it changes; @settings must live as long as the app. */
+void       lamina_settings_follow_style (GSettings *settings);
+
 G_END_DECLS

@@ -26,6 +26,7 @@
 #include "lamina-material-row-private.h"
 #include "lamina-materials-window-private.h"
 #include "lamina-parts-dialog.h"
+#include "lamina-settings.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
 #include "lamina-window-private.h"
@@ -446,6 +447,29 @@ test_print_full_size (Fixture       *f,
   g_unlink (path);
 }
 #endif
+
+static void
+test_style_switch (Fixture       *f,
+                   gconstpointer  data)
+{
+  g_autoptr(GSettings) settings = lamina_settings_new ();
+  GtkSettings *gtk = gtk_settings_get_default ();
+  gboolean initial, dark;
+
+  /* Preferences → Style: follow the system, light or dark. */
+  g_object_get (gtk, "gtk-application-prefer-dark-theme", &initial, NULL);
+  lamina_settings_follow_style (settings);
+  g_settings_set_string (settings, "style", "dark");
+  g_object_get (gtk, "gtk-application-prefer-dark-theme", &dark, NULL);
+  g_assert_true (dark);
+  g_settings_set_string (settings, "style", "light");
+  g_object_get (gtk, "gtk-application-prefer-dark-theme", &dark, NULL);
+  g_assert_false (dark);
+  g_settings_set_string (settings, "style", "system");
+  g_object_get (gtk, "gtk-application-prefer-dark-theme", &dark, NULL);
+  g_assert_cmpint (dark, ==, initial);
+  g_signal_handlers_disconnect_matched (settings, G_SIGNAL_MATCH_DATA, 0, 0, NULL, NULL, NULL);
+}
 
 static void
 test_u_filter_chip (Fixture       *f,
@@ -1310,6 +1334,7 @@ main (int   argc,
       g_test_add ("/app/window/close-keys", Fixture, NULL, fixture_setup, test_close_keys, fixture_teardown);
       g_test_add ("/app/window/u-filter-chip", Fixture, NULL, fixture_setup, test_u_filter_chip, fixture_teardown);
       g_test_add_func ("/app/window/print-scale", test_print_scale);
+      g_test_add ("/app/window/style-switch", Fixture, NULL, fixture_setup, test_style_switch, fixture_teardown);
 #ifdef HAVE_POPPLER_TEST
       g_test_add ("/app/window/print-full-size", Fixture, NULL, fixture_setup, test_print_full_size, fixture_teardown);
 #endif
