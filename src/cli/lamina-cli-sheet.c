@@ -269,6 +269,9 @@ lamina_cli_sheet (const LaminaCliGlobals *globals,
   job.ids = g_ptr_array_new_with_free_func (g_free);
   g_ptr_array_add (job.ids, g_strdup (id));
   c = fetch_cb (&job, 0, &error);
+  /* A revision with a stored 2-D check (lamina-cli field) reports it. */
+  if (c != NULL && job.library != NULL && lamina_library_has_field_check (job.library, c->id, c->revision))
+    options.field_check = TRUE;
   if (c == NULL || !lamina_sheet_write_pdf (job.output, globals->force, &options, c, &error))
     {
       lamina_cli_error ("%s", error->message);

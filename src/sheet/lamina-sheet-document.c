@@ -190,6 +190,7 @@ write_pages (cairo_surface_t          *surface,
     {
       g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
       g_autoptr(LaminaResult) r = NULL;
+      g_autoptr(LaminaFieldResult) field = NULL;
       /* Named destinations: cairo 1.16 drops a "page=" link to a page
        * that is not written yet. */
       g_autofree char *dest = g_strdup_printf ("dest='sheet-%u'", i + 1);
@@ -207,9 +208,30 @@ write_pages (cairo_surface_t          *surface,
       ctx.page = first_sheet + i;
       add_sheet_outline (surface, parents, c, dest);
       ctx.dest = name;
+      /* A single sheet outside EN ISO 6946 continues with its 2-D check
+       * (a catalogue's index counts one page per sheet). */
+      if (!source->front_matter && options->field_check && lamina_field_is_advised (r))
+        {
+          field = lamina_field_calculate (c, 0, NULL, NULL, error);
+          if (field == NULL)
+            {
+              ok = FALSE;
+              break;
+            }
+          ctx.n_pages++;
+          ctx.field = field;
+        }
       sheet_draw_page (&ctx, c, r);
       ctx.dest = NULL;
       cairo_show_page (cr);
+      if (field != NULL)
+        {
+          ctx.page++;
+          sheet_draw_field_page (&ctx, c, field);
+          cairo_show_page (cr);
+          ctx.field = NULL;
+          g_clear_pointer (&field, lamina_field_result_free);
+        }
       if (progress)
         progress (progress_data, i + 1, source->n);
     }

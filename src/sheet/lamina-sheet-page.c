@@ -688,6 +688,7 @@ sheet_draw_page (SheetContext             *ctx,
 {
   g_autofree char *warnings = dup_warnings_text (result);
   g_autofree char *notes = dup_notes_text (c, result);
+  g_autofree char *field_summary = ctx->field ? sheet_dup_field_summary (ctx->field) : NULL;
   g_autofree char *corrections = sheet_dup_corrections_text (c, result);
   g_autofree char *dynamic = lamina_dynamic_dup_text (c, result);
   g_autofree char *method = sheet_dup_method_text (c, result);
@@ -695,6 +696,12 @@ sheet_draw_page (SheetContext             *ctx,
   double ground_h = sheet_measure_ground (ctx, c, result), applied_h = 0;
   double page_h = ctx->bottom - ctx->top;
 
+  if (field_summary != NULL)
+    {
+      char *joined = g_strconcat (warnings, *warnings ? "\n" : "", "→  ", field_summary, NULL);
+      g_free (warnings);
+      warnings = joined;
+    }
   g_free (ctx->footer);
   ctx->footer = dup_footer (ctx, c);
   sheet_draw_frame (ctx, c->status == LAMINA_STATUS_DRAFT);

@@ -4,6 +4,7 @@
 
 #include <pango/pangocairo.h>
 
+#include "lamina-field.h"
 #include "lamina-section.h"
 #include "lamina-sheet.h"
 
@@ -48,6 +49,8 @@ typedef struct
   guint                     page, n_pages;
   const char               *dest;         /* named destination of the page */
   char                      printed[32];
+  const LaminaFieldResult  *field;        /* borrowed: the 2-D check of the
+                                             construction on the page, or NULL */
   char                     *footer;       /* owned: what the page is (practice,
                                              code, revision, date); NULL = the
                                              practice and the title */
@@ -162,6 +165,13 @@ double      sheet_draw_ground          (SheetContext             *ctx,
                                         double                    y);
 char       *sheet_dup_method_text      (const LaminaConstruction *c,
                                         const LaminaResult       *result);
+
+/* lamina-sheet-field.c: the 2-D check's page, and the sentence that the
+ * first page's warnings carry about it. */
+void        sheet_draw_field_page   (SheetContext             *ctx,
+                                     const LaminaConstruction *construction,
+                                     const LaminaFieldResult  *field);
+char       *sheet_dup_field_summary (const LaminaFieldResult  *field);
 
 const char *sheet_element_label (LaminaElement element);
 const char *sheet_status_label  (LaminaStatus  status);

@@ -52,6 +52,11 @@ typedef struct
                              SOURCE_DATE_EPOCH when set) */
   LaminaPaper  paper;
   const LaminaSheetJob *job; /* NULL: a library sheet */
+  gboolean     field_check; /* a single sheet of a construction outside the
+                               scope of EN ISO 6946 (lamina_field_is_advised)
+                               continues on a page with its 2-D check
+                               (EN ISO 10211), and its warnings say so;
+                               calculated while writing (seconds) */
 } LaminaSheetOptions;
 
 /* Returns an owned construction for @index (0 … n − 1), or NULL with

@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "lamina-catalogue.h"
+#include "lamina-field.h"
 #include "lamina-sheet.h"
 #include "lamina-sheet-format.h"
 #include "lamina-test-constructions.h"
@@ -352,6 +353,48 @@ test_warnings_printed (void)
   g_unlink (path);
 }
 
+/* Outside EN ISO 6946 the sheet continues with the 2-D check of EN ISO
+ * 10211 when asked: page 2 carries its U (the same figure
+ * lamina_field_calculate gives), the first page's warnings point to it,
+ * and a construction inside the method's scope gets no such page. */
+static void
+test_field_check_page (void)
+{
+  g_autoptr(LaminaConstruction) steel = lamina_test_steel_stud_wall ();
+  g_autoptr(LaminaConstruction) masonry = lamina_test_masonry_wall ();
+  g_autoptr(LaminaFieldResult) field = lamina_field_calculate (steel, 0, NULL, NULL, NULL);
+  g_autofree char *path = dup_temp_path ("steel-field.pdf");
+  g_autofree char *plain = dup_temp_path ("masonry-field.pdf");
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(PopplerDocument) doc_plain = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *first = NULL, *second = NULL, *u = NULL;
+  char u_text[LAMINA_FORMAT_SIZE];
+  LaminaSheetOptions options;
+
+  g_assert_nonnull (field);
+  init_options (&options);
+  options.field_check = TRUE;
+  g_assert_true (lamina_sheet_write_pdf (path, FALSE, &options, steel, &error));
+  g_assert_no_error (error);
+  doc = open_pdf (path);
+  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 2);
+  first = dup_page_text (doc, 0);
+  second = dup_page_text (doc, 1);
+  assert_contains (first, "2-D check (EN ISO 10211), next page", steel->code);
+  assert_contains (second, "2-D check, EN ISO 10211", steel->code);
+  u = g_strdup_printf ("U = %s W/(m²·K)", lamina_format_u (u_text, field->u));
+  assert_contains (second, u, steel->code);
+  assert_contains (second, "Page 2 of 2", steel->code);
+
+  g_assert_true (lamina_sheet_write_pdf (plain, FALSE, &options, masonry, &error));
+  g_assert_no_error (error);
+  doc_plain = open_pdf (plain);
+  g_assert_cmpint (poppler_document_get_n_pages (doc_plain), ==, 1);
+  g_unlink (path);
+  g_unlink (plain);
+}
+
 static void
 test_no_overwrite (void)
 {
@@ -689,6 +732,7 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/demo-nothing-cut", test_demo_nothing_cut);
   g_test_add_func ("/sheet/pdf/ground-floor-block", test_ground_floor_block);
   g_test_add_func ("/sheet/pdf/tapered-block", test_tapered_block);
+  g_test_add_func ("/sheet/pdf/field-check-page", test_field_check_page);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
   g_assert_nonnull (temp_dir);
   status = g_test_run ();
