@@ -31,6 +31,8 @@ struct _LaminaWindow
   GtkLabel               *toast_label;
   GtkWidget              *toast_undo;
   GtkWidget              *demo_button;
+  GtkStack               *view_stack;
+  LaminaJobsPage         *jobs_page;
 
   /* owned */
   LaminaLibrary          *library;

@@ -654,6 +654,7 @@ lamina_window_class_init (LaminaWindowClass *klass)
   GTK_WINDOW_CLASS (klass)->close_request = lamina_window_close_request;
 
   g_type_ensure (LAMINA_TYPE_EDITOR);
+  g_type_ensure (LAMINA_TYPE_JOBS_PAGE);
   gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-window.ui");
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, banner_revealer);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, banner_label);
@@ -674,6 +675,8 @@ lamina_window_class_init (LaminaWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, toast_undo);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, demo_button);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, view_stack);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, jobs_page);
 
   lamina_window_install_actions (widget_class);
 }
@@ -714,6 +717,7 @@ lamina_window_new (GtkApplication    *application,
 
   setup_filters (self);
   update_count (self);
+  lamina_jobs_page_set_library (self->jobs_page, library);
   self->poll_timeout = g_timeout_add_seconds (3, poll_library_cb, self);
 
   gtk_window_set_default_size (GTK_WINDOW (self),
@@ -742,4 +746,19 @@ lamina_window_get_editor (LaminaWindow *self)
 {
   g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
   return self->editor;
+}
+
+LaminaJobsPage *
+lamina_window_get_jobs_page (LaminaWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
+  return self->jobs_page;
+}
+
+void
+lamina_window_show_view (LaminaWindow *self,
+                         const char   *name)
+{
+  g_return_if_fail (LAMINA_IS_WINDOW (self));
+  gtk_stack_set_visible_child_name (self->view_stack, name);
 }

@@ -6,6 +6,7 @@
 
 #include "lamina-construction-list.h"
 #include "lamina-editor.h"
+#include "lamina-jobs-page.h"
 #include "store/lamina-library.h"
 
 G_BEGIN_DECLS
@@ -17,6 +18,10 @@ LaminaWindow           *lamina_window_new          (GtkApplication    *applicati
                                                     LaminaLibrary     *library);
 LaminaConstructionList *lamina_window_get_list     (LaminaWindow      *self);
 LaminaEditor           *lamina_window_get_editor   (LaminaWindow      *self);
+/* The Jobs view, and switching views ("library", "jobs"). */
+LaminaJobsPage         *lamina_window_get_jobs_page (LaminaWindow     *self);
+void                    lamina_window_show_view    (LaminaWindow      *self,
+                                                    const char        *name);
 /* Opens construction @id in the editor (and selects its row). */
 gboolean                lamina_window_open         (LaminaWindow      *self,
                                                     const char        *id,

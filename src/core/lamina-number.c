@@ -40,6 +40,7 @@ static const LaminaNumberRange ranges[LAMINA_N_FIELDS] = {
   [LAMINA_FIELD_FASTENER_COUNT]      = { N_("fasteners per square metre"), "1/m²", 0, 1000, TRUE },
   [LAMINA_FIELD_PRECIPITATION]       = { N_("precipitation"), "mm/day", 0, 100, FALSE },
   [LAMINA_FIELD_DRAINAGE_FACTOR]     = { N_("drainage factor"), "", 0, 1, FALSE },
+  [LAMINA_FIELD_AREA]                = { N_("area"), "m²", 0, 1e6, FALSE },
 };
 
 /* Other spellings of a unit that people type (ASCII forms). */

@@ -38,6 +38,7 @@ typedef enum
   LAMINA_FIELD_FASTENER_COUNT,       /* fasteners per m², above 0 to 1000 */
   LAMINA_FIELD_PRECIPITATION,        /* mm/day, 0 to 100 */
   LAMINA_FIELD_DRAINAGE_FACTOR,      /* inverted roof f, 0 to 1 */
+  LAMINA_FIELD_AREA,                 /* a job entry's area, m², 0 to 1000000 */
   LAMINA_N_FIELDS
 } LaminaNumberField;
 

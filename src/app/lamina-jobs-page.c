@@ -1,0 +1,574 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* LaminaJobsPage: the jobs of the library and one job — its data, its
+ * schedule checked against its targets (met / not met and every flag at a
+ * glance), adding from the library, moving an entry to a newer approved
+ * revision (recorded), removing an entry, and the sheet set as PDF. */
+#define G_LOG_DOMAIN "lamina-app"
+
+#include "config.h"
+
+#include "lamina-jobs-page.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+#include "lamina-settings.h"
+#include "lamina-sheet.h"
+#include "lamina-sheet-format.h"
+
+struct _LaminaJobsPage
+{
+  GtkBox           parent_instance;
+
+  /* template */
+  GtkListBox      *job_list;
+  GtkStack        *detail_stack;
+  GtkLabel        *title_label;
+  GtkGrid         *data_grid;
+  GtkLabel        *summary_label;
+  GtkListBox      *schedule_list;
+  GtkLabel        *totals_label;
+  GtkLabel        *status_label;
+
+  /* owned */
+  LaminaLibrary   *library;
+  GPtrArray       *jobs;          /* LaminaJob* */
+  LaminaJobReport *report;        /* the selected job, checked */
+  GSettings       *settings;
+  gboolean         filling;
+};
+
+G_DEFINE_FINAL_TYPE (LaminaJobsPage, lamina_jobs_page, GTK_TYPE_BOX)
+
+static void show_job (LaminaJobsPage *self, const char *id);
+
+/* The job list */
+
+static GtkWidget *
+create_job_row (const LaminaJob *job)
+{
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
+  GtkWidget *top = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
+  GtkWidget *number = gtk_label_new (job->number ? job->number : job->id);
+  GtkWidget *status = gtk_label_new (lamina_job_status_to_string (job->status));
+  GtkWidget *name = gtk_label_new (job->name);
+
+  gtk_widget_add_css_class (number, "lamina-row-code");
+  gtk_widget_set_hexpand (number, TRUE);
+  gtk_label_set_xalign (GTK_LABEL (number), 0);
+  gtk_widget_add_css_class (status, "dim-label");
+  gtk_label_set_xalign (GTK_LABEL (name), 0);
+  gtk_label_set_ellipsize (GTK_LABEL (name), PANGO_ELLIPSIZE_END);
+  gtk_box_append (GTK_BOX (top), number);
+  gtk_box_append (GTK_BOX (top), status);
+  gtk_box_append (GTK_BOX (box), top);
+  gtk_box_append (GTK_BOX (box), name);
+  gtk_widget_add_css_class (box, "lamina-library-row");
+  return box;
+}
+
+void
+lamina_jobs_page_reload (LaminaJobsPage *self)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *selected = g_strdup (lamina_jobs_page_get_job_id (self));
+  GtkWidget *child;
+
+  g_return_if_fail (LAMINA_IS_JOBS_PAGE (self));
+  if (self->library == NULL)
+    return;
+  g_clear_pointer (&self->jobs, g_ptr_array_unref);
+  self->jobs = lamina_library_list_jobs (self->library, &error);
+  if (self->jobs == NULL)
+    {
+      gtk_label_set_text (self->status_label, error->message);
+      self->jobs = g_ptr_array_new ();
+    }
+  self->filling = TRUE;
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->job_list))) != NULL)
+    gtk_list_box_remove (self->job_list, child);
+  for (guint i = 0; i < self->jobs->len; i++)
+    gtk_list_box_append (self->job_list, create_job_row (self->jobs->pdata[i]));
+  self->filling = FALSE;
+  if (selected == NULL || !lamina_jobs_page_select (self, selected))
+    show_job (self, NULL);
+}
+
+gboolean
+lamina_jobs_page_select (LaminaJobsPage *self,
+                         const char     *id)
+{
+  for (guint i = 0; self->jobs != NULL && i < self->jobs->len; i++)
+    if (g_strcmp0 (((LaminaJob *) self->jobs->pdata[i])->id, id) == 0)
+      {
+        self->filling = TRUE;
+        gtk_list_box_select_row (self->job_list, gtk_list_box_get_row_at_index (self->job_list, (int) i));
+        self->filling = FALSE;
+        show_job (self, id);
+        return TRUE;
+      }
+  return FALSE;
+}
+
+static void
+on_job_selected_cb (LaminaJobsPage *self,
+                    GtkListBoxRow  *row)
+{
+  if (self->filling)
+    return;
+  show_job (self, row != NULL
+            ? ((LaminaJob *) self->jobs->pdata[gtk_list_box_row_get_index (row)])->id : NULL);
+}
+
+/* The job's data */
+
+static void
+add_field (LaminaJobsPage *self,
+           int             row,
+           const char     *label,
+           const char     *value)
+{
+  GtkWidget *l = gtk_label_new (label);
+  GtkWidget *v = gtk_label_new (value && *value ? value : "—");
+
+  gtk_label_set_xalign (GTK_LABEL (l), 0);
+  gtk_widget_add_css_class (l, "dim-label");
+  gtk_label_set_xalign (GTK_LABEL (v), 0);
+  gtk_label_set_wrap (GTK_LABEL (v), TRUE);
+  gtk_label_set_selectable (GTK_LABEL (v), TRUE);
+  gtk_grid_attach (self->data_grid, l, 0, row, 1, 1);
+  gtk_grid_attach (self->data_grid, v, 1, row, 1, 1);
+}
+
+static void
+fill_data (LaminaJobsPage *self)
+{
+  const LaminaJob *job = self->report->job;
+  char inside[LAMINA_FORMAT_SIZE], outside[LAMINA_FORMAT_SIZE];
+  g_autofree char *conditions = g_strdup_printf (_("inside %s, outside %s"),
+                                                 lamina_format_temperature (inside, job->inside_temperature),
+                                                 lamina_format_temperature (outside, job->outside_temperature));
+  g_autofree char *targets = self->report->targets
+    ? g_strdup_printf ("%s (%s)", self->report->targets->name,
+                       self->report->targets->source ? self->report->targets->source : job->target_set)
+    : g_strdup (_("none set"));
+  GtkWidget *child;
+  int row = 0;
+
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->data_grid))) != NULL)
+    gtk_grid_remove (self->data_grid, child);
+  gtk_label_set_text (self->title_label, job->name);
+  add_field (self, row++, _("Number"), job->number);
+  add_field (self, row++, _("Client"), job->client);
+  add_field (self, row++, _("Site"), job->site);
+  add_field (self, row++, _("Architect"), job->architect);
+  add_field (self, row++, _("Status"), lamina_job_status_to_string (job->status));
+  add_field (self, row++, _("Design conditions"), conditions);
+  add_field (self, row++, _("Climate"), job->climate);
+  add_field (self, row++, _("Targets"), targets);
+}
+
+/* The schedule */
+
+typedef struct
+{
+  LaminaJobsPage *page;
+  int             entry;
+  int             revision;   /* for a move */
+} RowAction;
+
+static void
+on_move_clicked_cb (GtkButton *button,
+                    RowAction *action)
+{
+  LaminaJobsPage *self = action->page;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = g_strdup (lamina_jobs_page_get_job_id (self));
+
+  if (!lamina_library_move_job_entry (self->library, id, action->entry, action->revision, NULL, &error))
+    gtk_label_set_text (self->status_label, error->message);
+  show_job (self, id);
+}
+
+static void
+on_remove_clicked_cb (GtkButton *button,
+                      RowAction *action)
+{
+  LaminaJobsPage *self = action->page;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaJob) job = lamina_job_copy (self->report->job);
+
+  lamina_job_remove_entry (job, action->entry);
+  if (!lamina_library_save_job (self->library, job, &error))
+    gtk_label_set_text (self->status_label, error->message);
+  show_job (self, job->id);
+}
+
+static GtkWidget *
+create_action_button (LaminaJobsPage *self,
+                      const char     *label,
+                      int             entry,
+                      int             revision,
+                      GCallback       callback)
+{
+  GtkWidget *button = gtk_button_new_with_label (label);
+  RowAction *action = g_new0 (RowAction, 1);
+
+  *action = (RowAction) { self, entry, revision };
+  gtk_widget_add_css_class (button, "flat");
+  g_signal_connect_data (button, "clicked", callback, action, (GClosureNotify) (void (*) (void)) g_free, 0);
+  return button;
+}
+
+static GtkWidget *
+create_label (const char *text,
+              int         chars,
+              float       xalign)
+{
+  GtkWidget *label = gtk_label_new (text);
+
+  gtk_label_set_width_chars (GTK_LABEL (label), chars);
+  gtk_label_set_xalign (GTK_LABEL (label), xalign);
+  return label;
+}
+
+static const char *
+verdict_text (LaminaVerdict verdict)
+{
+  switch (verdict)
+    {
+    case LAMINA_VERDICT_MET:
+      return _("✓ met");
+    case LAMINA_VERDICT_NOT_MET:
+      return _("✗ not met");
+    case LAMINA_VERDICT_NO_TARGET:
+      return _("no target");
+    case LAMINA_VERDICT_NOT_CALCULATED:
+    case LAMINA_N_VERDICTS:
+    default:
+      return _("not calculated");
+    }
+}
+
+static GtkWidget *
+create_schedule_row (LaminaJobsPage      *self,
+                     const LaminaJobLine *line)
+{
+  const LaminaConstruction *c = line->construction;
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
+  GtkWidget *top = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10);
+  GtkWidget *name, *verdict;
+  char u[LAMINA_FORMAT_SIZE], max[LAMINA_FORMAT_SIZE], area[LAMINA_FORMAT_SIZE], ua[LAMINA_FORMAT_SIZE];
+  g_autofree char *title = g_strdup_printf ("%s%s%s", c ? c->name : line->entry->construction,
+                                            line->entry->location ? " — " : "",
+                                            line->entry->location ? line->entry->location : "");
+  g_autofree char *code = g_strdup_printf ("%s r%d", c && c->code ? c->code : line->entry->construction,
+                                           line->entry->revision);
+
+  gtk_box_append (GTK_BOX (top), create_label (code, 10, 0));
+  gtk_widget_add_css_class (gtk_widget_get_last_child (top), "lamina-row-code");
+  name = create_label (title, 10, 0);
+  gtk_widget_set_hexpand (name, TRUE);
+  gtk_label_set_ellipsize (GTK_LABEL (name), PANGO_ELLIPSIZE_END);
+  gtk_box_append (GTK_BOX (top), name);
+  gtk_box_append (GTK_BOX (top), create_label (line->entry->use, 16, 0));
+  gtk_box_append (GTK_BOX (top), create_label (isnan (line->u) ? "—" : lamina_format_fixed (u, line->u, 3), 6, 1));
+  gtk_box_append (GTK_BOX (top), create_label (isnan (line->max_u) ? "—" : lamina_format_fixed (max, line->max_u, 3), 6, 1));
+  verdict = create_label (verdict_text (line->verdict), 11, 0);
+  gtk_widget_add_css_class (verdict, "lamina-target");
+  if (line->verdict == LAMINA_VERDICT_MET || line->verdict == LAMINA_VERDICT_NOT_MET)
+    gtk_widget_add_css_class (verdict, line->verdict == LAMINA_VERDICT_MET ? "met" : "not-met");
+  gtk_box_append (GTK_BOX (top), verdict);
+  gtk_box_append (GTK_BOX (top), create_label (isnan (line->entry->area) ? "—"
+                                               : lamina_format_fixed (area, line->entry->area, 1), 7, 1));
+  gtk_box_append (GTK_BOX (top), create_label (isnan (line->ua) ? "—" : lamina_format_fixed (ua, line->ua, 2), 7, 1));
+  if (line->flags & LAMINA_ENTRY_NEWER_APPROVED)
+    {
+      g_autofree char *label = g_strdup_printf (_("Move to r%d"), line->newer_revision);
+
+      gtk_box_append (GTK_BOX (top), create_action_button (self, label, line->entry->n, line->newer_revision,
+                                                           G_CALLBACK (on_move_clicked_cb)));
+    }
+  gtk_box_append (GTK_BOX (top), create_action_button (self, _("Remove"), line->entry->n, 0,
+                                                       G_CALLBACK (on_remove_clicked_cb)));
+  gtk_box_append (GTK_BOX (box), top);
+  for (guint i = 0; i < line->notes->len; i++)
+    {
+      g_autofree char *text = g_strdup_printf ("⚠ %s", (const char *) line->notes->pdata[i]);
+      GtkWidget *note = create_label (text, 0, 0);
+
+      gtk_label_set_wrap (GTK_LABEL (note), TRUE);
+      gtk_widget_add_css_class (note, "dim-label");
+      gtk_widget_add_css_class (note, "caption");
+      gtk_box_append (GTK_BOX (box), note);
+    }
+  gtk_widget_set_margin_start (box, 8);
+  gtk_widget_set_margin_end (box, 8);
+  gtk_widget_set_margin_top (box, 4);
+  gtk_widget_set_margin_bottom (box, 4);
+  return box;
+}
+
+static char *
+dup_totals (const LaminaJobReport *report)
+{
+  const LaminaJobCheck *check = report->check;
+  GString *text = g_string_new (NULL);
+  char h[LAMINA_FORMAT_SIZE], a[LAMINA_FORMAT_SIZE], u[LAMINA_FORMAT_SIZE];
+
+  g_string_append_printf (text, _("H_T = Σ U·A = %s W/K over %s m² — the fabric of the listed elements only"),
+                          lamina_format_fixed (h, check->h_t, 2), lamina_format_fixed (a, check->area, 1));
+  for (guint k = 0; k < LAMINA_N_ELEMENTS; k++)
+    if (check->kinds[k].area > 0)
+      g_string_append_printf (text, _("\n%s: area-weighted mean U %s W/(m²·K) over %s m²"),
+                              lamina_element_to_string ((LaminaElement) k),
+                              lamina_format_fixed (u, check->kinds[k].mean_u, 3),
+                              lamina_format_fixed (a, check->kinds[k].area, 1));
+  if (report->job->junctions->len > 0)
+    g_string_append_printf (text, _("\nLinear thermal bridges entered by hand: Σ ψ·l = %s W/K; with them %s W/K"),
+                            lamina_format_fixed (h, check->h_junctions, 2),
+                            lamina_format_fixed (a, check->h_total, 2));
+  return g_string_free (text, FALSE);
+}
+
+static char *
+dup_summary (const LaminaJobCheck *check)
+{
+  if (check->lines->len == 0)
+    return g_strdup (_("The schedule is empty: add constructions from the library."));
+  if (check->n_not_met == 0 && check->n_open == 0)
+    return g_strdup_printf (_("✓ All %u entries meet their targets (%u with notes to read)."),
+                            check->lines->len, check->n_flagged);
+  return g_strdup_printf (_("✗ %u of %u entries meet their targets: %u not met, %u without a target or figure."),
+                          check->n_met, check->lines->len, check->n_not_met, check->n_open);
+}
+
+static void
+show_job (LaminaJobsPage *self,
+          const char     *id)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *summary = NULL, *totals = NULL;
+  GtkWidget *child;
+
+  g_clear_pointer (&self->report, lamina_job_report_free);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.add-entry", FALSE);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.print", FALSE);
+  if (id == NULL)
+    {
+      gtk_stack_set_visible_child_name (self->detail_stack, "empty");
+      return;
+    }
+  self->report = lamina_library_check_job (self->library, id, &error);
+  if (self->report == NULL)
+    {
+      gtk_label_set_text (self->status_label, error->message);
+      gtk_stack_set_visible_child_name (self->detail_stack, "empty");
+      return;
+    }
+  fill_data (self);
+  summary = dup_summary (self->report->check);
+  gtk_label_set_text (self->summary_label, summary);
+  gtk_widget_remove_css_class (GTK_WIDGET (self->summary_label), "met");
+  gtk_widget_remove_css_class (GTK_WIDGET (self->summary_label), "not-met");
+  gtk_widget_add_css_class (GTK_WIDGET (self->summary_label),
+                            self->report->check->n_not_met > 0 ? "not-met" : "met");
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->schedule_list))) != NULL)
+    gtk_list_box_remove (self->schedule_list, child);
+  for (guint i = 0; i < self->report->check->lines->len; i++)
+    gtk_list_box_append (self->schedule_list, create_schedule_row (self, self->report->check->lines->pdata[i]));
+  totals = dup_totals (self->report);
+  gtk_label_set_text (self->totals_label, totals);
+  gtk_stack_set_visible_child_name (self->detail_stack, "job");
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.add-entry", TRUE);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.print", TRUE);
+}
+
+const char *
+lamina_jobs_page_get_job_id (LaminaJobsPage *self)
+{
+  return self->report != NULL ? self->report->job->id : NULL;
+}
+
+const char *
+lamina_jobs_page_get_summary (LaminaJobsPage *self)
+{
+  return gtk_label_get_text (self->summary_label);
+}
+
+guint
+lamina_jobs_page_get_n_entries (LaminaJobsPage *self)
+{
+  return self->report != NULL ? self->report->check->lines->len : 0;
+}
+
+/* Adding */
+
+static void
+on_add_dialog_destroyed_cb (LaminaJobsPage *self)
+{
+  g_autofree char *id = g_strdup (lamina_jobs_page_get_job_id (self));
+
+  if (id != NULL)
+    show_job (self, id);
+}
+
+LaminaJobAddDialog *
+lamina_jobs_page_open_add_dialog (LaminaJobsPage *self,
+                                  const char     *use)
+{
+  LaminaJobAddDialog *dialog;
+
+  g_return_val_if_fail (self->report != NULL, NULL);
+  dialog = lamina_job_add_dialog_new (GTK_WINDOW (gtk_widget_get_root (GTK_WIDGET (self))),
+                                      self->library, self->report->job, self->report->targets);
+  lamina_job_add_dialog_set_use (dialog, use);
+  g_signal_connect_object (dialog, "destroy", G_CALLBACK (on_add_dialog_destroyed_cb), self,
+                           G_CONNECT_SWAPPED);
+  gtk_window_present (GTK_WINDOW (dialog));
+  return dialog;
+}
+
+static void
+add_entry_action (GtkWidget  *widget,
+                  const char *name,
+                  GVariant   *parameter)
+{
+  lamina_jobs_page_open_add_dialog (LAMINA_JOBS_PAGE (widget), NULL);
+}
+
+/* The sheet set */
+
+gboolean
+lamina_jobs_page_export (LaminaJobsPage  *self,
+                         const char      *path,
+                         GError         **error)
+{
+  g_autofree char *practice = g_settings_get_string (self->settings, "practice-name");
+  LaminaSheetOptions options;
+
+  g_return_val_if_fail (self->report != NULL, FALSE);
+  lamina_sheet_options_init (&options);
+  options.practice = *practice ? practice : NULL;
+  options.library = lamina_library_get_path (self->library);
+  return lamina_sheet_write_job (path, TRUE, &options, self->report->job, self->report->targets,
+                                 self->report->check, error);
+}
+
+static void
+on_print_response_cb (GtkNativeDialog *dialog,
+                      int              response,
+                      LaminaJobsPage  *self)
+{
+  if (response == GTK_RESPONSE_ACCEPT)
+    {
+      g_autoptr(GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
+      g_autofree char *path = g_file_get_path (file);
+      g_autoptr(GError) error = NULL;
+      g_autofree char *message = NULL;
+
+      if (lamina_jobs_page_export (self, path, &error))
+        message = g_strdup_printf (_("Sheet set written to %s"), path);
+      gtk_label_set_text (self->status_label, message ? message : error->message);
+    }
+  gtk_native_dialog_destroy (dialog);
+  g_object_unref (dialog);
+  g_object_unref (self);
+}
+
+static void
+print_action (GtkWidget  *widget,
+              const char *name,
+              GVariant   *parameter)
+{
+  LaminaJobsPage *self = LAMINA_JOBS_PAGE (widget);
+  GtkFileChooserNative *chooser;
+  g_autofree char *suggested = NULL;
+
+  if (self->report == NULL)
+    return;
+  suggested = g_strdup_printf ("%s.pdf", self->report->job->number ? self->report->job->number
+                                                                  : self->report->job->id);
+  g_strdelimit (suggested, "/\\:*?\"<>| ", '-');
+  chooser = gtk_file_chooser_native_new (_("Print the Job’s Sheet Set"),
+                                         GTK_WINDOW (gtk_widget_get_root (widget)),
+                                         GTK_FILE_CHOOSER_ACTION_SAVE, _("_Export"), _("_Cancel"));
+  gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (chooser), suggested);
+  gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
+  g_signal_connect (chooser, "response", G_CALLBACK (on_print_response_cb), g_object_ref (self));
+  gtk_native_dialog_show (GTK_NATIVE_DIALOG (chooser));
+}
+
+/* Life cycle */
+
+static void
+on_library_changed_cb (LaminaJobsPage *self)
+{
+  lamina_jobs_page_reload (self);
+}
+
+void
+lamina_jobs_page_set_library (LaminaJobsPage *self,
+                              LaminaLibrary  *library)
+{
+  g_return_if_fail (LAMINA_IS_JOBS_PAGE (self));
+  g_return_if_fail (self->library == NULL);
+
+  self->library = g_object_ref (library);
+  g_signal_connect_object (library, "changed", G_CALLBACK (on_library_changed_cb), self, G_CONNECT_SWAPPED);
+  lamina_jobs_page_reload (self);
+}
+
+static void
+lamina_jobs_page_dispose (GObject *object)
+{
+  LaminaJobsPage *self = LAMINA_JOBS_PAGE (object);
+
+  /* The list unselects its rows as it goes. */
+  self->filling = TRUE;
+  gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_JOBS_PAGE);
+  g_clear_object (&self->library);
+  g_clear_object (&self->settings);
+  G_OBJECT_CLASS (lamina_jobs_page_parent_class)->dispose (object);
+}
+
+static void
+lamina_jobs_page_finalize (GObject *object)
+{
+  LaminaJobsPage *self = LAMINA_JOBS_PAGE (object);
+
+  g_clear_pointer (&self->jobs, g_ptr_array_unref);
+  g_clear_pointer (&self->report, lamina_job_report_free);
+  G_OBJECT_CLASS (lamina_jobs_page_parent_class)->finalize (object);
+}
+
+static void
+lamina_jobs_page_class_init (LaminaJobsPageClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  object_class->dispose = lamina_jobs_page_dispose;
+  object_class->finalize = lamina_jobs_page_finalize;
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-jobs-page.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, job_list);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, detail_stack);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, title_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, data_grid);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, summary_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, schedule_list);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, totals_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, status_label);
+  gtk_widget_class_bind_template_callback (widget_class, on_job_selected_cb);
+  gtk_widget_class_install_action (widget_class, "jobs.add-entry", NULL, add_entry_action);
+  gtk_widget_class_install_action (widget_class, "jobs.print", NULL, print_action);
+}
+
+static void
+lamina_jobs_page_init (LaminaJobsPage *self)
+{
+  gtk_widget_init_template (GTK_WIDGET (self));
+  self->settings = lamina_settings_new ();
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.add-entry", FALSE);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.print", FALSE);
+}

@@ -1,0 +1,35 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-jobs-page.h: the Jobs view of the window — the jobs of the
+ * library, one job's data, its schedule checked against its targets at a
+ * glance, adding constructions from the library, and its sheet set. */
+#pragma once
+
+#include <gtk/gtk.h>
+
+#include "lamina-job-add-dialog.h"
+#include "lamina-library.h"
+
+G_BEGIN_DECLS
+
+#define LAMINA_TYPE_JOBS_PAGE (lamina_jobs_page_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaJobsPage, lamina_jobs_page, LAMINA, JOBS_PAGE, GtkBox)
+
+void        lamina_jobs_page_set_library   (LaminaJobsPage *self,
+                                            LaminaLibrary  *library);
+/* Re-reads the jobs (after a change of the library). */
+void        lamina_jobs_page_reload        (LaminaJobsPage *self);
+gboolean    lamina_jobs_page_select        (LaminaJobsPage *self,
+                                            const char     *id);
+const char *lamina_jobs_page_get_job_id    (LaminaJobsPage *self);
+/* The compliance line ("4 of 5 entries meet their target …"). */
+const char *lamina_jobs_page_get_summary   (LaminaJobsPage *self);
+guint       lamina_jobs_page_get_n_entries (LaminaJobsPage *self);
+/* Opens the add dialog with @use chosen (NULL: the first use). */
+LaminaJobAddDialog *lamina_jobs_page_open_add_dialog (LaminaJobsPage *self,
+                                                      const char     *use);
+/* Writes the selected job's sheet set to @path. */
+gboolean    lamina_jobs_page_export        (LaminaJobsPage *self,
+                                            const char     *path,
+                                            GError        **error);
+
+G_END_DECLS
