@@ -174,10 +174,11 @@ print_list (GPtrArray *rows)
        * one decimal everywhere (a 12.5 mm board is common).  The width
        * counts characters: "–" (no U) is three bytes. */
       lamina_format_u (u, s->u_corrected);
-      printf ("%-10s %s %-9s %-8s %4d %*s %7.1f%s\n", s->code ? s->code : "-", name,
+      printf ("%-10s %s %-9s %-8s %4d %*s %7.1f%s%s\n", s->code ? s->code : "-", name,
               lamina_element_to_string (s->element), lamina_status_to_string (s->status),
               s->revision, 7 + (int) (strlen (u) - g_utf8_strlen (u, -1)), u, s->thickness,
-              (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _("  material data changed since review") : "");
+              (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _("  material data changed since review") : "",
+              (s->flags & LAMINA_SUMMARY_MOISTURE_FAILS) ? _("  fails its moisture check") : "");
     }
 }
 
@@ -281,6 +282,8 @@ print_list_json (GPtrArray *rows)
       lamina_cli_json_add_number (b, "thickness", s->thickness / 1000.0);
       json_builder_set_member_name (b, "material_changed");
       json_builder_add_boolean_value (b, (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) != 0);
+      json_builder_set_member_name (b, "moisture_fails");
+      json_builder_add_boolean_value (b, (s->flags & LAMINA_SUMMARY_MOISTURE_FAILS) != 0);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
@@ -294,7 +297,7 @@ lamina_cli_list (const LaminaCliGlobals *globals,
                  char                  **argv)
 {
   g_autofree char *search = NULL, *element = NULL, *status = NULL, *max_u = NULL;
-  g_autofree char *tag = NULL, *meets = NULL, *sort = NULL;
+  g_autofree char *tag = NULL, *meets = NULL, *sort = NULL, *moisture = NULL;
   gboolean json = FALSE;
   const GOptionEntry entries[] = {
     { "search", 0, 0, G_OPTION_ARG_STRING, &search, N_("Words to find (prefixes of code, name, description, tags, materials)"), "TEXT" },
@@ -305,6 +308,8 @@ lamina_cli_list (const LaminaCliGlobals *globals,
     { "meets", 0, 0, G_OPTION_ARG_STRING, &meets, N_("Only constructions that meet the target U (corrected U ≤ U)"), "U" },
     { "sort", 0, 0, G_OPTION_ARG_STRING, &sort, N_("Order: code, name, u, thickness, modified, relevance"), "KEY" },
     { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON (SI units: thickness in m)"), NULL },
+    { "moisture", 0, 0, G_OPTION_ARG_STRING, &moisture,
+      N_("“fails”: only constructions that fail their EN ISO 13788 check"), "fails" },
     { NULL }
   };
   g_autoptr(GOptionContext) context = g_option_context_new (_("— list the constructions of the library"));
@@ -326,6 +331,12 @@ lamina_cli_list (const LaminaCliGlobals *globals,
   q.tag = tag;
   if (!parse_list_filters (element, status, max_u, meets, sort, &q))
     return LAMINA_EXIT_USAGE;
+  if (moisture != NULL && strcmp (moisture, "fails") != 0)
+    {
+      lamina_cli_error (_("--moisture: unknown filter “%s” (fails)"), moisture);
+      return LAMINA_EXIT_USAGE;
+    }
+  q.moisture_fails_only = moisture != NULL;
 
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL)
@@ -433,7 +444,14 @@ lamina_cli_show (const LaminaCliGlobals *globals,
       g_autoptr(JsonArray) array = json_array_new ();
       g_autofree char *text = NULL;
 
-      json_array_add_element (array, lamina_cli_result_to_json (c, result));
+      JsonNode *node = lamina_cli_result_to_json (c, result);
+
+      json_array_add_element (array, node);
+      if (!lamina_cli_add_moisture (node, c, &error))
+        {
+          lamina_cli_error ("%s", error->message);
+          return LAMINA_EXIT_BAD_INPUT;
+        }
       text = lamina_cli_json_document (g_steal_pointer (&array));
       printf ("%s\n", text);
       return LAMINA_EXIT_OK;

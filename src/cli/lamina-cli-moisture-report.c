@@ -126,3 +126,48 @@ lamina_cli_print_moisture (FILE                       *out,
   for (guint i = 0; i < r->warnings->len; i++)
     fprintf (out, "  ! %s\n", ((LaminaMoistureWarning *) r->warnings->pdata[i])->message);
 }
+
+/* The check of a construction that carries its climate data; NULL (and
+ * no error) when it has none, NULL with @error when it cannot be made. */
+static LaminaMoistureResult *
+calculate_own (const LaminaConstruction *c,
+               GError                  **error)
+{
+  return c->moisture == NULL ? NULL : lamina_moisture_calculate_own (c, NAN, error);
+}
+
+gboolean
+lamina_cli_add_moisture (JsonNode                 *node,
+                         const LaminaConstruction *c,
+                         GError                  **error)
+{
+  g_autoptr(GError) local = NULL;
+  g_autoptr(LaminaMoistureResult) result = calculate_own (c, &local);
+
+  if (result != NULL)
+    json_object_set_member (json_node_get_object (node), "moisture",
+                            lamina_cli_moisture_to_json (c, c->moisture->climate_data, result));
+  if (local == NULL)
+    return TRUE;
+  g_propagate_error (error, g_steal_pointer (&local));
+  return FALSE;
+}
+
+gboolean
+lamina_cli_print_moisture_own (FILE                     *out,
+                               const LaminaConstruction *c,
+                               GError                  **error)
+{
+  g_autoptr(GError) local = NULL;
+  g_autoptr(LaminaMoistureResult) result = calculate_own (c, &local);
+
+  if (result != NULL)
+    {
+      fprintf (out, "\n");
+      lamina_cli_print_moisture (out, c, c->moisture->climate_data, result);
+    }
+  if (local == NULL)
+    return TRUE;
+  g_propagate_error (error, g_steal_pointer (&local));
+  return FALSE;
+}

@@ -340,6 +340,7 @@ lamina_moisture_settings_copy (const LaminaMoistureSettings *settings)
 
   copy = g_memdup2 (settings, sizeof *settings);
   copy->climate = g_strdup (settings->climate);
+  copy->climate_data = settings->climate_data ? lamina_climate_copy (settings->climate_data) : NULL;
   return copy;
 }
 
@@ -349,6 +350,7 @@ lamina_moisture_settings_free (LaminaMoistureSettings *settings)
   if (settings == NULL)
     return;
   g_free (settings->climate);
+  lamina_climate_free (settings->climate_data);
   g_free (settings);
 }
 
@@ -363,7 +365,10 @@ lamina_moisture_settings_equal (const LaminaMoistureSettings *a,
   return g_strcmp0 (a->climate, b->climate) == 0
          && a->humidity_class == b->humidity_class
          && same_value (a->inside_humidity, b->inside_humidity)
-         && same_value (a->inside_temperature, b->inside_temperature);
+         && same_value (a->inside_temperature, b->inside_temperature)
+         /* Data not yet resolved (NULL) are not a difference. */
+         && (a->climate_data == NULL || b->climate_data == NULL
+             || lamina_climate_equal (a->climate_data, b->climate_data));
 }
 
 void

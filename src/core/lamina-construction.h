@@ -8,6 +8,7 @@
 
 #include <glib-object.h>
 
+#include "lamina-climate.h"
 #include "lamina-material.h"
 #include "lamina-types.h"
 
@@ -89,6 +90,10 @@ typedef struct
   int     humidity_class;              /* 1–5, or 0 when inside_humidity is given */
   double  inside_humidity;             /* φi 0–1, or NAN */
   double  inside_temperature;          /* θi °C, or NAN: the construction's */
+  /* The climate's data as the construction was checked with (like a
+   * layer's copy of its material); NULL until resolved from a library or
+   * a catalogue.  Its id is @climate. */
+  LaminaClimate *climate_data;
   int     line;
 } LaminaMoistureSettings;
 /* The building a ground floor sits in, EN ISO 13370:2017.  A catalogue

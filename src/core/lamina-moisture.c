@@ -533,7 +533,7 @@ lamina_moisture_calculate (const LaminaConstruction *construction,
   g_autoptr(LaminaResult) thermal = NULL;
   g_autoptr(LaminaMoistureResult) result = NULL;
 
-  g_return_val_if_fail (c != NULL && climate != NULL, NULL);
+  g_return_val_if_fail (c != NULL, NULL);
 
   if (c->moisture == NULL)
     {
@@ -541,11 +541,11 @@ lamina_moisture_calculate (const LaminaConstruction *construction,
                    _("construction “%s” has no moisture settings"), c->id ? c->id : "");
       return NULL;
     }
-  if (g_strcmp0 (c->moisture->climate, climate->id) != 0)
+  if (climate == NULL || g_strcmp0 (c->moisture->climate, climate->id) != 0)
     {
       g_set_error (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_INVALID,
                    _("construction “%s” is checked for climate “%s”, not “%s”"),
-                   c->id ? c->id : "", c->moisture->climate, climate->id);
+                   c->id ? c->id : "", c->moisture->climate, climate ? climate->id : "");
       return NULL;
     }
   if (!lamina_climate_validate (climate, error)
@@ -560,4 +560,23 @@ lamina_moisture_calculate (const LaminaConstruction *construction,
   check_interstitial (result);
   add_findings (result);
   return g_steal_pointer (&result);
+}
+
+LaminaMoistureResult *
+lamina_moisture_calculate_own (const LaminaConstruction *construction,
+                               double                    limit,
+                               GError                  **error)
+{
+  g_return_val_if_fail (construction != NULL, NULL);
+
+  if (construction->moisture != NULL && construction->moisture->climate_data == NULL)
+    {
+      g_set_error (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_INVALID,
+                   _("moisture check: the data of climate “%s” are not known"),
+                   construction->moisture->climate);
+      return NULL;
+    }
+  return lamina_moisture_calculate (construction,
+                                    construction->moisture ? construction->moisture->climate_data : NULL,
+                                    limit, error);
 }

@@ -117,6 +117,12 @@ LaminaMoistureResult *lamina_moisture_calculate (const LaminaConstruction *const
                                                  double                    limit,
                                                  GError                  **error);
 
+/* The same with the climate data the construction carries
+ * (settings->climate_data); INVALID when it has none. */
+LaminaMoistureResult *lamina_moisture_calculate_own (const LaminaConstruction *construction,
+                                                     double                    limit,
+                                                     GError                  **error);
+
 /* EN ISO 13788:2012 Annex E (E.1, E.2; from memory): saturated vapour
  * pressure, Pa, over water (θ ≥ 0 °C) and over ice (θ < 0 °C). */
 double                lamina_saturation_pressure (double temperature);

@@ -627,9 +627,13 @@ check_moisture (Reader             *r,
   if (!lamina_catalogue_check_moisture (r->catalogue, c, &line, &local))
     return fail (r, line > 0 ? line : c->line, LAMINA_XML_ERROR_INVALID,
                  _("construction “%s”: %s"), c->id, local->message);
+  /* The construction carries the climate it is checked with. */
+  lamina_climate_free (c->moisture->climate_data);
+  c->moisture->climate_data = lamina_climate_copy (lamina_catalogue_find_climate (r->catalogue,
+                                                                                c->moisture->climate));
+  c->moisture->climate_data->line = 0;
   /* Other needs of the method (a declared resistance without sd). */
-  result = lamina_moisture_calculate (c, lamina_catalogue_find_climate (r->catalogue, c->moisture->climate),
-                                      NAN, &local);
+  result = lamina_moisture_calculate_own (c, NAN, &local);
   if (result == NULL)
     return fail (r, c->moisture->line, LAMINA_XML_ERROR_INVALID,
                  _("construction “%s”: %s"), c->id, local->message);

@@ -110,6 +110,15 @@ typedef struct
   gboolean            (*put_field_check)    (LaminaBackend *backend, const char *id,
                                              int revision, const char *body,
                                              const char *now, GError **error);
+
+  /* Climates (EN ISO 13788); put also refreshes the flags of the
+   * constructions checked with other data for it. */
+  GPtrArray          *(*list_climates)      (LaminaBackend *backend, GError **error);
+  LaminaClimate      *(*get_climate)        (LaminaBackend *backend, const char *id,
+                                             GError **error);
+  gboolean            (*put_climate)        (LaminaBackend *backend,
+                                             const LaminaClimate *climate,
+                                             const char *now, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend
@@ -166,6 +175,9 @@ void           lamina_library_set_new_draft (LaminaConstruction *c,
                                              int                 revision,
                                              const char         *author);
 void           lamina_library_emit_changed (LaminaLibrary *self);
+/* lamina-library-climates.c: LAMINA_SUMMARY_HAS_MOISTURE and
+ * LAMINA_SUMMARY_MOISTURE_FAILS for a construction about to be stored. */
+LaminaSummaryFlags lamina_library_moisture_flags (const LaminaConstruction *construction);
 
 /* For the front end's files: the library's backend and its table, and
  * the refusal of every operation on a closed library. */

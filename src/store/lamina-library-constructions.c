@@ -39,6 +39,31 @@ lamina_library_set_new_draft (LaminaConstruction *c,
   c->modified_at = lamina_library_dup_now ();
 }
 
+/* A moisture check carries the data of its climate: the library's, when it
+ * has none yet or names another climate now (EN ISO 13788). */
+static gboolean
+resolve_climate (LaminaLibrary       *self,
+                 LaminaConstruction  *c,
+                 GError             **error)
+{
+  LaminaMoistureSettings *m = c->moisture;
+  g_autoptr(GError) local = NULL;
+  LaminaClimate *climate;
+
+  if (m == NULL || (m->climate_data != NULL && g_strcmp0 (m->climate_data->id, m->climate) == 0))
+    return TRUE;
+  climate = VT (self)->get_climate (BE (self), m->climate ? m->climate : "", &local);
+  if (climate == NULL)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                   "moisture check: %s", local->message);
+      return FALSE;
+    }
+  lamina_climate_free (m->climate_data);
+  m->climate_data = climate;
+  return TRUE;
+}
+
 static gboolean
 store (LaminaLibrary       *self,
        LaminaConstruction  *c,
@@ -56,6 +81,8 @@ store (LaminaLibrary       *self,
                            "construction name: required");
       return FALSE;
     }
+  if (!resolve_climate (self, c, error))
+    return FALSE;
   lamina_library_prepare_revision (c, &result, &calc_error);
   rev.result = result;
   rev.calc_error = calc_error;

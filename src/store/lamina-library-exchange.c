@@ -53,6 +53,55 @@ add_item (LaminaImportReport *report,
   lamina_import_report_add_item (report, action, is_material, id, name, revision, message);
 }
 
+/* A climate of the document (EN ISO 13788): added when new, replaced when
+ * different only with LAMINA_IMPORT_UPDATE_MATERIALS (the constructions
+ * checked with it are then flagged), as for materials.  Imported
+ * constructions keep the climate data of their document. */
+static gboolean
+merge_climate (LaminaLibrary        *self,
+               const LaminaClimate  *climate,
+               LaminaImportFlags     flags,
+               LaminaImportReport   *report,
+               GPtrArray            *to_put,
+               GError              **error)
+{
+  g_autoptr(GError) local = NULL;
+  g_autoptr(LaminaClimate) existing = VT (self)->get_climate (BE (self), climate->id, &local);
+  g_autoptr(LaminaClimate) copy = lamina_climate_copy (climate);
+
+  if (existing == NULL && !g_error_matches (local, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND))
+    {
+      g_propagate_error (error, g_steal_pointer (&local));
+      return FALSE;
+    }
+  copy->line = 0;
+  if (existing == NULL)
+    {
+      add_item (report, LAMINA_IMPORT_ADDED, FALSE, climate->id, climate->name, 0,
+                g_strdup_printf (_("climate “%s” added"), climate->name));
+      g_ptr_array_add (to_put, g_steal_pointer (&copy));
+    }
+  else if (!lamina_climate_equal (existing, copy))
+    {
+      if (flags & LAMINA_IMPORT_UPDATE_MATERIALS)
+        {
+          add_item (report, LAMINA_IMPORT_REVISED, FALSE, climate->id, climate->name, 0,
+                    g_strdup_printf (_("climate “%s” updated; constructions checked with it "
+                                       "are flagged for review"), climate->name));
+          g_ptr_array_add (to_put, g_steal_pointer (&copy));
+        }
+      else
+        {
+          report->n_conflicts++;
+          add_item (report, LAMINA_IMPORT_CONFLICT, FALSE, climate->id, climate->name, 0,
+                    g_strdup_printf (_("climate “%s” differs from the library's; the library's "
+                                       "is kept (imported constructions keep their own data)"),
+                                     climate->name));
+        }
+    }
+  return TRUE;
+}
+
 static gboolean
 merge_material (LaminaLibrary         *self,
                 const LaminaMaterial  *m,
@@ -193,6 +242,7 @@ lamina_library_import (LaminaLibrary          *self,
 {
   g_autoptr(LaminaImportReport) report = lamina_import_report_new ();
   g_autoptr(GPtrArray) materials = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
+  g_autoptr(GPtrArray) climates = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_climate_free);
   g_autoptr(GPtrArray) keep = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
   g_autoptr(GPtrArray) revisions = g_ptr_array_new_with_free_func ((GDestroyNotify) revision_free);
   g_autoptr(GArray) bases = g_array_new (FALSE, FALSE, sizeof (int));
@@ -213,6 +263,9 @@ lamina_library_import (LaminaLibrary          *self,
 
   for (guint i = 0; catalogue->materials && i < catalogue->materials->len; i++)
     if (!merge_material (self, catalogue->materials->pdata[i], flags, report, materials, error))
+      return NULL;
+  for (guint i = 0; catalogue->climates && i < catalogue->climates->len; i++)
+    if (!merge_climate (self, catalogue->climates->pdata[i], flags, report, climates, error))
       return NULL;
   for (guint i = 0; i < catalogue->constructions->len; i++)
     {
@@ -252,6 +305,11 @@ lamina_library_import (LaminaLibrary          *self,
     return NULL;
   if (flags & LAMINA_IMPORT_DRY_RUN)
     return g_steal_pointer (&report);
+  /* Climates go first, each in its own transaction: if the constructions
+   * then fail, the library holds extra climates and nothing else. */
+  for (guint i = 0; i < climates->len; i++)
+    if (!VT (self)->put_climate (BE (self), climates->pdata[i], now, error))
+      return NULL;
   import.materials = materials;
   import.revisions = revisions;
   import.base_revisions = bases;
@@ -259,7 +317,8 @@ lamina_library_import (LaminaLibrary          *self,
   import.jobs = jobs;
   if (!VT (self)->apply_import_records (BE (self), &import, now, error))
     return NULL;
-  if (materials->len > 0 || revisions->len > 0 || target_sets->len > 0 || jobs->len > 0)
+  if (materials->len > 0 || revisions->len > 0 || target_sets->len > 0 || jobs->len > 0
+      || climates->len > 0)
     lamina_library_emit_changed (self);
   return g_steal_pointer (&report);
 }
@@ -282,6 +341,44 @@ collect_ids (GHashTable               *ids,
             g_hash_table_add (ids, p->material->id);
         }
     }
+}
+
+/* Every library climate for a whole export, else the ones the exported
+ * constructions are checked with; a climate missing from the library is
+ * written from the construction's own copy. */
+static gboolean
+export_climates (LaminaLibrary   *self,
+                 LaminaCatalogue *cat,
+                 gboolean         all,
+                 GError         **error)
+{
+  g_autoptr(GPtrArray) library = VT (self)->list_climates (BE (self), error);
+
+  if (library == NULL)
+    return FALSE;
+  for (guint i = 0; i < library->len; i++)
+    {
+      LaminaClimate *climate = library->pdata[i];
+      gboolean used = all;
+
+      for (guint k = 0; !used && k < cat->constructions->len; k++)
+        {
+          const LaminaConstruction *c = cat->constructions->pdata[k];
+
+          used = c->moisture != NULL && g_strcmp0 (c->moisture->climate, climate->id) == 0;
+        }
+      if (used)
+        g_ptr_array_add (cat->climates, lamina_climate_copy (climate));
+    }
+  for (guint k = 0; k < cat->constructions->len; k++)
+    {
+      const LaminaConstruction *c = cat->constructions->pdata[k];
+
+      if (c->moisture != NULL && c->moisture->climate_data != NULL
+          && lamina_catalogue_find_climate (cat, c->moisture->climate) == NULL)
+        g_ptr_array_add (cat->climates, lamina_climate_copy (c->moisture->climate_data));
+    }
+  return TRUE;
 }
 
 LaminaCatalogue *
@@ -317,6 +414,8 @@ lamina_library_export (LaminaLibrary       *self,
       g_ptr_array_add (cat->constructions, c);
       collect_ids (used, c);
     }
+  if (!export_climates (self, cat, all != NULL, error))
+    return NULL;
   if (all != NULL)
     {
       g_autoptr(GPtrArray) materials = VT (self)->list_materials (BE (self), error);
@@ -442,6 +541,16 @@ lamina_library_update_materials (LaminaLibrary  *self,
       refresh_material (self, &layer->material);
       for (guint k = 0; layer->parts && k < layer->parts->len; k++)
         refresh_material (self, &((LaminaPart *) layer->parts->pdata[k])->material);
+    }
+  if (c->moisture != NULL)
+    {
+      LaminaClimate *library = VT (self)->get_climate (BE (self), c->moisture->climate, NULL);
+
+      if (library != NULL)
+        {
+          lamina_climate_free (c->moisture->climate_data);
+          c->moisture->climate_data = library;
+        }
     }
   if (!lamina_library_save_construction (self, c, c->revision, author, error))
     return 0;

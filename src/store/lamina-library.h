@@ -55,7 +55,7 @@ typedef enum
 GQuark lamina_library_error_quark (void);
 
 /* The schema version this build writes (PRAGMA user_version). */
-#define LAMINA_LIBRARY_SCHEMA_VERSION 5
+#define LAMINA_LIBRARY_SCHEMA_VERSION 6
 
 typedef enum
 {
@@ -103,6 +103,22 @@ LaminaMaterial *lamina_library_dup_material  (LaminaLibrary        *self,
  * different data for it become flagged; they are not changed. */
 gboolean       lamina_library_put_material   (LaminaLibrary        *self,
                                               LaminaMaterial       *material,
+                                              GError              **error);
+
+/* ---- Climates (EN ISO 13788) ------------------------------------------ */
+
+/* LaminaClimate*, sorted by name. */
+GPtrArray     *lamina_library_list_climates  (LaminaLibrary        *self,
+                                              GError              **error);
+LaminaClimate *lamina_library_dup_climate    (LaminaLibrary        *self,
+                                              const char           *id,
+                                              GError              **error);
+/* Adds or replaces the climate with @climate->id (validated).  The
+ * constructions checked with other data for it become flagged
+ * (LAMINA_SUMMARY_MATERIAL_CHANGED, as for a material); they are not
+ * changed. */
+gboolean       lamina_library_put_climate    (LaminaLibrary        *self,
+                                              const LaminaClimate  *climate,
                                               GError              **error);
 
 /* ---- Constructions --------------------------------------------------- */
@@ -249,6 +265,7 @@ typedef struct
   double         min_thickness; /* mm; NAN = open */
   double         max_thickness;
   gboolean       material_changed_only;
+  gboolean       moisture_fails_only;  /* fails its EN ISO 13788 check */
   LaminaSortKey  sort;
   gboolean       descending;
   guint          offset;        /* paging for a virtualised list */
@@ -265,6 +282,8 @@ typedef enum
   LAMINA_SUMMARY_TARGET_NOT_MET   = 1 << 1, /* corrected U above target U */
   LAMINA_SUMMARY_HAS_WARNINGS     = 1 << 2, /* lamina_calculate gave warnings */
   LAMINA_SUMMARY_NOT_CALCULATED   = 1 << 3, /* invalid: U and figures are NAN */
+  LAMINA_SUMMARY_MOISTURE_FAILS   = 1 << 8, /* fails its EN ISO 13788 check */
+  LAMINA_SUMMARY_HAS_MOISTURE     = 1 << 9, /* has an EN ISO 13788 check */
 } LaminaSummaryFlags;
 
 /* A light row of the list: no layers. */

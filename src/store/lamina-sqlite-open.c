@@ -108,6 +108,10 @@ static const LaminaBackendVTable sqlite_vtable = {
   .apply_import_records = lamina_sqlite_backend_apply_import_records,
   .get_field_check = lamina_sqlite_backend_get_field_check,
   .put_field_check = lamina_sqlite_backend_put_field_check,
+
+  .list_climates = lamina_sqlite_backend_list_climates,
+  .get_climate = lamina_sqlite_backend_get_climate,
+  .put_climate = lamina_sqlite_backend_put_climate,
 };
 
 static LaminaSqlite *

@@ -108,6 +108,22 @@ gboolean            lamina_sqlite_backend_apply_import     (LaminaBackend *backe
                                                             GError **error);
 GPtrArray          *lamina_sqlite_backend_list_ids         (LaminaBackend *backend,
                                                             GError **error);
+/* lamina-sqlite-climates.c: */
+GPtrArray          *lamina_sqlite_backend_list_climates    (LaminaBackend *backend,
+                                                            GError **error);
+LaminaClimate      *lamina_sqlite_backend_get_climate      (LaminaBackend *backend,
+                                                            const char *id,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_put_climate      (LaminaBackend *backend,
+                                                            const LaminaClimate *climate,
+                                                            const char *now,
+                                                            GError **error);
+/* Sets the "changed since review" flag of every construction whose latest
+ * revision was checked with other data for climate @climate_id (NULL:
+ * any); run after the material flags, which it only adds to. */
+gboolean            lamina_sqlite_refresh_climate_flags    (LaminaSqlite *self,
+                                                            const char   *climate_id,
+                                                            GError      **error);
 /* lamina-sqlite-search.c: */
 GPtrArray          *lamina_sqlite_backend_search           (LaminaBackend *backend,
                                                             const LaminaLibraryQuery *query,

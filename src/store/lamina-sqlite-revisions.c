@@ -285,7 +285,7 @@ put_construction_row (LaminaSqlite              *self,
   lamina_sqlite_bind_double (stmt, 8, r ? r->u_corrected : NAN);
   lamina_sqlite_bind_double (stmt, 9, c->target_u);
   lamina_sqlite_bind_double (stmt, 10, lamina_construction_get_thickness (c));
-  sqlite3_bind_int (stmt, 11, summary_flags (r));
+  sqlite3_bind_int (stmt, 11, summary_flags (r) | lamina_library_moisture_flags (c));
   lamina_sqlite_bind_text (stmt, 12, c->modified_at);
   if (sqlite3_step (stmt) != SQLITE_ROW)
     {
@@ -353,7 +353,9 @@ refresh_material_changed (LaminaSqlite              *self,
     return FALSE;
   lamina_sqlite_bind_text (stmt, 1, c->id);
   sqlite3_bind_int (stmt, 2, c->revision);
-  return lamina_sqlite_step_done (self, stmt, error);
+  if (!lamina_sqlite_step_done (self, stmt, error))
+    return FALSE;
+  return c->moisture == NULL || lamina_sqlite_refresh_climate_flags (self, c->moisture->climate, error);
 }
 
 static gboolean

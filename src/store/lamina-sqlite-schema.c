@@ -179,12 +179,26 @@ static const char schema_v5[] =
   "  FOREIGN KEY (construction_id, revision) REFERENCES revision (construction_id, revision)"
   ") WITHOUT ROWID;";
 
+/* Version 6: climates (EN ISO 13788), the external climate a
+ * construction's moisture check refers to by id; the months are a JSON
+ * body, the fingerprint flags constructions checked with other data. */
+static const char schema_v6[] =
+  "CREATE TABLE climate ("
+  "  id TEXT PRIMARY KEY,"
+  "  name TEXT NOT NULL,"
+  "  source TEXT,"
+  "  months TEXT NOT NULL,"
+  "  fingerprint TEXT NOT NULL,"
+  "  modified_at TEXT NOT NULL"
+  ");";
+
 static const char *const steps[] = {
   schema_v1,
   schema_v2,
   schema_v3,
   schema_v4,
   schema_v5,
+  schema_v6,
 };
 
 G_STATIC_ASSERT (G_N_ELEMENTS (steps) == LAMINA_LIBRARY_SCHEMA_VERSION);

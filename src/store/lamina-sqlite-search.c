@@ -113,6 +113,8 @@ append_filters (GString                  *sql,
     g_string_append (sql, " AND c.thickness <= ?8");
   if (q->material_changed_only)
     g_string_append (sql, " AND c.material_changed");
+  if (q->moisture_fails_only)
+    g_string_append (sql, " AND (c.flags & 256) <> 0");
 }
 
 static void
@@ -199,7 +201,8 @@ lamina_sqlite_backend_count (LaminaBackend             *backend,
   g_autoptr(GString) sql = g_string_new ("SELECT count(*)");
   gboolean text_only = fts != NULL && q->element < 0 && q->status < 0 && q->tag == NULL
                        && isnan (q->min_u) && isnan (q->max_u) && isnan (q->min_thickness)
-                       && isnan (q->max_thickness) && !q->material_changed_only;
+                       && isnan (q->max_thickness) && !q->material_changed_only
+                       && !q->moisture_fails_only;
   sqlite3_stmt *stmt;
   gint64 n = -1;
   int rc;

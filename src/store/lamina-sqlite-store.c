@@ -102,7 +102,9 @@ lamina_sqlite_refresh_material_flags (LaminaSqlite  *self,
   if (stmt == NULL)
     return FALSE;
   lamina_sqlite_bind_text (stmt, 1, material_id);
-  return lamina_sqlite_step_done (self, stmt, error);
+  /* A climate changed since review flags the construction as well. */
+  return lamina_sqlite_step_done (self, stmt, error)
+         && lamina_sqlite_refresh_climate_flags (self, NULL, error);
 }
 
 static gboolean

@@ -156,6 +156,8 @@ add_layer (JsonBuilder       *b,
       json_builder_end_array (b);
     }
   add_corrections (b, &layer->corrections);
+  if (!isnan (layer->sd))
+    add_number (b, "sd", layer->sd);
   add_string (b, "note", layer->note);
   if (lamina_layer_is_tapered (layer))
     {
@@ -225,6 +227,54 @@ add_method (JsonBuilder              *b,
     }
 }
 
+
+static void
+add_months (JsonBuilder         *b,
+            const LaminaClimate *climate)
+{
+  const char *keys[2] = { "temperature", "humidity" };
+  const double *values[2] = { climate->temperature, climate->humidity };
+
+  for (int k = 0; k < 2; k++)
+    {
+      json_builder_set_member_name (b, keys[k]);
+      json_builder_begin_array (b);
+      for (int m = 0; m < LAMINA_MONTHS; m++)
+        json_builder_add_double_value (b, values[k][m]);
+      json_builder_end_array (b);
+    }
+}
+
+/* EN ISO 13788 settings, with the climate data as checked and their
+ * fingerprint (for the "changed since review" flag). */
+static void
+add_moisture (JsonBuilder                  *b,
+              const LaminaMoistureSettings *m)
+{
+  if (m == NULL)
+    return;
+  json_builder_set_member_name (b, "moisture");
+  json_builder_begin_object (b);
+  add_string (b, "climate", m->climate);
+  json_builder_set_member_name (b, "humidity_class");
+  json_builder_add_int_value (b, m->humidity_class);
+  add_number (b, "inside_humidity", m->inside_humidity);
+  add_number (b, "inside_temperature", m->inside_temperature);
+  if (m->climate_data != NULL)
+    {
+      g_autofree char *fingerprint = lamina_store_climate_fingerprint (m->climate_data);
+
+      json_builder_set_member_name (b, "climate_data");
+      json_builder_begin_object (b);
+      add_string (b, "name", m->climate_data->name);
+      add_string (b, "source", m->climate_data->source);
+      add_months (b, m->climate_data);
+      json_builder_end_object (b);
+      add_string (b, "climate_fingerprint", fingerprint);
+    }
+  json_builder_end_object (b);
+}
+
 char *
 lamina_store_construction_to_json (const LaminaConstruction *c)
 {
@@ -256,6 +306,8 @@ lamina_store_construction_to_json (const LaminaConstruction *c)
   add_number (b, "outside_temperature", c->outside_temperature);
   add_string (b, "notes", c->notes);
   add_method (b, c);
+
+  add_moisture (b, c->moisture);
   json_builder_end_object (b);
 
   root = json_builder_get_root (b);
@@ -418,6 +470,7 @@ read_layer (JsonObject *o)
         }
     }
   read_corrections (o, &layer->corrections);
+  layer->sd = get_number (o, "sd");
   layer->note = dup_string (o, "note");
   read_enum (o, "taper", lamina_taper_from_string, &layer->taper);
   layer->thickness_max = get_number (o, "thickness_max");
@@ -477,6 +530,53 @@ read_method (JsonObject         *o,
     }
 }
 
+static gboolean
+read_months (JsonObject    *o,
+             LaminaClimate *climate)
+{
+  JsonArray *t = json_object_has_member (o, "temperature") ? json_object_get_array_member (o, "temperature") : NULL;
+  JsonArray *h = json_object_has_member (o, "humidity") ? json_object_get_array_member (o, "humidity") : NULL;
+
+  if (t == NULL || h == NULL || json_array_get_length (t) != LAMINA_MONTHS
+      || json_array_get_length (h) != LAMINA_MONTHS)
+    return FALSE;
+  for (guint m = 0; m < LAMINA_MONTHS; m++)
+    {
+      climate->temperature[m] = json_array_get_double_element (t, m);
+      climate->humidity[m] = json_array_get_double_element (h, m);
+    }
+  return TRUE;
+}
+
+static LaminaMoistureSettings *
+read_moisture (JsonObject *parent)
+{
+  JsonObject *o, *data;
+  LaminaMoistureSettings *m;
+  g_autofree char *climate = NULL;
+
+  if (!json_object_has_member (parent, "moisture"))
+    return NULL;
+  o = json_object_get_object_member (parent, "moisture");
+  climate = dup_string (o, "climate");
+  m = lamina_moisture_settings_new (climate);
+  m->humidity_class = (int) json_object_get_int_member_with_default (o, "humidity_class", 0);
+  m->inside_humidity = get_number (o, "inside_humidity");
+  m->inside_temperature = get_number (o, "inside_temperature");
+  if (json_object_has_member (o, "climate_data"))
+    {
+      g_autofree char *name = NULL;
+
+      data = json_object_get_object_member (o, "climate_data");
+      name = dup_string (data, "name");
+      m->climate_data = lamina_climate_new (climate, name);
+      m->climate_data->source = dup_string (data, "source");
+      if (!read_months (data, m->climate_data))
+        g_clear_pointer (&m->climate_data, lamina_climate_free);
+    }
+  return m;
+}
+
 LaminaConstruction *
 lamina_store_construction_from_json (const char  *json,
                                      GError     **error)
@@ -527,6 +627,8 @@ lamina_store_construction_from_json (const char  *json,
   c->outside_temperature = get_number (o, "outside_temperature");
   c->notes = dup_string (o, "notes");
   read_method (o, c);
+
+  c->moisture = read_moisture (o);
   return c;
 }
 
@@ -545,4 +647,48 @@ lamina_store_material_fingerprint (const LaminaMaterial *m)
         g_ascii_dtostr (buf[i], sizeof buf[i], v[i]);
     }
   return g_strjoin ("|", buf[0], buf[1], buf[2], buf[3], buf[4], NULL);
+}
+
+char *
+lamina_store_climate_fingerprint (const LaminaClimate *climate)
+{
+  GString *text = g_string_new (NULL);
+  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+
+  for (int m = 0; m < LAMINA_MONTHS; m++)
+    {
+      g_string_append (text, g_ascii_dtostr (buf, sizeof buf, climate->temperature[m]));
+      g_string_append_c (text, '/');
+      g_string_append (text, g_ascii_dtostr (buf, sizeof buf, climate->humidity[m]));
+      if (m + 1 < LAMINA_MONTHS)
+        g_string_append_c (text, '|');
+    }
+  return g_string_free (text, FALSE);
+}
+
+char *
+lamina_store_climate_months_to_json (const LaminaClimate *climate)
+{
+  g_autoptr(JsonBuilder) b = json_builder_new ();
+  g_autoptr(JsonGenerator) gen = json_generator_new ();
+  g_autoptr(JsonNode) root = NULL;
+
+  json_builder_begin_object (b);
+  add_months (b, climate);
+  json_builder_end_object (b);
+  root = json_builder_get_root (b);
+  json_generator_set_root (gen, root);
+  return json_generator_to_data (gen, NULL);
+}
+
+gboolean
+lamina_store_climate_months_from_json (const char    *json,
+                                       LaminaClimate *climate)
+{
+  g_autoptr(JsonParser) parser = json_parser_new ();
+
+  if (json == NULL || !json_parser_load_from_data (parser, json, -1, NULL)
+      || !JSON_NODE_HOLDS_OBJECT (json_parser_get_root (parser)))
+    return FALSE;
+  return read_months (json_node_get_object (json_parser_get_root (parser)), climate);
 }

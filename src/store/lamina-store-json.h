@@ -19,5 +19,13 @@ LaminaConstruction *lamina_store_construction_from_json (const char             
  * snapshot and the library's copy differ here, the construction is
  * flagged "material data changed since review". */
 char               *lamina_store_material_fingerprint   (const LaminaMaterial     *material);
+/* The same for a climate's twelve months (name and source left out): when
+ * a construction's copy and the library's differ here, it is flagged. */
+char               *lamina_store_climate_fingerprint    (const LaminaClimate      *climate);
+/* A climate's months as the climate table stores them, and back (into
+ * @climate; FALSE if @json is not twelve of each). */
+char               *lamina_store_climate_months_to_json (const LaminaClimate      *climate);
+gboolean            lamina_store_climate_months_from_json (const char             *json,
+                                                           LaminaClimate          *climate);
 
 G_END_DECLS

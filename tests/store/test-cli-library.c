@@ -161,6 +161,22 @@ test_daily (void)
   g_assert_null (strstr (out, "demo-cl-301"));
   clear_output (&out, &err);
 
+  /* EN ISO 13788 through the library: the demo's solid brick wall fails
+   * the mould check in a class 3 dwelling (fRsi 0.575 < fRsi,min 0.752,
+   * figures of data/demo/README.md), and only it. */
+  g_assert_cmpint (run (&out, &err, "list", "--moisture", "fails", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "EW-301"));
+  g_assert_nonnull (strstr (out, "fails its moisture check"));
+  g_assert_null (strstr (out, "EW-302"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "show", "EW-301", "--json", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "\"moisture\""));
+  g_assert_nonnull (strstr (out, "\"critical_month\" : 1"));
+  g_assert_nonnull (strstr (out, "\"passes\" : false"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "list", "--moisture", "wet", NULL), ==, 2);
+  clear_output (&out, &err);
+
   g_assert_cmpint (run (&out, &err, "check", "EW-102", "--by", "A. Reviewer", NULL), ==, 0);
   g_assert_nonnull (strstr (out, "EW-102 revision 1 checked by A. Reviewer"));
   clear_output (&out, &err);

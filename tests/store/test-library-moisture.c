@@ -1,0 +1,246 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Climates in the office library (EN ISO 13788): stored and read back
+ * exactly, carried by the constructions checked with them, flagged like a
+ * material change when their data change, exported and imported with the
+ * catalogue, and found by "fails its moisture check".  The climates are
+ * invented test data. */
+#include "lamina-store-test-util.h"
+#include "lamina-moisture.h"
+
+static LaminaLibrary *
+open_library (const char *name)
+{
+  g_autofree char *path = test_library_path (name);
+  g_autoptr(GError) error = NULL;
+  LaminaLibrary *library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+
+  g_assert_no_error (error);
+  return library;
+}
+
+static LaminaClimate *
+make_climate (const char *id,
+              double      winter)
+{
+  static const double h[LAMINA_MONTHS] = { .88, .85, .80, .75, .72, .74, .75, .77, .80, .84, .87, .89 };
+  LaminaClimate *climate = lamina_climate_new (id, "Test climate");
+
+  climate->source = g_strdup ("invented for a test");
+  for (int m = 0; m < LAMINA_MONTHS; m++)
+    {
+      /* winter in January, +18 K in July */
+      climate->temperature[m] = winter + 18.0 * (1.0 - cos (2.0 * G_PI * m / 12.0)) / 2.0;
+      climate->humidity[m] = h[m];
+    }
+  return climate;
+}
+
+/* The seeded wall (plasterboard μ 10, studs/wool, OSB μ 50: EN ISO 10456
+ * Table 3 from memory) has no vapour control layer: in a cold climate with
+ * humidity class 4 it traps water that does not dry out. */
+static LaminaConstruction *
+make_checked_wall (LaminaLibrary *library,
+                   const char    *climate,
+                   int            humidity_class)
+{
+  LaminaConstruction *c = test_make_wall (library, "EW-M", "Wall with moisture check", NULL, 145);
+
+  lamina_construction_set_moisture (c, lamina_moisture_settings_new (climate));
+  c->moisture->humidity_class = humidity_class;
+  return c;
+}
+
+static void
+test_climate_round_trip (void)
+{
+  g_autoptr(LaminaLibrary) library = open_library ("climates.sqlite");
+  g_autoptr(LaminaClimate) climate = make_climate ("north", -8);
+  g_autoptr(LaminaClimate) back = NULL;
+  g_autoptr(GPtrArray) list = NULL;
+  g_autoptr(GError) error = NULL;
+
+  g_assert_true (lamina_library_put_climate (library, climate, &error));
+  g_assert_no_error (error);
+  back = lamina_library_dup_climate (library, "north", &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_climate_equal (climate, back));
+  list = lamina_library_list_climates (library, &error);
+  g_assert_cmpuint (list->len, ==, 1);
+  /* bad months are refused, naming the month */
+  climate->humidity[4] = 1.2;
+  g_assert_false (lamina_library_put_climate (library, climate, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "month 5"));
+}
+
+static void
+test_construction_carries_climate (void)
+{
+  g_autoptr(LaminaLibrary) library = open_library ("carries.sqlite");
+  g_autoptr(LaminaClimate) climate = make_climate ("north", -8);
+  g_autoptr(LaminaConstruction) c = NULL;
+  g_autoptr(LaminaConstruction) back = NULL;
+  g_autoptr(LaminaConstruction) bad = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *bad_id = NULL;
+
+  g_assert_true (lamina_library_put_climate (library, climate, NULL));
+  c = make_checked_wall (library, "north", 4);
+  ((LaminaLayer *) c->layers->pdata[2])->sd = 3.5;
+  id = lamina_library_create_construction (library, c, "tester", &error);
+  g_assert_no_error (error);
+  back = lamina_library_dup_construction (library, id, 0, &error);
+  g_assert_no_error (error);
+  g_assert_nonnull (back->moisture);
+  g_assert_cmpstr (back->moisture->climate, ==, "north");
+  g_assert_cmpint (back->moisture->humidity_class, ==, 4);
+  g_assert_true (lamina_climate_equal (back->moisture->climate_data, climate));
+  g_assert_cmpfloat (((LaminaLayer *) back->layers->pdata[2])->sd, ==, 3.5);
+  g_assert_true (isnan (((LaminaLayer *) back->layers->pdata[0])->sd));
+  g_assert_true (lamina_moisture_settings_equal (c->moisture, back->moisture));
+  for (guint i = 0; i < c->layers->len; i++)
+    g_assert_true (lamina_layer_equal (c->layers->pdata[i], back->layers->pdata[i]));
+  g_assert_true (lamina_construction_equal_content (c, back));
+
+  /* a climate the library lacks is refused with the field named */
+  bad = make_checked_wall (library, "nowhere", 2);
+  bad_id = lamina_library_create_construction (library, bad, "tester", &error);
+  g_assert_null (bad_id);
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "nowhere"));
+}
+
+static guint
+count_flagged (LaminaLibrary *library,
+               gboolean       moisture)
+{
+  LaminaLibraryQuery q;
+  g_autoptr(GPtrArray) rows = NULL;
+
+  lamina_library_query_init (&q);
+  if (moisture)
+    q.moisture_fails_only = TRUE;
+  else
+    q.material_changed_only = TRUE;
+  rows = lamina_library_search (library, &q, NULL);
+  g_assert_cmpint (lamina_library_count (library, &q, NULL), ==, rows->len);
+  return rows->len;
+}
+
+/* A change of climate data flags the construction as a material change
+ * does; updating it takes the new data and clears the flag.  The seeded wall
+ * without vapour control fails for class 4 in a −8 °C winter and passes in
+ * a mild one (+6 °C) at class 1; the "fails" filter finds only the first. */
+static void
+test_flags_and_filter (void)
+{
+  g_autoptr(LaminaLibrary) library = open_library ("flags.sqlite");
+  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) mild = make_climate ("mild", 6);
+  g_autoptr(LaminaConstruction) a = NULL;
+  g_autoptr(LaminaConstruction) b = NULL;
+  g_autoptr(LaminaConstruction) back = NULL;
+  g_autoptr(LaminaMoistureResult) ra = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *ida = NULL, *idb = NULL;
+  int revision;
+
+  g_assert_true (lamina_library_put_climate (library, cold, NULL));
+  g_assert_true (lamina_library_put_climate (library, mild, NULL));
+  a = make_checked_wall (library, "cold", 4);
+  b = make_checked_wall (library, "mild", 1);
+  g_free (b->code);
+  b->code = g_strdup ("EW-N");
+  ida = lamina_library_create_construction (library, a, NULL, &error);
+  g_assert_no_error (error);
+  idb = lamina_library_create_construction (library, b, NULL, &error);
+  g_assert_no_error (error);
+  back = lamina_library_dup_construction (library, ida, 0, NULL);
+  ra = lamina_moisture_calculate_own (back, NAN, &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_moisture_result_fails (ra));   /* the test is not empty */
+  g_assert_cmpuint (count_flagged (library, TRUE), ==, 1);
+  g_assert_cmpuint (count_flagged (library, FALSE), ==, 0);
+
+  /* the library's cold climate gets colder: only "a" is flagged */
+  cold->temperature[0] -= 2;
+  g_assert_true (lamina_library_put_climate (library, cold, NULL));
+  g_assert_cmpuint (count_flagged (library, FALSE), ==, 1);
+  revision = lamina_library_update_materials (library, ida, 0, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (revision, ==, 2);
+  g_clear_pointer (&back, lamina_construction_free);
+  back = lamina_library_dup_construction (library, ida, 0, NULL);
+  g_assert_cmpfloat (back->moisture->climate_data->temperature[0], ==, cold->temperature[0]);
+  g_assert_cmpuint (count_flagged (library, FALSE), ==, 0);
+  /* a material change still flags it too */
+  {
+    g_autoptr(LaminaMaterial) osb = lamina_library_dup_material (library, "iso10456-osb-650", NULL);
+
+    osb->vapour_resistance_factor = 200;
+    g_assert_true (lamina_library_put_material (library, osb, NULL));
+    g_assert_cmpuint (count_flagged (library, FALSE), ==, 2);
+  }
+}
+
+/* Export writes the climates the constructions use; importing into a fresh
+ * library brings them back exactly. */
+static void
+test_export_import (void)
+{
+  g_autoptr(LaminaLibrary) library = open_library ("export.sqlite");
+  g_autoptr(LaminaLibrary) other = open_library ("import.sqlite");
+  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) unused = make_climate ("unused", 2);
+  g_autoptr(LaminaConstruction) a = NULL;
+  g_autoptr(LaminaCatalogue) cat = NULL;
+  g_autoptr(LaminaCatalogue) reread = NULL;
+  g_autoptr(LaminaImportReport) report = NULL;
+  g_autoptr(LaminaClimate) back = NULL;
+  g_autoptr(LaminaConstruction) imported = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *text = NULL;
+  const char *ids[2] = { NULL, NULL };
+  gsize length;
+
+  g_assert_true (lamina_library_put_climate (library, cold, NULL));
+  g_assert_true (lamina_library_put_climate (library, unused, NULL));
+  a = make_checked_wall (library, "cold", 3);
+  id = lamina_library_create_construction (library, a, NULL, &error);
+  g_assert_no_error (error);
+  ids[0] = id;
+  cat = lamina_library_export (library, ids, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (cat->climates->len, ==, 1);
+  text = lamina_catalogue_write_to_string (cat, LAMINA_WRITE_DEFAULT, &length, &error);
+  g_assert_no_error (error);
+  reread = lamina_catalogue_read_memory (text, length, "export.xml", &error);
+  g_assert_no_error (error);
+  report = lamina_library_import (other, reread, LAMINA_IMPORT_DEFAULT, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (report->n_added, ==, 1);
+  back = lamina_library_dup_climate (other, "cold", &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_climate_equal (back, cold));
+  imported = lamina_library_dup_construction (other, id, 0, &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_climate_equal (imported->moisture->climate_data, cold));
+  /* a whole export carries every climate */
+  g_clear_pointer (&cat, lamina_catalogue_free);
+  cat = lamina_library_export (library, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (cat->climates->len, ==, 2);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
+  g_test_add_func ("/store/moisture/climate-round-trip", test_climate_round_trip);
+  g_test_add_func ("/store/moisture/construction-carries-climate", test_construction_carries_climate);
+  g_test_add_func ("/store/moisture/flags-and-filter", test_flags_and_filter);
+  g_test_add_func ("/store/moisture/export-import", test_export_import);
+  return g_test_run ();
+}
