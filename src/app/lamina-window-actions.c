@@ -41,6 +41,7 @@ lamina_window_update_actions (LaminaWindow *self)
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.derive", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.delete", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.export-sheet", open);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.export-section", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.print", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo-delete", self->deleted_id != NULL);
   gtk_widget_set_visible (self->demo_button,

@@ -15,6 +15,7 @@
 
 #include "exchange/lamina-catalogue.h"
 #include "lamina-window-private.h"
+#include "sheet/lamina-section.h"
 #include "sheet/lamina-sheet.h"
 
 typedef void (*ChooserDone) (LaminaWindow *self, GFile *file);
@@ -131,6 +132,62 @@ export_sheet_action (GtkWidget  *widget,
     return;
   suggested = dup_suggested_name (self, ".pdf");
   choose_file (self, _("Export Sheet"), TRUE, suggested, "*.pdf", _("PDF documents"), sheet_chosen);
+}
+
+/* The section drawing alone, for the office's drawings: SVG (vectors),
+ * or PNG when the name typed ends in .png. */
+gboolean
+lamina_window_export_section (LaminaWindow  *self,
+                              const char    *path,
+                              GError       **error)
+{
+  const LaminaConstruction *c;
+  g_autoptr(LaminaResult) result = NULL;
+  g_autofree char *lower = NULL;
+
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), FALSE);
+  g_return_val_if_fail (self->document != NULL, FALSE);
+
+  lamina_document_commit (self->document, NULL);
+  c = lamina_document_get_construction (self->document);
+  result = lamina_calculate (c, error);
+  if (result == NULL)
+    return FALSE;
+  lower = g_ascii_strdown (path, -1);
+  if (g_str_has_suffix (lower, ".png"))
+    return lamina_section_write_png (c, result, 1600, 1000, path, TRUE, error);
+  return lamina_section_write_svg (c, result, 1600, 1000, path, TRUE, error);
+}
+
+static void
+section_chosen (LaminaWindow *self,
+                GFile        *file)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *path = g_file_get_path (file);
+  g_autofree char *message = NULL;
+
+  if (!lamina_window_export_section (self, path, &error))
+    {
+      lamina_window_notify (self, error->message);
+      return;
+    }
+  message = g_strdup_printf (_("Section drawing written to %s"), path);
+  lamina_window_notify (self, message);
+}
+
+static void
+export_section_action (GtkWidget  *widget,
+                       const char *name,
+                       GVariant   *parameter)
+{
+  LaminaWindow *self = LAMINA_WINDOW (widget);
+  g_autofree char *suggested = NULL;
+
+  if (self->document == NULL)
+    return;
+  suggested = dup_suggested_name (self, "-section.svg");
+  choose_file (self, _("Export Section Drawing"), TRUE, suggested, "*.svg", _("SVG drawings"), section_chosen);
 }
 
 /* Catalogue: the constructions listed (search and filters applied). */
@@ -647,6 +704,7 @@ void
 lamina_window_install_export_actions (GtkWidgetClass *widget_class)
 {
   gtk_widget_class_install_action (widget_class, "win.export-sheet", NULL, export_sheet_action);
+  gtk_widget_class_install_action (widget_class, "win.export-section", NULL, export_section_action);
   gtk_widget_class_install_action (widget_class, "win.export-catalogue", NULL, export_catalogue_action);
   gtk_widget_class_install_action (widget_class, "win.export-xml", NULL, export_xml_action);
   gtk_widget_class_install_action (widget_class, "win.import-xml", NULL, import_xml_action);

@@ -40,6 +40,11 @@ gboolean                lamina_window_export_sheet (LaminaWindow      *self,
 gboolean                lamina_window_export_catalogue (LaminaWindow  *self,
                                                         const char    *path,
                                                         GError       **error);
+/* Writes the open construction's section drawing to @path: SVG, or PNG
+ * when @path ends in .png. */
+gboolean                lamina_window_export_section (LaminaWindow    *self,
+                                                      const char      *path,
+                                                      GError         **error);
 /* Prints the open construction's sheet through the print dialog, or to
  * the PDF @export_path without a dialog. */
 gboolean                lamina_window_print        (LaminaWindow      *self,

@@ -442,6 +442,35 @@ test_print_full_size (Fixture       *f,
 #endif
 
 static void
+test_export_section (Fixture       *f,
+                     gconstpointer  data)
+{
+  /* The section drawing leaves the window as SVG (vectors, for the
+   * office's drawings) or PNG, by the name's extension. */
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *svg_path = g_build_filename (f->dir, "section.svg", NULL);
+  g_autofree char *png_path = g_build_filename (f->dir, "section.png", NULL);
+  g_autofree char *svg = NULL;
+  g_autofree char *png = NULL;
+  gsize png_size = 0;
+  guint index = 0;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  g_assert_true (lamina_window_export_section (f->window, svg_path, &error));
+  g_assert_no_error (error);
+  g_assert_true (g_file_get_contents (svg_path, &svg, NULL, NULL));
+  g_assert_nonnull (strstr (svg, "<svg"));
+  g_assert_true (lamina_window_export_section (f->window, png_path, &error));
+  g_assert_true (g_file_get_contents (png_path, &png, &png_size, NULL));
+  g_assert_cmpuint (png_size, >, 8);
+  g_assert_cmpint (memcmp (png, "\x89PNG", 4), ==, 0);
+  g_unlink (svg_path);
+  g_unlink (png_path);
+}
+
+static void
 test_style_switch (Fixture       *f,
                    gconstpointer  data)
 {
@@ -1203,6 +1232,20 @@ test_danish_comma (Fixture       *f,
   g_assert_null (strchr (u, '.'));
   /* And the screen speaks Danish (po/da.po, built into the build dir). */
   g_assert_cmpstr (lamina_text_status_name (LAMINA_STATUS_DRAFT), ==, "Kladde");
+  /* The number fields keep the comma after an edit has redrawn them. */
+  {
+    LaminaEditor *editor = lamina_window_get_editor (f->window);
+    LaminaSectionView *view = lamina_editor_get_section_view (editor);
+    GtkWidget *spin;
+
+    lamina_section_view_set_selected (view, 0);
+    g_assert_true (lamina_section_view_resize_key (view, GDK_KEY_plus, GDK_ALT_MASK));
+    wait_for_draw (GTK_WIDGET (f->window));
+    spin = find_widget_of_type (GTK_WIDGET (editor), GTK_TYPE_SPIN_BUTTON);
+    g_assert_nonnull (spin);
+    g_assert_nonnull (strchr (gtk_editable_get_text (GTK_EDITABLE (spin)), ','));
+    g_assert_null (strchr (gtk_editable_get_text (GTK_EDITABLE (spin)), '.'));
+  }
   {
     const char *build = g_getenv ("LAMINA_BUILD_DIR");
     g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "window-da.png", NULL);
@@ -1299,6 +1342,7 @@ main (int   argc,
       g_test_add ("/app/window/u-filter-chip", Fixture, NULL, fixture_setup, test_u_filter_chip, fixture_teardown);
       g_test_add_func ("/app/window/print-scale", test_print_scale);
       g_test_add ("/app/window/style-switch", Fixture, NULL, fixture_setup, test_style_switch, fixture_teardown);
+      g_test_add ("/app/window/export-section", Fixture, NULL, fixture_setup, test_export_section, fixture_teardown);
 #ifdef HAVE_POPPLER_TEST
       g_test_add ("/app/window/print-full-size", Fixture, NULL, fixture_setup, test_print_full_size, fixture_teardown);
 #endif
