@@ -3,7 +3,7 @@
 
 #include "config.h"
 
-#include "lamina-parts-dialog.h"
+#include "lamina-parts-dialog-private.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -19,62 +19,19 @@ typedef enum
   MODE_REMAINDER,
 } Mode;
 
-typedef struct _Dialog Dialog;
+G_DEFINE_FINAL_TYPE (LaminaPartsDialog, lamina_parts_dialog, GTK_TYPE_WINDOW)
 
-typedef struct
-{
-  Dialog      *dialog;
-  guint        part;
-  GtkWidget   *box;
-  GtkDropDown *material;
-  GtkDropDown *mode;
-  GtkWidget   *fraction_box;
-  GtkEntry    *fraction;
-  GtkWidget   *framing_box;
-  GtkEntry    *width;
-  GtkEntry    *spacing;
-  GtkLabel    *remainder;
-  GtkEntry    *member;
-  GtkWidget   *remove;
-  GtkLabel    *error;
-  GPtrArray   *options;   /* LaminaMaterial* (NULL = air), owned */
-} Row;
-
-struct _Dialog
-{
-  LaminaDocument *document;
-  guint           layer;
-  GtkWindow      *window;
-  GtkBox         *rows_box;
-  GtkWidget      *add;
-  GtkLabel       *layer_error;
-  GPtrArray      *rows;       /* Row*, owned */
-  GPtrArray      *materials;  /* the library's, owned */
-  gulong          changed_id;
-  gboolean        updating;
-};
-
-static void update (Dialog *d);
+static void update (LaminaPartsDialog *d);
 
 static void
-row_free (Row *row)
+row_free (LaminaPartsRow *row)
 {
   g_ptr_array_unref (row->options);
   g_free (row);
 }
 
-static void
-dialog_free (Dialog *d)
-{
-  g_clear_signal_handler (&d->changed_id, d->document);
-  g_ptr_array_unref (d->rows);
-  g_ptr_array_unref (d->materials);
-  g_object_unref (d->document);
-  g_free (d);
-}
-
 static const LaminaLayer *
-get_layer (Dialog *d)
+get_layer (LaminaPartsDialog *d)
 {
   const LaminaConstruction *state = lamina_document_get_construction (d->document);
 
@@ -95,7 +52,7 @@ part_mode (const LaminaPart *part)
 
 /* Applies a pure edit; a refused one is shown under the part's row. */
 static void
-row_apply (Row                *row,
+row_apply (LaminaPartsRow     *row,
            LaminaConstruction *next,
            const GError       *error)
 {
@@ -109,13 +66,13 @@ row_apply (Row                *row,
 }
 
 static const LaminaConstruction *
-row_state (Row *row)
+row_state (LaminaPartsRow *row)
 {
   return lamina_document_get_construction (row->dialog->document);
 }
 
 static void
-on_material_selected_cb (Row *row)
+on_material_selected_cb (LaminaPartsRow *row)
 {
   guint selected = gtk_drop_down_get_selected (row->material);
   g_autoptr(GError) error = NULL;
@@ -129,7 +86,7 @@ on_material_selected_cb (Row *row)
 }
 
 static void
-on_mode_selected_cb (Row *row)
+on_mode_selected_cb (LaminaPartsRow *row)
 {
   const LaminaLayer *layer = get_layer (row->dialog);
   g_autoptr(GError) error = NULL;
@@ -161,7 +118,7 @@ on_mode_selected_cb (Row *row)
 }
 
 static gboolean
-parse_entry (Row               *row,
+parse_entry (LaminaPartsRow    *row,
              GtkEntry          *entry,
              LaminaNumberField  field,
              double            *value)
@@ -179,7 +136,7 @@ parse_entry (Row               *row,
 }
 
 static void
-on_fraction_commit_cb (Row *row)
+on_fraction_commit_cb (LaminaPartsRow *row)
 {
   const LaminaLayer *layer = get_layer (row->dialog);
   g_autoptr(GError) error = NULL;
@@ -198,7 +155,7 @@ on_fraction_commit_cb (Row *row)
 }
 
 static void
-on_framing_commit_cb (Row *row)
+on_framing_commit_cb (LaminaPartsRow *row)
 {
   const LaminaLayer *layer = get_layer (row->dialog);
   g_autoptr(GError) error = NULL;
@@ -220,7 +177,7 @@ on_framing_commit_cb (Row *row)
 }
 
 static void
-on_member_commit_cb (Row *row)
+on_member_commit_cb (LaminaPartsRow *row)
 {
   const LaminaLayer *layer = get_layer (row->dialog);
   const char *text = gtk_editable_get_text (GTK_EDITABLE (row->member));
@@ -238,7 +195,7 @@ on_member_commit_cb (Row *row)
 }
 
 static void
-on_remove_clicked_cb (Row *row)
+on_remove_clicked_cb (LaminaPartsRow *row)
 {
   g_autoptr(GError) error = NULL;
   LaminaConstruction *next;
@@ -249,10 +206,10 @@ on_remove_clicked_cb (Row *row)
 
 /* Commits an entry on Enter and when focus leaves it. */
 static GtkEntry *
-new_entry (Row        *row,
-           int         width,
-           const char *accessible,
-           GCallback   commit)
+new_entry (LaminaPartsRow *row,
+           int             width,
+           const char     *accessible,
+           GCallback       commit)
 {
   GtkWidget *entry = gtk_entry_new ();
   GtkEventController *focus = gtk_event_controller_focus_new ();
@@ -278,7 +235,7 @@ new_caption (const char *text)
 /* The choices of material: air, the part's own data when the library has
  * no material with its id, then the library. */
 static GtkDropDown *
-new_material_dropdown (Row              *row,
+new_material_dropdown (LaminaPartsRow   *row,
                        const LaminaPart *part)
 {
   g_autoptr(GtkStringList) names = gtk_string_list_new (NULL);
@@ -317,14 +274,14 @@ new_material_dropdown (Row              *row,
   return GTK_DROP_DOWN (dropdown);
 }
 
-static Row *
-new_row (Dialog           *d,
-         guint             index,
-         const LaminaPart *part)
+static LaminaPartsRow *
+new_row (LaminaPartsDialog *d,
+         guint              index,
+         const LaminaPart  *part)
 {
   const char *modes[] = { N_("Fraction"), N_("Width at spacing"), N_("Remainder"), NULL };
   g_autoptr(GtkStringList) mode_names = gtk_string_list_new (NULL);
-  Row *row = g_new0 (Row, 1);
+  LaminaPartsRow *row = g_new0 (LaminaPartsRow, 1);
   GtkWidget *line = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
   g_autofree char *number = g_strdup_printf ("%u", index + 1);
   GtkWidget *badge = gtk_label_new (number);
@@ -401,7 +358,7 @@ set_entry_number (GtkEntry *entry,
 
 /* FALSE when the row's choices of material no longer hold the part's. */
 static gboolean
-update_row (Row               *row,
+update_row (LaminaPartsRow    *row,
             const LaminaLayer *layer)
 {
   const LaminaPart *part = layer->parts->pdata[row->part];
@@ -481,7 +438,7 @@ locate_error (const LaminaConstruction *state,
 }
 
 static void
-show_validation (Dialog *d)
+show_validation (LaminaPartsDialog *d)
 {
   const LaminaConstruction *state = lamina_document_get_construction (d->document);
   g_autoptr(GError) error = NULL;
@@ -493,7 +450,7 @@ show_validation (Dialog *d)
   where = locate_error (state, d->layer);
   if (where >= 0 && (guint) where < d->rows->len)
     {
-      Row *row = d->rows->pdata[where];
+      LaminaPartsRow *row = d->rows->pdata[where];
 
       gtk_label_set_text (row->error, error->message);
       gtk_widget_set_visible (GTK_WIDGET (row->error), TRUE);
@@ -506,7 +463,7 @@ show_validation (Dialog *d)
 }
 
 static void
-rebuild (Dialog            *d,
+rebuild (LaminaPartsDialog *d,
          const LaminaLayer *layer)
 {
   GtkWidget *child;
@@ -516,7 +473,7 @@ rebuild (Dialog            *d,
   g_ptr_array_set_size (d->rows, 0);
   for (guint i = 0; i < layer->parts->len; i++)
     {
-      Row *row = new_row (d, i, layer->parts->pdata[i]);
+      LaminaPartsRow *row = new_row (d, i, layer->parts->pdata[i]);
 
       g_ptr_array_add (d->rows, row);
       gtk_box_append (d->rows_box, row->box);
@@ -524,7 +481,7 @@ rebuild (Dialog            *d,
 }
 
 static void
-update (Dialog *d)
+update (LaminaPartsDialog *d)
 {
   const LaminaLayer *layer = get_layer (d);
   gboolean ok = TRUE;
@@ -532,7 +489,7 @@ update (Dialog *d)
   if (layer == NULL || layer->kind != LAMINA_LAYER_BRIDGED)
     {
       /* Undone past the making of the bridged layer: nothing to edit. */
-      gtk_window_destroy (d->window);
+      gtk_window_destroy (GTK_WINDOW (d));
       return;
     }
   d->updating = TRUE;
@@ -551,13 +508,7 @@ update (Dialog *d)
 }
 
 static void
-on_document_changed_cb (Dialog *d)
-{
-  update (d);
-}
-
-static void
-on_add_clicked_cb (Dialog *d)
+on_add_clicked_cb (LaminaPartsDialog *d)
 {
   const LaminaLayer *layer = get_layer (d);
   const LaminaMaterial *material = d->materials->len ? d->materials->pdata[0] : NULL;
@@ -588,9 +539,61 @@ on_add_clicked_cb (Dialog *d)
 }
 
 static void
-on_close_clicked_cb (Dialog *d)
+lamina_parts_dialog_dispose (GObject *object)
 {
-  gtk_window_destroy (d->window);
+  LaminaPartsDialog *d = LAMINA_PARTS_DIALOG (object);
+
+  if (d->document != NULL)
+    g_clear_signal_handler (&d->changed_id, d->document);
+  gtk_widget_dispose_template (GTK_WIDGET (d), LAMINA_TYPE_PARTS_DIALOG);
+  g_clear_pointer (&d->rows, g_ptr_array_unref);
+  g_clear_pointer (&d->materials, g_ptr_array_unref);
+  g_clear_object (&d->document);
+
+  G_OBJECT_CLASS (lamina_parts_dialog_parent_class)->dispose (object);
+}
+
+static void
+lamina_parts_dialog_class_init (LaminaPartsDialogClass *klass)
+{
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  G_OBJECT_CLASS (klass)->dispose = lamina_parts_dialog_dispose;
+
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-parts-dialog.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaPartsDialog, rows_box);
+  gtk_widget_class_bind_template_child (widget_class, LaminaPartsDialog, layer_error);
+  gtk_widget_class_bind_template_child (widget_class, LaminaPartsDialog, add);
+  gtk_widget_class_bind_template_callback (widget_class, on_add_clicked_cb);
+  gtk_widget_class_bind_template_callback (widget_class, gtk_window_destroy);
+}
+
+static void
+lamina_parts_dialog_init (LaminaPartsDialog *d)
+{
+  gtk_widget_init_template (GTK_WIDGET (d));
+  d->rows = g_ptr_array_new_with_free_func ((GDestroyNotify) row_free);
+}
+
+LaminaPartsDialog *
+lamina_parts_dialog_new (GtkWindow      *parent,
+                         LaminaDocument *document,
+                         guint           index)
+{
+  g_autofree char *title = g_strdup_printf (_("Parts of Layer %u"), index + 1);
+  LaminaPartsDialog *d;
+
+  g_return_val_if_fail (LAMINA_IS_DOCUMENT (document), NULL);
+
+  d = g_object_new (LAMINA_TYPE_PARTS_DIALOG, "title", title, "transient-for", parent, NULL);
+  d->document = g_object_ref (document);
+  d->layer = index;
+  d->materials = lamina_library_list_materials (lamina_document_get_library (d->document), NULL);
+  if (d->materials == NULL)
+    d->materials = g_ptr_array_new ();
+  d->changed_id = g_signal_connect_swapped (d->document, "changed", G_CALLBACK (update), d);
+  update (d);
+  return d;
 }
 
 GtkWindow *
@@ -598,90 +601,8 @@ lamina_parts_dialog_present (GtkWindow      *parent,
                              LaminaDocument *document,
                              guint           index)
 {
-  Dialog *d = g_new0 (Dialog, 1);
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 10);
-  GtkWidget *intro = gtk_label_new (_("Each part is a material, or air, over a share of the layer’s area: the infill between the members and each kind of framing member (studs, noggings, battens). One part takes what the others leave. U is calculated by the upper and lower limits of EN ISO 6946, 6.7.2."));
-  GtkWidget *scroller = gtk_scrolled_window_new ();
-  GtkWidget *buttons = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-  GtkWidget *close = gtk_button_new_with_mnemonic (_("_Close"));
-  g_autofree char *title = g_strdup_printf (_("Parts of Layer %u"), index + 1);
+  GtkWindow *window = GTK_WINDOW (lamina_parts_dialog_new (parent, document, index));
 
-  d->document = g_object_ref (document);
-  d->layer = index;
-  d->rows = g_ptr_array_new_with_free_func ((GDestroyNotify) row_free);
-  d->materials = lamina_library_list_materials (lamina_document_get_library (d->document), NULL);
-  if (d->materials == NULL)
-    d->materials = g_ptr_array_new ();
-  d->window = GTK_WINDOW (gtk_window_new ());
-  gtk_window_set_title (d->window, title);
-  gtk_window_set_modal (d->window, TRUE);
-  gtk_window_set_default_size (d->window, 820, 360);
-  if (parent != NULL)
-    gtk_window_set_transient_for (d->window, parent);
-  gtk_window_set_destroy_with_parent (d->window, TRUE);
-  g_object_set_data_full (G_OBJECT (d->window), "lamina-parts", d, (GDestroyNotify) dialog_free);
-
-  g_object_set (box, "margin-start", 18, "margin-end", 18, "margin-top", 16, "margin-bottom", 16, NULL);
-  gtk_label_set_wrap (GTK_LABEL (intro), TRUE);
-  gtk_label_set_xalign (GTK_LABEL (intro), 0);
-  gtk_widget_add_css_class (intro, "dim-label");
-  d->rows_box = GTK_BOX (gtk_box_new (GTK_ORIENTATION_VERTICAL, 6));
-  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (scroller), GTK_WIDGET (d->rows_box));
-  gtk_scrolled_window_set_policy (GTK_SCROLLED_WINDOW (scroller), GTK_POLICY_NEVER, GTK_POLICY_AUTOMATIC);
-  gtk_widget_set_vexpand (scroller, TRUE);
-  d->layer_error = GTK_LABEL (gtk_label_new (NULL));
-  gtk_label_set_wrap (d->layer_error, TRUE);
-  gtk_label_set_xalign (d->layer_error, 0);
-  gtk_widget_add_css_class (GTK_WIDGET (d->layer_error), "lamina-error");
-  d->add = gtk_button_new_with_mnemonic (_("_Add Part"));
-  g_signal_connect_swapped (d->add, "clicked", G_CALLBACK (on_add_clicked_cb), d);
-  g_signal_connect_swapped (close, "clicked", G_CALLBACK (on_close_clicked_cb), d);
-  gtk_widget_set_hexpand (d->add, TRUE);
-  gtk_widget_set_halign (d->add, GTK_ALIGN_START);
-  gtk_box_append (GTK_BOX (buttons), d->add);
-  gtk_box_append (GTK_BOX (buttons), close);
-  gtk_box_append (GTK_BOX (box), intro);
-  gtk_box_append (GTK_BOX (box), scroller);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (d->layer_error));
-  gtk_box_append (GTK_BOX (box), buttons);
-  gtk_window_set_child (d->window, box);
-  d->changed_id = g_signal_connect_swapped (d->document, "changed", G_CALLBACK (on_document_changed_cb), d);
-
-  update (d);
-  gtk_window_present (d->window);
-  return d->window;
-}
-
-GtkWidget *
-lamina_parts_dialog_get_field (GtkWindow  *dialog,
-                               guint       part,
-                               const char *name)
-{
-  Dialog *d = g_object_get_data (G_OBJECT (dialog), "lamina-parts");
-  Row *row;
-
-  g_return_val_if_fail (d != NULL, NULL);
-
-  if (part == G_MAXUINT)
-    return g_str_equal (name, "add") ? d->add : g_str_equal (name, "layer-error") ? GTK_WIDGET (d->layer_error) : NULL;
-  if (part >= d->rows->len)
-    return NULL;
-  row = d->rows->pdata[part];
-  if (g_str_equal (name, "material"))
-    return GTK_WIDGET (row->material);
-  if (g_str_equal (name, "mode"))
-    return GTK_WIDGET (row->mode);
-  if (g_str_equal (name, "fraction"))
-    return GTK_WIDGET (row->fraction);
-  if (g_str_equal (name, "width"))
-    return GTK_WIDGET (row->width);
-  if (g_str_equal (name, "spacing"))
-    return GTK_WIDGET (row->spacing);
-  if (g_str_equal (name, "member"))
-    return GTK_WIDGET (row->member);
-  if (g_str_equal (name, "remove"))
-    return row->remove;
-  if (g_str_equal (name, "error"))
-    return GTK_WIDGET (row->error);
-  return NULL;
+  gtk_window_present (window);
+  return window;
 }

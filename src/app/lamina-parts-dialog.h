@@ -12,15 +12,17 @@
 
 G_BEGIN_DECLS
 
-/* Layer @index of @document; modal over @parent (may be NULL). */
-GtkWindow *lamina_parts_dialog_present   (GtkWindow      *parent,
-                                          LaminaDocument *document,
-                                          guint           index);
-/* For tests: a widget of part @part ("material", "mode", "fraction",
- * "width", "spacing", "member", "remove", "error"), or with @part
- * G_MAXUINT one of the layer's ("add", "layer-error"). */
-GtkWidget *lamina_parts_dialog_get_field (GtkWindow    *dialog,
-                                          guint         part,
-                                          const char   *name);
+#define LAMINA_TYPE_PARTS_DIALOG (lamina_parts_dialog_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaPartsDialog, lamina_parts_dialog, LAMINA, PARTS_DIALOG, GtkWindow)
+
+/* Layer @index of @document; modal over @parent (may be NULL).  Closes
+ * itself when the layer stops being a bridged layer (undo). */
+LaminaPartsDialog *lamina_parts_dialog_new     (GtkWindow      *parent,
+                                                LaminaDocument *document,
+                                                guint           index);
+/* The same, presented. */
+GtkWindow         *lamina_parts_dialog_present (GtkWindow      *parent,
+                                                LaminaDocument *document,
+                                                guint           index);
 
 G_END_DECLS

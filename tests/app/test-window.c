@@ -25,7 +25,7 @@
 #include "lamina-history-window-private.h"
 #include "lamina-material-row-private.h"
 #include "lamina-materials-window-private.h"
-#include "lamina-parts-dialog.h"
+#include "lamina-parts-dialog-private.h"
 #include "lamina-settings.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
@@ -959,6 +959,15 @@ find_timber (GPtrArray *materials)
   return NULL;
 }
 
+/* Part @index's row of the parts dialog (its widgets, typed). */
+static LaminaPartsRow *
+part_row (LaminaPartsDialog *dialog,
+          guint              index)
+{
+  g_assert_cmpuint (index, <, dialog->rows->len);
+  return dialog->rows->pdata[index];
+}
+
 static void
 test_bridged_parts (Fixture       *f,
                     gconstpointer  data)
@@ -974,7 +983,7 @@ test_bridged_parts (Fixture       *f,
   const LaminaMaterial *timber = find_timber (materials);
   const LaminaLayer *layer;
   LaminaLayer *bridged;
-  GtkWindow *dialog;
+  LaminaPartsDialog *dialog;
   GtkWidget *layer_error;
   guint index = 0;
 
@@ -989,21 +998,22 @@ test_bridged_parts (Fixture       *f,
   lamina_editor_apply (editor, lamina_edit_make_bridged (open_state (f), index, NULL, timber, 45, 600, "stud", NULL),
                        NULL, NULL);
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (editor), "editor.edit-parts", NULL));
-  dialog = lamina_parts_dialog_present (GTK_WINDOW (f->window), lamina_editor_get_document (editor), index);
-  g_signal_emit_by_name (lamina_parts_dialog_get_field (dialog, G_MAXUINT, "add"), "clicked");
+  dialog = lamina_parts_dialog_new (GTK_WINDOW (f->window), lamina_editor_get_document (editor), index);
+  gtk_window_present (GTK_WINDOW (dialog));
+  g_signal_emit_by_name (dialog->add, "clicked");
   layer = open_state (f)->layers->pdata[index];
   g_assert_cmpuint (layer->parts->len, ==, 3);
-  commit_entry (lamina_parts_dialog_get_field (dialog, 2, "member"), "nogging");
-  commit_entry (lamina_parts_dialog_get_field (dialog, 2, "fraction"), "2.5");
+  commit_entry (GTK_WIDGET (part_row (dialog, 2)->member), "nogging");
+  commit_entry (GTK_WIDGET (part_row (dialog, 2)->fraction), "2.5");
 
   /* Bad input is refused beside the field, naming it... */
-  commit_entry (lamina_parts_dialog_get_field (dialog, 2, "fraction"), "120");
-  g_assert_true (gtk_widget_get_visible (lamina_parts_dialog_get_field (dialog, 2, "error")));
-  g_assert_true (gtk_widget_has_css_class (lamina_parts_dialog_get_field (dialog, 2, "fraction"), "error"));
+  commit_entry (GTK_WIDGET (part_row (dialog, 2)->fraction), "120");
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (part_row (dialog, 2)->error)));
+  g_assert_true (gtk_widget_has_css_class (GTK_WIDGET (part_row (dialog, 2)->fraction), "error"));
   /* ...and a make-up that does not add up shows the core's message, which
    * names the layer (lamina_construction_validate). */
-  commit_entry (lamina_parts_dialog_get_field (dialog, 2, "fraction"), "95");
-  layer_error = lamina_parts_dialog_get_field (dialog, G_MAXUINT, "layer-error");
+  commit_entry (GTK_WIDGET (part_row (dialog, 2)->fraction), "95");
+  layer_error = GTK_WIDGET (dialog->layer_error);
   g_assert_true (gtk_widget_get_visible (layer_error));
   {
     g_autofree char *where = g_strdup_printf ("layer %u", index + 1);
@@ -1011,7 +1021,7 @@ test_bridged_parts (Fixture       *f,
     g_test_message ("%s", gtk_label_get_text (GTK_LABEL (layer_error)));
     g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (layer_error)), where));
   }
-  commit_entry (lamina_parts_dialog_get_field (dialog, 2, "fraction"), "2.5");
+  commit_entry (GTK_WIDGET (part_row (dialog, 2)->fraction), "2.5");
   g_assert_false (gtk_widget_get_visible (layer_error));
 
   /* The same build-up made directly with the engine: infill taking the
@@ -1039,7 +1049,7 @@ test_bridged_parts (Fixture       *f,
   g_assert_cmpfloat (expected->r_upper, >, expected->r_lower);
 
   /* Removing a part is one undoable step. */
-  g_signal_emit_by_name (lamina_parts_dialog_get_field (dialog, 2, "remove"), "clicked");
+  g_signal_emit_by_name (GTK_WIDGET (part_row (dialog, 2)->remove), "clicked");
   g_assert_cmpuint (((LaminaLayer *) open_state (f)->layers->pdata[index])->parts->len, ==, 2);
   gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL);
   g_assert_cmpuint (((LaminaLayer *) open_state (f)->layers->pdata[index])->parts->len, ==, 3);
@@ -1052,7 +1062,7 @@ test_bridged_parts (Fixture       *f,
     wait_for_draw (GTK_WIDGET (dialog));
     save_png (GTK_WIDGET (dialog), path);
   }
-  gtk_window_destroy (dialog);
+  gtk_window_destroy (GTK_WINDOW (dialog));
 }
 
 static void
