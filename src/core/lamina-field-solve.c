@@ -770,6 +770,32 @@ heat_flows (const LaminaFieldModel *model,
 }
 
 LaminaFieldSolution *
+lamina_field_model_dup_system (const LaminaFieldModel *model,
+                               guint                   level,
+                               double                **diagonal,
+                               double                **east,
+                               double                **north,
+                               double                **rhs,
+                               GError                **error)
+{
+  g_autoptr (LaminaFieldSolution) s = g_new0 (LaminaFieldSolution, 1);
+  System sys = { 0 };
+
+  s->x = grid_axis (model, TRUE, level, &s->nx);
+  s->y = grid_axis (model, FALSE, level, &s->ny);
+  s->material = g_new (guint8, (gsize) (s->nx - 1) * (s->ny - 1));
+  if (!paint_cells (model, s, error))
+    return NULL;
+  build_system (model, s, &sys);
+  *diagonal = g_steal_pointer (&sys.diag);
+  *rhs = g_steal_pointer (&sys.rhs);
+  *east = g_memdup2 (sys.se, sizeof (double) * sys.n);
+  *north = g_memdup2 (sys.sn, sizeof (double) * sys.n);
+  system_clear (&sys);
+  return g_steal_pointer (&s);
+}
+
+LaminaFieldSolution *
 lamina_field_model_solve_level (const LaminaFieldModel    *model,
                                 guint                      level,
                                 const LaminaFieldSolution *guess,

@@ -120,6 +120,19 @@ LaminaFieldSolution *lamina_field_model_solve_level (const LaminaFieldModel    *
                                                      gpointer                   user_data,
                                                      GError                   **error);
 
+/* The linear system of one grid, for comparing solvers: the symmetric
+ * five-point matrix A (diagonal, and the negated links to the east and
+ * north neighbour of each node, index j·nx + i) and the right-hand side;
+ * held nodes are rows of the identity.  Returns the solution layout as
+ * a solution without temperatures (free it), or NULL. */
+LaminaFieldSolution *lamina_field_model_dup_system (const LaminaFieldModel *model,
+                                                    guint                   level,
+                                                    double                **diagonal,
+                                                    double                **east,
+                                                    double                **north,
+                                                    double                **rhs,
+                                                    GError                **error);
+
 #define LAMINA_FIELD_MAX_LEVELS 8
 typedef struct
 {
