@@ -21,7 +21,9 @@ lamina_verdict_to_string (LaminaVerdict verdict)
 double
 lamina_job_result_u (const LaminaResult *result)
 {
-  return result != NULL ? result->u_corrected : NAN;
+  if (result == NULL)
+    return NAN;
+  return result->has_ground ? result->ground.u : result->u_corrected;
 }
 
 static void
@@ -144,7 +146,9 @@ check_entry (const LaminaJobEntry  *entry,
     line->flags |= LAMINA_ENTRY_NOT_APPROVED;
   if (c != NULL && t != NULL && t->element >= 0 && (LaminaElement) t->element != c->element)
     line->flags |= LAMINA_ENTRY_WRONG_ELEMENT;
-  if (t != NULL && t->ground)
+  /* A floor-to-ground target asks for the U with the ground: in scope
+   * when the construction states its ground (EN ISO 13370). */
+  if (t != NULL && t->ground && (input->result == NULL || !input->result->has_ground))
     line->flags |= LAMINA_ENTRY_OUT_OF_SCOPE;
   if (t != NULL && t->moisture != LAMINA_MOISTURE_NONE)
     line->flags |= LAMINA_ENTRY_MOISTURE_OPEN;

@@ -54,7 +54,7 @@ typedef struct
   const LaminaJobEntry     *entry;          /* borrowed from the job */
   const LaminaConstruction *construction;   /* borrowed from the input */
   const LaminaTarget       *target;         /* borrowed from the set, or NULL */
-  double                    u;              /* corrected U, W/(m²·K), or NAN */
+  double                    u;              /* lamina_job_result_u, W/(m²·K), or NAN */
   double                    max_u;          /* NAN without a target */
   double                    frsi;           /* 1 − Rsi·U, NAN if not calculated */
   double                    ua;             /* W/K, NAN without an area */
@@ -97,7 +97,9 @@ LaminaJobCheck *lamina_job_check       (const LaminaJob       *job,
                                         guint                  n_inputs);
 void            lamina_job_check_free  (LaminaJobCheck        *check);
 const char     *lamina_verdict_to_string (LaminaVerdict        verdict);
-/* The U the job checks for @result: the corrected U. */
+/* The U the job checks for @result, as its sheet prints it: the floor's
+ * U with the ground (EN ISO 13370) when it states its ground, else the
+ * corrected U (EN ISO 6946 with Annex F). */
 double          lamina_job_result_u    (const LaminaResult    *result);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaJobCheck, lamina_job_check_free)

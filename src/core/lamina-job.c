@@ -337,6 +337,26 @@ lamina_job_get_b_prime (const LaminaJob *job)
   return NAN;
 }
 
+void
+lamina_job_apply_conditions (const LaminaJob    *job,
+                             LaminaConstruction *c)
+{
+  c->inside_temperature = job->inside_temperature;
+  c->outside_temperature = job->outside_temperature;
+  if (!c->has_ground)
+    return;
+  if (job->ground_area > 0 && job->ground_perimeter > 0)
+    {
+      c->ground.area = job->ground_area;
+      c->ground.perimeter = job->ground_perimeter;
+    }
+  else if (job->ground_b_prime > 0)
+    {
+      c->ground.area = job->ground_b_prime;
+      c->ground.perimeter = 2.0;
+    }
+}
+
 static gboolean
 entry_equal (const LaminaJobEntry *a,
              const LaminaJobEntry *b)

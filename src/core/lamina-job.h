@@ -14,6 +14,7 @@
 
 #include <glib-object.h>
 
+#include "lamina-construction.h"
 #include "lamina-types.h"
 
 G_BEGIN_DECLS
@@ -137,6 +138,13 @@ void             lamina_job_log         (LaminaJob            *job,
 /* B′ = A / (0.5 P), EN ISO 13370:2017 8.1 (equation 2); the given B′ when
  * there is one, NAN when neither is given. */
 double           lamina_job_get_b_prime (const LaminaJob      *job);
+/* Puts @c in the job's design conditions: its inside and outside
+ * temperatures and, for a floor with the ground, the job's plan (A and
+ * P, or B′) in place of the plan the library states.  Given B′ alone,
+ * A = B′ and P = 2 m (B′ = A / (0.5 P)): EN ISO 13370's formulas depend
+ * on the plan only through B′. */
+void             lamina_job_apply_conditions (const LaminaJob    *job,
+                                              LaminaConstruction *c);
 /* The job's own data and schedule (the log and modified_at aside). */
 gboolean         lamina_job_equal       (const LaminaJob      *a,
                                          const LaminaJob      *b);

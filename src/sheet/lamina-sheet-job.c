@@ -389,8 +389,9 @@ draw_totals (SheetContext      *ctx,
   set_grey (ctx);
   sheet_text (ctx, SHEET_FONT_SMALL,
               _("U is each construction's corrected U (EN ISO 6946:2017, with the Annex F corrections) at "
-                "the pinned revision. H_T does not include thermal bridges other than those entered above, "
-                "ventilation or other elements."),
+                "the pinned revision; for a floor that states its ground, its U with the ground (EN ISO "
+                "13370:2017) at the job's B′. H_T does not include thermal bridges other than those entered "
+                "above, ventilation or other elements."),
               c.x_name, y + 4, ctx->right - c.x_name, PANGO_ALIGN_LEFT);
   set_black (ctx);
 }

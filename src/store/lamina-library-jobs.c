@@ -356,10 +356,10 @@ fill_input (LaminaLibrary        *self,
       g_ptr_array_add (report->results, NULL);
       return;
     }
-  /* The job's design conditions: they move the temperature profile on the
-   * sheets, not U. */
-  c->inside_temperature = report->job->inside_temperature;
-  c->outside_temperature = report->job->outside_temperature;
+  /* The job's design conditions (they move the temperature profile on
+   * the sheets) and its ground floor's plan (B′ moves the U of a floor
+   * with the ground). */
+  lamina_job_apply_conditions (report->job, c);
   result = lamina_calculate (c, NULL);
   newest = history != NULL ? newest_approved (history) : 0;
   if (newest > e->revision)

@@ -291,6 +291,62 @@ test_b_prime (void)
   assert_close (lamina_job_get_b_prime (job), 4.2, 1e-12);
 }
 
+/* A floor that states its ground is checked by its U with the ground, in
+ * the job's plan.  150 mm concrete (λ 1.35) and 100 mm EPS (λ 0.035) on
+ * the ground, walls 300 mm, soil unknown (λ 2.0), EN ISO 13370:2017 9.1:
+ * dt = w + λ (Rsi + Rf + Rse) = 0.3 + 2.0 × (0.17 + 0.111111 + 2.857143
+ * + 0.04) = 6.656508 m.  The library's plan, A 100 m², P 40 m: B′ = 5 m
+ * ≤ dt, U = λ / (0.457 B′ + dt) = 2 / (2.285 + 6.656508) = 0.223676.  The
+ * job's plan, A 200 m², P 40 m: B′ = 10 m > dt, U = 2λ / (π B′ + dt)
+ * × ln (π B′ / dt + 1) = 4 / 38.072435 × ln 5.719568 = 0.183219. */
+static void
+test_ground_floor (void)
+{
+  g_autoptr(LaminaJob) job = lamina_job_new ("j", "J");
+  g_autoptr(LaminaTargetSet) set = invented_targets ();
+  g_autoptr(LaminaConstruction) c = lamina_construction_new ("g", "slab", LAMINA_ELEMENT_FLOOR);
+  g_autoptr(LaminaResult) own = NULL;
+  g_autoptr(LaminaResult) in_job = NULL;
+  g_autoptr(LaminaJobCheck) check = NULL;
+  LaminaJobInput input = { 0 };
+  const LaminaJobLine *line;
+
+  lamina_construction_add_layer (c, test_layer (150, "concrete", LAMINA_CATEGORY_CONCRETE, 1.35));
+  lamina_construction_add_layer (c, test_layer (100, "eps", LAMINA_CATEGORY_INSULATION, 0.035));
+  c->has_ground = TRUE;
+  c->ground.area = 100;
+  c->ground.perimeter = 40;
+  c->ground.wall_thickness = 300;
+  c->status = LAMINA_STATUS_APPROVED;
+  own = lamina_calculate (c, NULL);
+  assert_close (lamina_job_result_u (own), 0.223676, 1e-5);
+
+  job->ground_area = 200;
+  job->ground_perimeter = 40;
+  job->outside_temperature = -12;
+  lamina_job_apply_conditions (job, c);
+  g_assert_cmpfloat (c->outside_temperature, ==, -12);
+  in_job = lamina_calculate (c, NULL);
+  assert_close (in_job->ground.b_prime, 10.0, 1e-12);
+  lamina_job_add_entry (job, lamina_job_entry_new ("g", 1, "floor-ground"))->area = 200;
+  input.construction = c;
+  input.result = in_job;
+  check = lamina_job_check (job, set, &input, 1);
+  line = check->lines->pdata[0];
+  assert_close (line->u, 0.183219, 1e-5);
+  g_assert_cmpint (line->verdict, ==, LAMINA_VERDICT_MET);
+  g_assert_false (line->flags & LAMINA_ENTRY_OUT_OF_SCOPE);
+  assert_close (check->h_t, 200 * 0.183219, 1e-5);
+
+  /* B′ given alone: the same U. */
+  job->ground_area = job->ground_perimeter = NAN;
+  job->ground_b_prime = 10;
+  lamina_job_apply_conditions (job, c);
+  g_clear_pointer (&in_job, lamina_result_free);
+  in_job = lamina_calculate (c, NULL);
+  assert_close (lamina_job_result_u (in_job), 0.183219, 1e-5);
+}
+
 static void
 test_copy_equal (void)
 {
@@ -379,6 +435,7 @@ main (int   argc,
   g_test_add_func ("/core/job/frsi-and-flags", test_frsi_and_flags);
   g_test_add_func ("/core/job/pins-and-moves", test_pins_and_moves);
   g_test_add_func ("/core/job/b-prime", test_b_prime);
+  g_test_add_func ("/core/job/ground-floor", test_ground_floor);
   g_test_add_func ("/core/job/copy-equal", test_copy_equal);
   g_test_add_func ("/core/job/refusals", test_refusals);
   return g_test_run ();
