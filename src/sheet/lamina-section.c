@@ -248,26 +248,35 @@ get_member_phase (LaminaSection    *self,
 /* Layers, in the local frame (x = t, y = s) */
 
 static void
-draw_air_label (LaminaSection     *self,
-                cairo_t           *cr,
-                const LaminaLayer *layer,
-                double             t0,
-                double             t1,
-                double             length,
-                double             unit)
+draw_air_label (LaminaSection             *self,
+                cairo_t                   *cr,
+                const LaminaSectionLayout *layout,
+                const LaminaLayer         *layer,
+                double                     t0,
+                double                     t1,
+                double                     length,
+                double                     unit)
 {
   const char *text = layer->air == LAMINA_AIR_UNVENTILATED ? _("air") : _("ventilated air");
   double w, h, size = unit * 0.8;
+  cairo_matrix_t matrix;
 
   if (t1 - t0 < size * 1.3)
     return;
   set_text (self, text, TEXT_REGULAR, size, &w, &h);
   if (w > length * 0.8)
     return;
-  /* Written along the layer, in the local frame. */
+  /* Written along the layer and always the right way up: undo the local
+   * frame's turn (or mirror, for a section with the inside on top), then
+   * turn a wall's vertical layer to read from the bottom. */
   cairo_save (cr);
   cairo_translate (cr, (t0 + t1) / 2, length / 2);
-  cairo_rotate (cr, G_PI / 2);
+  lamina_section_layout_get_matrix (layout, &matrix);
+  matrix.x0 = matrix.y0 = 0;
+  cairo_matrix_invert (&matrix);
+  cairo_transform (cr, &matrix);
+  if (layout->orientation == LAMINA_SECTION_ACROSS)
+    cairo_rotate (cr, -G_PI / 2);
   cairo_set_source_rgb (cr, 0, 0, 0);
   cairo_move_to (cr, -w / 2, -h / 2);
   pango_cairo_show_layout (cr, self->layout);
@@ -468,7 +477,7 @@ draw_body (LaminaSection             *self,
         }
       /* Over the veil of a disregarded layer: a label must print dark. */
       if (layer->kind == LAMINA_LAYER_AIR)
-        draw_air_label (self, cr, layer, t0, t1, length, u);
+        draw_air_label (self, cr, layout, layer, t0, t1, length, u);
       if ((int) i == style->highlight_layer)
         {
           cairo_set_source_rgba (cr, 0.16, 0.42, 0.85, 0.16);
