@@ -22,6 +22,7 @@ struct _LaminaMaterialRow
   GtkEntry       *emissivity;
   GtkEntry       *source;
   GtkEntry       *notes;
+  GtkEntry       *stock;
   GtkLabel       *error;
 
   /* owned */

@@ -9,6 +9,7 @@
 #include <math.h>
 
 #include "lamina-number.h"
+#include "lamina-sheet-format.h"
 #include "lamina-text.h"
 
 G_DEFINE_FINAL_TYPE (LaminaMaterialRow, lamina_material_row, GTK_TYPE_LIST_BOX_ROW)
@@ -78,6 +79,52 @@ read_number (LaminaMaterialRow *self,
   return FALSE;
 }
 
+/* Stock thicknesses as typed: numbers in the locale's format (a decimal
+ * comma in Danish), separated by blanks or semicolons. */
+static gboolean
+read_stock (LaminaMaterialRow *self,
+            LaminaMaterial    *material)
+{
+  GtkWidget *entry = GTK_WIDGET (self->stock);
+  g_auto(GStrv) items = g_strsplit_set (gtk_editable_get_text (GTK_EDITABLE (entry)), " \t;", -1);
+  g_autoptr(GArray) values = g_array_new (FALSE, FALSE, sizeof (double));
+
+  gtk_widget_remove_css_class (entry, "error");
+  for (guint i = 0; items[i] != NULL; i++)
+    {
+      g_autoptr(GError) error = NULL;
+      g_autofree char *message = NULL;
+      double v;
+
+      if (*items[i] == '\0')
+        continue;
+      if (!lamina_number_parse (LAMINA_FIELD_THICKNESS, items[i], &v, &error))
+        {
+          message = g_strdup_printf (_("Stock thicknesses: %s"), error->message);
+          gtk_widget_add_css_class (entry, "error");
+          lamina_material_row_show_error (self, message);
+          gtk_widget_grab_focus (entry);
+          return FALSE;
+        }
+      g_array_append_val (values, v);
+    }
+  lamina_material_set_stock_thicknesses (material, (double *) (void *) values->data, values->len);
+  return TRUE;
+}
+
+static char *
+dup_stock_text (const LaminaMaterial *material)
+{
+  GString *text = g_string_new (NULL);
+
+  for (guint i = 0; i < material->n_stock_thicknesses; i++)
+    {
+      char d[LAMINA_FORMAT_SIZE];
+      g_string_append_printf (text, "%s%s", i ? " " : "", lamina_format_thickness (d, material->stock_thicknesses[i]));
+    }
+  return g_string_free (text, FALSE);
+}
+
 static char *
 dup_optional_text (GtkEntry *entry)
 {
@@ -97,6 +144,8 @@ lamina_material_row_dup_material (LaminaMaterialRow *self)
   for (guint i = 0; i < G_N_ELEMENTS (numbers); i++)
     if (!read_number (self, i, &NUMBER_VALUE (copy, i)))
       return NULL;
+  if (!read_stock (self, copy))
+    return NULL;
   if (lamina_text_is_blank (gtk_editable_get_text (GTK_EDITABLE (self->name))))
     {
       lamina_material_row_show_error (self, _("Name: a material needs a name"));
@@ -151,6 +200,7 @@ lamina_material_row_class_init (LaminaMaterialRowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaMaterialRow, emissivity);
   gtk_widget_class_bind_template_child (widget_class, LaminaMaterialRow, source);
   gtk_widget_class_bind_template_child (widget_class, LaminaMaterialRow, notes);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMaterialRow, stock);
   gtk_widget_class_bind_template_child (widget_class, LaminaMaterialRow, error);
   gtk_widget_class_bind_template_callback (widget_class, on_save_clicked_cb);
 }
@@ -179,6 +229,10 @@ lamina_material_row_new (const LaminaMaterial *material)
   gtk_editable_set_text (GTK_EDITABLE (self->name), material->name ? material->name : "");
   gtk_editable_set_text (GTK_EDITABLE (self->source), material->source ? material->source : "");
   gtk_editable_set_text (GTK_EDITABLE (self->notes), material->notes ? material->notes : "");
+  {
+    g_autofree char *stock = dup_stock_text (material);
+    gtk_editable_set_text (GTK_EDITABLE (self->stock), stock);
+  }
   for (guint i = 0; i < G_N_ELEMENTS (numbers); i++)
     {
       double value = NUMBER_VALUE (material, i);

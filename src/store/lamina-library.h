@@ -55,7 +55,7 @@ typedef enum
 GQuark lamina_library_error_quark (void);
 
 /* The schema version this build writes (PRAGMA user_version). */
-#define LAMINA_LIBRARY_SCHEMA_VERSION 6
+#define LAMINA_LIBRARY_SCHEMA_VERSION 7
 
 typedef enum
 {

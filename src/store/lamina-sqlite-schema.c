@@ -192,6 +192,11 @@ static const char schema_v6[] =
   "  modified_at TEXT NOT NULL"
   ");";
 
+/* Version 7: the thicknesses a material is sold in ("50 100 150", mm),
+ * to which a thickness solved for a target U is rounded up. */
+static const char schema_v7[] =
+  "ALTER TABLE material ADD COLUMN stock_thicknesses TEXT;";
+
 static const char *const steps[] = {
   schema_v1,
   schema_v2,
@@ -199,6 +204,7 @@ static const char *const steps[] = {
   schema_v4,
   schema_v5,
   schema_v6,
+  schema_v7,
 };
 
 G_STATIC_ASSERT (G_N_ELEMENTS (steps) == LAMINA_LIBRARY_SCHEMA_VERSION);

@@ -15,7 +15,7 @@
 
 #define MATERIAL_COLUMNS \
   "id, name, category, conductivity, density, specific_heat," \
-  " vapour_resistance_factor, emissivity, source, notes"
+  " vapour_resistance_factor, emissivity, source, notes, stock_thicknesses"
 
 static LaminaMaterial *
 read_material_row (sqlite3_stmt *stmt)
@@ -33,6 +33,9 @@ read_material_row (sqlite3_stmt *stmt)
   m->emissivity = lamina_sqlite_column_double (stmt, 7);
   m->source = lamina_sqlite_column_dup (stmt, 8);
   m->notes = lamina_sqlite_column_dup (stmt, 9);
+  /* Written by put_material from a checked list; a hand-edited file
+   * with a bad one loses only the stock sizes. */
+  lamina_material_parse_stock_string (m, (const char *) sqlite3_column_text (stmt, 10), NULL);
   return m;
 }
 
@@ -114,12 +117,14 @@ put_material_in_txn (LaminaSqlite          *self,
                      GError               **error)
 {
   g_autofree char *fingerprint = lamina_store_material_fingerprint (m);
+  g_autofree char *stock = lamina_material_dup_stock_string (m);
   sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "INSERT INTO material (" MATERIAL_COLUMNS ", fingerprint, modified_at)"
-    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12)"
+    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?13, ?11, ?12)"
     " ON CONFLICT (id) DO UPDATE SET name = ?2, category = ?3, conductivity = ?4,"
     "   density = ?5, specific_heat = ?6, vapour_resistance_factor = ?7,"
-    "   emissivity = ?8, source = ?9, notes = ?10, fingerprint = ?11, modified_at = ?12;",
+    "   emissivity = ?8, source = ?9, notes = ?10, fingerprint = ?11, modified_at = ?12,"
+    "   stock_thicknesses = ?13;",
     error);
 
   if (stmt == NULL)
@@ -136,6 +141,7 @@ put_material_in_txn (LaminaSqlite          *self,
   lamina_sqlite_bind_text (stmt, 10, m->notes);
   lamina_sqlite_bind_text (stmt, 11, fingerprint);
   lamina_sqlite_bind_text (stmt, 12, now);
+  lamina_sqlite_bind_text (stmt, 13, stock);
   return lamina_sqlite_step_done (self, stmt, error)
          && lamina_sqlite_refresh_material_flags (self, m->id, error);
 }

@@ -208,6 +208,33 @@ test_material_changed (void)
   g_assert_false (((LaminaSummary *) rows->pdata[0])->flags & LAMINA_SUMMARY_MATERIAL_CHANGED);
 }
 
+/* Stock thicknesses are kept with the material and do not flag its users:
+ * they change what is built, not the figures. */
+static void
+test_stock_thicknesses (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("stock.sqlite");
+  g_autofree char *id = create_wall (library, "EW-05", "Stock wall", NULL, 145);
+  g_autoptr(LaminaMaterial) wool = lamina_library_dup_material (library, "typical-mineral-wool-035", NULL);
+  g_autoptr(LaminaMaterial) back = NULL;
+  g_autoptr(GPtrArray) rows = NULL;
+  g_autoptr(GError) error = NULL;
+  const double stock[] = { 145, 45, 95 };
+  LaminaLibraryQuery q;
+
+  lamina_material_set_stock_thicknesses (wool, stock, G_N_ELEMENTS (stock));
+  g_assert_true (lamina_library_put_material (library, wool, &error));
+  back = lamina_library_dup_material (library, "typical-mineral-wool-035", &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (back->n_stock_thicknesses, ==, 3);
+  g_assert_cmpfloat (back->stock_thicknesses[0], ==, 45);
+  g_assert_cmpfloat (back->stock_thicknesses[2], ==, 145);
+  lamina_library_query_init (&q);
+  rows = lamina_library_search (library, &q, &error);
+  g_assert_false (((LaminaSummary *) rows->pdata[0])->flags & LAMINA_SUMMARY_MATERIAL_CHANGED);
+  (void) id;
+}
+
 static guint
 count_text (LaminaLibrary *library,
             const char    *text)
@@ -329,6 +356,7 @@ main (int    argc,
   g_test_add_func ("/store/revisions/stale-save", test_stale_save);
   g_test_add_func ("/store/revisions/delete-restore-derive", test_delete_restore_derive);
   g_test_add_func ("/store/revisions/material-changed", test_material_changed);
+  g_test_add_func ("/store/revisions/stock-thicknesses", test_stock_thicknesses);
   g_test_add_func ("/store/search/prefix-tag-material", test_search);
   g_test_add_func ("/store/search/fts-query", test_fts_query);
   g_test_add_func ("/store/search/list-tags", test_list_tags);
