@@ -13,6 +13,8 @@
 #include "lamina-layer-row.h"
 #include "lamina-parts-dialog.h"
 #include "lamina-properties-view.h"
+#include "lamina-solve.h"
+#include "lamina-target-dialog.h"
 
 struct _LaminaEditor
 {
@@ -228,6 +230,8 @@ update_actions (LaminaEditor *self)
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.make-air", has_layer);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.make-declared", has_layer);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.corrections", has_layer);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.meet-target",
+                                 has_layer && lamina_solve_check_layer (state, selected + 1, NULL));
 }
 
 /* "Material data changed since review": asked of the store once per saved
@@ -491,6 +495,21 @@ layer_kind_action (GtkWidget  *widget,
 }
 
 static void
+meet_target_action (GtkWidget  *widget,
+                    const char *action_name,
+                    GVariant   *parameter)
+{
+  LaminaEditor *self = LAMINA_EDITOR (widget);
+  int index = get_selected_index (self);
+
+  GtkRoot *root = gtk_widget_get_root (widget);
+
+  if (index >= 0 && self->document != NULL)
+    gtk_window_present (GTK_WINDOW (lamina_target_dialog_new (GTK_IS_WINDOW (root) ? GTK_WINDOW (root) : NULL,
+                                                              self->document, (guint) index)));
+}
+
+static void
 zoom_action (GtkWidget  *widget,
              const char *action_name,
              GVariant   *parameter)
@@ -591,6 +610,7 @@ lamina_editor_class_init (LaminaEditorClass *klass)
   gtk_widget_class_install_action (widget_class, "editor.make-air", NULL, layer_kind_action);
   gtk_widget_class_install_action (widget_class, "editor.make-declared", NULL, layer_kind_action);
   gtk_widget_class_install_action (widget_class, "editor.corrections", NULL, layer_kind_action);
+  gtk_widget_class_install_action (widget_class, "editor.meet-target", NULL, meet_target_action);
   gtk_widget_class_install_action (widget_class, "editor.zoom-in", NULL, zoom_action);
   gtk_widget_class_install_action (widget_class, "editor.zoom-out", NULL, zoom_action);
   gtk_widget_class_install_action (widget_class, "editor.zoom-fit", NULL, zoom_action);

@@ -8,6 +8,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-dynamic-view.h"
 #include "lamina-number.h"
 #include "lamina-text.h"
 
@@ -35,6 +36,7 @@ struct _LaminaResultsView
   GtkLabel      *target_label;
   GtkGrid       *figures;
   GtkBox        *warnings_box;
+  LaminaDynamicView *dynamic_view;
   GtkSpinButton *inside_spin;
   GtkSpinButton *outside_spin;
   GtkEntry      *target_entry;
@@ -160,12 +162,14 @@ lamina_results_view_class_init (LaminaResultsViewClass *klass)
                   0, NULL, NULL, NULL, G_TYPE_NONE, 3,
                   G_TYPE_DOUBLE, G_TYPE_DOUBLE, G_TYPE_DOUBLE);
 
+  g_type_ensure (LAMINA_TYPE_DYNAMIC_VIEW);
   gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-results-view.ui");
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, scroller);
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, u_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, target_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, figures);
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, warnings_box);
+  gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, dynamic_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, inside_spin);
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, outside_spin);
   gtk_widget_class_bind_template_child (widget_class, LaminaResultsView, target_entry);
@@ -288,6 +292,7 @@ lamina_results_view_update (LaminaResultsView        *self,
   if (construction != NULL)
     update_conditions (self, construction);
   update_target (self, construction, result);
+  lamina_dynamic_view_update (self->dynamic_view, construction, result);
   if (result == NULL)
     {
       for (guint i = 0; i < N_FIGURES; i++)
@@ -337,4 +342,11 @@ lamina_results_view_get_rse_text (LaminaResultsView *self)
 {
   g_return_val_if_fail (LAMINA_IS_RESULTS_VIEW (self), NULL);
   return gtk_label_get_text (self->values[FIGURE_RSE]);
+}
+
+LaminaDynamicView *
+lamina_results_view_get_dynamic_view (LaminaResultsView *self)
+{
+  g_return_val_if_fail (LAMINA_IS_RESULTS_VIEW (self), NULL);
+  return self->dynamic_view;
 }

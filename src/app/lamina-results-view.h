@@ -6,6 +6,8 @@
 
 #include <gtk/gtk.h>
 
+#include "lamina-dynamic-view.h"
+
 #include "lamina-calc.h"
 
 G_BEGIN_DECLS
@@ -23,5 +25,8 @@ const char *lamina_results_view_get_u_text (LaminaResultsView      *self);
 /* The Rsi and Rse figures shown. */
 const char *lamina_results_view_get_rsi_text (LaminaResultsView    *self);
 const char *lamina_results_view_get_rse_text (LaminaResultsView    *self);
+
+/* The EN ISO 13786 block under the figures. */
+LaminaDynamicView *lamina_results_view_get_dynamic_view (LaminaResultsView *self);
 
 G_END_DECLS

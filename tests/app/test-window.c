@@ -27,6 +27,8 @@
 #include "lamina-materials-window-private.h"
 #include "lamina-parts-dialog-private.h"
 #include "lamina-settings.h"
+#include "lamina-dynamic.h"
+#include "lamina-target-dialog.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
 #include "lamina-window-private.h"
@@ -1119,6 +1121,74 @@ test_compare_revisions (Fixture       *f,
   gtk_window_destroy (GTK_WINDOW (history));
 }
 
+/* Meet Target U: the solve shown, applied as one undoable edit; the
+ * dynamic block agrees with lamina_dynamic_calculate. */
+static void
+test_meet_target (Fixture       *f,
+                  gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *target = NULL;
+  g_autoptr(LaminaResult) before = NULL;
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  LaminaDynamicView *dynamic = lamina_results_view_get_dynamic_view (lamina_editor_get_results_view (editor));
+  LaminaTargetDialog *dialog;
+  const LaminaSolve *solve;
+  LaminaDynamic d;
+  char u[LAMINA_U_TEXT_SIZE];
+  double thickness, snapped;
+  guint index = 0;
+  int revision;
+
+  id = find_plain_construction (f, &index);
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  thickness = ((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness;
+  revision = open_state (f)->revision;
+  before = lamina_calculate (open_state (f), NULL);
+  if (lamina_dynamic_calculate (open_state (f), before, 24, &d, NULL))
+    {
+      char f_text[32];
+      g_snprintf (f_text, sizeof f_text, "%.2f", d.decrement_factor);
+      g_assert_cmpstr (lamina_dynamic_view_get_decrement_text (dynamic), ==, f_text);
+    }
+  else
+    g_assert_cmpstr (lamina_dynamic_view_get_decrement_text (dynamic), ==, "–");
+
+  dialog = lamina_target_dialog_new (GTK_WINDOW (f->window), lamina_editor_get_document (editor), index);
+  gtk_window_present (GTK_WINDOW (dialog));
+  /* Four fifths of the current U: reached by thickening the layer. */
+  target = lamina_text_number (before->u_corrected * 0.8, 3);
+  g_assert_true (lamina_target_dialog_set_target (dialog, target));
+  solve = lamina_target_dialog_get_solve (dialog);
+  g_assert_nonnull (solve);
+  g_assert_cmpfloat (solve->thickness, >, thickness);
+  g_assert_cmpfloat (solve->thickness_snapped, >=, solve->thickness - 1e-6);
+  g_assert_cmpfloat (solve->u_snapped, <=, solve->target);
+  snapped = solve->thickness_snapped;
+  lamina_format_u (u, solve->u_snapped);
+  {
+    const char *build = g_getenv ("LAMINA_BUILD_DIR");
+    g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "meet-target.png", NULL);
+
+    wait_for_draw (GTK_WIDGET (dialog));
+    save_png (GTK_WIDGET (dialog), path);
+  }
+  /* An unreachable target is refused in the dialog, not applied. */
+  g_assert_false (lamina_target_dialog_set_target (dialog, "0.001"));
+  g_assert_null (lamina_target_dialog_get_solve (dialog));
+  g_assert_true (lamina_target_dialog_set_target (dialog, target));
+  lamina_target_dialog_apply (dialog, TRUE);
+  wait_for_draw (GTK_WIDGET (f->window));
+
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, snapped);
+  g_assert_cmpstr (shown_u (f), ==, u);
+  g_assert_cmpint (open_state (f)->revision, ==, revision + 1);
+  /* One step back restores the layer. */
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, thickness);
+}
+
 static void
 test_close_keys (Fixture       *f,
                  gconstpointer  data)
@@ -1357,6 +1427,7 @@ main (int   argc,
       g_test_add ("/app/window/print-full-size", Fixture, NULL, fixture_setup, test_print_full_size, fixture_teardown);
 #endif
       g_test_add ("/app/window/material-chooser", Fixture, NULL, fixture_setup, test_material_chooser, fixture_teardown);
+      g_test_add ("/app/window/meet-target", Fixture, NULL, fixture_setup, test_meet_target, fixture_teardown);
     }
   return g_test_run ();
 }
