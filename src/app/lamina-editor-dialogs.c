@@ -15,30 +15,34 @@
 #include "lamina-number.h"
 #include "lamina-text.h"
 
-typedef struct _Form Form;
+/* Every dialog here is a LaminaEditorForm: a grid of labelled fields, an
+ * error line and Cancel/Apply, with the dialog's own apply function. */
+#define LAMINA_TYPE_EDITOR_FORM (lamina_editor_form_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaEditorForm, lamina_editor_form, LAMINA, EDITOR_FORM, GtkWindow)
+
+typedef LaminaEditorForm Form;
 typedef gboolean (*FormApply) (Form *form, GError **error);
 
-struct _Form
+struct _LaminaEditorForm
 {
-  LaminaEditor *editor;
-  GtkWindow    *window;
+  GtkWindow     parent_instance;
+
+  /* template */
   GtkGrid      *grid;
   GtkLabel     *error_label;
-  GHashTable   *fields;    /* name → widget (borrowed) */
+
+  /* owned */
+  LaminaEditor *editor;
+  GHashTable   *fields;    /* field name → widget (borrowed from the grid) */
   FormApply     apply;
-  GPtrArray    *materials; /* LaminaMaterial*, owned */
+  GPtrArray    *materials; /* LaminaMaterial*, for the material chooser */
+  GListModel   *material_names;      /* one string per material, in order */
+  GtkSingleSelection *material_selection; /* over the search's filter */
   gboolean      insert;
   int           rows;
 };
 
-static void
-form_free (Form *form)
-{
-  g_hash_table_unref (form->fields);
-  g_clear_pointer (&form->materials, g_ptr_array_unref);
-  g_object_unref (form->editor);
-  g_free (form);
-}
+G_DEFINE_FINAL_TYPE (LaminaEditorForm, lamina_editor_form, GTK_TYPE_WINDOW)
 
 static const LaminaConstruction *
 form_state (Form *form)
@@ -74,13 +78,43 @@ on_apply_clicked_cb (Form *form)
       gtk_widget_set_visible (GTK_WIDGET (form->error_label), TRUE);
       return;
     }
-  gtk_window_destroy (form->window);
+  gtk_window_destroy (GTK_WINDOW (form));
 }
 
 static void
-on_cancel_clicked_cb (Form *form)
+lamina_editor_form_dispose (GObject *object)
 {
-  gtk_window_destroy (form->window);
+  Form *form = LAMINA_EDITOR_FORM (object);
+
+  gtk_widget_dispose_template (GTK_WIDGET (form), LAMINA_TYPE_EDITOR_FORM);
+  g_clear_pointer (&form->fields, g_hash_table_unref);
+  g_clear_pointer (&form->materials, g_ptr_array_unref);
+  g_clear_object (&form->material_names);
+  g_clear_object (&form->material_selection);
+  g_clear_object (&form->editor);
+
+  G_OBJECT_CLASS (lamina_editor_form_parent_class)->dispose (object);
+}
+
+static void
+lamina_editor_form_class_init (LaminaEditorFormClass *klass)
+{
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  G_OBJECT_CLASS (klass)->dispose = lamina_editor_form_dispose;
+
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-editor-form.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditorForm, grid);
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditorForm, error_label);
+  gtk_widget_class_bind_template_callback (widget_class, on_apply_clicked_cb);
+  gtk_widget_class_bind_template_callback (widget_class, gtk_window_destroy);
+}
+
+static void
+lamina_editor_form_init (LaminaEditorForm *form)
+{
+  gtk_widget_init_template (GTK_WIDGET (form));
+  form->fields = g_hash_table_new (g_str_hash, g_str_equal);
 }
 
 static Form *
@@ -88,49 +122,13 @@ form_new (LaminaEditor *editor,
           const char   *title,
           FormApply     apply)
 {
-  Form *form = g_new0 (Form, 1);
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 12);
-  GtkWidget *buttons = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-  GtkWidget *cancel = gtk_button_new_with_mnemonic (_("_Cancel"));
-  GtkWidget *ok = gtk_button_new_with_mnemonic (_("_Apply"));
   GtkRoot *root = gtk_widget_get_root (GTK_WIDGET (editor));
+  Form *form = g_object_new (LAMINA_TYPE_EDITOR_FORM, "title", title,
+                             "transient-for", GTK_IS_WINDOW (root) ? GTK_WINDOW (root) : NULL,
+                             NULL);
 
   form->editor = g_object_ref (editor);
   form->apply = apply;
-  form->fields = g_hash_table_new (g_str_hash, g_str_equal);
-  form->window = GTK_WINDOW (gtk_window_new ());
-  gtk_window_set_title (form->window, title);
-  gtk_window_set_modal (form->window, TRUE);
-  gtk_window_set_resizable (form->window, FALSE);
-  if (GTK_IS_WINDOW (root))
-    gtk_window_set_transient_for (form->window, GTK_WINDOW (root));
-  gtk_window_set_destroy_with_parent (form->window, TRUE);
-  g_object_set_data_full (G_OBJECT (form->window), "lamina-form", form, (GDestroyNotify) form_free);
-
-  gtk_widget_set_margin_start (box, 18);
-  gtk_widget_set_margin_end (box, 18);
-  gtk_widget_set_margin_top (box, 18);
-  gtk_widget_set_margin_bottom (box, 18);
-  form->grid = GTK_GRID (gtk_grid_new ());
-  gtk_grid_set_row_spacing (form->grid, 8);
-  gtk_grid_set_column_spacing (form->grid, 12);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (form->grid));
-  form->error_label = GTK_LABEL (gtk_label_new (NULL));
-  gtk_label_set_wrap (form->error_label, TRUE);
-  gtk_label_set_xalign (form->error_label, 0);
-  gtk_widget_add_css_class (GTK_WIDGET (form->error_label), "lamina-error");
-  gtk_widget_set_visible (GTK_WIDGET (form->error_label), FALSE);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (form->error_label));
-
-  gtk_widget_set_halign (buttons, GTK_ALIGN_END);
-  gtk_widget_add_css_class (ok, "suggested-action");
-  gtk_box_append (GTK_BOX (buttons), cancel);
-  gtk_box_append (GTK_BOX (buttons), ok);
-  gtk_box_append (GTK_BOX (box), buttons);
-  gtk_window_set_child (form->window, box);
-  gtk_window_set_default_widget (form->window, ok);
-  g_signal_connect_swapped (ok, "clicked", G_CALLBACK (on_apply_clicked_cb), form);
-  g_signal_connect_swapped (cancel, "clicked", G_CALLBACK (on_cancel_clicked_cb), form);
   return form;
 }
 
@@ -252,11 +250,8 @@ form_add_materials (Form           *form,
       const LaminaMaterial *material = g_ptr_array_index (form->materials, i);
       g_autofree char *lambda = lamina_text_number (material->conductivity, 3);
       g_autofree char *text = g_strdup_printf ("%s (λ %s)", material->name, lambda);
-      g_autoptr(GObject) item = NULL;
 
       gtk_string_list_append (names, text);
-      item = g_list_model_get_item (G_LIST_MODEL (names), i);
-      g_object_set_data (item, "lamina-index", GUINT_TO_POINTER (i + 1));
       if (material->category == prefer && preferred == GTK_INVALID_LIST_POSITION)
         preferred = i;
       if (current_id != NULL && g_strcmp0 (material->id, current_id) == 0)
@@ -283,8 +278,8 @@ form_add_materials (Form           *form,
   gtk_widget_add_css_class (scroller, "frame");
   gtk_box_append (GTK_BOX (box), search);
   gtk_box_append (GTK_BOX (box), scroller);
-  g_object_set_data (G_OBJECT (box), "lamina-selection", selection); /* owned by the list */
-  g_object_set_data (G_OBJECT (box), "lamina-search", search);
+  g_set_object (&form->material_names, G_LIST_MODEL (names));
+  g_set_object (&form->material_selection, selection);
   gtk_accessible_update_property (GTK_ACCESSIBLE (list), GTK_ACCESSIBLE_PROPERTY_LABEL, _("Materials"), -1);
   form_add (form, name, label, box);
   /* The selected material in view once the list has its size. */
@@ -294,18 +289,24 @@ form_add_materials (Form           *form,
   return box;
 }
 
+/* The material picked in the chooser (the filter shows a subset of the
+ * names, so the picked item is found among all of them). */
 static const LaminaMaterial *
-form_get_material (Form       *form,
-                   const char *name)
+form_get_material (Form *form)
 {
-  GtkWidget *box = g_hash_table_lookup (form->fields, name);
-  GtkSingleSelection *selection = g_object_get_data (G_OBJECT (box), "lamina-selection");
-  GObject *item = gtk_single_selection_get_selected_item (selection);
-  guint index = item ? GPOINTER_TO_UINT (g_object_get_data (item, "lamina-index")) : 0;
+  GObject *picked;
 
-  if (form->materials == NULL || index == 0 || index > form->materials->len)
+  if (form->material_selection == NULL || form->materials == NULL)
     return NULL;
-  return g_ptr_array_index (form->materials, index - 1);
+  picked = gtk_single_selection_get_selected_item (form->material_selection);
+  for (guint i = 0; picked != NULL && i < form->materials->len; i++)
+    {
+      g_autoptr(GObject) item = g_list_model_get_item (form->material_names, i);
+
+      if (item == picked)
+        return g_ptr_array_index (form->materials, i);
+    }
+  return NULL;
 }
 
 static gboolean
@@ -325,7 +326,7 @@ static gboolean
 apply_material (Form    *form,
                 GError **error)
 {
-  const LaminaMaterial *material = form_get_material (form, "material");
+  const LaminaMaterial *material = form_get_material (form);
   const LaminaConstruction *state = form_state (form);
   LaminaConstruction *next;
   double thickness;
@@ -366,7 +367,7 @@ lamina_editor_choose_material (LaminaEditor *self,
   form_add_materials (form, "material", _("_Material"), LAMINA_CATEGORY_INSULATION, current ? current->id : NULL);
   if (insert)
     form_add_number (form, "thickness", _("_Thickness (mm)"), 50, 0);
-  gtk_window_present (form->window);
+  gtk_window_present (GTK_WINDOW (form));
 }
 
 /* Bridged */
@@ -384,7 +385,7 @@ apply_bridged (Form    *form,
       !form_get_number (form, "spacing", LAMINA_FIELD_SPACING, FALSE, &spacing, error))
     return FALSE;
   next = lamina_edit_make_bridged (form_state (form), form_layer (form), infill,
-                                   form_get_material (form, "framing"), width, spacing,
+                                   form_get_material (form), width, spacing,
                                    _("framing"), error);
   return form_apply_next (form, next, NULL);
 }
@@ -397,7 +398,7 @@ lamina_editor_edit_bridged (LaminaEditor *self)
   form_add_materials (form, "framing", _("_Framing member"), LAMINA_CATEGORY_TIMBER, NULL);
   form_add_number (form, "width", _("_Width (mm)"), 45, 0);
   form_add_number (form, "spacing", _("_Spacing, centres (mm)"), 600, 0);
-  gtk_window_present (form->window);
+  gtk_window_present (GTK_WINDOW (form));
 }
 
 /* Air layer */
@@ -434,7 +435,7 @@ lamina_editor_edit_air (LaminaEditor *self)
   form_add_number (form, "vent", _("Vent _area (mm² per m)"), NAN, 0);
   form_add_number (form, "e1", _("_Inner face ε"), 0.9, 2);
   form_add_number (form, "e2", _("_Outer face ε"), 0.9, 2);
-  gtk_window_present (form->window);
+  gtk_window_present (GTK_WINDOW (form));
 }
 
 /* Declared resistance */
@@ -458,7 +459,7 @@ lamina_editor_edit_declared (LaminaEditor *self)
   Form *form = form_new (self, _("Declared Resistance"), apply_declared);
 
   form_add_number (form, "r", _("_Thermal resistance R (m²·K/W)"), 0.5, 2);
-  gtk_window_present (form->window);
+  gtk_window_present (GTK_WINDOW (form));
 }
 
 /* Corrections */
@@ -517,5 +518,5 @@ lamina_editor_edit_corrections (LaminaEditor *self)
   form_add (form, "inverted", _("_Inverted roof"), new_check (_("Inverted roof"), c.has_inverted_roof));
   form_add_number (form, "p", _("Precipitation (mm/day)"), c.precipitation > 0 ? c.precipitation : 2, 1);
   form_add_number (form, "f", _("Drainage factor f"), c.drainage_factor > 0 ? c.drainage_factor : 0.5, 2);
-  gtk_window_present (form->window);
+  gtk_window_present (GTK_WINDOW (form));
 }

@@ -367,7 +367,20 @@ test_material_chooser (Fixture       *f,
   g_assert_true (gtk_widget_compute_bounds (apply, GTK_WIDGET (chooser), &after));
   g_assert_cmpfloat (after.origin.x, ==, before.origin.x);
   g_assert_cmpfloat (after.origin.y, ==, before.origin.y);
-  gtk_window_destroy (chooser);
+
+  /* Applying takes the material picked among the filtered ones (the last
+   * match, so a position in the filtered list is not the library's). */
+  gtk_single_selection_set_selected (selection, n - 1);
+  {
+    g_autoptr(GtkStringObject) picked = g_list_model_get_item (shown, n - 1);
+    const char *text = gtk_string_object_get_string (picked);
+    const LaminaMaterial *now;
+
+    g_signal_emit_by_name (apply, "clicked");
+    now = ((LaminaLayer *) open_state (f)->layers->pdata[index])->material;
+    g_assert_true (g_str_has_prefix (text, now->name));
+    g_assert_nonnull (strstr (now->name, "ibre"));
+  }
 }
 
 static void
