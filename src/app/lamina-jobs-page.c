@@ -190,6 +190,15 @@ on_move_clicked_cb (GtkButton *button,
   show_job (self, id);
 }
 
+static void choose_pdf (LaminaJobsPage *self, int n);
+
+static void
+on_sheet_clicked_cb (GtkButton *button,
+                     RowAction *action)
+{
+  choose_pdf (action->page, action->entry);
+}
+
 static void
 on_remove_clicked_cb (GtkButton *button,
                       RowAction *action)
@@ -289,6 +298,9 @@ create_schedule_row (LaminaJobsPage      *self,
       gtk_box_append (GTK_BOX (top), create_action_button (self, label, line->entry->n, line->newer_revision,
                                                            G_CALLBACK (on_move_clicked_cb)));
     }
+  if (c != NULL)
+    gtk_box_append (GTK_BOX (top), create_action_button (self, _("Sheet…"), line->entry->n, 0,
+                                                         G_CALLBACK (on_sheet_clicked_cb)));
   gtk_box_append (GTK_BOX (top), create_action_button (self, _("Remove"), line->entry->n, 0,
                                                        G_CALLBACK (on_remove_clicked_cb)));
   gtk_box_append (GTK_BOX (box), top);
@@ -437,6 +449,75 @@ add_entry_action (GtkWidget  *widget,
   lamina_jobs_page_open_add_dialog (LAMINA_JOBS_PAGE (widget), NULL);
 }
 
+/* Sheets */
+
+char *
+lamina_jobs_page_dup_uses_text (LaminaJobsPage *self,
+                                const char     *construction_id)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) uses = lamina_library_list_job_uses (self->library, construction_id, &error);
+  GString *text;
+
+  if (uses == NULL)
+    return g_strdup (error->message);
+  if (uses->len == 0)
+    return g_strdup (_("No job uses this construction."));
+  text = g_string_new (_("Used in"));
+  for (guint i = 0; i < uses->len; i++)
+    {
+      const LaminaJobUse *use = uses->pdata[i];
+
+      g_string_append_printf (text, _("%s %s %s (entry %d, revision %d, %s)"), i > 0 ? ";" : "",
+                              use->job_number ? use->job_number : use->job_id, use->job_name,
+                              use->entry, use->revision, use->use);
+    }
+  g_string_append_c (text, '.');
+  return g_string_free (text, FALSE);
+}
+
+static void
+init_options (LaminaJobsPage     *self,
+              LaminaSheetOptions *options,
+              char              **practice)
+{
+  lamina_sheet_options_init (options);
+  *practice = g_settings_get_string (self->settings, "practice-name");
+  options->practice = **practice ? *practice : NULL;
+  options->library = lamina_library_get_path (self->library);
+}
+
+gboolean
+lamina_jobs_page_export_entry (LaminaJobsPage  *self,
+                               int              n,
+                               const char      *path,
+                               GError         **error)
+{
+  g_autofree char *practice = NULL;
+  g_autoptr(LaminaConstruction) c = NULL;
+  const LaminaJobLine *line = NULL;
+  LaminaSheetOptions options;
+  LaminaSheetJob band;
+
+  g_return_val_if_fail (self->report != NULL, FALSE);
+  for (guint i = 0; i < self->report->check->lines->len; i++)
+    if (((const LaminaJobLine *) self->report->check->lines->pdata[i])->entry->n == n)
+      line = self->report->check->lines->pdata[i];
+  if (line == NULL || line->construction == NULL)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   _("Entry %d has no construction to print."), n);
+      return FALSE;
+    }
+  init_options (self, &options, &practice);
+  band = (LaminaSheetJob) { self->report->job->name, self->report->job->number,
+                            self->report->job->client, line->entry->use };
+  options.job = &band;
+  c = lamina_construction_copy (line->construction);
+  c->target_u = line->max_u;
+  return lamina_sheet_write_pdf (path, TRUE, &options, c, error);
+}
+
 /* The sheet set */
 
 gboolean
@@ -444,31 +525,34 @@ lamina_jobs_page_export (LaminaJobsPage  *self,
                          const char      *path,
                          GError         **error)
 {
-  g_autofree char *practice = g_settings_get_string (self->settings, "practice-name");
+  g_autofree char *practice = NULL;
   LaminaSheetOptions options;
 
   g_return_val_if_fail (self->report != NULL, FALSE);
-  lamina_sheet_options_init (&options);
-  options.practice = *practice ? practice : NULL;
-  options.library = lamina_library_get_path (self->library);
+  init_options (self, &options, &practice);
   return lamina_sheet_write_job (path, TRUE, &options, self->report->job, self->report->targets,
                                  self->report->check, error);
 }
 
+/* Entry 0 is the whole set. */
 static void
 on_print_response_cb (GtkNativeDialog *dialog,
                       int              response,
                       LaminaJobsPage  *self)
 {
-  if (response == GTK_RESPONSE_ACCEPT)
+  int n = GPOINTER_TO_INT (g_object_get_data (G_OBJECT (dialog), "lamina-entry"));
+
+  if (response == GTK_RESPONSE_ACCEPT && self->report != NULL)
     {
       g_autoptr(GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
       g_autofree char *path = g_file_get_path (file);
       g_autoptr(GError) error = NULL;
       g_autofree char *message = NULL;
+      gboolean ok = n > 0 ? lamina_jobs_page_export_entry (self, n, path, &error)
+                          : lamina_jobs_page_export (self, path, &error);
 
-      if (lamina_jobs_page_export (self, path, &error))
-        message = g_strdup_printf (_("Sheet set written to %s"), path);
+      if (ok)
+        message = g_strdup_printf (_("Written to %s"), path);
       gtk_label_set_text (self->status_label, message ? message : error->message);
     }
   gtk_native_dialog_destroy (dialog);
@@ -477,26 +561,34 @@ on_print_response_cb (GtkNativeDialog *dialog,
 }
 
 static void
-print_action (GtkWidget  *widget,
-              const char *name,
-              GVariant   *parameter)
+choose_pdf (LaminaJobsPage *self,
+            int             n)
 {
-  LaminaJobsPage *self = LAMINA_JOBS_PAGE (widget);
   GtkFileChooserNative *chooser;
   g_autofree char *suggested = NULL;
 
   if (self->report == NULL)
     return;
-  suggested = g_strdup_printf ("%s.pdf", self->report->job->number ? self->report->job->number
-                                                                  : self->report->job->id);
+  suggested = n > 0
+    ? g_strdup_printf ("%s-%d.pdf", self->report->job->number ? self->report->job->number : self->report->job->id, n)
+    : g_strdup_printf ("%s.pdf", self->report->job->number ? self->report->job->number : self->report->job->id);
   g_strdelimit (suggested, "/\\:*?\"<>| ", '-');
-  chooser = gtk_file_chooser_native_new (_("Print the Job’s Sheet Set"),
-                                         GTK_WINDOW (gtk_widget_get_root (widget)),
+  chooser = gtk_file_chooser_native_new (n > 0 ? _("Export the Entry’s Sheet") : _("Print the Job’s Sheet Set"),
+                                         GTK_WINDOW (gtk_widget_get_root (GTK_WIDGET (self))),
                                          GTK_FILE_CHOOSER_ACTION_SAVE, _("_Export"), _("_Cancel"));
   gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (chooser), suggested);
   gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
+  g_object_set_data (G_OBJECT (chooser), "lamina-entry", GINT_TO_POINTER (n));
   g_signal_connect (chooser, "response", G_CALLBACK (on_print_response_cb), g_object_ref (self));
   gtk_native_dialog_show (GTK_NATIVE_DIALOG (chooser));
+}
+
+static void
+print_action (GtkWidget  *widget,
+              const char *name,
+              GVariant   *parameter)
+{
+  choose_pdf (LAMINA_JOBS_PAGE (widget), 0);
 }
 
 /* Life cycle */

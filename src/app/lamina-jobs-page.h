@@ -27,6 +27,16 @@ guint       lamina_jobs_page_get_n_entries (LaminaJobsPage *self);
 /* Opens the add dialog with @use chosen (NULL: the first use). */
 LaminaJobAddDialog *lamina_jobs_page_open_add_dialog (LaminaJobsPage *self,
                                                       const char     *use);
+/* One sentence naming the jobs whose schedules pin @construction_id
+ * (what the library shows for a construction). */
+char       *lamina_jobs_page_dup_uses_text (LaminaJobsPage *self,
+                                            const char     *construction_id);
+/* Writes the sheet of entry @n of the selected job, with the job's band,
+ * in its design conditions, to @path. */
+gboolean    lamina_jobs_page_export_entry  (LaminaJobsPage *self,
+                                            int             n,
+                                            const char     *path,
+                                            GError        **error);
 /* Writes the selected job's sheet set to @path. */
 gboolean    lamina_jobs_page_export        (LaminaJobsPage *self,
                                             const char     *path,

@@ -37,6 +37,7 @@ lamina_window_update_actions (LaminaWindow *self)
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.approve",
                                  open && !conflict && state->status != LAMINA_STATUS_APPROVED);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.history", open);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.used-in-jobs", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.update-materials", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.derive", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.delete", open);
@@ -337,6 +338,21 @@ history_action (GtkWidget  *widget,
                                  lamina_document_get_id (self->document));
 }
 
+/* The library shows which jobs use the open construction. */
+static void
+used_in_jobs_action (GtkWidget  *widget,
+                     const char *name,
+                     GVariant   *parameter)
+{
+  LaminaWindow *self = LAMINA_WINDOW (widget);
+  g_autofree char *text = NULL;
+
+  if (self->document == NULL)
+    return;
+  text = lamina_jobs_page_dup_uses_text (self->jobs_page, lamina_document_get_id (self->document));
+  lamina_window_notify (self, text);
+}
+
 static void
 materials_action (GtkWidget  *widget,
                   const char *name,
@@ -383,6 +399,7 @@ lamina_window_install_actions (GtkWidgetClass *widget_class)
   gtk_widget_class_install_action (widget_class, "win.approve", NULL, review_action);
   gtk_widget_class_install_action (widget_class, "win.update-materials", NULL, update_materials_action);
   gtk_widget_class_install_action (widget_class, "win.history", NULL, history_action);
+  gtk_widget_class_install_action (widget_class, "win.used-in-jobs", NULL, used_in_jobs_action);
   gtk_widget_class_install_action (widget_class, "win.new-construction", NULL, new_construction_action);
   gtk_widget_class_install_action (widget_class, "win.derive", NULL, derive_action);
   gtk_widget_class_install_action (widget_class, "win.delete", NULL, delete_action);

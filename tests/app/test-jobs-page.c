@@ -26,6 +26,7 @@ test_jobs_page (void)
   g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "jobs-page.png", NULL);
   g_autoptr(LaminaLibrary) library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
   g_autofree char *data = NULL;
+  g_autofree char *uses = NULL;
   LaminaWindow *window;
   LaminaJobsPage *page;
   LaminaJobAddDialog *dialog;
@@ -79,6 +80,23 @@ test_jobs_page (void)
   g_assert_no_error (error);
   g_assert_true (g_file_get_contents (pdf, &data, &length, NULL));
   g_assert_true (length > 1000 && memcmp (data, "%PDF", 4) == 0);
+  g_clear_pointer (&data, g_free);
+
+  /* One entry's sheet with the job's band; none for a missing number. */
+  g_assert_true (lamina_jobs_page_export_entry (page, 2, pdf, &error));
+  g_assert_no_error (error);
+  g_assert_true (g_file_get_contents (pdf, &data, &length, NULL));
+  g_assert_true (memcmp (data, "%PDF", 4) == 0);
+  g_assert_false (lamina_jobs_page_export_entry (page, 99, pdf, &error));
+  g_clear_error (&error);
+
+  /* The library names the jobs using a construction. */
+  uses = lamina_jobs_page_dup_uses_text (page, "demo-ew-203");
+  g_assert_nonnull (strstr (uses, "TO-2402"));
+  g_assert_nonnull (strstr (uses, "entry 2, revision 1, external-wall"));
+  g_clear_pointer (&uses, g_free);
+  uses = lamina_jobs_page_dup_uses_text (page, "demo-ew-302");
+  g_assert_cmpstr (uses, ==, "No job uses this construction.");
 
   lamina_window_show_view (window, "library");
   gtk_window_destroy (GTK_WINDOW (window));
