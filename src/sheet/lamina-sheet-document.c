@@ -10,6 +10,7 @@
 
 #include <cairo-pdf.h>
 #include <glib/gi18n-lib.h>
+#include <math.h>
 
 static char *
 dup_iso_date (const char *printed)
@@ -191,6 +192,7 @@ write_pages (cairo_surface_t          *surface,
       g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
       g_autoptr(LaminaResult) r = NULL;
       g_autoptr(LaminaFieldResult) field = NULL;
+      g_autoptr(LaminaMoistureResult) moisture = NULL;
       /* Named destinations: cairo 1.16 drops a "page=" link to a page
        * that is not written yet. */
       g_autofree char *dest = g_strdup_printf ("dest='sheet-%u'", i + 1);
@@ -221,6 +223,21 @@ write_pages (cairo_surface_t          *surface,
           ctx.n_pages++;
           ctx.field = field;
         }
+      /* A construction with a moisture check (EN ISO 13788): its summary on
+       * the first page and, for a single sheet, a page of its own. */
+      if (c->moisture != NULL && c->moisture->climate_data != NULL)
+        {
+          moisture = lamina_moisture_calculate_own (c, NAN, error);
+          if (moisture == NULL)
+            {
+              ok = FALSE;
+              break;
+            }
+          ctx.moisture = moisture;
+          ctx.moisture_page = !source->front_matter;
+          if (ctx.moisture_page)
+            ctx.n_pages++;
+        }
       sheet_draw_page (&ctx, c, r);
       ctx.dest = NULL;
       cairo_show_page (cr);
@@ -232,6 +249,14 @@ write_pages (cairo_surface_t          *surface,
           ctx.field = NULL;
           g_clear_pointer (&field, lamina_field_result_free);
         }
+      if (moisture != NULL && ctx.moisture_page)
+        {
+          ctx.page++;
+          sheet_draw_moisture_page (&ctx, c, moisture);
+          cairo_show_page (cr);
+        }
+      ctx.moisture = NULL;
+      ctx.moisture_page = FALSE;
       if (progress)
         progress (progress_data, i + 1, source->n);
     }

@@ -643,8 +643,19 @@ dup_notes_text (const LaminaConstruction *c,
 }
 
 static const char *
-get_method_text (void)
+get_method_text (gboolean moisture_checked)
 {
+  if (moisture_checked)
+    return _("Method. Thermal resistance and transmittance by EN ISO 6946:2017: surface resistances "
+             "by Table 7 for the stated direction of heat flow, air layers by 6.9, bridged layers by the "
+             "combined method (upper and lower limit, 6.7.2), corrections to U by Annex F. U is given to "
+             "two significant figures; intermediate values are unrounded.\n"
+             "Cautions. The results hold for the stated design values and conditions only. Check the "
+             "design values against the product declarations, and the construction against the local "
+             "building code and licensed professional practice. The condensation risk is assessed by the "
+             "monthly method of EN ISO 13788, which ignores liquid transport, rain and air leakage: a "
+             "borderline result needs EN 15026 or specialist advice. Linear thermal bridges "
+             "(EN ISO 10211) are not covered.");
   return _("Method. Thermal resistance and transmittance by EN ISO 6946:2017: surface resistances "
            "by Table 7 for the stated direction of heat flow, air layers by 6.9, bridged layers by the "
            "combined method (upper and lower limit, 6.7.2), corrections to U by Annex F. U is given to "
@@ -702,6 +713,14 @@ sheet_draw_page (SheetContext             *ctx,
       g_free (warnings);
       warnings = joined;
     }
+  if (ctx->moisture != NULL)
+    {
+      g_autofree char *summary = sheet_dup_moisture_summary (c, ctx->moisture, ctx->moisture_page);
+      char *joined = g_strconcat (warnings, *warnings ? "\n" : "", "→  ", summary, NULL);
+
+      g_free (warnings);
+      warnings = joined;
+    }
   g_free (ctx->footer);
   ctx->footer = dup_footer (ctx, c);
   sheet_draw_frame (ctx, c->status == LAMINA_STATUS_DRAFT);
@@ -717,7 +736,7 @@ sheet_draw_page (SheetContext             *ctx,
   dyn_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, dynamic) + GAP;
   if (method)
     applied_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, method) + GAP;
-  method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, get_method_text ());
+  method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, get_method_text (ctx->moisture != NULL));
 
   /* The section takes the height left, within bounds. */
   room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - dyn_h - notes_h
@@ -743,7 +762,7 @@ sheet_draw_page (SheetContext             *ctx,
 
   set_grey (ctx);
   sheet_rule (ctx, ctx->bottom - 20 - method_h, 0.4, 0.6);
-  sheet_text (ctx, SHEET_FONT_SMALL, get_method_text (), ctx->left, ctx->bottom - 16 - method_h,
+  sheet_text (ctx, SHEET_FONT_SMALL, get_method_text (ctx->moisture != NULL), ctx->left, ctx->bottom - 16 - method_h,
               ctx->right - ctx->left, PANGO_ALIGN_LEFT);
   set_black (ctx);
   sheet_draw_footer (ctx);

@@ -6,6 +6,7 @@
 
 #include "lamina-field.h"
 #include "lamina-section.h"
+#include "lamina-moisture.h"
 #include "lamina-sheet.h"
 
 G_BEGIN_DECLS
@@ -51,6 +52,9 @@ typedef struct
   char                      printed[32];
   const LaminaFieldResult  *field;        /* borrowed: the 2-D check of the
                                              construction on the page, or NULL */
+  const LaminaMoistureResult *moisture;   /* borrowed: the EN ISO 13788 check of
+                                             the construction on the page, or NULL */
+  gboolean                  moisture_page; /* the sheet continues with it */
   char                     *footer;       /* owned: what the page is (practice,
                                              code, revision, date); NULL = the
                                              practice and the title */
@@ -172,6 +176,15 @@ void        sheet_draw_field_page   (SheetContext             *ctx,
                                      const LaminaConstruction *construction,
                                      const LaminaFieldResult  *field);
 char       *sheet_dup_field_summary (const LaminaFieldResult  *field);
+
+/* lamina-sheet-moisture.c: the EN ISO 13788 page of a construction with a
+ * moisture check, and the sentence the first page carries about it. */
+void        sheet_draw_moisture_page   (SheetContext               *ctx,
+                                        const LaminaConstruction   *construction,
+                                        const LaminaMoistureResult *result);
+char       *sheet_dup_moisture_summary (const LaminaConstruction   *construction,
+                                        const LaminaMoistureResult *result,
+                                        gboolean                    with_page);
 
 const char *sheet_element_label (LaminaElement element);
 const char *sheet_status_label  (LaminaStatus  status);

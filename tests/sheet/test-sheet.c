@@ -395,6 +395,69 @@ test_field_check_page (void)
   g_unlink (plain);
 }
 
+/* EN ISO 13788 on the sheet: a construction with a moisture check names
+ * its climate and source and its results on a page of their own, the first
+ * page points to it, and the first page's cautions no longer say the sheet
+ * is not a condensation risk assessment.  μ values: EN ISO 10456 Table 3
+ * from memory (plaster 10, block 10, brick 10), wool 1 (typical); the
+ * climate is invented test data. */
+static void
+test_moisture_page (void)
+{
+  g_autoptr(LaminaConstruction) c = lamina_test_masonry_wall ();
+  g_autoptr(LaminaConstruction) plain = lamina_test_masonry_wall ();
+  g_autofree char *path = dup_temp_path ("moisture.pdf");
+  g_autofree char *plain_path = dup_temp_path ("no-moisture.pdf");
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(PopplerDocument) doc_plain = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *first = NULL, *second = NULL, *plain_text = NULL;
+  LaminaClimate *climate = lamina_climate_new ("test-site", "Test site (invented)");
+  LaminaSheetOptions options;
+
+  climate->source = g_strdup ("invented for a test");
+  for (int m = 0; m < LAMINA_MONTHS; m++)
+    {
+      climate->temperature[m] = m < 3 || m > 9 ? -2 : 12;
+      climate->humidity[m] = 0.85;
+    }
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      LaminaLayer *layer = c->layers->pdata[i];
+
+      if (layer->material != NULL)
+        layer->material->vapour_resistance_factor = layer->material->category == LAMINA_CATEGORY_INSULATION ? 1 : 10;
+    }
+  lamina_construction_set_moisture (c, lamina_moisture_settings_new ("test-site"));
+  c->moisture->humidity_class = 3;
+  c->moisture->climate_data = climate;
+  init_options (&options);
+  g_assert_true (lamina_sheet_write_pdf (path, FALSE, &options, c, &error));
+  g_assert_no_error (error);
+  doc = open_pdf (path);
+  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 2);
+  first = dup_page_text (doc, 0);
+  second = dup_page_text (doc, 1);
+  assert_contains (first, "Moisture (EN ISO 13788, climate Test site (invented))", c->code);
+  assert_contains (first, "Details on the moisture page", c->code);
+  g_assert_null (strstr (first, "not a condensation risk assessment"));
+  assert_contains (second, "moisture, EN ISO 13788", c->code);
+  assert_contains (second, "Source: invented for a test", c->code);
+  assert_contains (second, "humidity class 3", c->code);
+  assert_contains (second, "Surface (mould, clause 5): fRsi", c->code);
+  assert_contains (second, "EN 15026", c->code);
+  assert_contains (second, "Page 2 of 2", c->code);
+
+  g_assert_true (lamina_sheet_write_pdf (plain_path, FALSE, &options, plain, &error));
+  g_assert_no_error (error);
+  doc_plain = open_pdf (plain_path);
+  g_assert_cmpint (poppler_document_get_n_pages (doc_plain), ==, 1);
+  plain_text = dup_page_text (doc_plain, 0);
+  assert_contains (plain_text, "not a condensation risk assessment", plain->code);
+  g_unlink (path);
+  g_unlink (plain_path);
+}
+
 static void
 test_no_overwrite (void)
 {
@@ -462,7 +525,8 @@ test_paper (void)
   g_unlink (path);
 }
 
-/* Writes @c alone and returns the page's text. */
+/* Writes @c alone and returns its first page's text (a construction with
+ * a moisture check continues on a second page). */
 static char *
 dup_sheet_text (const LaminaConstruction *c,
                 const LaminaSheetOptions *options)
@@ -475,7 +539,7 @@ dup_sheet_text (const LaminaConstruction *c,
   g_assert_true (lamina_sheet_write_pdf (path, TRUE, options, c, &error));
   g_assert_no_error (error);
   doc = open_pdf (path);
-  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 1);
+  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, c->moisture != NULL ? 2 : 1);
   text = dup_page_text (doc, 0);
   g_unlink (path);
   return text;
@@ -733,6 +797,7 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/ground-floor-block", test_ground_floor_block);
   g_test_add_func ("/sheet/pdf/tapered-block", test_tapered_block);
   g_test_add_func ("/sheet/pdf/field-check-page", test_field_check_page);
+  g_test_add_func ("/sheet/pdf/moisture-page", test_moisture_page);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
   g_assert_nonnull (temp_dir);
   status = g_test_run ();
