@@ -54,6 +54,18 @@ struct _LaminaWindow
 void lamina_window_update_actions   (LaminaWindow *self);
 void lamina_window_refresh_list     (LaminaWindow *self);
 void lamina_window_install_actions  (GtkWidgetClass *widget_class);
+/* lamina-window-design.c */
+void lamina_window_install_design_actions (GtkWidgetClass *widget_class);
+/* The library filtered to @element and corrected U ≤ @target, thinnest
+ * first. */
+void lamina_window_show_meeting (LaminaWindow  *self,
+                                 LaminaElement  element,
+                                 double         target);
+/* Opens the comparison of the open construction: against its latest
+ * approved revision when @with_approved and there is one, else with B to
+ * be chosen. */
+struct _LaminaCompareWindow *lamina_window_compare (LaminaWindow *self,
+                                                    gboolean      with_approved);
 /* lamina-window-export.c */
 void lamina_window_install_export_actions (GtkWidgetClass *widget_class);
 /* The listed constructions' catalogue written in a worker thread;

@@ -29,6 +29,7 @@
 #include "lamina-settings.h"
 #include "lamina-dynamic.h"
 #include "lamina-target-dialog.h"
+#include "lamina-compare-window.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
 #include "lamina-window-private.h"
@@ -1202,6 +1203,65 @@ test_meet_target (Fixture       *f,
   g_assert_cmpfloat (((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness, ==, thickness);
 }
 
+/* The library's "meets target" (thinnest first) and the comparison of the
+ * edited state with the approved revision, exported and drawn. */
+static void
+test_design_aids (Fixture       *f,
+                  gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *pdf = g_build_filename (f->dir, "compare.pdf", NULL);
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (f->window));
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  LaminaCompareWindow *compare;
+  double last = 0;
+  guint n;
+
+  lamina_window_show_meeting (f->window, LAMINA_ELEMENT_WALL, 0.18);
+  wait_for_draw (GTK_WIDGET (f->window));
+  n = g_list_model_get_n_items (list);
+  g_assert_cmpuint (n, >, 0);
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, i);
+      const LaminaSummary *s = lamina_construction_item_get_summary (item);
+
+      g_assert_cmpint (s->element, ==, LAMINA_ELEMENT_WALL);
+      g_assert_cmpfloat (s->u_corrected, <=, 0.18 + 1e-9);
+      g_assert_cmpfloat (s->thickness, >=, last);
+      last = s->thickness;
+    }
+
+  /* EW-101 is approved in the demo: edit it, then compare. */
+  lamina_window_set_search (f->window, "");
+  lamina_window_show_meeting (f->window, LAMINA_ELEMENT_WALL, 0.5);
+  for (guint i = 0; i < g_list_model_get_n_items (list); i++)
+    {
+      g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, i);
+
+      if (g_strcmp0 (lamina_construction_item_get_summary (item)->code, "EW-101") == 0)
+        g_assert_true (lamina_window_open (f->window, lamina_construction_item_get_id (item), &error));
+    }
+  g_assert_cmpstr (open_state (f)->code, ==, "EW-101");
+  lamina_editor_resize_layer (editor, 1, ((LaminaLayer *) open_state (f)->layers->pdata[1])->thickness + 50, FALSE);
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_DRAFT);
+  compare = lamina_window_compare (f->window, TRUE);
+  g_assert_nonnull (compare);
+  g_assert_true (lamina_compare_window_export (compare, pdf, &error));
+  g_assert_no_error (error);
+  assert_pdf (pdf);
+  {
+    const char *build = g_getenv ("LAMINA_BUILD_DIR");
+    g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "compare.png", NULL);
+
+    wait_for_draw (GTK_WIDGET (compare));
+    save_png (GTK_WIDGET (compare), path);
+  }
+  g_assert_false (lamina_compare_window_set_b (compare, "no-such-code"));
+  g_assert_true (lamina_compare_window_set_b (compare, "RF-201"));
+  gtk_window_destroy (GTK_WINDOW (compare));
+}
+
 static void
 test_close_keys (Fixture       *f,
                  gconstpointer  data)
@@ -1441,6 +1501,7 @@ main (int   argc,
 #endif
       g_test_add ("/app/window/material-chooser", Fixture, NULL, fixture_setup, test_material_chooser, fixture_teardown);
       g_test_add ("/app/window/meet-target", Fixture, NULL, fixture_setup, test_meet_target, fixture_teardown);
+      g_test_add ("/app/window/design-aids", Fixture, NULL, fixture_setup, test_design_aids, fixture_teardown);
     }
   return g_test_run ();
 }
