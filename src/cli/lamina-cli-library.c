@@ -482,6 +482,7 @@ lamina_cli_history (const LaminaCliGlobals *globals,
   g_autoptr(GOptionContext) context = g_option_context_new (_("ID — the revisions of a construction"));
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(GPtrArray) history = NULL;
+  g_autoptr(GPtrArray) events = NULL;
   g_autoptr(GError) error = NULL;
   g_autofree char *id = NULL;
   g_autoptr(JsonBuilder) b = json_builder_new ();
@@ -498,7 +499,7 @@ lamina_cli_history (const LaminaCliGlobals *globals,
   if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
   history = lamina_library_dup_history (library, id, &error);
-  if (history == NULL)
+  if (history == NULL || (events = lamina_library_dup_review_events (library, id, &error)) == NULL)
     {
       lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
@@ -521,6 +522,7 @@ lamina_cli_history (const LaminaCliGlobals *globals,
           if (r->comment)
             printf ("  (%s)", r->comment);
           printf ("\n");
+          lamina_cli_print_review_events (events, r->revision);
           continue;
         }
       json_builder_begin_object (b);
@@ -538,6 +540,7 @@ lamina_cli_history (const LaminaCliGlobals *globals,
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
+  lamina_cli_review_events_to_json (b, events);
   json_builder_end_object (b);
   if (json)
     lamina_cli_print_json (json_builder_get_root (b));
@@ -661,13 +664,15 @@ review (const LaminaCliGlobals *globals,
         char                  **argv,
         gboolean                approve)
 {
-  g_autofree char *by = NULL, *date = NULL, *id = NULL, *revision_text = NULL;
+  g_autofree char *by = NULL, *date = NULL, *id = NULL, *revision_text = NULL, *reason = NULL;
   int revision = 0;
   const GOptionEntry entries[] = {
     { "by", 0, 0, G_OPTION_ARG_STRING, &by, N_("Name of the reviewer (required)"), "NAME" },
     { "revision", 0, 0, G_OPTION_ARG_STRING, &revision_text, N_("The revision reviewed (default: the latest)"), "N" },
     /* Options of approve only: check --help does not list them. */
     { "date", 0, 0, G_OPTION_ARG_STRING, &date, N_("Approval date YYYY-MM-DD (default: today)"), "DATE" },
+    { "reason", 0, 0, G_OPTION_ARG_STRING, &reason,
+      N_("Why a result outside the method's scope is approved without a 2-D check (recorded, printed on the sheet)"), "TEXT" },
     { NULL }
   };
   GOptionEntry check_entries[G_N_ELEMENTS (entries)];
@@ -680,6 +685,7 @@ review (const LaminaCliGlobals *globals,
 
   memcpy (check_entries, entries, sizeof entries);
   memset (&check_entries[2], 0, sizeof check_entries[2]);
+  memset (&check_entries[3], 0, sizeof check_entries[3]);
   g_option_context_add_main_entries (context, approve ? entries : check_entries, GETTEXT_PACKAGE);
   if (!lamina_cli_parse (context, &argc, &argv))
     return LAMINA_EXIT_USAGE;
@@ -702,7 +708,7 @@ review (const LaminaCliGlobals *globals,
   if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
   if (approve)
-    ok = lamina_library_approve (library, id, revision, by, date, &error);
+    ok = lamina_library_approve_with_reason (library, id, revision, by, date, reason, &error);
   else
     ok = lamina_library_mark_checked (library, id, revision, by, &error);
   if (!ok)

@@ -29,4 +29,11 @@ gboolean       lamina_cli_parse_revision (const char           *text,
 gboolean       lamina_cli_parse_status   (const char           *text,
                                           LaminaStatus         *status);
 
+/* lamina-cli-review.c: the review records of @revision, indented under
+ * its history line; and all of them as the "reviews" member of @b. */
+void           lamina_cli_print_review_events   (GPtrArray   *events,
+                                                 int          revision);
+void           lamina_cli_review_events_to_json (JsonBuilder *b,
+                                                 GPtrArray   *events);
+
 G_END_DECLS

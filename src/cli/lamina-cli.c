@@ -39,6 +39,8 @@ static const Command commands[] = {
   { "job", lamina_cli_job, N_("Jobs: new, list, show, add, remove, update, sheets") },
   { "field", lamina_cli_field, N_("2-D check of one module of a construction (EN ISO 10211), with a field picture") },
   { "compare", lamina_cli_compare, N_("Two build-ups side by side, as a table or a one-page PDF") },
+  { "policy", lamina_cli_policy, N_("Show or set the library's review policy (four eyes or single reviewer)") },
+  { "withdraw", lamina_cli_withdraw, N_("Withdraw the approval of a construction, with a reason") },
 };
 
 FILE *

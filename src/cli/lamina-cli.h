@@ -47,6 +47,9 @@ int  lamina_cli_demo      (const LaminaCliGlobals *globals, int argc, char **arg
 int  lamina_cli_section   (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_sheet     (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_catalogue (const LaminaCliGlobals *globals, int argc, char **argv);
+/* lamina-cli-review.c */
+int  lamina_cli_policy    (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_withdraw  (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_solve     (const LaminaCliGlobals *globals, int argc, char **argv);
 /* Jobs (lamina-cli-job.c, lamina-cli-job-show.c). */
 int  lamina_cli_job       (const LaminaCliGlobals *globals, int argc, char **argv);

@@ -31,6 +31,26 @@ typedef struct
   GPtrArray    *jobs;            /* LaminaJob*, replacing those of their id */
 } LaminaBackendImport;
 
+/* A review act as the backend stores it. */
+typedef enum
+{
+  LAMINA_REVIEW_ACT_CHECK,
+  LAMINA_REVIEW_ACT_APPROVE,
+  LAMINA_REVIEW_ACT_WITHDRAW,
+} LaminaReviewAct;
+
+typedef struct
+{
+  const char      *id;
+  int              revision;   /* the revision the front end checked */
+  LaminaReviewAct  act;
+  const char      *by;
+  const char      *at;         /* now, ISO 8601 */
+  const char      *date;       /* approval date */
+  const char      *policy;
+  const char      *reason;
+} LaminaBackendReview;
+
 typedef struct
 {
   void                (*close)              (LaminaBackend *backend);
@@ -54,11 +74,18 @@ typedef struct
                                              const char *when, GError **error);
   GPtrArray          *(*get_history)        (LaminaBackend *backend, const char *id,
                                              GError **error);
-  /* Moves the latest revision (@revision) to @status with who/when. */
-  gboolean            (*set_status)         (LaminaBackend *backend, const char *id,
-                                             int revision, LaminaStatus status,
-                                             const char *name, const char *when,
+  /* Records a review act on the latest revision (@review->revision) and
+   * moves it to the act's status, in one transaction. */
+  gboolean            (*review)             (LaminaBackend *backend,
+                                             const LaminaBackendReview *review,
                                              GError **error);
+  GPtrArray          *(*get_review_events)  (LaminaBackend *backend, const char *id,
+                                             GError **error);
+  /* Library settings (the meta table); NULL without error when unset. */
+  char               *(*get_setting)        (LaminaBackend *backend, const char *key,
+                                             GError **error);
+  gboolean            (*set_setting)        (LaminaBackend *backend, const char *key,
+                                             const char *value, GError **error);
 
   GPtrArray          *(*search)             (LaminaBackend *backend,
                                              const LaminaLibraryQuery *query,

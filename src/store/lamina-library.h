@@ -50,12 +50,14 @@ typedef enum
   LAMINA_LIBRARY_ERROR_BUSY,          /* locked by another process beyond the timeout */
   LAMINA_LIBRARY_ERROR_READ_ONLY,     /* file or medium not writable */
   LAMINA_LIBRARY_ERROR_FAILED,        /* anything else the backend reports */
+  LAMINA_LIBRARY_ERROR_POLICY,        /* the review policy refuses the act (four eyes) */
+  LAMINA_LIBRARY_ERROR_SCOPE,         /* beyond the method's scope: a 2-D check or a reason is needed */
 } LaminaLibraryError;
 
 GQuark lamina_library_error_quark (void);
 
 /* The schema version this build writes (PRAGMA user_version). */
-#define LAMINA_LIBRARY_SCHEMA_VERSION 7
+#define LAMINA_LIBRARY_SCHEMA_VERSION 8
 
 typedef enum
 {
@@ -201,8 +203,10 @@ GPtrArray     *lamina_library_dup_history  (LaminaLibrary          *self,
 
 /* Review.  @revision must be the latest (0 = the latest): reviewing what
  * is not on screen any more fails with STALE; an approved revision cannot
- * be checked or approved again (IMMUTABLE).  @name is required.  @date
- * NULL = today (YYYY-MM-DD). */
+ * be checked or approved again (IMMUTABLE); only a checked revision can be
+ * approved; the review policy applies (see below).  A second check adds a
+ * record and keeps the first checker.  @name is required.  @date NULL =
+ * today (YYYY-MM-DD). */
 gboolean       lamina_library_mark_checked (LaminaLibrary          *self,
                                             const char             *id,
                                             int                     revision,
@@ -214,6 +218,70 @@ gboolean       lamina_library_approve      (LaminaLibrary          *self,
                                             const char             *name,
                                             const char             *date,
                                             GError                **error);
+
+/* ---- Review integrity --------------------------------------------------
+ *
+ * The review policy is stored in the library.  Four eyes (the default):
+ * whoever checks or approves a revision is not its author (the person who
+ * last modified it).  Single reviewer: for a one-person practice; the act
+ * is allowed and its record names the policy.  Names are compared after
+ * NFC normalisation, case-insensitively. */
+typedef enum
+{
+  LAMINA_REVIEW_FOUR_EYES,
+  LAMINA_REVIEW_SINGLE,
+} LaminaReviewPolicy;
+
+const char        *lamina_review_policy_to_string   (LaminaReviewPolicy  policy);
+gboolean           lamina_review_policy_from_string (const char         *text,
+                                                     LaminaReviewPolicy *policy);
+/* A sentence for sheets and history ("four eyes: checked and approved by
+ * others than the author"). */
+const char        *lamina_review_policy_describe    (LaminaReviewPolicy  policy);
+LaminaReviewPolicy lamina_library_get_review_policy (LaminaLibrary      *self);
+gboolean           lamina_library_set_review_policy (LaminaLibrary      *self,
+                                                     LaminaReviewPolicy  policy,
+                                                     GError            **error);
+
+/* One review act, kept for good: "checked", "approved" or "withdrawn". */
+typedef struct
+{
+  int   revision;
+  char *act;
+  char *by;
+  char *at;        /* when it was recorded, ISO 8601 UTC */
+  char *date;      /* the approval date given, YYYY-MM-DD, or NULL */
+  char *policy;    /* of an approval: "four-eyes" or "single" */
+  char *reason;    /* override reason of an approval, or why withdrawn */
+} LaminaReviewEvent;
+
+void           lamina_review_event_free         (LaminaReviewEvent *event);
+/* LaminaReviewEvent*, oldest first. */
+GPtrArray     *lamina_library_dup_review_events (LaminaLibrary     *self,
+                                                 const char        *id,
+                                                 GError           **error);
+/* Approval with everything it may need: @revision must be the latest and
+ * checked (0 = the latest); the policy applies (POLICY); @date, NULL =
+ * today, is not before the revision's modification; a construction whose
+ * result carries a method-limit warning (lamina_field_is_advised ()) needs
+ * a stored 2-D check of that revision or an override @reason (SCOPE),
+ * which is recorded and printed on the sheet. */
+gboolean       lamina_library_approve_with_reason (LaminaLibrary   *self,
+                                                   const char      *id,
+                                                   int              revision,
+                                                   const char      *name,
+                                                   const char      *date,
+                                                   const char      *reason,
+                                                   GError         **error);
+/* Withdraws the approval of @revision (0 = the latest), which must be the
+ * latest and approved; @reason is required and recorded.  The revision is
+ * "checked" again and can be approved anew. */
+gboolean       lamina_library_withdraw_approval (LaminaLibrary     *self,
+                                                 const char        *id,
+                                                 int                revision,
+                                                 const char        *name,
+                                                 const char        *reason,
+                                                 GError           **error);
 
 /* ---- Material data changed since review ------------------------------ */
 
@@ -473,6 +541,7 @@ gboolean       lamina_library_move_job_entry   (LaminaLibrary        *self,
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaJobUse, lamina_job_use_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaJobReport, lamina_job_report_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaRevisionInfo, lamina_revision_info_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaReviewEvent, lamina_review_event_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaMaterialChange, lamina_material_change_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaSummary, lamina_summary_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaImportReport, lamina_import_report_free)

@@ -89,7 +89,10 @@ static const LaminaBackendVTable sqlite_vtable = {
   .store_revision = lamina_sqlite_backend_store_revision,
   .set_deleted = lamina_sqlite_backend_set_deleted,
   .get_history = lamina_sqlite_backend_get_history,
-  .set_status = lamina_sqlite_backend_set_status,
+  .review = lamina_sqlite_backend_review,
+  .get_review_events = lamina_sqlite_backend_get_review_events,
+  .get_setting = lamina_sqlite_backend_get_setting,
+  .set_setting = lamina_sqlite_backend_set_setting,
 
   .search = lamina_sqlite_backend_search,
   .count = lamina_sqlite_backend_count,

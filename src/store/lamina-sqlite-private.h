@@ -93,12 +93,19 @@ gboolean            lamina_sqlite_backend_set_deleted      (LaminaBackend *backe
 GPtrArray          *lamina_sqlite_backend_get_history      (LaminaBackend *backend,
                                                             const char *id,
                                                             GError **error);
-gboolean            lamina_sqlite_backend_set_status       (LaminaBackend *backend,
+/* lamina-sqlite-review.c */
+gboolean            lamina_sqlite_backend_review           (LaminaBackend *backend,
+                                                            const LaminaBackendReview *review,
+                                                            GError **error);
+GPtrArray          *lamina_sqlite_backend_get_review_events (LaminaBackend *backend,
                                                             const char *id,
-                                                            int revision,
-                                                            LaminaStatus status,
-                                                            const char *name,
-                                                            const char *when,
+                                                            GError **error);
+char               *lamina_sqlite_backend_get_setting      (LaminaBackend *backend,
+                                                            const char *key,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_set_setting      (LaminaBackend *backend,
+                                                            const char *key,
+                                                            const char *value,
                                                             GError **error);
 gboolean            lamina_sqlite_backend_apply_import     (LaminaBackend *backend,
                                                             GPtrArray *materials,

@@ -197,6 +197,45 @@ static const char schema_v6[] =
 static const char schema_v7[] =
   "ALTER TABLE material ADD COLUMN stock_thicknesses TEXT;";
 
+/* Version 8: every review act kept as a record (a second check adds one,
+ * an approval names the policy it was made under and any reason given to
+ * approve beyond the method's scope, a withdrawal its reason).  The
+ * records never change.  An approval can be withdrawn: the one change an
+ * approved revision allows is back to "checked" without approver (its
+ * content stays immutable through revision_content_immutable).  Earlier
+ * checks and approvals become records of their own. */
+static const char schema_v8[] =
+  "CREATE TABLE review_event ("
+  "  num INTEGER PRIMARY KEY,"
+  "  construction_id TEXT NOT NULL,"
+  "  revision INTEGER NOT NULL CHECK (revision > 0),"
+  "  act TEXT NOT NULL CHECK (act IN ('checked', 'approved', 'withdrawn')),"
+  "  person TEXT NOT NULL,"
+  "  at TEXT NOT NULL,"
+  "  date TEXT,"
+  "  policy TEXT,"
+  "  reason TEXT,"
+  "  FOREIGN KEY (construction_id, revision) REFERENCES revision (construction_id, revision)"
+  ");"
+  "CREATE INDEX review_event_by_revision ON review_event (construction_id, revision);"
+  "CREATE TRIGGER review_event_immutable BEFORE UPDATE ON review_event"
+  "  BEGIN SELECT RAISE (ABORT, 'a review record never changes'); END;"
+  "CREATE TRIGGER review_event_kept BEFORE DELETE ON review_event"
+  "  BEGIN SELECT RAISE (ABORT, 'a review record never changes'); END;"
+  "INSERT INTO review_event (construction_id, revision, act, person, at)"
+  "  SELECT construction_id, revision, 'checked', checked_by, coalesce (checked_at, modified_at)"
+  "    FROM revision WHERE checked_by IS NOT NULL ORDER BY construction_id, revision;"
+  "INSERT INTO review_event (construction_id, revision, act, person, at, date)"
+  "  SELECT construction_id, revision, 'approved', approved_by, approved_at, approved_at"
+  "    FROM revision WHERE approved_by IS NOT NULL ORDER BY construction_id, revision;"
+  "DROP TRIGGER revision_approved_immutable;"
+  "CREATE TRIGGER revision_approved_immutable"
+  "  BEFORE UPDATE ON revision WHEN OLD.status = 'approved'"
+  "    AND NOT (NEW.status = 'checked' AND NEW.approved_by IS NULL AND NEW.approved_at IS NULL"
+  "             AND NEW.checked_by IS OLD.checked_by AND NEW.checked_at IS OLD.checked_at"
+  "             AND NEW.comment IS OLD.comment)"
+  "  BEGIN SELECT RAISE (ABORT, 'an approved revision is immutable'); END;";
+
 static const char *const steps[] = {
   schema_v1,
   schema_v2,
@@ -205,6 +244,7 @@ static const char *const steps[] = {
   schema_v5,
   schema_v6,
   schema_v7,
+  schema_v8,
 };
 
 G_STATIC_ASSERT (G_N_ELEMENTS (steps) == LAMINA_LIBRARY_SCHEMA_VERSION);

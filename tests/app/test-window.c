@@ -574,7 +574,7 @@ test_approve_then_edit (Fixture       *f,
   guint index = 0;
   int revision;
 
-  g_settings_set_string (settings, "reviewer-name", "R. Testlund");
+  g_settings_set_string (settings, "reviewer-name", "A. Author");
   id = find_plain_construction (f, &index);
   g_assert_true (lamina_window_open (f->window, id, &error));
   if (open_state (f)->status == LAMINA_STATUS_APPROVED)
@@ -582,6 +582,11 @@ test_approve_then_edit (Fixture       *f,
       /* Start from a draft so that the approval is ours. */
       lamina_editor_resize_layer (editor, index, 200, FALSE);
     }
+  /* Four eyes: checked, then approved, each by someone other than the
+   * author. */
+  g_settings_set_string (settings, "reviewer-name", "C. Checker");
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.mark-checked", NULL));
+  g_settings_set_string (settings, "reviewer-name", "R. Testlund");
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.approve", NULL));
   g_test_message ("after approve: %s", lamina_window_get_notice (f->window));
   g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_APPROVED);

@@ -105,7 +105,10 @@ do_approve (LaminaLibrary *library,
   if (c == NULL)
     return FALSE;
   g_usleep (g_random_int_range (0, 3000));
-  if (!lamina_library_approve (library, id, c->revision, who, "2024-06-01", error))
+  /* Only a checked revision can be approved: check it first (a second
+   * check of a checked revision adds a record). */
+  if (!lamina_library_mark_checked (library, id, c->revision, "C. Checker", error)
+      || !lamina_library_approve (library, id, c->revision, who, "2099-06-01", error))
     return FALSE;
   log_accepted (log, "approve", id, c->revision, who);
   return TRUE;

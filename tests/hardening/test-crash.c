@@ -58,7 +58,7 @@ static gboolean
 op_approve (LaminaLibrary  *library,
             GError        **error)
 {
-  return lamina_library_approve (library, "hw-2", 0, "R. Reviewer", "2024-05-02", error);
+  return lamina_library_approve (library, "hw-2", 0, "R. Reviewer", "2099-05-02", error);
 }
 
 static gboolean
@@ -229,7 +229,10 @@ make_base (void)
       id = lamina_library_create_construction (library, c, "A. Author", &error);
       g_assert_no_error (error);
     }
-  g_assert_true (lamina_library_approve (library, "hw-5", 0, "R. Reviewer", "2024-04-30", &error));
+  /* Only checked revisions can be approved (here and by op_approve). */
+  g_assert_true (lamina_library_mark_checked (library, "hw-2", 0, "C. Checker", &error));
+  g_assert_true (lamina_library_mark_checked (library, "hw-5", 0, "C. Checker", &error));
+  g_assert_true (lamina_library_approve (library, "hw-5", 0, "R. Reviewer", "2099-04-30", &error));
   return path;
 }
 

@@ -192,12 +192,12 @@ test_approved_immutable (void)
     id = lamina_library_create_construction (library, c, "Author", &error);
     g_assert_no_error (error);
     g_assert_true (lamina_library_mark_checked (library, id, 1, "C. Checker", &error));
-    g_assert_true (lamina_library_approve (library, id, 1, "R. Reviewer", "2024-03-15", &error));
+    g_assert_true (lamina_library_approve (library, id, 1, "R. Reviewer", "2099-03-15", &error));
     approved = lamina_library_dup_construction (library, id, 1, &error);
     approved_revision = approved->revision;
 
     /* API: reviewing an approved revision again is refused. */
-    g_assert_false (lamina_library_approve (library, id, 1, "Other", "2024-03-16", &error));
+    g_assert_false (lamina_library_approve (library, id, 1, "Other", "2099-03-16", &error));
     g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IMMUTABLE);
     g_clear_error (&error);
     g_assert_false (lamina_library_mark_checked (library, id, 1, "Other", &error));
@@ -212,11 +212,11 @@ test_approved_immutable (void)
       g_autoptr(LaminaCatalogue) back = lamina_catalogue_read_memory (text, len, "x", &error);
       LaminaConstruction *b;
 
-      g_assert_nonnull (strstr (text, "<approved by=\"R. Reviewer\" at=\"2024-03-15\"/>"));
+      g_assert_nonnull (strstr (text, "<approved by=\"R. Reviewer\" at=\"2099-03-15\"/>"));
       g_assert_nonnull (strstr (text, "status=\"approved\" revision=\"1\""));
       b = lamina_catalogue_find (back, id);
       g_assert_cmpstr (b->approved_by, ==, "R. Reviewer");
-      g_assert_cmpstr (b->approved_at, ==, "2024-03-15");
+      g_assert_cmpstr (b->approved_at, ==, "2099-03-15");
       g_assert_cmpint (b->revision, ==, 1);
       g_assert_cmpint (b->status, ==, LAMINA_STATUS_APPROVED);
 
@@ -267,7 +267,7 @@ test_approved_immutable (void)
     g_assert_true (lamina_construction_equal_content (first, approved));
     g_assert_cmpint (first->status, ==, LAMINA_STATUS_APPROVED);
     g_assert_cmpstr (first->approved_by, ==, "R. Reviewer");
-    g_assert_cmpstr (first->approved_at, ==, "2024-03-15");
+    g_assert_cmpstr (first->approved_at, ==, "2099-03-15");
     g_assert_cmpint (latest->revision, ==, approved_revision + 1);
     g_assert_cmpint (latest->status, ==, LAMINA_STATUS_DRAFT);
     g_assert_null (latest->approved_by);

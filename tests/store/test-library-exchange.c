@@ -74,7 +74,8 @@ test_round_trip (void)
   g_assert_no_error (error);
   g_assert_cmpuint (r1->n_added, ==, 12);
   g_assert_true (lamina_library_mark_checked (a, "test-3", 0, "C. Checker", NULL));
-  g_assert_true (lamina_library_approve (a, "test-4", 0, "D. Director", "2026-05-04", NULL));
+  g_assert_true (lamina_library_mark_checked (a, "test-4", 0, "C. Checker", NULL));
+  g_assert_true (lamina_library_approve (a, "test-4", 0, "D. Director", "2099-05-04", NULL));
 
   out = lamina_library_export (a, NULL, &error);
   g_assert_no_error (error);
@@ -123,6 +124,7 @@ test_merge (void)
   report = lamina_library_import (library, first, LAMINA_IMPORT_DEFAULT, "T", &error);
   g_assert_no_error (error);
   g_clear_pointer (&report, lamina_import_report_free);
+  g_assert_true (lamina_library_mark_checked (library, "test-2", 0, "C", NULL));
   g_assert_true (lamina_library_approve (library, "test-2", 0, "D", NULL, NULL));
 
   c = second->constructions->pdata[1];      /* changed */

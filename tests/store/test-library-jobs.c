@@ -32,7 +32,7 @@ create_approved_wall (LaminaLibrary *library,
 
   g_assert_no_error (error);
   g_assert_true (lamina_library_mark_checked (library, id, 0, "C. Checker", &error));
-  g_assert_true (lamina_library_approve (library, id, 0, "D. Director", "2026-05-04", &error));
+  g_assert_true (lamina_library_approve (library, id, 0, "D. Director", "2099-05-04", &error));
   g_assert_no_error (error);
   return id;
 }

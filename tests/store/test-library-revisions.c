@@ -56,7 +56,13 @@ test_approved_immutable (void)
   g_clear_error (&error);
   g_assert_true (lamina_library_mark_checked (library, id, 1, "C. Checker", &error));
   g_assert_no_error (error);
-  g_assert_true (lamina_library_approve (library, id, 1, "D. Director", "2026-03-01", &error));
+  /* An approval dated before the revision was made is refused. */
+  g_assert_false (lamina_library_approve (library, id, 1, "D. Director", "2001-03-01", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "before revision 1"));
+  g_clear_error (&error);
+  /* A date far ahead keeps the test true for decades. */
+  g_assert_true (lamina_library_approve (library, id, 1, "D. Director", "2099-03-01", &error));
   g_assert_no_error (error);
   g_assert_false (lamina_library_mark_checked (library, id, 1, "C. Checker", &error));
   g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IMMUTABLE);
@@ -79,7 +85,7 @@ test_approved_immutable (void)
   g_assert_no_error (error);
   g_assert_cmpint (old->status, ==, LAMINA_STATUS_APPROVED);
   g_assert_cmpstr (old->approved_by, ==, "D. Director");
-  g_assert_cmpstr (old->approved_at, ==, "2026-03-01");
+  g_assert_cmpstr (old->approved_at, ==, "2099-03-01");
   g_assert_cmpstr (old->checked_by, ==, "C. Checker");
   g_assert_cmpfloat (((LaminaLayer *) old->layers->pdata[1])->thickness, ==, 145);
   r2 = lamina_library_dup_result (library, id, 1, &error);
