@@ -841,13 +841,13 @@ lamina_section_draw (LaminaSection             *self,
 }
 
 static void
-render_whole (cairo_t                  *cr,
+render_whole (LaminaSection            *painter,
+              cairo_t                  *cr,
               const LaminaConstruction *construction,
               const LaminaResult       *result,
               int                       width,
               int                       height)
 {
-  g_autoptr(LaminaSection) painter = lamina_section_new ();
   LaminaSectionLayout layout;
   LaminaSectionStyle style;
 
@@ -873,6 +873,10 @@ write_file (const LaminaConstruction *construction,
             gboolean                  svg,
             GError                  **error)
 {
+  /* The painter outlives the surface: its cached hatch tiles are sources
+   * of the drawing, and an SVG surface still holds snapshots of them until
+   * it is destroyed (destroying a source first leaked cairo's copy). */
+  g_autoptr(LaminaSection) painter = lamina_section_new ();
   LaminaFileWriter *writer;
   cairo_surface_t *surface;
   cairo_status_t status;
@@ -893,7 +897,7 @@ write_file (const LaminaConstruction *construction,
   else
     surface = cairo_image_surface_create (CAIRO_FORMAT_RGB24, width, height);
   cr = cairo_create (surface);
-  render_whole (cr, construction, result, width, height);
+  render_whole (painter, cr, construction, result, width, height);
   cairo_destroy (cr);
   if (svg)
     {

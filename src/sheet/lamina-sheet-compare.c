@@ -247,7 +247,7 @@ dup_layer_line (const LaminaLayer *l,
                 guint              number)
 {
   char d[LAMINA_FORMAT_SIZE];
-  GString *name = g_string_new (NULL);
+  g_autoptr(GString) name = g_string_new (NULL);
 
   if (l->kind == LAMINA_LAYER_BRIDGED)
     for (guint p = 0; p < l->parts->len; p++)
