@@ -584,7 +584,9 @@ test_review_columns (void)
       c->status = statuses[i];
       c->revision = 2;
       g_clear_pointer (&c->checked_by, g_free);
+      g_clear_pointer (&c->checked_at, g_free);
       g_clear_pointer (&c->approved_by, g_free);
+      g_clear_pointer (&c->approved_at, g_free);
       if (statuses[i] != LAMINA_STATUS_DRAFT)
         {
           c->checked_by = g_strdup ("Ilse Tarrow");

@@ -50,6 +50,7 @@ test_show_json (void)
   JsonArray *entries;
   double sum = 0;
 
+  g_free (library_path);
   library_path = test_library_path ("cli-job.sqlite");
   g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
   g_clear_pointer (&out, g_free);
@@ -116,6 +117,7 @@ test_edit (void)
   JsonObject *job;
   JsonArray *entries;
 
+  g_free (library_path);
   library_path = test_library_path ("cli-job-edit.sqlite");
   g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
   for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
@@ -137,6 +139,7 @@ test_edit (void)
         g_error ("case %u: “%s” does not name “%s”", i, err, cases[i].expect);
     }
   g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
   g_assert_cmpint (run (&out, &err, "job", "show", "j1", "--json", NULL), ==, 0);
   job = parse_object (parser, out, "job");
   entries = json_object_get_array_member (job, "entries");
@@ -147,6 +150,7 @@ test_edit (void)
   g_assert_cmpstr (json_object_get_string_member (job, "number"), ==, "T-1");
   g_assert_cmpuint (json_array_get_length (json_object_get_array_member (job, "junctions")), ==, 1);
   g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
   g_assert_cmpint (run (&out, &err, "job", "list", "--json", NULL), ==, 0);
   g_assert_nonnull (strstr (out, "\"j1\""));
 }
@@ -159,6 +163,7 @@ test_sheets (void)
   g_autofree char *out = NULL, *err = NULL, *pdf = NULL, *data = NULL;
   gsize length = 0;
 
+  g_free (library_path);
   library_path = test_library_path ("cli-job-sheets.sqlite");
   pdf = test_library_path ("riverside.pdf");
   g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);

@@ -36,6 +36,7 @@ test_commands (void)
   g_autofree char *cli = NULL;
   int status = 0;
 
+  g_free (library_path);
   library_path = test_library_path ("cli.sqlite");
   export_path = test_library_path ("export.xml");
 
@@ -148,6 +149,7 @@ test_daily (void)
   g_autofree char *svg_path = NULL, *pdf_path = NULL, *xml = NULL, *svg = NULL;
   g_autoptr(GString) changed = NULL;
 
+  g_free (library_path);
   library_path = test_library_path ("daily.sqlite");
   export_path = test_library_path ("ew-101.xml");
   changed_path = test_library_path ("ew-101-changed.xml");

@@ -215,6 +215,7 @@ test_refusals (void)
   g_autoptr(LaminaLibrary) library = open_at ("refuse.sqlite");
   g_autofree char *a = create_approved_wall (library, "EW-145", 145);
   g_autoptr(LaminaJob) job = lamina_job_new ("j4", "Refusals");
+  g_autoptr(LaminaJob) nope = lamina_job_new ("nope", "N");
   g_autoptr(GError) error = NULL;
   g_autoptr(GPtrArray) jobs = NULL;
 
@@ -234,7 +235,7 @@ test_refusals (void)
   g_assert_false (lamina_library_delete_target_set (library, "invented", &error));
   g_assert_nonnull (strstr (error->message, "the job “j4” uses the target set"));
   g_clear_error (&error);
-  g_assert_false (lamina_library_save_job (library, lamina_job_new ("nope", "N"), &error));
+  g_assert_false (lamina_library_save_job (library, nope, &error));
   g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
   g_clear_error (&error);
   g_assert_true (lamina_library_delete_job (library, "j4", &error));
