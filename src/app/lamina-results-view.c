@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "lamina-results-view.h"
+#include "lamina-field-panel.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -43,6 +44,7 @@ struct _LaminaResultsView
 
   /* owned */
   GtkLabel      *values[N_FIGURES];
+  GtkWidget     *field_panel;    /* in the template's box, after the warnings */
   gboolean       updating;
 };
 
@@ -183,6 +185,9 @@ lamina_results_view_init (LaminaResultsView *self)
   GtkEventController *focus;
 
   gtk_widget_init_template (GTK_WIDGET (self));
+  self->field_panel = lamina_field_panel_new ();
+  gtk_widget_insert_after (self->field_panel, gtk_widget_get_parent (GTK_WIDGET (self->warnings_box)),
+                           GTK_WIDGET (self->warnings_box));
 
   add_figure (self, FIGURE_RSI, _("Inside surface Rsi"), "m²·K/W");
   add_figure (self, FIGURE_RSE, _("Outside surface Rse"), "m²·K/W");
@@ -289,6 +294,7 @@ lamina_results_view_update (LaminaResultsView        *self,
   g_return_if_fail (LAMINA_IS_RESULTS_VIEW (self));
 
   clear_warnings (self);
+  lamina_field_panel_set_construction (LAMINA_FIELD_PANEL (self->field_panel), construction, result);
   if (construction != NULL)
     update_conditions (self, construction);
   update_target (self, construction, result);
@@ -349,4 +355,11 @@ lamina_results_view_get_dynamic_view (LaminaResultsView *self)
 {
   g_return_val_if_fail (LAMINA_IS_RESULTS_VIEW (self), NULL);
   return self->dynamic_view;
+}
+
+GtkWidget *
+lamina_results_view_get_field_panel (LaminaResultsView *self)
+{
+  g_return_val_if_fail (LAMINA_IS_RESULTS_VIEW (self), NULL);
+  return self->field_panel;
 }

@@ -28,5 +28,8 @@ const char *lamina_results_view_get_rse_text (LaminaResultsView    *self);
 
 /* The EN ISO 13786 block under the figures. */
 LaminaDynamicView *lamina_results_view_get_dynamic_view (LaminaResultsView *self);
+/* The 2-D check block (LaminaFieldPanel), shown for constructions outside
+ * EN ISO 6946. */
+GtkWidget  *lamina_results_view_get_field_panel (LaminaResultsView *self);
 
 G_END_DECLS

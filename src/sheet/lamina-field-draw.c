@@ -230,7 +230,9 @@ lamina_field_draw (cairo_t                  *cr,
   Painter p = { cr, unit };
   Frame f;
   double t_low = field->outside_temperature, t_high = field->inside_temperature;
-  double key_w = 6 * unit, top = 3.2 * unit, bottom = 4.4 * unit, room_w, room_h, scale, step;
+  /* Narrow (a side panel): the labels under the module stack up. */
+  gboolean narrow = width < 45 * unit;
+  double key_w = 6 * unit, top = 3.2 * unit, bottom = (narrow ? 5.8 : 4.4) * unit, room_w, room_h, scale, step;
   double key_x, key_y, key_h;
   g_autofree char *title = NULL, *outside = NULL, *inside = NULL, *module = NULL, *coldest = NULL;
 
@@ -305,7 +307,10 @@ lamina_field_draw (cairo_t                  *cr,
     /* TRANSLATORS: the coldest inner surface temperature and its temperature factor */
     coldest = g_strdup_printf (_("θsi,min %.1f °C · fRsi %.2f (Rsi 0.25: %.2f)"),
                                field->min_inner_surface_temperature, field->f_rsi, field->f_rsi_mould);
-    text (&p, coldest, CLAMP (cx, f.x + 12 * unit, f.x + f.w - 12 * unit), cy + 0.8 * unit, 0.5, 0.0, FALSE);
+    if (narrow)
+      text (&p, coldest, f.x, cy + 0.8 * unit, 0.0, 0.0, FALSE);
+    else
+      text (&p, coldest, CLAMP (cx, f.x + 12 * unit, f.x + f.w - 12 * unit), cy + 0.8 * unit, 0.5, 0.0, FALSE);
   }
 
   /* Sides and figures. */
@@ -315,9 +320,15 @@ lamina_field_draw (cairo_t                  *cr,
   text (&p, inside, f.x, f.y + f.h + 2.3 * unit, 0.0, 0.0, FALSE);
   /* TRANSLATORS: module width in mm, grid cells */
   module = g_strdup_printf (_("module %.0f mm · %u cells"), field->module_width, field->cells);
-  text (&p, module, f.x + f.w, f.y + f.h + 2.3 * unit, 1.0, 0.0, FALSE);
-  title = g_strdup_printf (_("%s — 2-D check (EN ISO 10211): U %.3f W/(m²·K); EN ISO 6946: %.3f"),
-                           construction->code ? construction->code : construction->id, field->u, field->u_6946);
+  if (narrow)
+    text (&p, module, f.x, f.y + f.h + 3.7 * unit, 0.0, 0.0, FALSE);
+  else
+    text (&p, module, f.x + f.w, f.y + f.h + 2.3 * unit, 1.0, 0.0, FALSE);
+  if (narrow)
+    title = g_strdup_printf (_("U %.3f (2-D) · %.3f (EN ISO 6946)"), field->u, field->u_6946);
+  else
+    title = g_strdup_printf (_("%s — 2-D check (EN ISO 10211): U %.3f W/(m²·K); EN ISO 6946: %.3f"),
+                             construction->code ? construction->code : construction->id, field->u, field->u_6946);
   text (&p, title, x + unit, y + 0.4 * unit, 0.0, 0.0, TRUE);
 
   /* The colour key with the isotherm levels. */
