@@ -12,6 +12,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-revision-diff.h"
 #include "lamina-settings.h"
 #include "lamina-sheet.h"
 #include "lamina-sheet-format.h"
@@ -259,6 +260,41 @@ verdict_text (LaminaVerdict verdict)
     }
 }
 
+static const LaminaJobLine *
+find_line (LaminaJobsPage *self,
+           int             n)
+{
+  for (guint i = 0; self->report != NULL && i < self->report->check->lines->len; i++)
+    if (((const LaminaJobLine *) self->report->check->lines->pdata[i])->entry->n == n)
+      return self->report->check->lines->pdata[i];
+  return NULL;
+}
+
+GPtrArray *
+lamina_jobs_page_dup_differences (LaminaJobsPage *self,
+                                  int             n)
+{
+  const LaminaJobLine *line = find_line (self, n);
+  g_autoptr(LaminaConstruction) origin = NULL;
+  g_autoptr(LaminaConstruction) variant = NULL;
+  g_autoptr(GError) error = NULL;
+  GPtrArray *differences;
+
+  if (line == NULL || !lamina_job_entry_is_variant (line->entry))
+    return NULL;
+  origin = lamina_library_dup_construction (self->library, line->entry->origin,
+                                            line->entry->origin_revision, &error);
+  variant = lamina_library_dup_construction (self->library, line->entry->construction,
+                                             line->entry->revision, error == NULL ? &error : NULL);
+  if (origin == NULL || variant == NULL)
+    {
+      differences = g_ptr_array_new_with_free_func (g_free);
+      g_ptr_array_add (differences, g_strdup (error->message));
+      return differences;
+    }
+  return lamina_revision_diff (origin, variant);
+}
+
 static GtkWidget *
 create_schedule_row (LaminaJobsPage      *self,
                      const LaminaJobLine *line)
@@ -304,6 +340,23 @@ create_schedule_row (LaminaJobsPage      *self,
   gtk_box_append (GTK_BOX (top), create_action_button (self, _("Remove"), line->entry->n, 0,
                                                        G_CALLBACK (on_remove_clicked_cb)));
   gtk_box_append (GTK_BOX (box), top);
+  if (lamina_job_entry_is_variant (line->entry))
+    {
+      g_autoptr(GPtrArray) differences = lamina_jobs_page_dup_differences (self, line->entry->n);
+      g_autoptr(GString) text = g_string_new (NULL);
+      GtkWidget *label;
+
+      g_string_printf (text, _("Job variant of %s revision %d"), line->entry->origin,
+                       line->entry->origin_revision);
+      for (guint i = 0; i < differences->len; i++)
+        g_string_append_printf (text, "%s %s", i == 0 ? ":" : ";", (const char *) differences->pdata[i]);
+      if (differences->len == 0)
+        g_string_append (text, _(": no difference yet"));
+      label = create_label (text->str, 0, 0);
+      gtk_label_set_wrap (GTK_LABEL (label), TRUE);
+      gtk_widget_add_css_class (label, "caption");
+      gtk_box_append (GTK_BOX (box), label);
+    }
   for (guint i = 0; i < line->notes->len; i++)
     {
       g_autofree char *text = g_strdup_printf ("⚠ %s", (const char *) line->notes->pdata[i]);
@@ -495,14 +548,11 @@ lamina_jobs_page_export_entry (LaminaJobsPage  *self,
 {
   g_autofree char *practice = NULL;
   g_autoptr(LaminaConstruction) c = NULL;
-  const LaminaJobLine *line = NULL;
+  const LaminaJobLine *line = find_line (self, n);
   LaminaSheetOptions options;
   LaminaSheetJob band;
 
   g_return_val_if_fail (self->report != NULL, FALSE);
-  for (guint i = 0; i < self->report->check->lines->len; i++)
-    if (((const LaminaJobLine *) self->report->check->lines->pdata[i])->entry->n == n)
-      line = self->report->check->lines->pdata[i];
   if (line == NULL || line->construction == NULL)
     {
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,

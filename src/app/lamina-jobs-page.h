@@ -27,6 +27,11 @@ guint       lamina_jobs_page_get_n_entries (LaminaJobsPage *self);
 /* Opens the add dialog with @use chosen (NULL: the first use). */
 LaminaJobAddDialog *lamina_jobs_page_open_add_dialog (LaminaJobsPage *self,
                                                       const char     *use);
+/* For a job variant (entry @n of the selected job): what differs from
+ * its origin at the origin's revision (char*, sentences); NULL when the
+ * entry is not a variant. */
+GPtrArray  *lamina_jobs_page_dup_differences (LaminaJobsPage *self,
+                                              int             n);
 /* One sentence naming the jobs whose schedules pin @construction_id
  * (what the library shows for a construction). */
 char       *lamina_jobs_page_dup_uses_text (LaminaJobsPage *self,

@@ -98,6 +98,30 @@ test_jobs_page (void)
   uses = lamina_jobs_page_dup_uses_text (page, "demo-ew-302");
   g_assert_cmpstr (uses, ==, "No job uses this construction.");
 
+  /* A job variant of EW-101 with 40 mm more wood fibre: the difference
+   * from its origin's revision is shown. */
+  {
+    g_autofree char *variant_id = lamina_library_derive_construction (library, "demo-ew-101", NULL, &error);
+    g_autoptr(LaminaConstruction) v = lamina_library_dup_construction (library, variant_id, 0, &error);
+    g_autoptr(LaminaJob) job = lamina_library_dup_job (library, "demo-job-riverside", &error);
+    g_autoptr(GPtrArray) differences = NULL;
+    LaminaLayer *fibre = v->layers->pdata[4];
+    LaminaJobEntry *e;
+
+    fibre->thickness += 40;
+    g_assert_true (lamina_library_save_construction (library, v, 1, NULL, &error));
+    g_assert_no_error (error);
+    e = lamina_job_add_entry (job, lamina_job_entry_new (variant_id, 2, "external-wall"));
+    e->origin = g_strdup ("demo-ew-101");
+    e->origin_revision = 3;
+    g_assert_true (lamina_library_save_job (library, job, &error));
+    g_assert_true (lamina_jobs_page_select (page, "demo-job-riverside"));
+    differences = lamina_jobs_page_dup_differences (page, e->n);
+    g_assert_nonnull (differences);
+    g_assert_cmpuint (differences->len, >, 0);
+    g_assert_null (lamina_jobs_page_dup_differences (page, 1));
+  }
+
   lamina_window_show_view (window, "library");
   gtk_window_destroy (GTK_WINDOW (window));
   lamina_library_close (library);
