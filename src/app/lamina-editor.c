@@ -15,6 +15,7 @@
 #include "lamina-properties-view.h"
 #include "lamina-solve.h"
 #include "lamina-target-dialog.h"
+#include "lamina-method-view.h"
 
 struct _LaminaEditor
 {
@@ -32,6 +33,7 @@ struct _LaminaEditor
   GtkListBox        *layer_list;
   LaminaResultsView *results_view;
   LaminaPropertiesView *properties_view;
+  LaminaMethodView     *method_view;
   GtkStack          *page_stack;
 
   /* owned */
@@ -266,6 +268,7 @@ refresh (LaminaEditor *self)
   lamina_results_view_update (self->results_view, state, result,
                               lamina_document_get_calc_error (self->document));
   lamina_properties_view_update (self->properties_view, state, result);
+  lamina_method_view_update (self->method_view, state, result);
   self->updating = FALSE;
   update_material_flag (self);
   update_actions (self);
@@ -585,6 +588,7 @@ lamina_editor_class_init (LaminaEditorClass *klass)
   g_type_ensure (LAMINA_TYPE_SECTION_VIEW);
   g_type_ensure (LAMINA_TYPE_RESULTS_VIEW);
   g_type_ensure (LAMINA_TYPE_PROPERTIES_VIEW);
+  g_type_ensure (LAMINA_TYPE_METHOD_VIEW);
   gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-editor.ui");
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, box);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, code_entry);
@@ -597,6 +601,7 @@ lamina_editor_class_init (LaminaEditorClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, layer_list);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, results_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, properties_view);
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditor, method_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, page_stack);
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
 
@@ -681,6 +686,7 @@ lamina_editor_set_document (LaminaEditor   *self,
   if (self->document != NULL)
     g_clear_signal_handler (&self->changed_id, self->document);
   lamina_properties_view_set_document (self->properties_view, document);
+  lamina_method_view_set_document (self->method_view, document);
   g_set_object (&self->document, document);
   if (document != NULL)
     {
@@ -709,6 +715,13 @@ lamina_editor_get_section_view (LaminaEditor *self)
 {
   g_return_val_if_fail (LAMINA_IS_EDITOR (self), NULL);
   return self->section_view;
+}
+
+GtkWidget *
+lamina_editor_get_method_view (LaminaEditor *self)
+{
+  g_return_val_if_fail (LAMINA_IS_EDITOR (self), NULL);
+  return GTK_WIDGET (self->method_view);
 }
 
 LaminaPropertiesView *

@@ -22,6 +22,8 @@ LaminaDocument    *lamina_editor_get_document    (LaminaEditor   *self);
 LaminaSectionView *lamina_editor_get_section_view (LaminaEditor  *self);
 LaminaResultsView *lamina_editor_get_results_view (LaminaEditor  *self);
 LaminaPropertiesView *lamina_editor_get_properties_view (LaminaEditor *self);
+/* The "method" page: ground, tapered layer, unheated space, Annex C/D. */
+GtkWidget          *lamina_editor_get_method_view (LaminaEditor   *self);
 /* Shows the "layers" or the "construction" page beside the results. */
 void               lamina_editor_show_page       (LaminaEditor   *self,
                                                   const char     *name);

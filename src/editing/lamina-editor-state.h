@@ -171,4 +171,23 @@ LaminaConstruction *lamina_edit_set_part_member (const LaminaConstruction *state
                                                  const char               *member,
                                                  GError                  **error);
 
+/* The rest of the method (lamina-editor-state-method.c).  @ground NULL
+ * takes the floor off the ground; @index −1 or LAMINA_TAPER_NONE leaves no
+ * layer tapered (one layer at most is). */
+LaminaConstruction *lamina_edit_set_ground   (const LaminaConstruction      *state,
+                                              const LaminaGround            *ground,
+                                              GError                       **error);
+void                lamina_edit_default_ground (LaminaGround                *ground);
+LaminaConstruction *lamina_edit_set_taper    (const LaminaConstruction      *state,
+                                              int                            index,
+                                              LaminaTaper                    taper,
+                                              double                         thickness_max,
+                                              GError                       **error);
+LaminaConstruction *lamina_edit_set_unheated (const LaminaConstruction      *state,
+                                              const LaminaUnheated          *unheated,
+                                              GError                       **error);
+LaminaConstruction *lamina_edit_set_surfaces (const LaminaConstruction      *state,
+                                              const LaminaSurfaceConditions *surfaces,
+                                              GError                       **error);
+
 G_END_DECLS

@@ -25,6 +25,7 @@
 #include "lamina-history-window-private.h"
 #include "lamina-material-row-private.h"
 #include "lamina-materials-window-private.h"
+#include "lamina-method-view.h"
 #include "lamina-parts-dialog-private.h"
 #include "lamina-settings.h"
 #include "lamina-dynamic.h"
@@ -863,6 +864,116 @@ assert_figure (const char *shown,
   g_assert_cmpstr (shown, ==, expected);
 }
 
+/* The library id of the construction with office code @code. */
+static char *
+dup_id_by_code (Fixture    *f,
+                const char *code)
+{
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (f->window));
+
+  for (guint i = 0; i < g_list_model_get_n_items (list); i++)
+    {
+      g_autoptr(LaminaConstructionItem) row = g_list_model_get_item (list, i);
+
+      if (g_strcmp0 (lamina_construction_item_get_summary (row)->code, code) == 0)
+        return g_strdup (lamina_construction_item_get_id (row));
+    }
+  return NULL;
+}
+
+/* Lets a page's crossfade finish before a picture is taken. */
+static void
+settle (GtkWidget *widget,
+        int        ms)
+{
+  gint64 end = g_get_monotonic_time () + ms * 1000;
+
+  while (g_get_monotonic_time () < end)
+    wait_for_draw (widget);
+}
+
+static GtkWidget *
+method_field (Fixture    *f,
+              const char *name)
+{
+  return lamina_method_view_get_field (LAMINA_METHOD_VIEW (lamina_editor_get_method_view (lamina_window_get_editor (f->window))),
+                                       name);
+}
+
+/* The demo's slab (FL-101) shows U with the ground for its plan and the
+ * table by B′; typing B′ 10 m keeps P and sets A = B′·P/2 = 108 m², and U
+ * is then the table's row at 10 m (EN ISO 13370:2017 8.1, 9.1, from
+ * memory).  The warm deck (RF-201) shows its tapered PIR (Annex E) and
+ * follows a new thick end.  PNGs of both pages for a look. */
+static void
+test_ground_and_taper (Fixture       *f,
+                       gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *slab = dup_id_by_code (f, "FL-101");
+  g_autofree char *roof = dup_id_by_code (f, "RF-201");
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *ground_png = g_build_filename (build ? build : ".", "tests", "app", "window-ground.png", NULL);
+  g_autofree char *taper_png = g_build_filename (build ? build : ".", "tests", "app", "window-taper.png", NULL);
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  const LaminaConstruction *state;
+  GtkWidget *b_prime, *thick;
+  g_autofree char *ground_text = NULL;
+  g_autoptr(LaminaResult) r = NULL;
+  double table[LAMINA_GROUND_TABLE_ROWS];
+  char u[LAMINA_U_TEXT_SIZE];
+
+  g_assert_nonnull (slab);
+  g_assert_true (lamina_window_open (f->window, slab, &error));
+  lamina_editor_show_page (editor, "method");
+  wait_for_draw (GTK_WIDGET (f->window));
+  g_assert_true (gtk_check_button_get_active (GTK_CHECK_BUTTON (method_field (f, "on-ground"))));
+  g_assert_true (gtk_widget_get_visible (method_field (f, "ground-table")));
+  state = open_state (f);
+  r = lamina_calculate (state, NULL);
+  ground_text = g_strdup (gtk_label_get_text (GTK_LABEL (method_field (f, "ground-u"))));
+  g_assert_nonnull (strstr (ground_text, lamina_format_u (u, r->ground.u)));
+  settle (GTK_WIDGET (f->window), 500);
+  save_png (GTK_WIDGET (f->window), ground_png);
+
+  b_prime = method_field (f, "b-prime");
+  gtk_editable_set_text (GTK_EDITABLE (b_prime), "10");
+  g_signal_emit_by_name (b_prime, "activate");
+  wait_for_draw (GTK_WIDGET (f->window));
+  state = open_state (f);
+  g_assert_cmpfloat_with_epsilon (state->ground.area, 10 * state->ground.perimeter / 2, 1e-9);
+  lamina_result_ground_table (state, r, table);
+  g_clear_pointer (&r, lamina_result_free);
+  r = lamina_calculate (state, NULL);
+  g_assert_cmpfloat_with_epsilon (r->ground.u, table[4], 1e-12); /* row 4: B′ 10 m */
+
+  /* Bad input names itself and changes nothing. */
+  gtk_editable_set_text (GTK_EDITABLE (method_field (f, "perimeter")), "-3");
+  g_signal_emit_by_name (method_field (f, "perimeter"), "activate");
+  g_assert_true (gtk_widget_get_visible (method_field (f, "error")));
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (method_field (f, "error"))), "perimeter"));
+  g_assert_cmpfloat (open_state (f)->ground.perimeter, >, 0);
+
+  g_assert_nonnull (roof);
+  g_assert_true (lamina_window_open (f->window, roof, &error));
+  lamina_editor_show_page (editor, "method");
+  wait_for_draw (GTK_WIDGET (f->window));
+  g_assert_cmpuint (gtk_drop_down_get_selected (GTK_DROP_DOWN (method_field (f, "tapered-layer"))), ==, 3);
+  g_clear_pointer (&r, lamina_result_free);
+  r = lamina_calculate (open_state (f), NULL);
+  g_assert_true (r->tapered);
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (method_field (f, "taper-u"))),
+                            lamina_format_u (u, r->u)));
+  settle (GTK_WIDGET (f->window), 500);
+  save_png (GTK_WIDGET (f->window), taper_png);
+  thick = method_field (f, "thickness-max");
+  gtk_editable_set_text (GTK_EDITABLE (thick), "200");
+  g_signal_emit_by_name (thick, "activate");
+  state = open_state (f);
+  g_assert_cmpfloat (((LaminaLayer *) state->layers->pdata[2])->thickness_max, ==, 200);
+  g_test_message ("method page rendered to %s and %s", ground_png, taper_png);
+}
+
 static void
 test_construction_properties (Fixture       *f,
                               gconstpointer  data)
@@ -1490,6 +1601,7 @@ main (int   argc,
       g_test_add ("/app/window/material-changed", Fixture, NULL, fixture_setup, test_material_changed, fixture_teardown);
       g_test_add ("/app/window/derive-delete-undo", Fixture, NULL, fixture_setup, test_derive_delete_undo, fixture_teardown);
       g_test_add ("/app/window/construction-properties", Fixture, NULL, fixture_setup, test_construction_properties, fixture_teardown);
+      g_test_add ("/app/window/ground-and-taper", Fixture, NULL, fixture_setup, test_ground_and_taper, fixture_teardown);
       g_test_add ("/app/window/bridged-parts", Fixture, NULL, fixture_setup, test_bridged_parts, fixture_teardown);
       g_test_add ("/app/window/compare-revisions", Fixture, NULL, fixture_setup, test_compare_revisions, fixture_teardown);
       g_test_add ("/app/window/materials-manager", Fixture, NULL, fixture_setup, test_materials_manager, fixture_teardown);
