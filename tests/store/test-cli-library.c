@@ -224,6 +224,12 @@ test_daily (void)
   g_assert_nonnull (strstr (err, "1 conflict with an approved revision"));
   clear_output (&out, &err);
 
+  /* The drawings lay out text through pango and fontconfig, whose
+   * process-long caches memcheck reports as lost (lsan.supp suppresses the
+   * same for the sanitizers); cairo 1.16's SVG emitter also trips it.  The
+   * memcheck pass checks our own code on the commands above. */
+  if (g_getenv ("LAMINA_CLI_WRAPPER") != NULL)
+    return;
   /* The section as SVG, for the office's drawings. */
   g_assert_cmpint (run (&out, &err, "section", "CL-301", "-o", svg_path, NULL), ==, 0);
   g_assert_nonnull (strstr (out, "CL-301 revision 2: section drawn to"));
