@@ -33,6 +33,8 @@ typedef struct
   LaminaCatalogue *catalogue;
   LaminaLibrary   *library;
   GPtrArray       *ids;       /* char*: ids in the library, or in the document */
+  char            *revision_text; /* sheet --revision N */
+  GArray          *revisions; /* int per id: the library revision, 0 = latest */
 } Job;
 
 static void
@@ -48,6 +50,8 @@ job_clear (Job *job)
   g_clear_pointer (&job->catalogue, lamina_catalogue_free);
   g_clear_object (&job->library);
   g_clear_pointer (&job->ids, g_ptr_array_unref);
+  g_free (job->revision_text);
+  g_clear_pointer (&job->revisions, g_array_unref);
 }
 
 G_DEFINE_AUTO_CLEANUP_CLEAR_FUNC (Job, job_clear)
@@ -96,9 +100,10 @@ fetch_cb (gpointer   user_data,
 {
   Job *job = user_data;
   const char *id = job->ids->pdata[index];
+  int revision = job->revisions && index < job->revisions->len ? g_array_index (job->revisions, int, index) : 0;
 
   if (job->library)
-    return lamina_library_dup_construction (job->library, id, 0, error);
+    return lamina_library_dup_construction (job->library, id, revision, error);
   return lamina_construction_copy (lamina_catalogue_find (job->catalogue, id));
 }
 
@@ -169,6 +174,11 @@ create_context (Job        *job,
     { "status", 0, 0, G_OPTION_ARG_STRING, &job->status, N_("Only constructions with this review status"), "STATUS" },
     { NULL }
   };
+  GOptionEntry one[] = {
+    { "revision", 0, 0, G_OPTION_ARG_STRING, &job->revision_text,
+      N_("Revision N of a library construction (default: the latest)"), "N" },
+    { NULL }
+  };
   GOptionEntry png[] = {
     { "width", 0, 0, G_OPTION_ARG_INT, &job->width, N_("Image width in pixels (default 1600)"), "PX" },
     { "height", 0, 0, G_OPTION_ARG_INT, &job->height, N_("Image height in pixels (default 1000)"), "PX" },
@@ -181,6 +191,8 @@ create_context (Job        *job,
   g_option_context_add_main_entries (context, pdf ? sheet : png, GETTEXT_PACKAGE);
   if (selection)
     g_option_context_add_main_entries (context, choose, GETTEXT_PACKAGE);
+  else if (pdf)
+    g_option_context_add_main_entries (context, one, GETTEXT_PACKAGE);
   return context;
 }
 
@@ -268,6 +280,22 @@ lamina_cli_sheet (const LaminaCliGlobals *globals,
     return LAMINA_EXIT_USAGE;
   job.ids = g_ptr_array_new_with_free_func (g_free);
   g_ptr_array_add (job.ids, g_strdup (id));
+  /* --revision N: an approved revision stays printable while a draft
+   * follows it. */
+  if (job.revision_text != NULL)
+    {
+      int revision = 0;
+
+      if (!lamina_cli_parse_revision (job.revision_text, &revision))
+        return LAMINA_EXIT_USAGE;
+      if (job.library == NULL)
+        {
+          lamina_cli_error (_("--revision: only for a construction of the library"));
+          return LAMINA_EXIT_USAGE;
+        }
+      job.revisions = g_array_new (FALSE, FALSE, sizeof (int));
+      g_array_append_val (job.revisions, revision);
+    }
   c = fetch_cb (&job, 0, &error);
   /* A revision with a stored 2-D check (lamina-cli field) reports it. */
   if (c != NULL && job.library != NULL && lamina_library_has_field_check (job.library, c->id, c->revision))
@@ -310,15 +338,32 @@ select_ids (Job   *job,
 
       lamina_library_query_init (&q);
       q.text = job->search;
-      q.status = job->status ? (int) status : -1;
+      /* Approved: the latest approved revision of each construction, also
+       * of one whose latest revision is a draft that follows it. */
+      q.status = job->status && status != LAMINA_STATUS_APPROVED ? (int) status : -1;
       rows = lamina_library_search (job->library, &q, &error);
       if (rows == NULL)
         {
           lamina_cli_error ("%s", error->message);
           return FALSE;
         }
+      if (job->status && status == LAMINA_STATUS_APPROVED)
+        job->revisions = g_array_new (FALSE, FALSE, sizeof (int));
       for (guint i = 0; i < rows->len; i++)
-        g_ptr_array_add (job->ids, g_strdup (((LaminaSummary *) rows->pdata[i])->id));
+        {
+          const char *id = ((LaminaSummary *) rows->pdata[i])->id;
+
+          if (job->revisions != NULL)
+            {
+              gboolean approved = FALSE;
+              int revision = lamina_library_pick_revision (job->library, id, 0, &approved, NULL);
+
+              if (revision <= 0 || !approved)
+                continue;
+              g_array_append_val (job->revisions, revision);
+            }
+          g_ptr_array_add (job->ids, g_strdup (id));
+        }
       return TRUE;
     }
   for (guint i = 0; i < job->catalogue->constructions->len; i++)

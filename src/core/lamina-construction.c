@@ -428,6 +428,8 @@ lamina_construction_copy (const LaminaConstruction *construction)
   copy->checked_at = g_strdup (c->checked_at);
   copy->approved_by = g_strdup (c->approved_by);
   copy->approved_at = g_strdup (c->approved_at);
+  copy->approval_policy = g_strdup (c->approval_policy);
+  copy->approval_reason = g_strdup (c->approval_reason);
   copy->tags = g_ptr_array_new_full (c->tags->len, g_free);
   for (guint i = 0; i < c->tags->len; i++)
     g_ptr_array_add (copy->tags, g_strdup (c->tags->pdata[i]));
@@ -456,6 +458,8 @@ lamina_construction_free (LaminaConstruction *construction)
   g_free (c->checked_at);
   g_free (c->approved_by);
   g_free (c->approved_at);
+  g_free (c->approval_policy);
+  g_free (c->approval_reason);
   g_ptr_array_unref (c->tags);
   g_ptr_array_unref (c->layers);
   lamina_moisture_settings_free (c->moisture);

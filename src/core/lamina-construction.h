@@ -179,6 +179,12 @@ typedef struct
   char            *checked_at;
   char            *approved_by;
   char            *approved_at;
+  /* Of the approval in force, from the library's review records (not
+   * carried by the XML): the policy it was made under ("four-eyes",
+   * "single") and the reason given to approve a result outside the
+   * method's scope without a 2-D check; NULL when none. */
+  char            *approval_policy;
+  char            *approval_reason;
 
   int              line;
 } LaminaConstruction;

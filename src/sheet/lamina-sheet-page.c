@@ -88,6 +88,34 @@ draw_field (SheetContext *ctx,
     }
 }
 
+/* Under which review policy the approval was made, and the reason given
+ * to approve a result outside the method's scope without a 2-D check:
+ * what the stamp means, on the sheet that carries it. */
+static double
+draw_approval_note (SheetContext             *ctx,
+                    const LaminaConstruction *c,
+                    double                    y,
+                    double                    w)
+{
+  g_autofree char *text = NULL;
+
+  if (c->status != LAMINA_STATUS_APPROVED || c->approval_policy == NULL)
+    return y;
+  if (g_strcmp0 (c->approval_policy, "single") == 0)
+    text = g_strdup (_("Approved under the single-reviewer policy: the author may have checked and approved it."));
+  else
+    text = g_strdup (_("Approved under the four-eyes policy: checked and approved by others than the author."));
+  if (c->approval_reason != NULL)
+    {
+      g_autofree char *both = g_strdup_printf (_("%s Outside the scope of EN ISO 6946 and approved without a 2-D "
+                                                 "check (EN ISO 10211); reason given: %s"),
+                                               text, c->approval_reason);
+      g_free (text);
+      text = g_steal_pointer (&both);
+    }
+  return y + sheet_text (ctx, SHEET_FONT_SMALL, text, ctx->left, y, w, PANGO_ALIGN_LEFT) + 4;
+}
+
 static double
 draw_header (SheetContext             *ctx,
              const LaminaConstruction *c)
@@ -136,6 +164,7 @@ draw_header (SheetContext             *ctx,
   draw_field (ctx, _("REVISION DATE"), c->modified_at ? date_part (c->modified_at, date) : NULL, NULL,
               ctx->left + 5 * col, y, col);
   y += 29;
+  y = draw_approval_note (ctx, c, y, w);
   sheet_rule (ctx, y, 0.4, 0.6);
   return y + GAP;
 }
@@ -504,7 +533,7 @@ draw_u_box (SheetContext             *ctx,
       if (r->target_met)
         target = g_strdup_printf (_("✓ Meets the target U ≤ %s"), t);
       else
-        target = g_strdup_printf (_("✗ U %s exceeds the target U ≤ %s"),
+        target = g_strdup_printf (_("✗ U %s > target %s"),
                                   lamina_format_u_against (u, r->u_corrected, c->target_u), t);
     }
   else

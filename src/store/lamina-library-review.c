@@ -132,7 +132,7 @@ valid_date (const char *date)
  * whether its result is within the method's scope. */
 static gboolean
 check_revision (LaminaLibrary             *self,
-                const LaminaBackendReview *r,
+                LaminaBackendReview       *r,
                 LaminaReviewPolicy         policy,
                 GError                   **error)
 {
@@ -177,8 +177,15 @@ check_revision (LaminaLibrary             *self,
   /* Hook for the 2-D check (EN ISO 10211): a stored check of this very
    * revision answers for the method-limit warnings; without one, a
    * written reason is needed and kept with the approval. */
-  if (result != NULL && lamina_field_is_advised (result) && (r->reason == NULL || *r->reason == '\0')
-      && !lamina_library_has_field_check (self, r->id, c->revision))
+  if (result == NULL || !lamina_field_is_advised (result)
+      || lamina_library_has_field_check (self, r->id, c->revision))
+    {
+      /* Within the scope (or answered by a 2-D check): no override to
+       * record, and none to print. */
+      r->reason = NULL;
+      return TRUE;
+    }
+  if (r->reason == NULL)
     {
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_SCOPE,
                    "%s revision %d is outside the scope of EN ISO 6946 (metal bridging insulation "

@@ -19,7 +19,12 @@ lamina_sqlite_backend_get_construction (LaminaBackend  *backend,
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT r.body, r.revision, r.status, r.modified_by, r.modified_at,"
-    "       r.checked_by, r.checked_at, r.approved_by, r.approved_at"
+    "       r.checked_by, r.checked_at, r.approved_by, r.approved_at,"
+    /* The policy and reason of the approval in force, for the sheet. */
+    "       (SELECT e.policy FROM review_event e WHERE e.construction_id = c.id"
+    "          AND e.revision = r.revision AND e.act = 'approved' ORDER BY e.num DESC LIMIT 1),"
+    "       (SELECT e.reason FROM review_event e WHERE e.construction_id = c.id"
+    "          AND e.revision = r.revision AND e.act = 'approved' ORDER BY e.num DESC LIMIT 1)"
     "  FROM construction c JOIN revision r ON r.construction_id = c.id"
     " WHERE c.id = ?1 AND c.deleted_at IS NULL"
     "   AND r.revision = CASE WHEN ?2 > 0 THEN ?2 ELSE c.head END;", error);
@@ -46,6 +51,11 @@ lamina_sqlite_backend_get_construction (LaminaBackend  *backend,
           c->checked_at = lamina_sqlite_column_dup (stmt, 6);
           c->approved_by = lamina_sqlite_column_dup (stmt, 7);
           c->approved_at = lamina_sqlite_column_dup (stmt, 8);
+          if (c->status == LAMINA_STATUS_APPROVED)
+            {
+              c->approval_policy = lamina_sqlite_column_dup (stmt, 9);
+              c->approval_reason = lamina_sqlite_column_dup (stmt, 10);
+            }
         }
     }
   else if (rc == SQLITE_DONE)

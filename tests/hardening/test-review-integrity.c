@@ -195,6 +195,13 @@ test_method_scope (void)
                                                      "manufacturer's 2-D figures, report 17/3", &error));
   events = lamina_library_dup_review_events (library, id, &error);
   g_assert_cmpstr (((LaminaReviewEvent *) events->pdata[1])->reason, ==, "manufacturer's 2-D figures, report 17/3");
+  /* The sheet reads both from the construction. */
+  {
+    g_autoptr(LaminaConstruction) approved = lamina_library_dup_construction (library, id, 0, &error);
+
+    g_assert_cmpstr (approved->approval_policy, ==, "four-eyes");
+    g_assert_cmpstr (approved->approval_reason, ==, "manufacturer's 2-D figures, report 17/3");
+  }
 }
 
 static void
@@ -223,6 +230,31 @@ test_cli (void)
   g_assert_nonnull (strstr (out, "C. Checker"));
   g_assert_nonnull (strstr (out, "D. Second"));
   g_assert_nonnull (strstr (out, "four-eyes"));
+  /* A draft follows the approved revision: revision 1 stays printable,
+   * and the approved-only catalogue prints it. */
+  {
+    g_autoptr(GError) error = NULL;
+    g_autoptr(LaminaLibrary) library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+    g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, id, 0, &error);
+
+    ((LaminaLayer *) c->layers->pdata[0])->thickness += 5;
+    g_assert_true (lamina_library_save_construction (library, c, c->revision, "A. Author", &error));
+    g_assert_cmpint (c->revision, ==, 2);
+  }
+  {
+    g_autofree char *pdf = g_build_filename (g_get_user_data_dir (), "rev1.pdf", NULL);
+    g_autofree char *cat = g_build_filename (g_get_user_data_dir (), "approved.pdf", NULL);
+
+    g_assert_cmpint (run_cli (path, &out, &err, "sheet", id, "--revision", "1", "-o", pdf, NULL), ==, 0);
+    g_assert_nonnull (strstr (out, "revision 1 (approved)"));
+    g_assert_cmpint (run_cli (path, &out, &err, "catalogue", "--status", "approved", "-o", cat, NULL), ==, 0);
+    g_assert_nonnull (strstr (out, "Catalogue of 1 sheet"));
+  }
+  g_assert_cmpint (run_cli (path, &out, &err, "withdraw", id, "--by", "B. Boss", "--revision", "1",
+                            "--reason", "x", NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "not the latest"));
+  g_assert_cmpint (run_cli (path, &out, &err, "check", id, "--by", "C. Checker", NULL), ==, 0);
+  g_assert_cmpint (run_cli (path, &out, &err, "approve", id, "--by", "B. Boss", NULL), ==, 0);
   g_assert_cmpint (run_cli (path, &out, &err, "withdraw", id, "--by", "B. Boss", NULL), ==, 2);
   g_assert_cmpint (run_cli (path, &out, &err, "withdraw", id, "--by", "B. Boss", "--reason", "site change", NULL), ==, 0);
   g_assert_cmpint (run_cli (path, &out, &err, "history", id, NULL), ==, 0);
