@@ -32,6 +32,8 @@ struct _LaminaEditor
   LaminaSectionView *section_view;
   GtkListBox        *layer_list;
   LaminaResultsView *results_view;
+  LaminaMoistureView *moisture_view;
+  GtkStack          *results_stack;
   LaminaPropertiesView *properties_view;
   LaminaMethodView     *method_view;
   GtkStack          *page_stack;
@@ -269,6 +271,7 @@ refresh (LaminaEditor *self)
                               lamina_document_get_calc_error (self->document));
   lamina_properties_view_update (self->properties_view, state, result);
   lamina_method_view_update (self->method_view, state, result);
+  lamina_moisture_view_update (self->moisture_view, state);
   self->updating = FALSE;
   update_material_flag (self);
   update_actions (self);
@@ -587,6 +590,7 @@ lamina_editor_class_init (LaminaEditorClass *klass)
 
   g_type_ensure (LAMINA_TYPE_SECTION_VIEW);
   g_type_ensure (LAMINA_TYPE_RESULTS_VIEW);
+  g_type_ensure (LAMINA_TYPE_MOISTURE_VIEW);
   g_type_ensure (LAMINA_TYPE_PROPERTIES_VIEW);
   g_type_ensure (LAMINA_TYPE_METHOD_VIEW);
   gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-editor.ui");
@@ -600,6 +604,8 @@ lamina_editor_class_init (LaminaEditorClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, section_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, layer_list);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, results_view);
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditor, moisture_view);
+  gtk_widget_class_bind_template_child (widget_class, LaminaEditor, results_stack);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, properties_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, method_view);
   gtk_widget_class_bind_template_child (widget_class, LaminaEditor, page_stack);
@@ -738,6 +744,22 @@ lamina_editor_show_page (LaminaEditor *self,
 {
   g_return_if_fail (LAMINA_IS_EDITOR (self));
   gtk_stack_set_visible_child_name (self->page_stack, name);
+}
+
+LaminaMoistureView *
+lamina_editor_get_moisture_view (LaminaEditor *self)
+{
+  g_return_val_if_fail (LAMINA_IS_EDITOR (self), NULL);
+  return self->moisture_view;
+}
+
+/* "results" or "moisture", the pages of the side panel. */
+void
+lamina_editor_show_results_page (LaminaEditor *self,
+                                 const char   *name)
+{
+  g_return_if_fail (LAMINA_IS_EDITOR (self));
+  gtk_stack_set_visible_child_name (self->results_stack, name);
 }
 
 LaminaResultsView *

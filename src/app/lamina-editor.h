@@ -7,6 +7,7 @@
 #include <gtk/gtk.h>
 
 #include "lamina-document.h"
+#include "lamina-moisture-view.h"
 #include "lamina-properties-view.h"
 #include "lamina-results-view.h"
 #include "lamina-section-view.h"
@@ -21,6 +22,11 @@ void               lamina_editor_set_document    (LaminaEditor   *self,
 LaminaDocument    *lamina_editor_get_document    (LaminaEditor   *self);
 LaminaSectionView *lamina_editor_get_section_view (LaminaEditor  *self);
 LaminaResultsView *lamina_editor_get_results_view (LaminaEditor  *self);
+/* The Moisture page (EN ISO 13788) beside the results. */
+LaminaMoistureView *lamina_editor_get_moisture_view (LaminaEditor *self);
+/* "results" or "moisture". */
+void               lamina_editor_show_results_page (LaminaEditor *self,
+                                                    const char   *name);
 LaminaPropertiesView *lamina_editor_get_properties_view (LaminaEditor *self);
 /* The "method" page: ground, tapered layer, unheated space, Annex C/D. */
 GtkWidget          *lamina_editor_get_method_view (LaminaEditor   *self);
