@@ -32,10 +32,12 @@ lamina_window_update_actions (LaminaWindow *self)
 
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo", open && lamina_document_can_undo (doc));
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.redo", open && lamina_document_can_redo (doc));
+  /* A checked revision can be checked again by another person (a record
+   * of its own); only a checked revision can be approved. */
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.mark-checked",
-                                 open && !conflict && state->status == LAMINA_STATUS_DRAFT);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.approve",
                                  open && !conflict && state->status != LAMINA_STATUS_APPROVED);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.approve",
+                                 open && !conflict && state->status == LAMINA_STATUS_CHECKED);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.history", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.used-in-jobs", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.update-materials", open);
@@ -111,8 +113,12 @@ review_action (GtkWidget  *widget,
   revision = lamina_document_get_base_revision (self->document);
   if (g_str_equal (name, "win.approve"))
     {
+      LaminaReviewPolicy policy = lamina_library_get_review_policy (self->library);
+
       ok = lamina_library_approve (self->library, id, revision, reviewer, NULL, &error);
-      message = g_strdup_printf (_("Revision %d approved by %s"), revision, reviewer);
+      /* TRANSLATORS: the last %s is "four-eyes" or "single" */
+      message = g_strdup_printf (_("Revision %d approved by %s (review policy: %s)"), revision, reviewer,
+                                 lamina_review_policy_to_string (policy));
     }
   else
     {

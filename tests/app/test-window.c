@@ -583,6 +583,11 @@ test_approve_then_edit (Fixture       *f,
       /* Start from a draft so that the approval is ours. */
       lamina_editor_resize_layer (editor, index, 200, FALSE);
     }
+  /* Approve is offered only for a checked revision: on the draft it does
+   * nothing. */
+  g_settings_set_string (settings, "reviewer-name", "R. Testlund");
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.approve", NULL);
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_DRAFT);
   /* Four eyes: checked, then approved, each by someone other than the
    * author. */
   g_settings_set_string (settings, "reviewer-name", "C. Checker");
