@@ -20,22 +20,28 @@
 
 typedef void (*ChooserDone) (LaminaWindow *self, GFile *file);
 
+/* What to do with the chosen file, for the response handler. */
+typedef struct
+{
+  LaminaWindow *window;  /* owned */
+  ChooserDone   done;
+} Chooser;
+
 static void
 on_chooser_response_cb (GtkNativeDialog *dialog,
                         int              response,
-                        LaminaWindow    *self)
+                        Chooser         *chooser)
 {
-  ChooserDone done = g_object_get_data (G_OBJECT (dialog), "lamina-done");
-
   if (response == GTK_RESPONSE_ACCEPT)
     {
       g_autoptr(GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
 
-      done (self, file);
+      chooser->done (chooser->window, file);
     }
   gtk_native_dialog_destroy (dialog);
   g_object_unref (dialog);
-  g_object_unref (self);
+  g_object_unref (chooser->window);
+  g_free (chooser);
 }
 
 static void
@@ -47,21 +53,23 @@ choose_file (LaminaWindow *self,
              const char   *pattern_name,
              ChooserDone   done)
 {
-  GtkFileChooserNative *chooser;
+  GtkFileChooserNative *native;
   g_autoptr(GtkFileFilter) filter = gtk_file_filter_new ();
+  Chooser *chooser = g_new0 (Chooser, 1);
 
-  chooser = gtk_file_chooser_native_new (title, GTK_WINDOW (self),
-                                         save ? GTK_FILE_CHOOSER_ACTION_SAVE : GTK_FILE_CHOOSER_ACTION_OPEN,
-                                         save ? _("_Export") : _("_Import"), _("_Cancel"));
+  native = gtk_file_chooser_native_new (title, GTK_WINDOW (self),
+                                        save ? GTK_FILE_CHOOSER_ACTION_SAVE : GTK_FILE_CHOOSER_ACTION_OPEN,
+                                        save ? _("_Export") : _("_Import"), _("_Cancel"));
   gtk_file_filter_add_pattern (filter, pattern);
   gtk_file_filter_set_name (filter, pattern_name);
-  gtk_file_chooser_add_filter (GTK_FILE_CHOOSER (chooser), filter);
+  gtk_file_chooser_add_filter (GTK_FILE_CHOOSER (native), filter);
   if (save && suggested != NULL)
-    gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (chooser), suggested);
-  gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
-  g_object_set_data (G_OBJECT (chooser), "lamina-done", done);
-  g_signal_connect (chooser, "response", G_CALLBACK (on_chooser_response_cb), g_object_ref (self));
-  gtk_native_dialog_show (GTK_NATIVE_DIALOG (chooser));
+    gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (native), suggested);
+  gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (native), TRUE);
+  chooser->window = g_object_ref (self);
+  chooser->done = done;
+  g_signal_connect (native, "response", G_CALLBACK (on_chooser_response_cb), chooser);
+  gtk_native_dialog_show (GTK_NATIVE_DIALOG (native));
 }
 
 static void
