@@ -196,16 +196,50 @@ check_revision (LaminaLibrary             *self,
   return TRUE;
 }
 
+/* A person's name as recorded: NFC, and no control or format characters
+ * (bidi overrides, zero-width characters, newlines, escape codes) that
+ * would make two names look alike or rewrite a terminal line. */
+static char *
+dup_clean_name (const char  *name,
+                GError     **error)
+{
+  g_autofree char *nfc = NULL;
+  glong position = 1;
+
+  if (!g_utf8_validate (name, -1, NULL) || (nfc = g_utf8_normalize (name, -1, G_NORMALIZE_NFC)) == NULL)
+    {
+      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                           "reviewer name (--by): not valid UTF-8");
+      return NULL;
+    }
+  for (const char *p = nfc; *p; p = g_utf8_next_char (p), position++)
+    {
+      gunichar ch = g_utf8_get_char (p);
+      GUnicodeType type = g_unichar_type (ch);
+
+      if (type == G_UNICODE_CONTROL || type == G_UNICODE_FORMAT)
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                       "reviewer name (--by): character %ld is U+%04X, a control or invisible "
+                       "formatting character; type the name in plain letters", position, ch);
+          return NULL;
+        }
+    }
+  return g_strstrip (g_steal_pointer (&nfc));
+}
+
 static gboolean
 record (LaminaLibrary       *self,
         LaminaBackendReview *r,
         GError             **error)
 {
-  g_autofree char *trimmed = g_strstrip (g_strdup (r->by ? r->by : ""));
+  g_autofree char *trimmed = dup_clean_name (r->by ? r->by : "", error);
   g_autofree char *now = lamina_library_dup_now ();
   g_autofree char *reason = r->reason ? g_strstrip (g_strdup (r->reason)) : NULL;
   LaminaReviewPolicy policy;
 
+  if (trimmed == NULL)
+    return FALSE;
   BACKEND_OR_FAIL (self, error, FALSE);
   if (*trimmed == '\0')
     {

@@ -100,6 +100,16 @@ test_four_eyes_api (void)
   g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_POLICY);
   g_assert_nonnull (strstr (error->message, "four eyes"));
   g_clear_error (&error);
+  /* Look-alike names: a bidi override or a zero-width space is refused
+   * with its position (Unicode general categories Cc and Cf); a name in
+   * decomposed form is kept as NFC (Unicode Standard Annex #15). */
+  g_assert_false (lamina_library_mark_checked (library, id, 0, "C. Che\xe2\x80\xaeker", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "character 7 is U+202E"));
+  g_clear_error (&error);
+  g_assert_false (lamina_library_mark_checked (library, id, 0, "A.\xe2\x80\x8b Author", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_clear_error (&error);
   g_assert_true (lamina_library_mark_checked (library, id, 0, "C. Checker", &error));
   /* A second check by another person adds a record, the first stays. */
   g_assert_true (lamina_library_mark_checked (library, id, 0, "D. Second", &error));
@@ -141,6 +151,15 @@ test_four_eyes_api (void)
   g_assert_cmpstr (((LaminaReviewEvent *) events->pdata[3])->reason, ==, "wrong insulation product");
 
   /* One-person practice: the policy relaxes the rule and is recorded. */
+  /* "Ö" typed as O + combining diaeresis is recorded precomposed. */
+  {
+    g_autofree char *other = add_wall (library, 4, "A. Author");
+    g_autoptr(GPtrArray) recorded = NULL;
+
+    g_assert_true (lamina_library_mark_checked (library, other, 0, "O\xcc\x88. Olsen", &error));
+    recorded = lamina_library_dup_review_events (library, other, &error);
+    g_assert_cmpstr (((LaminaReviewEvent *) recorded->pdata[0])->by, ==, "\xc3\x96. Olsen");
+  }
   g_assert_true (lamina_library_set_review_policy (library, LAMINA_REVIEW_SINGLE, &error));
   g_assert_cmpint (lamina_library_get_review_policy (library), ==, LAMINA_REVIEW_SINGLE);
   g_clear_pointer (&id, g_free);
