@@ -29,6 +29,7 @@ sheet_dup_field_summary (const LaminaFieldResult *f)
 static const char *
 get_field_method_text (void)
 {
+  /* xgettext:no-c-format (the "%" below is a per cent sign, not a directive) */
   return _("Method. Two-dimensional steady-state heat conduction by EN ISO 10211:2017 for one repeating "
            "module of the build-up, as wide as the largest member spacing, the members centred and "
            "lined up through their layers, the module edges adiabatic (lines of symmetry). Surface "
