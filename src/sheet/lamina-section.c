@@ -873,9 +873,10 @@ write_file (const LaminaConstruction *construction,
             gboolean                  svg,
             GError                  **error)
 {
-  /* The painter outlives the surface: its cached hatch tiles are sources
-   * of the drawing, and an SVG surface still holds snapshots of them until
-   * it is destroyed (destroying a source first leaked cairo's copy). */
+  /* The painter outlives the surface, so that nothing it cached for the
+   * drawing is destroyed before the surface is finished.  (Hatch tiles,
+   * whose early destruction leaked in cairo's SVG output, are no longer
+   * used on SVG targets at all: see fill_from_tile.) */
   g_autoptr(LaminaSection) painter = lamina_section_new ();
   LaminaFileWriter *writer;
   cairo_surface_t *surface;
