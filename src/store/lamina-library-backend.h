@@ -29,6 +29,9 @@ typedef struct
   const GArray *base_revisions;  /* int, one per revision */
   GPtrArray    *target_sets;     /* LaminaTargetSet*, replacing those of their id */
   GPtrArray    *jobs;            /* LaminaJob*, replacing those of their id */
+  /* LaminaClimate*, added or replaced before the revisions (NULL: none);
+   * in the same transaction, so a failed import leaves none behind. */
+  GPtrArray    *climates;
 } LaminaBackendImport;
 
 /* A review act as the backend stores it. */

@@ -305,16 +305,12 @@ lamina_library_import (LaminaLibrary          *self,
     return NULL;
   if (flags & LAMINA_IMPORT_DRY_RUN)
     return g_steal_pointer (&report);
-  /* Climates go first, each in its own transaction: if the constructions
-   * then fail, the library holds extra climates and nothing else. */
-  for (guint i = 0; i < climates->len; i++)
-    if (!VT (self)->put_climate (BE (self), climates->pdata[i], now, error))
-      return NULL;
   import.materials = materials;
   import.revisions = revisions;
   import.base_revisions = bases;
   import.target_sets = target_sets;
   import.jobs = jobs;
+  import.climates = climates;
   if (!VT (self)->apply_import_records (BE (self), &import, now, error))
     return NULL;
   if (materials->len > 0 || revisions->len > 0 || target_sets->len > 0 || jobs->len > 0

@@ -91,8 +91,8 @@ lamina_sqlite_refresh_climate_flags (LaminaSqlite  *self,
   return lamina_sqlite_step_done (self, stmt, error);
 }
 
-static gboolean
-put_climate_in_txn (LaminaSqlite         *self,
+gboolean
+lamina_sqlite_put_climate_in_txn (LaminaSqlite         *self,
                     const LaminaClimate  *climate,
                     const char           *now,
                     GError              **error)
@@ -127,7 +127,7 @@ lamina_sqlite_backend_put_climate (LaminaBackend        *backend,
 {
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
-  if (!put_climate_in_txn (SELF, climate, now, error)
+  if (!lamina_sqlite_put_climate_in_txn (SELF, climate, now, error)
       || !lamina_sqlite_commit (SELF, error))
     {
       lamina_sqlite_rollback (SELF);

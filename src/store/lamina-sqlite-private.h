@@ -128,6 +128,11 @@ gboolean            lamina_sqlite_backend_put_climate      (LaminaBackend *backe
 /* Sets the "changed since review" flag of every construction whose latest
  * revision was checked with other data for climate @climate_id (NULL:
  * any); run after the material flags, which it only adds to. */
+/* Adds or replaces @climate inside the caller's transaction. */
+gboolean            lamina_sqlite_put_climate_in_txn       (LaminaSqlite *self,
+                                                            const LaminaClimate *climate,
+                                                            const char   *now,
+                                                            GError      **error);
 gboolean            lamina_sqlite_refresh_climate_flags    (LaminaSqlite *self,
                                                             const char   *climate_id,
                                                             GError      **error);

@@ -484,6 +484,9 @@ lamina_sqlite_backend_apply_import_records (LaminaBackend              *backend,
 
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
+  for (guint i = 0; import->climates != NULL && i < import->climates->len; i++)
+    if (!lamina_sqlite_put_climate_in_txn (SELF, import->climates->pdata[i], now, &local))
+      goto fail;
   for (guint i = 0; i < import->materials->len; i++)
     if (!lamina_sqlite_put_material (SELF, import->materials->pdata[i], now, &local))
       goto fail;
@@ -510,7 +513,7 @@ lamina_sqlite_backend_apply_import (LaminaBackend  *backend,
                                     const char     *now,
                                     GError        **error)
 {
-  LaminaBackendImport import = { materials, revisions, base_revisions, NULL, NULL };
+  LaminaBackendImport import = { materials, revisions, base_revisions, NULL, NULL, NULL };
 
   return lamina_sqlite_backend_apply_import_records (backend, &import, now, error);
 }

@@ -7,6 +7,8 @@
 #include "lamina-store-test-util.h"
 #include "lamina-moisture.h"
 
+#include <sqlite3.h>
+
 static LaminaLibrary *
 open_library (const char *name)
 {
@@ -234,6 +236,73 @@ test_export_import (void)
   g_assert_cmpuint (cat->climates->len, ==, 2);
 }
 
+/* An import is all or nothing, climates included: when the last
+ * construction cannot be stored (here a trigger refuses its revision, as a
+ * full disk or a broken connection would at that point), the climate the
+ * document brought is not left behind. */
+static void
+test_failed_import_leaves_no_climate (void)
+{
+  g_autoptr(LaminaLibrary) library = open_library ("source.sqlite");
+  g_autofree char *path = test_library_path ("refusing.sqlite");
+  g_autoptr(LaminaLibrary) other = NULL;
+  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
+  g_autoptr(LaminaConstruction) a = NULL;
+  g_autoptr(LaminaConstruction) b = NULL;
+  g_autoptr(LaminaCatalogue) cat = NULL;
+  g_autoptr(LaminaImportReport) report = NULL;
+  g_autoptr(LaminaClimate) back = NULL;
+  g_autoptr(GPtrArray) list = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *first = NULL;
+  g_autofree char *last = NULL;
+  g_autofree char *sql = NULL;
+  sqlite3 *db = NULL;
+
+  g_assert_true (lamina_library_put_climate (library, cold, NULL));
+  a = make_checked_wall (library, "cold", 3);
+  first = lamina_library_create_construction (library, a, NULL, &error);
+  g_assert_no_error (error);
+  b = make_checked_wall (library, "cold", 2);
+  g_free (b->code);
+  b->code = g_strdup ("EW-N");
+  last = lamina_library_create_construction (library, b, NULL, &error);
+  g_assert_no_error (error);
+  cat = lamina_library_export (library, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (cat->climates->len, ==, 1);
+  g_assert_cmpuint (cat->constructions->len, ==, 2);
+  g_assert_cmpstr (((LaminaConstruction *) cat->constructions->pdata[1])->id, ==, last);
+
+  g_clear_object (&other);
+  other = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  g_clear_object (&other);
+  g_assert_cmpint (sqlite3_open (path, &db), ==, SQLITE_OK);
+  sql = g_strdup_printf ("CREATE TRIGGER refuse_last BEFORE INSERT ON revision"
+                         " WHEN NEW.construction_id = '%s'"
+                         " BEGIN SELECT RAISE (ABORT, 'refused by the test'); END;", last);
+  g_assert_cmpint (sqlite3_exec (db, sql, NULL, NULL, NULL), ==, SQLITE_OK);
+  sqlite3_close (db);
+
+  other = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  report = lamina_library_import (other, cat, LAMINA_IMPORT_DEFAULT, NULL, &error);
+  g_assert_null (report);
+  /* the constraint the trigger raises reads as a refused value */
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "the library is unchanged"));
+  g_clear_error (&error);
+  back = lamina_library_dup_climate (other, "cold", &error);
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+  g_assert_null (back);
+  g_clear_error (&error);
+  list = lamina_library_list_climates (other, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (list->len, ==, 0);
+  g_assert_null (lamina_library_dup_construction (other, first, 0, NULL));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -242,5 +311,7 @@ main (int argc, char **argv)
   g_test_add_func ("/store/moisture/construction-carries-climate", test_construction_carries_climate);
   g_test_add_func ("/store/moisture/flags-and-filter", test_flags_and_filter);
   g_test_add_func ("/store/moisture/export-import", test_export_import);
+  g_test_add_func ("/store/moisture/failed-import-leaves-no-climate",
+                   test_failed_import_leaves_no_climate);
   return g_test_run ();
 }
