@@ -37,6 +37,7 @@ struct _LaminaJobsPage
   LaminaJobReport *report;        /* the selected job, checked */
   GSettings       *settings;
   gboolean         filling;
+  int              print_entry;   /* what the open chooser exports: 0 the set, else entry n */
 };
 
 G_DEFINE_FINAL_TYPE (LaminaJobsPage, lamina_jobs_page, GTK_TYPE_BOX)
@@ -590,7 +591,7 @@ on_print_response_cb (GtkNativeDialog *dialog,
                       int              response,
                       LaminaJobsPage  *self)
 {
-  int n = GPOINTER_TO_INT (g_object_get_data (G_OBJECT (dialog), "lamina-entry"));
+  int n = self->print_entry;
 
   if (response == GTK_RESPONSE_ACCEPT && self->report != NULL)
     {
@@ -628,7 +629,7 @@ choose_pdf (LaminaJobsPage *self,
                                          GTK_FILE_CHOOSER_ACTION_SAVE, _("_Export"), _("_Cancel"));
   gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (chooser), suggested);
   gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
-  g_object_set_data (G_OBJECT (chooser), "lamina-entry", GINT_TO_POINTER (n));
+  self->print_entry = n;
   g_signal_connect (chooser, "response", G_CALLBACK (on_print_response_cb), g_object_ref (self));
   gtk_native_dialog_show (GTK_NATIVE_DIALOG (chooser));
 }

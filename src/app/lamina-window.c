@@ -10,6 +10,7 @@
 #include <math.h>
 
 #include "lamina-construction-item.h"
+#include "lamina-library-row.h"
 #include "lamina-number.h"
 #include "lamina-text.h"
 
@@ -17,55 +18,12 @@ G_DEFINE_FINAL_TYPE (LaminaWindow, lamina_window, GTK_TYPE_APPLICATION_WINDOW)
 
 /* List rows */
 
-typedef struct
-{
-  GtkLabel *code;
-  GtkLabel *name;
-  GtkLabel *detail;
-  GtkLabel *u;
-  GtkLabel *status;
-} RowWidgets;
-
 static void
 on_row_setup_cb (GtkSignalListItemFactory *factory,
                  GtkListItem              *item,
                  LaminaWindow             *self)
 {
-  RowWidgets *w = g_new0 (RowWidgets, 1);
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10);
-  GtkWidget *left = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
-  GtkWidget *right = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
-  GtkWidget *top = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
-
-  w->code = GTK_LABEL (gtk_label_new (NULL));
-  w->name = GTK_LABEL (gtk_label_new (NULL));
-  w->detail = GTK_LABEL (gtk_label_new (NULL));
-  w->u = GTK_LABEL (gtk_label_new (NULL));
-  w->status = GTK_LABEL (gtk_label_new (NULL));
-  gtk_widget_add_css_class (GTK_WIDGET (w->code), "lamina-row-code");
-  gtk_label_set_ellipsize (w->name, PANGO_ELLIPSIZE_END);
-  gtk_label_set_xalign (w->name, 0);
-  gtk_widget_set_hexpand (GTK_WIDGET (w->name), TRUE);
-  gtk_label_set_xalign (w->detail, 0);
-  gtk_widget_add_css_class (GTK_WIDGET (w->detail), "dim-label");
-  gtk_widget_add_css_class (GTK_WIDGET (w->detail), "caption");
-  gtk_label_set_xalign (w->u, 1);
-  gtk_widget_add_css_class (GTK_WIDGET (w->u), "lamina-row-u");
-  gtk_widget_add_css_class (GTK_WIDGET (w->status), "lamina-status");
-  gtk_widget_set_halign (GTK_WIDGET (w->status), GTK_ALIGN_END);
-
-  gtk_box_append (GTK_BOX (top), GTK_WIDGET (w->code));
-  gtk_box_append (GTK_BOX (top), GTK_WIDGET (w->name));
-  gtk_box_append (GTK_BOX (left), top);
-  gtk_box_append (GTK_BOX (left), GTK_WIDGET (w->detail));
-  gtk_widget_set_hexpand (left, TRUE);
-  gtk_box_append (GTK_BOX (right), GTK_WIDGET (w->u));
-  gtk_box_append (GTK_BOX (right), GTK_WIDGET (w->status));
-  gtk_box_append (GTK_BOX (box), left);
-  gtk_box_append (GTK_BOX (box), right);
-  gtk_widget_add_css_class (box, "lamina-library-row");
-  gtk_list_item_set_child (item, box);
-  g_object_set_data_full (G_OBJECT (item), "lamina-row", w, g_free);
+  gtk_list_item_set_child (item, lamina_library_row_new ());
 }
 
 static void
@@ -73,45 +31,11 @@ on_row_bind_cb (GtkSignalListItemFactory *factory,
                 GtkListItem              *item,
                 LaminaWindow             *self)
 {
-  static const char *status_classes[] = { "draft", "checked", "approved" };
-  RowWidgets *w = g_object_get_data (G_OBJECT (item), "lamina-row");
   LaminaConstructionItem *row = gtk_list_item_get_item (item);
-  const LaminaSummary *s;
-  char u[LAMINA_U_TEXT_SIZE];
-  g_autofree char *u_text = NULL;
-  g_autofree char *mm = NULL;
-  g_autofree char *detail = NULL;
-  g_autofree char *accessible = NULL;
-  GtkWidget *child = gtk_list_item_get_child (item);
 
-  if (row == NULL)
-    return;
-  s = lamina_construction_item_get_summary (row);
-  lamina_format_u (u, s->u_corrected);
-  u_text = g_strdup_printf ("U %s", u);
-  mm = lamina_text_mm (s->thickness);
-  detail = g_strdup_printf ("%s · %s%s", lamina_text_element_name (s->element), mm,
-                            (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _(" · material data changed") : "");
-  gtk_label_set_text (w->code, s->code ? s->code : "—");
-  gtk_label_set_text (w->name, s->name);
-  gtk_label_set_text (w->detail, detail);
-  gtk_label_set_text (w->u, u_text);
-  gtk_label_set_text (w->status, lamina_text_status_name (s->status));
-  for (guint i = 0; i < G_N_ELEMENTS (status_classes); i++)
-    gtk_widget_remove_css_class (GTK_WIDGET (w->status), status_classes[i]);
-  gtk_widget_add_css_class (GTK_WIDGET (w->status), status_classes[s->status % 3]);
-  if (s->flags & LAMINA_SUMMARY_TARGET_NOT_MET)
-    gtk_widget_add_css_class (GTK_WIDGET (w->u), "not-met");
-  else
-    gtk_widget_remove_css_class (GTK_WIDGET (w->u), "not-met");
-  if (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED)
-    gtk_widget_add_css_class (GTK_WIDGET (w->detail), "lamina-warning");
-  else
-    gtk_widget_remove_css_class (GTK_WIDGET (w->detail), "lamina-warning");
-
-  accessible = g_strdup_printf ("%s %s, %s, U %s, %s", s->code ? s->code : "", s->name,
-                                detail, u, lamina_text_status_name (s->status));
-  gtk_accessible_update_property (GTK_ACCESSIBLE (child), GTK_ACCESSIBLE_PROPERTY_LABEL, accessible, -1);
+  if (row != NULL)
+    lamina_library_row_set_summary (LAMINA_LIBRARY_ROW (gtk_list_item_get_child (item)),
+                                    lamina_construction_item_get_summary (row));
 }
 
 /* Selection */
@@ -337,23 +261,22 @@ read_u_bound (GtkEntry *entry,
 }
 
 static void
-on_chip_clicked_cb (GtkButton    *chip,
-                    LaminaWindow *self)
+on_u_chip_clicked_cb (LaminaWindow *self)
 {
-  const char *which = g_object_get_data (G_OBJECT (chip), "lamina-filter");
-
-  if (g_strcmp0 (which, "u") == 0)
-    {
-      gtk_editable_set_text (GTK_EDITABLE (self->min_u_entry), "");
-      gtk_editable_set_text (GTK_EDITABLE (self->max_u_entry), "");
-    }
-  else if (g_strcmp0 (which, "tag") == 0)
-    gtk_drop_down_set_selected (self->tag_filter, 0);
+  gtk_editable_set_text (GTK_EDITABLE (self->min_u_entry), "");
+  gtk_editable_set_text (GTK_EDITABLE (self->max_u_entry), "");
 }
 
 static void
+on_tag_chip_clicked_cb (LaminaWindow *self)
+{
+  gtk_drop_down_set_selected (self->tag_filter, 0);
+}
+
+/* A chip that says @text and clears its filter by @clear_cb. */
+static void
 add_chip (LaminaWindow *self,
-          const char   *which,
+          GCallback     clear_cb,
           const char   *text)
 {
   GtkWidget *chip = gtk_button_new ();
@@ -366,8 +289,7 @@ add_chip (LaminaWindow *self,
   gtk_widget_set_tooltip_text (chip, tooltip);
   gtk_widget_add_css_class (chip, "lamina-filter-chip");
   gtk_widget_add_css_class (chip, "pill");
-  g_object_set_data_full (G_OBJECT (chip), "lamina-filter", g_strdup (which), g_free);
-  g_signal_connect_object (chip, "clicked", G_CALLBACK (on_chip_clicked_cb), self, 0);
+  g_signal_connect_object (chip, "clicked", clear_cb, self, G_CONNECT_SWAPPED);
   gtk_flow_box_append (self->filter_chips, chip);
 }
 
@@ -391,13 +313,13 @@ update_chips (LaminaWindow *self,
                               : lo ? g_strdup_printf (_("U ≥ %s W/(m²·K)"), lo)
                               : g_strdup_printf (_("U ≤ %s W/(m²·K)"), hi);
 
-      add_chip (self, "u", text);
+      add_chip (self, G_CALLBACK (on_u_chip_clicked_cb), text);
     }
   if (tag > 0 && tag != GTK_INVALID_LIST_POSITION && self->tags != NULL && tag <= self->tags->len)
     {
       g_autofree char *text = g_strdup_printf (_("Tag: %s"), (const char *) g_ptr_array_index (self->tags, tag - 1));
 
-      add_chip (self, "tag", text);
+      add_chip (self, G_CALLBACK (on_tag_chip_clicked_cb), text);
     }
   gtk_widget_set_visible (GTK_WIDGET (self->filter_chips),
                           gtk_widget_get_first_child (GTK_WIDGET (self->filter_chips)) != NULL);
