@@ -41,6 +41,7 @@ static const Command commands[] = {
   { "compare", lamina_cli_compare, N_("Two build-ups side by side, as a table or a one-page PDF") },
   { "policy", lamina_cli_policy, N_("Show or set the library's review policy (four eyes or single reviewer)") },
   { "withdraw", lamina_cli_withdraw, N_("Withdraw the approval of a construction, with a reason") },
+  { "copy", lamina_cli_copy, N_("Copy a whole library with its history into an empty one (a file or a server)") },
 };
 
 FILE *

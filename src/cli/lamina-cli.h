@@ -56,6 +56,8 @@ int  lamina_cli_job       (const LaminaCliGlobals *globals, int argc, char **arg
 /* The 2-D check (lamina-cli-field.c). */
 int  lamina_cli_field     (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_compare   (const LaminaCliGlobals *globals, int argc, char **argv);
+/* lamina-cli-copy.c */
+int  lamina_cli_copy      (const LaminaCliGlobals *globals, int argc, char **argv);
 
 /* Where to say what was written: stdout, or stderr when the output
  * itself goes to stdout ("-o -"). */

@@ -54,6 +54,62 @@ typedef struct
   const char      *reason;
 } LaminaBackendReview;
 
+/* Moving a whole library (lamina-library-copy.c): everything a library
+ * stores, as stored, so that a copy keeps every revision with its
+ * number, people, dates, figures and review records. */
+typedef struct
+{
+  int                 revision;
+  LaminaStatus        status;
+  char               *body;          /* as stored (lamina-store-json.h) */
+  double              u;             /* the stored figures; NAN: none */
+  double              u_corrected;
+  double              r_total;
+  double              thickness;
+  char               *calc_error;
+  char               *modified_by;
+  char               *modified_at;
+  char               *checked_by;
+  char               *checked_at;
+  char               *approved_by;
+  char               *approved_at;
+  char               *comment;
+  char               *field_check;    /* the body of its 2-D check, or NULL */
+  char               *field_check_at;
+  /* Filled by the front end before write_all: @body parsed (id and
+   * revision set), for the target's tags, material and search indexes. */
+  LaminaConstruction *construction;
+} LaminaBackendRecordRevision;
+
+typedef struct
+{
+  char       *id;
+  char       *deleted_at;        /* NULL while live */
+  int         flags;             /* LaminaSummaryFlags as stored */
+  gboolean    material_changed;  /* as stored */
+  GPtrArray  *revisions;         /* LaminaBackendRecordRevision*, oldest first */
+  GPtrArray  *review_events;     /* LaminaReviewEvent*, oldest first */
+} LaminaBackendRecord;
+
+typedef struct
+{
+  GPtrArray *settings;          /* char*: key, value, key, value, … */
+  GPtrArray *materials;         /* LaminaMaterial* */
+  GPtrArray *material_times;    /* char*: modified_at of each material */
+  GPtrArray *climates;          /* LaminaClimate* */
+  GPtrArray *climate_times;     /* char* */
+  GPtrArray *target_sets;       /* LaminaTargetSet* */
+  GPtrArray *target_set_times;  /* char* (may hold NULL) */
+  GPtrArray *jobs;              /* LaminaJob* (with their modified_at) */
+  GPtrArray *constructions;     /* LaminaBackendRecord*, in order of creation */
+} LaminaBackendDump;
+
+/* lamina-library-copy.c */
+LaminaBackendDump           *lamina_backend_dump_new            (void);
+void                         lamina_backend_dump_free           (LaminaBackendDump *dump);
+LaminaBackendRecord         *lamina_backend_record_new          (const char *id);
+LaminaBackendRecordRevision *lamina_backend_record_revision_new (void);
+
 typedef struct
 {
   void                (*close)              (LaminaBackend *backend);
@@ -149,6 +205,19 @@ typedef struct
   gboolean            (*put_climate)        (LaminaBackend *backend,
                                              const LaminaClimate *climate,
                                              const char *now, GError **error);
+
+  /* Moving a whole library (lamina-library-copy.c).  read_all: everything
+   * stored, read in one consistent snapshot.  write_all: @dump into this
+   * library in one transaction, all or nothing; refused with EXISTS
+   * (nothing written) unless the library holds no construction, review
+   * record, job or target set.  Its materials, climates and settings are
+   * replaced by the dump's (a new library starts with the seed's).
+   * Revisions keep their numbers, people, dates, figures and comments.
+   * NULL where a backend cannot: the copy says "not supported". */
+  LaminaBackendDump  *(*read_all)           (LaminaBackend *backend, GError **error);
+  gboolean            (*write_all)          (LaminaBackend *backend,
+                                             const LaminaBackendDump *dump,
+                                             GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend

@@ -115,6 +115,8 @@ static const LaminaBackendVTable sqlite_vtable = {
   .list_climates = lamina_sqlite_backend_list_climates,
   .get_climate = lamina_sqlite_backend_get_climate,
   .put_climate = lamina_sqlite_backend_put_climate,
+  .read_all = lamina_sqlite_backend_read_all,
+  .write_all = lamina_sqlite_backend_write_all,
 };
 
 static LaminaSqlite *

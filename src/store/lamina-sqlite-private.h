@@ -213,6 +213,27 @@ gboolean      lamina_sqlite_put_material (LaminaSqlite          *self,
                                           const char            *now,
                                           GError               **error);
 
+/* lamina-sqlite-revisions.c, for lamina-sqlite-copy.c (inside the
+ * caller's transaction): the indexes of one stored revision of the
+ * construction row @num, and the staged search rows. */
+gboolean      lamina_sqlite_index_revision     (LaminaSqlite              *self,
+                                                const LaminaConstruction  *c,
+                                                gint64                     num,
+                                                GError                   **error);
+/* One revision row as given (the stored figures, people and dates). */
+gboolean      lamina_sqlite_insert_revision    (LaminaSqlite                       *self,
+                                                const char                         *id,
+                                                const LaminaBackendRecordRevision  *row,
+                                                GError                            **error);
+gboolean      lamina_sqlite_flush_search_index (LaminaSqlite              *self,
+                                                GError                   **error);
+/* lamina-sqlite-copy.c */
+LaminaBackendDump *lamina_sqlite_backend_read_all  (LaminaBackend            *backend,
+                                                    GError                  **error);
+gboolean           lamina_sqlite_backend_write_all (LaminaBackend            *backend,
+                                                    const LaminaBackendDump  *dump,
+                                                    GError                  **error);
+
 /* For tests: creates a library file at schema @version (1 …) without
  * seeding, so migrations can be tested from every earlier schema. */
 gboolean      lamina_sqlite_create_at_version (const char *path,

@@ -317,6 +317,33 @@ insert_revision_row (LaminaSqlite                 *self,
   const LaminaConstruction *c = rev->construction;
   const LaminaResult *r = rev->result;
   g_autofree char *body = lamina_store_construction_to_json (c);
+  LaminaBackendRecordRevision row = {
+    .revision = c->revision,
+    .status = c->status,
+    .body = body,
+    .u = r ? r->u : NAN,
+    .u_corrected = r ? r->u_corrected : NAN,
+    .r_total = r ? r->r_total : NAN,
+    .thickness = lamina_construction_get_thickness (c),
+    .calc_error = (char *) rev->calc_error,
+    .modified_by = c->modified_by,
+    .modified_at = c->modified_at,
+    .checked_by = c->checked_by,
+    .checked_at = c->checked_at,
+    .approved_by = c->approved_by,
+    .approved_at = c->approved_at,
+    .comment = (char *) rev->comment,
+  };
+
+  return lamina_sqlite_insert_revision (self, c->id, &row, error);
+}
+
+gboolean
+lamina_sqlite_insert_revision (LaminaSqlite                       *self,
+                               const char                         *id,
+                               const LaminaBackendRecordRevision  *row,
+                               GError                            **error)
+{
   sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "INSERT INTO revision (construction_id, revision, status, body, u, u_corrected,"
     "   r_total, thickness, calc_error, modified_by, modified_at, checked_by,"
@@ -326,22 +353,22 @@ insert_revision_row (LaminaSqlite                 *self,
 
   if (stmt == NULL)
     return FALSE;
-  lamina_sqlite_bind_text (stmt, 1, c->id);
-  sqlite3_bind_int (stmt, 2, c->revision);
-  lamina_sqlite_bind_text (stmt, 3, lamina_status_to_string (c->status));
-  lamina_sqlite_bind_text (stmt, 4, body);
-  lamina_sqlite_bind_double (stmt, 5, r ? r->u : NAN);
-  lamina_sqlite_bind_double (stmt, 6, r ? r->u_corrected : NAN);
-  lamina_sqlite_bind_double (stmt, 7, r ? r->r_total : NAN);
-  lamina_sqlite_bind_double (stmt, 8, lamina_construction_get_thickness (c));
-  lamina_sqlite_bind_text (stmt, 9, rev->calc_error);
-  lamina_sqlite_bind_text (stmt, 10, c->modified_by);
-  lamina_sqlite_bind_text (stmt, 11, c->modified_at);
-  lamina_sqlite_bind_text (stmt, 12, c->checked_by);
-  lamina_sqlite_bind_text (stmt, 13, c->checked_at);
-  lamina_sqlite_bind_text (stmt, 14, c->approved_by);
-  lamina_sqlite_bind_text (stmt, 15, c->approved_at);
-  lamina_sqlite_bind_text (stmt, 16, rev->comment);
+  lamina_sqlite_bind_text (stmt, 1, id);
+  sqlite3_bind_int (stmt, 2, row->revision);
+  lamina_sqlite_bind_text (stmt, 3, lamina_status_to_string (row->status));
+  lamina_sqlite_bind_text (stmt, 4, row->body);
+  lamina_sqlite_bind_double (stmt, 5, row->u);
+  lamina_sqlite_bind_double (stmt, 6, row->u_corrected);
+  lamina_sqlite_bind_double (stmt, 7, row->r_total);
+  lamina_sqlite_bind_double (stmt, 8, row->thickness);
+  lamina_sqlite_bind_text (stmt, 9, row->calc_error);
+  lamina_sqlite_bind_text (stmt, 10, row->modified_by);
+  lamina_sqlite_bind_text (stmt, 11, row->modified_at);
+  lamina_sqlite_bind_text (stmt, 12, row->checked_by);
+  lamina_sqlite_bind_text (stmt, 13, row->checked_at);
+  lamina_sqlite_bind_text (stmt, 14, row->approved_by);
+  lamina_sqlite_bind_text (stmt, 15, row->approved_at);
+  lamina_sqlite_bind_text (stmt, 16, row->comment);
   return lamina_sqlite_step_done (self, stmt, error);
 }
 
@@ -542,3 +569,21 @@ lamina_sqlite_backend_list_ids (LaminaBackend  *backend,
   return g_steal_pointer (&ids);
 }
 
+
+/* For lamina-sqlite-copy.c: a copied revision's material fingerprints,
+ * the construction's tags and its staged search row, and the flush. */
+gboolean
+lamina_sqlite_index_revision (LaminaSqlite              *self,
+                              const LaminaConstruction  *c,
+                              gint64                     num,
+                              GError                   **error)
+{
+  return store_tags_and_materials (self, c, num, error);
+}
+
+gboolean
+lamina_sqlite_flush_search_index (LaminaSqlite  *self,
+                                  GError       **error)
+{
+  return flush_search_index (self, error);
+}
