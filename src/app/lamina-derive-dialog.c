@@ -7,171 +7,142 @@
 
 #include "config.h"
 
-#include "lamina-derive-dialog.h"
+#include "lamina-derive-dialog-private.h"
 
 #include <glib/gi18n.h>
 
-typedef struct
-{
-  GtkWindow        *window;       /* borrowed: owns this struct */
-  GtkWindow        *parent;       /* owned */
-  LaminaLibrary    *library;      /* owned */
-  char             *id;
-  char             *author;
-  LaminaDeriveDone  done;
-  GtkCheckButton   *description;
-  GtkCheckButton   *notes;
-  GPtrArray        *tags;         /* GtkCheckButton*, borrowed; tag name as data */
-} DeriveDialog;
+G_DEFINE_FINAL_TYPE (LaminaDeriveDialog, lamina_derive_dialog, GTK_TYPE_WINDOW)
 
 static void
-derive_dialog_free (DeriveDialog *d)
+on_derive_clicked_cb (LaminaDeriveDialog *self)
 {
-  g_clear_object (&d->parent);
-  g_clear_object (&d->library);
-  g_free (d->id);
-  g_free (d->author);
-  g_ptr_array_unref (d->tags);
-  g_free (d);
-}
-
-static DeriveDialog *
-get_dialog (GtkWindow *window)
-{
-  return g_object_get_data (G_OBJECT (window), "lamina-derive-dialog");
-}
-
-void
-lamina_derive_dialog_accept (GtkWindow *window)
-{
-  DeriveDialog *d = get_dialog (window);
   g_autoptr(GPtrArray) keep = g_ptr_array_new ();
   g_autoptr(GError) error = NULL;
   g_autofree char *id = NULL;
 
-  g_return_if_fail (d != NULL);
-  for (guint i = 0; i < d->tags->len; i++)
-    if (gtk_check_button_get_active (d->tags->pdata[i]))
-      g_ptr_array_add (keep, g_object_get_data (d->tags->pdata[i], "lamina-tag"));
+  for (guint i = 0; i < self->tag_checks->len; i++)
+    if (gtk_check_button_get_active (self->tag_checks->pdata[i]))
+      g_ptr_array_add (keep, self->tags->pdata[i]);
   g_ptr_array_add (keep, NULL);
-  id = lamina_library_derive_for_job (d->library, d->id,
-                                      gtk_check_button_get_active (d->description),
-                                      gtk_check_button_get_active (d->notes),
-                                      (const char * const *) keep->pdata, d->author, &error);
-  d->done (d->parent, id, error);
-  gtk_window_destroy (window);
+  id = lamina_library_derive_for_job (self->library, self->id,
+                                      gtk_check_button_get_active (self->description),
+                                      gtk_check_button_get_active (self->notes),
+                                      (const char * const *) keep->pdata, self->author, &error);
+  self->done (self->parent, id, error);
+  gtk_window_destroy (GTK_WINDOW (self));
 }
 
-GtkCheckButton *
-lamina_derive_dialog_get_check (GtkWindow  *window,
-                                const char *what)
+static void
+on_cancel_clicked_cb (LaminaDeriveDialog *self)
 {
-  DeriveDialog *d = get_dialog (window);
-
-  g_return_val_if_fail (d != NULL, NULL);
-  if (g_str_equal (what, "description"))
-    return d->description;
-  if (g_str_equal (what, "notes"))
-    return d->notes;
-  for (guint i = 0; i < d->tags->len; i++)
-    if (g_strcmp0 (g_object_get_data (d->tags->pdata[i], "lamina-tag"), what) == 0)
-      return d->tags->pdata[i];
-  return NULL;
+  gtk_window_destroy (GTK_WINDOW (self));
 }
 
-static GtkCheckButton *
-add_check (GtkWidget  *box,
-           const char *label,
-           const char *detail,
-           gboolean    active)
+/* A choice that says what it keeps: its text as the tooltip, and
+ * insensitive when there is nothing to keep. */
+static void
+show_choice (GtkCheckButton *check,
+             const char     *text)
 {
-  GtkWidget *check = gtk_check_button_new_with_mnemonic (label);
+  gboolean some = text != NULL && *text != '\0';
 
-  gtk_check_button_set_active (GTK_CHECK_BUTTON (check), active);
-  if (detail != NULL && *detail != '\0')
-    gtk_widget_set_tooltip_text (check, detail);
-  gtk_box_append (GTK_BOX (box), check);
-  return GTK_CHECK_BUTTON (check);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (check), some ? text : NULL);
+  gtk_widget_set_sensitive (GTK_WIDGET (check), some);
 }
 
-static GtkWidget *
-add_heading (GtkWidget  *box,
-             const char *text)
+static void
+show_construction (LaminaDeriveDialog       *self,
+                   const LaminaConstruction *c)
 {
-  GtkWidget *label = gtk_label_new (text);
+  g_autofree char *intro = g_strdup_printf (_("A new draft from %s, without its code, for a new job. Keep:"),
+                                            c->code ? c->code : c->name);
 
-  gtk_label_set_xalign (GTK_LABEL (label), 0);
-  gtk_label_set_wrap (GTK_LABEL (label), TRUE);
-  gtk_label_set_max_width_chars (GTK_LABEL (label), 48);
-  gtk_box_append (GTK_BOX (box), label);
-  return label;
+  gtk_label_set_text (self->intro, intro);
+  show_choice (self->description, c->description);
+  show_choice (self->notes, c->notes);
+  for (guint i = 0; i < c->tags->len; i++)
+    {
+      GtkWidget *check = gtk_check_button_new_with_label (c->tags->pdata[i]);
+
+      gtk_check_button_set_active (GTK_CHECK_BUTTON (check), TRUE);
+      gtk_flow_box_append (self->tag_box, check);
+      g_ptr_array_add (self->tags, g_strdup (c->tags->pdata[i]));
+      g_ptr_array_add (self->tag_checks, check);
+    }
+  gtk_widget_set_visible (GTK_WIDGET (self->tags_heading), c->tags->len > 0);
+  gtk_widget_set_visible (GTK_WIDGET (self->tag_box), c->tags->len > 0);
 }
 
-GtkWindow *
+LaminaDeriveDialog *
 lamina_derive_dialog_present (GtkWindow                *parent,
                               LaminaLibrary            *library,
                               const LaminaConstruction *c,
                               const char               *author,
                               LaminaDeriveDone          done)
 {
-  DeriveDialog *d = g_new0 (DeriveDialog, 1);
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 8);
-  GtkWidget *buttons = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-  GtkWidget *cancel = gtk_button_new_with_mnemonic (_("_Cancel"));
-  GtkWidget *derive = gtk_button_new_with_mnemonic (_("_Derive"));
-  g_autofree char *intro = g_strdup_printf (_("A new draft from %s, without its code, for a new job. Keep:"),
-                                            c->code ? c->code : c->name);
+  LaminaDeriveDialog *self;
 
-  d->window = GTK_WINDOW (gtk_window_new ());
-  d->parent = g_object_ref (parent);
-  d->library = g_object_ref (library);
-  d->id = g_strdup (c->id);
-  d->author = g_strdup (author);
-  d->done = done;
-  d->tags = g_ptr_array_new ();
-  g_object_set_data_full (G_OBJECT (d->window), "lamina-derive-dialog", d, (GDestroyNotify) derive_dialog_free);
+  g_return_val_if_fail (GTK_IS_WINDOW (parent), NULL);
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (library), NULL);
+  g_return_val_if_fail (c != NULL && done != NULL, NULL);
 
-  gtk_window_set_title (d->window, _("Derive for a New Job"));
-  gtk_window_set_modal (d->window, TRUE);
-  gtk_window_set_resizable (d->window, FALSE);
-  gtk_window_set_transient_for (d->window, parent);
-  gtk_window_set_destroy_with_parent (d->window, TRUE);
-  g_object_set (box, "margin-start", 18, "margin-end", 18, "margin-top", 18, "margin-bottom", 18, NULL);
+  self = g_object_new (LAMINA_TYPE_DERIVE_DIALOG, "transient-for", parent, NULL);
+  self->parent = g_object_ref (parent);
+  self->library = g_object_ref (library);
+  self->id = g_strdup (c->id);
+  self->author = g_strdup (author);
+  self->done = done;
+  show_construction (self, c);
+  gtk_window_present (GTK_WINDOW (self));
+  return self;
+}
 
-  add_heading (box, intro);
-  d->description = add_check (box, _("The _description"), c->description, FALSE);
-  gtk_widget_set_sensitive (GTK_WIDGET (d->description), c->description != NULL && *c->description != '\0');
-  d->notes = add_check (box, _("The _notes"), c->notes, FALSE);
-  gtk_widget_set_sensitive (GTK_WIDGET (d->notes), c->notes != NULL && *c->notes != '\0');
-  if (c->tags->len > 0)
-    {
-      GtkWidget *tags = gtk_flow_box_new ();
+static void
+lamina_derive_dialog_dispose (GObject *object)
+{
+  LaminaDeriveDialog *self = LAMINA_DERIVE_DIALOG (object);
 
-      gtk_widget_add_css_class (add_heading (box, _("Tags (untick a project's own)")), "dim-label");
-      gtk_flow_box_set_selection_mode (GTK_FLOW_BOX (tags), GTK_SELECTION_NONE);
-      gtk_flow_box_set_max_children_per_line (GTK_FLOW_BOX (tags), 3);
-      for (guint i = 0; i < c->tags->len; i++)
-        {
-          GtkWidget *check = gtk_check_button_new_with_label (c->tags->pdata[i]);
+  g_clear_object (&self->parent);
+  g_clear_object (&self->library);
+  G_OBJECT_CLASS (lamina_derive_dialog_parent_class)->dispose (object);
+}
 
-          gtk_check_button_set_active (GTK_CHECK_BUTTON (check), TRUE);
-          g_object_set_data_full (G_OBJECT (check), "lamina-tag", g_strdup (c->tags->pdata[i]), g_free);
-          gtk_flow_box_append (GTK_FLOW_BOX (tags), check);
-          g_ptr_array_add (d->tags, check);
-        }
-      gtk_box_append (GTK_BOX (box), tags);
-    }
+static void
+lamina_derive_dialog_finalize (GObject *object)
+{
+  LaminaDeriveDialog *self = LAMINA_DERIVE_DIALOG (object);
 
-  gtk_widget_set_halign (buttons, GTK_ALIGN_END);
-  gtk_widget_set_margin_top (buttons, 6);
-  gtk_widget_add_css_class (derive, "suggested-action");
-  gtk_box_append (GTK_BOX (buttons), cancel);
-  gtk_box_append (GTK_BOX (buttons), derive);
-  gtk_box_append (GTK_BOX (box), buttons);
-  gtk_window_set_child (d->window, box);
-  gtk_window_set_default_widget (d->window, derive);
-  g_signal_connect_swapped (derive, "clicked", G_CALLBACK (lamina_derive_dialog_accept), d->window);
-  g_signal_connect_swapped (cancel, "clicked", G_CALLBACK (gtk_window_destroy), d->window);
-  gtk_window_present (d->window);
-  return d->window;
+  g_free (self->id);
+  g_free (self->author);
+  g_ptr_array_unref (self->tags);
+  g_ptr_array_unref (self->tag_checks);
+  G_OBJECT_CLASS (lamina_derive_dialog_parent_class)->finalize (object);
+}
+
+static void
+lamina_derive_dialog_class_init (LaminaDeriveDialogClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  object_class->dispose = lamina_derive_dialog_dispose;
+  object_class->finalize = lamina_derive_dialog_finalize;
+
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-derive-dialog.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaDeriveDialog, intro);
+  gtk_widget_class_bind_template_child (widget_class, LaminaDeriveDialog, description);
+  gtk_widget_class_bind_template_child (widget_class, LaminaDeriveDialog, notes);
+  gtk_widget_class_bind_template_child (widget_class, LaminaDeriveDialog, tags_heading);
+  gtk_widget_class_bind_template_child (widget_class, LaminaDeriveDialog, tag_box);
+  gtk_widget_class_bind_template_child (widget_class, LaminaDeriveDialog, derive_button);
+  gtk_widget_class_bind_template_callback (widget_class, on_derive_clicked_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_cancel_clicked_cb);
+}
+
+static void
+lamina_derive_dialog_init (LaminaDeriveDialog *self)
+{
+  self->tags = g_ptr_array_new_with_free_func (g_free);
+  self->tag_checks = g_ptr_array_new ();
+  gtk_widget_init_template (GTK_WIDGET (self));
 }

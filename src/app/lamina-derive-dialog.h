@@ -9,6 +9,9 @@
 
 G_BEGIN_DECLS
 
+#define LAMINA_TYPE_DERIVE_DIALOG (lamina_derive_dialog_get_type ())
+G_DECLARE_FINAL_TYPE (LaminaDeriveDialog, lamina_derive_dialog, LAMINA, DERIVE_DIALOG, GtkWindow)
+
 /* Called with the id of the new draft, or NULL and an error. */
 typedef void (*LaminaDeriveDone) (GtkWindow   *parent,
                                   const char  *id,
@@ -17,14 +20,10 @@ typedef void (*LaminaDeriveDone) (GtkWindow   *parent,
 /* Asks which of @c's description, notes and tags the copy for the new
  * job keeps (by default: no description, no notes, every tag), then
  * derives it in @library. */
-GtkWindow *lamina_derive_dialog_present (GtkWindow                *parent,
-                                         LaminaLibrary            *library,
-                                         const LaminaConstruction *c,
-                                         const char               *author,
-                                         LaminaDeriveDone          done);
-/* For tests: the dialog's choices and its Derive button. */
-GtkCheckButton *lamina_derive_dialog_get_check  (GtkWindow  *dialog,
-                                                 const char *what);
-void            lamina_derive_dialog_accept     (GtkWindow  *dialog);
+LaminaDeriveDialog *lamina_derive_dialog_present (GtkWindow                *parent,
+                                                  LaminaLibrary            *library,
+                                                  const LaminaConstruction *c,
+                                                  const char               *author,
+                                                  LaminaDeriveDone          done);
 
 G_END_DECLS

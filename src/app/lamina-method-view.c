@@ -3,7 +3,7 @@
 
 #include "config.h"
 
-#include "lamina-method-view.h"
+#include "lamina-method-view-private.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -11,60 +11,7 @@
 #include "lamina-editor-state.h"
 #include "lamina-text.h"
 
-/* One numeric field of the form: its entry and where its value lives. */
-typedef enum
-{
-  NUM_AREA, NUM_PERIMETER, NUM_B_PRIME, NUM_WALL, NUM_SOIL_LAMBDA,
-  NUM_UNDERFLOOR_HEIGHT, NUM_VENT_AREA, NUM_UNDERFLOOR_WALL_U, NUM_GROUND_WIND, NUM_SHIELDING,
-  NUM_DEPTH, NUM_BASEMENT_WALL_R,
-  NUM_THICKNESS_MAX,
-  NUM_INNER_AREA, NUM_OUTER_AREA, NUM_OUTER_U, NUM_AIR_CHANGE, NUM_VOLUME,
-  NUM_WIND, NUM_EMISSIVITY_INSIDE, NUM_EMISSIVITY_OUTSIDE,
-  N_NUMS
-} NumField;
-
-struct _LaminaMethodView
-{
-  GtkWidget       parent_instance;
-
-  /* owned children */
-  GtkWidget      *scroller;
-  /* borrowed (inside the scroller) */
-  GtkCheckButton *on_ground;
-  GtkDropDown    *ground_kind;
-  GtkDropDown    *soil;
-  GtkEntry       *nums[N_NUMS];
-  GtkWidget      *suspended_rows[5 * 2];
-  GtkWidget      *basement_rows[2 * 2];
-  GtkWidget      *ground_grid;
-  GtkLabel       *ground_u;
-  GtkGrid        *ground_table;
-  GtkLabel       *table_u[LAMINA_GROUND_TABLE_ROWS];
-  GtkDropDown    *tapered_layer;
-  GtkStringList  *layer_names;
-  GtkDropDown    *taper;
-  GtkLabel       *taper_u;
-  GtkDropDown    *unheated;
-  GtkDropDown    *roof;
-  GtkWidget      *other_rows[5 * 2];
-  GtkCheckButton *air_profile;
-  GtkLabel       *error;
-
-  /* owned */
-  LaminaDocument *document;
-  gboolean        updating;
-};
-
 G_DEFINE_FINAL_TYPE (LaminaMethodView, lamina_method_view, GTK_TYPE_WIDGET)
-
-static const char *const num_names[N_NUMS] = {
-  "area", "perimeter", "b-prime", "wall-thickness", "soil-conductivity",
-  "underfloor-height", "vent-area", "underfloor-wall-u", "ground-wind-speed", "shielding-factor",
-  "depth", "basement-wall-resistance",
-  "thickness-max",
-  "inner-area", "outer-area", "outer-u", "air-change", "volume",
-  "wind-speed", "emissivity-inside", "emissivity-outside",
-};
 
 static const LaminaConstruction *
 get_state (LaminaMethodView *self)
@@ -669,38 +616,3 @@ lamina_method_view_update (LaminaMethodView         *self,
   self->updating = FALSE;
 }
 
-GtkWidget *
-lamina_method_view_get_field (LaminaMethodView *self,
-                              const char       *name)
-{
-  g_return_val_if_fail (LAMINA_IS_METHOD_VIEW (self), NULL);
-
-  for (guint i = 0; i < N_NUMS; i++)
-    if (g_strcmp0 (name, num_names[i]) == 0)
-      return GTK_WIDGET (self->nums[i]);
-  if (g_strcmp0 (name, "on-ground") == 0)
-    return GTK_WIDGET (self->on_ground);
-  if (g_strcmp0 (name, "ground-kind") == 0)
-    return GTK_WIDGET (self->ground_kind);
-  if (g_strcmp0 (name, "soil") == 0)
-    return GTK_WIDGET (self->soil);
-  if (g_strcmp0 (name, "ground-u") == 0)
-    return GTK_WIDGET (self->ground_u);
-  if (g_strcmp0 (name, "ground-table") == 0)
-    return GTK_WIDGET (self->ground_table);
-  if (g_strcmp0 (name, "tapered-layer") == 0)
-    return GTK_WIDGET (self->tapered_layer);
-  if (g_strcmp0 (name, "taper") == 0)
-    return GTK_WIDGET (self->taper);
-  if (g_strcmp0 (name, "taper-u") == 0)
-    return GTK_WIDGET (self->taper_u);
-  if (g_strcmp0 (name, "unheated") == 0)
-    return GTK_WIDGET (self->unheated);
-  if (g_strcmp0 (name, "roof") == 0)
-    return GTK_WIDGET (self->roof);
-  if (g_strcmp0 (name, "air-profile") == 0)
-    return GTK_WIDGET (self->air_profile);
-  if (g_strcmp0 (name, "error") == 0)
-    return GTK_WIDGET (self->error);
-  return NULL;
-}

@@ -20,12 +20,5 @@ void       lamina_method_view_set_document (LaminaMethodView         *self,
 void       lamina_method_view_update       (LaminaMethodView         *self,
                                             const LaminaConstruction *state,
                                             const LaminaResult       *result);
-/* A field by name, for tests: "on-ground", "ground-kind", "area",
- * "perimeter", "b-prime", "wall-thickness", "soil", "ground-u",
- * "ground-table", "tapered-layer", "taper", "thickness-max", "taper-u",
- * "unheated", "roof", "wind-speed", "emissivity-inside",
- * "emissivity-outside", "air-profile", "error". */
-GtkWidget *lamina_method_view_get_field    (LaminaMethodView         *self,
-                                            const char               *name);
 
 G_END_DECLS

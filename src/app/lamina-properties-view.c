@@ -3,7 +3,7 @@
 
 #include "config.h"
 
-#include "lamina-properties-view.h"
+#include "lamina-properties-view-private.h"
 
 #include <glib/gi18n.h>
 
@@ -13,33 +13,6 @@
 /* Typing in the notes is saved after this pause (and when focus leaves),
  * one undo step per stretch of typing. */
 #define NOTES_SAVE_DELAY_MS 800
-
-struct _LaminaPropertiesView
-{
-  GtkWidget       parent_instance;
-
-  /* template */
-  GtkWidget      *scroller;
-  GtkDropDown    *element_dropdown;
-  GtkDropDown    *heat_flow_dropdown;
-  GtkLabel       *surface_label;
-  GtkDropDown    *outer_side_dropdown;
-  GtkEntry       *description_entry;
-  GtkFlowBox     *tag_box;
-  GtkEntry       *tag_entry;
-  GtkLabel       *tag_error;
-  GtkTextView    *notes_view;
-  GtkLabel       *field_error;
-
-  /* owned */
-  LaminaDocument *document;
-  GtkStringList  *heat_flows;
-  GStrv           shown_tags;
-  guint           notes_timeout;
-  guint           notes_serial;
-  int             shown_element;
-  gboolean        updating;
-};
 
 G_DEFINE_FINAL_TYPE (LaminaPropertiesView, lamina_properties_view, GTK_TYPE_WIDGET)
 
@@ -385,29 +358,6 @@ lamina_properties_view_set_document (LaminaPropertiesView *self,
   show_error (self->tag_error, NULL);
   gtk_editable_set_text (GTK_EDITABLE (self->tag_entry), "");
   gtk_widget_remove_css_class (GTK_WIDGET (self->description_entry), "error");
-}
-
-GtkWidget *
-lamina_properties_view_get_field (LaminaPropertiesView *self,
-                                  const char           *name)
-{
-  const struct { const char *name; gsize offset; } fields[] = {
-    { "element", G_STRUCT_OFFSET (LaminaPropertiesView, element_dropdown) },
-    { "heat-flow", G_STRUCT_OFFSET (LaminaPropertiesView, heat_flow_dropdown) },
-    { "outer-side", G_STRUCT_OFFSET (LaminaPropertiesView, outer_side_dropdown) },
-    { "description", G_STRUCT_OFFSET (LaminaPropertiesView, description_entry) },
-    { "tag-entry", G_STRUCT_OFFSET (LaminaPropertiesView, tag_entry) },
-    { "notes", G_STRUCT_OFFSET (LaminaPropertiesView, notes_view) },
-    { "tag-error", G_STRUCT_OFFSET (LaminaPropertiesView, tag_error) },
-    { "field-error", G_STRUCT_OFFSET (LaminaPropertiesView, field_error) },
-  };
-
-  g_return_val_if_fail (LAMINA_IS_PROPERTIES_VIEW (self), NULL);
-
-  for (guint i = 0; i < G_N_ELEMENTS (fields); i++)
-    if (g_str_equal (fields[i].name, name))
-      return G_STRUCT_MEMBER (GtkWidget *, self, fields[i].offset);
-  return NULL;
 }
 
 static void

@@ -22,9 +22,5 @@ void       lamina_properties_view_update       (LaminaPropertiesView     *self,
                                                 const LaminaResult       *result);
 /* Saves what is typed in the text fields now (before a window closes). */
 void       lamina_properties_view_commit       (LaminaPropertiesView *self);
-/* A field by name ("element", "heat-flow", "outer-side", "description",
- * "tag-entry", "notes", "tag-error", "field-error"), for tests. */
-GtkWidget *lamina_properties_view_get_field    (LaminaPropertiesView *self,
-                                                const char           *name);
 
 G_END_DECLS

@@ -18,14 +18,15 @@
 
 #include "lamina-application.h"
 #include "lamina-demo.h"
-#include "lamina-derive-dialog.h"
+#include "lamina-derive-dialog-private.h"
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
 #include "lamina-close-keys.h"
 #include "lamina-history-window-private.h"
 #include "lamina-material-row-private.h"
 #include "lamina-materials-window-private.h"
-#include "lamina-method-view.h"
+#include "lamina-method-view-private.h"
+#include "lamina-properties-view-private.h"
 #include "lamina-parts-dialog-private.h"
 #include "lamina-settings.h"
 #include "lamina-dynamic.h"
@@ -679,16 +680,26 @@ test_derive_delete_undo (Fixture       *f,
   g_assert_nonnull (original->description);
   gtk_widget_activate_action (GTK_WIDGET (f->window), "win.derive", NULL);
   {
-    GtkWindow *dialog = find_other_window (f);
+    LaminaDeriveDialog *dialog = LAMINA_DERIVE_DIALOG (find_other_window (f));
     const char *dropped = original->tags->pdata[0];
 
-    g_assert_nonnull (dialog);
-    g_assert_false (gtk_check_button_get_active (lamina_derive_dialog_get_check (dialog, "description")));
-    g_assert_false (gtk_check_button_get_active (lamina_derive_dialog_get_check (dialog, "notes")));
+    g_assert_false (gtk_check_button_get_active (dialog->description));
+    g_assert_false (gtk_check_button_get_active (dialog->notes));
+    g_assert_cmpuint (dialog->tag_checks->len, ==, original->tags->len);
     for (guint i = 0; i < original->tags->len; i++)
-      g_assert_true (gtk_check_button_get_active (lamina_derive_dialog_get_check (dialog, original->tags->pdata[i])));
-    gtk_check_button_set_active (lamina_derive_dialog_get_check (dialog, dropped), FALSE);
-    lamina_derive_dialog_accept (dialog);
+      {
+        g_assert_cmpstr (gtk_check_button_get_label (dialog->tag_checks->pdata[i]), ==, original->tags->pdata[i]);
+        g_assert_true (gtk_check_button_get_active (dialog->tag_checks->pdata[i]));
+      }
+    gtk_check_button_set_active (dialog->tag_checks->pdata[0], FALSE);
+    {
+      const char *build = g_getenv ("LAMINA_BUILD_DIR");
+      g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "derive-dialog.png", NULL);
+
+      wait_for_draw (GTK_WIDGET (dialog));
+      save_png (GTK_WIDGET (dialog), path);
+    }
+    g_signal_emit_by_name (dialog->derive_button, "clicked");
     g_assert_null (open_state (f)->description);
     g_assert_null (open_state (f)->notes);
     g_assert_cmpuint (open_state (f)->tags->len, ==, original->tags->len - 1);
@@ -852,12 +863,10 @@ shown_rse (Fixture *f)
   return lamina_results_view_get_rse_text (lamina_editor_get_results_view (lamina_window_get_editor (f->window)));
 }
 
-static GtkWidget *
-property_field (Fixture    *f,
-                const char *name)
+static LaminaPropertiesView *
+properties_view (Fixture *f)
 {
-  return lamina_properties_view_get_field (lamina_editor_get_properties_view (lamina_window_get_editor (f->window)),
-                                           name);
+  return lamina_editor_get_properties_view (lamina_window_get_editor (f->window));
 }
 
 static void
@@ -897,12 +906,10 @@ settle (GtkWidget *widget,
     wait_for_draw (widget);
 }
 
-static GtkWidget *
-method_field (Fixture    *f,
-              const char *name)
+static LaminaMethodView *
+method_view (Fixture *f)
 {
-  return lamina_method_view_get_field (LAMINA_METHOD_VIEW (lamina_editor_get_method_view (lamina_window_get_editor (f->window))),
-                                       name);
+  return LAMINA_METHOD_VIEW (lamina_editor_get_method_view (lamina_window_get_editor (f->window)));
 }
 
 /* The demo's slab (FL-101) shows U with the ground for its plan and the
@@ -932,16 +939,16 @@ test_ground_and_taper (Fixture       *f,
   g_assert_true (lamina_window_open (f->window, slab, &error));
   lamina_editor_show_page (editor, "method");
   wait_for_draw (GTK_WIDGET (f->window));
-  g_assert_true (gtk_check_button_get_active (GTK_CHECK_BUTTON (method_field (f, "on-ground"))));
-  g_assert_true (gtk_widget_get_visible (method_field (f, "ground-table")));
+  g_assert_true (gtk_check_button_get_active (GTK_CHECK_BUTTON (GTK_WIDGET (method_view (f)->on_ground))));
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (method_view (f)->ground_table)));
   state = open_state (f);
   r = lamina_calculate (state, NULL);
-  ground_text = g_strdup (gtk_label_get_text (GTK_LABEL (method_field (f, "ground-u"))));
+  ground_text = g_strdup (gtk_label_get_text (GTK_LABEL (GTK_WIDGET (method_view (f)->ground_u))));
   g_assert_nonnull (strstr (ground_text, lamina_format_u (u, r->ground.u)));
   settle (GTK_WIDGET (f->window), 500);
   save_png (GTK_WIDGET (f->window), ground_png);
 
-  b_prime = method_field (f, "b-prime");
+  b_prime = GTK_WIDGET (method_view (f)->nums[NUM_B_PRIME]);
   gtk_editable_set_text (GTK_EDITABLE (b_prime), "10");
   g_signal_emit_by_name (b_prime, "activate");
   wait_for_draw (GTK_WIDGET (f->window));
@@ -953,25 +960,25 @@ test_ground_and_taper (Fixture       *f,
   g_assert_cmpfloat_with_epsilon (r->ground.u, table[4], 1e-12); /* row 4: B′ 10 m */
 
   /* Bad input names itself and changes nothing. */
-  gtk_editable_set_text (GTK_EDITABLE (method_field (f, "perimeter")), "-3");
-  g_signal_emit_by_name (method_field (f, "perimeter"), "activate");
-  g_assert_true (gtk_widget_get_visible (method_field (f, "error")));
-  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (method_field (f, "error"))), "perimeter"));
+  gtk_editable_set_text (GTK_EDITABLE (GTK_WIDGET (method_view (f)->nums[NUM_PERIMETER])), "-3");
+  g_signal_emit_by_name (GTK_WIDGET (method_view (f)->nums[NUM_PERIMETER]), "activate");
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (method_view (f)->error)));
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (GTK_WIDGET (method_view (f)->error))), "perimeter"));
   g_assert_cmpfloat (open_state (f)->ground.perimeter, >, 0);
 
   g_assert_nonnull (roof);
   g_assert_true (lamina_window_open (f->window, roof, &error));
   lamina_editor_show_page (editor, "method");
   wait_for_draw (GTK_WIDGET (f->window));
-  g_assert_cmpuint (gtk_drop_down_get_selected (GTK_DROP_DOWN (method_field (f, "tapered-layer"))), ==, 3);
+  g_assert_cmpuint (gtk_drop_down_get_selected (GTK_DROP_DOWN (GTK_WIDGET (method_view (f)->tapered_layer))), ==, 3);
   g_clear_pointer (&r, lamina_result_free);
   r = lamina_calculate (open_state (f), NULL);
   g_assert_true (r->tapered);
-  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (method_field (f, "taper-u"))),
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (GTK_WIDGET (method_view (f)->taper_u))),
                             lamina_format_u (u, r->u)));
   settle (GTK_WIDGET (f->window), 500);
   save_png (GTK_WIDGET (f->window), taper_png);
-  thick = method_field (f, "thickness-max");
+  thick = GTK_WIDGET (method_view (f)->nums[NUM_THICKNESS_MAX]);
   gtk_editable_set_text (GTK_EDITABLE (thick), "200");
   g_signal_emit_by_name (thick, "activate");
   state = open_state (f);
@@ -994,9 +1001,9 @@ test_construction_properties (Fixture       *f,
   g_assert_true (lamina_window_open (f->window, id, &error));
   lamina_editor_show_page (editor, "construction");
   wait_for_draw (GTK_WIDGET (f->window));
-  element = GTK_DROP_DOWN (property_field (f, "element"));
-  heat_flow = GTK_DROP_DOWN (property_field (f, "heat-flow"));
-  outer_side = GTK_DROP_DOWN (property_field (f, "outer-side"));
+  element = GTK_DROP_DOWN (GTK_WIDGET (properties_view (f)->element_dropdown));
+  heat_flow = GTK_DROP_DOWN (GTK_WIDGET (properties_view (f)->heat_flow_dropdown));
+  outer_side = GTK_DROP_DOWN (GTK_WIDGET (properties_view (f)->outer_side_dropdown));
   g_assert_cmpuint (gtk_drop_down_get_selected (heat_flow), ==, 0); /* the element's default */
 
   /* EN ISO 6946:2017 Table 7: Rsi 0.13 for horizontal heat flow (a wall),
@@ -1039,17 +1046,17 @@ test_construction_properties (Fixture       *f,
   assert_figure (shown_rse (f), 0.13);
 
   /* Description, tags and notes are saved as they are made. */
-  gtk_editable_set_text (GTK_EDITABLE (property_field (f, "description")), "Party wall to the neighbour");
-  g_signal_emit_by_name (property_field (f, "description"), "activate");
-  gtk_editable_set_text (GTK_EDITABLE (property_field (f, "tag-entry")), "party wall");
-  g_signal_emit_by_name (property_field (f, "tag-entry"), "activate");
-  g_assert_cmpstr (gtk_editable_get_text (GTK_EDITABLE (property_field (f, "tag-entry"))), ==, "");
-  gtk_editable_set_text (GTK_EDITABLE (property_field (f, "tag-entry")), "Party Wall");
-  g_signal_emit_by_name (property_field (f, "tag-entry"), "activate");
-  tag_error = property_field (f, "tag-error");
+  gtk_editable_set_text (GTK_EDITABLE (GTK_WIDGET (properties_view (f)->description_entry)), "Party wall to the neighbour");
+  g_signal_emit_by_name (GTK_WIDGET (properties_view (f)->description_entry), "activate");
+  gtk_editable_set_text (GTK_EDITABLE (GTK_WIDGET (properties_view (f)->tag_entry)), "party wall");
+  g_signal_emit_by_name (GTK_WIDGET (properties_view (f)->tag_entry), "activate");
+  g_assert_cmpstr (gtk_editable_get_text (GTK_EDITABLE (GTK_WIDGET (properties_view (f)->tag_entry))), ==, "");
+  gtk_editable_set_text (GTK_EDITABLE (GTK_WIDGET (properties_view (f)->tag_entry)), "Party Wall");
+  g_signal_emit_by_name (GTK_WIDGET (properties_view (f)->tag_entry), "activate");
+  tag_error = GTK_WIDGET (properties_view (f)->tag_error);
   g_assert_true (gtk_widget_get_visible (tag_error));
   g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (tag_error)), "Party Wall"));
-  gtk_text_buffer_set_text (gtk_text_view_get_buffer (GTK_TEXT_VIEW (property_field (f, "notes"))),
+  gtk_text_buffer_set_text (gtk_text_view_get_buffer (GTK_TEXT_VIEW (GTK_WIDGET (properties_view (f)->notes_view))),
                             "Fire rating by others.", -1);
   lamina_properties_view_commit (lamina_editor_get_properties_view (editor));
   g_clear_pointer (&stored, lamina_construction_free);
@@ -1058,7 +1065,7 @@ test_construction_properties (Fixture       *f,
   g_assert_cmpint (stored->outer_side, ==, LAMINA_OUTER_SIDE_INDOOR);
   g_assert_cmpstr (stored->notes, ==, "Fire rating by others.");
   g_assert_true (g_ptr_array_find_with_equal_func (stored->tags, "party wall", g_str_equal, NULL));
-  gtk_widget_activate_action (GTK_WIDGET (property_field (f, "tag-entry")), "properties.remove-tag", "s", "party wall");
+  gtk_widget_activate_action (GTK_WIDGET (GTK_WIDGET (properties_view (f)->tag_entry)), "properties.remove-tag", "s", "party wall");
   g_assert_false (g_ptr_array_find_with_equal_func (open_state (f)->tags, "party wall", g_str_equal, NULL));
   /* Undo brings the tag back. */
   gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL);
@@ -1068,7 +1075,7 @@ test_construction_properties (Fixture       *f,
     const char *build = g_getenv ("LAMINA_BUILD_DIR");
     g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "window-properties.png", NULL);
     g_autofree char *lower = g_build_filename (build ? build : ".", "tests", "app", "window-properties-lower.png", NULL);
-    GtkWidget *scroller = gtk_widget_get_ancestor (property_field (f, "notes"), GTK_TYPE_SCROLLED_WINDOW);
+    GtkWidget *scroller = gtk_widget_get_ancestor (GTK_WIDGET (properties_view (f)->notes_view), GTK_TYPE_SCROLLED_WINDOW);
     GtkAdjustment *adjustment = gtk_scrolled_window_get_vadjustment (GTK_SCROLLED_WINDOW (scroller));
 
     wait_for_draw (GTK_WIDGET (f->window));
