@@ -2,6 +2,7 @@
 /* lamina-window-private.h: shared by lamina-window*.c. */
 #pragma once
 
+#include "lamina-change-banner.h"
 #include "lamina-document.h"
 #include "lamina-window.h"
 
@@ -49,9 +50,15 @@ struct _LaminaWindow
   guint                   refresh_idle;
   guint                   poll_timeout;
   gboolean                selecting;
+  /* "changed underneath" for the open construction */
+  LaminaChangeBanner     *change_banner;
+  gboolean                external_change; /* since the last refresh */
 };
 
 void lamina_window_update_actions   (LaminaWindow *self);
+/* What the window's timer does: asks the library whether another process
+ * or connection wrote (rows, the open construction's banner). */
+void lamina_window_poll_library     (LaminaWindow *self);
 void lamina_window_refresh_list     (LaminaWindow *self);
 void lamina_window_install_actions  (GtkWidgetClass *widget_class);
 /* lamina-window-design.c */

@@ -101,6 +101,7 @@ set_document (LaminaWindow   *self,
       g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed_cb), self, G_CONNECT_SWAPPED);
     }
   lamina_editor_set_document (self->editor, document);
+  lamina_change_banner_set_document (self->change_banner, document);
   gtk_stack_set_visible_child_name (self->main_stack, document ? "editor" : "empty");
   on_document_conflict_cb (self);
   lamina_window_update_actions (self);
@@ -489,6 +490,8 @@ refresh_idle_cb (gpointer data)
 
   self->refresh_idle = 0;
   lamina_window_refresh_list (self);
+  lamina_change_banner_library_changed (self->change_banner, self->external_change);
+  self->external_change = FALSE;
   return G_SOURCE_REMOVE;
 }
 
@@ -501,13 +504,18 @@ on_library_changed_cb (LaminaWindow *self)
     self->refresh_idle = g_idle_add (refresh_idle_cb, self);
 }
 
+void
+lamina_window_poll_library (LaminaWindow *self)
+{
+  /* Another copy of Lamina or the CLI may write to a shared library. */
+  if (lamina_library_check_for_changes (self->library))
+    self->external_change = TRUE;
+}
+
 static gboolean
 poll_library_cb (gpointer data)
 {
-  LaminaWindow *self = data;
-
-  /* Another copy of Lamina or the CLI may write to a shared library. */
-  lamina_library_check_for_changes (self->library);
+  lamina_window_poll_library (data);
   return G_SOURCE_CONTINUE;
 }
 
@@ -637,6 +645,10 @@ lamina_window_new (GtkApplication    *application,
                            G_CALLBACK (on_selection_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (library, "changed", G_CALLBACK (on_library_changed_cb), self, G_CONNECT_SWAPPED);
 
+  self->change_banner = LAMINA_CHANGE_BANNER (lamina_change_banner_new ());
+  gtk_widget_insert_after (GTK_WIDGET (self->change_banner),
+                           gtk_widget_get_parent (GTK_WIDGET (self->banner_revealer)),
+                           GTK_WIDGET (self->banner_revealer));
   setup_filters (self);
   update_count (self);
   lamina_jobs_page_set_library (self->jobs_page, library);

@@ -3,6 +3,7 @@
  * widget as a PNG to look at, for the window tests under Xvfb. */
 #pragma once
 
+#include <glib/gstdio.h>
 #include <gtk/gtk.h>
 
 static inline void
@@ -42,3 +43,18 @@ save_png (GtkWidget  *widget,
   g_assert_cmpint (gdk_texture_get_width (texture), ==, width);
 }
 
+
+/* Removes a test's temporary folder with the files in it. */
+static inline void
+remove_test_dir (const char *path)
+{
+  g_autoptr(GDir) dir = g_dir_open (path, 0, NULL);
+  const char *name;
+
+  while (dir && (name = g_dir_read_name (dir)) != NULL)
+    {
+      g_autofree char *p = g_build_filename (path, name, NULL);
+      g_remove (p);
+    }
+  g_rmdir (path);
+}

@@ -70,19 +70,10 @@ static void
 fixture_teardown (Fixture       *f,
                   gconstpointer  data)
 {
-  g_autoptr(GDir) dir = NULL;
-  const char *name;
-
   gtk_window_destroy (GTK_WINDOW (f->window));
   lamina_library_close (f->library);
   g_clear_object (&f->library);
-  dir = g_dir_open (f->dir, 0, NULL);
-  while (dir && (name = g_dir_read_name (dir)) != NULL)
-    {
-      g_autofree char *p = g_build_filename (f->dir, name, NULL);
-      g_remove (p);
-    }
-  g_rmdir (f->dir);
+  remove_test_dir (f->dir);
   g_free (f->dir);
 }
 

@@ -1,0 +1,212 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The window on a library that a colleague writes to at the same time
+ * (here lamina-cli, a second process on the same SQLite file), under
+ * Xvfb: the open construction's banner names who changed it and what,
+ * Reload shows the new state, Keep editing keeps the user's state on
+ * screen and the stale-save refusal still guards the save. */
+#include "config.h"
+
+#include <glib/gstdio.h>
+#include <gtk/gtk.h>
+#include <string.h>
+#include <sys/wait.h>
+
+#include "lamina-application.h"
+#include "lamina-change-banner-private.h"
+#include "lamina-demo.h"
+#include "lamina-window.h"
+#include "lamina-window-private.h"
+#include "lamina-app-test-util.h"
+
+typedef struct
+{
+  char          *dir;
+  char          *path;
+  LaminaLibrary *library;
+  LaminaWindow  *window;
+} Fixture;
+
+static void
+fixture_setup (Fixture       *f,
+               gconstpointer  data)
+{
+  g_autoptr(GError) error = NULL;
+
+  f->dir = g_dir_make_tmp ("lamina-office-XXXXXX", &error);
+  g_assert_no_error (error);
+  f->path = g_build_filename (f->dir, "library.sqlite", NULL);
+  f->library = lamina_library_open (f->path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_demo_load (f->library, &error));
+  g_assert_no_error (error);
+
+  lamina_application_load_style ();
+  f->window = lamina_window_new (NULL, f->library);
+  gtk_window_set_default_size (GTK_WINDOW (f->window), 1200, 760);
+  gtk_window_present (GTK_WINDOW (f->window));
+  wait_for_draw (GTK_WIDGET (f->window));
+}
+
+static void
+fixture_teardown (Fixture       *f,
+                  gconstpointer  data)
+{
+  gtk_window_destroy (GTK_WINDOW (f->window));
+  lamina_library_close (f->library);
+  g_clear_object (&f->library);
+  remove_test_dir (f->dir);
+  g_free (f->dir);
+  g_free (f->path);
+}
+
+/* lamina-cli --library LIBRARY ARGS… in its own process. */
+static void
+cli (Fixture    *f,
+     const char *first,
+     ...)
+{
+  g_autoptr(GPtrArray) args = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr(GError) error = NULL;
+  g_autofree char *out = NULL, *err = NULL;
+  int status = 0;
+  va_list ap;
+
+  g_ptr_array_add (args, g_build_filename (g_getenv ("LAMINA_BUILD_DIR"), "src", "cli", "lamina-cli", NULL));
+  g_ptr_array_add (args, g_strdup ("--library"));
+  g_ptr_array_add (args, g_strdup (f->path));
+  va_start (ap, first);
+  for (const char *a = first; a != NULL; a = va_arg (ap, const char *))
+    g_ptr_array_add (args, g_strdup (a));
+  va_end (ap);
+  g_ptr_array_add (args, NULL);
+  g_assert_true (g_spawn_sync (NULL, (char **) args->pdata, NULL, G_SPAWN_DEFAULT, NULL, NULL,
+                               &out, &err, &status, &error));
+  g_assert_no_error (error);
+  if (!WIFEXITED (status) || WEXITSTATUS (status) != 0)
+    g_error ("lamina-cli %s failed: %s", first, err);
+}
+
+/* What the window's timer does, then the idle refresh it queues. */
+static void
+poll_now (Fixture *f)
+{
+  lamina_window_poll_library (f->window);
+  for (int i = 0; i < 20 && f->window->refresh_idle != 0; i++)
+    g_main_context_iteration (NULL, TRUE);
+  wait_for_draw (GTK_WIDGET (f->window));
+}
+
+static LaminaDocument *
+document (Fixture *f)
+{
+  return f->window->document;
+}
+
+static void
+test_review_by_colleague (Fixture       *f,
+                          gconstpointer  data)
+{
+  LaminaChangeBanner *banner = f->window->change_banner;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *png = NULL;
+  const char *message;
+
+  g_assert_true (lamina_window_open (f->window, "demo-ew-102", &error));
+  g_assert_no_error (error);
+  wait_for_draw (GTK_WIDGET (f->window));
+  g_assert_null (lamina_change_banner_get_message (banner));
+
+  /* Our own writes never raise the banner. */
+  lamina_library_set_review_policy (f->library, LAMINA_REVIEW_FOUR_EYES, NULL);
+  poll_now (f);
+  g_assert_null (lamina_change_banner_get_message (banner));
+
+  cli (f, "check", "EW-102", "--by", "Vela Quist", NULL);
+  poll_now (f);
+  message = lamina_change_banner_get_message (banner);
+  g_assert_nonnull (message);
+  g_assert_nonnull (strstr (message, "EW-102"));
+  g_assert_nonnull (strstr (message, "Vela Quist"));
+  g_assert_nonnull (strstr (message, "revision 1 checked"));
+  g_assert_true (gtk_revealer_get_reveal_child (banner->revealer));
+  /* The editor still shows the draft it had. */
+  g_assert_cmpint (lamina_document_get_construction (document (f))->status, ==, LAMINA_STATUS_DRAFT);
+
+  png = g_build_filename (g_getenv ("LAMINA_BUILD_DIR"), "tests", "app", "change-banner.png", NULL);
+  save_png (GTK_WIDGET (f->window), png);
+
+  g_signal_emit_by_name (banner->reload_button, "clicked");
+  wait_for_draw (GTK_WIDGET (f->window));
+  g_assert_null (lamina_change_banner_get_message (banner));
+  g_assert_false (gtk_revealer_get_reveal_child (banner->revealer));
+  g_assert_cmpint (lamina_document_get_construction (document (f))->status, ==, LAMINA_STATUS_CHECKED);
+
+  /* Nothing new: a poll does not bring it back. */
+  poll_now (f);
+  g_assert_null (lamina_change_banner_get_message (banner));
+}
+
+static void
+test_keep_editing (Fixture       *f,
+                   gconstpointer  data)
+{
+  LaminaChangeBanner *banner = f->window->change_banner;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *xml = g_build_filename (f->dir, "ew-102.xml", NULL);
+  g_autofree char *text = NULL;
+  g_autoptr(GString) changed = NULL;
+  LaminaConstruction *mine;
+  double my_thickness;
+  int base;
+
+  g_assert_true (lamina_window_open (f->window, "demo-ew-102", &error));
+  base = lamina_document_get_base_revision (document (f));
+
+  /* A change of ours in progress (a drag not yet let go). */
+  mine = lamina_construction_copy (lamina_document_get_construction (document (f)));
+  ((LaminaLayer *) mine->layers->pdata[0])->thickness += 5;
+  my_thickness = ((LaminaLayer *) mine->layers->pdata[0])->thickness;
+  lamina_document_apply (document (f), mine, "test-drag", LAMINA_APPLY_LIVE);
+
+  /* A colleague imports a revised EW-102 meanwhile. */
+  cli (f, "export", "EW-102", "-o", xml, NULL);
+  g_assert_true (g_file_get_contents (xml, &text, NULL, NULL));
+  changed = g_string_new (text);
+  g_assert_cmpuint (g_string_replace (changed, "(contractor", "(revised by a colleague; contractor", 1), ==, 1);
+  g_assert_true (g_file_set_contents (xml, changed->str, -1, NULL));
+  cli (f, "import", xml, NULL);
+  poll_now (f);
+  g_assert_nonnull (lamina_change_banner_get_message (banner));
+  g_assert_nonnull (strstr (lamina_change_banner_get_message (banner), "revision 2 saved"));
+
+  g_signal_emit_by_name (banner->keep_button, "clicked");
+  wait_for_draw (GTK_WIDGET (f->window));
+  g_assert_false (gtk_revealer_get_reveal_child (banner->revealer));
+  /* Our state is still what we had. */
+  g_assert_cmpfloat (((LaminaLayer *) lamina_document_get_construction (document (f))->layers->pdata[0])->thickness,
+                     ==, my_thickness);
+  g_assert_cmpint (lamina_document_get_base_revision (document (f)), ==, base);
+
+  /* Letting go saves on top of revision 1: refused as stale, our
+   * version kept, the conflict offered. */
+  g_assert_false (lamina_document_commit (document (f), &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE);
+  g_assert_nonnull (lamina_document_get_conflict (document (f)));
+  g_assert_cmpfloat (((LaminaLayer *) lamina_document_get_construction (document (f))->layers->pdata[0])->thickness,
+                     ==, my_thickness);
+  wait_for_draw (GTK_WIDGET (f->window));
+  g_assert_true (gtk_revealer_get_reveal_child (f->window->banner_revealer));
+  /* The same change is not announced twice. */
+  poll_now (f);
+  g_assert_null (lamina_change_banner_get_message (banner));
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  gtk_test_init (&argc, &argv, NULL);
+  g_test_add ("/app/office/review-by-colleague", Fixture, NULL, fixture_setup, test_review_by_colleague, fixture_teardown);
+  g_test_add ("/app/office/keep-editing", Fixture, NULL, fixture_setup, test_keep_editing, fixture_teardown);
+  return g_test_run ();
+}
