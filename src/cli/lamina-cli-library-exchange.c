@@ -27,7 +27,15 @@ import_catalogue (LaminaLibrary          *library,
   report = lamina_library_import (library, catalogue, flags, NULL, &error);
   if (report == NULL)
     {
-      lamina_cli_error ("%s: %s", name, error->message);
+      /* A fault of the library is named as the library (its path leads
+       * the message), never as the document being read. */
+      if (g_error_matches (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT)
+          || g_error_matches (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_READ_ONLY)
+          || g_error_matches (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_BUSY)
+          || g_error_matches (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO))
+        lamina_cli_error ("%s", error->message);
+      else
+        lamina_cli_error ("%s: %s", name, error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
   /* Each sentence says what happened to what; conflicts go to stderr. */

@@ -9,6 +9,7 @@
 #include "lamina-cli-library.h"
 #include "lamina-cli-report.h"
 #include "lamina-library.h"
+#include "lamina-library-safety.h"
 #include "lamina-number.h"
 
 #include <glib/gi18n.h>
@@ -32,7 +33,11 @@ lamina_cli_open_library (const LaminaCliGlobals *globals,
     flags |= LAMINA_LIBRARY_OPEN_EXISTING;
   library = lamina_library_open (globals->library_path, flags, &error);
   if (library == NULL)
-    lamina_cli_error ("%s", error->message);
+    {
+      lamina_cli_error ("%s", error->message);
+      return NULL;
+    }
+  lamina_cli_library_opened (library);
   return library;
 }
 

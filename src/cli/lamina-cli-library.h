@@ -13,6 +13,11 @@ G_BEGIN_DECLS
  * library; prints the error and returns NULL on failure. */
 LaminaLibrary *lamina_cli_open_library (const LaminaCliGlobals *globals,
                                         gboolean                create);
+/* lamina-cli-safety.c: what every command does with a library it has
+ * opened: says on stderr when a write waits for another program, and
+ * makes the day's backup (a failure is a warning, not the command's). */
+void           lamina_cli_library_opened (LaminaLibrary        *library);
+
 /* An id, or an office code that names exactly one construction. */
 char          *lamina_cli_resolve_id   (LaminaLibrary          *library,
                                         const char             *key);

@@ -42,6 +42,9 @@ static const Command commands[] = {
   { "policy", lamina_cli_policy, N_("Show or set the library's review policy (four eyes or single reviewer)") },
   { "withdraw", lamina_cli_withdraw, N_("Withdraw the approval of a construction, with a reason") },
   { "copy", lamina_cli_copy, N_("Copy a whole library with its history into an empty one (a file or a server)") },
+  { "verify", lamina_cli_verify, N_("Check the library file and every approved revision's figures and review records") },
+  { "backup", lamina_cli_backup, N_("Make a backup copy of the library now, list the copies, or set where they go") },
+  { "restore", lamina_cli_restore, N_("Bring back a backup copy of the library (the current file is kept)") },
 };
 
 FILE *

@@ -218,6 +218,22 @@ typedef struct
   gboolean            (*write_all)          (LaminaBackend *backend,
                                              const LaminaBackendDump *dump,
                                              GError **error);
+
+  /* Library safety (lamina-library-safety.c).  Either may be NULL where a
+   * backend has no such thing; the front end then says "not supported
+   * for this library".  verify_storage appends one sentence (char*) per
+   * problem the storage's own check finds to @problems and fails only
+   * when it could not run; backup_to writes a complete, consistent copy
+   * of the library as the new file @dest. */
+  gboolean            (*verify_storage)     (LaminaBackend *backend, GPtrArray *problems,
+                                             GError **error);
+  gboolean            (*backup_to)          (LaminaBackend *backend, const char *dest,
+                                             GError **error);
+  /* Replaces the library's whole content with that of the backup file
+   * @source (made by backup_to), in one step that other connections see
+   * whole. */
+  gboolean            (*restore_from)       (LaminaBackend *backend, const char *source,
+                                             GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend
@@ -226,7 +242,26 @@ struct _LaminaBackend
   char                      *path;
   char                      *backup_path;
   int                        opened_version;
+  /* NULL when writable; else why not ("the file is read-only"): every
+   * write is refused with LAMINA_LIBRARY_ERROR_READ_ONLY. */
+  char                      *read_only_reason;
+  /* Called while a write waits for another program's lock (@holder: who,
+   * if known, or NULL) and once more with @waiting FALSE when it ends. */
+  void                     (*waiting)          (gpointer    data,
+                                                gboolean    waiting,
+                                                const char *holder);
+  gpointer                   waiting_data;
+  double                     busy_timeout;     /* seconds */
 };
+
+/* lamina-library-safety.c: the message of every refused write to a
+ * read-only library, and of a damaged one (naming the last backup). */
+void           lamina_backend_set_read_only_error (LaminaBackend *backend,
+                                                   GError       **error);
+void           lamina_backend_set_damaged_error   (LaminaBackend *backend,
+                                                   const char    *where,
+                                                   const char    *detail,
+                                                   GError       **error);
 
 /* lamina-library-types.c */
 LaminaImportReport *lamina_import_report_new (void);
@@ -291,6 +326,17 @@ LaminaSummaryFlags lamina_library_moisture_flags (const LaminaConstruction *cons
         return (value);                                                         \
       }                                                                         \
   } G_STMT_END
+
+/* lamina-library-safety.c: LAMINA_BUSY_TIMEOUT or 60 s. */
+double         lamina_backend_default_busy_timeout (void);
+
+/* lamina-library-review.c: two names for one person (NFC, case-folded). */
+gboolean       lamina_library_same_person (const char *a,
+                                           const char *b);
+
+/* lamina-library-backup.c: the newest backup of the library at @path in
+ * the folder backups go to when its settings cannot be read, or NULL. */
+char          *lamina_backup_dup_latest_for_path (const char *path);
 
 /* lamina-sqlite-open.c */
 LaminaBackend *lamina_sqlite_backend_open (const char             *path,

@@ -233,12 +233,12 @@ revision_free (LaminaBackendRevision *rev)
   g_free (rev);
 }
 
-LaminaImportReport *
-lamina_library_import (LaminaLibrary          *self,
-                       const LaminaCatalogue  *catalogue,
-                       LaminaImportFlags       flags,
-                       const char             *author,
-                       GError                **error)
+static LaminaImportReport *
+import_once (LaminaLibrary          *self,
+             const LaminaCatalogue  *catalogue,
+             LaminaImportFlags       flags,
+             const char             *author,
+             GError                **error)
 {
   g_autoptr(LaminaImportReport) report = lamina_import_report_new ();
   g_autoptr(GPtrArray) materials = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
@@ -317,6 +317,38 @@ lamina_library_import (LaminaLibrary          *self,
       || climates->len > 0)
     lamina_library_emit_changed (self);
   return g_steal_pointer (&report);
+}
+
+/* The import is planned against the library as it is, then written in
+ * one transaction.  Another program may have written the same document
+ * in between (two imports started together: ours planned "add" while
+ * theirs held the lock): the write is then refused as taken or stale and
+ * nothing was written, so plan again against what is there now; the
+ * second import ends as "unchanged", never as a conflict. */
+LaminaImportReport *
+lamina_library_import (LaminaLibrary          *self,
+                       const LaminaCatalogue  *catalogue,
+                       LaminaImportFlags       flags,
+                       const char             *author,
+                       GError                **error)
+{
+  for (int attempt = 1;; attempt++)
+    {
+      g_autoptr(GError) local = NULL;
+      LaminaImportReport *report = import_once (self, catalogue, flags, author, &local);
+
+      if (report != NULL)
+        return report;
+      if (attempt >= 5
+          || !(g_error_matches (local, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS)
+               || g_error_matches (local, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE)))
+        {
+          g_propagate_error (error, g_steal_pointer (&local));
+          return NULL;
+        }
+      g_debug ("import: the library changed while planning (%s); planning again",
+               local->message);
+    }
 }
 
 static void

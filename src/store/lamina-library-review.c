@@ -333,3 +333,10 @@ lamina_library_withdraw_approval (LaminaLibrary  *self,
   g_return_val_if_fail (id != NULL, FALSE);
   return record (self, &r, error);
 }
+
+gboolean
+lamina_library_same_person (const char *a,
+                            const char *b)
+{
+  return same_person (a, b);
+}

@@ -64,6 +64,8 @@ typedef enum
   LAMINA_LIBRARY_OPEN_DEFAULT  = 0,      /* create if missing, seed materials */
   LAMINA_LIBRARY_OPEN_EXISTING = 1 << 0, /* fail with IO if the file is missing */
   LAMINA_LIBRARY_OPEN_NO_SEED  = 1 << 1, /* a new library starts without materials */
+  LAMINA_LIBRARY_OPEN_READ_ONLY = 1 << 2, /* never write, even if the file could be
+                                             (see lamina-library-safety.h) */
 } LaminaLibraryOpenFlags;
 
 #define LAMINA_TYPE_LIBRARY (lamina_library_get_type ())

@@ -41,10 +41,11 @@ lamina_sqlite_backend_put_field_check (LaminaBackend  *backend,
                                        const char     *now,
                                        GError        **error)
 {
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
-                                              "INSERT OR REPLACE INTO field_check"
-                                              " (construction_id, revision, body, computed_at)"
-                                              " VALUES (?1, ?2, ?3, ?4);", error);
+  sqlite3_stmt *stmt = !lamina_sqlite_check_writable (SELF, error) ? NULL
+                       : lamina_sqlite_prepare (SELF,
+                                                "INSERT OR REPLACE INTO field_check"
+                                                " (construction_id, revision, body, computed_at)"
+                                                " VALUES (?1, ?2, ?3, ?4);", error);
 
   if (stmt == NULL)
     return FALSE;

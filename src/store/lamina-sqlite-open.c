@@ -12,9 +12,6 @@
 #include <string.h>
 #include <unistd.h>
 
-/* Another process holding the write lock is waited for this long. */
-#define BUSY_TIMEOUT_MS 5000
-
 static gint64
 query_int (LaminaSqlite *self,
            const char   *sql,
@@ -52,6 +49,7 @@ lamina_sqlite_backend_close (LaminaBackend *backend)
     }
   g_free (self->parent.path);
   g_free (self->parent.backup_path);
+  g_free (self->parent.read_only_reason);
   g_free (self);
 }
 
@@ -117,6 +115,10 @@ static const LaminaBackendVTable sqlite_vtable = {
   .put_climate = lamina_sqlite_backend_put_climate,
   .read_all = lamina_sqlite_backend_read_all,
   .write_all = lamina_sqlite_backend_write_all,
+
+  .verify_storage = lamina_sqlite_backend_verify_storage,
+  .backup_to = lamina_sqlite_backend_backup_to,
+  .restore_from = lamina_sqlite_backend_restore_from,
 };
 
 static LaminaSqlite *
@@ -165,19 +167,29 @@ static gboolean
 configure (LaminaSqlite  *self,
            GError       **error)
 {
-  sqlite3_busy_timeout (self->db, BUSY_TIMEOUT_MS);
+  int rc;
+
+  /* Another process holding the write lock is waited for (and named). */
+  lamina_sqlite_install_busy_handler (self);
   sqlite3_extended_result_codes (self->db, 1);
   /* A 32 MiB page cache (the default is 2 MiB) keeps a large import's
    * dirty pages in memory until the commit instead of spilling them to
    * the WAL half-way; temporary tables stay in memory.  The staging table
    * of the search index (lamina-sqlite-revisions.c) lives as long as the
    * connection, in memory, and never touches the library file. */
-  return lamina_sqlite_exec (self, "PRAGMA foreign_keys = ON;"
-                                   "PRAGMA cache_size = -32768;"
-                                   "PRAGMA temp_store = MEMORY;"
-                                   "CREATE TEMP TABLE construction_fts_stage ("
-                                   "  num INTEGER PRIMARY KEY, code, name, description, tags, materials);",
-                             error);
+  rc = sqlite3_exec (self->db, "PRAGMA foreign_keys = ON;"
+                                "PRAGMA cache_size = -32768;"
+                                "PRAGMA temp_store = MEMORY;"
+                                "CREATE TEMP TABLE construction_fts_stage ("
+                                "  num INTEGER PRIMARY KEY, code, name, description, tags, materials);",
+                     NULL, NULL, NULL);
+  if (rc != SQLITE_OK)
+    {
+      /* The first statement reads the schema: damage there is met here. */
+      lamina_sqlite_set_error (self, rc, "open", error);
+      return FALSE;
+    }
+  return TRUE;
 }
 
 /* Refuses what is not ours or is damaged, before anything is written. */
@@ -225,10 +237,8 @@ recognise (LaminaSqlite  *self,
   sqlite3_finalize (stmt);
   if (check == NULL || strcmp (check, "ok") != 0 || *version < 1)
     {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT,
-                   "%s: the library is damaged (%s); the file was not changed",
-                   self->parent.path,
-                   check ? check : sqlite3_errstr (rc));
+      lamina_backend_set_damaged_error (&self->parent, "on opening",
+                                        check ? check : sqlite3_errstr (rc), error);
       return FALSE;
     }
   return TRUE;
@@ -322,16 +332,12 @@ create_schema (LaminaSqlite  *self,
   return TRUE;
 }
 
+/* The connection of sqlite3_open_v2's @rc configured, or NULL. */
 static LaminaSqlite *
-open_file (const char    *path,
-           gboolean       create,
-           GError       **error)
+configured (LaminaSqlite  *self,
+            int            rc,
+            GError       **error)
 {
-  LaminaSqlite *self = sqlite_new (path);
-  int flags = SQLITE_OPEN_READWRITE | SQLITE_OPEN_NOMUTEX
-              | (create ? SQLITE_OPEN_CREATE | SQLITE_OPEN_EXCLUSIVE : 0);
-  int rc = sqlite3_open_v2 (path, &self->db, flags & ~SQLITE_OPEN_EXCLUSIVE, NULL);
-
   if (rc != SQLITE_OK)
     {
       lamina_sqlite_set_error (self, rc, "cannot open", error);
@@ -344,6 +350,68 @@ open_file (const char    *path,
       return NULL;
     }
   return self;
+}
+
+/* Why the library at @path cannot be written, or NULL. */
+static char *
+read_only_reason (const char             *path,
+                  LaminaLibraryOpenFlags  flags)
+{
+  g_autofree char *dir = g_path_get_dirname (path);
+  g_autofree char *wal = g_strconcat (path, "-wal", NULL);
+  g_autofree char *shm = g_strconcat (path, "-shm", NULL);
+
+  if (flags & LAMINA_LIBRARY_OPEN_READ_ONLY)
+    return g_strdup ("opened read-only");
+  if (access (path, W_OK) != 0)
+    return g_strdup (errno == EROFS ? "the disk is read-only" : "the file is read-only");
+  /* SQLite writes its journal files beside the library. */
+  if (access (dir, W_OK) != 0)
+    return g_strdup (errno == EROFS ? "the disk is read-only" : "the folder cannot be written");
+  if ((access (wal, F_OK) == 0 && access (wal, W_OK) != 0)
+      || (access (shm, F_OK) == 0 && access (shm, W_OK) != 0))
+    return g_strdup ("its journal files cannot be written");
+  return NULL;
+}
+
+static LaminaSqlite *
+open_file (const char    *path,
+           gboolean       create,
+           GError       **error)
+{
+  LaminaSqlite *self = sqlite_new (path);
+  int flags = SQLITE_OPEN_READWRITE | SQLITE_OPEN_NOMUTEX
+              | (create ? SQLITE_OPEN_CREATE | SQLITE_OPEN_EXCLUSIVE : 0);
+  int rc = sqlite3_open_v2 (path, &self->db, flags & ~SQLITE_OPEN_EXCLUSIVE, NULL);
+
+  return configured (self, rc, error);
+}
+
+/* A read-only connection.  In a folder we cannot write, SQLite cannot make
+ * the WAL index beside the file; unless another program has it open (its
+ * -shm file exists), nobody writes, and the file is read as it stands. */
+static LaminaSqlite *
+open_read_only (const char  *path,
+                const char  *reason,
+                GError     **error)
+{
+  LaminaSqlite *self = sqlite_new (path);
+  g_autofree char *dir = g_path_get_dirname (path);
+  g_autofree char *shm = g_strconcat (path, "-shm", NULL);
+  g_autofree char *uri = NULL;
+  int flags = SQLITE_OPEN_READONLY | SQLITE_OPEN_NOMUTEX | SQLITE_OPEN_URI;
+  int rc;
+
+  if (access (dir, W_OK) != 0 && access (shm, F_OK) != 0)
+    {
+      char *escaped = g_uri_escape_string (path, "/", FALSE);
+
+      uri = g_strdup_printf ("file:%s?immutable=1", escaped);
+      g_free (escaped);
+    }
+  self->parent.read_only_reason = g_strdup (reason);
+  rc = sqlite3_open_v2 (uri ? uri : path, &self->db, flags, NULL);
+  return configured (self, rc, error);
 }
 
 static void
@@ -410,6 +478,8 @@ lamina_sqlite_backend_open (const char             *path,
                                            GError                **error)
 {
   LaminaSqlite *self;
+  g_autofree char *reason = NULL;
+  g_autoptr(GError) local = NULL;
   int version = 0, rc;
   gboolean created = FALSE;
 
@@ -417,7 +487,7 @@ lamina_sqlite_backend_open (const char             *path,
     {
       g_autofree char *dir = g_path_get_dirname (path);
 
-      if (flags & LAMINA_LIBRARY_OPEN_EXISTING)
+      if (flags & (LAMINA_LIBRARY_OPEN_EXISTING | LAMINA_LIBRARY_OPEN_READ_ONLY))
         {
           g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
                        "%s: no such library", path);
@@ -436,17 +506,42 @@ lamina_sqlite_backend_open (const char             *path,
         return NULL;
     }
   /* A new file is opened like any other, once it is complete. */
-  if (!check_header (path, error))
-    return NULL;
-  self = open_file (path, FALSE, error);
+  if (!check_header (path, &local))
+    {
+      g_autofree char *latest = lamina_backup_dup_latest_for_path (path);
+      LaminaBackend named = { .path = (char *) path };
+
+      /* A file we have kept copies of was a library: it is damaged. */
+      if (latest != NULL && g_error_matches (local, LAMINA_LIBRARY_ERROR,
+                                             LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY))
+        lamina_backend_set_damaged_error (&named, "on opening",
+                                          "its first page is not a library's any more", error);
+      else
+        g_propagate_error (error, g_steal_pointer (&local));
+      return NULL;
+    }
+  reason = read_only_reason (path, flags);
+  self = reason ? open_read_only (path, reason, error) : open_file (path, FALSE, error);
   if (self == NULL)
     return NULL;
+  if (reason == NULL && sqlite3_db_readonly (self->db, "main") == 1)
+    self->parent.read_only_reason = g_strdup ("the file cannot be written");
   if (!recognise (self, &version, error))
     {
       lamina_sqlite_backend_close (&self->parent);
       return NULL;
     }
   self->parent.opened_version = version;
+  if (reason != NULL && version < LAMINA_LIBRARY_SCHEMA_VERSION)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_READ_ONLY,
+                   "%s: made by an earlier version of Lamina (library format %d) and read-only "
+                   "here (%s): it cannot be brought up to format %d; open it where it can be "
+                   "written, or open a copy", path, version, reason,
+                   LAMINA_LIBRARY_SCHEMA_VERSION);
+      lamina_sqlite_backend_close (&self->parent);
+      return NULL;
+    }
   if (version < LAMINA_LIBRARY_SCHEMA_VERSION
       && (!lamina_sqlite_exec (self, "PRAGMA journal_mode = WAL;", error)
           || !upgrade (self, version, error)))

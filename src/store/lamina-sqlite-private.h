@@ -19,6 +19,8 @@ typedef struct
   sqlite3       *db;
   GHashTable    *statements;    /* SQL text → sqlite3_stmt*, reused */
   gint64         data_version;  /* PRAGMA data_version at the last check */
+  gint64         busy_since;    /* monotonic µs: when the present wait began */
+  gboolean       busy_announced;
 } LaminaSqlite;
 
 /* A cached prepared statement, reset and with bindings cleared; NULL with
@@ -55,6 +57,27 @@ double        lamina_sqlite_column_double (sqlite3_stmt *stmt,
                                            int           index);
 char         *lamina_sqlite_column_dup    (sqlite3_stmt *stmt,
                                            int           index);
+
+/* lamina-sqlite-safety.c: waiting for another program's write lock. */
+void          lamina_sqlite_install_busy_handler (LaminaSqlite *self);
+/* Tells the wait function that a wait (if any) is over. */
+void          lamina_sqlite_end_wait             (LaminaSqlite *self);
+/* "which program holds the write lock" (from /proc/locks), or NULL. */
+char         *lamina_sqlite_dup_lock_holder      (LaminaSqlite *self);
+void          lamina_sqlite_set_busy_error       (LaminaSqlite  *self,
+                                                  GError       **error);
+/* Refuses a write to a read-only library (FALSE, @error set). */
+gboolean      lamina_sqlite_check_writable       (LaminaSqlite  *self,
+                                                  GError       **error);
+gboolean      lamina_sqlite_backend_verify_storage (LaminaBackend *backend,
+                                                    GPtrArray     *problems,
+                                                    GError       **error);
+gboolean      lamina_sqlite_backend_backup_to    (LaminaBackend *backend,
+                                                  const char    *dest,
+                                                  GError       **error);
+gboolean      lamina_sqlite_backend_restore_from (LaminaBackend *backend,
+                                                  const char    *source,
+                                                  GError       **error);
 
 /* lamina-sqlite-schema.c: migration steps.  Step n brings a file from
  * user_version n to n + 1; a new file runs every step from 0. */

@@ -434,9 +434,9 @@ lamina_sqlite_backend_set_deleted (LaminaBackend  *backend,
                                    const char     *when,
                                    GError        **error)
 {
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
+  sqlite3_stmt *stmt = lamina_sqlite_check_writable (SELF, error) ? lamina_sqlite_prepare (SELF,
     "UPDATE construction SET deleted_at = ?2"
-    " WHERE id = ?1 AND (deleted_at IS NULL) = (?2 IS NOT NULL);", error);
+    " WHERE id = ?1 AND (deleted_at IS NULL) = (?2 IS NOT NULL);", error) : NULL;
 
   if (stmt == NULL)
     return FALSE;

@@ -9,6 +9,7 @@
 #include "lamina-sqlite-private.h"
 
 #include <math.h>
+#include <string.h>
 
 void
 lamina_sqlite_set_error (LaminaSqlite  *self,
@@ -18,6 +19,30 @@ lamina_sqlite_set_error (LaminaSqlite  *self,
 {
   LaminaLibraryError code;
 
+  /* The three the user must act on get a sentence of their own. */
+  switch (rc & 0xff)
+    {
+    case SQLITE_BUSY:
+      lamina_sqlite_set_busy_error (self, error);
+      return;
+    case SQLITE_READONLY:
+      lamina_backend_set_read_only_error (&self->parent, error);
+      return;
+    case SQLITE_CORRUPT:
+    case SQLITE_NOTADB:
+      {
+        g_autofree char *where = g_strdup_printf ("while trying to %s",
+                                                  g_str_has_prefix (what, "cannot ")
+                                                    ? what + strlen ("cannot ") : what);
+
+        lamina_backend_set_damaged_error (&self->parent, where,
+                                          self->db ? sqlite3_errmsg (self->db)
+                                                   : sqlite3_errstr (rc), error);
+        return;
+      }
+    default:
+      break;
+    }
   switch (rc & 0xff)
     {
     case SQLITE_BUSY:
@@ -89,10 +114,26 @@ lamina_sqlite_exec (LaminaSqlite  *self,
 }
 
 gboolean
+lamina_sqlite_check_writable (LaminaSqlite  *self,
+                              GError       **error)
+{
+  if (self->parent.read_only_reason == NULL)
+    return TRUE;
+  lamina_backend_set_read_only_error (&self->parent, error);
+  return FALSE;
+}
+
+gboolean
 lamina_sqlite_begin (LaminaSqlite  *self,
                      GError       **error)
 {
-  return lamina_sqlite_exec (self, "BEGIN IMMEDIATE;", error);
+  gboolean ok;
+
+  if (!lamina_sqlite_check_writable (self, error))
+    return FALSE;
+  ok = lamina_sqlite_exec (self, "BEGIN IMMEDIATE;", error);
+  lamina_sqlite_end_wait (self);
+  return ok;
 }
 
 gboolean
