@@ -11,6 +11,7 @@
 #include <stdio.h>
 
 #include "lamina-demo.h"
+#include "lamina-office-dialog.h"
 #include "lamina-preferences-window.h"
 #include "lamina-window.h"
 
@@ -222,6 +223,7 @@ lamina_application_startup (GApplication *application)
                                    G_N_ELEMENTS (app_actions), application);
   gtk_application_set_accels_for_action (GTK_APPLICATION (application), "app.quit", quit_accels);
   gtk_application_set_accels_for_action (GTK_APPLICATION (application), "app.preferences", prefs_accels);
+  lamina_office_install_actions (GTK_APPLICATION (application));
   gtk_window_set_default_icon_name (APP_ID);
   lamina_close_keys_install ();
   LAMINA_APPLICATION (application)->settings = lamina_settings_new ();
