@@ -166,7 +166,17 @@ fill_data (LaminaJobsPage *self)
   add_field (self, row++, _("Architect"), job->architect);
   add_field (self, row++, _("Status"), lamina_job_status_to_string (job->status));
   add_field (self, row++, _("Design conditions"), conditions);
-  add_field (self, row++, _("Climate"), job->climate);
+  if (self->report->climate_unknown)
+    {
+      g_autofree char *flag = g_strdup_printf (_("⚠ “%s” is not among the library's climates: "
+                                                 "moisture checks use each construction's own climate"),
+                                               job->climate);
+
+      add_field (self, row++, _("Climate"), flag);
+      gtk_widget_add_css_class (gtk_grid_get_child_at (self->data_grid, 1, row - 1), "not-met");
+    }
+  else
+    add_field (self, row++, _("Climate"), self->report->climate ? self->report->climate->name : job->climate);
   add_field (self, row++, _("Targets"), targets);
 }
 
@@ -276,24 +286,8 @@ lamina_jobs_page_dup_differences (LaminaJobsPage *self,
                                   int             n)
 {
   const LaminaJobLine *line = find_line (self, n);
-  g_autoptr(LaminaConstruction) origin = NULL;
-  g_autoptr(LaminaConstruction) variant = NULL;
-  g_autoptr(GError) error = NULL;
-  GPtrArray *differences;
 
-  if (line == NULL || !lamina_job_entry_is_variant (line->entry))
-    return NULL;
-  origin = lamina_library_dup_construction (self->library, line->entry->origin,
-                                            line->entry->origin_revision, &error);
-  variant = lamina_library_dup_construction (self->library, line->entry->construction,
-                                             line->entry->revision, error == NULL ? &error : NULL);
-  if (origin == NULL || variant == NULL)
-    {
-      differences = g_ptr_array_new_with_free_func (g_free);
-      g_ptr_array_add (differences, g_strdup (error->message));
-      return differences;
-    }
-  return lamina_revision_diff (origin, variant);
+  return line != NULL ? lamina_revision_diff_job_entry (self->library, line->entry) : NULL;
 }
 
 static GtkWidget *
@@ -310,6 +304,7 @@ create_schedule_row (LaminaJobsPage      *self,
                                             line->entry->location ? line->entry->location : "");
   g_autofree char *code = g_strdup_printf ("%s r%d", c && c->code ? c->code : line->entry->construction,
                                            line->entry->revision);
+  g_autofree char *moisture = lamina_job_line_dup_moisture_text (line);
 
   gtk_box_append (GTK_BOX (top), create_label (code, 10, 0));
   gtk_widget_add_css_class (gtk_widget_get_last_child (top), "lamina-row-code");
@@ -356,6 +351,16 @@ create_schedule_row (LaminaJobsPage      *self,
       label = create_label (text->str, 0, 0);
       gtk_label_set_wrap (GTK_LABEL (label), TRUE);
       gtk_widget_add_css_class (label, "caption");
+      gtk_box_append (GTK_BOX (box), label);
+    }
+  if (moisture != NULL)
+    {
+      GtkWidget *label = create_label (moisture, 0, 0);
+
+      gtk_label_set_wrap (GTK_LABEL (label), TRUE);
+      gtk_widget_add_css_class (label, "caption");
+      if (line->moisture_verdict == LAMINA_VERDICT_NOT_MET || (line->flags & LAMINA_ENTRY_FRSI_NOT_MET))
+        gtk_widget_add_css_class (label, "not-met");
       gtk_box_append (GTK_BOX (box), label);
     }
   for (guint i = 0; i < line->notes->len; i++)

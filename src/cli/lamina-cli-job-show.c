@@ -8,6 +8,7 @@
 #include "lamina-cli-job.h"
 #include "lamina-cli-report.h"
 #include "lamina-file.h"
+#include "lamina-revision-diff.h"
 #include "lamina-sheet.h"
 
 #include <glib/gi18n.h>
@@ -84,10 +85,67 @@ lamina_cli_job_list (const LaminaCliGlobals *globals,
   return LAMINA_EXIT_OK;
 }
 
+static const char *
+moisture_verdict_name (const LaminaJobLine *line)
+{
+  switch (line->moisture_verdict)
+    {
+    case LAMINA_VERDICT_MET:
+      return "met";
+    case LAMINA_VERDICT_NOT_MET:
+      return "not-met";
+    case LAMINA_VERDICT_NOT_CALCULATED:
+      return "not-assessed";
+    case LAMINA_VERDICT_NO_TARGET:
+    case LAMINA_N_VERDICTS:
+    default:
+      return NULL;
+    }
+}
+
+static void
+add_moisture (JsonBuilder         *b,
+              const LaminaJobLine *line)
+{
+  gboolean frsi_asked = line->target != NULL && !isnan (line->target->min_frsi);
+
+  lamina_cli_json_add_number (b, "frsi", frsi_asked ? line->frsi : NAN);
+  lamina_cli_json_add_number (b, "min_frsi", frsi_asked ? line->target->min_frsi : NAN);
+  json_builder_set_member_name (b, "frsi_met");
+  if (frsi_asked && !isnan (line->frsi))
+    json_builder_add_boolean_value (b, !(line->flags & LAMINA_ENTRY_FRSI_NOT_MET));
+  else
+    json_builder_add_null_value (b);
+  lamina_cli_json_add_string (b, "moisture_criterion", line->target != NULL && line->target->moisture != LAMINA_MOISTURE_NONE
+                              ? lamina_moisture_criterion_to_string (line->target->moisture) : NULL);
+  lamina_cli_json_add_string (b, "moisture", moisture_verdict_name (line));
+  if (line->moisture != NULL)
+    {
+      lamina_cli_json_add_number (b, "max_accumulation", line->moisture->max_accumulation);
+      json_builder_set_member_name (b, "dries_out");
+      json_builder_add_boolean_value (b, line->moisture->dries_out);
+    }
+}
+
+static void
+add_differences (JsonBuilder *b,
+                 GPtrArray   *differences)
+{
+  if (differences == NULL)
+    return;
+  json_builder_set_member_name (b, "differences");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < differences->len; i++)
+    json_builder_add_string_value (b, differences->pdata[i]);
+  json_builder_end_array (b);
+}
+
 static void
 add_line (JsonBuilder         *b,
+          LaminaLibrary       *library,
           const LaminaJobLine *line)
 {
+  g_autoptr(GPtrArray) differences = lamina_revision_diff_job_entry (library, line->entry);
   const LaminaJobEntry *e = line->entry;
   const LaminaConstruction *c = line->construction;
   static const struct { LaminaEntryFlags flag; const char *name; } flag_names[] = {
@@ -100,6 +158,8 @@ add_line (JsonBuilder         *b,
     { LAMINA_ENTRY_MOISTURE_OPEN, "moisture-not-assessed" },
     { LAMINA_ENTRY_WARNINGS, "warnings" },
     { LAMINA_ENTRY_MISSING, "missing" },
+    { LAMINA_ENTRY_MOISTURE_NOT_MET, "moisture-not-met" },
+    { LAMINA_ENTRY_CLIMATE_CHANGED, "climate-changed" },
   };
 
   json_builder_begin_object (b);
@@ -129,6 +189,8 @@ add_line (JsonBuilder         *b,
       json_builder_set_member_name (b, "origin_revision");
       json_builder_add_int_value (b, e->origin_revision);
     }
+  add_differences (b, differences);
+  add_moisture (b, line);
   json_builder_set_member_name (b, "flags");
   json_builder_begin_array (b);
   for (guint i = 0; i < G_N_ELEMENTS (flag_names); i++)
@@ -168,7 +230,8 @@ add_totals (JsonBuilder          *b,
 
 static void
 add_job_data (JsonBuilder     *b,
-              const LaminaJob *job)
+              const LaminaJob *job,
+              gboolean         climate_unknown)
 {
   lamina_cli_json_add_string (b, "id", job->id);
   lamina_cli_json_add_string (b, "name", job->name);
@@ -179,6 +242,11 @@ add_job_data (JsonBuilder     *b,
   lamina_cli_json_add_string (b, "status", lamina_job_status_to_string (job->status));
   lamina_cli_json_add_string (b, "target_set", job->target_set);
   lamina_cli_json_add_string (b, "climate", job->climate);
+  json_builder_set_member_name (b, "climate_known");
+  if (job->climate != NULL)
+    json_builder_add_boolean_value (b, !climate_unknown);
+  else
+    json_builder_add_null_value (b);
   lamina_cli_json_add_number (b, "inside_temperature", job->inside_temperature);
   lamina_cli_json_add_number (b, "outside_temperature", job->outside_temperature);
   lamina_cli_json_add_number (b, "ground_b_prime", lamina_job_get_b_prime (job));
@@ -220,18 +288,19 @@ add_junctions_and_log (JsonBuilder     *b,
 }
 
 static void
-print_json (const LaminaJobReport *report)
+print_json (LaminaLibrary         *library,
+            const LaminaJobReport *report)
 {
   g_autoptr(JsonBuilder) b = json_builder_new ();
 
   json_builder_begin_object (b);
   json_builder_set_member_name (b, "job");
   json_builder_begin_object (b);
-  add_job_data (b, report->job);
+  add_job_data (b, report->job, report->climate_unknown);
   json_builder_set_member_name (b, "entries");
   json_builder_begin_array (b);
   for (guint i = 0; i < report->check->lines->len; i++)
-    add_line (b, report->check->lines->pdata[i]);
+    add_line (b, library, report->check->lines->pdata[i]);
   json_builder_end_array (b);
   add_totals (b, report->check);
   add_junctions_and_log (b, report->job);
@@ -258,8 +327,33 @@ verdict_text (LaminaVerdict verdict)
     }
 }
 
+/* The fRsi and moisture criteria of the entry's target, when it asks. */
 static void
-print_text (const LaminaJobReport *report)
+print_moisture (const LaminaJobLine *l)
+{
+  g_autofree char *text = lamina_job_line_dup_moisture_text (l);
+
+  if (text != NULL)
+    printf ("       %s\n", text);
+}
+
+static void
+print_differences (LaminaLibrary        *library,
+                   const LaminaJobEntry *e)
+{
+  g_autoptr(GPtrArray) differences = lamina_revision_diff_job_entry (library, e);
+
+  if (differences == NULL)
+    return;
+  printf (_("       job variant of %s revision %d:%s\n"), e->origin, e->origin_revision,
+          differences->len == 0 ? _(" no difference yet") : "");
+  for (guint i = 0; i < differences->len; i++)
+    printf ("         – %s\n", (const char *) differences->pdata[i]);
+}
+
+static void
+print_text (LaminaLibrary         *library,
+            const LaminaJobReport *report)
 {
   const LaminaJob *job = report->job;
   const LaminaJobCheck *check = report->check;
@@ -273,6 +367,10 @@ print_text (const LaminaJobReport *report)
   printf (_("Targets: %s; design conditions %g °C inside, %g °C outside\n"),
           report->targets ? report->targets->name : _("none"),
           job->inside_temperature, job->outside_temperature);
+  if (job->climate != NULL)
+    printf (report->climate_unknown ? _("Climate: %s — NOT IN THE LIBRARY; moisture checks use each "
+                                        "construction's own climate\n")
+                                    : _("Climate: %s\n"), job->climate);
   printf ("\n%3s  %-14s %-4s %-18s %7s %7s %-10s %8s %8s\n", "#", _("construction"), _("rev"),
           _("use"), "U", _("max U"), _("verdict"), "A m²", "U·A W/K");
   for (guint i = 0; i < check->lines->len; i++)
@@ -285,6 +383,8 @@ print_text (const LaminaJobReport *report)
               l->entry->use, l->u, l->max_u, verdict_text (l->verdict), l->entry->area, l->ua);
       for (guint k = 0; k < l->notes->len; k++)
         printf ("       ! %s\n", (const char *) l->notes->pdata[k]);
+      print_moisture (l);
+      print_differences (library, l->entry);
     }
   printf (_("\nH_T of the listed elements' fabric only (Σ U·A): %.2f W/K over %.1f m²\n"),
           check->h_t, check->area);
@@ -329,9 +429,9 @@ lamina_cli_job_show (const LaminaCliGlobals *globals,
       return LAMINA_EXIT_BAD_INPUT;
     }
   if (json)
-    print_json (report);
+    print_json (library, report);
   else
-    print_text (report);
+    print_text (library, report);
   return LAMINA_EXIT_OK;
 }
 

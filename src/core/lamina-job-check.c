@@ -115,11 +115,57 @@ write_notes (LaminaJobLine *line)
     add_note (line, _("The use “%s” is for a %s, the construction is a %s."), line->entry->use,
               lamina_element_to_string ((LaminaElement) line->target->element),
               lamina_element_to_string (line->construction->element));
+  if (f & LAMINA_ENTRY_MOISTURE_NOT_MET)
+    add_note (line, "%s", line->target->moisture == LAMINA_MOISTURE_NO_CONDENSATION
+              ? _("Moisture (EN ISO 13788): interstitial condensation occurs; the criterion is none in any month.")
+              : _("Moisture (EN ISO 13788): condensate is left at the end of the year; the criterion is that it "
+                  "evaporates within the year."));
   if (f & LAMINA_ENTRY_MOISTURE_OPEN)
     add_note (line, _("The moisture criterion “%s” is to be shown by an EN ISO 13788 assessment."),
               lamina_moisture_criterion_to_string (line->target->moisture));
+  if (f & LAMINA_ENTRY_CLIMATE_CHANGED)
+    add_note (line, _("Library climate data changed since this revision was checked."));
   if (f & LAMINA_ENTRY_WARNINGS)
     add_note (line, _("The calculation gave warnings; see the construction's sheet."));
+}
+
+gboolean
+lamina_moisture_criterion_met (LaminaMoistureCriterion     criterion,
+                               const LaminaMoistureResult *result)
+{
+  g_return_val_if_fail (result != NULL, FALSE);
+
+  switch (criterion)
+    {
+    case LAMINA_MOISTURE_NO_CONDENSATION:
+      return !result->condensation;
+    case LAMINA_MOISTURE_NO_ACCUMULATION:
+      return !result->condensation || result->dries_out;
+    case LAMINA_MOISTURE_NONE:
+    case LAMINA_N_MOISTURE_CRITERIA:
+    default:
+      return TRUE;
+    }
+}
+
+/* The target's moisture criterion against the assessment the caller
+ * made in the job's climate. */
+static LaminaVerdict
+check_moisture (LaminaJobLine        *line,
+                const LaminaTarget   *t,
+                const LaminaJobInput *input)
+{
+  if (t == NULL || t->moisture == LAMINA_MOISTURE_NONE)
+    return LAMINA_VERDICT_NO_TARGET;
+  if (input->moisture == NULL)
+    {
+      line->flags |= LAMINA_ENTRY_MOISTURE_OPEN;
+      return LAMINA_VERDICT_NOT_CALCULATED;
+    }
+  if (lamina_moisture_criterion_met (t->moisture, input->moisture))
+    return LAMINA_VERDICT_MET;
+  line->flags |= LAMINA_ENTRY_MOISTURE_NOT_MET;
+  return LAMINA_VERDICT_NOT_MET;
 }
 
 static LaminaJobLine *
@@ -150,8 +196,10 @@ check_entry (const LaminaJobEntry  *entry,
    * when the construction states its ground (EN ISO 13370). */
   if (t != NULL && t->ground && (input->result == NULL || !input->result->has_ground))
     line->flags |= LAMINA_ENTRY_OUT_OF_SCOPE;
-  if (t != NULL && t->moisture != LAMINA_MOISTURE_NONE)
-    line->flags |= LAMINA_ENTRY_MOISTURE_OPEN;
+  line->moisture = input->moisture;
+  if (input->moisture != NULL && !isnan (input->moisture->f_rsi))
+    line->frsi = input->moisture->f_rsi;
+  line->moisture_verdict = check_moisture (line, t, input);
 
   if (c == NULL || isnan (line->u))
     line->verdict = LAMINA_VERDICT_NOT_CALCULATED;
@@ -163,10 +211,50 @@ check_entry (const LaminaJobEntry  *entry,
 
       if (!frsi_ok)
         line->flags |= LAMINA_ENTRY_FRSI_NOT_MET;
-      line->verdict = line->u <= t->max_u && frsi_ok ? LAMINA_VERDICT_MET : LAMINA_VERDICT_NOT_MET;
+      line->verdict = line->u <= t->max_u && frsi_ok && line->moisture_verdict != LAMINA_VERDICT_NOT_MET
+                      ? LAMINA_VERDICT_MET : LAMINA_VERDICT_NOT_MET;
     }
   write_notes (line);
+  if (input->moisture_problem != NULL && (line->flags & LAMINA_ENTRY_MOISTURE_OPEN))
+    add_note (line, "%s", input->moisture_problem);
   return line;
+}
+
+static const char *
+verdict_word (LaminaVerdict verdict)
+{
+  return verdict == LAMINA_VERDICT_MET ? _("met")
+         : verdict == LAMINA_VERDICT_NOT_MET ? _("NOT MET") : _("not assessed");
+}
+
+char *
+lamina_job_line_dup_moisture_text (const LaminaJobLine *line)
+{
+  const LaminaTarget *t = line->target;
+  g_autoptr(GString) text = NULL;
+
+  if (t == NULL || (isnan (t->min_frsi) && t->moisture == LAMINA_MOISTURE_NONE)
+      || line->construction == NULL)
+    return NULL;
+  text = g_string_new ("EN ISO 13788:");
+  if (!isnan (t->min_frsi) && !isnan (line->frsi))
+    g_string_append_printf (text, _(" fRsi %.3f, minimum %.3f: %s"), line->frsi, t->min_frsi,
+                            verdict_word ((line->flags & LAMINA_ENTRY_FRSI_NOT_MET)
+                                          ? LAMINA_VERDICT_NOT_MET : LAMINA_VERDICT_MET));
+  if (t->moisture != LAMINA_MOISTURE_NONE)
+    {
+      const char *criterion = t->moisture == LAMINA_MOISTURE_NO_CONDENSATION
+                              ? _("no interstitial condensation") : _("condensate dries out within the year");
+
+      g_string_append_printf (text, "%s %s: %s", isnan (t->min_frsi) ? "" : ";", criterion,
+                              verdict_word (line->moisture_verdict));
+      if (line->moisture != NULL)
+        g_string_append_printf (text, _(" (largest accumulation %.3f kg/m², %s)"),
+                                line->moisture->max_accumulation,
+                                line->moisture->dries_out ? _("dry at the end of the year")
+                                                          : _("still wet at the end of the year"));
+    }
+  return g_string_free (g_steal_pointer (&text), FALSE);
 }
 
 static void

@@ -13,6 +13,7 @@
 #include "lamina-calc.h"
 #include "lamina-construction.h"
 #include "lamina-job.h"
+#include "lamina-moisture.h"
 #include "lamina-target-set.h"
 
 G_BEGIN_DECLS
@@ -38,6 +39,8 @@ typedef enum
   LAMINA_ENTRY_MOISTURE_OPEN    = 1 << 6, /* moisture criterion not assessed here */
   LAMINA_ENTRY_WARNINGS         = 1 << 7, /* the calculation gave warnings */
   LAMINA_ENTRY_MISSING          = 1 << 8, /* the construction or revision is gone */
+  LAMINA_ENTRY_MOISTURE_NOT_MET = 1 << 9, /* the moisture criterion assessed and failed */
+  LAMINA_ENTRY_CLIMATE_CHANGED  = 1 << 10, /* library climate data changed since */
 } LaminaEntryFlags;
 
 /* What the caller knows about one entry. */
@@ -47,6 +50,10 @@ typedef struct
   const LaminaResult       *result;         /* NULL if not calculable */
   LaminaEntryFlags          flags;          /* NEWER_APPROVED, MATERIAL_CHANGED, MISSING */
   int                       newer_revision; /* with NEWER_APPROVED */
+  /* EN ISO 13788 in the job's climate (NULL if not assessed) and, when
+   * it could not be, why (a sentence, or NULL). */
+  const LaminaMoistureResult *moisture;
+  const char               *moisture_problem;
 } LaminaJobInput;
 
 typedef struct
@@ -62,6 +69,11 @@ typedef struct
   LaminaEntryFlags          flags;
   int                       newer_revision;
   GPtrArray                *notes;          /* char*: one sentence per flag */
+  /* The target's moisture criterion: MET / NOT_MET when assessed,
+   * NO_TARGET when the target asks none, NOT_CALCULATED when it asks one
+   * that could not be assessed. */
+  LaminaVerdict             moisture_verdict;
+  const LaminaMoistureResult *moisture;     /* borrowed from the input */
 } LaminaJobLine;
 
 typedef struct
@@ -88,6 +100,17 @@ typedef struct
 /* The surface resistance for the temperature factor, EN ISO 13788:2012
  * 4.2 (0.25 m²·K/W on the inside of opaque elements; from memory). */
 #define LAMINA_FRSI_SURFACE_RESISTANCE 0.25
+
+/* Whether @result meets @criterion: no interstitial condensation in any
+ * month, or all condensate evaporated by the end of the year
+ * (EN ISO 13788:2012 clause 7, the monthly balance). */
+gboolean        lamina_moisture_criterion_met (LaminaMoistureCriterion     criterion,
+                                               const LaminaMoistureResult *result);
+
+/* One sentence with the entry's fRsi and moisture criterion against its
+ * target, pass or fail ("EN ISO 13788: fRsi 0.94 ≥ 0.75 met; no
+ * condensation: met …"); NULL when the target asks neither. */
+char           *lamina_job_line_dup_moisture_text (const LaminaJobLine *line);
 
 /* @inputs holds one LaminaJobInput per entry of @job, in order; @targets
  * may be NULL (then nothing has a target). */

@@ -137,3 +137,29 @@ lamina_revision_diff (const LaminaConstruction *older,
   diff_layers (out, older, newer);
   return out;
 }
+
+GPtrArray *
+lamina_revision_diff_job_entry (LaminaLibrary        *library,
+                                const LaminaJobEntry *entry)
+{
+  g_autoptr(LaminaConstruction) origin = NULL;
+  g_autoptr(LaminaConstruction) variant = NULL;
+  g_autoptr(GError) error = NULL;
+  GPtrArray *differences;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (library), NULL);
+  g_return_val_if_fail (entry != NULL, NULL);
+
+  if (!lamina_job_entry_is_variant (entry))
+    return NULL;
+  origin = lamina_library_dup_construction (library, entry->origin, entry->origin_revision, &error);
+  if (origin != NULL)
+    variant = lamina_library_dup_construction (library, entry->construction, entry->revision, &error);
+  if (variant == NULL)
+    {
+      differences = g_ptr_array_new_with_free_func (g_free);
+      g_ptr_array_add (differences, g_strdup (error->message));
+      return differences;
+    }
+  return lamina_revision_diff (origin, variant);
+}

@@ -4,11 +4,18 @@
 #pragma once
 
 #include "lamina-construction.h"
+#include "lamina-library.h"
 
 G_BEGIN_DECLS
 
 /* char* sentences, translated; empty when the content is the same. */
 GPtrArray *lamina_revision_diff (const LaminaConstruction *older,
                                  const LaminaConstruction *newer);
+
+/* What job variant @entry changes from its origin at the origin's pinned
+ * revision (sentences as above; one sentence saying what is missing when
+ * either revision is not in @library); NULL when @entry is no variant. */
+GPtrArray *lamina_revision_diff_job_entry (LaminaLibrary        *library,
+                                           const LaminaJobEntry *entry);
 
 G_END_DECLS

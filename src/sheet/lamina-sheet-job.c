@@ -199,7 +199,9 @@ get_columns (const SheetContext *ctx)
 static double
 line_height (const LaminaJobLine *line)
 {
-  return ROW + NOTE_ROW * line->notes->len;
+  g_autofree char *moisture = lamina_job_line_dup_moisture_text (line);
+
+  return ROW + NOTE_ROW * (line->notes->len + (moisture != NULL));
 }
 
 /* Totals: areas and H_T, the mean U of each element kind, the junctions. */
@@ -292,6 +294,7 @@ draw_row (SheetContext        *ctx,
   char n[16], u[LAMINA_FORMAT_SIZE], max[LAMINA_FORMAT_SIZE], area[LAMINA_FORMAT_SIZE];
   char ua[LAMINA_FORMAT_SIZE];
   g_autofree char *name = NULL;
+  g_autofree char *moisture = lamina_job_line_dup_moisture_text (line);
 
   g_snprintf (n, sizeof n, "%d", line->entry->n);
   name = g_strdup_printf ("%s%s%s (rev. %d)", k ? k->name : line->entry->construction,
@@ -314,6 +317,11 @@ draw_row (SheetContext        *ctx,
   sheet_text_line (ctx, SHEET_FONT_BODY, isnan (line->ua) ? "—" : lamina_format_fixed (ua, line->ua, 2),
                    c.x_ua, *y, 0, PANGO_ALIGN_RIGHT);
   *y += ROW;
+  if (moisture != NULL)
+    {
+      sheet_text_line (ctx, SHEET_FONT_SMALL, moisture, c.x_code, *y - 3, ctx->right - c.x_code, PANGO_ALIGN_LEFT);
+      *y += NOTE_ROW;
+    }
   set_grey (ctx);
   for (guint i = 0; i < line->notes->len; i++)
     {

@@ -156,17 +156,40 @@ dup_uses (const LaminaTargetSet *set)
   return g_string_free (g_steal_pointer (&text), FALSE);
 }
 
-/* The job's own rules, its target set in @sets and its uses in the set. */
+static char *
+dup_climate_ids (GPtrArray *climates)
+{
+  g_autoptr(GString) text = g_string_new (NULL);
+
+  for (guint i = 0; i < climates->len; i++)
+    g_string_append_printf (text, "%s%s", i > 0 ? ", " : "",
+                            ((LaminaClimate *) climates->pdata[i])->id);
+  return g_string_free (g_steal_pointer (&text), FALSE);
+}
+
+/* The job's own rules, its climate in @climates, its target set in @sets
+ * and its uses in the set. */
 static gboolean
 check_job (const LaminaJob *job,
            GPtrArray       *sets,
+           GPtrArray       *climates,
            GError         **error)
 {
   g_autoptr(GError) local = NULL;
   const LaminaTargetSet *set;
+  gboolean known = job->climate == NULL;
 
   if (!lamina_job_validate (job, NULL, &local))
     return refuse (error, "%s", local->message);
+  for (guint i = 0; !known && i < climates->len; i++)
+    known = g_strcmp0 (((LaminaClimate *) climates->pdata[i])->id, job->climate) == 0;
+  if (!known)
+    {
+      g_autofree char *ids = dup_climate_ids (climates);
+
+      return refuse (error, "job “%s”, climate: there is no climate “%s” in the library (its climates: %s)",
+                     job->id, job->climate, climates->len > 0 ? ids : "none");
+    }
   if (job->target_set == NULL)
     return TRUE;
   set = find_target_set (sets, job->target_set);
@@ -194,12 +217,14 @@ store_job (LaminaLibrary *self,
            GError       **error)
 {
   g_autoptr(GPtrArray) sets = NULL;
+  g_autoptr(GPtrArray) climates = NULL;
 
   g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
   g_return_val_if_fail (job != NULL, FALSE);
   BACKEND_OR_FAIL (self, error, FALSE);
   sets = VT (self)->list_target_sets (BE (self), error);
-  if (sets == NULL || !check_job (job, sets, error))
+  climates = sets != NULL ? VT (self)->list_climates (BE (self), error) : NULL;
+  if (climates == NULL || !check_job (job, sets, climates, error))
     return FALSE;
   g_free (job->modified_at);
   job->modified_at = lamina_library_dup_now ();
@@ -316,6 +341,9 @@ lamina_job_report_free (LaminaJobReport *report)
   g_free (report->inputs);
   g_clear_pointer (&report->results, g_ptr_array_unref);
   g_clear_pointer (&report->constructions, g_ptr_array_unref);
+  g_clear_pointer (&report->moisture, g_ptr_array_unref);
+  g_clear_pointer (&report->moisture_problems, g_ptr_array_unref);
+  lamina_climate_free (report->climate);
   lamina_target_set_free (report->targets);
   lamina_job_free (report->job);
   g_free (report);
@@ -333,6 +361,67 @@ construction_free (gpointer c)
 {
   if (c != NULL)
     lamina_construction_free (c);
+}
+
+static void
+moisture_free (gpointer result)
+{
+  if (result != NULL)
+    lamina_moisture_result_free (result);
+}
+
+/* The climate data @c was checked with differ from the library's. */
+static gboolean
+climate_changed (LaminaLibrary            *self,
+                 const LaminaConstruction *c)
+{
+  g_autoptr(LaminaClimate) library = NULL;
+
+  if (c->moisture == NULL || c->moisture->climate_data == NULL)
+    return FALSE;
+  library = lamina_library_dup_climate (self, c->moisture->climate, NULL);
+  return library != NULL && !lamina_climate_equal (library, c->moisture->climate_data);
+}
+
+/* EN ISO 13788 for entry @e when its use asks a moisture criterion: in
+ * the job's climate when it names one the library holds, else in the
+ * climate the construction was checked for; the inside conditions are
+ * the construction's (humidity class or φi) at the job's temperature. */
+static void
+assess_moisture (LaminaJobReport          *report,
+                 const LaminaJobEntry     *e,
+                 const LaminaConstruction *c,
+                 LaminaJobInput           *input)
+{
+  const LaminaTarget *t = report->targets ? lamina_target_set_find (report->targets, e->use) : NULL;
+  g_autoptr(LaminaConstruction) copy = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaMoistureResult *result = NULL;
+  char *problem = NULL;
+
+  if (t == NULL || (t->moisture == LAMINA_MOISTURE_NONE && isnan (t->min_frsi)))
+    ;
+  else if (c->moisture == NULL)
+    problem = g_strdup_printf ("“%s” has no moisture settings (inside humidity), so EN ISO 13788 "
+                               "was not applied.", c->code ? c->code : c->id);
+  else
+    {
+      copy = lamina_construction_copy (c);
+      if (report->climate != NULL)
+        {
+          g_free (copy->moisture->climate);
+          copy->moisture->climate = g_strdup (report->climate->id);
+          g_clear_pointer (&copy->moisture->climate_data, lamina_climate_free);
+          copy->moisture->climate_data = lamina_climate_copy (report->climate);
+        }
+      result = lamina_moisture_calculate_own (copy, NAN, &error);
+      if (result == NULL)
+        problem = g_strdup_printf ("EN ISO 13788 could not be applied: %s", error->message);
+    }
+  input->moisture = result;
+  input->moisture_problem = problem;
+  g_ptr_array_add (report->moisture, result);
+  g_ptr_array_add (report->moisture_problems, problem);
 }
 
 /* What the library knows about one entry's pin. */
@@ -354,6 +443,8 @@ fill_input (LaminaLibrary        *self,
       input->flags |= LAMINA_ENTRY_MISSING;
       g_ptr_array_add (report->constructions, NULL);
       g_ptr_array_add (report->results, NULL);
+      g_ptr_array_add (report->moisture, NULL);
+      g_ptr_array_add (report->moisture_problems, NULL);
       return;
     }
   /* The job's design conditions (they move the temperature profile on
@@ -370,6 +461,9 @@ fill_input (LaminaLibrary        *self,
   changes = lamina_library_collect_material_changes (self, c);
   if (changes->len > 0)
     input->flags |= LAMINA_ENTRY_MATERIAL_CHANGED;
+  if (climate_changed (self, c))
+    input->flags |= LAMINA_ENTRY_CLIMATE_CHANGED;
+  assess_moisture (report, e, c, input);
   input->construction = c;
   input->result = result;
   g_ptr_array_add (report->constructions, g_steal_pointer (&c));
@@ -393,7 +487,14 @@ lamina_library_check_job (LaminaLibrary  *self,
       if (report->targets == NULL)
         return NULL;
     }
+  if (report->job->climate != NULL)
+    {
+      report->climate = lamina_library_dup_climate (self, report->job->climate, NULL);
+      report->climate_unknown = report->climate == NULL;
+    }
   n = report->job->entries->len;
+  report->moisture = g_ptr_array_new_with_free_func (moisture_free);
+  report->moisture_problems = g_ptr_array_new_with_free_func (g_free);
   report->constructions = g_ptr_array_new_with_free_func (construction_free);
   report->results = g_ptr_array_new_with_free_func (result_free);
   report->inputs = g_new0 (LaminaJobInput, MAX (n, 1));
@@ -546,13 +647,18 @@ lamina_library_merge_records (LaminaLibrary         *self,
 {
   g_autoptr(GPtrArray) sets = NULL;
   g_autoptr(GPtrArray) known_jobs = NULL;
+  g_autoptr(GPtrArray) climates = NULL;
 
   if (catalogue->target_sets->len == 0 && catalogue->jobs->len == 0)
     return TRUE;
   sets = VT (self)->list_target_sets (BE (self), error);
   known_jobs = sets != NULL ? VT (self)->list_jobs (BE (self), error) : NULL;
-  if (known_jobs == NULL)
+  climates = known_jobs != NULL ? VT (self)->list_climates (BE (self), error) : NULL;
+  if (climates == NULL)
     return FALSE;
+  /* A job may name a climate the same document brings. */
+  for (guint i = 0; catalogue->climates != NULL && i < catalogue->climates->len; i++)
+    g_ptr_array_add (climates, lamina_climate_copy (catalogue->climates->pdata[i]));
   for (guint i = 0; i < catalogue->target_sets->len; i++)
     {
       const LaminaTargetSet *set = catalogue->target_sets->pdata[i];
@@ -579,7 +685,7 @@ lamina_library_merge_records (LaminaLibrary         *self,
       for (guint k = 0; k < job->entries->len; k++)
         if (!repin_entry (self, catalogue, report, job, job->entries->pdata[k], error))
           return FALSE;
-      if (!check_job (job, sets, error))
+      if (!check_job (job, sets, climates, error))
         {
           g_prefix_error (error, "line %d: ", job->line);
           g_prefix_error (error, "nothing was imported: ");

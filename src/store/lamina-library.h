@@ -525,6 +525,14 @@ typedef struct
   GPtrArray          *results;        /* LaminaResult* or NULL, per entry */
   LaminaJobInput     *inputs;
   LaminaJobCheck     *check;
+  /* EN ISO 13788 per entry, for a use whose target asks a moisture
+   * criterion: LaminaMoistureResult* or NULL, and why not (char* or
+   * NULL).  The climate is the job's, else the construction's own. */
+  GPtrArray          *moisture;
+  GPtrArray          *moisture_problems;
+  LaminaClimate      *climate;        /* the job's, NULL if none or unknown */
+  /* The job names a climate the library does not hold. */
+  gboolean            climate_unknown;
 } LaminaJobReport;
 
 void           lamina_job_report_free          (LaminaJobReport      *report);

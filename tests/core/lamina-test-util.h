@@ -5,6 +5,7 @@
 #pragma once
 
 #include "lamina-calc.h"
+#include "lamina-climate.h"
 
 #include <math.h>
 #include <string.h>
@@ -47,3 +48,18 @@ test_calculate (const LaminaConstruction *c)
 /* Relative closeness, for figures re-derived by hand in the test. */
 #define assert_close(a, b, rel) \
   g_assert_cmpfloat_with_epsilon ((a), (b), (rel) * fabs (b) + 1e-12)
+
+/* A climate of constant monthly means (invented test data), id "site". */
+static inline LaminaClimate *
+test_constant_climate (double temperature,
+                       double humidity)
+{
+  LaminaClimate *climate = lamina_climate_new ("site", "test");
+
+  for (int m = 0; m < LAMINA_MONTHS; m++)
+    {
+      climate->temperature[m] = temperature;
+      climate->humidity[m] = humidity;
+    }
+  return climate;
+}

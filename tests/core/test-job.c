@@ -425,6 +425,124 @@ test_refusals (void)
   }
 }
 
+/* Moisture criteria of a target (EN ISO 13788:2012 clause 7, the monthly
+ * balance; from memory).  The build-up and the figures are those worked by
+ * hand in tests/core/test-moisture.c: plasterboard 12.5 mm (λ 0.25, μ 10),
+ * mineral wool 150 mm (λ 0.040, μ 1), OSB 15 mm (λ 0.13, μ 30), θi 20 °C,
+ * φi 0.5.  Outside −5 °C, φe 0.8 all year: condensation at the wool/OSB
+ * plane from January, never drying.  fRsi = 1 − 0.25·U* with U* =
+ * 1/(4.085385 − 0.13 + 0.25) = 0.237790 → 0.940552 (clause 5), not the
+ * 1 − 0.25·U of the thermal U alone. */
+static LaminaConstruction *
+moisture_wall (void)
+{
+  LaminaConstruction *c = lamina_construction_new ("tw", "timber wall", LAMINA_ELEMENT_WALL);
+  const struct { double d; const char *id; LaminaCategory cat; double lambda, mu; } layers[] = {
+    { 12.5, "plasterboard", LAMINA_CATEGORY_BOARD, 0.25, 10 },
+    { 150, "mineral-wool", LAMINA_CATEGORY_INSULATION, 0.040, 1 },
+    { 15, "osb", LAMINA_CATEGORY_BOARD, 0.13, 30 },
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (layers); i++)
+    {
+      LaminaLayer *layer = test_layer (layers[i].d, layers[i].id, layers[i].cat, layers[i].lambda);
+
+      layer->material->vapour_resistance_factor = layers[i].mu;
+      lamina_construction_add_layer (c, layer);
+    }
+  c->inside_temperature = 20;
+  c->outside_temperature = -5;
+  lamina_construction_set_moisture (c, lamina_moisture_settings_new ("site"));
+  c->moisture->inside_humidity = 0.5;
+  c->status = LAMINA_STATUS_APPROVED;
+  return c;
+}
+
+typedef struct
+{
+  LaminaMoistureCriterion criterion;
+  double                  outside;          /* °C, all year */
+  gboolean                assessed;
+  LaminaVerdict           moisture_verdict;
+  LaminaVerdict           verdict;
+  LaminaEntryFlags        flag;             /* expected among the flags */
+} MoistureCase;
+
+static void
+test_moisture_criteria (void)
+{
+  /* U = 1/4.085385 = 0.2448 ≤ 0.30 (invented maximum) in every case, so
+   * the verdict turns on the moisture criterion alone.  At +15 °C, φe
+   * 0.6 the outside pressure 0.6·1705 = 1023 Pa is below the inside
+   * 0.5·2337 = 1168 Pa and every plane is above 15 °C (psat ≥ 1705 Pa >
+   * 1168): no condensation anywhere (clause 7). */
+  static const MoistureCase cases[] = {
+    { LAMINA_MOISTURE_NO_CONDENSATION, -5, TRUE, LAMINA_VERDICT_NOT_MET, LAMINA_VERDICT_NOT_MET, LAMINA_ENTRY_MOISTURE_NOT_MET },
+    { LAMINA_MOISTURE_NO_ACCUMULATION, -5, TRUE, LAMINA_VERDICT_NOT_MET, LAMINA_VERDICT_NOT_MET, LAMINA_ENTRY_MOISTURE_NOT_MET },
+    { LAMINA_MOISTURE_NO_CONDENSATION, 15, TRUE, LAMINA_VERDICT_MET, LAMINA_VERDICT_MET, LAMINA_ENTRY_NONE },
+    { LAMINA_MOISTURE_NO_ACCUMULATION, 15, TRUE, LAMINA_VERDICT_MET, LAMINA_VERDICT_MET, LAMINA_ENTRY_NONE },
+    { LAMINA_MOISTURE_NO_CONDENSATION, -5, FALSE, LAMINA_VERDICT_NOT_CALCULATED, LAMINA_VERDICT_MET, LAMINA_ENTRY_MOISTURE_OPEN },
+    { LAMINA_MOISTURE_NONE, -5, TRUE, LAMINA_VERDICT_NO_TARGET, LAMINA_VERDICT_MET, LAMINA_ENTRY_NONE },
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      g_autoptr(LaminaConstruction) c = moisture_wall ();
+      g_autoptr(LaminaClimate) climate = test_constant_climate (cases[i].outside, cases[i].outside < 0 ? 0.8 : 0.6);
+      g_autoptr(LaminaMoistureResult) m = lamina_moisture_calculate (c, climate, NAN, NULL);
+      g_autoptr(LaminaResult) r = lamina_calculate (c, NULL);
+      g_autoptr(LaminaJob) job = lamina_job_new ("j", "moisture");
+      g_autoptr(LaminaTargetSet) set = lamina_target_set_new ("s", "Invented test table");
+      g_autoptr(LaminaJobCheck) check = NULL;
+      LaminaTarget *t = lamina_target_new ("external-wall", 0.30);
+      LaminaJobInput in = { c, r, 0, 0, cases[i].assessed ? m : NULL, NULL };
+      const LaminaJobLine *line;
+
+      g_assert_nonnull (m);
+      t->moisture = cases[i].criterion;
+      t->min_frsi = 0.75;
+      lamina_target_set_add (set, t);
+      lamina_job_add_entry (job, lamina_job_entry_new ("tw", 1, "external-wall"));
+      check = lamina_job_check (job, set, &in, 1);
+      line = check->lines->pdata[0];
+      g_assert_cmpint (line->moisture_verdict, ==, cases[i].moisture_verdict);
+      g_assert_cmpint (line->verdict, ==, cases[i].verdict);
+      if (cases[i].flag != LAMINA_ENTRY_NONE)
+        g_assert_true (line->flags & cases[i].flag);
+      g_assert_false (line->flags & (cases[i].flag == LAMINA_ENTRY_NONE
+                                     ? LAMINA_ENTRY_MOISTURE_NOT_MET | LAMINA_ENTRY_MOISTURE_OPEN : 0));
+      g_assert_false (line->flags & LAMINA_ENTRY_FRSI_NOT_MET);
+      if (cases[i].assessed)
+        assert_close (line->frsi, 0.940552, 1e-6);
+      else   /* without the assessment: 1 − 0.25·U, U = 0.244775 → 0.938806 */
+        assert_close (line->frsi, 1 - 0.25 / 4.085385, 1e-6);
+    }
+}
+
+/* The criteria on their own (clause 7): "no condensation" fails on any
+ * condensing month; "no accumulation" only when condensate is left after
+ * the twelve months. */
+static void
+test_moisture_criterion_table (void)
+{
+  static const struct { gboolean condensation, dries_out, no_condensation, no_accumulation; } rows[] = {
+    { FALSE, TRUE, TRUE, TRUE },
+    { TRUE, TRUE, FALSE, TRUE },
+    { TRUE, FALSE, FALSE, FALSE },
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (rows); i++)
+    {
+      LaminaMoistureResult r = { 0 };
+
+      r.condensation = rows[i].condensation;
+      r.dries_out = rows[i].dries_out;
+      g_assert_cmpint (lamina_moisture_criterion_met (LAMINA_MOISTURE_NO_CONDENSATION, &r), ==, rows[i].no_condensation);
+      g_assert_cmpint (lamina_moisture_criterion_met (LAMINA_MOISTURE_NO_ACCUMULATION, &r), ==, rows[i].no_accumulation);
+      g_assert_true (lamina_moisture_criterion_met (LAMINA_MOISTURE_NONE, &r));
+    }
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -438,5 +556,7 @@ main (int   argc,
   g_test_add_func ("/core/job/ground-floor", test_ground_floor);
   g_test_add_func ("/core/job/copy-equal", test_copy_equal);
   g_test_add_func ("/core/job/refusals", test_refusals);
+  g_test_add_func ("/core/job/moisture-criteria", test_moisture_criteria);
+  g_test_add_func ("/core/job/moisture-criterion-table", test_moisture_criterion_table);
   return g_test_run ();
 }

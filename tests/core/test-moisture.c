@@ -35,20 +35,6 @@ timber_wall (void)
   return c;
 }
 
-static LaminaClimate *
-constant_climate (double temperature,
-                  double humidity)
-{
-  LaminaClimate *climate = lamina_climate_new ("site", "test");
-
-  for (int m = 0; m < LAMINA_MONTHS; m++)
-    {
-      climate->temperature[m] = temperature;
-      climate->humidity[m] = humidity;
-    }
-  return climate;
-}
-
 /* An invented cool temperate climate (test data only): cold damp winters,
  * mild summers. */
 static LaminaClimate *
@@ -112,7 +98,7 @@ static void
 test_class_pressure (void)
 {
   g_autoptr(LaminaConstruction) c = timber_wall ();
-  g_autoptr(LaminaClimate) climate = constant_climate (-5, 0.8);
+  g_autoptr(LaminaClimate) climate = test_constant_climate (-5, 0.8);
   g_autoptr(LaminaMoistureResult) r = NULL;
 
   c->moisture->inside_humidity = NAN;
@@ -136,7 +122,7 @@ static void
 test_single_plane_month (void)
 {
   g_autoptr(LaminaConstruction) c = timber_wall ();
-  g_autoptr(LaminaClimate) climate = constant_climate (-5, 0.8);
+  g_autoptr(LaminaClimate) climate = test_constant_climate (-5, 0.8);
   g_autoptr(LaminaMoistureResult) r = moisture_ok (c, climate);
 
   g_assert_cmpuint (r->n_points, ==, 4);
@@ -168,7 +154,7 @@ static void
 test_surface (void)
 {
   g_autoptr(LaminaConstruction) c = timber_wall ();
-  g_autoptr(LaminaClimate) climate = constant_climate (-5, 0.8);
+  g_autoptr(LaminaClimate) climate = test_constant_climate (-5, 0.8);
   g_autoptr(LaminaMoistureResult) r = NULL;
 
   climate->temperature[6] = 25;   /* a month warmer than inside cannot be critical */
@@ -191,7 +177,7 @@ static void
 test_surface_fails (void)
 {
   g_autoptr(LaminaConstruction) c = test_wall ();
-  g_autoptr(LaminaClimate) climate = constant_climate (0, 0.9);
+  g_autoptr(LaminaClimate) climate = test_constant_climate (0, 0.9);
   g_autoptr(LaminaMoistureResult) r = NULL;
 
   lamina_construction_add_layer (c, vapour_layer (200, "concrete", LAMINA_CATEGORY_CONCRETE, 2.0, 80));
@@ -283,7 +269,7 @@ static void
 test_start_month (void)
 {
   g_autoptr(LaminaConstruction) c = timber_wall ();
-  g_autoptr(LaminaClimate) climate = constant_climate (15, 0.7);
+  g_autoptr(LaminaClimate) climate = test_constant_climate (15, 0.7);
   g_autoptr(LaminaMoistureResult) r = NULL;
   static const int cold[] = { 0, 1, 10, 11 };
 

@@ -71,7 +71,9 @@ fixture_set_up (Fixture *f)
   f->job->target_set = g_strdup ("invented");
   f->targets = lamina_target_set_new ("invented", "Invented test table");
   lamina_target_set_add (f->targets, lamina_target_new ("external-wall", 0.25));
+  ((LaminaTarget *) f->targets->targets->pdata[0])->moisture = LAMINA_MOISTURE_NO_CONDENSATION;
   lamina_target_set_add (f->targets, lamina_target_new ("roof", 0.10));
+  ((LaminaTarget *) f->targets->targets->pdata[1])->min_frsi = 0.5;
   lamina_target_set_add (f->targets, lamina_target_new ("floor-ground", 0.30));
   f->constructions = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
   f->results = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_result_free);
@@ -158,6 +160,14 @@ test_sheet_set (void)
   g_assert_cmpfloat_with_epsilon (f.check->h_t, h_t, 1e-9);
   assert_contains (schedule, "fabric of the listed elements only", "schedule");
   assert_contains (schedule, "Revision 1 of “gone” is not in the library.", "schedule");
+  /* The moisture criteria of the targets, pass or fail, under each entry:
+   * the roof's fRsi = 1 − 0.25·U (EN ISO 13788:2012 clause 5, Rsi 0.25;
+   * from memory) against the invented minimum 0.5; the wall's criterion
+   * with no EN ISO 13788 assessment given is "not assessed". */
+  g_snprintf (expect, sizeof expect, "fRsi %.3f, minimum 0.500: met",
+              1 - 0.25 * ((LaminaJobLine *) f.check->lines->pdata[1])->u);
+  assert_contains (schedule, expect, "schedule fRsi");
+  assert_contains (schedule, "no interstitial condensation: not assessed", "schedule moisture");
   /* The flat roof does not meet the invented 0.10. */
   assert_contains (schedule, "NO", "schedule");
 

@@ -54,3 +54,21 @@ test_library_path (const char *name)
   g_mkdir_with_parents (g_get_user_data_dir (), 0700);
   return g_build_filename (g_get_user_data_dir (), name, NULL);
 }
+
+/* An invented climate (test data only): winter @winter °C in January,
+ * 18 K warmer in July, damp winters. */
+static inline LaminaClimate *
+test_make_climate (const char *id,
+                   double      winter)
+{
+  static const double h[LAMINA_MONTHS] = { .88, .85, .80, .75, .72, .74, .75, .77, .80, .84, .87, .89 };
+  LaminaClimate *climate = lamina_climate_new (id, "Test climate");
+
+  climate->source = g_strdup ("invented for a test");
+  for (int m = 0; m < LAMINA_MONTHS; m++)
+    {
+      climate->temperature[m] = winter + 18.0 * (1.0 - cos (2.0 * G_PI * m / 12.0)) / 2.0;
+      climate->humidity[m] = h[m];
+    }
+  return climate;
+}

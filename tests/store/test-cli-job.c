@@ -109,6 +109,8 @@ test_edit (void)
     { 0, { "job", "update", "j1", "--move", "1", "--revision", "3", "--by", "A. Architect" }, NULL },
     { 1, { "job", "update", "j1", "--move", "9" }, "no entry 9" },
     { 1, { "job", "show", "nope" }, "no job “nope”" },
+    { 1, { "job", "update", "j1", "--climate", "nowhere" }, "job “j1”, climate: there is no climate “nowhere”" },
+    { 0, { "job", "update", "j1", "--climate", "fallowmere" }, NULL },
     { 2, { "job", "frobnicate" }, "unknown job command" },
     { 0, { "job", "remove", "j1", "2" }, NULL },
     { 1, { "job", "remove", "j1", "2" }, "no entry 2" },
@@ -184,6 +186,74 @@ test_sheets (void)
   g_assert_nonnull (strstr (err, "no job “nope”"));
 }
 
+/* A job variant's entry: job show names its origin and prints what the
+ * variant changes from the origin at the pinned origin revision (the
+ * history's revision diff), as text and as "differences" in JSON. */
+static void
+test_variant_differences (void)
+{
+  g_autofree char *out = NULL, *err = NULL, *variant_id = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaConstruction) variant = NULL;
+  g_autoptr(GError) error = NULL;
+  JsonObject *entry;
+  JsonArray *differences;
+  LaminaLayer *layer;
+  guint n_layer = 0;
+
+  g_free (library_path);
+  library_path = test_library_path ("cli-job-variant.sqlite");
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "new", "jv", "--name", "Variant", "--targets",
+                        "demo-fallowmere-rules", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "add", "jv", "EW-101", "--use", "external-wall",
+                        "--variant", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "jv", "--json", NULL), ==, 0);
+  entry = json_array_get_object_element (json_object_get_array_member (parse_object (parser, out, "job"),
+                                                                       "entries"), 0);
+  g_assert_cmpstr (json_object_get_string_member (entry, "origin"), ==, "demo-ew-101");
+  variant_id = g_strdup (json_object_get_string_member (entry, "construction"));
+
+  /* the variant's first layer 20 mm thicker, stored as its revision 2 */
+  library = lamina_library_open (library_path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  variant = lamina_library_dup_construction (library, variant_id, 0, &error);
+  g_assert_no_error (error);
+  layer = variant->layers->pdata[0];
+  layer->thickness += 20;
+  g_assert_true (lamina_library_save_construction (library, variant, 1, "A. Planner", &error));
+  g_assert_no_error (error);
+  g_clear_object (&library);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "update", "jv", "--move", "1", "--revision", "2", NULL), ==, 0);
+
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "jv", "--json", NULL), ==, 0);
+  entry = json_array_get_object_element (json_object_get_array_member (parse_object (parser, out, "job"),
+                                                                       "entries"), 0);
+  differences = json_object_get_array_member (entry, "differences");
+  g_assert_nonnull (differences);
+  g_assert_cmpuint (json_array_get_length (differences), >=, 1);
+  /* the name ("… (copy)") and the first layer differ */
+  for (guint i = 0; i < json_array_get_length (differences); i++)
+    n_layer += g_str_has_prefix (json_array_get_string_element (differences, i), "Layer 1");
+  g_assert_cmpuint (n_layer, ==, 1);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "jv", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "job variant of demo-ew-101 revision 3:"));
+  g_assert_nonnull (strstr (out, "– Layer 1"));
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -192,5 +262,6 @@ main (int   argc,
   g_test_add_func ("/cli/job/show-json", test_show_json);
   g_test_add_func ("/cli/job/edit", test_edit);
   g_test_add_func ("/cli/job/sheets", test_sheets);
+  g_test_add_func ("/cli/job/variant-differences", test_variant_differences);
   return g_test_run ();
 }

@@ -9,6 +9,9 @@
 #include "lamina-store-test-util.h"
 
 #include "lamina-sqlite-private.h"
+#include "lamina-moisture.h"
+
+#include <math.h>
 
 static LaminaLibrary *
 open_at (const char *name)
@@ -323,6 +326,136 @@ test_migration (void)
   put_targets (library);
 }
 
+/* The job's climate: it must be one of the library's (the field is named
+ * when not); each entry whose use asks a moisture criterion is assessed by
+ * EN ISO 13788 in it (the same figures as lamina_moisture_calculate on the
+ * pinned revision in that climate); a change of the climate data a pinned
+ * revision was checked with is flagged like a material change.  The
+ * seeded wall (no vapour control layer) at humidity class 4 keeps water
+ * through the year in a −8 °C winter and stays dry in a +6 °C one
+ * (common practice: a cold wall without a vapour control layer collects
+ * condensate; the monthly balance is clause 7). */
+static void
+test_climate_and_moisture (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("climate.sqlite");
+  g_autoptr(LaminaClimate) cold = test_make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) mild = test_make_climate ("mild", 6);
+  g_autoptr(LaminaConstruction) c = NULL;
+  g_autoptr(LaminaConstruction) stored = NULL;
+  g_autoptr(LaminaTargetSet) set = lamina_target_set_new ("wet", "Invented moisture table");
+  g_autoptr(LaminaJob) job = lamina_job_new ("j6", "Climate");
+  g_autoptr(LaminaJobReport) report = NULL;
+  g_autoptr(LaminaMoistureResult) expected = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  LaminaTarget *t = lamina_target_new ("external-wall", 0.50);
+  const LaminaJobLine *line;
+
+  g_assert_true (lamina_library_put_climate (library, cold, NULL));
+  g_assert_true (lamina_library_put_climate (library, mild, NULL));
+  c = test_make_wall (library, "EW-M", "Wall with moisture check", NULL, 145);
+  lamina_construction_set_moisture (c, lamina_moisture_settings_new ("mild"));
+  c->moisture->humidity_class = 4;
+  id = lamina_library_create_construction (library, c, "tester", &error);
+  g_assert_no_error (error);
+  t->moisture = LAMINA_MOISTURE_NO_ACCUMULATION;
+  lamina_target_set_add (set, t);
+  g_assert_true (lamina_library_put_target_set (library, set, &error));
+  job->target_set = g_strdup ("wet");
+  pin (library, job, id, "external-wall", 20);
+
+  /* an unknown climate is refused, naming the field and the climates */
+  job->climate = g_strdup ("nowhere");
+  g_assert_false (lamina_library_create_job (library, job, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "job “j6”, climate: there is no climate “nowhere” "
+                                            "in the library (its climates: cold, mild)"));
+  g_clear_error (&error);
+
+  /* in the job's cold climate: assessed, condensate left, not met */
+  g_free (job->climate);
+  job->climate = g_strdup ("cold");
+  g_assert_true (lamina_library_create_job (library, job, &error));
+  report = lamina_library_check_job (library, "j6", &error);
+  g_assert_no_error (error);
+  g_assert_false (report->climate_unknown);
+  line = report->check->lines->pdata[0];
+  g_assert_nonnull (line->moisture);
+  stored = lamina_construction_copy (report->constructions->pdata[0]);
+  g_free (stored->moisture->climate);
+  stored->moisture->climate = g_strdup ("cold");
+  expected = lamina_moisture_calculate (stored, cold, NAN, &error);
+  g_assert_no_error (error);
+  g_assert_false (expected->dries_out);
+  g_assert_cmpfloat (line->moisture->max_accumulation, ==, expected->max_accumulation);
+  g_assert_cmpint (line->moisture_verdict, ==, LAMINA_VERDICT_NOT_MET);
+  g_assert_cmpint (line->verdict, ==, LAMINA_VERDICT_NOT_MET);
+  g_assert_true (line->flags & LAMINA_ENTRY_MOISTURE_NOT_MET);
+  g_assert_false (line->flags & LAMINA_ENTRY_CLIMATE_CHANGED);
+
+  /* in the mild climate (the job's climate changed): met */
+  g_free (job->climate);
+  job->climate = g_strdup ("mild");
+  g_assert_true (lamina_library_save_job (library, job, &error));
+  g_clear_pointer (&report, lamina_job_report_free);
+  report = lamina_library_check_job (library, "j6", &error);
+  line = report->check->lines->pdata[0];
+  g_assert_true (line->moisture->dries_out);
+  g_assert_cmpint (line->moisture_verdict, ==, LAMINA_VERDICT_MET);
+  g_assert_cmpint (line->verdict, ==, LAMINA_VERDICT_MET);
+
+  /* the library's data of "mild", which the revision was checked with,
+   * change: flagged, with a note */
+  mild->temperature[0] = 5;
+  g_assert_true (lamina_library_put_climate (library, mild, &error));
+  g_clear_pointer (&report, lamina_job_report_free);
+  report = lamina_library_check_job (library, "j6", &error);
+  line = report->check->lines->pdata[0];
+  g_assert_true (line->flags & LAMINA_ENTRY_CLIMATE_CHANGED);
+  g_assert_cmpstr (line->notes->pdata[line->notes->len - 1], ==,
+                   "Library climate data changed since this revision was checked.");
+}
+
+/* A job naming a climate neither the document nor the library holds stops
+ * the whole import, with the job's line. */
+static void
+test_import_unknown_climate (void)
+{
+  g_autoptr(LaminaLibrary) a = open_at ("climate-from.sqlite");
+  g_autoptr(LaminaLibrary) b = open_at ("climate-to.sqlite");
+  g_autoptr(LaminaClimate) cold = test_make_climate ("cold", -8);
+  g_autofree char *id = create_approved_wall (a, "EW-145", 145);
+  g_autoptr(LaminaJob) job = lamina_job_new ("j7", "Import");
+  g_autoptr(LaminaCatalogue) cat = NULL;
+  g_autoptr(LaminaImportReport) report = NULL;
+  g_autoptr(GPtrArray) jobs = NULL;
+  g_autoptr(GError) error = NULL;
+  LaminaJob *carried;
+
+  g_assert_true (lamina_library_put_climate (a, cold, NULL));
+  job->climate = g_strdup ("cold");
+  pin (a, job, id, "external-wall", 10);
+  g_assert_true (lamina_library_create_job (a, job, &error));
+  cat = lamina_library_export (a, NULL, &error);
+  g_assert_no_error (error);
+  carried = cat->jobs->pdata[0];
+  carried->line = 42;
+  g_free (carried->climate);
+  carried->climate = g_strdup ("elsewhere");
+  report = lamina_library_import (b, cat, LAMINA_IMPORT_DEFAULT, NULL, &error);
+  g_assert_null (report);
+  g_assert_nonnull (strstr (error->message, "line 42: job “j7”, climate: there is no climate “elsewhere”"));
+  jobs = lamina_library_list_jobs (b, NULL);
+  g_assert_cmpuint (jobs->len, ==, 0);
+  /* the document's own climate is known to its jobs */
+  g_free (carried->climate);
+  carried->climate = g_strdup ("cold");
+  g_clear_error (&error);
+  report = lamina_library_import (b, cat, LAMINA_IMPORT_DEFAULT, NULL, &error);
+  g_assert_no_error (error);
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -334,5 +467,7 @@ main (int   argc,
   g_test_add_func ("/store/jobs/refusals", test_refusals);
   g_test_add_func ("/store/jobs/exchange", test_exchange);
   g_test_add_func ("/store/jobs/migration", test_migration);
+  g_test_add_func ("/store/jobs/climate-and-moisture", test_climate_and_moisture);
+  g_test_add_func ("/store/jobs/import-unknown-climate", test_import_unknown_climate);
   return g_test_run ();
 }

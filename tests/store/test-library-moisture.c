@@ -20,23 +20,6 @@ open_library (const char *name)
   return library;
 }
 
-static LaminaClimate *
-make_climate (const char *id,
-              double      winter)
-{
-  static const double h[LAMINA_MONTHS] = { .88, .85, .80, .75, .72, .74, .75, .77, .80, .84, .87, .89 };
-  LaminaClimate *climate = lamina_climate_new (id, "Test climate");
-
-  climate->source = g_strdup ("invented for a test");
-  for (int m = 0; m < LAMINA_MONTHS; m++)
-    {
-      /* winter in January, +18 K in July */
-      climate->temperature[m] = winter + 18.0 * (1.0 - cos (2.0 * G_PI * m / 12.0)) / 2.0;
-      climate->humidity[m] = h[m];
-    }
-  return climate;
-}
-
 /* The seeded wall (plasterboard μ 10, studs/wool, OSB μ 50: EN ISO 10456
  * Table 3 from memory) has no vapour control layer: in a cold climate with
  * humidity class 4 it traps water that does not dry out. */
@@ -56,7 +39,7 @@ static void
 test_climate_round_trip (void)
 {
   g_autoptr(LaminaLibrary) library = open_library ("climates.sqlite");
-  g_autoptr(LaminaClimate) climate = make_climate ("north", -8);
+  g_autoptr(LaminaClimate) climate = test_make_climate ("north", -8);
   g_autoptr(LaminaClimate) back = NULL;
   g_autoptr(GPtrArray) list = NULL;
   g_autoptr(GError) error = NULL;
@@ -79,7 +62,7 @@ static void
 test_construction_carries_climate (void)
 {
   g_autoptr(LaminaLibrary) library = open_library ("carries.sqlite");
-  g_autoptr(LaminaClimate) climate = make_climate ("north", -8);
+  g_autoptr(LaminaClimate) climate = test_make_climate ("north", -8);
   g_autoptr(LaminaConstruction) c = NULL;
   g_autoptr(LaminaConstruction) back = NULL;
   g_autoptr(LaminaConstruction) bad = NULL;
@@ -138,8 +121,8 @@ static void
 test_flags_and_filter (void)
 {
   g_autoptr(LaminaLibrary) library = open_library ("flags.sqlite");
-  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
-  g_autoptr(LaminaClimate) mild = make_climate ("mild", 6);
+  g_autoptr(LaminaClimate) cold = test_make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) mild = test_make_climate ("mild", 6);
   g_autoptr(LaminaConstruction) a = NULL;
   g_autoptr(LaminaConstruction) b = NULL;
   g_autoptr(LaminaConstruction) back = NULL;
@@ -193,8 +176,8 @@ test_export_import (void)
 {
   g_autoptr(LaminaLibrary) library = open_library ("export.sqlite");
   g_autoptr(LaminaLibrary) other = open_library ("import.sqlite");
-  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
-  g_autoptr(LaminaClimate) unused = make_climate ("unused", 2);
+  g_autoptr(LaminaClimate) cold = test_make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) unused = test_make_climate ("unused", 2);
   g_autoptr(LaminaConstruction) a = NULL;
   g_autoptr(LaminaCatalogue) cat = NULL;
   g_autoptr(LaminaCatalogue) reread = NULL;
