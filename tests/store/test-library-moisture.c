@@ -229,7 +229,7 @@ test_failed_import_leaves_no_climate (void)
   g_autoptr(LaminaLibrary) library = open_library ("source.sqlite");
   g_autofree char *path = test_library_path ("refusing.sqlite");
   g_autoptr(LaminaLibrary) other = NULL;
-  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) cold = test_make_climate ("cold", -8);
   g_autoptr(LaminaConstruction) a = NULL;
   g_autoptr(LaminaConstruction) b = NULL;
   g_autoptr(LaminaCatalogue) cat = NULL;
