@@ -11,6 +11,7 @@
 #include <glib/gi18n.h>
 
 #include "lamina-dynamic.h"
+#include "lamina-figure-grid.h"
 #include "lamina-sheet-format.h"
 
 typedef enum
@@ -43,23 +44,7 @@ add_row (LaminaDynamicView *self,
          const char        *name,
          const char        *unit)
 {
-  GtkWidget *n = gtk_label_new (name), *v = gtk_label_new ("–"), *u = gtk_label_new (unit);
-
-  gtk_label_set_xalign (GTK_LABEL (n), 0);
-  gtk_widget_set_hexpand (n, TRUE);
-  gtk_label_set_ellipsize (GTK_LABEL (n), PANGO_ELLIPSIZE_END);
-  gtk_label_set_width_chars (GTK_LABEL (n), 12);
-  gtk_widget_set_tooltip_text (n, name);
-  gtk_label_set_xalign (GTK_LABEL (v), 1);
-  gtk_label_set_selectable (GTK_LABEL (v), TRUE);
-  gtk_widget_add_css_class (v, "numeric");
-  gtk_label_set_xalign (GTK_LABEL (u), 0);
-  gtk_widget_add_css_class (u, "dim-label");
-  gtk_accessible_update_relation (GTK_ACCESSIBLE (v), GTK_ACCESSIBLE_RELATION_LABELLED_BY, n, NULL, -1);
-  gtk_grid_attach (self->grid, n, 0, row, 1, 1);
-  gtk_grid_attach (self->grid, v, 1, row, 1, 1);
-  gtk_grid_attach (self->grid, u, 2, row, 1, 1);
-  self->values[row] = GTK_LABEL (v);
+  self->values[row] = lamina_figure_grid_attach (self->grid, row, name, unit);
 }
 
 static void

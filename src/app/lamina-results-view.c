@@ -10,6 +10,7 @@
 #include <math.h>
 
 #include "lamina-dynamic-view.h"
+#include "lamina-figure-grid.h"
 #include "lamina-number.h"
 #include "lamina-text.h"
 
@@ -63,27 +64,7 @@ add_figure (LaminaResultsView *self,
             const char        *name,
             const char        *unit)
 {
-  GtkWidget *name_label = gtk_label_new (name);
-  GtkWidget *value_label = gtk_label_new (NULL);
-  GtkWidget *unit_label = gtk_label_new (unit);
-
-  gtk_label_set_xalign (GTK_LABEL (name_label), 0);
-  gtk_widget_set_hexpand (name_label, TRUE);
-  /* Long names (Danish) must not widen the panel past the window. */
-  gtk_label_set_ellipsize (GTK_LABEL (name_label), PANGO_ELLIPSIZE_END);
-  gtk_label_set_width_chars (GTK_LABEL (name_label), 12);
-  gtk_widget_set_tooltip_text (name_label, name);
-  gtk_label_set_xalign (GTK_LABEL (value_label), 1);
-  gtk_label_set_selectable (GTK_LABEL (value_label), TRUE);
-  gtk_widget_add_css_class (value_label, "numeric");
-  gtk_label_set_xalign (GTK_LABEL (unit_label), 0);
-  gtk_widget_add_css_class (unit_label, "dim-label");
-  gtk_accessible_update_relation (GTK_ACCESSIBLE (value_label),
-                                  GTK_ACCESSIBLE_RELATION_LABELLED_BY, name_label, NULL, -1);
-  gtk_grid_attach (self->figures, name_label, 0, figure, 1, 1);
-  gtk_grid_attach (self->figures, value_label, 1, figure, 1, 1);
-  gtk_grid_attach (self->figures, unit_label, 2, figure, 1, 1);
-  self->values[figure] = GTK_LABEL (value_label);
+  self->values[figure] = lamina_figure_grid_attach (self->figures, figure, name, unit);
 }
 
 static void

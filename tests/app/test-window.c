@@ -1483,6 +1483,19 @@ test_materials_manager (Fixture       *f,
   gtk_window_destroy (GTK_WINDOW (manager));
 }
 
+/* No visible label under @widget has its text cut with an ellipsis. */
+static void
+assert_no_label_ellipsized (GtkWidget *widget)
+{
+  if (!gtk_widget_get_visible (widget))
+    return;
+  if (GTK_IS_LABEL (widget) && pango_layout_is_ellipsized (gtk_label_get_layout (GTK_LABEL (widget))))
+    g_error ("“%s” is cut", gtk_label_get_text (GTK_LABEL (widget)));
+  for (GtkWidget *child = gtk_widget_get_first_child (widget); child != NULL;
+       child = gtk_widget_get_next_sibling (child))
+    assert_no_label_ellipsized (child);
+}
+
 static void
 test_danish_comma (Fixture       *f,
                    gconstpointer  data)
@@ -1517,6 +1530,17 @@ test_danish_comma (Fixture       *f,
     g_assert_nonnull (spin);
     g_assert_nonnull (strchr (gtk_editable_get_text (GTK_EDITABLE (spin)), ','));
     g_assert_null (strchr (gtk_editable_get_text (GTK_EDITABLE (spin)), '.'));
+  }
+  /* The longer Danish words neither push the editor out of the window
+   * nor cut a figure's name ("Rsi, indvendig overflade" wraps). */
+  {
+    LaminaEditor *editor = lamina_window_get_editor (f->window);
+    graphene_rect_t bounds;
+
+    wait_for_draw (GTK_WIDGET (f->window));
+    g_assert_true (gtk_widget_compute_bounds (GTK_WIDGET (editor), GTK_WIDGET (f->window), &bounds));
+    g_assert_cmpfloat (bounds.origin.x + bounds.size.width, <=, gtk_widget_get_width (GTK_WIDGET (f->window)));
+    assert_no_label_ellipsized (GTK_WIDGET (lamina_editor_get_results_view (editor)));
   }
   {
     const char *build = g_getenv ("LAMINA_BUILD_DIR");
