@@ -4,6 +4,8 @@
 
 #include "config.h"
 
+#include "lamina-library-safety.h"
+
 #include <glib/gi18n.h>
 #include <math.h>
 
@@ -29,26 +31,34 @@ lamina_window_update_actions (LaminaWindow *self)
   g_autofree char *reviewer = dup_reviewer (self);
   gboolean open = state != NULL;
   gboolean conflict = doc && lamina_document_get_conflict (doc) != NULL;
+  /* A read-only library is for browsing, sheets and exports only. */
+  gboolean writable = !lamina_library_is_read_only (self->library);
 
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo", open && lamina_document_can_undo (doc));
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.redo", open && lamina_document_can_redo (doc));
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo", writable && open && lamina_document_can_undo (doc));
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.redo", writable && open && lamina_document_can_redo (doc));
   /* A checked revision can be checked again by another person (a record
    * of its own); only a checked revision can be approved. */
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.mark-checked",
-                                 open && !conflict && state->status != LAMINA_STATUS_APPROVED);
+                                 writable && open && !conflict
+                                 && state->status != LAMINA_STATUS_APPROVED);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.approve",
-                                 open && !conflict && state->status == LAMINA_STATUS_CHECKED);
+                                 writable && open && !conflict
+                                 && state->status == LAMINA_STATUS_CHECKED);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.history", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.used-in-jobs", open);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.update-materials", open);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.derive", open);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.delete", open);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.update-materials", writable && open);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.derive", writable && open);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.delete", writable && open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.export-sheet", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.export-section", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.print", open);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo-delete", self->deleted_id != NULL);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo-delete",
+                                 writable && self->deleted_id != NULL);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.new-construction", writable);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.import-xml", writable);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.load-demo", writable);
   gtk_widget_set_visible (self->demo_button,
-                          self->list != NULL && g_list_model_get_n_items (G_LIST_MODEL (self->list)) == 0);
+                          writable && self->list != NULL && g_list_model_get_n_items (G_LIST_MODEL (self->list)) == 0);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.conflict-keep", conflict);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.conflict-reload", conflict);
 }

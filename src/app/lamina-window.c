@@ -11,6 +11,7 @@
 
 #include "lamina-construction-item.h"
 #include "lamina-library-row.h"
+#include "lamina-safety-bar.h"
 #include "lamina-number.h"
 #include "lamina-text.h"
 
@@ -649,6 +650,9 @@ lamina_window_new (GtkApplication    *application,
   gtk_widget_insert_after (GTK_WIDGET (self->change_banner),
                            gtk_widget_get_parent (GTK_WIDGET (self->banner_revealer)),
                            GTK_WIDGET (self->banner_revealer));
+  gtk_widget_insert_after (lamina_safety_bar_new (library),
+                           gtk_widget_get_parent (GTK_WIDGET (self->banner_revealer)),
+                           GTK_WIDGET (self->change_banner));
   setup_filters (self);
   update_count (self);
   lamina_jobs_page_set_library (self->jobs_page, library);

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "lamina-document.h"
+#include "lamina-library-safety.h"
 
 #include <glib/gi18n.h>
 
@@ -293,9 +294,20 @@ lamina_document_apply (LaminaDocument     *self,
                        const char         *group,
                        LaminaApplyFlags    flags)
 {
+  g_autoptr(GError) error = NULL;
+
   g_return_if_fail (LAMINA_IS_DOCUMENT (self));
   g_return_if_fail (next != NULL);
 
+  /* A read-only library is for browsing: no edit is taken, and the views
+   * go back to what is stored. */
+  if (!lamina_library_check_writable (self->library, &error))
+    {
+      lamina_construction_free (next);
+      g_signal_emit (self, signals[NOTICE], 0, error->message);
+      emit_changed (self);
+      return;
+    }
   lamina_undo_stack_push (self->undo, self->state, group);
   self->unsaved = TRUE;
   take_state (self, next);

@@ -28,6 +28,18 @@ lamina_library_get_read_only_reason (LaminaLibrary *self)
   return BE (self) ? BE (self)->read_only_reason : NULL;
 }
 
+gboolean
+lamina_library_check_writable (LaminaLibrary  *self,
+                               GError        **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  BACKEND_OR_FAIL (self, error, FALSE);
+  if (BE (self)->read_only_reason == NULL)
+    return TRUE;
+  lamina_backend_set_read_only_error (BE (self), error);
+  return FALSE;
+}
+
 void
 lamina_backend_set_read_only_error (LaminaBackend  *backend,
                                     GError        **error)

@@ -25,6 +25,10 @@ G_BEGIN_DECLS
 gboolean       lamina_library_is_read_only         (LaminaLibrary *self);
 /* Why the library is read-only ("the file is read-only"), or NULL. */
 const char    *lamina_library_get_read_only_reason (LaminaLibrary *self);
+/* TRUE if writable; else FALSE with the READ_ONLY error every refused
+ * write gets (for a caller that refuses before it starts). */
+gboolean       lamina_library_check_writable       (LaminaLibrary  *self,
+                                                    GError        **error);
 
 /* Called when a write starts waiting for another program's lock, with
  * @holder naming it if known ("lamina-cli import, process 4242, user
