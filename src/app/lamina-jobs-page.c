@@ -12,6 +12,9 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-job-dialog.h"
+#include "lamina-job-entry-dialog.h"
+#include "lamina-job-junction-dialog.h"
 #include "lamina-revision-diff.h"
 #include "lamina-settings.h"
 #include "lamina-sheet.h"
@@ -28,6 +31,7 @@ struct _LaminaJobsPage
   GtkGrid         *data_grid;
   GtkLabel        *summary_label;
   GtkListBox      *schedule_list;
+  GtkListBox      *junction_list;
   GtkLabel        *totals_label;
   GtkLabel        *status_label;
 
@@ -225,6 +229,34 @@ on_remove_clicked_cb (GtkButton *button,
   show_job (self, job->id);
 }
 
+static void
+on_edit_entry_clicked_cb (GtkButton *button,
+                          RowAction *action)
+{
+  lamina_jobs_page_open_entry_dialog (action->page, action->entry);
+}
+
+static void
+on_edit_junction_clicked_cb (GtkButton *button,
+                             RowAction *action)
+{
+  lamina_jobs_page_open_junction_dialog (action->page, action->entry);
+}
+
+static void
+on_remove_junction_clicked_cb (GtkButton *button,
+                               RowAction *action)
+{
+  LaminaJobsPage *self = action->page;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaJob) job = lamina_job_copy (self->report->job);
+
+  lamina_job_remove_junction (job, action->entry);
+  if (!lamina_library_save_job (self->library, job, &error))
+    gtk_label_set_text (self->status_label, error->message);
+  show_job (self, job->id);
+}
+
 static GtkWidget *
 create_action_button (LaminaJobsPage *self,
                       const char     *label,
@@ -333,6 +365,8 @@ create_schedule_row (LaminaJobsPage      *self,
   if (c != NULL)
     gtk_box_append (GTK_BOX (top), create_action_button (self, _("Sheet…"), line->entry->n, 0,
                                                          G_CALLBACK (on_sheet_clicked_cb)));
+  gtk_box_append (GTK_BOX (top), create_action_button (self, _("Edit…"), line->entry->n, 0,
+                                                       G_CALLBACK (on_edit_entry_clicked_cb)));
   gtk_box_append (GTK_BOX (top), create_action_button (self, _("Remove"), line->entry->n, 0,
                                                        G_CALLBACK (on_remove_clicked_cb)));
   gtk_box_append (GTK_BOX (box), top);
@@ -380,6 +414,46 @@ create_schedule_row (LaminaJobsPage      *self,
   return box;
 }
 
+static GtkWidget *create_label (const char *text, int chars, float xalign);
+
+static GtkWidget *
+create_junction_row (LaminaJobsPage          *self,
+                     const LaminaJobJunction *j)
+{
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10);
+  GtkWidget *name = create_label (j->name, 10, 0);
+  char psi[LAMINA_FORMAT_SIZE], length[LAMINA_FORMAT_SIZE], psi_l[LAMINA_FORMAT_SIZE];
+  g_autofree char *figures = g_strdup_printf (_("ψ %s W/(m·K) × %s m = %s W/K"),
+                                              lamina_format_fixed (psi, j->psi, 3),
+                                              lamina_format_fixed (length, j->length, 1),
+                                              lamina_format_fixed (psi_l, j->psi * j->length, 2));
+
+  gtk_widget_set_hexpand (name, TRUE);
+  gtk_label_set_ellipsize (GTK_LABEL (name), PANGO_ELLIPSIZE_END);
+  gtk_box_append (GTK_BOX (box), name);
+  gtk_box_append (GTK_BOX (box), create_label (figures, 0, 1));
+  gtk_box_append (GTK_BOX (box), create_action_button (self, _("Edit…"), j->n, 0,
+                                                       G_CALLBACK (on_edit_junction_clicked_cb)));
+  gtk_box_append (GTK_BOX (box), create_action_button (self, _("Remove"), j->n, 0,
+                                                       G_CALLBACK (on_remove_junction_clicked_cb)));
+  gtk_widget_set_margin_start (box, 8);
+  gtk_widget_set_margin_end (box, 8);
+  return box;
+}
+
+static void
+fill_junctions (LaminaJobsPage *self)
+{
+  const LaminaJob *job = self->report->job;
+  GtkWidget *child;
+
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->junction_list))) != NULL)
+    gtk_list_box_remove (self->junction_list, child);
+  for (guint i = 0; i < job->junctions->len; i++)
+    gtk_list_box_append (self->junction_list, create_junction_row (self, job->junctions->pdata[i]));
+  gtk_widget_set_visible (GTK_WIDGET (self->junction_list), job->junctions->len > 0);
+}
+
 static char *
 dup_totals (const LaminaJobReport *report)
 {
@@ -414,6 +488,19 @@ dup_summary (const LaminaJobCheck *check)
                           check->n_met, check->lines->len, check->n_not_met, check->n_open);
 }
 
+/* The actions that need a job shown. */
+static void
+set_job_actions_enabled (LaminaJobsPage *self,
+                         gboolean        enabled)
+{
+  static const char *const names[] = {
+    "jobs.add-entry", "jobs.print", "jobs.edit-job", "jobs.add-junction",
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (names); i++)
+    gtk_widget_action_set_enabled (GTK_WIDGET (self), names[i], enabled);
+}
+
 static void
 show_job (LaminaJobsPage *self,
           const char     *id)
@@ -423,8 +510,7 @@ show_job (LaminaJobsPage *self,
   GtkWidget *child;
 
   g_clear_pointer (&self->report, lamina_job_report_free);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.add-entry", FALSE);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.print", FALSE);
+  set_job_actions_enabled (self, FALSE);
   if (id == NULL)
     {
       gtk_stack_set_visible_child_name (self->detail_stack, "empty");
@@ -448,11 +534,11 @@ show_job (LaminaJobsPage *self,
     gtk_list_box_remove (self->schedule_list, child);
   for (guint i = 0; i < self->report->check->lines->len; i++)
     gtk_list_box_append (self->schedule_list, create_schedule_row (self, self->report->check->lines->pdata[i]));
+  fill_junctions (self);
   totals = dup_totals (self->report);
   gtk_label_set_text (self->totals_label, totals);
   gtk_stack_set_visible_child_name (self->detail_stack, "job");
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.add-entry", TRUE);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.print", TRUE);
+  set_job_actions_enabled (self, TRUE);
 }
 
 const char *
@@ -506,6 +592,102 @@ add_entry_action (GtkWidget  *widget,
                   GVariant   *parameter)
 {
   lamina_jobs_page_open_add_dialog (LAMINA_JOBS_PAGE (widget), NULL);
+}
+
+/* Editing: each dialog stores what it changes and says so by "saved". */
+
+static void
+on_saved_cb (LaminaJobsPage *self,
+             const char     *id)
+{
+  lamina_jobs_page_reload (self);
+  lamina_jobs_page_select (self, id);
+}
+
+static GtkWindow *
+get_parent (LaminaJobsPage *self)
+{
+  return GTK_WINDOW (gtk_widget_get_root (GTK_WIDGET (self)));
+}
+
+static void
+present (LaminaJobsPage *self,
+         gpointer        dialog)
+{
+  g_signal_connect_object (dialog, "saved", G_CALLBACK (on_saved_cb), self, G_CONNECT_SWAPPED);
+  gtk_window_present (GTK_WINDOW (dialog));
+}
+
+LaminaJobDialog *
+lamina_jobs_page_open_job_dialog (LaminaJobsPage *self,
+                                  gboolean        new_job)
+{
+  LaminaJobDialog *dialog;
+
+  g_return_val_if_fail (new_job || self->report != NULL, NULL);
+  dialog = lamina_job_dialog_new (get_parent (self), self->library, new_job ? NULL : self->report->job);
+  present (self, dialog);
+  return dialog;
+}
+
+LaminaJobEntryDialog *
+lamina_jobs_page_open_entry_dialog (LaminaJobsPage *self,
+                                    int             n)
+{
+  g_autoptr(GError) error = NULL;
+  LaminaJobEntryDialog *dialog;
+
+  g_return_val_if_fail (self->report != NULL, NULL);
+  dialog = lamina_job_entry_dialog_new (get_parent (self), self->library, self->report->job->id, n, &error);
+  if (dialog == NULL)
+    {
+      gtk_label_set_text (self->status_label, error->message);
+      return NULL;
+    }
+  present (self, dialog);
+  return dialog;
+}
+
+LaminaJobJunctionDialog *
+lamina_jobs_page_open_junction_dialog (LaminaJobsPage *self,
+                                       int             n)
+{
+  g_autoptr(GError) error = NULL;
+  LaminaJobJunctionDialog *dialog;
+
+  g_return_val_if_fail (self->report != NULL, NULL);
+  dialog = lamina_job_junction_dialog_new (get_parent (self), self->library, self->report->job->id, n, &error);
+  if (dialog == NULL)
+    {
+      gtk_label_set_text (self->status_label, error->message);
+      return NULL;
+    }
+  present (self, dialog);
+  return dialog;
+}
+
+static void
+new_job_action (GtkWidget  *widget,
+                const char *name,
+                GVariant   *parameter)
+{
+  lamina_jobs_page_open_job_dialog (LAMINA_JOBS_PAGE (widget), TRUE);
+}
+
+static void
+edit_job_action (GtkWidget  *widget,
+                 const char *name,
+                 GVariant   *parameter)
+{
+  lamina_jobs_page_open_job_dialog (LAMINA_JOBS_PAGE (widget), FALSE);
+}
+
+static void
+add_junction_action (GtkWidget  *widget,
+                     const char *name,
+                     GVariant   *parameter)
+{
+  lamina_jobs_page_open_junction_dialog (LAMINA_JOBS_PAGE (widget), 0);
 }
 
 /* Sheets */
@@ -705,11 +887,15 @@ lamina_jobs_page_class_init (LaminaJobsPageClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, data_grid);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, summary_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, schedule_list);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, junction_list);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, totals_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobsPage, status_label);
   gtk_widget_class_bind_template_callback (widget_class, on_job_selected_cb);
   gtk_widget_class_install_action (widget_class, "jobs.add-entry", NULL, add_entry_action);
   gtk_widget_class_install_action (widget_class, "jobs.print", NULL, print_action);
+  gtk_widget_class_install_action (widget_class, "jobs.new-job", NULL, new_job_action);
+  gtk_widget_class_install_action (widget_class, "jobs.edit-job", NULL, edit_job_action);
+  gtk_widget_class_install_action (widget_class, "jobs.add-junction", NULL, add_junction_action);
 }
 
 static void
@@ -717,6 +903,5 @@ lamina_jobs_page_init (LaminaJobsPage *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
   self->settings = lamina_settings_new ();
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.add-entry", FALSE);
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.print", FALSE);
+  set_job_actions_enabled (self, FALSE);
 }

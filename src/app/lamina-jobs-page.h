@@ -7,6 +7,9 @@
 #include <gtk/gtk.h>
 
 #include "lamina-job-add-dialog.h"
+#include "lamina-job-dialog.h"
+#include "lamina-job-entry-dialog.h"
+#include "lamina-job-junction-dialog.h"
 #include "lamina-library.h"
 
 G_BEGIN_DECLS
@@ -27,6 +30,15 @@ guint       lamina_jobs_page_get_n_entries (LaminaJobsPage *self);
 /* Opens the add dialog with @use chosen (NULL: the first use). */
 LaminaJobAddDialog *lamina_jobs_page_open_add_dialog (LaminaJobsPage *self,
                                                       const char     *use);
+/* The dialogs that change a job: its data (@new_job: a new job), entry
+ * @n, junction @n (0: a new one).  The page shows the job again when one
+ * saves. */
+LaminaJobDialog *lamina_jobs_page_open_job_dialog (LaminaJobsPage *self,
+                                                   gboolean        new_job);
+LaminaJobEntryDialog *lamina_jobs_page_open_entry_dialog (LaminaJobsPage *self,
+                                                          int             n);
+LaminaJobJunctionDialog *lamina_jobs_page_open_junction_dialog (LaminaJobsPage *self,
+                                                                int             n);
 /* For a job variant (entry @n of the selected job): what differs from
  * its origin at the origin's revision (char*, sentences); NULL when the
  * entry is not a variant. */

@@ -41,6 +41,9 @@ static const LaminaNumberRange ranges[LAMINA_N_FIELDS] = {
   [LAMINA_FIELD_PRECIPITATION]       = { N_("precipitation"), "mm/day", 0, 100, FALSE },
   [LAMINA_FIELD_DRAINAGE_FACTOR]     = { N_("drainage factor"), "", 0, 1, FALSE },
   [LAMINA_FIELD_AREA]                = { N_("area"), "m²", 0, 1e6, FALSE },
+  [LAMINA_FIELD_LENGTH]              = { N_("length"), "m", 0, 1e5, TRUE },
+  [LAMINA_FIELD_PSI]                 = { N_("linear thermal transmittance ψ"), "W/(m·K)", -10, 10, FALSE },
+  [LAMINA_FIELD_TEMPERATURE_FACTOR]  = { N_("temperature factor fRsi"), "", 0, 1, FALSE },
 };
 
 /* Other spellings of a unit that people type (ASCII forms). */

@@ -39,6 +39,9 @@ typedef enum
   LAMINA_FIELD_PRECIPITATION,        /* mm/day, 0 to 100 */
   LAMINA_FIELD_DRAINAGE_FACTOR,      /* inverted roof f, 0 to 1 */
   LAMINA_FIELD_AREA,                 /* a job entry's area, m², 0 to 1000000 */
+  LAMINA_FIELD_LENGTH,               /* a length in m (perimeter, B′, junction), above 0 to 100000 */
+  LAMINA_FIELD_PSI,                  /* ψ, W/(m·K), −10 to 10 */
+  LAMINA_FIELD_TEMPERATURE_FACTOR,   /* fRsi, 0 to 1 */
   LAMINA_N_FIELDS
 } LaminaNumberField;
 

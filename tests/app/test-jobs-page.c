@@ -13,6 +13,9 @@
 #include "lamina-application.h"
 #include "lamina-demo.h"
 #include "lamina-window.h"
+#include "lamina-job-dialog-private.h"
+#include "lamina-job-entry-dialog-private.h"
+#include "lamina-job-junction-dialog-private.h"
 #include "lamina-app-test-util.h"
 
 /* The first label under @widget whose text starts with @prefix. */
@@ -154,11 +157,172 @@ test_jobs_page (void)
   g_rmdir (dir);
 }
 
+static void
+set_entry (GtkEntry   *entry,
+           const char *text)
+{
+  gtk_editable_set_text (GTK_EDITABLE (entry), text);
+}
+
+/* Saving @dialog fails with a message that starts with @field (the field
+ * is named) and the dialog stays open. */
+#define assert_refused(save, dialog, field)                                \
+  G_STMT_START {                                                           \
+    g_autoptr(GError) refused = NULL;                                      \
+    g_assert_false (save (dialog, &refused));                              \
+    g_assert_nonnull (refused);                                            \
+    if (!g_str_has_prefix (refused->message, field))                       \
+      g_error ("“%s” does not name “%s”", refused->message, field);        \
+  } G_STMT_END
+
+static guint
+find_choice (GtkDropDown *dropdown,
+             const char  *text)
+{
+  GListModel *model = gtk_drop_down_get_model (dropdown);
+
+  for (guint i = 0; i < g_list_model_get_n_items (model); i++)
+    if (strstr (gtk_string_list_get_string (GTK_STRING_LIST (model), i), text) != NULL)
+      return i;
+  g_error ("no choice “%s”", text);
+  return 0;
+}
+
+/* Creating and changing a job, one of its entries and a junction in the
+ * window: each fault names its field and stores nothing; what is saved is
+ * what the library holds.  B′ = A / (0.5 P) = 100 / 20 = 5 m
+ * (EN ISO 13370:2017 8.1, equation 2). */
+static void
+test_jobs_edit (void)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("lamina-jobs-edit-XXXXXX", &error);
+  g_autofree char *path = g_build_filename (dir, "library.sqlite", NULL);
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "job-dialog.png", NULL);
+  g_autoptr(LaminaLibrary) library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_autoptr(LaminaJob) job = NULL;
+  LaminaWindow *window;
+  LaminaJobsPage *page;
+  LaminaJobDialog *dialog;
+  LaminaJobEntryDialog *entry_dialog;
+  LaminaJobJunctionDialog *junction_dialog;
+  const LaminaJobEntry *e;
+  g_autofree char *draft_text = NULL;
+  guint n_log;
+  int draft = 0;
+
+  g_assert_no_error (error);
+  g_assert_true (lamina_demo_load (library, &error));
+  lamina_application_load_style ();
+  window = lamina_window_new (NULL, library);
+  gtk_window_present (GTK_WINDOW (window));
+  lamina_window_show_view (window, "jobs");
+  page = lamina_window_get_jobs_page (window);
+
+  /* A new job. */
+  dialog = lamina_jobs_page_open_job_dialog (page, TRUE);
+  set_entry (dialog->id_entry, "TO-2409");
+  assert_refused (lamina_job_dialog_save, dialog, "Name:");
+  g_assert_true (gtk_widget_has_css_class (GTK_WIDGET (dialog->name_entry), "error"));
+  set_entry (dialog->name_entry, "Mill house (invented)");
+  set_entry (dialog->inside_entry, "warm");
+  assert_refused (lamina_job_dialog_save, dialog, "Inside design temperature:");
+  set_entry (dialog->inside_entry, "21");
+  set_entry (dialog->ground_area_entry, "100");
+  assert_refused (lamina_job_dialog_save, dialog, "Exposed perimeter P:");
+  set_entry (dialog->ground_perimeter_entry, "40");
+  set_entry (dialog->client_entry, "  M. Miller  ");
+  gtk_drop_down_set_selected (dialog->climate_dropdown, find_choice (dialog->climate_dropdown, "(fallowmere)"));
+  gtk_drop_down_set_selected (dialog->targets_dropdown,
+                              find_choice (dialog->targets_dropdown, "demo-fallowmere-rules"));
+  gtk_drop_down_set_selected (dialog->status_dropdown, LAMINA_JOB_STATUS_SUBMITTED);
+  wait_for_draw (GTK_WIDGET (dialog));
+  save_png (GTK_WIDGET (dialog), png);
+  g_assert_true (lamina_job_dialog_save (dialog, &error));
+  g_assert_no_error (error);
+  g_assert_cmpstr (lamina_jobs_page_get_job_id (page), ==, "TO-2409");
+  job = lamina_library_dup_job (library, "TO-2409", &error);
+  g_assert_cmpstr (job->client, ==, "M. Miller");
+  g_assert_cmpstr (job->climate, ==, "fallowmere");
+  g_assert_cmpstr (job->target_set, ==, "demo-fallowmere-rules");
+  g_assert_cmpint (job->status, ==, LAMINA_JOB_STATUS_SUBMITTED);
+  g_assert_cmpfloat (job->inside_temperature, ==, 21);
+  g_assert_cmpfloat_with_epsilon (lamina_job_get_b_prime (job), 5.0, 1e-12);
+  g_clear_pointer (&job, lamina_job_free);
+
+  /* The same job's data changed: the id stays. */
+  dialog = lamina_jobs_page_open_job_dialog (page, FALSE);
+  g_assert_false (gtk_widget_get_sensitive (GTK_WIDGET (dialog->id_entry)));
+  set_entry (dialog->ground_b_prime_entry, "6");
+  assert_refused (lamina_job_dialog_save, dialog, "Characteristic dimension B′:");
+  set_entry (dialog->ground_area_entry, "");
+  set_entry (dialog->ground_perimeter_entry, "");
+  set_entry (dialog->number_entry, "TO-2409");
+  g_assert_true (lamina_job_dialog_save (dialog, &error));
+  job = lamina_library_dup_job (library, "TO-2409", &error);
+  g_assert_cmpfloat_with_epsilon (lamina_job_get_b_prime (job), 6.0, 1e-12);
+  g_assert_cmpstr (job->number, ==, "TO-2409");
+  g_clear_pointer (&job, lamina_job_free);
+
+  /* An entry of the demo's terraced houses: area and location, then a
+   * move to a new draft revision of EW-101 (its first layer 10 mm
+   * thicker), recorded in the job's log. */
+  {
+    g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (library, "demo-ew-101", 0, &error);
+
+    ((LaminaLayer *) c->layers->pdata[0])->thickness += 10;
+    g_assert_true (lamina_library_save_construction (library, c, c->revision, NULL, &error));
+    g_assert_no_error (error);
+    draft = c->revision;
+  }
+  g_assert_true (lamina_jobs_page_select (page, "demo-job-sloe-row"));
+  job = lamina_library_dup_job (library, "demo-job-sloe-row", &error);
+  n_log = job->log->len;
+  g_clear_pointer (&job, lamina_job_free);
+  entry_dialog = lamina_jobs_page_open_entry_dialog (page, 1);
+  set_entry (entry_dialog->area_entry, "-4");
+  assert_refused (lamina_job_entry_dialog_save, entry_dialog, "Area:");
+  set_entry (entry_dialog->area_entry, "490,5");
+  set_entry (entry_dialog->location_entry, "All elevations");
+  draft_text = g_strdup_printf ("Revision %d ", draft);
+  gtk_drop_down_set_selected (entry_dialog->revision_dropdown,
+                              find_choice (entry_dialog->revision_dropdown, draft_text));
+  g_assert_true (lamina_job_entry_dialog_save (entry_dialog, &error));
+  g_assert_no_error (error);
+  job = lamina_library_dup_job (library, "demo-job-sloe-row", &error);
+  e = lamina_job_find_entry (job, 1);
+  g_assert_cmpfloat (e->area, ==, 490.5);
+  g_assert_cmpstr (e->location, ==, "All elevations");
+  g_assert_cmpint (e->revision, ==, draft);
+  g_assert_cmpuint (job->log->len, ==, n_log + 1);
+  g_clear_pointer (&job, lamina_job_free);
+
+  /* A hand-entered junction: Σ ψ·l grows by 0.05 × 30 = 1.5 W/K. */
+  junction_dialog = lamina_jobs_page_open_junction_dialog (page, 0);
+  set_entry (junction_dialog->name_entry, "Window head");
+  set_entry (junction_dialog->psi_entry, "0.05 W/(m·K)");
+  set_entry (junction_dialog->length_entry, "");
+  assert_refused (lamina_job_junction_dialog_save, junction_dialog, "Length:");
+  set_entry (junction_dialog->length_entry, "30");
+  g_assert_true (lamina_job_junction_dialog_save (junction_dialog, &error));
+  job = lamina_library_dup_job (library, "demo-job-sloe-row", &error);
+  g_assert_cmpuint (job->junctions->len, ==, 3);
+  g_assert_cmpfloat_with_epsilon (((LaminaJobJunction *) job->junctions->pdata[2])->psi
+                                  * ((LaminaJobJunction *) job->junctions->pdata[2])->length, 1.5, 1e-12);
+
+  gtk_window_destroy (GTK_WINDOW (window));
+  lamina_library_close (library);
+  g_remove (path);
+  g_rmdir (dir);
+}
+
 int
 main (int   argc,
       char *argv[])
 {
   gtk_test_init (&argc, &argv, NULL);
   g_test_add_func ("/app/jobs/page", test_jobs_page);
+  g_test_add_func ("/app/jobs/edit", test_jobs_edit);
   return g_test_run ();
 }
