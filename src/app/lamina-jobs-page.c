@@ -726,6 +726,7 @@ init_options (LaminaJobsPage     *self,
   *practice = g_settings_get_string (self->settings, "practice-name");
   options->practice = **practice ? *practice : NULL;
   options->library = lamina_library_get_path (self->library);
+  options->moisture_limit = lamina_library_get_moisture_limit (self->library);
 }
 
 gboolean

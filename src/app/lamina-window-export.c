@@ -81,6 +81,7 @@ init_options (LaminaWindow       *self,
   *practice = g_settings_get_string (self->settings, "practice-name");
   options->practice = **practice ? *practice : NULL;
   options->library = lamina_library_get_path (self->library);
+  options->moisture_limit = lamina_library_get_moisture_limit (self->library);
 }
 
 gboolean
@@ -332,6 +333,7 @@ write_catalogue_thread (GTask        *task,
   lamina_sheet_options_init (&options);
   options.practice = job->practice;
   options.library = job->library_path;
+  options.moisture_limit = lamina_library_get_moisture_limit (library);
   fetch = (CatalogueFetch) { library, job->ids, cancellable };
   if (lamina_sheet_write_catalogue (job->path, TRUE, &options, job->ids->len,
                                     fetch_construction_cb, &fetch,

@@ -482,6 +482,7 @@ lamina_cli_job_sheets (const LaminaCliGlobals *globals,
   library = lamina_cli_open_library (globals, FALSE);
   if (library == NULL)
     return LAMINA_EXIT_BAD_INPUT;
+  options.moisture_limit = lamina_library_get_moisture_limit (library);
   report = lamina_library_check_job (library, argv[1], &error);
   if (report == NULL
       || !lamina_sheet_write_job (output, globals->force, &options, report->job, report->targets,

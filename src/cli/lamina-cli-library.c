@@ -452,7 +452,7 @@ lamina_cli_show (const LaminaCliGlobals *globals,
       JsonNode *node = lamina_cli_result_to_json (c, result);
 
       json_array_add_element (array, node);
-      if (!lamina_cli_add_moisture (node, c, &error))
+      if (!lamina_cli_add_moisture (node, c, lamina_library_get_moisture_limit (library), &error))
         {
           lamina_cli_error ("%s", error->message);
           return LAMINA_EXIT_BAD_INPUT;
@@ -469,6 +469,11 @@ lamina_cli_show (const LaminaCliGlobals *globals,
     printf (_(", approved by %s on %s"), c->approved_by, c->approved_at);
   printf ("\n");
   lamina_cli_print_result (stdout, c, result);
+  if (!lamina_cli_print_moisture_own (stdout, c, lamina_library_get_moisture_limit (library), &error))
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
   print_job_uses (library, id);
   return LAMINA_EXIT_OK;
 }

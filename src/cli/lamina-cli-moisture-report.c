@@ -131,18 +131,20 @@ lamina_cli_print_moisture (FILE                       *out,
  * no error) when it has none, NULL with @error when it cannot be made. */
 static LaminaMoistureResult *
 calculate_own (const LaminaConstruction *c,
+               double                    limit,
                GError                  **error)
 {
-  return c->moisture == NULL ? NULL : lamina_moisture_calculate_own (c, NAN, error);
+  return c->moisture == NULL ? NULL : lamina_moisture_calculate_own (c, limit, error);
 }
 
 gboolean
 lamina_cli_add_moisture (JsonNode                 *node,
                          const LaminaConstruction *c,
+                         double                    limit,
                          GError                  **error)
 {
   g_autoptr(GError) local = NULL;
-  g_autoptr(LaminaMoistureResult) result = calculate_own (c, &local);
+  g_autoptr(LaminaMoistureResult) result = calculate_own (c, limit, &local);
 
   if (result != NULL)
     json_object_set_member (json_node_get_object (node), "moisture",
@@ -156,10 +158,11 @@ lamina_cli_add_moisture (JsonNode                 *node,
 gboolean
 lamina_cli_print_moisture_own (FILE                     *out,
                                const LaminaConstruction *c,
+                               double                    limit,
                                GError                  **error)
 {
   g_autoptr(GError) local = NULL;
-  g_autoptr(LaminaMoistureResult) result = calculate_own (c, &local);
+  g_autoptr(LaminaMoistureResult) result = calculate_own (c, limit, &local);
 
   if (result != NULL)
     {

@@ -8,6 +8,7 @@
 
 #include "lamina-catalogue.h"
 #include "lamina-cli.h"
+#include "lamina-cli-library.h"
 #include "lamina-cli-report.h"
 
 #include <glib/gi18n.h>
@@ -38,7 +39,7 @@ lamina_cli_moisture (const LaminaCliGlobals *globals,
     { "id", 0, 0, G_OPTION_ARG_STRING, &id, N_("Only the construction with this id"), "ID" },
     { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON with unrounded figures in SI units"), NULL },
     { "limit", 0, 0, G_OPTION_ARG_DOUBLE, &limit,
-      N_("The office's limit on the largest accumulation, kg/m² (default 0.5)"), "KG" },
+      N_("The limit on the largest accumulation, kg/m² (default: the library's with --library, else 0.5)"), "KG" },
     { NULL }
   };
   g_autoptr(GOptionContext) context = g_option_context_new (_("FILE.xml — condensation risk (EN ISO 13788)"));
@@ -55,10 +56,21 @@ lamina_cli_moisture (const LaminaCliGlobals *globals,
       lamina_cli_error (_("moisture takes one catalogue file (see “lamina-cli moisture --help”)"));
       return LAMINA_EXIT_USAGE;
     }
-  if (!isnan (limit) && !(limit > 0 && limit < 1000))
+  if (!isnan (limit) && !LAMINA_MOISTURE_LIMIT_IS_VALID (limit))
     {
-      lamina_cli_error (_("--limit %g is outside the allowed range above 0 to 1000 kg/m²"), limit);
+      lamina_cli_error (_("--limit %g is outside the allowed range above 0 to %g kg/m²"), limit,
+                        LAMINA_MOISTURE_LIMIT_MAX);
       return LAMINA_EXIT_USAGE;
+    }
+  /* The office's limit when a library is named; a file is checked on its
+   * own otherwise, whatever library the user happens to have. */
+  if (isnan (limit) && globals->library_path != NULL)
+    {
+      g_autoptr(LaminaLibrary) library = lamina_cli_open_library (globals, FALSE);
+
+      if (library == NULL)
+        return LAMINA_EXIT_BAD_INPUT;
+      limit = lamina_library_get_moisture_limit (library);
     }
 
   catalogue = lamina_catalogue_read_file (argv[1], &error);

@@ -40,12 +40,15 @@ void      lamina_cli_print_moisture   (FILE                       *out,
 /* For a construction carrying its climate data (from a library or a
  * catalogue): adds the "moisture" member to @construction_json (an object
  * from lamina_cli_result_to_json), or prints the block; nothing when it has
- * no check.  FALSE with @error set when the check cannot be made. */
+ * no check.  @limit: the office's, kg/m² (NAN: the default).  FALSE with
+ * @error set when the check cannot be made. */
 gboolean  lamina_cli_add_moisture     (JsonNode                 *construction_json,
                                        const LaminaConstruction *construction,
+                                       double                    limit,
                                        GError                  **error);
 gboolean  lamina_cli_print_moisture_own (FILE                   *out,
                                          const LaminaConstruction *construction,
+                                         double                  limit,
                                          GError                **error);
 /* The caution printed under every result. */
 const char *lamina_cli_caution        (void);

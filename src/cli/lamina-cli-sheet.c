@@ -15,6 +15,7 @@
 #include "lamina-sheet.h"
 
 #include <glib/gi18n.h>
+#include <math.h>
 #include <stdio.h>
 #include <string.h>
 #include <unistd.h>
@@ -130,6 +131,9 @@ fill_options (const Job          *job,
     }
   options->practice = job->practice ? job->practice : job->catalogue ? job->catalogue->title : NULL;
   options->title = job->title;
+  /* A catalogue file is checked with the default limit, a library's
+   * constructions with the office's. */
+  options->moisture_limit = job->library ? lamina_library_get_moisture_limit (job->library) : NAN;
   return TRUE;
 }
 

@@ -45,6 +45,7 @@ static const Command commands[] = {
   { "verify", lamina_cli_verify, N_("Check the library file and every approved revision's figures and review records") },
   { "backup", lamina_cli_backup, N_("Make a backup copy of the library now, list the copies, or set where they go") },
   { "restore", lamina_cli_restore, N_("Bring back a backup copy of the library (the current file is kept)") },
+  { "moisture-limit", lamina_cli_moisture_limit, N_("Show or set the library's limit on moisture accumulation (EN ISO 13788)") },
 };
 
 FILE *

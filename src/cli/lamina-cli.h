@@ -50,6 +50,8 @@ int  lamina_cli_catalogue (const LaminaCliGlobals *globals, int argc, char **arg
 /* lamina-cli-review.c */
 int  lamina_cli_policy    (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_withdraw  (const LaminaCliGlobals *globals, int argc, char **argv);
+/* lamina-cli-moisture-limit.c */
+int  lamina_cli_moisture_limit (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_solve     (const LaminaCliGlobals *globals, int argc, char **argv);
 /* Jobs (lamina-cli-job.c, lamina-cli-job-show.c). */
 int  lamina_cli_job       (const LaminaCliGlobals *globals, int argc, char **argv);

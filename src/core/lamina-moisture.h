@@ -22,6 +22,11 @@ G_BEGIN_DECLS
 /* Common practice: an office limit on the largest accumulation in a year
  * that still dries out. */
 #define LAMINA_MOISTURE_DEFAULT_LIMIT 0.5      /* kg/m² */
+/* The largest limit an office may set: a guard against a slip of the
+ * keyboard, not a physical bound. */
+#define LAMINA_MOISTURE_LIMIT_MAX     1000.0   /* kg/m² */
+/* TRUE for a limit an office may set: above 0, at most the maximum. */
+#define LAMINA_MOISTURE_LIMIT_IS_VALID(limit) ((limit) > 0 && (limit) <= LAMINA_MOISTURE_LIMIT_MAX)
 /* EN ISO 13788:2012 5.2: the surface criterion φsi ≤ 0.8 for mould, with
  * Rsi = 0.25 m²·K/W for the surface check (4.3, from memory). */
 #define LAMINA_MOISTURE_MOULD_HUMIDITY 0.8

@@ -111,7 +111,7 @@ sheet_draw_index (SheetContext          *ctx,
       char u[LAMINA_FORMAT_SIZE], d[LAMINA_FORMAT_SIZE], page[16];
       g_autofree char *link = NULL;
 
-      g_snprintf (page, sizeof page, "%u", first_sheet_page + first + i);
+      g_snprintf (page, sizeof page, "%u", e->page);
       link = dup_link_attributes (ctx->left, y - 2, w, INDEX_ROW, first + i + 1);
       cairo_tag_begin (cr, CAIRO_TAG_LINK, link);
       sheet_text_line (ctx, SHEET_FONT_BOLD, e->code, ctx->left, y, x_name - ctx->left - 6, PANGO_ALIGN_LEFT);

@@ -51,6 +51,14 @@ calculate (const LaminaConstruction *c,
   return result;
 }
 
+/* A construction with a moisture check (EN ISO 13788) and the climate
+ * data it was made with continues on a page of its own. */
+static guint
+count_extra_pages (const LaminaConstruction *c)
+{
+  return c->moisture != NULL && c->moisture->climate_data != NULL ? 1 : 0;
+}
+
 static void
 clear_entry (gpointer data)
 {
@@ -84,6 +92,8 @@ collect_index (guint             n,
       e.status = c->status;
       e.u = r->u_corrected;
       e.thickness = r->thickness;
+      e.extra_pages = count_extra_pages (c);
+      e.page = 0;
       g_array_append_val (entries, e);
     }
   return g_steal_pointer (&entries);
@@ -130,7 +140,7 @@ write_pages (cairo_surface_t          *surface,
   SheetContext ctx;
   g_autoptr(GArray) entries = NULL;
   int parents[LAMINA_N_ELEMENTS] = { 0 };
-  guint index_pages = 0, first_sheet;
+  guint index_pages = 0, first_sheet, extra_pages = 0, page;
   gboolean ok = TRUE;
 
   sheet_context_init (&ctx, cr, options);
@@ -163,7 +173,31 @@ write_pages (cairo_surface_t          *surface,
   first_sheet = source->front_matter ? 2 + index_pages : 1;
   if (source->job_set != NULL)
     first_sheet = 1 + sheet_job_count_front (&ctx, source->job_set);
-  ctx.n_pages = first_sheet - 1 + source->n;
+  /* Every page is numbered "n of N" as it is written, so the moisture
+   * pages are counted first: from the index rows of a catalogue, else by
+   * fetching the sheets (a single sheet or a job's, held in memory). */
+  for (guint i = 0; i < source->n; i++)
+    {
+      if (entries != NULL)
+        {
+          SheetIndexEntry *e = &g_array_index (entries, SheetIndexEntry, i);
+
+          e->page = first_sheet + i + extra_pages;
+          extra_pages += e->extra_pages;
+        }
+      else
+        {
+          g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
+
+          if (c == NULL)
+            {
+              sheet_context_clear (&ctx);
+              return FALSE;
+            }
+          extra_pages += count_extra_pages (c);
+        }
+    }
+  ctx.n_pages = first_sheet - 1 + source->n + extra_pages;
   if (source->job_set != NULL)
     {
       set_metadata (surface, &ctx, source->job_set->job->name);
@@ -187,6 +221,7 @@ write_pages (cairo_surface_t          *surface,
         }
     }
 
+  page = first_sheet;
   for (guint i = 0; i < source->n && ok && !lamina_file_writer_failed (source->writer); i++)
     {
       g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
@@ -207,7 +242,7 @@ write_pages (cairo_surface_t          *surface,
         set_metadata (surface, &ctx, c->name);
       if (source->job_set != NULL)
         ctx.job_use = ((const LaminaJobLine *) source->job_set->sheets->pdata[i])->entry->use;
-      ctx.page = first_sheet + i;
+      ctx.page = page;
       add_sheet_outline (surface, parents, c, dest);
       ctx.dest = name;
       /* A single sheet outside EN ISO 6946 continues with its 2-D check
@@ -224,19 +259,21 @@ write_pages (cairo_surface_t          *surface,
           ctx.field = field;
         }
       /* A construction with a moisture check (EN ISO 13788): its summary on
-       * the first page and, for a single sheet, a page of its own. */
-      if (c->moisture != NULL && c->moisture->climate_data != NULL)
+       * the first page and a page of its own (counted above), with the
+       * office's limit. */
+      if (count_extra_pages (c) > 0)
         {
-          moisture = lamina_moisture_calculate_own (c, NAN, error);
+          double limit = options->moisture_limit;
+
+          moisture = lamina_moisture_calculate_own (c, LAMINA_MOISTURE_LIMIT_IS_VALID (limit) ? limit : NAN,
+                                                    error);
           if (moisture == NULL)
             {
               ok = FALSE;
               break;
             }
           ctx.moisture = moisture;
-          ctx.moisture_page = !source->front_matter;
-          if (ctx.moisture_page)
-            ctx.n_pages++;
+          ctx.moisture_page = TRUE;
         }
       sheet_draw_page (&ctx, c, r);
       ctx.dest = NULL;
@@ -257,6 +294,7 @@ write_pages (cairo_surface_t          *surface,
         }
       ctx.moisture = NULL;
       ctx.moisture_page = FALSE;
+      page = ctx.page + 1;
       if (progress)
         progress (progress_data, i + 1, source->n);
     }

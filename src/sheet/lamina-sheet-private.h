@@ -34,6 +34,8 @@ typedef struct
   LaminaStatus   status;
   double         u;
   double         thickness;
+  guint          extra_pages;  /* pages after the first (EN ISO 13788) */
+  guint          page;         /* of the sheet's first page */
 } SheetIndexEntry;
 
 typedef struct

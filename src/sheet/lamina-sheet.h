@@ -57,6 +57,9 @@ typedef struct
                                continues on a page with its 2-D check
                                (EN ISO 10211), and its warnings say so;
                                calculated while writing (seconds) */
+  double       moisture_limit; /* the office's limit on the largest
+                                  accumulation (EN ISO 13788), kg/m²;
+                                  0 or NAN: the default (0.5) */
 } LaminaSheetOptions;
 
 /* Returns an owned construction for @index (0 … n − 1), or NULL with

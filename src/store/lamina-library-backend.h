@@ -234,6 +234,15 @@ typedef struct
    * whole. */
   gboolean            (*restore_from)       (LaminaBackend *backend, const char *source,
                                              GError **error);
+  /* IN_USE while a live construction's latest revision names it. */
+  gboolean            (*delete_climate)     (LaminaBackend *backend, const char *id,
+                                             GError **error);
+  /* Stores the setting LAMINA_MOISTURE_LIMIT_KEY = @value and sets
+   * LAMINA_SUMMARY_MOISTURE_FAILS of every construction with a moisture
+   * check from lamina_library_moisture_flags_for_limit (@limit), in one
+   * transaction.  The backend's stored flags use the setting as well. */
+  gboolean            (*set_moisture_limit) (LaminaBackend *backend, const char *value,
+                                             double limit, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend
@@ -310,8 +319,15 @@ void           lamina_library_set_new_draft (LaminaConstruction *c,
                                              const char         *author);
 void           lamina_library_emit_changed (LaminaLibrary *self);
 /* lamina-library-climates.c: LAMINA_SUMMARY_HAS_MOISTURE and
- * LAMINA_SUMMARY_MOISTURE_FAILS for a construction about to be stored. */
+ * LAMINA_SUMMARY_MOISTURE_FAILS for a construction about to be stored,
+ * with the default limit, or with @limit (kg/m²; NAN: the default). */
 LaminaSummaryFlags lamina_library_moisture_flags (const LaminaConstruction *construction);
+LaminaSummaryFlags lamina_library_moisture_flags_for_limit (const LaminaConstruction *construction,
+                                                            double                    limit);
+/* The library setting that holds the office's moisture limit, and its
+ * reading (NAN when unset or not a valid limit). */
+#define LAMINA_MOISTURE_LIMIT_KEY "moisture-limit"
+double             lamina_library_moisture_limit_from_text (const char *value);
 
 /* For the front end's files: the library's backend and its table, and
  * the refusal of every operation on a closed library. */

@@ -52,6 +52,7 @@ typedef enum
   LAMINA_LIBRARY_ERROR_FAILED,        /* anything else the backend reports */
   LAMINA_LIBRARY_ERROR_POLICY,        /* the review policy refuses the act (four eyes) */
   LAMINA_LIBRARY_ERROR_SCOPE,         /* beyond the method's scope: a 2-D check or a reason is needed */
+  LAMINA_LIBRARY_ERROR_IN_USE,        /* still used by a construction: not deleted */
 } LaminaLibraryError;
 
 GQuark lamina_library_error_quark (void);
@@ -124,6 +125,25 @@ LaminaClimate *lamina_library_dup_climate    (LaminaLibrary        *self,
 gboolean       lamina_library_put_climate    (LaminaLibrary        *self,
                                               const LaminaClimate  *climate,
                                               GError              **error);
+/* Deletes the climate @id.  Refused with IN_USE (naming how many and one
+ * code) while the latest revision of a construction is checked with it;
+ * NOT_FOUND when there is none.  A deleted construction keeps the climate
+ * data it carries. */
+gboolean       lamina_library_delete_climate (LaminaLibrary        *self,
+                                              const char           *id,
+                                              GError              **error);
+
+/* The office's limit on the largest interstitial accumulation in a year
+ * that dries out, kg/m² (EN ISO 13788 sets none; 0.5 by default, common
+ * practice).  Every moisture check the library makes uses it: the stored
+ * "fails its moisture check" flags, the sheets and the window. */
+double         lamina_library_get_moisture_limit (LaminaLibrary    *self);
+/* Stores @limit (above 0, at most LAMINA_MOISTURE_LIMIT_MAX) and
+ * recomputes every construction's moisture flags with it, in one
+ * transaction. */
+gboolean       lamina_library_set_moisture_limit (LaminaLibrary    *self,
+                                                  double            limit,
+                                                  GError          **error);
 
 /* ---- Constructions --------------------------------------------------- */
 

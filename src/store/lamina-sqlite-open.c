@@ -119,6 +119,8 @@ static const LaminaBackendVTable sqlite_vtable = {
   .verify_storage = lamina_sqlite_backend_verify_storage,
   .backup_to = lamina_sqlite_backend_backup_to,
   .restore_from = lamina_sqlite_backend_restore_from,
+  .delete_climate = lamina_sqlite_backend_delete_climate,
+  .set_moisture_limit = lamina_sqlite_backend_set_moisture_limit,
 };
 
 static LaminaSqlite *

@@ -151,6 +151,21 @@ gboolean            lamina_sqlite_backend_put_climate      (LaminaBackend *backe
 /* Sets the "changed since review" flag of every construction whose latest
  * revision was checked with other data for climate @climate_id (NULL:
  * any); run after the material flags, which it only adds to. */
+gboolean            lamina_sqlite_backend_delete_climate   (LaminaBackend *backend,
+                                                            const char    *id,
+                                                            GError       **error);
+gboolean            lamina_sqlite_backend_set_moisture_limit (LaminaBackend *backend,
+                                                              const char    *value,
+                                                              double         limit,
+                                                              GError       **error);
+/* lamina-sqlite-review.c: a library setting inside the caller's
+ * transaction. */
+gboolean            lamina_sqlite_put_setting_in_txn       (LaminaSqlite *self,
+                                                            const char   *key,
+                                                            const char   *value,
+                                                            GError      **error);
+/* The office's moisture limit the library holds, NAN when unset. */
+double              lamina_sqlite_moisture_limit           (LaminaSqlite *self);
 /* Adds or replaces @climate inside the caller's transaction. */
 gboolean            lamina_sqlite_put_climate_in_txn       (LaminaSqlite *self,
                                                             const LaminaClimate *climate,

@@ -223,24 +223,30 @@ lamina_sqlite_backend_get_setting (LaminaBackend  *backend,
 }
 
 gboolean
+lamina_sqlite_put_setting_in_txn (LaminaSqlite  *self,
+                                  const char    *key,
+                                  const char    *value,
+                                  GError       **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self, "INSERT OR REPLACE INTO meta (key, value) VALUES (?1, ?2);",
+                                              error);
+
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, key);
+  lamina_sqlite_bind_text (stmt, 2, value);
+  return lamina_sqlite_step_done (self, stmt, error);
+}
+
+gboolean
 lamina_sqlite_backend_set_setting (LaminaBackend  *backend,
                                    const char     *key,
                                    const char     *value,
                                    GError        **error)
 {
-  sqlite3_stmt *stmt;
-
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
-  stmt = lamina_sqlite_prepare (SELF, "INSERT OR REPLACE INTO meta (key, value) VALUES (?1, ?2);", error);
-  if (stmt == NULL)
-    {
-      lamina_sqlite_rollback (SELF);
-      return FALSE;
-    }
-  lamina_sqlite_bind_text (stmt, 1, key);
-  lamina_sqlite_bind_text (stmt, 2, value);
-  if (!lamina_sqlite_step_done (SELF, stmt, error) || !lamina_sqlite_commit (SELF, error))
+  if (!lamina_sqlite_put_setting_in_txn (SELF, key, value, error) || !lamina_sqlite_commit (SELF, error))
     {
       lamina_sqlite_rollback (SELF);
       return FALSE;

@@ -295,7 +295,8 @@ put_construction_row (LaminaSqlite              *self,
   lamina_sqlite_bind_double (stmt, 8, r ? r->u_corrected : NAN);
   lamina_sqlite_bind_double (stmt, 9, c->target_u);
   lamina_sqlite_bind_double (stmt, 10, lamina_construction_get_thickness (c));
-  sqlite3_bind_int (stmt, 11, summary_flags (r) | lamina_library_moisture_flags (c));
+  sqlite3_bind_int (stmt, 11, summary_flags (r)
+                              | lamina_library_moisture_flags_for_limit (c, lamina_sqlite_moisture_limit (self)));
   lamina_sqlite_bind_text (stmt, 12, c->modified_at);
   if (sqlite3_step (stmt) != SQLITE_ROW)
     {

@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "lamina-catalogue.h"
+#include "lamina-moisture.h"
 #include "lamina-field.h"
 #include "lamina-sheet.h"
 #include "lamina-sheet-format.h"
@@ -401,19 +402,11 @@ test_field_check_page (void)
  * is not a condensation risk assessment.  μ values: EN ISO 10456 Table 3
  * from memory (plaster 10, block 10, brick 10), wool 1 (typical); the
  * climate is invented test data. */
-static void
-test_moisture_page (void)
+static LaminaConstruction *
+make_moisture_wall (void)
 {
-  g_autoptr(LaminaConstruction) c = lamina_test_masonry_wall ();
-  g_autoptr(LaminaConstruction) plain = lamina_test_masonry_wall ();
-  g_autofree char *path = dup_temp_path ("moisture.pdf");
-  g_autofree char *plain_path = dup_temp_path ("no-moisture.pdf");
-  g_autoptr(PopplerDocument) doc = NULL;
-  g_autoptr(PopplerDocument) doc_plain = NULL;
-  g_autoptr(GError) error = NULL;
-  g_autofree char *first = NULL, *second = NULL, *plain_text = NULL;
+  LaminaConstruction *c = lamina_test_masonry_wall ();
   LaminaClimate *climate = lamina_climate_new ("test-site", "Test site (invented)");
-  LaminaSheetOptions options;
 
   climate->source = g_strdup ("invented for a test");
   for (int m = 0; m < LAMINA_MONTHS; m++)
@@ -431,6 +424,22 @@ test_moisture_page (void)
   lamina_construction_set_moisture (c, lamina_moisture_settings_new ("test-site"));
   c->moisture->humidity_class = 3;
   c->moisture->climate_data = climate;
+  return c;
+}
+
+static void
+test_moisture_page (void)
+{
+  g_autoptr(LaminaConstruction) c = make_moisture_wall ();
+  g_autoptr(LaminaConstruction) plain = lamina_test_masonry_wall ();
+  g_autofree char *path = dup_temp_path ("moisture.pdf");
+  g_autofree char *plain_path = dup_temp_path ("no-moisture.pdf");
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(PopplerDocument) doc_plain = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *first = NULL, *second = NULL, *plain_text = NULL;
+  LaminaSheetOptions options;
+
   init_options (&options);
   g_assert_true (lamina_sheet_write_pdf (path, FALSE, &options, c, &error));
   g_assert_no_error (error);
@@ -456,6 +465,94 @@ test_moisture_page (void)
   assert_contains (plain_text, "not a condensation risk assessment", plain->code);
   g_unlink (path);
   g_unlink (plain_path);
+}
+
+/* A catalogue carries the moisture page of every construction with a
+ * moisture check, as the single sheet does: the index and its links point
+ * past it, every footer counts it, and the office's limit of the options
+ * is the one the page judges by (common practice 0.5 kg/m²; here a
+ * stricter one below the wall's winter accumulation). */
+static void
+test_catalogue_moisture_pages (void)
+{
+  g_autoptr(GPtrArray) all = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
+  g_autofree char *path = dup_temp_path ("catalogue-moisture.pdf");
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(LaminaMoistureResult) r = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *index = NULL, *sheet = NULL, *page = NULL, *after = NULL;
+  g_autofree char *limit_text = NULL;
+  LaminaConstruction *m;
+  LaminaSheetOptions options;
+  const int first_pages[] = { 3, 4, 6 };
+
+  g_ptr_array_add (all, lamina_test_masonry_wall ());
+  m = make_moisture_wall ();
+  g_free (m->code);
+  m->code = g_strdup ("EW-MOIST");
+  g_ptr_array_add (all, m);
+  g_ptr_array_add (all, lamina_test_masonry_wall ());
+  g_free (((LaminaConstruction *) all->pdata[2])->code);
+  ((LaminaConstruction *) all->pdata[2])->code = g_strdup ("EW-AFTER");
+  r = lamina_moisture_calculate_own (m, NAN, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (r->max_accumulation, >, 0.002);   /* the limit below bites */
+
+  init_options (&options);
+  options.moisture_limit = 0.001;
+  g_assert_true (lamina_sheet_write_catalogue (path, FALSE, &options, all->len, fetch_cb, all, NULL, NULL, &error));
+  g_assert_no_error (error);
+  doc = open_pdf (path);
+  /* cover, index, sheet, sheet + moisture page, sheet */
+  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 6);
+  for (int p = 1; p <= 6; p++)
+    {
+      g_autofree char *text = dup_page_text (doc, p - 1);
+      g_autofree char *footer = g_strdup_printf ("Page %d of 6", p);
+
+      if (p > 2)
+        assert_contains (text, footer, "footer");
+    }
+  sheet = dup_page_text (doc, 3);
+  assert_contains (sheet, "Details on the moisture page", "EW-MOIST");
+  page = dup_page_text (doc, 4);
+  assert_contains (page, "moisture, EN ISO 13788", "moisture page");
+  assert_contains (page, "Source: invented for a test", "moisture page");
+  limit_text = g_strdup_printf ("exceeds the office limit of %.2f kg/m²", 0.001);
+  assert_contains (page, limit_text, "moisture page");
+  after = dup_page_text (doc, 5);
+  assert_contains (after, "EW-AFTER", "last sheet");
+
+  /* the index's page column and its links */
+  index = dup_page_text (doc, 1);
+  assert_contains (index, "EW-MOIST", "index");
+  {
+    g_autoptr(PopplerPage) index_page = poppler_document_get_page (doc, 1);
+    GList *links = poppler_page_get_link_mapping (index_page);
+    g_autoptr(GPtrArray) sorted = g_ptr_array_new ();
+
+    for (GList *l = links; l; l = l->next)
+      g_ptr_array_add (sorted, l->data);
+    g_ptr_array_sort (sorted, compare_link_top_cb);
+    g_assert_cmpuint (sorted->len, ==, 3);
+    for (guint i = 0; i < sorted->len; i++)
+      {
+        PopplerActionGotoDest *go = &((PopplerLinkMapping *) sorted->pdata[i])->action->goto_dest;
+        PopplerDest *dest = go->dest->type == POPPLER_DEST_NAMED
+                            ? poppler_document_find_dest (doc, go->dest->named_dest)
+                            : poppler_dest_copy (go->dest);
+        g_autofree char *row = poppler_page_get_text_for_area (index_page,
+                                 &((PopplerLinkMapping *) sorted->pdata[i])->area);
+        g_autofree char *number = g_strdup_printf ("%d", first_pages[i]);
+
+        g_assert_nonnull (dest);
+        g_assert_cmpint (dest->page_num, ==, first_pages[i]);
+        poppler_dest_free (dest);
+        assert_contains (row, number, "index row");
+      }
+    poppler_page_free_link_mapping (links);
+  }
+  g_unlink (path);
 }
 
 static void
@@ -800,6 +897,7 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/tapered-block", test_tapered_block);
   g_test_add_func ("/sheet/pdf/field-check-page", test_field_check_page);
   g_test_add_func ("/sheet/pdf/moisture-page", test_moisture_page);
+  g_test_add_func ("/sheet/catalogue/moisture-pages", test_catalogue_moisture_pages);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
   g_assert_nonnull (temp_dir);
   status = g_test_run ();

@@ -175,10 +175,12 @@ test_daily (void)
 {
   g_autofree char *out = NULL, *err = NULL, *export_path = NULL, *changed_path = NULL;
   g_autofree char *svg_path = NULL, *pdf_path = NULL, *xml = NULL, *svg = NULL;
+  g_autofree char *ew302_path = NULL;
   g_autoptr(GString) changed = NULL;
 
   g_free (library_path);
   library_path = test_library_path ("daily.sqlite");
+  ew302_path = test_library_path ("ew-302.xml");
   export_path = test_library_path ("ew-101.xml");
   changed_path = test_library_path ("ew-101-changed.xml");
   svg_path = test_library_path ("cl-301.svg");
@@ -208,6 +210,38 @@ test_daily (void)
   g_assert_nonnull (strstr (out, "\"passes\" : false"));
   clear_output (&out, &err);
   g_assert_cmpint (run (&out, &err, "list", "--moisture", "wet", NULL), ==, 2);
+  clear_output (&out, &err);
+  /* The office's limit is the library's: EW-302's winter condensation
+   * (about 0.14 kg/m² at the end of March, dries out) passes the default
+   * 0.5 kg/m² (common practice) and fails a stricter 0.1 kg/m², in the list
+   * and in "show"; "moisture --limit" still overrides it for a file. */
+  g_assert_cmpint (run (&out, &err, "moisture-limit", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "0.5 kg/m²"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "moisture-limit", "--set", "0.1", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "0.1 kg/m²"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "list", "--moisture", "fails", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "EW-302"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "show", "EW-302", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "exceeds the office limit of 0.10 kg/m²"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "export", "EW-302", "-o", ew302_path, NULL), ==, 0);
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "moisture", ew302_path, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "Result: FAILS"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "moisture", ew302_path, "--limit", "0.5", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "Result: passes"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "moisture-limit", "--set", "-1", NULL), ==, 2);
+  g_assert_nonnull (strstr (err, "--set -1 is outside the allowed range"));
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "moisture-limit", "--set", "0.5", NULL), ==, 0);
+  clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "list", "--moisture", "fails", NULL), ==, 0);
+  g_assert_null (strstr (out, "EW-302"));
   clear_output (&out, &err);
 
   g_assert_cmpint (run (&out, &err, "check", "EW-102", "--by", "A. Reviewer", NULL), ==, 0);

@@ -286,9 +286,103 @@ test_failed_import_leaves_no_climate (void)
   g_assert_null (lamina_library_dup_construction (other, first, 0, NULL));
 }
 
+/* The office's limit on the largest accumulation (EN ISO 13788:2012 sets
+ * none; 0.5 kg/m² by default is common practice) is the library's: the
+ * stored "fails" flags follow it when it changes and when a revision is
+ * stored.  The seeded wall without vapour control at class 2 in the mild
+ * climate (winter +6 °C) condenses, dries out by the year's end and passes
+ * on the surface; its largest accumulation, about 1.08 kg/m² as calculated,
+ * is then the only thing that fails it. */
+static void
+test_office_limit (void)
+{
+  g_autoptr(LaminaLibrary) library = open_library ("limit.sqlite");
+  g_autoptr(LaminaClimate) mild = make_climate ("mild", 6);
+  g_autoptr(LaminaConstruction) a = NULL;
+  g_autoptr(LaminaConstruction) back = NULL;
+  g_autoptr(LaminaMoistureResult) r = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  const double bad[] = { 0, -0.5, LAMINA_MOISTURE_LIMIT_MAX + 1, NAN };
+
+  g_assert_cmpfloat (lamina_library_get_moisture_limit (library), ==, LAMINA_MOISTURE_DEFAULT_LIMIT);
+  g_assert_true (lamina_library_put_climate (library, mild, NULL));
+  a = make_checked_wall (library, "mild", 2);
+  id = lamina_library_create_construction (library, a, NULL, &error);
+  g_assert_no_error (error);
+  back = lamina_library_dup_construction (library, id, 0, NULL);
+  r = lamina_moisture_calculate_own (back, NAN, &error);
+  g_assert_no_error (error);
+  g_assert_true (r->condensation && r->dries_out && r->surface_passes);
+  g_assert_cmpfloat (r->max_accumulation, >, 0.5);
+  g_assert_cmpfloat (r->max_accumulation, <, 2.0);
+  g_assert_cmpuint (count_flagged (library, TRUE), ==, 1);
+
+  /* a looser office limit clears the flag at once, and a new revision keeps it clear */
+  g_assert_true (lamina_library_set_moisture_limit (library, 2.0, &error));
+  g_assert_no_error (error);
+  g_assert_cmpfloat (lamina_library_get_moisture_limit (library), ==, 2.0);
+  g_assert_cmpuint (count_flagged (library, TRUE), ==, 0);
+  back->description = (g_free (back->description), g_strdup ("Edited after the limit changed"));
+  g_assert_true (lamina_library_save_construction (library, back, back->revision, NULL, &error));
+  g_assert_no_error (error);
+  g_assert_cmpint (back->revision, ==, 2);
+  g_assert_cmpuint (count_flagged (library, TRUE), ==, 0);
+  /* back to the default: flagged again */
+  g_assert_true (lamina_library_set_moisture_limit (library, 0.5, &error));
+  g_assert_cmpuint (count_flagged (library, TRUE), ==, 1);
+
+  /* refusals name the setting and leave it as it was */
+  for (guint i = 0; i < G_N_ELEMENTS (bad); i++)
+    {
+      g_assert_false (lamina_library_set_moisture_limit (library, bad[i], &error));
+      g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+      g_assert_nonnull (strstr (error->message, "moisture limit"));
+      g_clear_error (&error);
+    }
+  g_assert_cmpfloat (lamina_library_get_moisture_limit (library), ==, 0.5);
+}
+
+/* A climate is deleted only while no construction's latest revision is
+ * checked with it. */
+static void
+test_delete_climate (void)
+{
+  g_autoptr(LaminaLibrary) library = open_library ("delete.sqlite");
+  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) unused = make_climate ("unused", 2);
+  g_autoptr(LaminaConstruction) a = NULL;
+  g_autoptr(GPtrArray) list = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+
+  g_assert_true (lamina_library_put_climate (library, cold, NULL));
+  g_assert_true (lamina_library_put_climate (library, unused, NULL));
+  a = make_checked_wall (library, "cold", 2);
+  id = lamina_library_create_construction (library, a, NULL, &error);
+  g_assert_no_error (error);
+
+  g_assert_false (lamina_library_delete_climate (library, "cold", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IN_USE);
+  g_assert_nonnull (strstr (error->message, "EW-M"));
+  g_clear_error (&error);
+  g_assert_true (lamina_library_delete_climate (library, "unused", &error));
+  g_assert_no_error (error);
+  g_assert_false (lamina_library_delete_climate (library, "unused", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+  g_clear_error (&error);
+  /* once its only user is deleted, it may go */
+  g_assert_true (lamina_library_delete_construction (library, id, NULL, &error));
+  g_assert_true (lamina_library_delete_climate (library, "cold", &error));
+  g_assert_no_error (error);
+  list = lamina_library_list_climates (library, &error);
+  g_assert_cmpuint (list->len, ==, 0);
+}
+
 int
 main (int argc, char **argv)
 {
+
   g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
   g_test_add_func ("/store/moisture/climate-round-trip", test_climate_round_trip);
   g_test_add_func ("/store/moisture/construction-carries-climate", test_construction_carries_climate);
@@ -296,5 +390,7 @@ main (int argc, char **argv)
   g_test_add_func ("/store/moisture/export-import", test_export_import);
   g_test_add_func ("/store/moisture/failed-import-leaves-no-climate",
                    test_failed_import_leaves_no_climate);
+  g_test_add_func ("/store/moisture/office-limit", test_office_limit);
+  g_test_add_func ("/store/moisture/delete-climate", test_delete_climate);
   return g_test_run ();
 }
