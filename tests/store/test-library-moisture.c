@@ -297,7 +297,7 @@ static void
 test_office_limit (void)
 {
   g_autoptr(LaminaLibrary) library = open_library ("limit.sqlite");
-  g_autoptr(LaminaClimate) mild = make_climate ("mild", 6);
+  g_autoptr(LaminaClimate) mild = test_make_climate ("mild", 6);
   g_autoptr(LaminaConstruction) a = NULL;
   g_autoptr(LaminaConstruction) back = NULL;
   g_autoptr(LaminaMoistureResult) r = NULL;
@@ -349,8 +349,8 @@ static void
 test_delete_climate (void)
 {
   g_autoptr(LaminaLibrary) library = open_library ("delete.sqlite");
-  g_autoptr(LaminaClimate) cold = make_climate ("cold", -8);
-  g_autoptr(LaminaClimate) unused = make_climate ("unused", 2);
+  g_autoptr(LaminaClimate) cold = test_make_climate ("cold", -8);
+  g_autoptr(LaminaClimate) unused = test_make_climate ("unused", 2);
   g_autoptr(LaminaConstruction) a = NULL;
   g_autoptr(GPtrArray) list = NULL;
   g_autoptr(GError) error = NULL;
