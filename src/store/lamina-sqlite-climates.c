@@ -11,7 +11,7 @@
 
 #define SELF ((LaminaSqlite *) backend)
 
-static LaminaClimate *
+static gpointer
 read_climate_row (sqlite3_stmt *stmt)
 {
   LaminaClimate *climate = lamina_climate_new ((const char *) sqlite3_column_text (stmt, 0),
@@ -30,21 +30,11 @@ lamina_sqlite_backend_list_climates (LaminaBackend  *backend,
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT id, name, source, months FROM climate ORDER BY name COLLATE NOCASE, id;", error);
-  g_autoptr(GPtrArray) list = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
-  list = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_climate_free);
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    g_ptr_array_add (list, read_climate_row (stmt));
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    {
-      lamina_sqlite_set_error (SELF, rc, "cannot read the climates", error);
-      return NULL;
-    }
-  return g_steal_pointer (&list);
+  return lamina_sqlite_read_rows (SELF, stmt, read_climate_row,
+                                  (GDestroyNotify) lamina_climate_free, "cannot read the climates", error);
 }
 
 LaminaClimate *
@@ -54,22 +44,11 @@ lamina_sqlite_backend_get_climate (LaminaBackend  *backend,
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT id, name, source, months FROM climate WHERE id = ?1;", error);
-  LaminaClimate *climate = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
   lamina_sqlite_bind_text (stmt, 1, id);
-  rc = sqlite3_step (stmt);
-  if (rc == SQLITE_ROW)
-    climate = read_climate_row (stmt);
-  else if (rc == SQLITE_DONE)
-    g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
-                 "no climate “%s” in the library", id);
-  else
-    lamina_sqlite_set_error (SELF, rc, "cannot read a climate", error);
-  sqlite3_reset (stmt);
-  return climate;
+  return lamina_sqlite_read_one (SELF, stmt, read_climate_row, "climate", id, error);
 }
 
 gboolean

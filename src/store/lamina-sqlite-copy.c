@@ -150,19 +150,9 @@ read_constructions (LaminaSqlite       *self,
     {
       LaminaBackendRecord *record =
         g_hash_table_lookup (by_id, (const char *) sqlite3_column_text (stmt, 0));
-      LaminaReviewEvent *e;
 
-      if (record == NULL)
-        continue;
-      e = g_new0 (LaminaReviewEvent, 1);
-      e->revision = sqlite3_column_int (stmt, 1);
-      e->act = lamina_sqlite_column_dup (stmt, 2);
-      e->by = lamina_sqlite_column_dup (stmt, 3);
-      e->at = lamina_sqlite_column_dup (stmt, 4);
-      e->date = lamina_sqlite_column_dup (stmt, 5);
-      e->policy = lamina_sqlite_column_dup (stmt, 6);
-      e->reason = lamina_sqlite_column_dup (stmt, 7);
-      g_ptr_array_add (record->review_events, e);
+      if (record != NULL)
+        g_ptr_array_add (record->review_events, lamina_sqlite_read_review_event (stmt, 1));
     }
   sqlite3_reset (stmt);
   if (rc != SQLITE_DONE)

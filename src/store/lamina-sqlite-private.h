@@ -58,6 +58,31 @@ double        lamina_sqlite_column_double (sqlite3_stmt *stmt,
 char         *lamina_sqlite_column_dup    (sqlite3_stmt *stmt,
                                            int           index);
 
+/* One row of a result as a new item. */
+typedef gpointer (*LaminaSqliteReadRow) (sqlite3_stmt *stmt);
+
+/* Steps @stmt (prepared and bound) through its rows: an array of
+ * @read_row's items (freed by @free_item), or NULL with @error set,
+ * prefixed by @what ("cannot read the materials"). */
+GPtrArray    *lamina_sqlite_read_rows     (LaminaSqlite         *self,
+                                           sqlite3_stmt         *stmt,
+                                           LaminaSqliteReadRow   read_row,
+                                           GDestroyNotify        free_item,
+                                           const char           *what,
+                                           GError              **error);
+/* The one row of @stmt read by @read_row, or NULL with NOT_FOUND ("no
+ * @kind “@id” in the library") or the database's error set. */
+gpointer      lamina_sqlite_read_one      (LaminaSqlite         *self,
+                                           sqlite3_stmt         *stmt,
+                                           LaminaSqliteReadRow   read_row,
+                                           const char           *kind,
+                                           const char           *id,
+                                           GError              **error);
+/* A review record from the 7 columns revision, act, person, at, date,
+ * policy, reason starting at @first. */
+LaminaReviewEvent *lamina_sqlite_read_review_event (sqlite3_stmt *stmt,
+                                                    int           first);
+
 /* lamina-sqlite-safety.c: waiting for another program's write lock. */
 void          lamina_sqlite_install_busy_handler (LaminaSqlite *self);
 /* Tells the wait function that a wait (if any) is over. */

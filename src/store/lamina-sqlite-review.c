@@ -164,6 +164,12 @@ lamina_sqlite_backend_review (LaminaBackend             *backend,
   return TRUE;
 }
 
+static gpointer
+read_review_event_row (sqlite3_stmt *stmt)
+{
+  return lamina_sqlite_read_review_event (stmt, 0);
+}
+
 GPtrArray *
 lamina_sqlite_backend_get_review_events (LaminaBackend  *backend,
                                          const char     *id,
@@ -172,33 +178,13 @@ lamina_sqlite_backend_get_review_events (LaminaBackend  *backend,
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT revision, act, person, at, date, policy, reason FROM review_event"
     " WHERE construction_id = ?1 ORDER BY num;", error);
-  g_autoptr(GPtrArray) events = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
-  events = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_review_event_free);
   lamina_sqlite_bind_text (stmt, 1, id);
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    {
-      LaminaReviewEvent *e = g_new0 (LaminaReviewEvent, 1);
-
-      e->revision = sqlite3_column_int (stmt, 0);
-      e->act = lamina_sqlite_column_dup (stmt, 1);
-      e->by = lamina_sqlite_column_dup (stmt, 2);
-      e->at = lamina_sqlite_column_dup (stmt, 3);
-      e->date = lamina_sqlite_column_dup (stmt, 4);
-      e->policy = lamina_sqlite_column_dup (stmt, 5);
-      e->reason = lamina_sqlite_column_dup (stmt, 6);
-      g_ptr_array_add (events, e);
-    }
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    {
-      lamina_sqlite_set_error (SELF, rc, "cannot read the review records", error);
-      return NULL;
-    }
-  return g_steal_pointer (&events);
+  return lamina_sqlite_read_rows (SELF, stmt, read_review_event_row,
+                                  (GDestroyNotify) lamina_review_event_free,
+                                  "cannot read the review records", error);
 }
 
 char *

@@ -455,6 +455,24 @@ lamina_sqlite_backend_set_deleted (LaminaBackend  *backend,
   return TRUE;
 }
 
+static gpointer
+read_revision_info_row (sqlite3_stmt *stmt)
+{
+  LaminaRevisionInfo *info = g_new0 (LaminaRevisionInfo, 1);
+
+  info->revision = sqlite3_column_int (stmt, 0);
+  lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 1), &info->status);
+  info->modified_by = lamina_sqlite_column_dup (stmt, 2);
+  info->modified_at = lamina_sqlite_column_dup (stmt, 3);
+  info->checked_by = lamina_sqlite_column_dup (stmt, 4);
+  info->checked_at = lamina_sqlite_column_dup (stmt, 5);
+  info->approved_by = lamina_sqlite_column_dup (stmt, 6);
+  info->approved_at = lamina_sqlite_column_dup (stmt, 7);
+  info->comment = lamina_sqlite_column_dup (stmt, 8);
+  info->u_corrected = lamina_sqlite_column_double (stmt, 9);
+  return info;
+}
+
 GPtrArray *
 lamina_sqlite_backend_get_history (LaminaBackend  *backend,
                                    const char     *id,
@@ -465,35 +483,13 @@ lamina_sqlite_backend_get_history (LaminaBackend  *backend,
     "       approved_by, approved_at, comment, u_corrected"
     "  FROM revision WHERE construction_id = ?1 ORDER BY revision DESC;", error);
   g_autoptr(GPtrArray) list = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
-  list = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_revision_info_free);
   lamina_sqlite_bind_text (stmt, 1, id);
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    {
-      LaminaRevisionInfo *info = g_new0 (LaminaRevisionInfo, 1);
-
-      info->revision = sqlite3_column_int (stmt, 0);
-      lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 1), &info->status);
-      info->modified_by = lamina_sqlite_column_dup (stmt, 2);
-      info->modified_at = lamina_sqlite_column_dup (stmt, 3);
-      info->checked_by = lamina_sqlite_column_dup (stmt, 4);
-      info->checked_at = lamina_sqlite_column_dup (stmt, 5);
-      info->approved_by = lamina_sqlite_column_dup (stmt, 6);
-      info->approved_at = lamina_sqlite_column_dup (stmt, 7);
-      info->comment = lamina_sqlite_column_dup (stmt, 8);
-      info->u_corrected = lamina_sqlite_column_double (stmt, 9);
-      g_ptr_array_add (list, info);
-    }
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    {
-      lamina_sqlite_set_error (SELF, rc, "cannot read the history", error);
-      return NULL;
-    }
-  if (list->len == 0)
+  list = lamina_sqlite_read_rows (SELF, stmt, read_revision_info_row,
+                                  (GDestroyNotify) lamina_revision_info_free, "cannot read the history", error);
+  if (list != NULL && list->len == 0)
     {
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
                    "no construction “%s” in the library", id);

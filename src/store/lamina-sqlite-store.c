@@ -17,7 +17,7 @@
   "id, name, category, conductivity, density, specific_heat," \
   " vapour_resistance_factor, emissivity, source, notes, stock_thicknesses"
 
-static LaminaMaterial *
+static gpointer
 read_material_row (sqlite3_stmt *stmt)
 {
   LaminaCategory category = LAMINA_CATEGORY_OTHER;
@@ -46,21 +46,11 @@ lamina_sqlite_backend_list_materials (LaminaBackend  *backend,
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT " MATERIAL_COLUMNS " FROM material ORDER BY category, name COLLATE NOCASE, id;",
     error);
-  g_autoptr(GPtrArray) list = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
-  list = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    g_ptr_array_add (list, read_material_row (stmt));
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    {
-      lamina_sqlite_set_error (SELF, rc, "cannot read the materials", error);
-      return NULL;
-    }
-  return g_steal_pointer (&list);
+  return lamina_sqlite_read_rows (SELF, stmt, read_material_row,
+                                  (GDestroyNotify) lamina_material_free, "cannot read the materials", error);
 }
 
 LaminaMaterial *
@@ -70,22 +60,11 @@ lamina_sqlite_backend_get_material (LaminaBackend  *backend,
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT " MATERIAL_COLUMNS " FROM material WHERE id = ?1;", error);
-  LaminaMaterial *m = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
   lamina_sqlite_bind_text (stmt, 1, id);
-  rc = sqlite3_step (stmt);
-  if (rc == SQLITE_ROW)
-    m = read_material_row (stmt);
-  else if (rc == SQLITE_DONE)
-    g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
-                 "no material “%s” in the library", id);
-  else
-    lamina_sqlite_set_error (SELF, rc, "cannot read a material", error);
-  sqlite3_reset (stmt);
-  return m;
+  return lamina_sqlite_read_one (SELF, stmt, read_material_row, "material", id, error);
 }
 
 gboolean

@@ -208,3 +208,67 @@ lamina_sqlite_column_dup (sqlite3_stmt *stmt,
 {
   return g_strdup ((const char *) sqlite3_column_text (stmt, index));
 }
+
+GPtrArray *
+lamina_sqlite_read_rows (LaminaSqlite         *self,
+                         sqlite3_stmt         *stmt,
+                         LaminaSqliteReadRow   read_row,
+                         GDestroyNotify        free_item,
+                         const char           *what,
+                         GError              **error)
+{
+  g_autoptr(GPtrArray) list = g_ptr_array_new_with_free_func (free_item);
+  int rc;
+
+  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
+    g_ptr_array_add (list, read_row (stmt));
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (self, rc, what, error);
+      return NULL;
+    }
+  return g_steal_pointer (&list);
+}
+
+gpointer
+lamina_sqlite_read_one (LaminaSqlite         *self,
+                        sqlite3_stmt         *stmt,
+                        LaminaSqliteReadRow   read_row,
+                        const char           *kind,
+                        const char           *id,
+                        GError              **error)
+{
+  gpointer item = NULL;
+  int rc = sqlite3_step (stmt);
+
+  if (rc == SQLITE_ROW)
+    item = read_row (stmt);
+  else if (rc == SQLITE_DONE)
+    g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                 "no %s “%s” in the library", kind, id);
+  else
+    {
+      g_autofree char *what = g_strdup_printf ("cannot read a %s", kind);
+
+      lamina_sqlite_set_error (self, rc, what, error);
+    }
+  sqlite3_reset (stmt);
+  return item;
+}
+
+LaminaReviewEvent *
+lamina_sqlite_read_review_event (sqlite3_stmt *stmt,
+                                 int           first)
+{
+  LaminaReviewEvent *e = g_new0 (LaminaReviewEvent, 1);
+
+  e->revision = sqlite3_column_int (stmt, first);
+  e->act = lamina_sqlite_column_dup (stmt, first + 1);
+  e->by = lamina_sqlite_column_dup (stmt, first + 2);
+  e->at = lamina_sqlite_column_dup (stmt, first + 3);
+  e->date = lamina_sqlite_column_dup (stmt, first + 4);
+  e->policy = lamina_sqlite_column_dup (stmt, first + 5);
+  e->reason = lamina_sqlite_column_dup (stmt, first + 6);
+  return e;
+}
