@@ -89,6 +89,19 @@ describe (LaminaChangeBanner      *self,
                           name, who ? who : _("someone else"), what);
 }
 
+/* Deleted by another connection: the history stays, the construction is
+ * no longer found. */
+static gboolean
+is_deleted (LaminaChangeBanner *self)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaConstruction) c =
+    lamina_library_dup_construction (lamina_document_get_library (self->document),
+                                     lamina_document_get_id (self->document), 0, &error);
+
+  return c == NULL && g_error_matches (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+}
+
 void
 lamina_change_banner_library_changed (LaminaChangeBanner *self,
                                       gboolean            external)
@@ -103,6 +116,20 @@ lamina_change_banner_library_changed (LaminaChangeBanner *self,
       || !read_state (lamina_document_get_library (self->document),
                       lamina_document_get_id (self->document), &now, &history, &events))
     return;
+  if (external && self->known.head > 0 && is_deleted (self))
+    {
+      const LaminaConstruction *c = lamina_document_get_construction (self->document);
+
+      g_free (self->message);
+      self->message = g_strdup_printf (_("%s was deleted from the library by someone else. Your version "
+                                         "stays on screen; it is no longer in the library."),
+                                       c->code != NULL && *c->code != '\0' ? c->code : c->name);
+      gtk_label_set_text (self->label, self->message);
+      gtk_widget_set_visible (GTK_WIDGET (self->reload_button), FALSE);
+      gtk_revealer_set_reveal_child (self->revealer, TRUE);
+      self->known.head = 0;
+      return;
+    }
   if (external && self->known.head > 0
       && (now.head != self->known.head || now.status != self->known.status
           || now.n_events != self->known.n_events))
@@ -110,6 +137,7 @@ lamina_change_banner_library_changed (LaminaChangeBanner *self,
       g_free (self->message);
       self->message = describe (self, &now, history, events);
       gtk_label_set_text (self->label, self->message);
+      gtk_widget_set_visible (GTK_WIDGET (self->reload_button), TRUE);
       gtk_revealer_set_reveal_child (self->revealer, TRUE);
     }
   /* Shown once per change: "Keep editing" does not bring it back. */

@@ -206,6 +206,31 @@ test_keep_editing (Fixture       *f,
   g_assert_null (lamina_change_banner_get_message (banner));
 }
 
+/* Another connection to the same library (as a colleague's Lamina has)
+ * deletes the open construction. */
+static void
+test_deleted_by_colleague (Fixture       *f,
+                           gconstpointer  data)
+{
+  LaminaChangeBanner *banner = f->window->change_banner;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) colleague = lamina_library_open (f->path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  const char *message;
+
+  g_assert_no_error (error);
+  g_assert_true (lamina_window_open (f->window, "demo-ew-102", &error));
+  g_assert_true (lamina_library_delete_construction (colleague, "demo-ew-102", "Vela Quist", &error));
+  g_assert_no_error (error);
+  poll_now (f);
+  message = lamina_change_banner_get_message (banner);
+  g_assert_nonnull (message);
+  g_assert_nonnull (strstr (message, "EW-102 was deleted"));
+  g_assert_false (gtk_widget_get_visible (GTK_WIDGET (banner->reload_button)));
+  /* What the user had is still on screen. */
+  g_assert_cmpstr (lamina_document_get_id (document (f)), ==, "demo-ew-102");
+  g_assert_nonnull (lamina_document_get_construction (document (f)));
+}
+
 /* The connection strings libpq takes (PostgreSQL 15 documentation, 34.1.1
  * "Connection Strings": key=value and postgresql:// URIs, percent-encoded
  * parts, IPv6 hosts in brackets, "service=NAME"). */
@@ -365,6 +390,7 @@ main (int    argc,
   gtk_test_init (&argc, &argv, NULL);
   g_test_add ("/app/office/review-by-colleague", Fixture, NULL, fixture_setup, test_review_by_colleague, fixture_teardown);
   g_test_add ("/app/office/keep-editing", Fixture, NULL, fixture_setup, test_keep_editing, fixture_teardown);
+  g_test_add ("/app/office/deleted-by-colleague", Fixture, NULL, fixture_setup, test_deleted_by_colleague, fixture_teardown);
   g_test_add_func ("/app/office/conninfo", test_conninfo);
   g_test_add ("/app/office/dialog-open-fails", Fixture, NULL, fixture_setup, test_dialog_open_fails, fixture_teardown);
   g_test_add ("/app/office/dialog-recent", Fixture, NULL, fixture_setup, test_dialog_recent, fixture_teardown);
