@@ -403,6 +403,14 @@ lamina_library_restore_backup (const char  *library_path,
 
   g_return_val_if_fail (library_path != NULL && backup != NULL, FALSE);
 
+  /* A server library is kept by the server's own backups. */
+  if (strstr (library_path, "://") != NULL || g_str_has_prefix (library_path, "postgres"))
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_FAILED,
+                   "%s: restoring a backup file is not supported for this library", library_path);
+      return FALSE;
+    }
+
   /* The copy must be a sound library before anything is touched. */
   source = lamina_library_open (backup, LAMINA_LIBRARY_OPEN_READ_ONLY, error);
   if (source == NULL)

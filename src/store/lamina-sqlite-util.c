@@ -26,6 +26,13 @@ lamina_sqlite_set_error (LaminaSqlite  *self,
       lamina_sqlite_set_busy_error (self, error);
       return;
     case SQLITE_READONLY:
+      if (rc == SQLITE_READONLY_DBMOVED)
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                       "%s: the library file was moved, deleted or replaced while open "
+                       "(a restore?); nothing was changed: open it again", self->parent.path);
+          return;
+        }
       lamina_backend_set_read_only_error (&self->parent, error);
       return;
     case SQLITE_CORRUPT:

@@ -512,6 +512,26 @@ test_backup_rotation (void)
   g_unsetenv ("LAMINA_BACKUP_DIR");
 }
 
+/* lamina-cli --library LIB restore with @input (NULL: nothing) on its
+ * standard input. */
+static int
+run_with_input (const char  *input,
+                char       **out,
+                char       **err)
+{
+  g_autofree char *cli = g_build_filename (g_getenv ("LAMINA_BUILD_DIR"), "src", "cli", "lamina-cli", NULL);
+  g_autofree char *command = g_strdup_printf ("printf '%s' | '%s' --library '%s' restore",
+                                              input ? input : "", cli, library_path);
+  const char *argv[] = { "/bin/sh", "-c", command, NULL };
+  g_autoptr(GError) error = NULL;
+  int status = 0;
+
+  g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_DEFAULT, NULL, NULL,
+                               out, err, &status, &error));
+  g_assert_no_error (error);
+  return WIFEXITED (status) ? WEXITSTATUS (status) : -1;
+}
+
 static void
 test_restore (void)
 {
@@ -584,11 +604,21 @@ test_restore (void)
     g_unlink (bad);
   }
 
-  /* The command asks first; --yes is for scripts. */
+  /* The command asks first (no answer, "n": not restored; "y": restored);
+   * --yes is for scripts. */
   g_free (library_path);
   library_path = g_strdup (path);
-  g_assert_cmpint (run (&out, &err, "restore", NULL), ==, 1);
+  g_assert_cmpint (run_with_input (NULL, &out, &err), ==, 1);
   g_assert_nonnull (strstr (err, "not restored"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run_with_input ("n\n", &out, &err), ==, 1);
+  g_assert_nonnull (strstr (err, "Replace the library"));
+  g_assert_nonnull (strstr (err, "not restored"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run_with_input ("y\n", &out, &err), ==, 0);
+  g_assert_nonnull (strstr (out, "restored from"));
   g_clear_pointer (&out, g_free);
   g_clear_pointer (&err, g_free);
   g_assert_cmpint (run (&out, &err, "restore", "--yes", NULL), ==, 0);
