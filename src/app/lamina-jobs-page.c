@@ -16,6 +16,7 @@
 #include "lamina-job-entry-dialog.h"
 #include "lamina-job-junction-dialog.h"
 #include "lamina-revision-diff.h"
+#include "lamina-target-set-dialog.h"
 #include "lamina-settings.h"
 #include "lamina-sheet.h"
 #include "lamina-sheet-format.h"
@@ -258,19 +259,43 @@ on_remove_junction_clicked_cb (GtkButton *button,
 }
 
 static GtkWidget *
-create_action_button (LaminaJobsPage *self,
-                      const char     *label,
-                      int             entry,
-                      int             revision,
-                      GCallback       callback)
+connect_row_action (LaminaJobsPage *self,
+                    GtkWidget      *button,
+                    int             entry,
+                    int             revision,
+                    GCallback       callback)
 {
-  GtkWidget *button = gtk_button_new_with_label (label);
   RowAction *action = g_new0 (RowAction, 1);
 
   *action = (RowAction) { self, entry, revision };
   gtk_widget_add_css_class (button, "flat");
   g_signal_connect_data (button, "clicked", callback, action, (GClosureNotify) (void (*) (void)) g_free, 0);
   return button;
+}
+
+static GtkWidget *
+create_action_button (LaminaJobsPage *self,
+                      const char     *label,
+                      int             entry,
+                      int             revision,
+                      GCallback       callback)
+{
+  return connect_row_action (self, gtk_button_new_with_label (label), entry, revision, callback);
+}
+
+/* An icon button named by @tooltip: the rows stay narrow enough for the
+ * figures. */
+static GtkWidget *
+create_icon_button (LaminaJobsPage *self,
+                    const char     *icon,
+                    const char     *tooltip,
+                    int             entry,
+                    GCallback       callback)
+{
+  GtkWidget *button = gtk_button_new_from_icon_name (icon);
+
+  gtk_widget_set_tooltip_text (button, tooltip);
+  return connect_row_action (self, button, entry, 0, callback);
 }
 
 static GtkWidget *
@@ -363,11 +388,11 @@ create_schedule_row (LaminaJobsPage      *self,
                                                            G_CALLBACK (on_move_clicked_cb)));
     }
   if (c != NULL)
-    gtk_box_append (GTK_BOX (top), create_action_button (self, _("Sheet…"), line->entry->n, 0,
+    gtk_box_append (GTK_BOX (top), create_icon_button (self, "document-print-symbolic", _("Export the entry's sheet…"), line->entry->n,
                                                          G_CALLBACK (on_sheet_clicked_cb)));
-  gtk_box_append (GTK_BOX (top), create_action_button (self, _("Edit…"), line->entry->n, 0,
+  gtk_box_append (GTK_BOX (top), create_icon_button (self, "document-edit-symbolic", _("Change the entry…"), line->entry->n,
                                                        G_CALLBACK (on_edit_entry_clicked_cb)));
-  gtk_box_append (GTK_BOX (top), create_action_button (self, _("Remove"), line->entry->n, 0,
+  gtk_box_append (GTK_BOX (top), create_icon_button (self, "user-trash-symbolic", _("Remove the entry"), line->entry->n,
                                                        G_CALLBACK (on_remove_clicked_cb)));
   gtk_box_append (GTK_BOX (box), top);
   if (lamina_job_entry_is_variant (line->entry))
@@ -432,9 +457,9 @@ create_junction_row (LaminaJobsPage          *self,
   gtk_label_set_ellipsize (GTK_LABEL (name), PANGO_ELLIPSIZE_END);
   gtk_box_append (GTK_BOX (box), name);
   gtk_box_append (GTK_BOX (box), create_label (figures, 0, 1));
-  gtk_box_append (GTK_BOX (box), create_action_button (self, _("Edit…"), j->n, 0,
+  gtk_box_append (GTK_BOX (box), create_icon_button (self, "document-edit-symbolic", _("Change the junction…"), j->n,
                                                        G_CALLBACK (on_edit_junction_clicked_cb)));
-  gtk_box_append (GTK_BOX (box), create_action_button (self, _("Remove"), j->n, 0,
+  gtk_box_append (GTK_BOX (box), create_icon_button (self, "user-trash-symbolic", _("Remove the junction"), j->n,
                                                        G_CALLBACK (on_remove_junction_clicked_cb)));
   gtk_widget_set_margin_start (box, 8);
   gtk_widget_set_margin_end (box, 8);
@@ -667,6 +692,35 @@ lamina_jobs_page_open_junction_dialog (LaminaJobsPage *self,
 }
 
 static void
+on_targets_saved_cb (LaminaJobsPage *self)
+{
+  g_autofree char *id = g_strdup (lamina_jobs_page_get_job_id (self));
+
+  if (id != NULL)
+    show_job (self, id);
+}
+
+LaminaTargetSetDialog *
+lamina_jobs_page_open_target_sets (LaminaJobsPage *self)
+{
+  LaminaTargetSetDialog *dialog;
+
+  dialog = lamina_target_set_dialog_new (get_parent (self), self->library,
+                                         self->report != NULL ? self->report->job->target_set : NULL);
+  g_signal_connect_object (dialog, "saved", G_CALLBACK (on_targets_saved_cb), self, G_CONNECT_SWAPPED);
+  gtk_window_present (GTK_WINDOW (dialog));
+  return dialog;
+}
+
+static void
+target_sets_action (GtkWidget  *widget,
+                    const char *name,
+                    GVariant   *parameter)
+{
+  lamina_jobs_page_open_target_sets (LAMINA_JOBS_PAGE (widget));
+}
+
+static void
 new_job_action (GtkWidget  *widget,
                 const char *name,
                 GVariant   *parameter)
@@ -895,6 +949,7 @@ lamina_jobs_page_class_init (LaminaJobsPageClass *klass)
   gtk_widget_class_install_action (widget_class, "jobs.add-entry", NULL, add_entry_action);
   gtk_widget_class_install_action (widget_class, "jobs.print", NULL, print_action);
   gtk_widget_class_install_action (widget_class, "jobs.new-job", NULL, new_job_action);
+  gtk_widget_class_install_action (widget_class, "jobs.target-sets", NULL, target_sets_action);
   gtk_widget_class_install_action (widget_class, "jobs.edit-job", NULL, edit_job_action);
   gtk_widget_class_install_action (widget_class, "jobs.add-junction", NULL, add_junction_action);
 }

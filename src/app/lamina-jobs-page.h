@@ -10,6 +10,7 @@
 #include "lamina-job-dialog.h"
 #include "lamina-job-entry-dialog.h"
 #include "lamina-job-junction-dialog.h"
+#include "lamina-target-set-dialog.h"
 #include "lamina-library.h"
 
 G_BEGIN_DECLS
@@ -39,6 +40,8 @@ LaminaJobEntryDialog *lamina_jobs_page_open_entry_dialog (LaminaJobsPage *self,
                                                           int             n);
 LaminaJobJunctionDialog *lamina_jobs_page_open_junction_dialog (LaminaJobsPage *self,
                                                                 int             n);
+/* The library's target sets, on the shown job's set (else a new one). */
+LaminaTargetSetDialog *lamina_jobs_page_open_target_sets (LaminaJobsPage *self);
 /* For a job variant (entry @n of the selected job): what differs from
  * its origin at the origin's revision (char*, sentences); NULL when the
  * entry is not a variant. */

@@ -16,6 +16,7 @@
 #include "lamina-job-dialog-private.h"
 #include "lamina-job-entry-dialog-private.h"
 #include "lamina-job-junction-dialog-private.h"
+#include "lamina-target-set-dialog-private.h"
 #include "lamina-app-test-util.h"
 
 /* The first label under @widget whose text starts with @prefix. */
@@ -188,6 +189,46 @@ find_choice (GtkDropDown *dropdown,
   return 0;
 }
 
+/* A window on a fresh copy of the demo library, showing the Jobs. */
+typedef struct
+{
+  char          *dir;
+  char          *path;
+  LaminaLibrary *library;
+  LaminaWindow  *window;
+  LaminaJobsPage *page;
+} DemoWindow;
+
+static void
+demo_window_open (DemoWindow *d)
+{
+  g_autoptr(GError) error = NULL;
+
+  d->dir = g_dir_make_tmp ("lamina-jobs-XXXXXX", &error);
+  g_assert_no_error (error);
+  d->path = g_build_filename (d->dir, "library.sqlite", NULL);
+  d->library = lamina_library_open (d->path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_demo_load (d->library, &error));
+  lamina_application_load_style ();
+  d->window = lamina_window_new (NULL, d->library);
+  gtk_window_present (GTK_WINDOW (d->window));
+  lamina_window_show_view (d->window, "jobs");
+  d->page = lamina_window_get_jobs_page (d->window);
+}
+
+static void
+demo_window_close (DemoWindow *d)
+{
+  gtk_window_destroy (GTK_WINDOW (d->window));
+  lamina_library_close (d->library);
+  g_clear_object (&d->library);
+  g_remove (d->path);
+  g_rmdir (d->dir);
+  g_free (d->path);
+  g_free (d->dir);
+}
+
 /* Creating and changing a job, one of its entries and a junction in the
  * window: each fault names its field and stores nothing; what is saved is
  * what the library holds.  B′ = A / (0.5 P) = 100 / 20 = 5 m
@@ -196,13 +237,11 @@ static void
 test_jobs_edit (void)
 {
   g_autoptr(GError) error = NULL;
-  g_autofree char *dir = g_dir_make_tmp ("lamina-jobs-edit-XXXXXX", &error);
-  g_autofree char *path = g_build_filename (dir, "library.sqlite", NULL);
   const char *build = g_getenv ("LAMINA_BUILD_DIR");
   g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "job-dialog.png", NULL);
-  g_autoptr(LaminaLibrary) library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
   g_autoptr(LaminaJob) job = NULL;
-  LaminaWindow *window;
+  DemoWindow d;
+  LaminaLibrary *library;
   LaminaJobsPage *page;
   LaminaJobDialog *dialog;
   LaminaJobEntryDialog *entry_dialog;
@@ -212,13 +251,9 @@ test_jobs_edit (void)
   guint n_log;
   int draft = 0;
 
-  g_assert_no_error (error);
-  g_assert_true (lamina_demo_load (library, &error));
-  lamina_application_load_style ();
-  window = lamina_window_new (NULL, library);
-  gtk_window_present (GTK_WINDOW (window));
-  lamina_window_show_view (window, "jobs");
-  page = lamina_window_get_jobs_page (window);
+  demo_window_open (&d);
+  library = d.library;
+  page = d.page;
 
   /* A new job. */
   dialog = lamina_jobs_page_open_job_dialog (page, TRUE);
@@ -311,10 +346,84 @@ test_jobs_edit (void)
   g_assert_cmpfloat_with_epsilon (((LaminaJobJunction *) job->junctions->pdata[2])->psi
                                   * ((LaminaJobJunction *) job->junctions->pdata[2])->length, 1.5, 1e-12);
 
-  gtk_window_destroy (GTK_WINDOW (window));
-  lamina_library_close (library);
-  g_remove (path);
-  g_rmdir (dir);
+  demo_window_close (&d);
+}
+
+/* The demo's invented target table changed in the window: a stricter
+ * external-wall maximum (0.15 W/(m²·K), below EW-201's 0.168) turns the
+ * school's classroom wall to "not met" on the job; faults name the row
+ * and the field; a new set is stored with its moisture criterion. */
+static void
+test_target_sets (void)
+{
+  g_autoptr(GError) error = NULL;
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "target-set-dialog.png", NULL);
+  g_autoptr(LaminaTargetSet) set = NULL;
+  DemoWindow d;
+  LaminaLibrary *library;
+  LaminaJobsPage *page;
+  LaminaTargetSetDialog *dialog;
+  LaminaTargetRow *row;
+  guint added;
+
+  demo_window_open (&d);
+  library = d.library;
+  page = d.page;
+  g_assert_true (lamina_jobs_page_select (page, "demo-job-riverside"));
+  dialog = lamina_jobs_page_open_target_sets (page);
+  g_assert_cmpstr (gtk_editable_get_text (GTK_EDITABLE (dialog->id_entry)), ==, "demo-fallowmere-rules");
+  g_assert_cmpuint (dialog->rows->len, ==, 6);
+  row = dialog->rows->pdata[0];
+  g_assert_cmpstr (gtk_editable_get_text (GTK_EDITABLE (row->use)), ==, "external-wall");
+  g_assert_cmpstr (gtk_editable_get_text (GTK_EDITABLE (row->min_frsi)), ==, "0.75");
+  g_assert_cmpint (gtk_drop_down_get_selected (row->moisture), ==, LAMINA_MOISTURE_NO_CONDENSATION);
+  wait_for_draw (GTK_WIDGET (dialog));
+  save_png (GTK_WIDGET (dialog), png);
+
+  set_entry (((LaminaTargetRow *) dialog->rows->pdata[1])->min_frsi, "1.5");
+  assert_refused (lamina_target_set_dialog_save, dialog, "Row 2 (roof), minimum fRsi:");
+  set_entry (((LaminaTargetRow *) dialog->rows->pdata[1])->min_frsi, "");
+  added = lamina_target_set_dialog_add_row (dialog);
+  row = dialog->rows->pdata[added];
+  set_entry (row->use, "external-wall");
+  set_entry (row->max_u, "0.2");
+  assert_refused (lamina_target_set_dialog_save, dialog, "Row 7 (external-wall), use:");
+  set_entry (row->use, "ceiling-heated");
+  set_entry (row->max_u, "low");
+  assert_refused (lamina_target_set_dialog_save, dialog, "Row 7 (ceiling-heated), maximum U:");
+  g_signal_emit_by_name (row->remove, "clicked");
+  g_assert_true (row->removed);
+  set_entry (((LaminaTargetRow *) dialog->rows->pdata[0])->max_u, "0.15");
+  g_assert_true (lamina_target_set_dialog_save (dialog, &error));
+  g_assert_no_error (error);
+  set = lamina_library_dup_target_set (library, "demo-fallowmere-rules", &error);
+  g_assert_cmpuint (set->targets->len, ==, 6);
+  g_assert_cmpfloat (lamina_target_set_find (set, "external-wall")->max_u, ==, 0.15);
+  g_assert_nonnull (strstr (lamina_jobs_page_get_summary (page), "3 of 5 entries meet their targets: 2 not met"));
+  g_clear_pointer (&set, lamina_target_set_free);
+
+  /* A new set. */
+  lamina_target_set_dialog_show (dialog, NULL);
+  g_assert_true (gtk_widget_get_sensitive (GTK_WIDGET (dialog->id_entry)));
+  set_entry (dialog->id_entry, "office-set");
+  assert_refused (lamina_target_set_dialog_save, dialog, "Name:");
+  set_entry (dialog->name_entry, "Office table (invented)");
+  row = dialog->rows->pdata[0];
+  set_entry (row->use, "roof");
+  set_entry (row->max_u, "0,2");
+  gtk_drop_down_set_selected (row->element, LAMINA_ELEMENT_ROOF + 1);
+  gtk_drop_down_set_selected (row->moisture, LAMINA_MOISTURE_NO_ACCUMULATION);
+  g_assert_true (lamina_target_set_dialog_save (dialog, &error));
+  g_assert_no_error (error);
+  set = lamina_library_dup_target_set (library, "office-set", &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (lamina_target_set_find (set, "roof")->max_u, ==, 0.2);
+  g_assert_cmpint (lamina_target_set_find (set, "roof")->element, ==, LAMINA_ELEMENT_ROOF);
+  g_assert_cmpint (lamina_target_set_find (set, "roof")->moisture, ==, LAMINA_MOISTURE_NO_ACCUMULATION);
+  g_assert_true (isnan (lamina_target_set_find (set, "roof")->min_frsi));
+
+  demo_window_close (&d);
 }
 
 int
@@ -324,5 +433,6 @@ main (int   argc,
   gtk_test_init (&argc, &argv, NULL);
   g_test_add_func ("/app/jobs/page", test_jobs_page);
   g_test_add_func ("/app/jobs/edit", test_jobs_edit);
+  g_test_add_func ("/app/jobs/target-sets", test_target_sets);
   return g_test_run ();
 }
