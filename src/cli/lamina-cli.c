@@ -46,6 +46,7 @@ static const Command commands[] = {
   { "backup", lamina_cli_backup, N_("Make a backup copy of the library now, list the copies, or set where they go") },
   { "restore", lamina_cli_restore, N_("Bring back a backup copy of the library (the current file is kept)") },
   { "moisture-limit", lamina_cli_moisture_limit, N_("Show or set the library's limit on moisture accumulation (EN ISO 13788)") },
+  { "server-init", lamina_cli_server_init, N_("Make an office library on a PostgreSQL server, with roles the server enforces") },
 };
 
 FILE *

@@ -64,6 +64,8 @@ int  lamina_cli_copy      (const LaminaCliGlobals *globals, int argc, char **arg
 int  lamina_cli_verify    (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_backup    (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_restore   (const LaminaCliGlobals *globals, int argc, char **argv);
+/* lamina-cli-server.c */
+int  lamina_cli_server_init (const LaminaCliGlobals *globals, int argc, char **argv);
 
 /* Where to say what was written: stdout, or stderr when the output
  * itself goes to stdout ("-o -"). */

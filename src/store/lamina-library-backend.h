@@ -243,6 +243,9 @@ typedef struct
    * transaction.  The backend's stored flags use the setting as well. */
   gboolean            (*set_moisture_limit) (LaminaBackend *backend, const char *value,
                                              double limit, GError **error);
+  /* The roles of an office library enforced by its server
+   * (lamina-pg-roles.c); NULL for a file. */
+  gboolean            (*server_init)        (LaminaBackend *backend, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend
@@ -353,6 +356,12 @@ gboolean       lamina_library_same_person (const char *a,
 /* lamina-library-backup.c: the newest backup of the library at @path in
  * the folder backups go to when its settings cannot be read, or NULL. */
 char          *lamina_backup_dup_latest_for_path (const char *path);
+/* lamina-pg-open.c: a library on a PostgreSQL server (@conninfo: any
+ * libpq connection string or URI), created in an empty database unless
+ * LAMINA_LIBRARY_OPEN_EXISTING. */
+LaminaBackend *lamina_pg_backend_open (const char             *conninfo,
+                                       LaminaLibraryOpenFlags  flags,
+                                       GError                **error);
 
 /* lamina-sqlite-open.c */
 LaminaBackend *lamina_sqlite_backend_open (const char             *path,

@@ -69,7 +69,10 @@ lamina_library_open (const char             *path,
 
   if (path == NULL)
     path = default_path = lamina_library_dup_default_path ();
-  backend = lamina_sqlite_backend_open (path, flags, error);
+  if (lamina_library_is_server_address (path))
+    backend = lamina_pg_backend_open (path, flags, error);
+  else
+    backend = lamina_sqlite_backend_open (path, flags, error);
   if (backend == NULL)
     return NULL;
   self = g_object_new (LAMINA_TYPE_LIBRARY, NULL);
@@ -87,6 +90,26 @@ lamina_library_close (LaminaLibrary *self)
       VT (self)->close (self->backend);
       self->backend = NULL;
     }
+}
+
+gboolean
+lamina_library_server_init (LaminaLibrary  *self,
+                            GError        **error)
+{
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  BACKEND_OR_FAIL (self, error, FALSE);
+  if (VT (self)->server_init == NULL)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_FAILED,
+                   "%s: not supported by this library (server roles need a library on a "
+                   "PostgreSQL server; a file's readers and writers are set by its folder's "
+                   "permissions)", BE (self)->path);
+      return FALSE;
+    }
+  if (!VT (self)->server_init (BE (self), error))
+    return FALSE;
+  lamina_library_emit_changed (self);
+  return TRUE;
 }
 
 LaminaBackend *

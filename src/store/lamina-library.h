@@ -72,6 +72,21 @@ typedef enum
 #define LAMINA_TYPE_LIBRARY (lamina_library_get_type ())
 G_DECLARE_FINAL_TYPE (LaminaLibrary, lamina_library, LAMINA, LIBRARY, GObject)
 
+/* TRUE if @location names a library on a PostgreSQL server rather than
+ * a file: a postgresql:// or postgres:// URI, or a libpq connection
+ * string ("service=office", "host=… dbname=…").  Such a location is never
+ * taken for a path. */
+gboolean       lamina_library_is_server_address (const char *location);
+
+/* On a PostgreSQL server, makes the library's roles (lamina_author,
+ * lamina_checker, lamina_approver) and hands the review acts to the
+ * server: from then on it refuses any review not made through Lamina's
+ * review function by a person holding the role, and records the server's
+ * name of the person.  Run by the library's owner; safe to run again.
+ * A file library has no server: fails with FAILED ("not supported"). */
+gboolean       lamina_library_server_init (LaminaLibrary *self,
+                                           GError       **error);
+
 /* g_get_user_data_dir()/lamina/library.sqlite */
 char          *lamina_library_dup_default_path (void);
 

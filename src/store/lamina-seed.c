@@ -15,6 +15,7 @@
 #include <math.h>
 
 #include "lamina-library-seed.h"
+#include "lamina-store-common.h"
 
 /* The source names the table; that the value is recalled goes in the
  * material's notes, once, not into every source string. */
@@ -65,25 +66,12 @@ gboolean
 lamina_sqlite_seed_materials (LaminaSqlite  *self,
                               GError       **error)
 {
-  g_autoptr(GDateTime) now = g_date_time_new_now_utc ();
-  g_autofree char *stamp = g_date_time_format (now, "%Y-%m-%dT%H:%M:%SZ");
+  g_autofree char *stamp = lamina_library_dup_now ();
 
   for (guint i = 0; i < G_N_ELEMENTS (seed); i++)
     {
-      g_autoptr(LaminaMaterial) m = lamina_material_new (seed[i].id, seed[i].name,
-                                                         seed[i].category,
-                                                         seed[i].conductivity);
+      g_autoptr(LaminaMaterial) m = lamina_store_seed_material_new (i);
 
-      m->density = seed[i].density;
-      m->specific_heat = seed[i].specific_heat;
-      m->vapour_resistance_factor = seed[i].mu;
-      m->source = g_strdup (seed[i].source);
-      if (seed[i].category == LAMINA_CATEGORY_INSULATION)
-        m->notes = g_strdup ("Value recalled, verify. Insulation has no generic design value: use the λ "
-                             "declared for the product (EN 13162 to EN 13171 declarations), "
-                             "converted to design conditions by EN ISO 10456 where needed.");
-      else
-        m->notes = g_strdup ("Value recalled, verify against the table before relying on it.");
       if (!lamina_sqlite_put_material (self, m, stamp, error))
         return FALSE;
     }

@@ -9,29 +9,9 @@
 #define G_LOG_DOMAIN "lamina-store"
 
 #include "lamina-sqlite-private.h"
+#include "lamina-store-common.h"
 
 #define SELF ((LaminaSqlite *) backend)
-
-static char *
-dup_body (LaminaTargetSet *set,
-          LaminaJob       *job,
-          GError         **error)
-{
-  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_new ();
-  char *body;
-
-  if (set != NULL)
-    g_ptr_array_add (catalogue->target_sets, set);
-  if (job != NULL)
-    g_ptr_array_add (catalogue->jobs, job);
-  body = lamina_catalogue_write_to_string (catalogue, LAMINA_WRITE_DEFAULT, NULL, error);
-  /* Borrowed: take them out before the catalogue frees its arrays. */
-  if (set != NULL)
-    g_ptr_array_steal_index (catalogue->target_sets, 0);
-  if (job != NULL)
-    g_ptr_array_steal_index (catalogue->jobs, 0);
-  return body;
-}
 
 static LaminaCatalogue *
 read_body (sqlite3_stmt *stmt,
@@ -39,11 +19,8 @@ read_body (sqlite3_stmt *stmt,
            const char   *id,
            GError      **error)
 {
-  const char *text = (const char *) sqlite3_column_text (stmt, column);
-  g_autofree char *name = g_strdup_printf ("stored record “%s”", id);
-
-  return lamina_catalogue_read_memory (text, (gsize) sqlite3_column_bytes (stmt, column), name,
-                                       error);
+  return lamina_store_record_body_read ((const char *) sqlite3_column_text (stmt, column),
+                                        sqlite3_column_bytes (stmt, column), id, error);
 }
 
 /* Target sets */
@@ -87,7 +64,7 @@ lamina_sqlite_put_target_set (LaminaSqlite          *self,
                               const char            *now,
                               GError               **error)
 {
-  g_autofree char *body = dup_body ((LaminaTargetSet *) set, NULL, error);
+  g_autofree char *body = lamina_store_record_body_dup (set, NULL, error);
   sqlite3_stmt *stmt;
 
   if (body == NULL)
@@ -274,7 +251,7 @@ lamina_sqlite_put_job (LaminaSqlite    *self,
                        const LaminaJob *job,
                        GError         **error)
 {
-  g_autofree char *body = dup_body (NULL, (LaminaJob *) job, error);
+  g_autofree char *body = lamina_store_record_body_dup (NULL, job, error);
   sqlite3_stmt *stmt;
 
   if (body == NULL)

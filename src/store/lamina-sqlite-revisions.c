@@ -5,6 +5,7 @@
 
 #include "lamina-sqlite-private.h"
 
+#include "lamina-store-common.h"
 #include "lamina-store-json.h"
 
 #include <math.h>
@@ -107,40 +108,19 @@ get_head (LaminaSqlite  *self,
   return head;
 }
 
-static void
-collect_material (GHashTable           *materials,
-                  GString              *names,
-                  const LaminaMaterial *m)
-{
-  if (m == NULL)
-    return;
-  if (m->name != NULL)
-    g_string_append_printf (names, "%s ", m->name);
-  if (m->id != NULL && !g_hash_table_contains (materials, m->id))
-    g_hash_table_insert (materials, m->id, lamina_store_material_fingerprint (m));
-}
-
 static gboolean
 store_tags_and_materials (LaminaSqlite              *self,
                           const LaminaConstruction  *c,
                           gint64                     num,
                           GError                   **error)
 {
-  g_autoptr(GHashTable) materials = g_hash_table_new_full (g_str_hash, g_str_equal, NULL, g_free);
   g_autoptr(GString) names = g_string_new (NULL);
+  g_autoptr(GHashTable) materials = lamina_store_collect_materials (c, names);
   g_autofree char *tags = NULL;
   GHashTableIter iter;
   gpointer key, value;
   sqlite3_stmt *stmt;
 
-  for (guint i = 0; i < c->layers->len; i++)
-    {
-      const LaminaLayer *layer = c->layers->pdata[i];
-
-      collect_material (materials, names, layer->material);
-      for (guint k = 0; layer->parts != NULL && k < layer->parts->len; k++)
-        collect_material (materials, names, ((LaminaPart *) layer->parts->pdata[k])->material);
-    }
   stmt = lamina_sqlite_prepare (self,
     "INSERT INTO revision_material (construction_id, revision, material_id, fingerprint)"
     " VALUES (?1, ?2, ?3, ?4);", error);
@@ -227,42 +207,10 @@ check_base (LaminaSqlite              *self,
 
   if (head < 0)
     return FALSE;
-  if (base == 0 && head > 0)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS,
-                   "a construction with id “%s” exists already", c->id);
-      return FALSE;
-    }
-  if (base > 0 && (head == 0 || deleted))
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
-                   "no construction “%s” in the library", c->id);
-      return FALSE;
-    }
-  if (base > 0 && head != base)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
-                   "“%s” was changed by someone else (revision %d was saved after "
-                   "revision %d you edited); nothing was saved: reopen it and "
-                   "apply your change again", c->name ? c->name : c->id, head, base);
-      return FALSE;
-    }
+  if (!lamina_store_check_base (c, base, head, deleted, error))
+    return FALSE;
   g_assert (c->revision == (base > 0 ? base + 1 : c->revision) && c->revision > 0);
   return TRUE;
-}
-
-static LaminaSummaryFlags
-summary_flags (const LaminaResult *r)
-{
-  LaminaSummaryFlags flags = LAMINA_SUMMARY_NONE;
-
-  if (r == NULL)
-    return LAMINA_SUMMARY_NOT_CALCULATED;
-  if (r->has_target && !r->target_met)
-    flags |= LAMINA_SUMMARY_TARGET_NOT_MET;
-  if (r->warnings != NULL && r->warnings->len > 0)
-    flags |= LAMINA_SUMMARY_HAS_WARNINGS;
-  return flags;
 }
 
 /* The construction's row: what the list and the search read (the figures
@@ -295,7 +243,7 @@ put_construction_row (LaminaSqlite              *self,
   lamina_sqlite_bind_double (stmt, 8, r ? r->u_corrected : NAN);
   lamina_sqlite_bind_double (stmt, 9, c->target_u);
   lamina_sqlite_bind_double (stmt, 10, lamina_construction_get_thickness (c));
-  sqlite3_bind_int (stmt, 11, summary_flags (r)
+  sqlite3_bind_int (stmt, 11, lamina_store_summary_flags (r)
                               | lamina_library_moisture_flags_for_limit (c, lamina_sqlite_moisture_limit (self)));
   lamina_sqlite_bind_text (stmt, 12, c->modified_at);
   if (sqlite3_step (stmt) != SQLITE_ROW)

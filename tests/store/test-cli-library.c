@@ -37,18 +37,31 @@ test_commands (void)
   int status = 0;
 
   g_free (library_path);
-  library_path = test_library_path ("cli.sqlite");
+  /* On the test server: a postgresql:// URI of an empty database. */
+  library_path = test_library_uri ("cli.sqlite");
   export_path = test_library_path ("export.xml");
 
   /* A missing --library is refused, not created. */
   g_assert_cmpint (run (&out, &err, "list", NULL), ==, 1);
-  g_assert_nonnull (strstr (err, "no such library"));
+  g_assert_nonnull (strstr (err, test_on_server () ? "no Lamina library in this database"
+                                                   : "no such library"));
   g_clear_pointer (&out, g_free);
   g_clear_pointer (&err, g_free);
 
   g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
   g_clear_pointer (&out, g_free);
   g_clear_pointer (&err, g_free);
+  if (test_on_server ())
+    {
+      g_autofree char *location = test_library_location ("cli.sqlite");
+
+      /* The data reached the server (read past Lamina), and the address
+       * was never taken for a path (no folder "postgresql:" here). */
+      g_assert_cmpint (test_raw_int (location, "SELECT count(*) FROM construction;"), ==, 20);
+      g_assert_cmpint (test_raw_int (location, "SELECT count(*) FROM material;"), >=, 33);
+      g_assert_false (g_file_test ("postgresql:", G_FILE_TEST_EXISTS));
+      g_assert_false (g_file_test (library_path, G_FILE_TEST_EXISTS));
+    }
   /* The demo goes into an empty library only. */
   g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 1);
   g_clear_pointer (&out, g_free);
@@ -130,6 +143,26 @@ test_commands (void)
   g_clear_pointer (&err, g_free);
   g_assert_cmpint (run (&out, &err, "materials", "--json", NULL), ==, 0);
   g_assert_nonnull (strstr (out, "\"conductivity\""));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+
+  /* server-init: the roles on a server; a file has none. */
+  if (test_on_server ())
+    {
+      g_autofree char *location = test_library_location ("cli.sqlite");
+
+      g_assert_cmpint (run (&out, &err, "server-init", NULL), ==, 0);
+      g_assert_nonnull (strstr (out, "lamina_approver"));
+      g_assert_cmpint (test_raw_int (location, "SELECT count(*) FROM pg_roles"
+                                               " WHERE rolname LIKE 'lamina\\_%';"), ==, 3);
+      g_assert_cmpint (test_raw_int (location, "SELECT count(*) FROM meta WHERE key = 'server_roles'"
+                                               " AND value = 'on';"), ==, 1);
+    }
+  else
+    {
+      g_assert_cmpint (run (&out, &err, "server-init", NULL), ==, 2);
+      g_assert_nonnull (strstr (err, "PostgreSQL"));
+    }
 }
 
 static void
@@ -179,7 +212,7 @@ test_daily (void)
   g_autoptr(GString) changed = NULL;
 
   g_free (library_path);
-  library_path = test_library_path ("daily.sqlite");
+  library_path = test_library_uri ("daily.sqlite");
   ew302_path = test_library_path ("ew-302.xml");
   export_path = test_library_path ("ew-101.xml");
   changed_path = test_library_path ("ew-101-changed.xml");

@@ -14,7 +14,7 @@
 static LaminaLibrary *
 open_at (const char *name)
 {
-  g_autofree char *path = test_library_path (name);
+  g_autofree char *path = test_library_location (name);
   g_autoptr(GError) error = NULL;
   LaminaLibrary *library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
 
@@ -164,6 +164,25 @@ dump_library (const char *path)
   sqlite3 *db = NULL;
   sqlite3_stmt *stmt = NULL;
 
+  if (test_on_server ())
+    {
+      PGconn *conn = PQconnectdb (path);
+      PGresult *res;
+
+      g_assert_cmpint (PQstatus (conn), ==, CONNECTION_OK);
+      res = PQexec (conn,
+        "SELECT x FROM ("
+        " SELECT construction_id || ':' || revision || ':' || status || ':' || body AS x FROM revision"
+        " UNION ALL SELECT id || fingerprint FROM material"
+        " UNION ALL SELECT 'fts' || count(*) FROM construction WHERE search <> '') t"
+        " ORDER BY x COLLATE \"C\";");
+      g_assert_cmpint (PQresultStatus (res), ==, PGRES_TUPLES_OK);
+      for (int i = 0; i < PQntuples (res); i++)
+        g_string_append_printf (out, "%s\n", PQgetvalue (res, i, 0));
+      PQclear (res);
+      PQfinish (conn);
+      return g_string_free (g_steal_pointer (&out), FALSE);
+    }
   g_assert_cmpint (sqlite3_open_v2 (path, &db, SQLITE_OPEN_READONLY, NULL), ==, SQLITE_OK);
   g_assert_cmpint (sqlite3_prepare_v2 (db, "PRAGMA integrity_check;", -1, &stmt, NULL), ==, SQLITE_OK);
   g_assert_cmpint (sqlite3_step (stmt), ==, SQLITE_ROW);
@@ -182,14 +201,17 @@ dump_library (const char *path)
 }
 
 /* A writer killed during a large import leaves the library exactly as it
- * was (SQLite's atomic commit; issue 3, crash consistency). */
+ * was (SQLite's atomic commit, or the server's rollback of a transaction
+ * whose client is gone; issue 3, crash consistency). */
 static void
 test_killed_import (void)
 {
-  g_autofree char *path = test_library_path ("kill.sqlite");
+  g_autofree char *path = test_library_location ("kill.sqlite");
   g_autoptr(LaminaLibrary) library = open_at ("kill.sqlite");
   g_autoptr(LaminaCatalogue) small = make_catalogue (library, 5, 100);
-  g_autoptr(LaminaCatalogue) big = make_catalogue (library, 3000, 120);
+  /* Smaller on a server, where each statement is a round trip. */
+  guint n_big = test_on_server () ? 1000 : 3000;
+  g_autoptr(LaminaCatalogue) big = make_catalogue (library, n_big, 120);
   g_autoptr(LaminaImportReport) report = lamina_library_import (library, small, 0, "T", NULL);
   g_autofree char *before = NULL;
   g_autofree char *after = NULL;
@@ -212,7 +234,7 @@ test_killed_import (void)
     elapsed = g_get_monotonic_time () - start;
     g_assert_nonnull (r);
   }
-  g_test_message ("full import of 3000 constructions: %.0f ms", elapsed / 1000.0);
+  g_test_message ("full import of %u constructions: %.0f ms", n_big, elapsed / 1000.0);
 
   g_assert_cmpint (pipe (pipefd), ==, 0);
   pid = fork ();
@@ -243,7 +265,7 @@ test_killed_import (void)
       g_clear_pointer (&report, lamina_import_report_free);
       report = lamina_library_import (library, big, 0, "T", NULL);
       g_assert_nonnull (report);
-      g_assert_cmpuint (report->n_added, ==, 2995);
+      g_assert_cmpuint (report->n_added, ==, n_big - 5);
     }
 }
 

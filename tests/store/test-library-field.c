@@ -7,7 +7,7 @@
 static LaminaLibrary *
 open_fresh (const char *name)
 {
-  g_autofree char *path = test_library_path (name);
+  g_autofree char *path = test_library_location (name);
   g_autoptr(GError) error = NULL;
   LaminaLibrary *library;
 

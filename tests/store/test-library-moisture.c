@@ -12,7 +12,7 @@
 static LaminaLibrary *
 open_library (const char *name)
 {
-  g_autofree char *path = test_library_path (name);
+  g_autofree char *path = test_library_location (name);
   g_autoptr(GError) error = NULL;
   LaminaLibrary *library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
 

@@ -1,6 +1,5 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* Tests of revisions, review, concurrency, material flags and search. */
-#include <sqlite3.h>
 #include <string.h>
 
 #include "lamina-library.h"
@@ -10,7 +9,7 @@
 static LaminaLibrary *
 open_at (const char *name)
 {
-  g_autofree char *path = test_library_path (name);
+  g_autofree char *path = test_library_location (name);
   g_autoptr(GError) error = NULL;
   LaminaLibrary *library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
 
@@ -48,7 +47,6 @@ test_approved_immutable (void)
   g_autoptr(GPtrArray) history = NULL;
   g_autoptr(GError) error = NULL;
   g_autofree char *path = g_strdup (lamina_library_get_path (library));
-  sqlite3 *db = NULL;
   LaminaLayer *layer;
 
   g_assert_false (lamina_library_approve (library, id, 1, "  ", NULL, &error));
@@ -102,14 +100,14 @@ test_approved_immutable (void)
   g_assert_cmpint (((LaminaRevisionInfo *) history->pdata[1])->status, ==, LAMINA_STATUS_APPROVED);
   g_assert_cmpstr (((LaminaRevisionInfo *) history->pdata[1])->modified_by, ==, "A. Planner");
 
-  /* Not even raw SQL can change the approved row (triggers). */
-  g_assert_cmpint (sqlite3_open (path, &db), ==, SQLITE_OK);
-  g_assert_cmpint (sqlite3_exec (db, "UPDATE revision SET approved_by = 'X' WHERE revision = 1;",
-                                 NULL, NULL, NULL), !=, SQLITE_OK);
-  g_assert_cmpint (sqlite3_exec (db, "UPDATE revision SET body = '{}';", NULL, NULL, NULL), !=, SQLITE_OK);
-  g_assert_cmpint (sqlite3_exec (db, "DELETE FROM revision WHERE revision = 1;",
-                                 NULL, NULL, NULL), !=, SQLITE_OK);
-  sqlite3_close (db);
+  /* Not even raw SQL can change the approved row (triggers), nor a
+   * review record. */
+  g_assert_false (test_raw_exec (path, "UPDATE revision SET approved_by = 'X' WHERE revision = 1;"));
+  g_assert_false (test_raw_exec (path, "UPDATE revision SET body = '{}';"));
+  g_assert_false (test_raw_exec (path, "DELETE FROM revision WHERE revision = 1;"));
+  g_assert_false (test_raw_exec (path, "UPDATE review_event SET person = 'X';"));
+  g_assert_false (test_raw_exec (path, "DELETE FROM review_event;"));
+  g_assert_cmpint (test_raw_int (path, "SELECT count(*) FROM review_event;"), >=, 2);
 }
 
 /* Two connections on one file (as two processes would): the save based

@@ -40,23 +40,6 @@ raw_exec (const char *path,
   sqlite3_close (db);
 }
 
-static gint64
-raw_query_int (const char *path,
-               const char *sql)
-{
-  sqlite3 *db = NULL;
-  sqlite3_stmt *stmt = NULL;
-  gint64 value;
-
-  g_assert_cmpint (sqlite3_open_v2 (path, &db, SQLITE_OPEN_READONLY, NULL), ==, SQLITE_OK);
-  g_assert_cmpint (sqlite3_prepare_v2 (db, sql, -1, &stmt, NULL), ==, SQLITE_OK);
-  g_assert_cmpint (sqlite3_step (stmt), ==, SQLITE_ROW);
-  value = sqlite3_column_int64 (stmt, 0);
-  sqlite3_finalize (stmt);
-  sqlite3_close (db);
-  return value;
-}
-
 /* The seeded generic materials against EN ISO 10456:2007 Table 3 (design
  * thermal values of building materials): λ in W/(m·K) and density in
  * kg/m³ as the table gives them, written here from memory (not read from
@@ -259,9 +242,9 @@ test_migrate_v1 (void)
   /* The backup is the version 1 file as it was. */
   backup = g_strdup (lamina_library_get_backup_path (library));
   g_clear_object (&library);
-  g_assert_cmpint (raw_query_int (backup, "PRAGMA user_version;"), ==, 1);
-  g_assert_cmpint (raw_query_int (backup, "SELECT count(*) FROM revision;"), ==, 1);
-  g_assert_cmpint (raw_query_int (path, "PRAGMA user_version;"), ==, LAMINA_LIBRARY_SCHEMA_VERSION);
+  g_assert_cmpint (test_raw_int (backup, "PRAGMA user_version;"), ==, 1);
+  g_assert_cmpint (test_raw_int (backup, "SELECT count(*) FROM revision;"), ==, 1);
+  g_assert_cmpint (test_raw_int (path, "PRAGMA user_version;"), ==, LAMINA_LIBRARY_SCHEMA_VERSION);
 }
 
 int

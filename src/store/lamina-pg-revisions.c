@@ -1,0 +1,522 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-pg-revisions.c: construction revisions, history, review acts and
+ * the all-or-nothing import in the PostgreSQL backend, with the
+ * semantics of lamina-sqlite-revisions.c and lamina-sqlite-review.c.
+ *
+ * A save locks the construction's row (SELECT … FOR UPDATE) before it
+ * compares the revision it was based on with the latest: a colleague's
+ * save of the same construction waits for ours and is then refused as
+ * stale.  Two creations of one id meet at the primary key. */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "lamina-pg-private.h"
+
+#include "lamina-store-common.h"
+#include "lamina-store-json.h"
+
+#include <math.h>
+
+#define SELF ((LaminaPg *) backend)
+
+LaminaConstruction *
+lamina_pg_get_construction (LaminaBackend  *backend,
+                            const char     *id,
+                            int             revision,
+                            GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  LaminaConstruction *c = NULL;
+  PGresult *res;
+
+  lamina_pg_add_text (params, id);
+  lamina_pg_add_int (params, revision);
+  res = lamina_pg_query (SELF,
+    "SELECT r.body, r.revision, r.status, r.modified_by, r.modified_at,"
+    "       r.checked_by, r.checked_at, r.approved_by, r.approved_at,"
+    "       (SELECT e.policy FROM review_event e WHERE e.construction_id = c.id"
+    "          AND e.revision = r.revision AND e.act = 'approved' ORDER BY e.num DESC LIMIT 1),"
+    "       (SELECT e.reason FROM review_event e WHERE e.construction_id = c.id"
+    "          AND e.revision = r.revision AND e.act = 'approved' ORDER BY e.num DESC LIMIT 1)"
+    "  FROM construction c JOIN revision r ON r.construction_id = c.id"
+    " WHERE c.id = $1 AND c.deleted_at IS NULL"
+    "   AND r.revision = CASE WHEN $2::integer > 0 THEN $2::integer ELSE c.head END",
+    params, "cannot read a construction", error);
+  if (res == NULL)
+    return NULL;
+  if (PQntuples (res) == 0)
+    {
+      if (revision > 0)
+        g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                     "construction “%s” has no revision %d", id, revision);
+      else
+        g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                     "no construction “%s” in the library", id);
+      PQclear (res);
+      return NULL;
+    }
+  c = lamina_store_construction_from_json (lamina_pg_get (res, 0, 0), error);
+  if (c != NULL)
+    {
+      c->id = g_strdup (id);
+      c->revision = lamina_pg_int (res, 0, 1);
+      lamina_status_from_string (lamina_pg_get (res, 0, 2), &c->status);
+      c->modified_by = lamina_pg_dup (res, 0, 3);
+      c->modified_at = lamina_pg_dup (res, 0, 4);
+      c->checked_by = lamina_pg_dup (res, 0, 5);
+      c->checked_at = lamina_pg_dup (res, 0, 6);
+      c->approved_by = lamina_pg_dup (res, 0, 7);
+      c->approved_at = lamina_pg_dup (res, 0, 8);
+      if (c->status == LAMINA_STATUS_APPROVED)
+        {
+          c->approval_policy = lamina_pg_dup (res, 0, 9);
+          c->approval_reason = lamina_pg_dup (res, 0, 10);
+        }
+    }
+  PQclear (res);
+  return c;
+}
+
+/* Refuses a revision that does not go on top of the latest, with the row
+ * locked until the commit. */
+static gboolean
+check_base (LaminaPg                  *self,
+            const LaminaConstruction  *c,
+            int                        base,
+            GError                   **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  int head = 0;
+  gboolean deleted = FALSE;
+
+  lamina_pg_add_text (params, c->id);
+  res = lamina_pg_query (self, "SELECT head, deleted_at IS NOT NULL FROM construction"
+                               " WHERE id = $1 FOR UPDATE", params,
+                         "cannot read a construction", error);
+  if (res == NULL)
+    return FALSE;
+  if (PQntuples (res) > 0)
+    {
+      head = lamina_pg_int (res, 0, 0);
+      deleted = lamina_pg_bool (res, 0, 1);
+    }
+  PQclear (res);
+  return lamina_store_check_base (c, base, head, deleted, error);
+}
+
+char *
+lamina_pg_search_words (const LaminaConstruction *c)
+{
+  g_autoptr(GPtrArray) words = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr(GString) names = g_string_new (NULL);
+  g_autoptr(GHashTable) materials = lamina_store_collect_materials (c, names);
+
+  lamina_store_add_search_words (words, c->code);
+  lamina_store_add_search_words (words, c->name);
+  lamina_store_add_search_words (words, c->description);
+  for (guint i = 0; i < c->tags->len; i++)
+    lamina_store_add_search_words (words, c->tags->pdata[i]);
+  lamina_store_add_search_words (words, names->str);
+  g_ptr_array_add (words, NULL);
+  return g_strjoinv (" ", (char **) words->pdata);
+}
+
+static gboolean
+put_construction_row (LaminaPg                  *self,
+                      const LaminaConstruction  *c,
+                      const LaminaResult        *r,
+                      gboolean                   create,
+                      GError                   **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  g_autofree char *words = lamina_pg_search_words (c);
+
+  lamina_pg_add_text (params, c->id);
+  lamina_pg_add_int (params, c->revision);
+  lamina_pg_add_text (params, c->code);
+  lamina_pg_add_text (params, c->name ? c->name : "");
+  lamina_pg_add_text (params, lamina_element_to_string (c->element));
+  lamina_pg_add_text (params, lamina_status_to_string (c->status));
+  lamina_pg_add_double (params, r ? r->u : NAN);
+  lamina_pg_add_double (params, r ? r->u_corrected : NAN);
+  lamina_pg_add_double (params, c->target_u);
+  lamina_pg_add_double (params, lamina_construction_get_thickness (c));
+  lamina_pg_add_int (params, lamina_store_summary_flags (c, r));
+  lamina_pg_add_text (params, c->modified_at);
+  lamina_pg_add_text (params, words);
+  if (create)
+    return lamina_pg_run (self,
+      "INSERT INTO construction (id, head, code, name, element, status, u, u_corrected,"
+      "   target_u, thickness, flags, modified_at, search)"
+      " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12,"
+      "   array_to_tsvector (string_to_array ($13, ' ')))",
+      params, "cannot store a construction", error);
+  return lamina_pg_run (self,
+    "UPDATE construction SET head = $2, code = $3, name = $4, element = $5, status = $6,"
+    "   u = $7, u_corrected = $8, target_u = $9, thickness = $10, flags = $11,"
+    "   modified_at = $12, search = array_to_tsvector (string_to_array ($13, ' '))"
+    " WHERE id = $1",
+    params, "cannot store a construction", error);
+}
+
+static gboolean
+insert_revision_row (LaminaPg                     *self,
+                     const LaminaBackendRevision  *rev,
+                     GError                      **error)
+{
+  const LaminaConstruction *c = rev->construction;
+  const LaminaResult *r = rev->result;
+  g_autofree char *body = lamina_store_construction_to_json (c);
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, c->id);
+  lamina_pg_add_int (params, c->revision);
+  lamina_pg_add_text (params, lamina_status_to_string (c->status));
+  lamina_pg_add_text (params, body);
+  lamina_pg_add_double (params, r ? r->u : NAN);
+  lamina_pg_add_double (params, r ? r->u_corrected : NAN);
+  lamina_pg_add_double (params, r ? r->r_total : NAN);
+  lamina_pg_add_double (params, lamina_construction_get_thickness (c));
+  lamina_pg_add_text (params, rev->calc_error);
+  lamina_pg_add_text (params, c->modified_by);
+  lamina_pg_add_text (params, c->modified_at);
+  lamina_pg_add_text (params, c->checked_by);
+  lamina_pg_add_text (params, c->checked_at);
+  lamina_pg_add_text (params, c->approved_by);
+  lamina_pg_add_text (params, c->approved_at);
+  lamina_pg_add_text (params, rev->comment);
+  return lamina_pg_run (self,
+    "INSERT INTO revision (construction_id, revision, status, body, u, u_corrected,"
+    "   r_total, thickness, calc_error, modified_by, modified_at, checked_by,"
+    "   checked_at, approved_by, approved_at, comment)"
+    " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16)",
+    params, "cannot store a revision", error);
+}
+
+static gboolean
+store_tags_and_materials (LaminaPg                  *self,
+                          const LaminaConstruction  *c,
+                          GError                   **error)
+{
+  g_autoptr(GHashTable) materials = lamina_store_collect_materials (c, NULL);
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  g_autoptr(GPtrArray) ids = g_ptr_array_new ();
+  g_autoptr(GPtrArray) prints = g_ptr_array_new ();
+  g_autofree char *ids_array = NULL, *prints_array = NULL, *tags_array = NULL;
+  GHashTableIter iter;
+  gpointer key, value;
+
+  /* Whole arrays in one statement each (unnest), so that an import of
+   * thousands of constructions does not pay a round trip per row. */
+  g_hash_table_iter_init (&iter, materials);
+  while (g_hash_table_iter_next (&iter, &key, &value))
+    {
+      g_ptr_array_add (ids, key);
+      g_ptr_array_add (prints, value);
+    }
+  lamina_pg_add_text (params, c->id);
+  lamina_pg_add_int (params, c->revision);
+  lamina_pg_add_text (params, NULL);
+  lamina_pg_add_text (params, NULL);
+  g_ptr_array_add (ids, NULL);
+  g_ptr_array_add (prints, NULL);
+  g_free (params->pdata[2]);
+  g_free (params->pdata[3]);
+  params->pdata[2] = g_strjoinv ("\x1f", (char **) ids->pdata);
+  params->pdata[3] = g_strjoinv ("\x1f", (char **) prints->pdata);
+  if (g_hash_table_size (materials) > 0
+      && !lamina_pg_run (self,
+           "INSERT INTO revision_material (construction_id, revision, material_id, fingerprint)"
+           " SELECT $1, $2, m, f FROM unnest (string_to_array ($3, chr (31)),"
+           "                                  string_to_array ($4, chr (31))) AS t (m, f)",
+           params, "cannot store a revision", error))
+    return FALSE;
+  g_ptr_array_set_size (params, 1);
+  if (!lamina_pg_run (self, "DELETE FROM construction_tag WHERE construction_id = $1", params,
+                      "cannot store the tags", error))
+    return FALSE;
+  if (c->tags->len == 0)
+    return TRUE;
+  g_ptr_array_add (c->tags, NULL);
+  lamina_pg_add_text (params, NULL);
+  g_free (params->pdata[1]);
+  params->pdata[1] = g_strjoinv ("\x1f", (char **) c->tags->pdata);
+  g_ptr_array_remove_index (c->tags, c->tags->len - 1);
+  return lamina_pg_run (self,
+    "INSERT INTO construction_tag (construction_id, tag)"
+    " SELECT $1, t FROM unnest (string_to_array ($2, chr (31))) AS t ON CONFLICT DO NOTHING",
+    params, "cannot store the tags", error);
+}
+
+static gboolean
+refresh_material_changed (LaminaPg                  *self,
+                          const LaminaConstruction  *c,
+                          GError                   **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, c->id);
+  lamina_pg_add_int (params, c->revision);
+  if (!lamina_pg_run (self,
+        "UPDATE construction SET material_changed = EXISTS ("
+        "    SELECT 1 FROM revision_material rm JOIN material m ON m.id = rm.material_id"
+        "     WHERE rm.construction_id = $1 AND rm.revision = $2"
+        "       AND m.fingerprint <> rm.fingerprint)"
+        " WHERE id = $1",
+        params, "cannot update the library", error))
+    return FALSE;
+  return c->moisture == NULL || lamina_pg_refresh_climate_flags (self, c->moisture->climate, error);
+}
+
+static gboolean
+store_revision_in_txn (LaminaPg                     *self,
+                       const LaminaBackendRevision  *rev,
+                       int                           base,
+                       GError                      **error)
+{
+  return check_base (self, rev->construction, base, error)
+         && put_construction_row (self, rev->construction, rev->result, base == 0, error)
+         && insert_revision_row (self, rev, error)
+         && store_tags_and_materials (self, rev->construction, error)
+         && refresh_material_changed (self, rev->construction, error);
+}
+
+typedef struct
+{
+  const LaminaBackendRevision *rev;
+  int                          base;
+  const LaminaBackendImport   *import;
+  const char                  *now;
+  const LaminaBackendReview   *review;
+} Write;
+
+static gboolean
+store_revision_txn (LaminaPg  *self,
+                    gpointer   data,
+                    GError   **error)
+{
+  Write *w = data;
+
+  return store_revision_in_txn (self, w->rev, w->base, error);
+}
+
+gboolean
+lamina_pg_store_revision (LaminaBackend                *backend,
+                          const LaminaBackendRevision  *rev,
+                          int                           base_revision,
+                          GError                      **error)
+{
+  Write w = { .rev = rev, .base = base_revision };
+
+  return lamina_pg_transaction (SELF, store_revision_txn, &w, error);
+}
+
+gboolean
+lamina_pg_set_deleted (LaminaBackend  *backend,
+                       const char     *id,
+                       const char     *when,
+                       GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  gint64 n;
+
+  lamina_pg_add_text (params, id);
+  lamina_pg_add_text (params, when);
+  res = lamina_pg_query (SELF,
+    "UPDATE construction SET deleted_at = $2"
+    " WHERE id = $1 AND (deleted_at IS NULL) = ($2::text IS NOT NULL)",
+    params, "cannot update the library", error);
+  if (res == NULL)
+    return FALSE;
+  n = lamina_pg_changes (res);
+  PQclear (res);
+  if (n == 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   when ? "no construction “%s” in the library"
+                        : "no deleted construction “%s” in the library", id);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+GPtrArray *
+lamina_pg_get_history (LaminaBackend  *backend,
+                       const char     *id,
+                       GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  g_autoptr(GPtrArray) list = NULL;
+  PGresult *res;
+
+  lamina_pg_add_text (params, id);
+  res = lamina_pg_query (SELF,
+    "SELECT revision, status, modified_by, modified_at, checked_by, checked_at,"
+    "       approved_by, approved_at, comment, u_corrected"
+    "  FROM revision WHERE construction_id = $1 ORDER BY revision DESC",
+    params, "cannot read the history", error);
+  if (res == NULL)
+    return NULL;
+  list = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_revision_info_free);
+  for (int i = 0; i < PQntuples (res); i++)
+    {
+      LaminaRevisionInfo *info = g_new0 (LaminaRevisionInfo, 1);
+
+      info->revision = lamina_pg_int (res, i, 0);
+      lamina_status_from_string (lamina_pg_get (res, i, 1), &info->status);
+      info->modified_by = lamina_pg_dup (res, i, 2);
+      info->modified_at = lamina_pg_dup (res, i, 3);
+      info->checked_by = lamina_pg_dup (res, i, 4);
+      info->checked_at = lamina_pg_dup (res, i, 5);
+      info->approved_by = lamina_pg_dup (res, i, 6);
+      info->approved_at = lamina_pg_dup (res, i, 7);
+      info->comment = lamina_pg_dup (res, i, 8);
+      info->u_corrected = lamina_pg_double (res, i, 9);
+      g_ptr_array_add (list, info);
+    }
+  PQclear (res);
+  if (list->len == 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no construction “%s” in the library", id);
+      return NULL;
+    }
+  return g_steal_pointer (&list);
+}
+
+/* Review acts: the schema's lamina_review_act does the whole act on the
+ * server (lamina-pg-schema.c). */
+
+static const char *const act_names[] = { "checked", "approved", "withdrawn" };
+
+static gboolean
+review_txn (LaminaPg  *self,
+            gpointer   data,
+            GError   **error)
+{
+  const LaminaBackendReview *r = ((Write *) data)->review;
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, r->id);
+  lamina_pg_add_int (params, r->revision);
+  lamina_pg_add_text (params, act_names[r->act]);
+  lamina_pg_add_text (params, r->by);
+  lamina_pg_add_text (params, r->at);
+  lamina_pg_add_text (params, r->date);
+  lamina_pg_add_text (params, r->policy);
+  lamina_pg_add_text (params, r->reason);
+  return lamina_pg_run (self, "SELECT lamina_review_act ($1, $2, $3, $4, $5, $6, $7, $8)",
+                        params, "cannot record the review", error);
+}
+
+gboolean
+lamina_pg_review (LaminaBackend             *backend,
+                  const LaminaBackendReview *review,
+                  GError                   **error)
+{
+  Write w = { .review = review };
+
+  return lamina_pg_transaction (SELF, review_txn, &w, error);
+}
+
+GPtrArray *
+lamina_pg_get_review_events (LaminaBackend  *backend,
+                             const char     *id,
+                             GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  GPtrArray *events;
+  PGresult *res;
+
+  lamina_pg_add_text (params, id);
+  res = lamina_pg_query (SELF,
+    "SELECT revision, act, person, at, date, policy, reason FROM review_event"
+    " WHERE construction_id = $1 ORDER BY num", params,
+    "cannot read the review records", error);
+  if (res == NULL)
+    return NULL;
+  events = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_review_event_free);
+  for (int i = 0; i < PQntuples (res); i++)
+    {
+      LaminaReviewEvent *e = g_new0 (LaminaReviewEvent, 1);
+
+      e->revision = lamina_pg_int (res, i, 0);
+      e->act = lamina_pg_dup (res, i, 1);
+      e->by = lamina_pg_dup (res, i, 2);
+      e->at = lamina_pg_dup (res, i, 3);
+      e->date = lamina_pg_dup (res, i, 4);
+      e->policy = lamina_pg_dup (res, i, 5);
+      e->reason = lamina_pg_dup (res, i, 6);
+      g_ptr_array_add (events, e);
+    }
+  PQclear (res);
+  return events;
+}
+
+/* Import */
+
+static gboolean
+import_txn (LaminaPg  *self,
+            gpointer   data,
+            GError   **error)
+{
+  Write *w = data;
+  const LaminaBackendImport *import = w->import;
+
+  for (guint i = 0; i < import->materials->len; i++)
+    if (!lamina_pg_put_material_in_txn (self, import->materials->pdata[i], w->now, error))
+      return FALSE;
+  for (guint i = 0; i < import->revisions->len; i++)
+    if (!store_revision_in_txn (self, import->revisions->pdata[i],
+                                g_array_index (import->base_revisions, int, i), error))
+      return FALSE;
+  return lamina_pg_put_records (self, import->target_sets, import->jobs, w->now, error);
+}
+
+gboolean
+lamina_pg_apply_import_records (LaminaBackend              *backend,
+                                const LaminaBackendImport  *import,
+                                const char                 *now,
+                                GError                    **error)
+{
+  Write w = { .import = import, .now = now };
+  GError *local = NULL;
+
+  if (lamina_pg_transaction (SELF, import_txn, &w, &local))
+    return TRUE;
+  g_propagate_prefixed_error (error, local, "import cancelled, the library is unchanged: ");
+  return FALSE;
+}
+
+gboolean
+lamina_pg_apply_import (LaminaBackend  *backend,
+                        GPtrArray      *materials,
+                        GPtrArray      *revisions,
+                        const GArray   *base_revisions,
+                        const char     *now,
+                        GError        **error)
+{
+  LaminaBackendImport import = { materials, revisions, base_revisions, NULL, NULL };
+
+  return lamina_pg_apply_import_records (backend, &import, now, error);
+}
+
+GPtrArray *
+lamina_pg_list_ids (LaminaBackend  *backend,
+                    GError        **error)
+{
+  PGresult *res = lamina_pg_query (SELF,
+    "SELECT id FROM construction WHERE deleted_at IS NULL"
+    " ORDER BY lower (code) COLLATE \"C\" NULLS FIRST, id COLLATE \"C\"",
+    NULL, "cannot list the constructions", error);
+  GPtrArray *ids;
+
+  if (res == NULL)
+    return NULL;
+  ids = g_ptr_array_new_with_free_func (g_free);
+  for (int i = 0; i < PQntuples (res); i++)
+    g_ptr_array_add (ids, lamina_pg_dup (res, i, 0));
+  PQclear (res);
+  return ids;
+}

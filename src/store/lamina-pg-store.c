@@ -1,0 +1,391 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* lamina-pg-store.c: materials, library settings, climates (EN ISO 13788)
+ * and the 2-D checks (EN ISO 10211) in the PostgreSQL backend, as the
+ * SQLite backend keeps them (lamina-sqlite-store.c, -climates.c,
+ * -field.c). */
+#define G_LOG_DOMAIN "lamina-store"
+
+#include "lamina-pg-private.h"
+
+#include "lamina-store-common.h"
+#include "lamina-store-json.h"
+#include "lamina-library-seed.h"
+
+#define SELF ((LaminaPg *) backend)
+
+/* Materials */
+
+#define MATERIAL_COLUMNS \
+  "id, name, category, conductivity, density, specific_heat," \
+  " vapour_resistance_factor, emissivity, source, notes, stock_thicknesses"
+
+static LaminaMaterial *
+read_material_row (const PGresult *res,
+                   int             row)
+{
+  LaminaCategory category = LAMINA_CATEGORY_OTHER;
+  LaminaMaterial *m;
+
+  lamina_category_from_string (lamina_pg_get (res, row, 2), &category);
+  m = lamina_material_new (lamina_pg_get (res, row, 0), lamina_pg_get (res, row, 1),
+                           category, lamina_pg_double (res, row, 3));
+  m->density = lamina_pg_double (res, row, 4);
+  m->specific_heat = lamina_pg_double (res, row, 5);
+  m->vapour_resistance_factor = lamina_pg_double (res, row, 6);
+  m->emissivity = lamina_pg_double (res, row, 7);
+  m->source = lamina_pg_dup (res, row, 8);
+  m->notes = lamina_pg_dup (res, row, 9);
+  lamina_material_parse_stock_string (m, lamina_pg_get (res, row, 10), NULL);
+  return m;
+}
+
+GPtrArray *
+lamina_pg_list_materials (LaminaBackend  *backend,
+                          GError        **error)
+{
+  PGresult *res = lamina_pg_query (SELF,
+    "SELECT " MATERIAL_COLUMNS " FROM material"
+    " ORDER BY category COLLATE \"C\", lower (name) COLLATE \"C\", id COLLATE \"C\"",
+    NULL, "cannot read the materials", error);
+  GPtrArray *list;
+
+  if (res == NULL)
+    return NULL;
+  list = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_material_free);
+  for (int i = 0; i < PQntuples (res); i++)
+    g_ptr_array_add (list, read_material_row (res, i));
+  PQclear (res);
+  return list;
+}
+
+LaminaMaterial *
+lamina_pg_get_material (LaminaBackend  *backend,
+                        const char     *id,
+                        GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  LaminaMaterial *m = NULL;
+
+  lamina_pg_add_text (params, id);
+  res = lamina_pg_query (SELF, "SELECT " MATERIAL_COLUMNS " FROM material WHERE id = $1",
+                         params, "cannot read a material", error);
+  if (res == NULL)
+    return NULL;
+  if (PQntuples (res) > 0)
+    m = read_material_row (res, 0);
+  else
+    g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                 "no material “%s” in the library", id);
+  PQclear (res);
+  return m;
+}
+
+gboolean
+lamina_pg_refresh_material_flags (LaminaPg     *self,
+                                  const char   *material_id,
+                                  GError      **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, material_id);
+  return lamina_pg_run (self,
+    "UPDATE construction SET material_changed = EXISTS ("
+    "    SELECT 1 FROM revision_material rm JOIN material m ON m.id = rm.material_id"
+    "     WHERE rm.construction_id = construction.id AND rm.revision = construction.head"
+    "       AND m.fingerprint <> rm.fingerprint)"
+    " WHERE $1::text IS NULL OR id IN ("
+    "    SELECT construction_id FROM revision_material WHERE material_id = $1::text)",
+    params, "cannot update the library", error)
+    && lamina_pg_refresh_climate_flags (self, NULL, error);
+}
+
+gboolean
+lamina_pg_put_material_in_txn (LaminaPg              *self,
+                               const LaminaMaterial  *m,
+                               const char            *now,
+                               GError               **error)
+{
+  g_autofree char *fingerprint = lamina_store_material_fingerprint (m);
+  g_autofree char *stock = lamina_material_dup_stock_string (m);
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, m->id);
+  lamina_pg_add_text (params, m->name);
+  lamina_pg_add_text (params, lamina_category_to_string (m->category));
+  lamina_pg_add_double (params, m->conductivity);
+  lamina_pg_add_double (params, m->density);
+  lamina_pg_add_double (params, m->specific_heat);
+  lamina_pg_add_double (params, m->vapour_resistance_factor);
+  lamina_pg_add_double (params, m->emissivity);
+  lamina_pg_add_text (params, m->source);
+  lamina_pg_add_text (params, m->notes);
+  lamina_pg_add_text (params, stock);
+  lamina_pg_add_text (params, fingerprint);
+  lamina_pg_add_text (params, now);
+  return lamina_pg_run (self,
+    "INSERT INTO material (" MATERIAL_COLUMNS ", fingerprint, modified_at)"
+    " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13)"
+    " ON CONFLICT (id) DO UPDATE SET name = $2, category = $3, conductivity = $4,"
+    "   density = $5, specific_heat = $6, vapour_resistance_factor = $7,"
+    "   emissivity = $8, source = $9, notes = $10, stock_thicknesses = $11,"
+    "   fingerprint = $12, modified_at = $13",
+    params, "cannot store a material", error)
+    && lamina_pg_refresh_material_flags (self, m->id, error);
+}
+
+typedef struct
+{
+  const LaminaMaterial *material;
+  const LaminaClimate  *climate;
+  const char           *now;
+  const char           *key;
+  const char           *value;
+} Put;
+
+static gboolean
+put_material_txn (LaminaPg  *self,
+                  gpointer   data,
+                  GError   **error)
+{
+  Put *put = data;
+
+  return lamina_pg_put_material_in_txn (self, put->material, put->now, error);
+}
+
+gboolean
+lamina_pg_put_material (LaminaBackend         *backend,
+                        const LaminaMaterial  *material,
+                        const char            *now,
+                        GError               **error)
+{
+  Put put = { .material = material, .now = now };
+
+  return lamina_pg_transaction (SELF, put_material_txn, &put, error);
+}
+
+gboolean
+lamina_pg_seed_materials (LaminaPg  *self,
+                          GError   **error)
+{
+  g_autofree char *stamp = lamina_library_dup_now ();
+  guint n = 0;
+
+  lamina_library_get_seed_materials (&n);
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr(LaminaMaterial) m = lamina_store_seed_material_new (i);
+
+      if (!lamina_pg_put_material_in_txn (self, m, stamp, error))
+        return FALSE;
+    }
+  return TRUE;
+}
+
+/* Settings */
+
+char *
+lamina_pg_get_setting (LaminaBackend  *backend,
+                       const char     *key,
+                       GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  char *value = NULL;
+
+  lamina_pg_add_text (params, key);
+  res = lamina_pg_query (SELF, "SELECT value FROM meta WHERE key = $1", params,
+                         "cannot read the library settings", error);
+  if (res == NULL)
+    return NULL;
+  if (PQntuples (res) > 0)
+    value = lamina_pg_dup (res, 0, 0);
+  PQclear (res);
+  return value;
+}
+
+static gboolean
+set_setting_txn (LaminaPg  *self,
+                 gpointer   data,
+                 GError   **error)
+{
+  Put *put = data;
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, put->key);
+  lamina_pg_add_text (params, put->value);
+  return lamina_pg_run (self, "INSERT INTO meta (key, value) VALUES ($1, $2)"
+                              " ON CONFLICT (key) DO UPDATE SET value = $2",
+                        params, "cannot change the library settings", error);
+}
+
+gboolean
+lamina_pg_set_setting (LaminaBackend  *backend,
+                       const char     *key,
+                       const char     *value,
+                       GError        **error)
+{
+  Put put = { .key = key, .value = value };
+
+  return lamina_pg_transaction (SELF, set_setting_txn, &put, error);
+}
+
+/* Climates */
+
+static LaminaClimate *
+read_climate_row (const PGresult *res,
+                  int             row)
+{
+  LaminaClimate *climate = lamina_climate_new (lamina_pg_get (res, row, 0),
+                                               lamina_pg_get (res, row, 1));
+
+  climate->source = lamina_pg_dup (res, row, 2);
+  lamina_store_climate_months_from_json (lamina_pg_get (res, row, 3), climate);
+  return climate;
+}
+
+GPtrArray *
+lamina_pg_list_climates (LaminaBackend  *backend,
+                         GError        **error)
+{
+  PGresult *res = lamina_pg_query (SELF,
+    "SELECT id, name, source, months FROM climate"
+    " ORDER BY lower (name) COLLATE \"C\", id COLLATE \"C\"",
+    NULL, "cannot read the climates", error);
+  GPtrArray *list;
+
+  if (res == NULL)
+    return NULL;
+  list = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_climate_free);
+  for (int i = 0; i < PQntuples (res); i++)
+    g_ptr_array_add (list, read_climate_row (res, i));
+  PQclear (res);
+  return list;
+}
+
+LaminaClimate *
+lamina_pg_get_climate (LaminaBackend  *backend,
+                       const char     *id,
+                       GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  LaminaClimate *climate = NULL;
+  PGresult *res;
+
+  lamina_pg_add_text (params, id);
+  res = lamina_pg_query (SELF, "SELECT id, name, source, months FROM climate WHERE id = $1",
+                         params, "cannot read a climate", error);
+  if (res == NULL)
+    return NULL;
+  if (PQntuples (res) > 0)
+    climate = read_climate_row (res, 0);
+  else
+    g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                 "no climate “%s” in the library", id);
+  PQclear (res);
+  return climate;
+}
+
+gboolean
+lamina_pg_refresh_climate_flags (LaminaPg    *self,
+                                 const char  *climate_id,
+                                 GError     **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, climate_id);
+  return lamina_pg_run (self,
+    "UPDATE construction SET material_changed = true"
+    " WHERE deleted_at IS NULL AND id IN ("
+    "   SELECT r.construction_id FROM revision r"
+    "     JOIN construction c ON c.id = r.construction_id AND c.head = r.revision"
+    "     JOIN climate cl ON cl.id = r.body::jsonb #>> '{moisture,climate}'"
+    "    WHERE ($1::text IS NULL OR cl.id = $1::text)"
+    "      AND (r.body::jsonb #>> '{moisture,climate_fingerprint}')"
+    "          IS DISTINCT FROM cl.fingerprint)",
+    params, "cannot update the library", error);
+}
+
+static gboolean
+put_climate_txn (LaminaPg  *self,
+                 gpointer   data,
+                 GError   **error)
+{
+  Put *put = data;
+  const LaminaClimate *climate = put->climate;
+  g_autofree char *months = lamina_store_climate_months_to_json (climate);
+  g_autofree char *fingerprint = lamina_store_climate_fingerprint (climate);
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, climate->id);
+  lamina_pg_add_text (params, climate->name ? climate->name : climate->id);
+  lamina_pg_add_text (params, climate->source);
+  lamina_pg_add_text (params, months);
+  lamina_pg_add_text (params, fingerprint);
+  lamina_pg_add_text (params, put->now);
+  /* Clear and recompute every flag, as the SQLite backend does. */
+  return lamina_pg_run (self,
+    "INSERT INTO climate (id, name, source, months, fingerprint, modified_at)"
+    " VALUES ($1, $2, $3, $4, $5, $6)"
+    " ON CONFLICT (id) DO UPDATE SET name = $2, source = $3, months = $4,"
+    "   fingerprint = $5, modified_at = $6",
+    params, "cannot store a climate", error)
+    && lamina_pg_refresh_material_flags (self, NULL, error);
+}
+
+gboolean
+lamina_pg_put_climate (LaminaBackend        *backend,
+                       const LaminaClimate  *climate,
+                       const char           *now,
+                       GError              **error)
+{
+  Put put = { .climate = climate, .now = now };
+
+  return lamina_pg_transaction (SELF, put_climate_txn, &put, error);
+}
+
+/* 2-D checks */
+
+char *
+lamina_pg_get_field_check (LaminaBackend  *backend,
+                           const char     *id,
+                           int             revision,
+                           GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  char *body = NULL;
+
+  lamina_pg_add_text (params, id);
+  lamina_pg_add_int (params, revision);
+  res = lamina_pg_query (SELF, "SELECT body FROM field_check"
+                               " WHERE construction_id = $1 AND revision = $2",
+                         params, "cannot read the 2-D check", error);
+  if (res == NULL)
+    return NULL;
+  if (PQntuples (res) > 0)
+    body = lamina_pg_dup (res, 0, 0);
+  PQclear (res);
+  return body;
+}
+
+gboolean
+lamina_pg_put_field_check (LaminaBackend  *backend,
+                           const char     *id,
+                           int             revision,
+                           const char     *body,
+                           const char     *now,
+                           GError        **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, id);
+  lamina_pg_add_int (params, revision);
+  lamina_pg_add_text (params, body);
+  lamina_pg_add_text (params, now);
+  return lamina_pg_run (SELF,
+    "INSERT INTO field_check (construction_id, revision, body, computed_at)"
+    " VALUES ($1, $2, $3, $4)"
+    " ON CONFLICT (construction_id, revision) DO UPDATE SET body = $3, computed_at = $4",
+    params, "cannot store the 2-D check", error);
+}
