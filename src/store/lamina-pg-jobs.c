@@ -43,8 +43,8 @@ lamina_pg_list_target_sets (LaminaBackend  *backend,
   return g_steal_pointer (&list);
 }
 
-static gboolean
-put_target_set_in_txn (LaminaPg              *self,
+gboolean
+lamina_pg_put_target_set_in_txn (LaminaPg              *self,
                        const LaminaTargetSet *set,
                        const char            *now,
                        GError               **error)
@@ -80,7 +80,7 @@ put_target_set_txn (LaminaPg  *self,
 {
   Record *r = data;
 
-  return put_target_set_in_txn (self, r->set, r->now, error);
+  return lamina_pg_put_target_set_in_txn (self, r->set, r->now, error);
 }
 
 gboolean
@@ -350,7 +350,7 @@ lamina_pg_put_records (LaminaPg    *self,
                        GError     **error)
 {
   for (guint i = 0; target_sets != NULL && i < target_sets->len; i++)
-    if (!put_target_set_in_txn (self, target_sets->pdata[i], now, error))
+    if (!lamina_pg_put_target_set_in_txn (self, target_sets->pdata[i], now, error))
       return FALSE;
   for (guint i = 0; jobs != NULL && i < jobs->len; i++)
     if (!put_job_in_txn (self, jobs->pdata[i], error))

@@ -153,6 +153,8 @@ static const LaminaBackendVTable pg_vtable = {
   .get_climate = lamina_pg_get_climate,
   .put_climate = lamina_pg_put_climate,
 
+  .read_all = lamina_pg_read_all,
+  .write_all = lamina_pg_write_all,
   .server_init = lamina_pg_server_init,
 };
 

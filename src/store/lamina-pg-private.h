@@ -151,6 +151,13 @@ gint64              lamina_pg_count            (LaminaBackend *backend,
 GPtrArray          *lamina_pg_list_tags        (LaminaBackend *backend, GError **error);
 /* The search words of a construction, space separated (the index). */
 char               *lamina_pg_search_words     (const LaminaConstruction *c);
+/* The tags, materials and search words of a revision being stored. */
+gboolean            lamina_pg_index_revision   (LaminaPg *self, const LaminaConstruction *c,
+                                                GError **error);
+/* lamina-pg-copy.c */
+LaminaBackendDump  *lamina_pg_read_all         (LaminaBackend *backend, GError **error);
+gboolean            lamina_pg_write_all        (LaminaBackend *backend,
+                                                const LaminaBackendDump *dump, GError **error);
 /* lamina-pg-roles.c */
 gboolean            lamina_pg_server_init      (LaminaBackend *backend, GError **error);
 /* lamina-pg-jobs.c */
@@ -169,6 +176,8 @@ gboolean            lamina_pg_delete_job       (LaminaBackend *backend, const ch
                                                 GError **error);
 GPtrArray          *lamina_pg_list_job_uses    (LaminaBackend *backend,
                                                 const char *construction_id, GError **error);
+gboolean            lamina_pg_put_target_set_in_txn (LaminaPg *self, const LaminaTargetSet *set,
+                                                     const char *now, GError **error);
 gboolean            lamina_pg_put_records      (LaminaPg *self, GPtrArray *target_sets,
                                                 GPtrArray *jobs, const char *now,
                                                 GError **error);

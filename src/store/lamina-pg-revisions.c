@@ -193,8 +193,8 @@ insert_revision_row (LaminaPg                     *self,
     params, "cannot store a revision", error);
 }
 
-static gboolean
-store_tags_and_materials (LaminaPg                  *self,
+gboolean
+lamina_pg_index_revision (LaminaPg                  *self,
                           const LaminaConstruction  *c,
                           GError                   **error)
 {
@@ -277,7 +277,7 @@ store_revision_in_txn (LaminaPg                     *self,
   return check_base (self, rev->construction, base, error)
          && put_construction_row (self, rev->construction, rev->result, base == 0, error)
          && insert_revision_row (self, rev, error)
-         && store_tags_and_materials (self, rev->construction, error)
+         && lamina_pg_index_revision (self, rev->construction, error)
          && refresh_material_changed (self, rev->construction, error);
 }
 

@@ -246,7 +246,8 @@ static void
 test_round_trip (void)
 {
   g_autofree char *src_path = test_library_path ("copy-source.sqlite");
-  g_autofree char *dst_path = test_library_path ("copy-target.sqlite");
+  /* On the test server: a file, copied to the server and back to a file. */
+  g_autofree char *dst_path = test_library_location ("copy-target.sqlite");
   g_autofree char *back_path = test_library_path ("copy-back.sqlite");
   g_autofree char *reviewed = NULL, *deleted = NULL;
   g_autoptr(LaminaLibrary) src = make_source (src_path, &reviewed, &deleted);
@@ -295,7 +296,7 @@ static void
 test_refuses_non_empty (void)
 {
   g_autofree char *src_path = test_library_path ("refuse-source.sqlite");
-  g_autofree char *dst_path = test_library_path ("refuse-target.sqlite");
+  g_autofree char *dst_path = test_library_location ("refuse-target.sqlite");
   g_autofree char *reviewed = NULL, *deleted = NULL;
   g_autoptr(LaminaLibrary) src = make_source (src_path, &reviewed, &deleted);
   g_autoptr(LaminaLibrary) dst = lamina_library_open (dst_path, LAMINA_LIBRARY_OPEN_DEFAULT, NULL);
@@ -327,23 +328,27 @@ static void
 test_failure_leaves_target (void)
 {
   g_autofree char *src_path = test_library_path ("fail-source.sqlite");
-  g_autofree char *dst_path = test_library_path ("fail-target.sqlite");
+  g_autofree char *dst_path = test_library_location ("fail-target.sqlite");
   g_autofree char *reviewed = NULL, *deleted = NULL;
   g_autoptr(LaminaLibrary) src = make_source (src_path, &reviewed, &deleted);
   g_autoptr(LaminaLibrary) dst = NULL;
   g_autoptr(GError) error = NULL;
   g_autofree char *before = NULL, *after = NULL;
   LaminaLibraryQuery query;
-  sqlite3 *db = NULL;
 
   g_clear_object (&dst);
   dst = lamina_library_open (dst_path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
   g_assert_no_error (error);
   before = export_all (dst);
-  g_assert_cmpint (sqlite3_open (dst_path, &db), ==, SQLITE_OK);
-  g_assert_cmpint (sqlite3_exec (db, "CREATE TRIGGER test_fail BEFORE INSERT ON review_event"
-                                     " BEGIN SELECT RAISE (ABORT, 'refused for the test'); END;",
-                                 NULL, NULL, NULL), ==, SQLITE_OK);
+  if (test_on_server ())
+    g_assert_true (test_raw_exec (dst_path,
+      "CREATE FUNCTION test_fail () RETURNS trigger LANGUAGE plpgsql AS $$"
+      " BEGIN RAISE EXCEPTION 'refused for the test'; END $$;"
+      "CREATE TRIGGER test_fail BEFORE INSERT ON review_event"
+      " FOR EACH ROW EXECUTE FUNCTION test_fail ();"));
+  else
+    g_assert_true (test_raw_exec (dst_path, "CREATE TRIGGER test_fail BEFORE INSERT ON review_event"
+                                            " BEGIN SELECT RAISE (ABORT, 'refused for the test'); END;"));
 
   g_assert_false (lamina_library_copy (src, dst, NULL, &error));
   g_assert_nonnull (error);
@@ -356,8 +361,8 @@ test_failure_leaves_target (void)
   g_assert_cmpint (lamina_library_get_review_policy (dst), ==, LAMINA_REVIEW_FOUR_EYES);
 
   /* With the obstacle gone the same target takes the copy. */
-  g_assert_cmpint (sqlite3_exec (db, "DROP TRIGGER test_fail;", NULL, NULL, NULL), ==, SQLITE_OK);
-  sqlite3_close (db);
+  g_assert_true (test_raw_exec (dst_path, test_on_server () ? "DROP TRIGGER test_fail ON review_event;"
+                                                          : "DROP TRIGGER test_fail;"));
   g_assert_true (lamina_library_copy (src, dst, NULL, &error));
   g_assert_no_error (error);
   compare_libraries (src, dst);
@@ -370,7 +375,7 @@ static void
 test_cli (void)
 {
   g_autofree char *src_path = test_library_path ("cli-source.sqlite");
-  g_autofree char *dst_path = test_library_path ("cli-target.sqlite");
+  g_autofree char *dst_path = test_library_uri ("cli-target.sqlite");
   g_autofree char *missing = test_library_path ("no-such-library.sqlite");
   g_autofree char *reviewed = NULL, *deleted = NULL;
   g_autoptr(LaminaLibrary) src = make_source (src_path, &reviewed, &deleted);
