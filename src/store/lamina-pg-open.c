@@ -81,6 +81,7 @@ lamina_pg_close (LaminaBackend *backend)
   g_free (self->label);
   g_free (self->parent.path);
   g_free (self->parent.backup_path);
+  g_free (self->parent.read_only_reason);
   g_free (self);
 }
 
@@ -267,6 +268,15 @@ recognise_and_install (LaminaPg               *self,
       return FALSE;
     }
   self->parent.opened_version = install.version;
+  if (install.version < LAMINA_LIBRARY_SCHEMA_VERSION && (flags & LAMINA_LIBRARY_OPEN_READ_ONLY))
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_READ_ONLY,
+                   install.version < 0
+                   ? "%s: no Lamina library in this database, and it was opened read-only"
+                   : "%s: the library needs an update to this version's format, and it was "
+                     "opened read-only; nothing was changed", self->label);
+      return FALSE;
+    }
   if (install.version < LAMINA_LIBRARY_SCHEMA_VERSION
       && !lamina_pg_transaction (self, install_in_txn, &install, error))
     return FALSE;
@@ -278,6 +288,19 @@ recognise_and_install (LaminaPg               *self,
     return FALSE;
   self->roles = PQntuples (res) > 0 && lamina_pg_bool (res, 0, 0);
   PQclear (res);
+  /* A person whose server role may only read: say so before any edit. */
+  res = lamina_pg_query (self, "SELECT has_table_privilege ('construction', 'INSERT')", NULL,
+                         "cannot read the library settings", error);
+  if (res == NULL)
+    return FALSE;
+  if (flags & LAMINA_LIBRARY_OPEN_READ_ONLY)
+    self->parent.read_only_reason = g_strdup ("opened read-only");
+  else if (!lamina_pg_bool (res, 0, 0))
+    self->parent.read_only_reason = g_strdup ("the server grants your role reading only");
+  PQclear (res);
+  if (self->parent.read_only_reason != NULL
+      && !lamina_pg_exec (self, "SET default_transaction_read_only = on;", error))
+    return FALSE;
   return lamina_pg_exec (self, "LISTEN " LAMINA_PG_CHANNEL ";", error);
 }
 

@@ -110,6 +110,8 @@ gboolean            lamina_pg_set_setting      (LaminaBackend *backend, const ch
 GPtrArray          *lamina_pg_list_climates    (LaminaBackend *backend, GError **error);
 LaminaClimate      *lamina_pg_get_climate      (LaminaBackend *backend, const char *id,
                                                 GError **error);
+gboolean            lamina_pg_put_climate_in_txn (LaminaPg *self, const LaminaClimate *climate,
+                                                  const char *now, GError **error);
 gboolean            lamina_pg_put_climate      (LaminaBackend *backend,
                                                 const LaminaClimate *climate,
                                                 const char *now, GError **error);

@@ -311,19 +311,26 @@ lamina_pg_store_revision (LaminaBackend                *backend,
   return lamina_pg_transaction (SELF, store_revision_txn, &w, error);
 }
 
-gboolean
-lamina_pg_set_deleted (LaminaBackend  *backend,
-                       const char     *id,
-                       const char     *when,
-                       GError        **error)
+typedef struct
 {
+  const char *id;
+  const char *when;
+} Deletion;
+
+static gboolean
+set_deleted_txn (LaminaPg  *self,
+                 gpointer   data,
+                 GError   **error)
+{
+  Deletion *d = data;
+  const char *id = d->id, *when = d->when;
   g_autoptr(GPtrArray) params = lamina_pg_params_new ();
   PGresult *res;
   gint64 n;
 
   lamina_pg_add_text (params, id);
   lamina_pg_add_text (params, when);
-  res = lamina_pg_query (SELF,
+  res = lamina_pg_query (self,
     "UPDATE construction SET deleted_at = $2"
     " WHERE id = $1 AND (deleted_at IS NULL) = ($2::text IS NOT NULL)",
     params, "cannot update the library", error);
@@ -339,6 +346,17 @@ lamina_pg_set_deleted (LaminaBackend  *backend,
       return FALSE;
     }
   return TRUE;
+}
+
+gboolean
+lamina_pg_set_deleted (LaminaBackend  *backend,
+                       const char     *id,
+                       const char     *when,
+                       GError        **error)
+{
+  Deletion d = { id, when };
+
+  return lamina_pg_transaction (SELF, set_deleted_txn, &d, error);
 }
 
 GPtrArray *
@@ -464,6 +482,9 @@ import_txn (LaminaPg  *self,
   Write *w = data;
   const LaminaBackendImport *import = w->import;
 
+  for (guint i = 0; import->climates != NULL && i < import->climates->len; i++)
+    if (!lamina_pg_put_climate_in_txn (self, import->climates->pdata[i], w->now, error))
+      return FALSE;
   for (guint i = 0; i < import->materials->len; i++)
     if (!lamina_pg_put_material_in_txn (self, import->materials->pdata[i], w->now, error))
       return FALSE;
@@ -497,7 +518,7 @@ lamina_pg_apply_import (LaminaBackend  *backend,
                         const char     *now,
                         GError        **error)
 {
-  LaminaBackendImport import = { materials, revisions, base_revisions, NULL, NULL };
+  LaminaBackendImport import = { materials, revisions, base_revisions, NULL, NULL, NULL };
 
   return lamina_pg_apply_import_records (backend, &import, now, error);
 }

@@ -312,7 +312,16 @@ put_climate_txn (LaminaPg  *self,
                  GError   **error)
 {
   Put *put = data;
-  const LaminaClimate *climate = put->climate;
+
+  return lamina_pg_put_climate_in_txn (self, put->climate, put->now, error);
+}
+
+gboolean
+lamina_pg_put_climate_in_txn (LaminaPg             *self,
+                              const LaminaClimate  *climate,
+                              const char           *now,
+                              GError              **error)
+{
   g_autofree char *months = lamina_store_climate_months_to_json (climate);
   g_autofree char *fingerprint = lamina_store_climate_fingerprint (climate);
   g_autoptr(GPtrArray) params = lamina_pg_params_new ();
@@ -322,7 +331,7 @@ put_climate_txn (LaminaPg  *self,
   lamina_pg_add_text (params, climate->source);
   lamina_pg_add_text (params, months);
   lamina_pg_add_text (params, fingerprint);
-  lamina_pg_add_text (params, put->now);
+  lamina_pg_add_text (params, now);
   /* Clear and recompute every flag, as the SQLite backend does. */
   return lamina_pg_run (self,
     "INSERT INTO climate (id, name, source, months, fingerprint, modified_at)"
@@ -369,6 +378,33 @@ lamina_pg_get_field_check (LaminaBackend  *backend,
   return body;
 }
 
+typedef struct
+{
+  const char *id;
+  int         revision;
+  const char *body;
+  const char *now;
+} FieldCheck;
+
+static gboolean
+put_field_check_txn (LaminaPg  *self,
+                     gpointer   data,
+                     GError   **error)
+{
+  FieldCheck *f = data;
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, f->id);
+  lamina_pg_add_int (params, f->revision);
+  lamina_pg_add_text (params, f->body);
+  lamina_pg_add_text (params, f->now);
+  return lamina_pg_run (self,
+    "INSERT INTO field_check (construction_id, revision, body, computed_at)"
+    " VALUES ($1, $2, $3, $4)"
+    " ON CONFLICT (construction_id, revision) DO UPDATE SET body = $3, computed_at = $4",
+    params, "cannot store the 2-D check", error);
+}
+
 gboolean
 lamina_pg_put_field_check (LaminaBackend  *backend,
                            const char     *id,
@@ -377,15 +413,7 @@ lamina_pg_put_field_check (LaminaBackend  *backend,
                            const char     *now,
                            GError        **error)
 {
-  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  FieldCheck f = { id, revision, body, now };
 
-  lamina_pg_add_text (params, id);
-  lamina_pg_add_int (params, revision);
-  lamina_pg_add_text (params, body);
-  lamina_pg_add_text (params, now);
-  return lamina_pg_run (SELF,
-    "INSERT INTO field_check (construction_id, revision, body, computed_at)"
-    " VALUES ($1, $2, $3, $4)"
-    " ON CONFLICT (construction_id, revision) DO UPDATE SET body = $3, computed_at = $4",
-    params, "cannot store the 2-D check", error);
+  return lamina_pg_transaction (SELF, put_field_check_txn, &f, error);
 }

@@ -204,6 +204,11 @@ lamina_pg_transaction (LaminaPg        *self,
                        gpointer         data,
                        GError         **error)
 {
+  if (self->parent.read_only_reason != NULL)
+    {
+      lamina_backend_set_read_only_error (&self->parent, error);
+      return FALSE;
+    }
   for (int attempt = 1; ; attempt++)
     {
       g_autoptr(GError) local = NULL;

@@ -7,7 +7,6 @@
 #include "lamina-store-test-util.h"
 #include "lamina-moisture.h"
 
-#include <sqlite3.h>
 
 static LaminaLibrary *
 open_library (const char *name)
@@ -227,7 +226,7 @@ static void
 test_failed_import_leaves_no_climate (void)
 {
   g_autoptr(LaminaLibrary) library = open_library ("source.sqlite");
-  g_autofree char *path = test_library_path ("refusing.sqlite");
+  g_autofree char *path = test_library_location ("refusing.sqlite");
   g_autoptr(LaminaLibrary) other = NULL;
   g_autoptr(LaminaClimate) cold = test_make_climate ("cold", -8);
   g_autoptr(LaminaConstruction) a = NULL;
@@ -240,7 +239,6 @@ test_failed_import_leaves_no_climate (void)
   g_autofree char *first = NULL;
   g_autofree char *last = NULL;
   g_autofree char *sql = NULL;
-  sqlite3 *db = NULL;
 
   g_assert_true (lamina_library_put_climate (library, cold, NULL));
   a = make_checked_wall (library, "cold", 3);
@@ -261,12 +259,17 @@ test_failed_import_leaves_no_climate (void)
   other = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
   g_assert_no_error (error);
   g_clear_object (&other);
-  g_assert_cmpint (sqlite3_open (path, &db), ==, SQLITE_OK);
-  sql = g_strdup_printf ("CREATE TRIGGER refuse_last BEFORE INSERT ON revision"
-                         " WHEN NEW.construction_id = '%s'"
-                         " BEGIN SELECT RAISE (ABORT, 'refused by the test'); END;", last);
-  g_assert_cmpint (sqlite3_exec (db, sql, NULL, NULL, NULL), ==, SQLITE_OK);
-  sqlite3_close (db);
+  if (test_on_server ())
+    sql = g_strdup_printf ("CREATE FUNCTION refuse_last () RETURNS trigger LANGUAGE plpgsql AS $$"
+                           " BEGIN RAISE EXCEPTION 'refused by the test' USING ERRCODE = 'check_violation';"
+                           " END $$;"
+                           "CREATE TRIGGER refuse_last BEFORE INSERT ON revision FOR EACH ROW"
+                           " WHEN (NEW.construction_id = '%s') EXECUTE FUNCTION refuse_last ();", last);
+  else
+    sql = g_strdup_printf ("CREATE TRIGGER refuse_last BEFORE INSERT ON revision"
+                           " WHEN NEW.construction_id = '%s'"
+                           " BEGIN SELECT RAISE (ABORT, 'refused by the test'); END;", last);
+  g_assert_true (test_raw_exec (path, sql));
 
   other = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
   g_assert_no_error (error);

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "lamina-library.h"
+#include "lamina-library-safety.h"
 #include "lamina-store-test-util.h"
 
 static LaminaLibrary *
@@ -175,6 +176,20 @@ test_refusals (void)
   g_clear_error (&error);
   g_assert_cmpint (test_raw_int (empty, "SELECT value::integer FROM meta WHERE key = 'schema_version';"),
                    ==, 99);
+
+  /* Opened read-only: every write refused before it reaches the server. */
+  g_assert_true (test_raw_exec (empty, "UPDATE meta SET value = '8' WHERE key = 'schema_version';"));
+  library = lamina_library_open (empty, LAMINA_LIBRARY_OPEN_READ_ONLY, &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_library_is_read_only (library));
+  {
+    g_autoptr(LaminaConstruction) c = test_make_wall (library, "RO-1", "Read-only wall", NULL, 100);
+
+    g_assert_null (lamina_library_create_construction (library, c, "A. Planner", &error));
+    g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_READ_ONLY);
+    g_clear_error (&error);
+  }
+  g_clear_object (&library);
 
   /* No server there: a located error, no file made. */
   g_assert_null (lamina_library_open ("postgresql://nobody@127.0.0.1:1/none",
