@@ -154,6 +154,8 @@ static const LaminaBackendVTable pg_vtable = {
   .get_climate = lamina_pg_get_climate,
   .put_climate = lamina_pg_put_climate,
 
+  .delete_climate = lamina_pg_delete_climate,
+  .set_moisture_limit = lamina_pg_set_moisture_limit,
   .read_all = lamina_pg_read_all,
   .write_all = lamina_pg_write_all,
   .server_init = lamina_pg_server_init,

@@ -115,6 +115,12 @@ gboolean            lamina_pg_put_climate_in_txn (LaminaPg *self, const LaminaCl
 gboolean            lamina_pg_put_climate      (LaminaBackend *backend,
                                                 const LaminaClimate *climate,
                                                 const char *now, GError **error);
+gboolean            lamina_pg_delete_climate   (LaminaBackend *backend, const char *id,
+                                                GError **error);
+gboolean            lamina_pg_set_moisture_limit (LaminaBackend *backend, const char *value,
+                                                  double limit, GError **error);
+/* The office's moisture limit, from the settings. */
+double              lamina_pg_moisture_limit   (LaminaPg *self);
 char               *lamina_pg_get_field_check  (LaminaBackend *backend, const char *id,
                                                 int revision, GError **error);
 gboolean            lamina_pg_put_field_check  (LaminaBackend *backend, const char *id,

@@ -141,7 +141,8 @@ put_construction_row (LaminaPg                  *self,
   lamina_pg_add_double (params, r ? r->u_corrected : NAN);
   lamina_pg_add_double (params, c->target_u);
   lamina_pg_add_double (params, lamina_construction_get_thickness (c));
-  lamina_pg_add_int (params, lamina_store_summary_flags (c, r));
+  lamina_pg_add_int (params, lamina_store_summary_flags (r)
+                             | lamina_library_moisture_flags_for_limit (c, lamina_pg_moisture_limit (self)));
   lamina_pg_add_text (params, c->modified_at);
   lamina_pg_add_text (params, words);
   if (create)

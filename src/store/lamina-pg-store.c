@@ -417,3 +417,129 @@ lamina_pg_put_field_check (LaminaBackend  *backend,
 
   return lamina_pg_transaction (SELF, put_field_check_txn, &f, error);
 }
+
+/* Deleting a climate no construction uses (IN_USE otherwise). */
+
+static gboolean
+delete_climate_txn (LaminaPg  *self,
+                    gpointer   data,
+                    GError   **error)
+{
+  const char *id = data;
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  int users;
+  gint64 n;
+
+  lamina_pg_add_text (params, id);
+  res = lamina_pg_query (self,
+    "SELECT count(*), min (coalesce (c.code, c.id)) FROM construction c"
+    "  JOIN revision r ON r.construction_id = c.id AND r.revision = c.head"
+    " WHERE c.deleted_at IS NULL AND r.body::jsonb #>> '{moisture,climate}' = $1",
+    params, "cannot read the constructions", error);
+  if (res == NULL)
+    return FALSE;
+  users = lamina_pg_int (res, 0, 0);
+  if (users > 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IN_USE,
+                   users == 1 ? "climate “%s” is used by %d construction (%s); it was not deleted"
+                              : "climate “%s” is used by %d constructions (%s and others); it was not deleted",
+                   id, users, lamina_pg_get (res, 0, 1));
+      PQclear (res);
+      return FALSE;
+    }
+  PQclear (res);
+  res = lamina_pg_query (self, "DELETE FROM climate WHERE id = $1", params,
+                         "cannot delete the climate", error);
+  if (res == NULL)
+    return FALSE;
+  n = lamina_pg_changes (res);
+  PQclear (res);
+  if (n == 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no climate “%s” in the library", id);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+gboolean
+lamina_pg_delete_climate (LaminaBackend  *backend,
+                          const char     *id,
+                          GError        **error)
+{
+  return lamina_pg_transaction (SELF, delete_climate_txn, (gpointer) id, error);
+}
+
+/* The office's moisture limit (EN ISO 13788): the setting, and the
+ * "fails its moisture check" flag of every construction with a check
+ * computed again from its latest revision, in one transaction. */
+
+double
+lamina_pg_moisture_limit (LaminaPg *self)
+{
+  g_autofree char *value = lamina_pg_get_setting (&self->parent, LAMINA_MOISTURE_LIMIT_KEY, NULL);
+
+  return lamina_library_moisture_limit_from_text (value);
+}
+
+typedef struct
+{
+  const char *value;
+  double      limit;
+} Limit;
+
+static gboolean
+set_moisture_limit_txn (LaminaPg  *self,
+                        gpointer   data,
+                        GError   **error)
+{
+  Limit *l = data;
+  Put put = { .key = LAMINA_MOISTURE_LIMIT_KEY, .value = l->value };
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+
+  if (!set_setting_txn (self, &put, error))
+    return FALSE;
+  lamina_pg_add_int (params, LAMINA_SUMMARY_HAS_MOISTURE);
+  res = lamina_pg_query (self,
+    "SELECT c.id, r.body FROM construction c"
+    "  JOIN revision r ON r.construction_id = c.id AND r.revision = c.head"
+    " WHERE (c.flags & $1::integer) <> 0 FOR UPDATE OF c", params,
+    "cannot read the constructions", error);
+  if (res == NULL)
+    return FALSE;
+  for (int i = 0; i < PQntuples (res); i++)
+    {
+      g_autoptr(LaminaConstruction) c = lamina_store_construction_from_json (lamina_pg_get (res, i, 1),
+                                                                            NULL);
+      int f = c != NULL ? (int) lamina_library_moisture_flags_for_limit (c, l->limit)
+                        : LAMINA_SUMMARY_HAS_MOISTURE | LAMINA_SUMMARY_MOISTURE_FAILS;
+      g_autoptr(GPtrArray) row = lamina_pg_params_new ();
+
+      lamina_pg_add_text (row, lamina_pg_get (res, i, 0));
+      lamina_pg_add_int (row, LAMINA_SUMMARY_HAS_MOISTURE | LAMINA_SUMMARY_MOISTURE_FAILS);
+      lamina_pg_add_int (row, f);
+      if (!lamina_pg_run (self, "UPDATE construction SET flags = (flags & ~$2::integer) | $3::integer"
+                                " WHERE id = $1", row, "cannot update the library", error))
+        {
+          PQclear (res);
+          return FALSE;
+        }
+    }
+  PQclear (res);
+  return TRUE;
+}
+
+gboolean
+lamina_pg_set_moisture_limit (LaminaBackend  *backend,
+                              const char     *value,
+                              double          limit,
+                              GError        **error)
+{
+  Limit l = { value, limit };
+
+  return lamina_pg_transaction (SELF, set_moisture_limit_txn, &l, error);
+}
