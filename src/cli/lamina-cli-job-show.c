@@ -22,26 +22,16 @@ lamina_cli_job_list (const LaminaCliGlobals *globals,
                      char                  **argv)
 {
   gboolean json = FALSE;
-  const GOptionEntry entries[] = {
-    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON"), NULL },
-    { NULL }
-  };
-  g_autoptr(GOptionContext) context = g_option_context_new (_("— list the jobs of the library"));
+  int status;
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(GPtrArray) jobs = NULL;
   g_autoptr(GError) error = NULL;
 
-  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
-  if (!lamina_cli_parse (context, &argc, &argv))
-    return LAMINA_EXIT_USAGE;
-  if (argc != 1)
-    {
-      lamina_cli_error (_("job list takes no arguments (see “lamina-cli job list --help”)"));
-      return LAMINA_EXIT_USAGE;
-    }
-  library = lamina_cli_open_library (globals, FALSE);
+  library = lamina_cli_open_listing (globals, _("— list the jobs of the library"), _("Print JSON"), 0,
+                                     _("job list takes no arguments (see “lamina-cli job list --help”)"),
+                                     &argc, &argv, &json, &status);
   if (library == NULL)
-    return LAMINA_EXIT_BAD_INPUT;
+    return status;
   jobs = lamina_library_list_jobs (library, &error);
   if (jobs == NULL)
     {
@@ -402,26 +392,17 @@ lamina_cli_job_show (const LaminaCliGlobals *globals,
                      char                  **argv)
 {
   gboolean json = FALSE;
-  const GOptionEntry entries[] = {
-    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON (U in W/(m²·K), area in m², U·A and H_T in W/K)"), NULL },
-    { NULL }
-  };
-  g_autoptr(GOptionContext) context = g_option_context_new (_("JOB — a job, its schedule and its check"));
+  int status;
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(LaminaJobReport) report = NULL;
   g_autoptr(GError) error = NULL;
 
-  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
-  if (!lamina_cli_parse (context, &argc, &argv))
-    return LAMINA_EXIT_USAGE;
-  if (argc != 2)
-    {
-      lamina_cli_error (_("job show takes one job id (see “lamina-cli job show --help”)"));
-      return LAMINA_EXIT_USAGE;
-    }
-  library = lamina_cli_open_library (globals, FALSE);
+  library = lamina_cli_open_listing (globals, _("JOB — a job, its schedule and its check"),
+                                     _("Print JSON (U in W/(m²·K), area in m², U·A and H_T in W/K)"), 1,
+                                     _("job show takes one job id (see “lamina-cli job show --help”)"),
+                                     &argc, &argv, &json, &status);
   if (library == NULL)
-    return LAMINA_EXIT_BAD_INPUT;
+    return status;
   report = lamina_library_check_job (library, argv[1], &error);
   if (report == NULL)
     {

@@ -41,6 +41,40 @@ lamina_cli_open_library (const LaminaCliGlobals *globals,
   return library;
 }
 
+LaminaLibrary *
+lamina_cli_open_listing (const LaminaCliGlobals *globals,
+                         const char             *parameter_string,
+                         const char             *json_help,
+                         int                     n_args,
+                         const char             *wrong_args,
+                         int                    *argc,
+                         char                 ***argv,
+                         gboolean               *json,
+                         int                    *exit_code)
+{
+  const GOptionEntry entries[] = {
+    { "json", 0, 0, G_OPTION_ARG_NONE, json, json_help, NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = g_option_context_new (parameter_string);
+  LaminaLibrary *library;
+
+  *exit_code = LAMINA_EXIT_USAGE;
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!lamina_cli_parse (context, argc, argv))
+    return NULL;
+  if (*argc != n_args + 1)
+    {
+      lamina_cli_error ("%s", wrong_args);
+      return NULL;
+    }
+  *exit_code = LAMINA_EXIT_BAD_INPUT;
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library != NULL)
+    *exit_code = LAMINA_EXIT_OK;
+  return library;
+}
+
 void
 lamina_cli_print_json (JsonNode *root)
 {
@@ -485,11 +519,7 @@ lamina_cli_history (const LaminaCliGlobals *globals,
                     char                  **argv)
 {
   gboolean json = FALSE;
-  const GOptionEntry entries[] = {
-    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON"), NULL },
-    { NULL }
-  };
-  g_autoptr(GOptionContext) context = g_option_context_new (_("ID — the revisions of a construction"));
+  int status;
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(GPtrArray) history = NULL;
   g_autoptr(GPtrArray) events = NULL;
@@ -497,16 +527,11 @@ lamina_cli_history (const LaminaCliGlobals *globals,
   g_autofree char *id = NULL;
   g_autoptr(JsonBuilder) b = json_builder_new ();
 
-  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
-  if (!lamina_cli_parse (context, &argc, &argv))
-    return LAMINA_EXIT_USAGE;
-  if (argc != 2)
-    {
-      lamina_cli_error (_("history takes one construction id"));
-      return LAMINA_EXIT_USAGE;
-    }
-  library = lamina_cli_open_library (globals, FALSE);
-  if (library == NULL || (id = lamina_cli_resolve_id (library, argv[1])) == NULL)
+  library = lamina_cli_open_listing (globals, _("ID — the revisions of a construction"), _("Print JSON"),
+                                     1, _("history takes one construction id"), &argc, &argv, &json, &status);
+  if (library == NULL)
+    return status;
+  if ((id = lamina_cli_resolve_id (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
   history = lamina_library_dup_history (library, id, &error);
   if (history == NULL || (events = lamina_library_dup_review_events (library, id, &error)) == NULL)
@@ -564,27 +589,16 @@ lamina_cli_materials (const LaminaCliGlobals *globals,
                       char                  **argv)
 {
   gboolean json = FALSE;
-  const GOptionEntry entries[] = {
-    { "json", 0, 0, G_OPTION_ARG_NONE, &json, N_("Print JSON"), NULL },
-    { NULL }
-  };
-  g_autoptr(GOptionContext) context = g_option_context_new (_("— the materials of the library"));
+  int status;
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(GPtrArray) list = NULL;
   g_autoptr(GError) error = NULL;
   g_autoptr(JsonBuilder) b = json_builder_new ();
 
-  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
-  if (!lamina_cli_parse (context, &argc, &argv))
-    return LAMINA_EXIT_USAGE;
-  if (argc != 1)
-    {
-      lamina_cli_error (_("materials takes no arguments"));
-      return LAMINA_EXIT_USAGE;
-    }
-  library = lamina_cli_open_library (globals, FALSE);
+  library = lamina_cli_open_listing (globals, _("— the materials of the library"), _("Print JSON"),
+                                     0, _("materials takes no arguments"), &argc, &argv, &json, &status);
   if (library == NULL)
-    return LAMINA_EXIT_BAD_INPUT;
+    return status;
   list = lamina_library_list_materials (library, &error);
   if (list == NULL)
     {

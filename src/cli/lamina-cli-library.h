@@ -13,6 +13,20 @@ G_BEGIN_DECLS
  * library; prints the error and returns NULL on failure. */
 LaminaLibrary *lamina_cli_open_library (const LaminaCliGlobals *globals,
                                         gboolean                create);
+/* The start every listing command shares: an option --json (described
+ * by @json_help), exactly @n_args arguments after the command (else
+ * @wrong_args is printed and *exit_code is LAMINA_EXIT_USAGE), then the
+ * library, which must exist.  NULL with *exit_code set when the command
+ * cannot go on. */
+LaminaLibrary *lamina_cli_open_listing (const LaminaCliGlobals *globals,
+                                        const char             *parameter_string,
+                                        const char             *json_help,
+                                        int                     n_args,
+                                        const char             *wrong_args,
+                                        int                    *argc,
+                                        char                 ***argv,
+                                        gboolean               *json,
+                                        int                    *exit_code);
 /* lamina-cli-safety.c: what every command does with a library it has
  * opened: says on stderr when a write waits for another program, and
  * makes the day's backup (a failure is a warning, not the command's). */
