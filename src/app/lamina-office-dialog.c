@@ -302,8 +302,11 @@ on_open_clicked_cb (LaminaOfficeDialog *self)
   library = open_with_password (conninfo, *typed != '\0' ? typed : kept, &error);
   if (library == NULL)
     {
-      /* The library's message names the connection string. */
-      g_autofree char *text = g_strdup_printf (_("Could not open the office library: %s"), error->message);
+      /* Named once: a file library's message names it already, a
+       * server's (libpq's) may not. */
+      g_autofree char *text = strstr (error->message, conninfo) != NULL
+        ? g_strdup_printf (_("Could not open the office library: %s"), error->message)
+        : g_strdup_printf (_("Could not open the office library: %s: %s"), conninfo, error->message);
 
       show_error (self, text);
       return;

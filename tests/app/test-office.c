@@ -288,9 +288,10 @@ on_opened_cb (LaminaOfficeDialog *dialog,
   *opened = TRUE;
 }
 
-/* Until a server backend is built in, a server's library cannot be
- * opened: the dialog says why and stays open; nothing is remembered and
- * the password typed goes nowhere. */
+/* A server's library that cannot be opened (nothing listens on port 1;
+ * and without the server backend, none can be): the dialog says why, with
+ * the connection string, and stays open; nothing is remembered and the
+ * password typed goes nowhere. */
 static void
 test_dialog_open_fails (Fixture       *f,
                         gconstpointer  data)
