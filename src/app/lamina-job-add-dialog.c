@@ -6,7 +6,7 @@
 
 #include "config.h"
 
-#include "lamina-job-add-dialog.h"
+#include "lamina-job-add-dialog-private.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -18,26 +18,6 @@ static const char *const default_uses[] = {
   "external-wall", "roof", "floor-ground", "floor-outside-air", "wall-unheated", NULL,
 };
 
-struct _LaminaJobAddDialog
-{
-  GtkWindow        parent_instance;
-
-  /* template */
-  GtkDropDown     *use_dropdown;
-  GtkSearchEntry  *search_entry;
-  GtkCheckButton  *meets_check;
-  GtkLabel        *filter_label;
-  GtkListBox      *result_list;
-  GtkEntry        *area_entry;
-  GtkLabel        *error_label;
-
-  /* owned */
-  LaminaLibrary   *library;
-  LaminaJob       *job;
-  LaminaTargetSet *targets;
-  GStrv            uses;
-  GPtrArray       *results;    /* LaminaSummary* */
-};
 
 G_DEFINE_FINAL_TYPE (LaminaJobAddDialog, lamina_job_add_dialog, GTK_TYPE_WINDOW)
 
@@ -163,6 +143,21 @@ lamina_job_add_dialog_add (LaminaJobAddDialog  *self,
     return FALSE;
   e = lamina_job_add_entry (self->job, lamina_job_entry_new (s->id, revision, self->uses[selected]));
   e->area = area;
+  if (gtk_check_button_get_active (self->variant_check))
+    {
+      char *variant = lamina_library_derive_job_variant (self->library, s->id, revision, self->job->name,
+                                                         NULL, error);
+
+      if (variant == NULL)
+        {
+          lamina_job_remove_entry (self->job, e->n);
+          return FALSE;
+        }
+      e->origin = g_steal_pointer (&e->construction);
+      e->origin_revision = revision;
+      e->construction = variant;
+      e->revision = 1;
+    }
   if (!lamina_library_save_job (self->library, self->job, error))
     {
       lamina_job_remove_entry (self->job, e->n);
@@ -250,6 +245,7 @@ lamina_job_add_dialog_class_init (LaminaJobAddDialogClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, filter_label);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, result_list);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, area_entry);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, variant_check);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, error_label);
   gtk_widget_class_bind_template_callback (widget_class, on_filter_changed_cb);
   gtk_widget_class_bind_template_callback (widget_class, on_add_clicked_cb);

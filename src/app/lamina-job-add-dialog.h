@@ -26,8 +26,9 @@ double      lamina_job_add_dialog_get_max_u   (LaminaJobAddDialog *self);
 int         lamina_job_add_dialog_get_element (LaminaJobAddDialog *self);
 /* The constructions listed (LaminaSummary*, borrowed). */
 GPtrArray  *lamina_job_add_dialog_get_results (LaminaJobAddDialog *self);
-/* Adds result @index with @area (NAN: none) to the job and saves it;
- * the dialog closes. */
+/* Adds result @index with @area (NAN: none) to the job and saves it
+ * (with "As a job variant" ticked, a copy of the chosen revision made for
+ * the job, linked to it as its origin); the dialog closes. */
 gboolean    lamina_job_add_dialog_add         (LaminaJobAddDialog *self,
                                                guint               index,
                                                double              area,

@@ -199,7 +199,7 @@ add_construction (LaminaLibrary *library,
   e = lamina_job_entry_new (id, revision, use);
   if (variant)
     {
-      g_autofree char *copy = lamina_library_derive_construction (library, id, NULL, &error);
+      g_autofree char *copy = lamina_library_derive_job_variant (library, id, revision, job->name, NULL, &error);
 
       if (copy == NULL)
         {

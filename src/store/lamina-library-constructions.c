@@ -191,6 +191,27 @@ lamina_library_derive_construction (LaminaLibrary  *self,
   return lamina_library_derive_for_job (self, id, TRUE, TRUE, NULL, author, error);
 }
 
+/* Stores @c as a new construction named @name (no code, a new id,
+ * revision 1 draft); returns the new id. */
+static char *
+store_copy (LaminaLibrary      *self,
+            LaminaConstruction *c,
+            const char         *name,
+            const char         *comment,
+            const char         *author,
+            GError            **error)
+{
+  g_free (c->name);
+  c->name = g_strdup (name);
+  g_clear_pointer (&c->code, g_free);
+  g_free (c->id);
+  c->id = g_uuid_string_random ();
+  lamina_library_set_new_draft (c, 1, author);
+  if (!store (self, c, 0, comment, error))
+    return NULL;
+  return g_strdup (c->id);
+}
+
 char *
 lamina_library_derive_for_job (LaminaLibrary      *self,
                                const char         *id,
@@ -208,11 +229,6 @@ lamina_library_derive_for_job (LaminaLibrary      *self,
     return NULL;
   comment = g_strdup_printf ("derived from %s revision %d", c->code ? c->code : id, c->revision);
   name = g_strdup_printf (_("%s (copy)"), c->name);
-  g_free (c->name);
-  c->name = g_steal_pointer (&name);
-  g_clear_pointer (&c->code, g_free);
-  g_free (c->id);
-  c->id = g_uuid_string_random ();
   /* The old job's words do not belong to the new one unless asked for. */
   if (!keep_description)
     g_clear_pointer (&c->description, g_free);
@@ -222,10 +238,26 @@ lamina_library_derive_for_job (LaminaLibrary      *self,
     for (guint i = c->tags->len; i-- > 0;)
       if (!g_strv_contains (tags, c->tags->pdata[i]))
         g_ptr_array_remove_index (c->tags, i);
-  lamina_library_set_new_draft (c, 1, author);
-  if (!store (self, c, 0, comment, error))
+  return store_copy (self, c, name, comment, author, error);
+}
+
+char *
+lamina_library_derive_job_variant (LaminaLibrary  *self,
+                                   const char     *id,
+                                   int             revision,
+                                   const char     *job_name,
+                                   const char     *author,
+                                   GError        **error)
+{
+  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, revision, error);
+  g_autofree char *comment = NULL;
+  g_autofree char *name = NULL;
+
+  if (c == NULL)
     return NULL;
-  return g_strdup (c->id);
+  comment = g_strdup_printf ("job variant of %s revision %d", c->code ? c->code : id, c->revision);
+  name = g_strdup_printf (_("%s (variant for %s)"), c->name, job_name);
+  return store_copy (self, c, name, comment, author, error);
 }
 
 gboolean

@@ -192,6 +192,15 @@ char          *lamina_library_create_construction (LaminaLibrary      *self,
                                                    LaminaConstruction *construction,
                                                    const char         *author,
                                                    GError            **error);
+/* A job variant: revision @revision of @id copied to a new construction
+ * (draft, revision 1, name "… (variant for JOB)", no code) that a job's
+ * entry pins with @id at @revision as its origin; returns the new id. */
+char          *lamina_library_derive_job_variant (LaminaLibrary *self,
+                                                  const char    *id,
+                                                  int            revision,
+                                                  const char    *job_name,
+                                                  const char    *author,
+                                                  GError       **error);
 /* Copies the latest revision of @id to a new construction (draft,
  * revision 1, name "… (copy)", no code); returns the new id. */
 char          *lamina_library_derive_construction (LaminaLibrary *self,

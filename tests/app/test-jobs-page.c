@@ -17,6 +17,7 @@
 #include "lamina-job-entry-dialog-private.h"
 #include "lamina-job-junction-dialog-private.h"
 #include "lamina-target-set-dialog-private.h"
+#include "lamina-job-add-dialog-private.h"
 #include "lamina-app-test-util.h"
 
 /* The first label under @widget whose text starts with @prefix. */
@@ -103,6 +104,29 @@ test_jobs_page (void)
   g_assert_true (lamina_job_add_dialog_add (dialog, pick, 24, &error));
   g_assert_no_error (error);
   g_assert_cmpuint (lamina_jobs_page_get_n_entries (page), ==, 6);
+
+  /* The same as a job variant: a copy of the approved revision 3,
+   * linked to it; so far only its name and code (a copy has none)
+   * differ. */
+  dialog = lamina_jobs_page_open_add_dialog (page, "external-wall");
+  lamina_job_add_dialog_set_search (dialog, "EW-101");
+  gtk_check_button_set_active (dialog->variant_check, TRUE);
+  g_assert_true (lamina_job_add_dialog_add (dialog, pick, NAN, &error));
+  g_assert_no_error (error);
+  g_assert_cmpuint (lamina_jobs_page_get_n_entries (page), ==, 7);
+  {
+    g_autoptr(LaminaJob) job = lamina_library_dup_job (library, "demo-job-riverside", &error);
+    const LaminaJobEntry *e = job->entries->pdata[6];
+    g_autoptr(GPtrArray) differences = lamina_jobs_page_dup_differences (page, e->n);
+
+    g_assert_cmpstr (e->origin, ==, "demo-ew-101");
+    g_assert_cmpint (e->origin_revision, ==, 3);
+    g_assert_cmpint (e->revision, ==, 1);
+    g_assert_cmpuint (differences->len, ==, 2);
+    for (guint i = 0; i < differences->len; i++)
+      g_assert_true (g_str_has_prefix (differences->pdata[i], "Name:")
+                     || g_str_has_prefix (differences->pdata[i], "Code:"));
+  }
 
   g_assert_true (lamina_jobs_page_export (page, pdf, &error));
   g_assert_no_error (error);

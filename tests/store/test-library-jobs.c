@@ -456,6 +456,31 @@ test_import_unknown_climate (void)
   g_assert_no_error (error);
 }
 
+/* A job variant copies the revision the entry pins (the approved one),
+ * not the latest draft: its layers are revision 1's. */
+static void
+test_job_variant_revision (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("variant.sqlite");
+  g_autofree char *id = create_approved_wall (library, "EW-145", 145);
+  g_autoptr(LaminaConstruction) draft = lamina_library_dup_construction (library, id, 0, NULL);
+  g_autoptr(LaminaConstruction) variant = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *copy = NULL;
+
+  ((LaminaLayer *) draft->layers->pdata[1])->thickness = 195;
+  g_assert_true (lamina_library_save_construction (library, draft, 1, NULL, &error));
+  g_assert_cmpint (draft->revision, ==, 2);
+  copy = lamina_library_derive_job_variant (library, id, 1, "Test house", NULL, &error);
+  g_assert_no_error (error);
+  variant = lamina_library_dup_construction (library, copy, 0, &error);
+  g_assert_cmpint (variant->revision, ==, 1);
+  g_assert_cmpint (variant->status, ==, LAMINA_STATUS_DRAFT);
+  g_assert_null (variant->code);
+  g_assert_cmpstr (variant->name, ==, "EW-145 (variant for Test house)");
+  g_assert_cmpfloat (((LaminaLayer *) variant->layers->pdata[1])->thickness, ==, 145);
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -469,5 +494,6 @@ main (int   argc,
   g_test_add_func ("/store/jobs/migration", test_migration);
   g_test_add_func ("/store/jobs/climate-and-moisture", test_climate_and_moisture);
   g_test_add_func ("/store/jobs/import-unknown-climate", test_import_unknown_climate);
+  g_test_add_func ("/store/jobs/job-variant-revision", test_job_variant_revision);
   return g_test_run ();
 }
