@@ -29,7 +29,7 @@ struct _LaminaTargetDialog
   LaminaSolve         solve;
   gboolean            has_solve;
 
-  /* children */
+  /* template */
   GtkEntry           *target_entry;
   GtkLabel           *exact_label;
   GtkLabel           *build_label;
@@ -171,83 +171,37 @@ lamina_target_dialog_dispose (GObject *object)
 }
 
 static void
-lamina_target_dialog_class_init (LaminaTargetDialogClass *klass)
+on_cancel_clicked_cb (LaminaTargetDialog *self)
 {
-  G_OBJECT_CLASS (klass)->dispose = lamina_target_dialog_dispose;
-  gtk_widget_class_add_binding_action (GTK_WIDGET_CLASS (klass), GDK_KEY_Escape, 0, "window.close", NULL);
+  gtk_window_destroy (GTK_WINDOW (self));
 }
 
-static GtkWidget *
-new_label (const char *css)
+static void
+lamina_target_dialog_class_init (LaminaTargetDialogClass *klass)
 {
-  GtkWidget *label = gtk_label_new (NULL);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
 
-  gtk_label_set_xalign (GTK_LABEL (label), 0);
-  gtk_label_set_wrap (GTK_LABEL (label), TRUE);
-  gtk_label_set_selectable (GTK_LABEL (label), TRUE);
-  if (css != NULL)
-    gtk_widget_add_css_class (label, css);
-  return label;
+  G_OBJECT_CLASS (klass)->dispose = lamina_target_dialog_dispose;
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Escape, 0, "window.close", NULL);
+
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-target-dialog.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaTargetDialog, target_entry);
+  gtk_widget_class_bind_template_child (widget_class, LaminaTargetDialog, exact_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaTargetDialog, build_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaTargetDialog, chart);
+  gtk_widget_class_bind_template_child (widget_class, LaminaTargetDialog, apply_exact);
+  gtk_widget_class_bind_template_child (widget_class, LaminaTargetDialog, apply_build);
+  gtk_widget_class_bind_template_callback (widget_class, on_target_changed_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_cancel_clicked_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_apply_exact_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_apply_build_cb);
 }
 
 static void
 lamina_target_dialog_init (LaminaTargetDialog *self)
 {
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 8);
-  GtkWidget *row = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-  GtkWidget *buttons = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-  GtkWidget *prompt = gtk_label_new_with_mnemonic (_("_Target U"));
-  GtkWidget *cancel = gtk_button_new_with_mnemonic (_("_Cancel"));
-  GtkWidget *caution = new_label ("dim-label");
-
-  g_object_set (box, "margin-start", 12, "margin-end", 12, "margin-top", 12, "margin-bottom", 12, NULL);
-  self->target_entry = GTK_ENTRY (gtk_entry_new ());
-  gtk_entry_set_input_purpose (self->target_entry, GTK_INPUT_PURPOSE_NUMBER);
-  gtk_editable_set_width_chars (GTK_EDITABLE (self->target_entry), 8);
-  gtk_label_set_mnemonic_widget (GTK_LABEL (prompt), GTK_WIDGET (self->target_entry));
-  gtk_box_append (GTK_BOX (row), prompt);
-  gtk_box_append (GTK_BOX (row), GTK_WIDGET (self->target_entry));
-  gtk_box_append (GTK_BOX (row), gtk_label_new ("W/(m²·K)"));
-  gtk_box_append (GTK_BOX (box), row);
-
-  self->exact_label = GTK_LABEL (new_label (NULL));
-  self->build_label = GTK_LABEL (new_label ("heading"));
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (self->exact_label));
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (self->build_label));
-
-  self->chart = GTK_DRAWING_AREA (gtk_drawing_area_new ());
-  gtk_drawing_area_set_content_width (self->chart, 460);
-  gtk_drawing_area_set_content_height (self->chart, 260);
+  gtk_widget_init_template (GTK_WIDGET (self));
   gtk_drawing_area_set_draw_func (self->chart, draw_chart_cb, self, NULL);
-  gtk_widget_set_vexpand (GTK_WIDGET (self->chart), TRUE);
-  gtk_accessible_update_property (GTK_ACCESSIBLE (self->chart), GTK_ACCESSIBLE_PROPERTY_LABEL,
-                                  _("Chart of U against the layer's thickness with the target"), -1);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (self->chart));
-
-  gtk_label_set_text (GTK_LABEL (caution),
-                      _("By EN ISO 6946 with the layer's corrections; a stud layer grows with its studs. Use the "
-                        "product's declared λ and check the result against the local building code."));
-  gtk_widget_add_css_class (caution, "caption");
-  gtk_label_set_max_width_chars (GTK_LABEL (caution), 70);
-  gtk_box_append (GTK_BOX (box), caution);
-
-  self->apply_exact = gtk_button_new_with_mnemonic (_("Apply _Exact"));
-  self->apply_build = gtk_button_new_with_mnemonic (_("_Apply"));
-  gtk_widget_add_css_class (self->apply_build, "suggested-action");
-  gtk_widget_set_halign (buttons, GTK_ALIGN_END);
-  gtk_box_append (GTK_BOX (buttons), cancel);
-  gtk_box_append (GTK_BOX (buttons), self->apply_exact);
-  gtk_box_append (GTK_BOX (buttons), self->apply_build);
-  gtk_box_append (GTK_BOX (box), buttons);
-  gtk_window_set_child (GTK_WINDOW (self), box);
-  gtk_window_set_default_widget (GTK_WINDOW (self), self->apply_build);
-  gtk_entry_set_activates_default (self->target_entry, TRUE);
-
-  g_signal_connect_object (cancel, "clicked", G_CALLBACK (gtk_window_destroy), self, G_CONNECT_SWAPPED);
-  g_signal_connect_object (self->apply_exact, "clicked", G_CALLBACK (on_apply_exact_cb), self, G_CONNECT_SWAPPED);
-  g_signal_connect_object (self->apply_build, "clicked", G_CALLBACK (on_apply_build_cb), self, G_CONNECT_SWAPPED);
-  g_signal_connect_object (self->target_entry, "changed", G_CALLBACK (on_target_changed_cb), self,
-                           G_CONNECT_SWAPPED);
 }
 
 LaminaTargetDialog *
@@ -263,7 +217,7 @@ lamina_target_dialog_new (GtkWindow      *parent,
   c = lamina_document_get_construction (document);
   g_return_val_if_fail (c != NULL && index < c->layers->len, NULL);
 
-  self = g_object_new (LAMINA_TYPE_TARGET_DIALOG, "modal", TRUE, "transient-for", parent, NULL);
+  self = g_object_new (LAMINA_TYPE_TARGET_DIALOG, "transient-for", parent, NULL);
   self->document = g_object_ref (document);
   self->construction = lamina_construction_copy (c);
   self->index = index;
