@@ -1,0 +1,198 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The office library on a PostgreSQL server beside the SQLite file (issue
+ * 18), over the loopback, run by tests/store/pg-fixture:
+ *
+ *   pg-fixture bench-server [SIZE…]     (default 10000)
+ *
+ * For each size the same synthetic library (lamina_bench_make_construction)
+ * is imported once into a new file and once into a new database on the
+ * server (one lamina_library_import each, timed), then both are timed at
+ * what the window does: open, count and the first page of 50 by code,
+ * close; and prefix searches as typed (page of 50 by relevance + count).
+ * Wall-clock time (the server works in its own process); the file's figure
+ * is the floor, × the server's ratio to it.  Prints figures, judges
+ * nothing. */
+#define G_LOG_DOMAIN "lamina-bench"
+
+#include "lamina-bench.h"
+#include "lamina-library.h"
+
+#include <glib/gstdio.h>
+#include <libpq-fe.h>
+#include <stdlib.h>
+
+#define PAGE      50
+#define N_QUERIES 200
+
+static void
+admin (const char *sql)
+{
+  g_autofree char *conninfo = g_strdup_printf ("%s dbname=postgres", g_getenv ("LAMINA_TEST_PG"));
+  PGconn *conn = PQconnectdb (conninfo);
+  PGresult *res = PQexec (conn, sql);
+
+  if (PQresultStatus (res) != PGRES_COMMAND_OK)
+    g_error ("%s: %s", sql, PQerrorMessage (conn));
+  PQclear (res);
+  PQfinish (conn);
+}
+
+static double
+import_into (const char *location,
+             guint       n)
+{
+  g_autoptr(LaminaCatalogue) cat = lamina_catalogue_new ();
+  g_autoptr(GPtrArray) materials = lamina_bench_dup_materials ();
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaImportReport) report = NULL;
+  g_autoptr(GError) error = NULL;
+  double t0;
+
+  library = lamina_library_open (location, LAMINA_LIBRARY_OPEN_NO_SEED, &error);
+  if (library == NULL)
+    g_error ("cannot create %s: %s", location, error->message);
+  for (guint i = 0; i < materials->len; i++)
+    g_ptr_array_add (cat->materials, g_steal_pointer (&materials->pdata[i]));
+  for (guint i = 0; i < n; i++)
+    g_ptr_array_add (cat->constructions, lamina_bench_make_construction (LAMINA_BENCH_SEED, i));
+  t0 = lamina_bench_now_ms ();
+  report = lamina_library_import (library, cat, 0, "bench", &error);
+  if (report == NULL)
+    g_error ("cannot import %u constructions into %s: %s", n, location, error->message);
+  return lamina_bench_now_ms () - t0;
+}
+
+static double
+time_open_first_page (const char *location)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) page = NULL;
+  LaminaLibraryQuery q;
+  LaminaLibrary *library;
+  double t0 = lamina_bench_now_ms ();
+  gint64 count;
+
+  library = lamina_library_open (location, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  if (library == NULL)
+    g_error ("cannot open %s: %s", location, error->message);
+  lamina_library_query_init (&q);
+  q.limit = PAGE;
+  count = lamina_library_count (library, &q, &error);
+  page = lamina_library_search (library, &q, &error);
+  if (page == NULL || count < 0)
+    g_error ("first page: %s", error->message);
+  g_object_unref (library);
+  return lamina_bench_now_ms () - t0;
+}
+
+/* Median milliseconds of a query as typed, letter by letter. */
+static double
+time_search (const char *location,
+             double     *p90)
+{
+  static const char *const words[] = {
+    "timber", "mineral wool", "external wall", "pir board", "ew-001", "clay brick", "roof",
+    "wood fibre", "screed", "acoustic",
+  };
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) library = lamina_library_open (location, LAMINA_LIBRARY_OPEN_EXISTING,
+                                                          &error);
+  double times[N_QUERIES];
+  guint n = 0;
+
+  g_assert_no_error (error);
+  while (n < N_QUERIES)
+    for (guint w = 0; w < G_N_ELEMENTS (words) && n < N_QUERIES; w++)
+      for (gsize len = 1; words[w][len - 1] != '\0' && n < N_QUERIES; len++)
+        {
+          g_autofree char *text = g_strndup (words[w], len);
+          g_autoptr(GPtrArray) rows = NULL;
+          LaminaLibraryQuery q;
+          double t0 = lamina_bench_now_ms ();
+
+          lamina_library_query_init (&q);
+          q.text = text;
+          q.sort = LAMINA_SORT_RELEVANCE;
+          q.limit = PAGE;
+          rows = lamina_library_search (library, &q, &error);
+          if (rows == NULL || lamina_library_count (library, &q, &error) < 0)
+            g_error ("search “%s”: %s", text, error->message);
+          times[n++] = lamina_bench_now_ms () - t0;
+        }
+  *p90 = lamina_bench_percentile (times, n, 90);
+  return lamina_bench_median (times, n);
+}
+
+static void
+print_pair (const char *what,
+            guint       n,
+            const char *unit,
+            double      file,
+            double      server)
+{
+  LaminaBenchFigure figure;
+  g_autofree char *name = g_strdup_printf ("server.%s.n%u", what, n);
+
+  lamina_bench_figure_init (&figure, name, unit);
+  figure.value = server;
+  figure.spread = 0;
+  figure.floor = file;
+  figure.runs = 1;
+  figure.size = n;
+  lamina_bench_print (&figure);
+}
+
+static void
+bench_size (guint n)
+{
+  g_autofree char *dir = g_dir_make_tmp ("lamina-bench-server-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "bench.sqlite", NULL);
+  g_autofree char *db = g_strdup_printf ("bench_%u", n);
+  g_autofree char *sql = g_strdup_printf ("DROP DATABASE IF EXISTS %s; ", db);
+  g_autofree char *location = g_strdup_printf ("%s dbname=%s", g_getenv ("LAMINA_TEST_PG"), db);
+  guint runs = lamina_bench_runs ();
+  double file_open[31], server_open[31];
+  double file_import, server_import, file_search, server_search, p90_file, p90_server;
+
+  admin (sql);
+  g_free (sql);
+  sql = g_strdup_printf ("CREATE DATABASE %s", db);
+  admin (sql);
+  file_import = import_into (path, n);
+  server_import = import_into (location, n);
+  print_pair ("import", n, "ms", file_import, server_import);
+  for (guint r = 0; r < runs; r++)
+    {
+      file_open[r] = time_open_first_page (path);
+      server_open[r] = time_open_first_page (location);
+    }
+  print_pair ("open_first_page", n, "ms", lamina_bench_median (file_open, runs),
+              lamina_bench_median (server_open, runs));
+  file_search = time_search (path, &p90_file);
+  server_search = time_search (location, &p90_server);
+  print_pair ("prefix_search", n, "ms", file_search, server_search);
+  print_pair ("prefix_search_p90", n, "ms", p90_file, p90_server);
+  g_remove (path);
+  g_rmdir (dir);
+}
+
+int
+main (int    argc,
+      char **argv)
+{
+  /* The server does its work in its own process: only wall time compares. */
+  g_setenv ("LAMINA_BENCH_CLOCK", "wall", TRUE);
+  if (g_getenv ("LAMINA_TEST_PG") == NULL)
+    {
+      fprintf (stderr, "bench-server: run it through tests/store/pg-fixture "
+                       "(LAMINA_TEST_PG is not set)\n");
+      return 1;
+    }
+  printf ("The library on a PostgreSQL server over the loopback (value) beside the SQLite file "
+          "(floor); wall time\n");
+  if (argc < 2)
+    bench_size (10000);
+  for (int i = 1; i < argc; i++)
+    bench_size ((guint) atoi (argv[i]));
+  return 0;
+}
