@@ -162,8 +162,14 @@ preferences_action (GSimpleAction *action,
                     gpointer       data)
 {
   GtkApplication *app = data;
+  GtkWindow *parent = gtk_application_get_active_window (app);
+  GtkWindow *preferences = lamina_preferences_window_new (parent);
 
-  gtk_window_present (lamina_preferences_window_new (gtk_application_get_active_window (app)));
+  /* The settings kept in the library are those of the window's library. */
+  if (LAMINA_IS_WINDOW (parent))
+    lamina_preferences_window_set_library (LAMINA_PREFERENCES_WINDOW (preferences),
+                                           lamina_window_get_library (LAMINA_WINDOW (parent)));
+  gtk_window_present (preferences);
 }
 
 static void

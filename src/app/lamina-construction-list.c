@@ -253,6 +253,17 @@ lamina_construction_list_set_u_range (LaminaConstructionList *self,
 }
 
 void
+lamina_construction_list_set_moisture_fails (LaminaConstructionList *self,
+                                             gboolean                only)
+{
+  g_return_if_fail (LAMINA_IS_CONSTRUCTION_LIST (self));
+  if (self->query.moisture_fails_only == !!only)
+    return;
+  self->query.moisture_fails_only = !!only;
+  lamina_construction_list_refresh (self);
+}
+
+void
 lamina_construction_list_set_sort (LaminaConstructionList *self,
                                    LaminaSortKey           sort,
                                    gboolean                descending)

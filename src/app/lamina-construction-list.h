@@ -29,6 +29,9 @@ void  lamina_construction_list_set_tag      (LaminaConstructionList *self,
 void  lamina_construction_list_set_u_range  (LaminaConstructionList *self,
                                              double                  min_u,
                                              double                  max_u);
+/* Only the constructions that fail their EN ISO 13788 check. */
+void  lamina_construction_list_set_moisture_fails (LaminaConstructionList *self,
+                                                   gboolean                only);
 void  lamina_construction_list_set_sort     (LaminaConstructionList *self,
                                              LaminaSortKey           sort,
                                              gboolean                descending);

@@ -271,6 +271,8 @@ refresh (LaminaEditor *self)
                               lamina_document_get_calc_error (self->document));
   lamina_properties_view_update (self->properties_view, state, result);
   lamina_method_view_update (self->method_view, state, result);
+  lamina_moisture_view_set_limit (self->moisture_view,
+                                  lamina_library_get_moisture_limit (lamina_document_get_library (self->document)));
   lamina_moisture_view_update (self->moisture_view, state);
   self->updating = FALSE;
   update_material_flag (self);

@@ -52,8 +52,9 @@ lamina_library_row_set_summary (LaminaLibraryRow    *self,
   lamina_format_u (u, s->u_corrected);
   u_text = g_strdup_printf ("U %s", u);
   mm = lamina_text_mm (s->thickness);
-  detail = g_strdup_printf ("%s · %s%s", lamina_text_element_name (s->element), mm,
-                            (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _(" · material data changed") : "");
+  detail = g_strdup_printf ("%s · %s%s%s", lamina_text_element_name (s->element), mm,
+                            (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) ? _(" · material data changed") : "",
+                            (s->flags & LAMINA_SUMMARY_MOISTURE_FAILS) ? _(" · fails its moisture check") : "");
   gtk_label_set_text (self->code, s->code ? s->code : "—");
   gtk_label_set_text (self->name, s->name);
   gtk_label_set_text (self->detail, detail);
@@ -63,7 +64,8 @@ lamina_library_row_set_summary (LaminaLibraryRow    *self,
     gtk_widget_remove_css_class (GTK_WIDGET (self->status), status_classes[i]);
   gtk_widget_add_css_class (GTK_WIDGET (self->status), status_classes[s->status % 3]);
   set_css_class (GTK_WIDGET (self->u), "not-met", (s->flags & LAMINA_SUMMARY_TARGET_NOT_MET) != 0);
-  set_css_class (GTK_WIDGET (self->detail), "lamina-warning", (s->flags & LAMINA_SUMMARY_MATERIAL_CHANGED) != 0);
+  set_css_class (GTK_WIDGET (self->detail), "lamina-warning",
+                 (s->flags & (LAMINA_SUMMARY_MATERIAL_CHANGED | LAMINA_SUMMARY_MOISTURE_FAILS)) != 0);
 
   accessible = g_strdup_printf ("%s %s, %s, U %s, %s", s->code ? s->code : "", s->name,
                                 detail, u, lamina_text_status_name (s->status));

@@ -32,6 +32,7 @@ struct _LaminaMoistureView
   /* owned */
   LaminaConstruction   *construction;
   LaminaMoistureResult *result;
+  double                limit;   /* the office's, kg/m²; NAN: the default */
 };
 
 G_DEFINE_FINAL_TYPE (LaminaMoistureView, lamina_moisture_view, GTK_TYPE_WIDGET)
@@ -115,6 +116,8 @@ lamina_moisture_view_init (LaminaMoistureView *self)
 {
   const char *months[LAMINA_MONTHS + 1];
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6), *row, *heading;
+
+  self->limit = NAN;
 
   for (int m = 0; m < LAMINA_MONTHS; m++)
     months[m] = lamina_month_name (m + 1);
@@ -207,7 +210,7 @@ lamina_moisture_view_update (LaminaMoistureView       *self,
   if (construction != NULL && construction->moisture != NULL)
     {
       self->construction = lamina_construction_copy (construction);
-      self->result = lamina_moisture_calculate_own (construction, NAN, &error);
+      self->result = lamina_moisture_calculate_own (construction, self->limit, &error);
     }
   if (self->result != NULL)
     {
@@ -231,6 +234,14 @@ lamina_moisture_view_update (LaminaMoistureView       *self,
   gtk_widget_set_visible (GTK_WIDGET (self->bars), self->result != NULL);
   gtk_widget_queue_draw (GTK_WIDGET (self->plot));
   gtk_widget_queue_draw (GTK_WIDGET (self->bars));
+}
+
+void
+lamina_moisture_view_set_limit (LaminaMoistureView *self,
+                                double              limit)
+{
+  g_return_if_fail (LAMINA_IS_MOISTURE_VIEW (self));
+  self->limit = LAMINA_MOISTURE_LIMIT_IS_VALID (limit) ? limit : NAN;
 }
 
 void

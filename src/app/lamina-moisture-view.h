@@ -14,6 +14,10 @@ G_BEGIN_DECLS
 G_DECLARE_FINAL_TYPE (LaminaMoistureView, lamina_moisture_view, LAMINA, MOISTURE_VIEW, GtkWidget)
 
 /* Recalculates for @construction (NULL clears). */
+/* The office's limit on the largest accumulation the check uses from the
+ * next update (kg/m²; NAN: the default). */
+void        lamina_moisture_view_set_limit   (LaminaMoistureView       *self,
+                                              double                    limit);
 void        lamina_moisture_view_update      (LaminaMoistureView       *self,
                                               const LaminaConstruction *construction);
 /* The month plotted (1–12) and the abscissa (sd or thickness). */

@@ -13,6 +13,7 @@
 #include "lamina-demo.h"
 #include "lamina-history-window.h"
 #include "lamina-materials-window.h"
+#include "lamina-climates-window.h"
 #include "lamina-window-private.h"
 
 static char *
@@ -380,6 +381,16 @@ materials_action (GtkWidget  *widget,
 }
 
 static void
+climates_action (GtkWidget  *widget,
+                 const char *name,
+                 GVariant   *parameter)
+{
+  LaminaWindow *self = LAMINA_WINDOW (widget);
+
+  lamina_climates_window_present (GTK_WINDOW (self), self->library);
+}
+
+static void
 load_demo_action (GtkWidget  *widget,
                   const char *name,
                   GVariant   *parameter)
@@ -424,6 +435,7 @@ lamina_window_install_actions (GtkWidgetClass *widget_class)
   gtk_widget_class_install_action (widget_class, "win.conflict-keep", NULL, conflict_action);
   gtk_widget_class_install_action (widget_class, "win.conflict-reload", NULL, conflict_action);
   gtk_widget_class_install_action (widget_class, "win.materials", NULL, materials_action);
+  gtk_widget_class_install_action (widget_class, "win.climates", NULL, climates_action);
   gtk_widget_class_install_action (widget_class, "win.search", NULL, search_action);
   gtk_widget_class_install_action (widget_class, "win.load-demo", NULL, load_demo_action);
   lamina_window_install_export_actions (widget_class);

@@ -21,6 +21,7 @@ struct _LaminaWindow
   GtkDropDown            *status_filter;
   GtkDropDown            *sort_dropdown;
   GtkDropDown            *tag_filter;
+  GtkCheckButton         *moisture_filter;
   GtkEntry               *min_u_entry;
   GtkEntry               *max_u_entry;
   GtkListView            *list_view;

@@ -155,7 +155,7 @@ is_filtered (const LaminaLibraryQuery *q)
 {
   return (q->text != NULL && !lamina_text_is_blank (q->text)) || q->element >= 0 || q->status >= 0
          || q->tag != NULL || !isnan (q->min_u) || !isnan (q->max_u) || !isnan (q->min_thickness)
-         || !isnan (q->max_thickness) || q->material_changed_only;
+         || !isnan (q->max_thickness) || q->material_changed_only || q->moisture_fails_only;
 }
 
 /* The number of rows, or why the library could not be read (a busy or
@@ -275,6 +275,12 @@ on_tag_chip_clicked_cb (LaminaWindow *self)
   gtk_drop_down_set_selected (self->tag_filter, 0);
 }
 
+static void
+on_moisture_chip_clicked_cb (LaminaWindow *self)
+{
+  gtk_check_button_set_active (self->moisture_filter, FALSE);
+}
+
 /* A chip that says @text and clears its filter by @clear_cb. */
 static void
 add_chip (LaminaWindow *self,
@@ -323,6 +329,8 @@ update_chips (LaminaWindow *self,
 
       add_chip (self, G_CALLBACK (on_tag_chip_clicked_cb), text);
     }
+  if (gtk_check_button_get_active (self->moisture_filter))
+    add_chip (self, G_CALLBACK (on_moisture_chip_clicked_cb), _("Fails its moisture check"));
   gtk_widget_set_visible (GTK_WIDGET (self->filter_chips),
                           gtk_widget_get_first_child (GTK_WIDGET (self->filter_chips)) != NULL);
 }
@@ -348,6 +356,7 @@ on_filters_changed_cb (LaminaWindow *self)
   lamina_construction_list_set_tag (self->list, tag == 0 || tag == GTK_INVALID_LIST_POSITION || self->tags == NULL || tag > self->tags->len
                                     ? NULL : g_ptr_array_index (self->tags, tag - 1));
   lamina_construction_list_set_u_range (self->list, min_u, max_u);
+  lamina_construction_list_set_moisture_fails (self->list, gtk_check_button_get_active (self->moisture_filter));
   lamina_construction_list_set_sort (self->list, sorts[MIN (sort, G_N_ELEMENTS (sorts) - 1)],
                                      sort == 4 /* newest first */);
   self->selecting = FALSE;
@@ -416,6 +425,7 @@ setup_filters (LaminaWindow *self)
   g_signal_connect_object (self->status_filter, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (self->sort_dropdown, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (self->tag_filter, "notify::selected", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->moisture_filter, "notify::active", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (self->min_u_entry, "changed", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (self->max_u_entry, "changed", G_CALLBACK (on_filters_changed_cb), self, G_CONNECT_SWAPPED);
 }
@@ -595,6 +605,7 @@ lamina_window_class_init (LaminaWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, status_filter);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, sort_dropdown);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, tag_filter);
+  gtk_widget_class_bind_template_child (widget_class, LaminaWindow, moisture_filter);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, min_u_entry);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, max_u_entry);
   gtk_widget_class_bind_template_child (widget_class, LaminaWindow, list_view);
@@ -677,6 +688,13 @@ lamina_window_get_list (LaminaWindow *self)
 {
   g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
   return self->list;
+}
+
+LaminaLibrary *
+lamina_window_get_library (LaminaWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_WINDOW (self), NULL);
+  return self->library;
 }
 
 LaminaEditor *

@@ -18,6 +18,7 @@ LaminaWindow           *lamina_window_new          (GtkApplication    *applicati
                                                     LaminaLibrary     *library);
 LaminaConstructionList *lamina_window_get_list     (LaminaWindow      *self);
 LaminaEditor           *lamina_window_get_editor   (LaminaWindow      *self);
+LaminaLibrary          *lamina_window_get_library  (LaminaWindow      *self);
 /* The Jobs view, and switching views ("library", "jobs"). */
 LaminaJobsPage         *lamina_window_get_jobs_page (LaminaWindow     *self);
 void                    lamina_window_show_view    (LaminaWindow      *self,

@@ -44,6 +44,8 @@ static const LaminaNumberRange ranges[LAMINA_N_FIELDS] = {
   [LAMINA_FIELD_LENGTH]              = { N_("length"), "m", 0, 1e5, TRUE },
   [LAMINA_FIELD_PSI]                 = { N_("linear thermal transmittance ψ"), "W/(m·K)", -10, 10, FALSE },
   [LAMINA_FIELD_TEMPERATURE_FACTOR]  = { N_("temperature factor fRsi"), "", 0, 1, FALSE },
+  [LAMINA_FIELD_RELATIVE_HUMIDITY]   = { N_("relative humidity"), "%", 0, 100, FALSE },
+  [LAMINA_FIELD_MOISTURE_LIMIT]      = { N_("moisture limit"), "kg/m²", 0, 1000, TRUE },
 };
 
 /* Other spellings of a unit that people type (ASCII forms). */

@@ -42,6 +42,8 @@ typedef enum
   LAMINA_FIELD_LENGTH,               /* a length in m (perimeter, B′, junction), above 0 to 100000 */
   LAMINA_FIELD_PSI,                  /* ψ, W/(m·K), −10 to 10 */
   LAMINA_FIELD_TEMPERATURE_FACTOR,   /* fRsi, 0 to 1 */
+  LAMINA_FIELD_RELATIVE_HUMIDITY,    /* %, 0 to 100 */
+  LAMINA_FIELD_MOISTURE_LIMIT,       /* kg/m², above 0 to 1000 (LAMINA_MOISTURE_LIMIT_MAX) */
   LAMINA_N_FIELDS
 } LaminaNumberField;
 
