@@ -1,7 +1,9 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* The window on a library that a colleague writes to at the same time
  * (here lamina-cli, a second process on the same SQLite file), under
- * Xvfb: the open construction's banner names who changed it and what,
+ * Xvfb, on a file and (app-office-pg) on a PostgreSQL server, where the
+ * change arrives as the server's notification: the open construction's
+ * banner names who changed it and what,
  * Reload shows the new state, Keep editing keeps the user's state on
  * screen and the stale-save refusal still guards the save.  And the
  * "Open Office Library…" dialog: the connection string it builds, the
@@ -31,6 +33,40 @@ typedef struct
   LaminaWindow  *window;
 } Fixture;
 
+/* Under tests/store/pg-fixture (app-office-pg) every library is a new
+ * database on the throwaway server, the office's shared library; else a
+ * file. */
+static gboolean
+on_server (void)
+{
+  return g_getenv ("LAMINA_TEST_PG") != NULL;
+}
+
+static char *
+new_server_library (void)
+{
+  static guint n;
+  g_autofree char *name = g_strdup_printf ("office_%u", ++n);
+  g_autofree char *admin = g_strdup_printf ("%s dbname=postgres", g_getenv ("LAMINA_TEST_PG"));
+  g_autofree char *psql = g_find_program_in_path ("psql");
+  const char *argv[] = { psql, "-q", "-v", "ON_ERROR_STOP=1", "-d", admin, "-c", NULL, NULL };
+  g_autoptr(GError) error = NULL;
+  int status = 0;
+
+  g_assert_nonnull (psql);
+  for (guint i = 0; i < 2; i++)
+    {
+      /* One statement per call: CREATE DATABASE runs outside a transaction. */
+      g_autofree char *one = g_strdup_printf (i == 0 ? "DROP DATABASE IF EXISTS %s" : "CREATE DATABASE %s", name);
+
+      argv[7] = one;
+      g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_DEFAULT, NULL, NULL, NULL, NULL, &status, &error));
+      g_assert_no_error (error);
+      g_assert_true (WIFEXITED (status) && WEXITSTATUS (status) == 0);
+    }
+  return g_strdup_printf ("%s dbname=%s", g_getenv ("LAMINA_TEST_PG"), name);
+}
+
 static void
 fixture_setup (Fixture       *f,
                gconstpointer  data)
@@ -39,7 +75,7 @@ fixture_setup (Fixture       *f,
 
   f->dir = g_dir_make_tmp ("lamina-office-XXXXXX", &error);
   g_assert_no_error (error);
-  f->path = g_build_filename (f->dir, "library.sqlite", NULL);
+  f->path = on_server () ? new_server_library () : g_build_filename (f->dir, "library.sqlite", NULL);
   f->library = lamina_library_open (f->path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
   g_assert_no_error (error);
   g_assert_true (lamina_demo_load (f->library, &error));
@@ -339,6 +375,42 @@ test_dialog_open_fails (Fixture       *f,
   gtk_window_destroy (GTK_WINDOW (dialog));
 }
 
+/* On the server: the dialog opens the office's library from its URI,
+ * remembers the server (without a password) and hands the library over. */
+static void
+on_opened_keep_cb (LaminaOfficeDialog *dialog,
+                   LaminaLibrary      *library,
+                   LaminaLibrary     **opened)
+{
+  *opened = g_object_ref (library);
+}
+
+static void
+test_dialog_opens_server (Fixture       *f,
+                          gconstpointer  data)
+{
+  g_autoptr(GSettings) settings = lamina_settings_new ();
+  g_autoptr(LaminaLibrary) opened = NULL;
+  g_autofree char *uri = g_strdup_printf ("%s/%s", g_getenv ("LAMINA_TEST_PG_URI"),
+                                          strstr (f->path, "dbname=") + strlen ("dbname="));
+  LaminaOfficeDialog *dialog = lamina_office_dialog_new (GTK_WINDOW (f->window));
+  g_auto(GStrv) recent = NULL;
+  LaminaLibraryQuery query;
+
+  g_settings_set_strv (settings, "recent-servers", NULL);
+  g_signal_connect (dialog, "library-opened", G_CALLBACK (on_opened_keep_cb), &opened);
+  gtk_window_present (GTK_WINDOW (dialog));
+  gtk_editable_set_text (GTK_EDITABLE (dialog->service_entry), uri);
+  g_signal_emit_by_name (dialog->open_button, "clicked");
+  g_assert_nonnull (opened);
+  lamina_library_query_init (&query);
+  g_assert_cmpint (lamina_library_count (opened, &query, NULL), ==, lamina_library_count (f->library, &query, NULL));
+  recent = g_settings_get_strv (settings, "recent-servers");
+  g_assert_cmpuint (g_strv_length (recent), ==, 1);
+  g_assert_cmpstr (recent[0], ==, uri);
+  g_settings_set_strv (settings, "recent-servers", NULL);
+}
+
 /* Recent servers fill the fields they were made from. */
 static void
 test_dialog_recent (Fixture       *f,
@@ -396,5 +468,7 @@ main (int    argc,
   g_test_add ("/app/office/dialog-open-fails", Fixture, NULL, fixture_setup, test_dialog_open_fails, fixture_teardown);
   g_test_add ("/app/office/dialog-recent", Fixture, NULL, fixture_setup, test_dialog_recent, fixture_teardown);
   g_test_add ("/app/office/present-library", Fixture, NULL, fixture_setup, test_present_library, fixture_teardown);
+  if (on_server ())
+    g_test_add ("/app/office/dialog-opens-server", Fixture, NULL, fixture_setup, test_dialog_opens_server, fixture_teardown);
   return g_test_run ();
 }
