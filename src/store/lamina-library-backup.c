@@ -387,46 +387,17 @@ copy_raw (const char  *from,
   return TRUE;
 }
 
-gboolean
-lamina_library_restore_backup (const char  *library_path,
-                               const char  *backup,
-                               const char  *dir,
-                               char       **kept,
-                               GError     **error)
+/* @backup (a checked copy) into the library at @library_path. */
+static gboolean
+restore_checked (const char  *library_path,
+                 const char  *backup,
+                 const char  *dir,
+                 char       **kept,
+                 GError     **error)
 {
-  g_autoptr(LaminaLibrary) source = NULL;
   g_autoptr(LaminaLibrary) current = NULL;
-  g_autoptr(LaminaVerifyReport) report = NULL;
   g_autoptr(GError) local = NULL;
-  g_autofree char *own_dir = NULL;
   g_autofree char *copy = NULL;
-
-  g_return_val_if_fail (library_path != NULL && backup != NULL, FALSE);
-
-  /* A server library is kept by the server's own backups. */
-  if (strstr (library_path, "://") != NULL || g_str_has_prefix (library_path, "postgres"))
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_FAILED,
-                   "%s: restoring a backup file is not supported for this library", library_path);
-      return FALSE;
-    }
-
-  /* The copy must be a sound library before anything is touched. */
-  source = lamina_library_open (backup, LAMINA_LIBRARY_OPEN_READ_ONLY, error);
-  if (source == NULL)
-    return FALSE;
-  report = lamina_library_verify (source, error);
-  if (report == NULL)
-    return FALSE;
-  if (report->problems->len > 0)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT,
-                   "%s: this backup is not sound (%s); nothing was changed",
-                   backup, (char *) report->problems->pdata[0]);
-      return FALSE;
-    }
-  if (dir == NULL)
-    dir = own_dir = lamina_backup_dup_dir_for_path (library_path);
 
   if (g_file_test (library_path, G_FILE_TEST_EXISTS))
     current = lamina_library_open (library_path, LAMINA_LIBRARY_OPEN_EXISTING, &local);
@@ -521,4 +492,80 @@ lamina_library_restore_backup (const char  *library_path,
   if (kept != NULL)
     *kept = g_steal_pointer (&copy);
   return TRUE;
+}
+
+static void
+remove_file_and_journal (const char *path)
+{
+  g_autofree char *wal = g_strconcat (path, "-wal", NULL);
+  g_autofree char *shm = g_strconcat (path, "-shm", NULL);
+
+  g_unlink (wal);
+  g_unlink (shm);
+  g_unlink (path);
+}
+
+gboolean
+lamina_library_restore_backup (const char  *library_path,
+                               const char  *backup,
+                               const char  *dir,
+                               char       **kept,
+                               GError     **error)
+{
+  g_autoptr(LaminaLibrary) source = NULL;
+  g_autoptr(GError) local = NULL;
+  g_autoptr(GPtrArray) problems = g_ptr_array_new_with_free_func (g_free);
+  g_autofree char *own_dir = NULL;
+  g_autofree char *stem = NULL;
+  g_autofree char *library_dir = NULL;
+  g_autofree char *checked = NULL;
+  gboolean ok;
+
+  g_return_val_if_fail (library_path != NULL && backup != NULL, FALSE);
+
+  /* A server library is kept by the server's own backups. */
+  if (strstr (library_path, "://") != NULL || g_str_has_prefix (library_path, "postgres"))
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_FAILED,
+                   "%s: restoring a backup file is not supported for this library", library_path);
+      return FALSE;
+    }
+  if (dir == NULL)
+    dir = own_dir = lamina_backup_dup_dir_for_path (library_path);
+
+  /* The copy is checked, and brought up to this version's format if it
+   * is older, as a working copy beside the library: the backup itself is
+   * never changed, and a bad one is refused before anything is touched. */
+  stem = stem_of (library_path);
+  library_dir = g_path_get_dirname (library_path);
+  checked = g_strdup_printf ("%s/.%s-restoring-%ld.sqlite", library_dir, stem, (long) getpid ());
+  remove_file_and_journal (checked);
+  if (g_mkdir_with_parents (library_dir, 0777) != 0 || !copy_raw (backup, checked, &local))
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                   "%s: cannot read the backup into %s: %s", backup, library_dir,
+                   local ? local->message : g_strerror (errno));
+      remove_file_and_journal (checked);
+      return FALSE;
+    }
+  source = lamina_library_open (checked, LAMINA_LIBRARY_OPEN_EXISTING, &local);
+  if (source != NULL && lamina_library_get_backup_path (source) != NULL)
+    g_unlink (lamina_library_get_backup_path (source));
+  if (source != NULL && VT (source)->verify_storage != NULL
+      && !VT (source)->verify_storage (BE (source), problems, &local))
+    g_clear_object (&source);
+  if (source == NULL || problems->len > 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT,
+                   "%s: this backup is not a sound library (%s); nothing was changed", backup,
+                   problems->len > 0 ? (char *) problems->pdata[0] : local->message);
+      g_clear_object (&source);
+      remove_file_and_journal (checked);
+      return FALSE;
+    }
+  /* Closed: one file again, the journal folded in. */
+  g_clear_object (&source);
+  ok = restore_checked (library_path, checked, dir, kept, error);
+  remove_file_and_journal (checked);
+  return ok;
 }

@@ -203,14 +203,21 @@ copy_database (LaminaSqlite  *self,
     }
   /* All pages in one step: a consistent copy.  The busy handler of the
    * connection waits for a writer like any other write. */
-  do
+  /* The busy handler has waited its timeout already when a step says
+   * BUSY; a few more tries cover a lock taken between two steps. */
+  for (int tries = 0;; tries++)
     {
       rc = sqlite3_backup_step (backup, -1);
-      if (rc == SQLITE_BUSY || rc == SQLITE_LOCKED)
-        g_usleep (50000);
+      if ((rc != SQLITE_BUSY && rc != SQLITE_LOCKED) || tries >= 20)
+        break;
+      g_usleep (50000);
     }
-  while (rc == SQLITE_BUSY || rc == SQLITE_LOCKED);
   sqlite3_backup_finish (backup);
+  if (rc == SQLITE_BUSY || rc == SQLITE_LOCKED)
+    {
+      lamina_sqlite_set_busy_error (self, error);
+      return FALSE;
+    }
   if (rc != SQLITE_DONE)
     {
       g_set_error (error, LAMINA_LIBRARY_ERROR,

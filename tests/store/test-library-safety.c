@@ -12,6 +12,7 @@
 #include <unistd.h>
 
 #include "lamina-library-safety.h"
+#include "lamina-sqlite-private.h"
 #include "lamina-store-test-util.h"
 
 #include "lamina-cli-test-util.h"
@@ -602,6 +603,40 @@ test_restore (void)
     g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_CORRUPT);
     g_clear_error (&error);
     g_unlink (bad);
+  }
+
+  /* A copy made before this version's format (an upgrade since): it is
+   * brought up to date on the way in, and the copy itself is untouched. */
+  {
+    g_autofree char *old_copy = g_strconcat (backup, ".old.sqlite", NULL);
+    g_autofree char *sum = NULL;
+    g_autofree char *sum_after = NULL;
+
+    g_assert_true (lamina_sqlite_create_at_version (old_copy, LAMINA_LIBRARY_SCHEMA_VERSION - 1, &error));
+    g_assert_no_error (error);
+    sum = test_checksum (old_copy);
+    g_clear_pointer (&kept, g_free);
+    g_assert_true (lamina_library_restore_backup (path, old_copy, NULL, &kept, &error));
+    g_assert_no_error (error);
+    sum_after = test_checksum (old_copy);
+    g_assert_cmpstr (sum, ==, sum_after);
+    g_assert_cmpuint (count_constructions (path), ==, 0);
+    {
+      g_autoptr(LaminaLibrary) reopened = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+
+      g_assert_no_error (error);
+      g_assert_cmpint (lamina_library_get_opened_version (reopened), ==, LAMINA_LIBRARY_SCHEMA_VERSION);
+    }
+    g_unlink (old_copy);
+    /* No working copies are left beside the library. */
+    {
+      g_autofree char *folder = g_path_get_dirname (path);
+      g_autoptr(GDir) d = g_dir_open (folder, 0, NULL);
+      const char *name;
+
+      while ((name = g_dir_read_name (d)) != NULL)
+        g_assert_false (g_str_has_prefix (name, ".restore-restoring"));
+    }
   }
 
   /* The command asks first (no answer, "n": not restored; "y": restored);
