@@ -319,7 +319,8 @@ rotate (const char *library_path,
   g_autoptr(GPtrArray) list = lamina_backup_list (library_path, dir);
 
   for (guint i = keep; i < list->len; i++)
-    if (g_unlink (list->pdata[i]) != 0)
+    /* Another program rotating at the same moment may have been first. */
+    if (g_unlink (list->pdata[i]) != 0 && errno != ENOENT)
       g_warning ("%s: cannot remove an old backup: %s", (char *) list->pdata[i],
                  g_strerror (errno));
 }
