@@ -25,7 +25,7 @@ struct _LaminaCompareWindow
   char               *label_a;
   char               *label_b;
 
-  /* children */
+  /* template */
   GtkEntry           *b_entry;
   GtkLabel           *message;
   GtkDrawingArea     *page;
@@ -194,47 +194,25 @@ lamina_compare_window_dispose (GObject *object)
 static void
 lamina_compare_window_class_init (LaminaCompareWindowClass *klass)
 {
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
   G_OBJECT_CLASS (klass)->dispose = lamina_compare_window_dispose;
-  gtk_widget_class_add_binding_action (GTK_WIDGET_CLASS (klass), GDK_KEY_Escape, 0, "window.close", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Escape, 0, "window.close", NULL);
+
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-compare-window.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaCompareWindow, b_entry);
+  gtk_widget_class_bind_template_child (widget_class, LaminaCompareWindow, message);
+  gtk_widget_class_bind_template_child (widget_class, LaminaCompareWindow, page);
+  gtk_widget_class_bind_template_child (widget_class, LaminaCompareWindow, export_button);
+  gtk_widget_class_bind_template_callback (widget_class, on_b_activate_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_export_clicked_cb);
 }
 
 static void
 lamina_compare_window_init (LaminaCompareWindow *self)
 {
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
-  GtkWidget *bar = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-  GtkWidget *prompt = gtk_label_new_with_mnemonic (_("Compare with _B"));
-
-  g_object_set (box, "margin-start", 8, "margin-end", 8, "margin-top", 8, "margin-bottom", 8, NULL);
-  self->b_entry = GTK_ENTRY (gtk_entry_new ());
-  gtk_entry_set_placeholder_text (self->b_entry, _("code, or CODE@revision"));
-  gtk_label_set_mnemonic_widget (GTK_LABEL (prompt), GTK_WIDGET (self->b_entry));
-  self->export_button = gtk_button_new_with_mnemonic (_("_Export PDF…"));
-  self->message = GTK_LABEL (gtk_label_new (NULL));
-  gtk_label_set_xalign (self->message, 0);
-  gtk_label_set_ellipsize (self->message, PANGO_ELLIPSIZE_END);
-  gtk_widget_set_hexpand (GTK_WIDGET (self->message), TRUE);
-  gtk_widget_add_css_class (GTK_WIDGET (self->message), "dim-label");
-  gtk_box_append (GTK_BOX (bar), prompt);
-  gtk_box_append (GTK_BOX (bar), GTK_WIDGET (self->b_entry));
-  gtk_box_append (GTK_BOX (bar), GTK_WIDGET (self->message));
-  gtk_box_append (GTK_BOX (bar), self->export_button);
-  gtk_box_append (GTK_BOX (box), bar);
-
-  self->page = GTK_DRAWING_AREA (gtk_drawing_area_new ());
-  gtk_drawing_area_set_content_width (self->page, 600);
-  gtk_drawing_area_set_content_height (self->page, 820);
-  gtk_widget_set_vexpand (GTK_WIDGET (self->page), TRUE);
+  gtk_widget_init_template (GTK_WIDGET (self));
   gtk_drawing_area_set_draw_func (self->page, draw_page_cb, self, NULL);
-  gtk_accessible_update_property (GTK_ACCESSIBLE (self->page), GTK_ACCESSIBLE_PROPERTY_LABEL,
-                                  _("The comparison page: both sections and every figure with the difference"), -1);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (self->page));
-  gtk_window_set_child (GTK_WINDOW (self), box);
-  gtk_window_set_default_size (GTK_WINDOW (self), 680, 960);
-
-  g_signal_connect_object (self->b_entry, "activate", G_CALLBACK (on_b_activate_cb), self, G_CONNECT_SWAPPED);
-  g_signal_connect_object (self->export_button, "clicked", G_CALLBACK (on_export_clicked_cb), self,
-                           G_CONNECT_SWAPPED);
 }
 
 LaminaCompareWindow *
