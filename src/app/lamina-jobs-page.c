@@ -362,6 +362,7 @@ create_schedule_row (LaminaJobsPage      *self,
   g_autofree char *code = g_strdup_printf ("%s r%d", c && c->code ? c->code : line->entry->construction,
                                            line->entry->revision);
   g_autofree char *moisture = lamina_job_line_dup_moisture_text (line);
+  g_autofree char *variant = lamina_revision_diff_dup_variant_text (self->library, line->entry);
 
   gtk_box_append (GTK_BOX (top), create_label (code, 10, 0));
   gtk_widget_add_css_class (gtk_widget_get_last_child (top), "lamina-row-code");
@@ -395,19 +396,10 @@ create_schedule_row (LaminaJobsPage      *self,
   gtk_box_append (GTK_BOX (top), create_icon_button (self, "user-trash-symbolic", _("Remove the entry"), line->entry->n,
                                                        G_CALLBACK (on_remove_clicked_cb)));
   gtk_box_append (GTK_BOX (box), top);
-  if (lamina_job_entry_is_variant (line->entry))
+  if (variant != NULL)
     {
-      g_autoptr(GPtrArray) differences = lamina_jobs_page_dup_differences (self, line->entry->n);
-      g_autoptr(GString) text = g_string_new (NULL);
-      GtkWidget *label;
+      GtkWidget *label = create_label (variant, 0, 0);
 
-      g_string_printf (text, _("Job variant of %s revision %d"), line->entry->origin,
-                       line->entry->origin_revision);
-      for (guint i = 0; i < differences->len; i++)
-        g_string_append_printf (text, "%s %s", i == 0 ? ":" : ";", (const char *) differences->pdata[i]);
-      if (differences->len == 0)
-        g_string_append (text, _(": no difference yet"));
-      label = create_label (text->str, 0, 0);
       gtk_label_set_wrap (GTK_LABEL (label), TRUE);
       gtk_widget_add_css_class (label, "caption");
       gtk_box_append (GTK_BOX (box), label);
@@ -819,12 +811,18 @@ lamina_jobs_page_export (LaminaJobsPage  *self,
                          GError         **error)
 {
   g_autofree char *practice = NULL;
+  g_autoptr(LaminaJobReport) report = NULL;
   LaminaSheetOptions options;
 
   g_return_val_if_fail (self->report != NULL, FALSE);
   init_options (self, &options, &practice);
-  return lamina_sheet_write_job (path, TRUE, &options, self->report->job, self->report->targets,
-                                 self->report->check, error);
+  /* A fresh check of its own: the variants' notes go on the sheets only. */
+  report = lamina_library_check_job (self->library, self->report->job->id, error);
+  if (report == NULL)
+    return FALSE;
+  lamina_revision_diff_note_variants (self->library, report);
+  return lamina_sheet_write_job (path, TRUE, &options, report->job, report->targets,
+                                 report->check, error);
 }
 
 /* Entry 0 is the whole set. */

@@ -465,6 +465,8 @@ lamina_cli_job_sheets (const LaminaCliGlobals *globals,
     return LAMINA_EXIT_BAD_INPUT;
   options.moisture_limit = lamina_library_get_moisture_limit (library);
   report = lamina_library_check_job (library, argv[1], &error);
+  if (report != NULL)
+    lamina_revision_diff_note_variants (library, report);
   if (report == NULL
       || !lamina_sheet_write_job (output, globals->force, &options, report->job, report->targets,
                                   report->check, &error))

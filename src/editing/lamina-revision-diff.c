@@ -161,5 +161,44 @@ lamina_revision_diff_job_entry (LaminaLibrary        *library,
       g_ptr_array_add (differences, g_strdup (error->message));
       return differences;
     }
+  /* A variant's own name and code (a copy has none) say which it is; what
+   * it changes is the rest. */
+  g_free (variant->name);
+  variant->name = g_strdup (origin->name);
+  g_free (variant->code);
+  variant->code = g_strdup (origin->code);
   return lamina_revision_diff (origin, variant);
+}
+
+char *
+lamina_revision_diff_dup_variant_text (LaminaLibrary        *library,
+                                       const LaminaJobEntry *entry)
+{
+  g_autoptr(GPtrArray) differences = lamina_revision_diff_job_entry (library, entry);
+  g_autoptr(GString) text = NULL;
+
+  if (differences == NULL)
+    return NULL;
+  text = g_string_new (NULL);
+  g_string_printf (text, _("Job variant of %s revision %d"), entry->origin, entry->origin_revision);
+  for (guint k = 0; k < differences->len; k++)
+    g_string_append_printf (text, "%s %s", k == 0 ? ":" : ";", (const char *) differences->pdata[k]);
+  if (differences->len == 0)
+    g_string_append (text, _(": no difference yet"));
+  g_string_append_c (text, '.');
+  return g_string_free (g_steal_pointer (&text), FALSE);
+}
+
+void
+lamina_revision_diff_note_variants (LaminaLibrary   *library,
+                                    LaminaJobReport *report)
+{
+  for (guint i = 0; i < report->check->lines->len; i++)
+    {
+      LaminaJobLine *line = report->check->lines->pdata[i];
+      char *text = lamina_revision_diff_dup_variant_text (library, line->entry);
+
+      if (text != NULL)
+        g_ptr_array_add (line->notes, text);
+    }
 }

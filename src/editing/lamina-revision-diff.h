@@ -13,9 +13,19 @@ GPtrArray *lamina_revision_diff (const LaminaConstruction *older,
                                  const LaminaConstruction *newer);
 
 /* What job variant @entry changes from its origin at the origin's pinned
- * revision (sentences as above; one sentence saying what is missing when
+ * revision, its own name and code aside (sentences as above; one sentence saying what is missing when
  * either revision is not in @library); NULL when @entry is no variant. */
 GPtrArray *lamina_revision_diff_job_entry (LaminaLibrary        *library,
                                            const LaminaJobEntry *entry);
+
+/* "Job variant of ORIGIN revision N: what differs." for @entry; NULL when
+ * it is no variant. */
+char      *lamina_revision_diff_dup_variant_text (LaminaLibrary        *library,
+                                                  const LaminaJobEntry *entry);
+/* Adds to each job variant's line of @report's check one note naming its
+ * origin and what it changes (what the sheet set prints under the
+ * entry). */
+void       lamina_revision_diff_note_variants (LaminaLibrary   *library,
+                                               LaminaJobReport *report);
 
 G_END_DECLS
