@@ -122,7 +122,9 @@ test_edit_climates (Fixture       *f,
   g_assert_false (lamina_climates_window_delete (w, &error));
   g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IN_USE);
   g_clear_error (&error);
-  g_assert_nonnull (lamina_library_dup_climate (f->library, "fallowmere", NULL));
+  g_clear_pointer (&stored, lamina_climate_free);
+  stored = lamina_library_dup_climate (f->library, "fallowmere", NULL);
+  g_assert_nonnull (stored);
 
   /* a new one: refused without its months, stored with them, then deleted */
   lamina_climates_window_new_climate (w);

@@ -260,6 +260,9 @@ test_daily (void)
   g_assert_cmpint (run (&out, &err, "show", "EW-302", NULL), ==, 0);
   g_assert_nonnull (strstr (out, "exceeds the office limit of 0.10 kg/m²"));
   clear_output (&out, &err);
+  g_assert_cmpint (run (&out, &err, "show", "EW-302", "--json", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "\"limit\" : 0.1"));
+  clear_output (&out, &err);
   g_assert_cmpint (run (&out, &err, "export", "EW-302", "-o", ew302_path, NULL), ==, 0);
   clear_output (&out, &err);
   g_assert_cmpint (run (&out, &err, "moisture", ew302_path, NULL), ==, 0);
