@@ -223,8 +223,9 @@ test_read_only_permissions (void)
   g_autofree char *out_dir = g_build_filename (base, "out", NULL);
   g_autofree char *data = NULL;
   gsize len = 0;
+  g_autofree char *setpriv = g_find_program_in_path ("setpriv");
 
-  if (geteuid () == 0 && g_find_program_in_path ("setpriv") == NULL)
+  if (geteuid () == 0 && setpriv == NULL)
     {
       g_test_skip ("running as root without setpriv: permissions cannot be tested");
       return;
