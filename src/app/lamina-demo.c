@@ -28,6 +28,7 @@ lamina_demo_load (LaminaLibrary  *library,
   catalogue = lamina_catalogue_read_memory (data, size, "lamina-demo.xml", error);
   if (catalogue == NULL)
     return FALSE;
-  report = lamina_library_import (library, catalogue, LAMINA_IMPORT_DEFAULT, NULL, error);
+  /* The invented practice's own library: its review state is its own. */
+  report = lamina_library_import (library, catalogue, LAMINA_IMPORT_KEEP_REVIEW, NULL, error);
   return report != NULL;
 }

@@ -63,17 +63,18 @@ import_catalogue (LaminaLibrary          *library,
   return LAMINA_EXIT_OK;
 }
 
-/* import FILE.xml [--dry-run] [--revise-approved] [--update-materials] */
+/* import FILE.xml [--dry-run] [--revise-approved] [--update-materials] [--keep-review] */
 int
 lamina_cli_import (const LaminaCliGlobals *globals,
                    int                     argc,
                    char                  **argv)
 {
-  gboolean dry_run = FALSE, revise = FALSE, update = FALSE;
+  gboolean dry_run = FALSE, revise = FALSE, update = FALSE, keep_review = FALSE;
   const GOptionEntry entries[] = {
     { "dry-run", 0, 0, G_OPTION_ARG_NONE, &dry_run, N_("Report what would happen; write nothing"), NULL },
     { "revise-approved", 0, 0, G_OPTION_ARG_NONE, &revise, N_("Store changes to approved constructions as new draft revisions"), NULL },
     { "update-materials", 0, 0, G_OPTION_ARG_NONE, &update, N_("Replace library materials that differ (their users get flagged)"), NULL },
+    { "keep-review", 0, 0, G_OPTION_ARG_NONE, &keep_review, N_("Keep the document's checked and approved states for new constructions (recorded as approved elsewhere); otherwise they arrive as drafts"), NULL },
     { NULL }
   };
   g_autoptr(GOptionContext) context = g_option_context_new (_("FILE.xml — merge a catalogue into the library"));
@@ -101,7 +102,8 @@ lamina_cli_import (const LaminaCliGlobals *globals,
   return import_catalogue (library, catalogue, argv[1],
                            (dry_run ? LAMINA_IMPORT_DRY_RUN : 0)
                            | (revise ? LAMINA_IMPORT_REVISE_APPROVED : 0)
-                           | (update ? LAMINA_IMPORT_UPDATE_MATERIALS : 0));
+                           | (update ? LAMINA_IMPORT_UPDATE_MATERIALS : 0)
+                           | (keep_review ? LAMINA_IMPORT_KEEP_REVIEW : 0));
 }
 
 /* export [-o FILE] [--force] [ID…] */
@@ -213,5 +215,6 @@ lamina_cli_demo (const LaminaCliGlobals *globals,
                         lamina_library_get_path (library), (long long) n);
       return LAMINA_EXIT_BAD_INPUT;
     }
-  return import_catalogue (library, catalogue, "lamina-demo.xml", LAMINA_IMPORT_DEFAULT);
+  /* The invented practice's own library: its review state is its own. */
+  return import_catalogue (library, catalogue, "lamina-demo.xml", LAMINA_IMPORT_KEEP_REVIEW);
 }

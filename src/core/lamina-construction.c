@@ -430,6 +430,8 @@ lamina_construction_copy (const LaminaConstruction *construction)
   copy->approved_at = g_strdup (c->approved_at);
   copy->approval_policy = g_strdup (c->approval_policy);
   copy->approval_reason = g_strdup (c->approval_reason);
+  copy->source_review = g_strdup (c->source_review);
+  copy->draft_stamp = g_strdup (c->draft_stamp);
   copy->tags = g_ptr_array_new_full (c->tags->len, g_free);
   for (guint i = 0; i < c->tags->len; i++)
     g_ptr_array_add (copy->tags, g_strdup (c->tags->pdata[i]));
@@ -460,6 +462,8 @@ lamina_construction_free (LaminaConstruction *construction)
   g_free (c->approved_at);
   g_free (c->approval_policy);
   g_free (c->approval_reason);
+  g_free (c->source_review);
+  g_free (c->draft_stamp);
   g_ptr_array_unref (c->tags);
   g_ptr_array_unref (c->layers);
   lamina_moisture_settings_free (c->moisture);

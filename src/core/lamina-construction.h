@@ -185,6 +185,16 @@ typedef struct
    * method's scope without a 2-D check; NULL when none. */
   char            *approval_policy;
   char            *approval_reason;
+  /* The review record a construction was imported with, in words
+   * ("approved in the source library by … on …"): another library's
+   * reviewers, not this one's.  Kept with the imported revision (the
+   * store's JSON body), dropped by the next edit; not part of the
+   * content (lamina_construction_equal_content ignores it). */
+  char            *source_review;
+  /* A token that changes with every stored state of a revision (the
+   * store's JSON body): a draft updated in place keeps its number, so a
+   * save names the state it was based on by this.  NULL when unknown. */
+  char            *draft_stamp;
 
   int              line;
 } LaminaConstruction;

@@ -173,12 +173,21 @@ save (LaminaDocument  *self,
   self->state->status = copy->status;
   g_free (self->state->modified_by), self->state->modified_by = g_strdup (copy->modified_by);
   g_free (self->state->modified_at), self->state->modified_at = g_strdup (copy->modified_at);
+  g_free (self->state->draft_stamp), self->state->draft_stamp = g_strdup (copy->draft_stamp);
   g_free (self->state->checked_by), self->state->checked_by = g_strdup (copy->checked_by);
   g_free (self->state->approved_by), self->state->approved_by = g_strdup (copy->approved_by);
   g_free (self->state->approved_at), self->state->approved_at = g_strdup (copy->approved_at);
   set_conflict (self, NULL);
 
-  if (was != LAMINA_STATUS_DRAFT && copy->revision != was_revision)
+  if (copy->revision < was_revision)
+    {
+      g_autofree char *text = NULL;
+
+      /* The store removed a draft brought back to the approved build-up. */
+      text = g_strdup_printf (_("Back to approved revision %d; the draft was removed"), copy->revision);
+      g_signal_emit (self, signals[NOTICE], 0, text);
+    }
+  else if (was != LAMINA_STATUS_DRAFT && copy->revision != was_revision)
     {
       g_autofree char *text = NULL;
 

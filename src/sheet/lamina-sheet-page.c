@@ -99,6 +99,14 @@ draw_approval_note (SheetContext             *ctx,
 {
   g_autofree char *text = NULL;
 
+  /* Imported: the review was another library's, not this one's. */
+  if (c->source_review != NULL)
+    {
+      text = c->status == LAMINA_STATUS_APPROVED
+        ? g_strdup_printf (_("Approved elsewhere, not by this library's reviewers: %s."), c->source_review)
+        : g_strdup_printf (_("Imported; not reviewed in this library (%s)."), c->source_review);
+      return y + sheet_text (ctx, SHEET_FONT_SMALL, text, ctx->left, y, w, PANGO_ALIGN_LEFT) + 4;
+    }
   if (c->status != LAMINA_STATUS_APPROVED || c->approval_policy == NULL)
     return y;
   if (g_strcmp0 (c->approval_policy, "single") == 0)

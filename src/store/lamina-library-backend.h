@@ -246,6 +246,26 @@ typedef struct
   /* The roles of an office library enforced by its server
    * (lamina-pg-roles.c); NULL for a file. */
   gboolean            (*server_init)        (LaminaBackend *backend, GError **error);
+
+  /* A draft that directly follows an approved revision is edited in
+   * place while it is a draft (lamina-library-constructions.c decides
+   * when).  Both refuse with STALE unless the draft is still the head and
+   * still a draft whose stored state carries @stamp (the draft_stamp of
+   * its JSON body, see LaminaConstruction), in one transaction; NULL in a
+   * backend that cannot, and the front end then adds revisions as before.
+   * replace_draft: @rev->construction is the draft's new content with the
+   * same revision number; its body, figures, who and when, materials and
+   * search row replace the old, and a 2-D check stored with it goes.
+   * drop_draft: removes draft @draft (which has no review records) and
+   * makes @previous, revision @draft - 1 as read from the library, the
+   * head again (its figures, status and search row). */
+  gboolean            (*replace_draft)      (LaminaBackend *backend,
+                                             const LaminaBackendRevision *rev,
+                                             const char *stamp, GError **error);
+  gboolean            (*drop_draft)         (LaminaBackend *backend,
+                                             const LaminaBackendRevision *previous,
+                                             int draft, const char *stamp,
+                                             GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend
@@ -321,6 +341,10 @@ void           lamina_library_set_new_draft (LaminaConstruction *c,
                                              int                 revision,
                                              const char         *author);
 void           lamina_library_emit_changed (LaminaLibrary *self);
+/* lamina-library-review.c: two names for one person (NFC, case-folded,
+ * blanks trimmed). */
+gboolean       lamina_library_same_person  (const char *a,
+                                            const char *b);
 /* lamina-library-climates.c: LAMINA_SUMMARY_HAS_MOISTURE and
  * LAMINA_SUMMARY_MOISTURE_FAILS for a construction about to be stored,
  * with the default limit, or with @limit (kg/m²; NAN: the default). */
@@ -348,10 +372,6 @@ double             lamina_library_moisture_limit_from_text (const char *value);
 
 /* lamina-library-safety.c: LAMINA_BUSY_TIMEOUT or 60 s. */
 double         lamina_backend_default_busy_timeout (void);
-
-/* lamina-library-review.c: two names for one person (NFC, case-folded). */
-gboolean       lamina_library_same_person (const char *a,
-                                           const char *b);
 
 /* lamina-library-backup.c: the newest backup of the library at @path in
  * the folder backups go to when its settings cannot be read, or NULL. */

@@ -33,10 +33,14 @@ lamina_library_set_new_draft (LaminaConstruction *c,
   g_clear_pointer (&c->checked_at, g_free);
   g_clear_pointer (&c->approved_by, g_free);
   g_clear_pointer (&c->approved_at, g_free);
+  /* A record of another library describes the content it came with. */
+  g_clear_pointer (&c->source_review, g_free);
   g_free (c->modified_by);
   c->modified_by = g_strdup (lamina_library_default_author (author));
   g_free (c->modified_at);
   c->modified_at = lamina_library_dup_now ();
+  g_free (c->draft_stamp);
+  c->draft_stamp = g_uuid_string_random ();
 }
 
 /* A moisture check carries the data of its climate: the library's, when it
@@ -64,11 +68,15 @@ resolve_climate (LaminaLibrary       *self,
   return TRUE;
 }
 
+/* @in_place (the stamp of the state it replaces): @c replaces the head
+ * draft of the same number (see draft_after_approval) instead of going on
+ * top of @base. */
 static gboolean
 store (LaminaLibrary       *self,
        LaminaConstruction  *c,
        int                  base,
        const char          *comment,
+       const char          *in_place,
        GError             **error)
 {
   g_autoptr(LaminaResult) result = NULL;
@@ -86,7 +94,8 @@ store (LaminaLibrary       *self,
   lamina_library_prepare_revision (c, &result, &calc_error);
   rev.result = result;
   rev.calc_error = calc_error;
-  if (!VT (self)->store_revision (BE (self), &rev, base, error))
+  if (in_place ? !VT (self)->replace_draft (BE (self), &rev, in_place, error)
+               : !VT (self)->store_revision (BE (self), &rev, base, error))
     return FALSE;
   lamina_library_emit_changed (self);
   return TRUE;
@@ -125,6 +134,82 @@ lamina_library_dup_result (LaminaLibrary  *self,
   return result;
 }
 
+static gboolean
+pinned_by_job (LaminaLibrary *self,
+               const char    *id,
+               int            revision)
+{
+  g_autoptr(GPtrArray) uses = VT (self)->list_job_uses (BE (self), id, NULL);
+
+  /* Unreadable: treat it as pinned, which only costs a revision. */
+  if (uses == NULL)
+    return TRUE;
+  for (guint i = 0; i < uses->len; i++)
+    if (((LaminaJobUse *) uses->pdata[i])->revision == revision)
+      return TRUE;
+  return FALSE;
+}
+
+/* The approved revision that @head, a draft, directly follows; NULL
+ * (without an error) when the head is something else, when a job pins
+ * the draft (a job's revision never changes under it) or when the
+ * backend keeps every draft as a revision. */
+static LaminaConstruction *
+draft_after_approval (LaminaLibrary             *self,
+                      const LaminaConstruction  *head,
+                      GError                   **error)
+{
+  g_autoptr(LaminaConstruction) previous = NULL;
+
+  if (head->status != LAMINA_STATUS_DRAFT || head->revision < 2 || head->draft_stamp == NULL
+      || VT (self)->replace_draft == NULL || VT (self)->drop_draft == NULL)
+    return NULL;
+  previous = VT (self)->get_construction (BE (self), head->id, head->revision - 1, error);
+  if (previous == NULL || previous->status != LAMINA_STATUS_APPROVED
+      || pinned_by_job (self, head->id, head->revision))
+    return NULL;
+  return g_steal_pointer (&previous);
+}
+
+/* Back to the approved revision: the draft goes, the approved revision
+ * is the latest again. */
+static gboolean
+drop_draft (LaminaLibrary       *self,
+            LaminaConstruction  *approved,
+            int                  draft,
+            const char          *stamp,
+            GError             **error)
+{
+  g_autoptr(LaminaResult) result = NULL;
+  g_autofree char *calc_error = NULL;
+  LaminaBackendRevision rev = { approved, NULL, NULL, NULL };
+
+  lamina_library_prepare_revision (approved, &result, &calc_error);
+  rev.result = result;
+  rev.calc_error = calc_error;
+  if (!VT (self)->drop_draft (BE (self), &rev, draft, stamp, error))
+    return FALSE;
+  lamina_library_emit_changed (self);
+  return TRUE;
+}
+
+static void
+take_review_fields (LaminaConstruction       *to,
+                    const LaminaConstruction *from)
+{
+  to->revision = from->revision;
+  to->status = from->status;
+#define TAKE(field) (g_free (to->field), to->field = g_strdup (from->field))
+  TAKE (modified_by);
+  TAKE (modified_at);
+  TAKE (checked_by);
+  TAKE (checked_at);
+  TAKE (approved_by);
+  TAKE (approved_at);
+  TAKE (draft_stamp);
+#undef TAKE
+}
+
 gboolean
 lamina_library_save_construction (LaminaLibrary       *self,
                                   LaminaConstruction  *construction,
@@ -133,7 +218,9 @@ lamina_library_save_construction (LaminaLibrary       *self,
                                   GError             **error)
 {
   g_autoptr(LaminaConstruction) head = NULL;
+  g_autoptr(LaminaConstruction) approved = NULL;
   g_autoptr(LaminaConstruction) c = NULL;
+  gboolean in_place;
 
   g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
   g_return_val_if_fail (construction != NULL && construction->id != NULL, FALSE);
@@ -145,16 +232,55 @@ lamina_library_save_construction (LaminaLibrary       *self,
     return FALSE;
   if (head->revision == base_revision && lamina_construction_equal_content (head, construction))
     return TRUE;
+  /* A draft that follows an approved revision, edited from the state the
+   * caller read (its stamp): in place, or away.  A caller that does not
+   * know the state (no stamp) adds a revision as always. */
+  if (head->revision == base_revision && construction->revision == head->revision
+      && construction->draft_stamp != NULL)
+    {
+      g_autoptr(GError) local = NULL;
+
+      if (g_strcmp0 (construction->draft_stamp, head->draft_stamp) != 0)
+        {
+          g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
+                       "“%s” was changed by someone else (draft revision %d was saved again "
+                       "after the state you edited); nothing was saved: reopen it and apply "
+                       "your change again", head->name ? head->name : head->id, head->revision);
+          return FALSE;
+        }
+      approved = draft_after_approval (self, head, &local);
+      if (local != NULL)
+        {
+          g_propagate_error (error, g_steal_pointer (&local));
+          return FALSE;
+        }
+    }
+  /* A draft brought back to the approved build-up is no revision. */
+  if (approved != NULL && lamina_construction_equal_content (approved, construction))
+    {
+      if (!drop_draft (self, approved, head->revision, head->draft_stamp, error))
+        return FALSE;
+      take_review_fields (construction, approved);
+      return TRUE;
+    }
   /* Work on a copy so that a refusal leaves the caller's data as it was. */
   c = lamina_construction_copy (construction);
-  lamina_library_set_new_draft (c, base_revision + 1, author);
-  if (!store (self, c, base_revision, NULL, error))
+  /* The draft's own author edits it in place while it is a draft; anyone
+   * else's edit is a revision of its own, so that the history keeps who
+   * wrote what. */
+  in_place = approved != NULL
+             && lamina_library_same_person (head->modified_by,
+                                            lamina_library_default_author (author));
+  lamina_library_set_new_draft (c, in_place ? base_revision : base_revision + 1, author);
+  if (!store (self, c, base_revision, NULL, in_place ? head->draft_stamp : NULL, error))
     return FALSE;
   lamina_library_set_new_draft (construction, c->revision, NULL);
   g_free (construction->modified_by);
   construction->modified_by = g_strdup (c->modified_by);
   g_free (construction->modified_at);
   construction->modified_at = g_strdup (c->modified_at);
+  g_free (construction->draft_stamp);
+  construction->draft_stamp = g_strdup (c->draft_stamp);
   return TRUE;
 }
 
@@ -174,11 +300,13 @@ lamina_library_create_construction (LaminaLibrary       *self,
   if (c->id == NULL)
     c->id = g_uuid_string_random ();
   lamina_library_set_new_draft (c, 1, author);
-  if (!store (self, c, 0, NULL, error))
+  if (!store (self, c, 0, NULL, NULL, error))
     return NULL;
   g_free (construction->id);
   construction->id = g_strdup (c->id);
   lamina_library_set_new_draft (construction, 1, c->modified_by);
+  g_free (construction->draft_stamp);
+  construction->draft_stamp = g_strdup (c->draft_stamp);
   return g_strdup (c->id);
 }
 
@@ -207,7 +335,7 @@ store_copy (LaminaLibrary      *self,
   g_free (c->id);
   c->id = g_uuid_string_random ();
   lamina_library_set_new_draft (c, 1, author);
-  if (!store (self, c, 0, comment, error))
+  if (!store (self, c, 0, comment, NULL, error))
     return NULL;
   return g_strdup (c->id);
 }
@@ -221,11 +349,31 @@ lamina_library_derive_for_job (LaminaLibrary      *self,
                                const char         *author,
                                GError            **error)
 {
-  g_autoptr(LaminaConstruction) c = lamina_library_dup_construction (self, id, 0, error);
+  return lamina_library_derive_revision_for_job (self, id, 0, keep_description, keep_notes,
+                                                 tags, author, error);
+}
+
+char *
+lamina_library_derive_revision_for_job (LaminaLibrary      *self,
+                                        const char         *id,
+                                        int                 revision,
+                                        gboolean            keep_description,
+                                        gboolean            keep_notes,
+                                        const char * const *tags,
+                                        const char         *author,
+                                        GError            **error)
+{
+  g_autoptr(LaminaConstruction) c = NULL;
   g_autofree char *comment = NULL;
   g_autofree char *name = NULL;
 
-  if (c == NULL)
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  g_return_val_if_fail (id != NULL, NULL);
+  BACKEND_OR_FAIL (self, error, NULL);
+  /* A new job starts from what was approved, not from a draft that
+   * follows it, unless another revision is asked for. */
+  revision = lamina_library_pick_revision (self, id, revision, NULL, error);
+  if (revision <= 0 || (c = lamina_library_dup_construction (self, id, revision, error)) == NULL)
     return NULL;
   comment = g_strdup_printf ("derived from %s revision %d", c->code ? c->code : id, c->revision);
   name = g_strdup_printf (_("%s (copy)"), c->name);

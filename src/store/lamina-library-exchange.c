@@ -151,6 +151,50 @@ merge_material (LaminaLibrary         *self,
   return TRUE;
 }
 
+/* The document's review record of @c in words (stored, so not
+ * translated, like the history's other comments), NULL when it has none:
+ * "approved in the source library by B. Boss on 2026-03-01, checked by
+ * C. Checker on 2026-02-27". */
+static char *
+dup_source_review (const LaminaConstruction *c)
+{
+  g_autoptr(GString) text = g_string_new (NULL);
+
+  if (c->status == LAMINA_STATUS_APPROVED && c->approved_by != NULL)
+    {
+      g_string_append_printf (text, "approved in the source library by %s", c->approved_by);
+      if (c->approved_at != NULL)
+        g_string_append_printf (text, " on %.10s", c->approved_at);
+    }
+  if (c->status != LAMINA_STATUS_DRAFT && c->checked_by != NULL)
+    {
+      g_string_append (text, text->len > 0 ? ", checked by " : "checked in the source library by ");
+      g_string_append (text, c->checked_by);
+      if (c->checked_at != NULL)
+        g_string_append_printf (text, " on %.10s", c->checked_at);
+    }
+  return text->len > 0 ? g_string_free (g_steal_pointer (&text), FALSE) : NULL;
+}
+
+/* Imported review records are not this library's approvals: without
+ * LAMINA_IMPORT_KEEP_REVIEW a construction arrives as a draft and the
+ * document's record is kept in words; with it the state is kept and the
+ * words say it was approved elsewhere. */
+static void
+take_source_review (LaminaConstruction *c,
+                    LaminaImportFlags   flags)
+{
+  g_free (c->source_review);
+  c->source_review = dup_source_review (c);
+  if (flags & LAMINA_IMPORT_KEEP_REVIEW)
+    return;
+  c->status = LAMINA_STATUS_DRAFT;
+  g_clear_pointer (&c->checked_by, g_free);
+  g_clear_pointer (&c->checked_at, g_free);
+  g_clear_pointer (&c->approved_by, g_free);
+  g_clear_pointer (&c->approved_at, g_free);
+}
+
 /* Decides what happens to one imported construction; adds a revision to
  * @revisions (owning @c through @keep) when something is to be stored. */
 static gboolean
@@ -202,8 +246,10 @@ merge_construction (LaminaLibrary             *self,
   label = dup_label (c);
   if (head == NULL)
     {
-      /* A new construction keeps its revision number and review record. */
+      /* A new construction keeps its revision number; its review record
+       * only with LAMINA_IMPORT_KEEP_REVIEW. */
       c->revision = MAX (c->revision, 1);
+      take_source_review (c, flags);
       if (c->modified_by == NULL)
         c->modified_by = g_strdup (lamina_library_default_author (author));
       if (c->modified_at == NULL)
@@ -215,14 +261,35 @@ merge_construction (LaminaLibrary             *self,
     }
   else
     {
+      g_autofree char *source = dup_source_review (c);
+
       base = head->revision;
+      /* A change to one of ours is our draft, whatever the document says. */
       lamina_library_set_new_draft (c, base + 1, author);
+      c->source_review = g_steal_pointer (&source);
       report->n_revised++;
       add_item (report, LAMINA_IMPORT_REVISED, FALSE, c->id, c->name, c->revision,
                 g_strdup_printf (_("%s: revised, stored as draft revision %d"), label, c->revision));
     }
   g_array_append_val (bases, base);
   return TRUE;
+}
+
+/* The history's line for an imported revision (owned by @comments). */
+static const char *
+comment_for (GPtrArray                *comments,
+             const LaminaConstruction *c)
+{
+  char *comment;
+
+  if (c->source_review == NULL)
+    return "imported";
+  if (c->status == LAMINA_STATUS_DRAFT)
+    comment = g_strdup_printf ("imported as a draft; %s", c->source_review);
+  else
+    comment = g_strdup_printf ("imported with its review, approved elsewhere: %s", c->source_review);
+  g_ptr_array_add (comments, comment);
+  return comment;
 }
 
 static void
@@ -245,6 +312,7 @@ import_once (LaminaLibrary          *self,
   g_autoptr(GPtrArray) climates = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_climate_free);
   g_autoptr(GPtrArray) keep = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
   g_autoptr(GPtrArray) revisions = g_ptr_array_new_with_free_func ((GDestroyNotify) revision_free);
+  g_autoptr(GPtrArray) comments = g_ptr_array_new_with_free_func (g_free);
   g_autoptr(GArray) bases = g_array_new (FALSE, FALSE, sizeof (int));
   g_autoptr(GHashTable) seen = g_hash_table_new (g_str_hash, g_str_equal);
   g_autoptr(GPtrArray) target_sets = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_target_set_free);
@@ -298,7 +366,7 @@ import_once (LaminaLibrary          *self,
       lamina_library_prepare_revision (keep->pdata[i], &result, &calc_error);
       rev->result = result;
       rev->calc_error = calc_error;
-      rev->comment = "imported";
+      rev->comment = comment_for (comments, keep->pdata[i]);
       g_ptr_array_add (revisions, rev);
     }
   if (!lamina_library_merge_records (self, catalogue, report, target_sets, jobs, error))

@@ -101,8 +101,8 @@ lamina_library_dup_review_events (LaminaLibrary  *self,
 }
 
 /* Two names for one person: NFC, case-folded, blanks trimmed. */
-static gboolean
-same_person (const char *a,
+gboolean
+lamina_library_same_person (const char *a,
              const char *b)
 {
   g_autofree char *na = NULL, *nb = NULL, *fa = NULL, *fb = NULL;
@@ -153,7 +153,7 @@ check_revision (LaminaLibrary             *self,
       return FALSE;
     }
   if (r->act != LAMINA_REVIEW_ACT_WITHDRAW && policy == LAMINA_REVIEW_FOUR_EYES
-      && same_person (r->by, c->modified_by))
+      && lamina_library_same_person (r->by, c->modified_by))
     {
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_POLICY,
                    r->act == LAMINA_REVIEW_ACT_CHECK
@@ -334,9 +334,3 @@ lamina_library_withdraw_approval (LaminaLibrary  *self,
   return record (self, &r, error);
 }
 
-gboolean
-lamina_library_same_person (const char *a,
-                            const char *b)
-{
-  return same_person (a, b);
-}

@@ -180,7 +180,13 @@ LaminaResult  *lamina_library_dup_result   (LaminaLibrary          *self,
  * of @base_revision.  Refused with STALE if the latest revision is not
  * @base_revision.  Saving unchanged content is a no-op that succeeds.  On
  * success @construction's revision, status and review fields are updated.
- * @author NULL = the user's name. */
+ * @author NULL = the user's name.
+ * A draft that directly follows an approved revision (and that no job
+ * pins) is not a string of revisions: its author's edits replace it in
+ * place while it is a draft (someone else's edit is a revision of its
+ * own), and saving it back to the approved build-up removes the draft,
+ * so the approved revision is the latest again (@construction then
+ * carries its number and review fields). */
 gboolean       lamina_library_save_construction (LaminaLibrary      *self,
                                                  LaminaConstruction *construction,
                                                  int                 base_revision,
@@ -201,8 +207,9 @@ char          *lamina_library_derive_job_variant (LaminaLibrary *self,
                                                   const char    *job_name,
                                                   const char    *author,
                                                   GError       **error);
-/* Copies the latest revision of @id to a new construction (draft,
- * revision 1, name "… (copy)", no code); returns the new id. */
+/* Copies the latest approved revision of @id (the latest revision when
+ * none is approved) to a new construction (draft, revision 1, name
+ * "… (copy)", no code); returns the new id. */
 char          *lamina_library_derive_construction (LaminaLibrary *self,
                                                    const char    *id,
                                                    const char    *author,
@@ -216,6 +223,16 @@ char          *lamina_library_derive_for_job      (LaminaLibrary      *self,
                                                    const char * const *tags,
                                                    const char         *author,
                                                    GError            **error);
+/* The same from revision @revision of @id (0: the latest approved, else
+ * the latest; a revision asked for must exist, NOT_FOUND). */
+char          *lamina_library_derive_revision_for_job (LaminaLibrary      *self,
+                                                       const char         *id,
+                                                       int                 revision,
+                                                       gboolean            keep_description,
+                                                       gboolean            keep_notes,
+                                                       const char * const *tags,
+                                                       const char         *author,
+                                                       GError            **error);
 /* Deleting hides a construction and keeps its history; restoring brings
  * it back as it was (the window's undo). */
 gboolean       lamina_library_delete_construction  (LaminaLibrary *self,
@@ -441,6 +458,11 @@ typedef enum
                                              draft revision, not a conflict */
   LAMINA_IMPORT_UPDATE_MATERIALS = 1 << 2,/* replace differing library
                                              materials (flags users) */
+  LAMINA_IMPORT_KEEP_REVIEW     = 1 << 3, /* a new construction keeps the
+                                             document's review state
+                                             (approved elsewhere); without
+                                             it, it arrives as a draft and
+                                             the record is kept in words */
 } LaminaImportFlags;
 
 typedef enum

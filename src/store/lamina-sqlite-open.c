@@ -121,6 +121,8 @@ static const LaminaBackendVTable sqlite_vtable = {
   .restore_from = lamina_sqlite_backend_restore_from,
   .delete_climate = lamina_sqlite_backend_delete_climate,
   .set_moisture_limit = lamina_sqlite_backend_set_moisture_limit,
+  .replace_draft = lamina_sqlite_backend_replace_draft,
+  .drop_draft = lamina_sqlite_backend_drop_draft,
 };
 
 static LaminaSqlite *

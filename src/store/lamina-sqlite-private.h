@@ -134,6 +134,15 @@ gboolean            lamina_sqlite_backend_store_revision   (LaminaBackend *backe
                                                             const LaminaBackendRevision *rev,
                                                             int base_revision,
                                                             GError **error);
+gboolean            lamina_sqlite_backend_replace_draft    (LaminaBackend *backend,
+                                                            const LaminaBackendRevision *rev,
+                                                            const char *stamp,
+                                                            GError **error);
+gboolean            lamina_sqlite_backend_drop_draft       (LaminaBackend *backend,
+                                                            const LaminaBackendRevision *previous,
+                                                            int draft,
+                                                            const char *stamp,
+                                                            GError **error);
 gboolean            lamina_sqlite_backend_set_deleted      (LaminaBackend *backend,
                                                             const char *id,
                                                             const char *when,

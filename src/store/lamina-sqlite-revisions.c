@@ -108,10 +108,13 @@ get_head (LaminaSqlite  *self,
   return head;
 }
 
+/* @with_materials: the revision is new and its materials are recorded;
+ * otherwise only the construction's tags and search row are rewritten. */
 static gboolean
 store_tags_and_materials (LaminaSqlite              *self,
                           const LaminaConstruction  *c,
                           gint64                     num,
+                          gboolean                   with_materials,
                           GError                   **error)
 {
   g_autoptr(GString) names = g_string_new (NULL);
@@ -127,7 +130,7 @@ store_tags_and_materials (LaminaSqlite              *self,
   if (stmt == NULL)
     return FALSE;
   g_hash_table_iter_init (&iter, materials);
-  while (g_hash_table_iter_next (&iter, &key, &value))
+  while (with_materials && g_hash_table_iter_next (&iter, &key, &value))
     {
       sqlite3_reset (stmt);
       lamina_sqlite_bind_text (stmt, 1, c->id);
@@ -355,7 +358,7 @@ store_revision_in_txn (LaminaSqlite                 *self,
   return check_base (self, rev->construction, base, error)
          && put_construction_row (self, rev->construction, rev->result, &num, error)
          && insert_revision_row (self, rev, error)
-         && store_tags_and_materials (self, rev->construction, num, error)
+         && store_tags_and_materials (self, rev->construction, num, TRUE, error)
          && refresh_material_changed (self, rev->construction, error);
 }
 
@@ -368,6 +371,153 @@ lamina_sqlite_backend_store_revision (LaminaBackend                *backend,
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
   if (!store_revision_in_txn (SELF, rev, base_revision, error)
+      || !flush_search_index (SELF, error)
+      || !lamina_sqlite_commit (SELF, error))
+    {
+      lamina_sqlite_rollback (SELF);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* The stored state's stamp of revision @revision: 1 when it is @stamp,
+ * 0 when not, -1 on error. */
+static int
+stamp_matches (LaminaSqlite  *self,
+               const char    *id,
+               int            revision,
+               const char    *stamp,
+               GError       **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
+    "SELECT json_extract (body, '$.draft_stamp') IS ?3 FROM revision"
+    " WHERE construction_id = ?1 AND revision = ?2;", error);
+  int rc, matches = 0;
+
+  if (stmt == NULL)
+    return -1;
+  lamina_sqlite_bind_text (stmt, 1, id);
+  sqlite3_bind_int (stmt, 2, revision);
+  lamina_sqlite_bind_text (stmt, 3, stamp);
+  rc = sqlite3_step (stmt);
+  if (rc == SQLITE_ROW)
+    matches = sqlite3_column_int (stmt, 0);
+  else if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot read a construction", error);
+      matches = -1;
+    }
+  sqlite3_reset (stmt);
+  return matches;
+}
+
+/* The head must still be draft @draft of a live construction, in the
+ * state @stamp names. */
+static gboolean
+check_draft_head (LaminaSqlite  *self,
+                  const char    *id,
+                  int            draft,
+                  const char    *stamp,
+                  GError       **error)
+{
+  LaminaStatus status = LAMINA_STATUS_DRAFT;
+  gboolean deleted = FALSE;
+  int head = get_head (self, id, &deleted, &status, error);
+  int same = 0;
+
+  if (head < 0)
+    return FALSE;
+  if (head == 0 || deleted)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no construction “%s” in the library", id);
+      return FALSE;
+    }
+  if (head == draft && status == LAMINA_STATUS_DRAFT
+      && (same = stamp_matches (self, id, draft, stamp, error)) < 0)
+    return FALSE;
+  if (head != draft || status != LAMINA_STATUS_DRAFT || !same)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
+                   "construction “%s” was changed by someone else (its latest revision is %d, "
+                   "%s, saved since you opened it); nothing was saved: reopen it and apply "
+                   "your change again", id, head, lamina_status_to_string (status));
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* Removes what belongs to draft revision @draft alone: its materials, a
+ * stored 2-D check, and the revision row itself (a draft has no review
+ * records). */
+static gboolean
+delete_draft_rows (LaminaSqlite  *self,
+                   const char    *id,
+                   int            draft,
+                   GError       **error)
+{
+  static const char *const sql[] = {
+    "DELETE FROM revision_material WHERE construction_id = ?1 AND revision = ?2;",
+    "DELETE FROM field_check WHERE construction_id = ?1 AND revision = ?2;",
+    "DELETE FROM revision WHERE construction_id = ?1 AND revision = ?2 AND status = 'draft';",
+    /* store_revision_in_txn puts the new content on top of the one before. */
+    "UPDATE construction SET head = ?2 - 1 WHERE id = ?1;",
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (sql); i++)
+    {
+      sqlite3_stmt *stmt = lamina_sqlite_prepare (self, sql[i], error);
+
+      if (stmt == NULL)
+        return FALSE;
+      lamina_sqlite_bind_text (stmt, 1, id);
+      sqlite3_bind_int (stmt, 2, draft);
+      if (!lamina_sqlite_step_done (self, stmt, error))
+        return FALSE;
+    }
+  return TRUE;
+}
+
+gboolean
+lamina_sqlite_backend_replace_draft (LaminaBackend                *backend,
+                                     const LaminaBackendRevision  *rev,
+                                     const char                   *stamp,
+                                     GError                      **error)
+{
+  const LaminaConstruction *c = rev->construction;
+
+  if (!lamina_sqlite_begin (SELF, error))
+    return FALSE;
+  if (!check_draft_head (SELF, c->id, c->revision, stamp, error)
+      || !delete_draft_rows (SELF, c->id, c->revision, error)
+      || !store_revision_in_txn (SELF, rev, c->revision - 1, error)
+      || !flush_search_index (SELF, error)
+      || !lamina_sqlite_commit (SELF, error))
+    {
+      lamina_sqlite_rollback (SELF);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+gboolean
+lamina_sqlite_backend_drop_draft (LaminaBackend                *backend,
+                                  const LaminaBackendRevision  *previous,
+                                  int                           draft,
+                                  const char                   *stamp,
+                                  GError                      **error)
+{
+  const LaminaConstruction *c = previous->construction;
+  gint64 num;
+
+  g_return_val_if_fail (c->revision == draft - 1, FALSE);
+  if (!lamina_sqlite_begin (SELF, error))
+    return FALSE;
+  if (!check_draft_head (SELF, c->id, draft, stamp, error)
+      || !delete_draft_rows (SELF, c->id, draft, error)
+      || !put_construction_row (SELF, c, previous->result, &num, error)
+      || !store_tags_and_materials (SELF, c, num, FALSE, error)
+      || !refresh_material_changed (SELF, c, error)
       || !flush_search_index (SELF, error)
       || !lamina_sqlite_commit (SELF, error))
     {
@@ -523,7 +673,7 @@ lamina_sqlite_index_revision (LaminaSqlite              *self,
                               gint64                     num,
                               GError                   **error)
 {
-  return store_tags_and_materials (self, c, num, error);
+  return store_tags_and_materials (self, c, num, TRUE, error);
 }
 
 gboolean

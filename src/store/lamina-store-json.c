@@ -305,6 +305,8 @@ lamina_store_construction_to_json (const LaminaConstruction *c)
   add_number (b, "inside_temperature", c->inside_temperature);
   add_number (b, "outside_temperature", c->outside_temperature);
   add_string (b, "notes", c->notes);
+  add_string (b, "source_review", c->source_review);
+  add_string (b, "draft_stamp", c->draft_stamp);
   add_method (b, c);
 
   add_moisture (b, c->moisture);
@@ -626,6 +628,8 @@ lamina_store_construction_from_json (const char  *json,
   c->inside_temperature = get_number (o, "inside_temperature");
   c->outside_temperature = get_number (o, "outside_temperature");
   c->notes = dup_string (o, "notes");
+  c->source_review = dup_string (o, "source_review");
+  c->draft_stamp = dup_string (o, "draft_stamp");
   read_method (o, c);
 
   c->moisture = read_moisture (o);

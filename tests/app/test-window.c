@@ -1253,9 +1253,13 @@ test_compare_revisions (Fixture       *f,
   id = find_plain_construction (f, &index);
   g_assert_true (lamina_window_open (f->window, id, &error));
   base = open_state (f)->revision;
-  /* Three saved edits: three new revisions. */
+  /* Three saved edits by three people: three new revisions (one
+   * person's edits of a draft that follows an approval update it). */
+  lamina_document_set_author (lamina_editor_get_document (editor), "E. One");
   lamina_editor_resize_layer (editor, index, ((LaminaLayer *) open_state (f)->layers->pdata[index])->thickness + 20, FALSE);
+  lamina_document_set_author (lamina_editor_get_document (editor), "E. Two");
   lamina_editor_apply (editor, lamina_edit_set_element (open_state (f), LAMINA_ELEMENT_PARTITION, NULL), NULL, NULL);
+  lamina_document_set_author (lamina_editor_get_document (editor), "E. Three");
   lamina_editor_apply (editor, lamina_edit_add_tag (open_state (f), "compare-me", NULL), NULL, NULL);
   g_assert_cmpint (open_state (f)->revision, ==, base + 3);
 

@@ -216,3 +216,20 @@ lamina_hardening_copy_library (const char *from,
       || !g_file_set_contents (to, data, (gssize) len, NULL))
     g_error ("cannot copy %s to %s", from, to);
 }
+
+LaminaLibrary *
+lamina_hardening_open_library (const char  *name,
+                               char       **path)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *file = NULL;
+  LaminaLibrary *library;
+
+  g_mkdir_with_parents (g_get_user_data_dir (), 0700);
+  file = g_build_filename (g_get_user_data_dir (), name, NULL);
+  library = lamina_library_open (file, 0, &error);
+  g_assert_no_error (error);
+  if (path != NULL)
+    *path = g_steal_pointer (&file);
+  return library;
+}

@@ -28,6 +28,10 @@ char     *lamina_hardening_dup_file_state (const char  *path,
 
 /* A small timber-frame wall from the seeded materials; @n varies the
  * insulation thickness and the name so many differ. */
+/* A new library @name in the test's data folder; @path (optional) gets
+ * its file name. */
+LaminaLibrary *lamina_hardening_open_library (const char *name,
+                                              char      **path);
 LaminaConstruction *lamina_hardening_make_wall (LaminaLibrary *library,
                                                 guint          n);
 

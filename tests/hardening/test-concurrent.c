@@ -8,9 +8,11 @@
  * refusal.  Afterwards, from a third connection:
  * - the file is intact (integrity_check, foreign keys, full read);
  * - nothing is lost: every accepted write is found at the revision it was
- *   given, with its own token (no revision was overwritten silently), and
+ *   given, with its own token, or (a draft that follows an approved
+ *   revision is updated in place by its author) was the state another
+ *   accepted write was based on, so no write was overwritten silently;
  *   the revisions of each construction are exactly the initial ones plus
- *   the accepted writes;
+ *   the accepted writes that made a revision;
  * - every refusal was reported as STALE, BUSY or IMMUTABLE with a message,
  *   and import conflicts with approved revisions were reported in the
  *   import report, never applied. */
@@ -84,12 +86,17 @@ do_edit (LaminaLibrary *library,
 
   if (c == NULL)
     return FALSE;
+  int base = c->revision;
+  g_autofree char *base_stamp = g_strdup (c->draft_stamp ? c->draft_stamp : "-");
+
   g_free (c->description);
   c->description = g_strdup (token);
   g_usleep (g_random_int_range (0, 3000));
   if (!lamina_library_save_construction (library, c, c->revision, "Editor", error))
     return FALSE;
-  log_accepted (log, "save", id, c->revision, token);
+  /* save ID REVISION TOKEN BASE-REVISION BASE-STAMP NEW-STAMP */
+  fprintf (log, "save %s %d %s %d %s %s\n", id, c->revision, token, base, base_stamp,
+           c->draft_stamp ? c->draft_stamp : "-");
   return TRUE;
 }
 
@@ -202,8 +209,25 @@ check_logs (const char *path,
   g_autoptr(GError) error = NULL;
   g_autoptr(LaminaLibrary) library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
   int writes[N_SHARED] = { 0 };
+  /* "ID REVISION STAMP" of the states that in-place saves were based on. */
+  g_autoptr(GHashTable) replaced = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
 
   g_assert_no_error (error);
+  for (guint w = 0; logs[w] != NULL; w++)
+    {
+      g_autofree char *text = NULL;
+      g_auto(GStrv) lines = NULL;
+
+      g_assert_true (g_file_get_contents (logs[w], &text, NULL, NULL));
+      lines = g_strsplit (text, "\n", -1);
+      for (guint i = 0; lines[i] != NULL && lines[i][0] != '\0'; i++)
+        {
+          g_auto(GStrv) f = g_strsplit (lines[i], " ", -1);
+
+          if (g_str_equal (f[0], "save") && atoi (f[2]) == atoi (f[4]))
+            g_hash_table_add (replaced, g_strdup_printf ("%s %s %s", f[1], f[2], f[5]));
+        }
+    }
   for (guint w = 0; logs[w] != NULL; w++)
     {
       g_autofree char *text = NULL;
@@ -236,15 +260,27 @@ check_logs (const char *path,
                 g_assert_cmpint (c->status, ==, LAMINA_STATUS_APPROVED);
                 g_assert_cmpstr (c->approved_by, ==, f[3]);
               }
+            else if (g_str_equal (f[0], "save")
+                     && g_strcmp0 (c->draft_stamp, f[6]) != 0)
+              {
+                /* Replaced in place: by a save based on this very state. */
+                g_autofree char *key = g_strdup_printf ("%s %s %s", f[1], f[2], f[6]);
+
+                g_assert_true (g_hash_table_contains (replaced, key));
+                if (atoi (f[2]) != atoi (f[4]))
+                  writes[atoi (f[1] + strlen ("shared-"))]++;
+              }
             else
               {
                 /* The revision this write was given still holds it. */
                 g_assert_cmpstr (c->description, ==, f[3]);
-                writes[atoi (f[1] + strlen ("shared-"))]++;
+                if (!g_str_equal (f[0], "save") || atoi (f[2]) != atoi (f[4]))
+                  writes[atoi (f[1] + strlen ("shared-"))]++;
               }
           }
         }
     }
+  g_print ("# %u saves updated a draft in place\n", g_hash_table_size (replaced));
   for (guint i = 0; i < N_SHARED; i++)
     {
       g_autofree char *id = shared_id (i);

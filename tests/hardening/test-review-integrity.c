@@ -20,20 +20,6 @@
 
 #include "lamina-hardening-util.h"
 
-static LaminaLibrary *
-open_library (const char *name,
-              char      **path)
-{
-  g_autoptr(GError) error = NULL;
-  LaminaLibrary *library;
-
-  g_mkdir_with_parents (g_get_user_data_dir (), 0700);
-  *path = g_build_filename (g_get_user_data_dir (), name, NULL);
-  library = lamina_library_open (*path, 0, &error);
-  g_assert_no_error (error);
-  return library;
-}
-
 static char *
 add_wall (LaminaLibrary *library,
           guint          n,
@@ -83,7 +69,7 @@ static void
 test_four_eyes_api (void)
 {
   g_autofree char *path = NULL;
-  g_autoptr(LaminaLibrary) library = open_library ("four-eyes.sqlite", &path);
+  g_autoptr(LaminaLibrary) library = lamina_hardening_open_library ("four-eyes.sqlite", &path);
   g_autofree char *id = add_wall (library, 1, "A. Author");
   g_autoptr(GError) error = NULL;
   g_autoptr(GPtrArray) events = NULL;
@@ -198,7 +184,7 @@ static void
 test_method_scope (void)
 {
   g_autofree char *path = NULL;
-  g_autoptr(LaminaLibrary) library = open_library ("scope.sqlite", &path);
+  g_autoptr(LaminaLibrary) library = lamina_hardening_open_library ("scope.sqlite", &path);
   g_autoptr(LaminaConstruction) c = steel_stud_wall ();
   g_autoptr(GError) error = NULL;
   g_autofree char *id = lamina_library_create_construction (library, c, "A. Author", &error);
@@ -230,7 +216,7 @@ test_cli (void)
   g_autofree char *out = NULL, *err = NULL, *id = NULL;
 
   {
-    g_autoptr(LaminaLibrary) library = open_library ("cli.sqlite", &path);
+    g_autoptr(LaminaLibrary) library = lamina_hardening_open_library ("cli.sqlite", &path);
 
     id = add_wall (library, 3, "A. Author");
   }
