@@ -155,6 +155,7 @@ static const LaminaBackendVTable pg_vtable = {
   .put_climate = lamina_pg_put_climate,
 
   .delete_climate = lamina_pg_delete_climate,
+  .verify_storage = lamina_pg_verify_storage,
   .set_moisture_limit = lamina_pg_set_moisture_limit,
   .read_all = lamina_pg_read_all,
   .write_all = lamina_pg_write_all,

@@ -28,6 +28,9 @@ typedef struct
   char           sqlstate[6];  /* of the last failed statement, or "" */
   gboolean       roles;        /* server-init ran: the review acts go through
                                 * the SECURITY DEFINER functions */
+  gboolean       limit_read;   /* moisture_limit holds the setting, read in
+                                * this transaction (an import reads it once) */
+  double         moisture_limit;
 } LaminaPg;
 
 /* Parameters of a statement: owned strings, NULL for SQL NULL.  Each
@@ -119,6 +122,8 @@ gboolean            lamina_pg_delete_climate   (LaminaBackend *backend, const ch
                                                 GError **error);
 gboolean            lamina_pg_set_moisture_limit (LaminaBackend *backend, const char *value,
                                                   double limit, GError **error);
+gboolean            lamina_pg_verify_storage   (LaminaBackend *backend, GPtrArray *problems,
+                                                GError **error);
 /* The office's moisture limit, from the settings. */
 double              lamina_pg_moisture_limit   (LaminaPg *self);
 char               *lamina_pg_get_field_check  (LaminaBackend *backend, const char *id,

@@ -480,9 +480,14 @@ lamina_pg_delete_climate (LaminaBackend  *backend,
 double
 lamina_pg_moisture_limit (LaminaPg *self)
 {
-  g_autofree char *value = lamina_pg_get_setting (&self->parent, LAMINA_MOISTURE_LIMIT_KEY, NULL);
+  g_autofree char *value = NULL;
 
-  return lamina_library_moisture_limit_from_text (value);
+  if (self->limit_read && PQtransactionStatus (self->conn) == PQTRANS_INTRANS)
+    return self->moisture_limit;
+  value = lamina_pg_get_setting (&self->parent, LAMINA_MOISTURE_LIMIT_KEY, NULL);
+  self->moisture_limit = lamina_library_moisture_limit_from_text (value);
+  self->limit_read = TRUE;
+  return self->moisture_limit;
 }
 
 typedef struct
@@ -542,4 +547,36 @@ lamina_pg_set_moisture_limit (LaminaBackend  *backend,
   Limit l = { value, limit };
 
   return lamina_pg_transaction (SELF, set_moisture_limit_txn, &l, error);
+}
+
+/* The storage check (lamina-cli verify): the server keeps its own files
+ * whole; what is checked here is what the library's rules need of the
+ * rows and of the schema's guards. */
+gboolean
+lamina_pg_verify_storage (LaminaBackend  *backend,
+                          GPtrArray      *problems,
+                          GError        **error)
+{
+  PGresult *res = lamina_pg_query (SELF,
+    "SELECT 'construction ' || coalesce (c.code, c.id) || ': its latest revision '"
+    "       || c.head || ' is missing'"
+    "  FROM construction c WHERE NOT EXISTS (SELECT 1 FROM revision r"
+    "   WHERE r.construction_id = c.id AND r.revision = c.head)"
+    " UNION ALL "
+    "SELECT 'construction ' || coalesce (c.code, c.id) || ': listed as ' || c.status"
+    "       || ' but its latest revision is ' || r.status"
+    "  FROM construction c JOIN revision r ON r.construction_id = c.id AND r.revision = c.head"
+    " WHERE r.status <> c.status"
+    " UNION ALL "
+    "SELECT 'the server''s guard ' || g || ' is missing: stored revisions or review records "
+    "could be changed' FROM unnest (ARRAY['revision_guard', 'review_event_guard']) AS g"
+    " WHERE NOT EXISTS (SELECT 1 FROM pg_trigger t WHERE t.tgname = g AND t.tgenabled <> 'D')",
+    NULL, "cannot check the library", error);
+
+  if (res == NULL)
+    return FALSE;
+  for (int i = 0; i < PQntuples (res); i++)
+    g_ptr_array_add (problems, g_strdup_printf ("storage: %s", lamina_pg_get (res, i, 0)));
+  PQclear (res);
+  return TRUE;
 }

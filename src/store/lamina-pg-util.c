@@ -214,6 +214,7 @@ lamina_pg_transaction (LaminaPg        *self,
       g_autoptr(GError) local = NULL;
 
       self->sqlstate[0] = '\0';
+      self->limit_read = FALSE;
       if (lamina_pg_exec (self, "BEGIN;", &local)
           && func (self, data, &local)
           && lamina_pg_exec (self, "COMMIT;", &local))

@@ -299,6 +299,20 @@ test_roles (void)
   g_assert_cmpstr (((LaminaReviewEvent *) events->pdata[0])->by, ==, "carol");
   g_assert_cmpstr (((LaminaReviewEvent *) events->pdata[1])->by, ==, "dave");
   g_assert_false (test_raw_exec (alice, "UPDATE revision SET approved_by = 'alice';"));
+  {
+    g_autoptr(LaminaVerifyReport) report = lamina_library_verify (owner, &error);
+
+    g_assert_no_error (error);
+    g_assert_true (report->storage_checked);
+    g_assert_cmpuint (report->problems->len, ==, 0);
+    /* The owner could drop a guard: the check says so. */
+    g_assert_true (test_raw_exec (location, "ALTER TABLE revision DISABLE TRIGGER revision_guard;"));
+    g_clear_pointer (&report, lamina_verify_report_free);
+    report = lamina_library_verify (owner, &error);
+    g_assert_cmpuint (report->problems->len, ==, 1);
+    g_assert_nonnull (strstr (report->problems->pdata[0], "revision_guard"));
+    g_assert_true (test_raw_exec (location, "ALTER TABLE revision ENABLE TRIGGER revision_guard;"));
+  }
 
   /* Four eyes on the server: the checker's own revision is not theirs to
    * check, whatever name the client gives. */
