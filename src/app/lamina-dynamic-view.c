@@ -29,7 +29,7 @@ struct _LaminaDynamicView
 {
   GtkWidget  parent_instance;
 
-  /* owned children */
+  /* template */
   GtkWidget *box;
   GtkGrid   *grid;
   GtkLabel  *values[N_ROWS];
@@ -50,9 +50,7 @@ add_row (LaminaDynamicView *self,
 static void
 lamina_dynamic_view_dispose (GObject *object)
 {
-  LaminaDynamicView *self = LAMINA_DYNAMIC_VIEW (object);
-
-  g_clear_pointer (&self->box, gtk_widget_unparent);
+  gtk_widget_dispose_template (GTK_WIDGET (object), LAMINA_TYPE_DYNAMIC_VIEW);
   G_OBJECT_CLASS (lamina_dynamic_view_parent_class)->dispose (object);
 }
 
@@ -65,34 +63,22 @@ lamina_dynamic_view_class_init (LaminaDynamicViewClass *klass)
   object_class->dispose = lamina_dynamic_view_dispose;
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
   gtk_widget_class_set_css_name (widget_class, "lamina-dynamic-view");
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-dynamic-view.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaDynamicView, box);
+  gtk_widget_class_bind_template_child (widget_class, LaminaDynamicView, grid);
+  gtk_widget_class_bind_template_child (widget_class, LaminaDynamicView, note);
 }
 
 static void
 lamina_dynamic_view_init (LaminaDynamicView *self)
 {
-  GtkWidget *heading = gtk_label_new (_("Dynamic, EN ISO 13786 (24 h)"));
-
-  self->box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 4);
-  gtk_widget_set_parent (self->box, GTK_WIDGET (self));
-  gtk_label_set_xalign (GTK_LABEL (heading), 0);
-  gtk_widget_add_css_class (heading, "heading");
-  gtk_box_append (GTK_BOX (self->box), heading);
-  self->grid = GTK_GRID (gtk_grid_new ());
-  gtk_grid_set_column_spacing (self->grid, 12);
-  gtk_grid_set_row_spacing (self->grid, 2);
-  gtk_box_append (GTK_BOX (self->box), GTK_WIDGET (self->grid));
+  gtk_widget_init_template (GTK_WIDGET (self));
   add_row (self, ROW_Y12, _("Periodic transmittance |Y12|"), "W/(m²·K)");
   add_row (self, ROW_F, _("Decrement factor f"), "");
   add_row (self, ROW_SHIFT, _("Time shift"), "h");
   add_row (self, ROW_Y11, _("Internal admittance |Y11|"), "W/(m²·K)");
   add_row (self, ROW_K1, _("Areal heat capacity κ1"), "kJ/(m²·K)");
   add_row (self, ROW_K2, _("Areal heat capacity κ2"), "kJ/(m²·K)");
-  self->note = GTK_LABEL (gtk_label_new (NULL));
-  gtk_label_set_xalign (self->note, 0);
-  gtk_label_set_wrap (self->note, TRUE);
-  gtk_widget_add_css_class (GTK_WIDGET (self->note), "dim-label");
-  gtk_widget_add_css_class (GTK_WIDGET (self->note), "caption");
-  gtk_box_append (GTK_BOX (self->box), GTK_WIDGET (self->note));
 }
 
 static void
