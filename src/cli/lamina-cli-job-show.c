@@ -474,7 +474,9 @@ lamina_cli_job_sheets (const LaminaCliGlobals *globals,
       lamina_cli_error ("%s", error->message);
       return LAMINA_EXIT_BAD_INPUT;
     }
-  fprintf (lamina_cli_message_stream (output), _("job “%s”: %u entries, sheet set written to %s\n"),
+  fprintf (lamina_cli_message_stream (output),
+           g_dngettext (GETTEXT_PACKAGE, "job “%s”: %u entry, sheet set written to %s\n",
+                        "job “%s”: %u entries, sheet set written to %s\n", report->check->lines->len),
            report->job->id, report->check->lines->len, output);
   return LAMINA_EXIT_OK;
 }

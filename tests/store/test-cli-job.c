@@ -155,6 +155,12 @@ test_edit (void)
   g_clear_pointer (&err, g_free);
   g_assert_cmpint (run (&out, &err, "job", "list", "--json", NULL), ==, 0);
   g_assert_nonnull (strstr (out, "\"j1\""));
+  /* The sheet set's report counts its one entry in the singular. */
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_autofree char *pdf = test_library_path ("cli-job-edit.pdf");
+  g_assert_cmpint (run (&out, &err, "--force", "job", "sheets", "j1", "-o", pdf, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "job “j1”: 1 entry, sheet set written to "));
 }
 
 /* job sheets: one PDF (%PDF), refused without -o (2) and over an existing
