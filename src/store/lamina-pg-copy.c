@@ -354,7 +354,7 @@ write_revision (LaminaPg                           *self,
         "   checked_at, approved_by, approved_at, comment)"
         " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16)",
         params, "cannot copy a revision", error)
-      || !lamina_pg_index_revision (self, rev->construction, error))
+      || !lamina_pg_index_revision (self, rev->construction, TRUE, error))
     return FALSE;
   if (rev->field_check == NULL)
     return TRUE;

@@ -160,6 +160,8 @@ static const LaminaBackendVTable pg_vtable = {
   .read_all = lamina_pg_read_all,
   .write_all = lamina_pg_write_all,
   .server_init = lamina_pg_server_init,
+  .replace_draft = lamina_pg_replace_draft,
+  .drop_draft = lamina_pg_drop_draft,
 };
 
 /* What the database holds: -1 no Lamina library (@foreign: other tables

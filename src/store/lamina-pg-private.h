@@ -166,7 +166,13 @@ GPtrArray          *lamina_pg_list_tags        (LaminaBackend *backend, GError *
 char               *lamina_pg_search_words     (const LaminaConstruction *c);
 /* The tags, materials and search words of a revision being stored. */
 gboolean            lamina_pg_index_revision   (LaminaPg *self, const LaminaConstruction *c,
-                                                GError **error);
+                                                gboolean with_materials, GError **error);
+gboolean            lamina_pg_replace_draft    (LaminaBackend *backend,
+                                                const LaminaBackendRevision *rev,
+                                                const char *stamp, GError **error);
+gboolean            lamina_pg_drop_draft       (LaminaBackend *backend,
+                                                const LaminaBackendRevision *previous,
+                                                int draft, const char *stamp, GError **error);
 /* lamina-pg-copy.c */
 LaminaBackendDump  *lamina_pg_read_all         (LaminaBackend *backend, GError **error);
 gboolean            lamina_pg_write_all        (LaminaBackend *backend,

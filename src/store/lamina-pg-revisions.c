@@ -197,6 +197,7 @@ insert_revision_row (LaminaPg                     *self,
 gboolean
 lamina_pg_index_revision (LaminaPg                  *self,
                           const LaminaConstruction  *c,
+                          gboolean                   with_materials,
                           GError                   **error)
 {
   g_autoptr(GHashTable) materials = lamina_store_collect_materials (c, NULL);
@@ -225,7 +226,7 @@ lamina_pg_index_revision (LaminaPg                  *self,
   g_free (params->pdata[3]);
   params->pdata[2] = g_strjoinv ("\x1f", (char **) ids->pdata);
   params->pdata[3] = g_strjoinv ("\x1f", (char **) prints->pdata);
-  if (g_hash_table_size (materials) > 0
+  if (with_materials && g_hash_table_size (materials) > 0
       && !lamina_pg_run (self,
            "INSERT INTO revision_material (construction_id, revision, material_id, fingerprint)"
            " SELECT $1, $2, m, f FROM unnest (string_to_array ($3, chr (31)),"
@@ -278,7 +279,7 @@ store_revision_in_txn (LaminaPg                     *self,
   return check_base (self, rev->construction, base, error)
          && put_construction_row (self, rev->construction, rev->result, base == 0, error)
          && insert_revision_row (self, rev, error)
-         && lamina_pg_index_revision (self, rev->construction, error)
+         && lamina_pg_index_revision (self, rev->construction, TRUE, error)
          && refresh_material_changed (self, rev->construction, error);
 }
 
@@ -402,6 +403,138 @@ lamina_pg_get_history (LaminaBackend  *backend,
       return NULL;
     }
   return g_steal_pointer (&list);
+}
+
+/* Drafts edited in place (replace_draft, drop_draft): the head must still
+ * be draft @draft of a live construction, in the state @stamp names. */
+static gboolean
+check_draft_head (LaminaPg    *self,
+                  const char  *id,
+                  int          draft,
+                  const char  *stamp,
+                  GError     **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  int head = 0;
+  gboolean deleted = FALSE, same = FALSE;
+  LaminaStatus status = LAMINA_STATUS_DRAFT;
+
+  lamina_pg_add_text (params, id);
+  lamina_pg_add_text (params, stamp);
+  res = lamina_pg_query (self,
+    "SELECT c.head, c.deleted_at IS NOT NULL, r.status,"
+    "       (r.body::jsonb ->> 'draft_stamp') IS NOT DISTINCT FROM $2::text"
+    "  FROM construction c JOIN revision r ON r.construction_id = c.id AND r.revision = c.head"
+    " WHERE c.id = $1 FOR UPDATE OF c", params, "cannot read a construction", error);
+  if (res == NULL)
+    return FALSE;
+  if (PQntuples (res) > 0)
+    {
+      head = lamina_pg_int (res, 0, 0);
+      deleted = lamina_pg_bool (res, 0, 1);
+      lamina_status_from_string (lamina_pg_get (res, 0, 2), &status);
+      same = lamina_pg_bool (res, 0, 3);
+    }
+  PQclear (res);
+  if (head == 0 || deleted)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no construction “%s” in the library", id);
+      return FALSE;
+    }
+  if (head != draft || status != LAMINA_STATUS_DRAFT || !same)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
+                   "construction “%s” was changed by someone else (its latest revision is %d, "
+                   "%s, saved since you opened it); nothing was saved: reopen it and apply "
+                   "your change again", id, head, lamina_status_to_string (status));
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* What belongs to draft @draft alone: its materials, a stored 2-D check
+ * and its row (a draft has no review records); the head goes back one. */
+static gboolean
+delete_draft_rows (LaminaPg    *self,
+                   const char  *id,
+                   int          draft,
+                   GError     **error)
+{
+  static const char *const sql[] = {
+    "DELETE FROM revision_material WHERE construction_id = $1 AND revision = $2",
+    "DELETE FROM field_check WHERE construction_id = $1 AND revision = $2",
+    "DELETE FROM revision WHERE construction_id = $1 AND revision = $2 AND status = 'draft'",
+    "UPDATE construction SET head = $2::integer - 1 WHERE id = $1",
+  };
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, id);
+  lamina_pg_add_int (params, draft);
+  for (guint i = 0; i < G_N_ELEMENTS (sql); i++)
+    if (!lamina_pg_run (self, sql[i], params, "cannot replace a draft", error))
+      return FALSE;
+  return TRUE;
+}
+
+typedef struct
+{
+  const LaminaBackendRevision *rev;
+  const char                  *stamp;
+  int                          draft;
+} Draft;
+
+static gboolean
+replace_draft_txn (LaminaPg  *self,
+                   gpointer   data,
+                   GError   **error)
+{
+  Draft *d = data;
+  const LaminaConstruction *c = d->rev->construction;
+
+  return check_draft_head (self, c->id, c->revision, d->stamp, error)
+         && delete_draft_rows (self, c->id, c->revision, error)
+         && store_revision_in_txn (self, d->rev, c->revision - 1, error);
+}
+
+gboolean
+lamina_pg_replace_draft (LaminaBackend                *backend,
+                         const LaminaBackendRevision  *rev,
+                         const char                   *stamp,
+                         GError                      **error)
+{
+  Draft d = { rev, stamp, 0 };
+
+  return lamina_pg_transaction (SELF, replace_draft_txn, &d, error);
+}
+
+static gboolean
+drop_draft_txn (LaminaPg  *self,
+                gpointer   data,
+                GError   **error)
+{
+  Draft *d = data;
+  const LaminaConstruction *c = d->rev->construction;
+
+  return check_draft_head (self, c->id, d->draft, d->stamp, error)
+         && delete_draft_rows (self, c->id, d->draft, error)
+         && put_construction_row (self, c, d->rev->result, FALSE, error)
+         && lamina_pg_index_revision (self, c, FALSE, error)
+         && refresh_material_changed (self, c, error);
+}
+
+gboolean
+lamina_pg_drop_draft (LaminaBackend                *backend,
+                      const LaminaBackendRevision  *previous,
+                      int                           draft,
+                      const char                   *stamp,
+                      GError                      **error)
+{
+  Draft d = { previous, stamp, draft };
+
+  g_return_val_if_fail (previous->construction->revision == draft - 1, FALSE);
+  return lamina_pg_transaction (SELF, drop_draft_txn, &d, error);
 }
 
 /* Review acts: the schema's lamina_review_act does the whole act on the

@@ -36,6 +36,9 @@ static const char roles_sql[] =
   "  target_set, job, job_entry, field_check, climate, review_event TO lamina_author;"
   "GRANT INSERT, UPDATE ON material, climate, field_check, construction TO lamina_author;"
   "GRANT INSERT ON revision, revision_material TO lamina_author;"
+  /* A draft edited in place is removed and stored again (the guard keeps
+   * approved revisions; a reviewed one is held by its review records). */
+  "GRANT DELETE ON revision, revision_material, field_check TO lamina_author;"
   "GRANT INSERT, DELETE ON construction_tag TO lamina_author;"
   "GRANT INSERT, UPDATE, DELETE ON target_set, job, job_entry TO lamina_author;"
   "GRANT USAGE ON SEQUENCE construction_num_seq TO lamina_author;"

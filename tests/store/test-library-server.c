@@ -329,6 +329,51 @@ test_roles (void)
   g_assert_no_error (error);
 }
 
+/* A draft after an approval is edited in place by its author, and saving
+ * the approved build-up again removes it (replace_draft, drop_draft on
+ * the server). */
+static void
+test_draft_in_place (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("drafts");
+  g_autoptr(LaminaConstruction) wall = test_make_wall (library, "EW-30", "Draft wall", NULL, 150);
+  g_autoptr(LaminaConstruction) edit = NULL;
+  g_autoptr(LaminaConstruction) now = NULL;
+  g_autoptr(GPtrArray) history = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = lamina_library_create_construction (library, wall, "A. Planner", &error);
+  LaminaLayer *layer;
+
+  g_assert_no_error (error);
+  g_assert_true (lamina_library_mark_checked (library, id, 1, "C. Checker", &error));
+  g_assert_true (lamina_library_approve (library, id, 1, "D. Director", NULL, &error));
+  g_assert_no_error (error);
+
+  edit = lamina_library_dup_construction (library, id, 0, &error);
+  layer = edit->layers->pdata[1];
+  layer->thickness = 195;
+  g_assert_true (lamina_library_save_construction (library, edit, 1, "A. Planner", &error));
+  g_assert_no_error (error);
+  g_assert_cmpint (edit->revision, ==, 2);
+  layer->thickness = 220;
+  g_assert_true (lamina_library_save_construction (library, edit, 2, "A. Planner", &error));
+  g_assert_no_error (error);
+  history = lamina_library_dup_history (library, id, &error);
+  g_assert_cmpuint (history->len, ==, 2);
+  now = lamina_library_dup_construction (library, id, 0, &error);
+  g_assert_cmpint (now->revision, ==, 2);
+  g_assert_cmpfloat (((LaminaLayer *) now->layers->pdata[1])->thickness, ==, 220);
+
+  /* Back to the approved build-up: the draft goes, the approval is the latest. */
+  layer->thickness = 150;
+  g_assert_true (lamina_library_save_construction (library, edit, 2, "A. Planner", &error));
+  g_assert_no_error (error);
+  g_clear_pointer (&now, lamina_construction_free);
+  now = lamina_library_dup_construction (library, id, 0, &error);
+  g_assert_cmpint (now->revision, ==, 1);
+  g_assert_cmpint (now->status, ==, LAMINA_STATUS_APPROVED);
+}
+
 /* Clients at once, each with its own connection (issue 18: "two and five
  * concurrent clients editing, checking, approving and importing with
  * nothing lost and every refusal reported"). */
@@ -490,6 +535,7 @@ main (int    argc,
   g_test_add_func ("/store/server/notification", test_notification);
   g_test_add_func ("/store/server/refusals", test_refusals);
   g_test_add_func ("/store/server/roles", test_roles);
+  g_test_add_func ("/store/server/draft-in-place", test_draft_in_place);
   g_test_add_func ("/store/server/two-clients", test_two_clients);
   g_test_add_func ("/store/server/five-clients", test_five_clients);
   return g_test_run ();
