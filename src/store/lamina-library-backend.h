@@ -266,6 +266,13 @@ typedef struct
                                              const LaminaBackendRevision *previous,
                                              int draft, const char *stamp,
                                              GError **error);
+
+  /* The id of a live construction other than @except_id whose office code
+   * is @code (ASCII letters without case), or NULL without an error when
+   * none: codes are unique within a library.  NULL where a backend cannot
+   * tell (the front end then does not check). */
+  char               *(*find_code)          (LaminaBackend *backend, const char *code,
+                                             const char *except_id, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend
@@ -341,6 +348,26 @@ void           lamina_library_set_new_draft (LaminaConstruction *c,
                                              int                 revision,
                                              const char         *author);
 void           lamina_library_emit_changed (LaminaLibrary *self);
+/* lamina-library-review.c: @value NFC and trimmed, or NULL (INVALID,
+ * naming @field and the character's position) when it holds a control or
+ * format character. */
+char          *lamina_library_dup_clean_identity (const char  *value,
+                                                  const char  *field,
+                                                  GError     **error);
+/* lamina-library-constructions.c: @c's code (and, with @new_id, its id)
+ * cleaned as above, in place; @where prefixes the message ("construction
+ * 3 (line 40)"), NULL for none. */
+gboolean       lamina_library_clean_construction_identity (LaminaConstruction  *c,
+                                                           gboolean             new_id,
+                                                           const char          *where,
+                                                           GError             **error);
+/* The id of another live construction (not @except_id) with @code
+ * (ASCII letters compared without case), NULL without an error when none
+ * or when the backend cannot tell. */
+char          *lamina_library_dup_code_user (LaminaLibrary *self,
+                                             const char    *code,
+                                             const char    *except_id,
+                                             GError       **error);
 /* lamina-library-review.c: two names for one person (NFC, case-folded,
  * blanks trimmed). */
 gboolean       lamina_library_same_person  (const char *a,

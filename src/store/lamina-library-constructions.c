@@ -68,6 +68,82 @@ resolve_climate (LaminaLibrary       *self,
   return TRUE;
 }
 
+gboolean
+lamina_library_clean_construction_identity (LaminaConstruction  *c,
+                                            gboolean             new_id,
+                                            const char          *where,
+                                            GError             **error)
+{
+  g_autoptr(GError) local = NULL;
+  char *clean;
+
+  if (new_id && c->id != NULL)
+    {
+      if ((clean = lamina_library_dup_clean_identity (c->id, "id", &local)) == NULL)
+        goto fail;
+      g_free (c->id);
+      c->id = clean;
+      if (*c->id == '\0')
+        {
+          g_set_error_literal (&local, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                               "id: empty");
+          goto fail;
+        }
+    }
+  if (c->code != NULL)
+    {
+      if ((clean = lamina_library_dup_clean_identity (c->code, "code", &local)) == NULL)
+        goto fail;
+      g_free (c->code);
+      c->code = clean;
+      if (*c->code == '\0')
+        g_clear_pointer (&c->code, g_free);
+    }
+  return TRUE;
+fail:
+  if (where != NULL)
+    g_propagate_prefixed_error (error, g_steal_pointer (&local), "%s: ", where);
+  else
+    g_propagate_prefixed_error (error, g_steal_pointer (&local), "construction ");
+  return FALSE;
+}
+
+char *
+lamina_library_dup_code_user (LaminaLibrary *self,
+                              const char    *code,
+                              const char    *except_id,
+                              GError       **error)
+{
+  if (code == NULL || VT (self)->find_code == NULL)
+    return NULL;
+  return VT (self)->find_code (BE (self), code, except_id, error);
+}
+
+/* Office codes are unique within a library: a second "EW-101" is
+ * refused, naming the construction that has it. */
+static gboolean
+check_code_free (LaminaLibrary             *self,
+                 const LaminaConstruction  *c,
+                 GError                   **error)
+{
+  g_autoptr(GError) local = NULL;
+  g_autofree char *other = lamina_library_dup_code_user (self, c->code, c->id, &local);
+  g_autoptr(LaminaConstruction) user = NULL;
+
+  /* The check reads before the write's own transaction: a library busy
+   * or still being created by another program is not a reason to refuse
+   * the save (the write then reports what is wrong, if anything). */
+  if (local != NULL)
+    g_debug ("office code check skipped: %s", local->message);
+  if (other == NULL)
+    return TRUE;
+  user = VT (self)->get_construction (BE (self), other, 0, NULL);
+  g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS,
+               "construction code “%s”: already used by “%s” in this library; "
+               "office codes are unique", c->code, user && user->name ? user->name : other);
+  return FALSE;
+}
+
 /* @in_place (the stamp of the state it replaces): @c replaces the head
  * draft of the same number (see draft_after_approval) instead of going on
  * top of @base. */
@@ -89,7 +165,11 @@ store (LaminaLibrary       *self,
                            "construction name: required");
       return FALSE;
     }
-  if (!resolve_climate (self, c, error))
+  /* A new construction's id is cleaned too; an existing one is looked up
+   * as stored. */
+  if (!lamina_library_clean_construction_identity (c, base == 0 && !in_place, NULL, error)
+      || !resolve_climate (self, c, error)
+      || !check_code_free (self, c, error))
     return FALSE;
   lamina_library_prepare_revision (c, &result, &calc_error);
   rev.result = result;
@@ -281,6 +361,8 @@ lamina_library_save_construction (LaminaLibrary       *self,
   construction->modified_at = g_strdup (c->modified_at);
   g_free (construction->draft_stamp);
   construction->draft_stamp = g_strdup (c->draft_stamp);
+  g_free (construction->code);
+  construction->code = g_strdup (c->code);
   return TRUE;
 }
 
@@ -305,6 +387,8 @@ lamina_library_create_construction (LaminaLibrary       *self,
   g_free (construction->id);
   construction->id = g_strdup (c->id);
   lamina_library_set_new_draft (construction, 1, c->modified_by);
+  g_free (construction->code);
+  construction->code = g_strdup (c->code);
   g_free (construction->draft_stamp);
   construction->draft_stamp = g_strdup (c->draft_stamp);
   return g_strdup (c->id);

@@ -241,6 +241,31 @@ merge_construction (LaminaLibrary             *self,
       return TRUE;
     }
 
+  /* Office codes are unique within a library: another construction's
+   * code is a conflict, never a silent second "EW-101". */
+  {
+    g_autoptr(GError) code_error = NULL;
+    g_autofree char *other = lamina_library_dup_code_user (self, imported->code, imported->id,
+                                                           &code_error);
+    g_autoptr(LaminaConstruction) user = NULL;
+    g_autofree char *imported_label = NULL;
+
+    /* Read before the import's transaction: a busy library only skips
+     * the check. */
+    if (code_error != NULL)
+      g_debug ("office code check skipped: %s", code_error->message);
+    if (other != NULL)
+      {
+        user = VT (self)->get_construction (BE (self), other, 0, NULL);
+        imported_label = dup_label (imported);
+        report->n_conflicts++;
+        add_item (report, LAMINA_IMPORT_CONFLICT, FALSE, imported->id, imported->name, 0,
+                  g_strdup_printf (_("%s: the code %s is already used by “%s” in this library; "
+                                     "not imported (office codes are unique)"), imported_label,
+                                   imported->code, user && user->name ? user->name : other));
+        return TRUE;
+      }
+  }
   c = lamina_construction_copy (imported);
   g_ptr_array_add (keep, c);
   label = dup_label (c);
@@ -314,7 +339,8 @@ import_once (LaminaLibrary          *self,
   g_autoptr(GPtrArray) revisions = g_ptr_array_new_with_free_func ((GDestroyNotify) revision_free);
   g_autoptr(GPtrArray) comments = g_ptr_array_new_with_free_func (g_free);
   g_autoptr(GArray) bases = g_array_new (FALSE, FALSE, sizeof (int));
-  g_autoptr(GHashTable) seen = g_hash_table_new (g_str_hash, g_str_equal);
+  g_autoptr(GHashTable) seen = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  g_autoptr(GHashTable) codes = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_free);
   g_autoptr(GPtrArray) target_sets = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_target_set_free);
   g_autoptr(GPtrArray) jobs = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_job_free);
   g_autofree char *now = lamina_library_dup_now ();
@@ -337,22 +363,48 @@ import_once (LaminaLibrary          *self,
       return NULL;
   for (guint i = 0; i < catalogue->constructions->len; i++)
     {
-      const LaminaConstruction *c = catalogue->constructions->pdata[i];
+      const LaminaConstruction *given = catalogue->constructions->pdata[i];
+      g_autoptr(LaminaConstruction) c = NULL;
+      g_autofree char *where = NULL;
+      g_autofree char *code_key = NULL;
 
-      if (c->id == NULL || c->name == NULL)
+      if (given->id == NULL || given->name == NULL)
         {
           g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
                        "construction %u (line %d): %s required; nothing was imported",
-                       i + 1, c->line, c->id == NULL ? "id" : "name");
+                       i + 1, given->line, given->id == NULL ? "id" : "name");
           return NULL;
         }
-      if (!g_hash_table_add (seen, c->id))
+      /* Look-alike ids and codes: NFC, and no control or format
+       * characters, or nothing is imported. */
+      c = lamina_construction_copy (given);
+      where = g_strdup_printf ("construction %u (line %d)", i + 1, given->line);
+      if (!lamina_library_clean_construction_identity (c, TRUE, where, error))
+        {
+          g_prefix_error (error, "nothing was imported: ");
+          return NULL;
+        }
+      if (!g_hash_table_add (seen, g_strdup (c->id)))
         {
           g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
                        "construction “%s” (line %d) appears twice; nothing was imported",
                        c->id, c->line);
           return NULL;
         }
+      code_key = c->code ? g_ascii_strdown (c->code, -1) : NULL;
+      if (code_key != NULL && g_hash_table_contains (codes, code_key))
+        {
+          g_autofree char *label = dup_label (c);
+
+          report->n_conflicts++;
+          add_item (report, LAMINA_IMPORT_CONFLICT, FALSE, c->id, c->name, 0,
+                    g_strdup_printf (_("%s: the code %s is also used by “%s” earlier in the "
+                                       "document; not imported (office codes are unique)"),
+                                     label, c->code, (char *) g_hash_table_lookup (codes, code_key)));
+          continue;
+        }
+      if (code_key != NULL)
+        g_hash_table_insert (codes, g_steal_pointer (&code_key), g_strdup (c->name));
       if (!merge_construction (self, c, flags, author, report, keep, bases, error))
         return NULL;
     }

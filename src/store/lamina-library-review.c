@@ -196,20 +196,22 @@ check_revision (LaminaLibrary             *self,
   return TRUE;
 }
 
-/* A person's name as recorded: NFC, and no control or format characters
- * (bidi overrides, zero-width characters, newlines, escape codes) that
- * would make two names look alike or rewrite a terminal line. */
-static char *
-dup_clean_name (const char  *name,
-                GError     **error)
+/* A name, id or code as recorded: NFC, blanks trimmed, and no control or
+ * format characters (bidi overrides, zero-width characters, newlines,
+ * escape codes, line separators) that would make two look alike or
+ * rewrite a terminal line.  @field names it in the message. */
+char *
+lamina_library_dup_clean_identity (const char  *value,
+                                   const char  *field,
+                                   GError     **error)
 {
   g_autofree char *nfc = NULL;
   glong position = 1;
 
-  if (!g_utf8_validate (name, -1, NULL) || (nfc = g_utf8_normalize (name, -1, G_NORMALIZE_NFC)) == NULL)
+  if (!g_utf8_validate (value, -1, NULL) || (nfc = g_utf8_normalize (value, -1, G_NORMALIZE_NFC)) == NULL)
     {
-      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
-                           "reviewer name (--by): not valid UTF-8");
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                   "%s: not valid UTF-8", field);
       return NULL;
     }
   for (const char *p = nfc; *p; p = g_utf8_next_char (p), position++)
@@ -217,11 +219,12 @@ dup_clean_name (const char  *name,
       gunichar ch = g_utf8_get_char (p);
       GUnicodeType type = g_unichar_type (ch);
 
-      if (type == G_UNICODE_CONTROL || type == G_UNICODE_FORMAT)
+      if (type == G_UNICODE_CONTROL || type == G_UNICODE_FORMAT
+          || type == G_UNICODE_LINE_SEPARATOR || type == G_UNICODE_PARAGRAPH_SEPARATOR)
         {
           g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
-                       "reviewer name (--by): character %ld is U+%04X, a control or invisible "
-                       "formatting character; type the name in plain letters", position, ch);
+                       "%s: character %ld is U+%04X, a control or invisible formatting "
+                       "character; type it in plain letters", field, position, ch);
           return NULL;
         }
     }
@@ -233,7 +236,7 @@ record (LaminaLibrary       *self,
         LaminaBackendReview *r,
         GError             **error)
 {
-  g_autofree char *trimmed = dup_clean_name (r->by ? r->by : "", error);
+  g_autofree char *trimmed = lamina_library_dup_clean_identity (r->by ? r->by : "", "reviewer name (--by)", error);
   g_autofree char *now = lamina_library_dup_now ();
   g_autofree char *reason = r->reason ? g_strstrip (g_strdup (r->reason)) : NULL;
   LaminaReviewPolicy policy;

@@ -123,6 +123,7 @@ static const LaminaBackendVTable sqlite_vtable = {
   .set_moisture_limit = lamina_sqlite_backend_set_moisture_limit,
   .replace_draft = lamina_sqlite_backend_replace_draft,
   .drop_draft = lamina_sqlite_backend_drop_draft,
+  .find_code = lamina_sqlite_backend_find_code,
 };
 
 static LaminaSqlite *

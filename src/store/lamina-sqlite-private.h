@@ -143,6 +143,10 @@ gboolean            lamina_sqlite_backend_drop_draft       (LaminaBackend *backe
                                                             int draft,
                                                             const char *stamp,
                                                             GError **error);
+char               *lamina_sqlite_backend_find_code        (LaminaBackend *backend,
+                                                            const char *code,
+                                                            const char *except_id,
+                                                            GError **error);
 gboolean            lamina_sqlite_backend_set_deleted      (LaminaBackend *backend,
                                                             const char *id,
                                                             const char *when,

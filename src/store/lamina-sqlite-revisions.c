@@ -527,6 +527,31 @@ lamina_sqlite_backend_drop_draft (LaminaBackend                *backend,
   return TRUE;
 }
 
+char *
+lamina_sqlite_backend_find_code (LaminaBackend  *backend,
+                                 const char     *code,
+                                 const char     *except_id,
+                                 GError        **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
+    "SELECT id FROM construction WHERE code = ?1 COLLATE NOCASE AND id IS NOT ?2"
+    "   AND deleted_at IS NULL ORDER BY num LIMIT 1;", error);
+  char *id = NULL;
+  int rc;
+
+  if (stmt == NULL)
+    return NULL;
+  lamina_sqlite_bind_text (stmt, 1, code);
+  lamina_sqlite_bind_text (stmt, 2, except_id);
+  rc = sqlite3_step (stmt);
+  if (rc == SQLITE_ROW)
+    id = lamina_sqlite_column_dup (stmt, 0);
+  else if (rc != SQLITE_DONE)
+    lamina_sqlite_set_error (SELF, rc, "cannot read a construction", error);
+  sqlite3_reset (stmt);
+  return id;
+}
+
 gboolean
 lamina_sqlite_backend_set_deleted (LaminaBackend  *backend,
                                    const char     *id,
