@@ -13,6 +13,7 @@
 #include "lamina-demo.h"
 #include "lamina-history-window.h"
 #include "lamina-materials-window.h"
+#include "lamina-review-dialog.h"
 #include "lamina-climates-window.h"
 #include "lamina-window-private.h"
 
@@ -45,6 +46,9 @@ lamina_window_update_actions (LaminaWindow *self)
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.approve",
                                  writable && open && !conflict
                                  && state->status == LAMINA_STATUS_CHECKED);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.withdraw",
+                                 writable && open && !conflict
+                                 && state->status == LAMINA_STATUS_APPROVED);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.history", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.used-in-jobs", open);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.update-materials", writable && open);
@@ -98,6 +102,17 @@ after_review (LaminaWindow *self,
   lamina_window_notify (self, reload_error ? reload_error->message : message);
 }
 
+/* After the review dialog recorded an approval or a withdrawal. */
+static void
+on_review_done_cb (GtkWindow  *parent,
+                   const char *message)
+{
+  LaminaWindow *self = LAMINA_WINDOW (parent);
+
+  if (self->document != NULL)
+    after_review (self, TRUE, NULL, message);
+}
+
 static void
 review_action (GtkWidget  *widget,
                const char *name,
@@ -122,14 +137,15 @@ review_action (GtkWidget  *widget,
   lamina_document_commit (self->document, NULL);
   id = lamina_document_get_id (self->document);
   revision = lamina_document_get_base_revision (self->document);
-  if (g_str_equal (name, "win.approve"))
+  if (g_str_equal (name, "win.approve") || g_str_equal (name, "win.withdraw"))
     {
-      LaminaReviewPolicy policy = lamina_library_get_review_policy (self->library);
-
-      ok = lamina_library_approve (self->library, id, revision, reviewer, NULL, &error);
-      /* TRANSLATORS: the last %s is "four-eyes" or "single" */
-      message = g_strdup_printf (_("Revision %d approved by %s (review policy: %s)"), revision, reviewer,
-                                 lamina_review_policy_to_string (policy));
+      /* Asked first, naming the revision; the dialog applies the policy
+       * and shows a refusal. */
+      lamina_review_dialog_present (GTK_WINDOW (self), self->library, id, revision,
+                                    g_str_equal (name, "win.approve")
+                                    ? LAMINA_REVIEW_DIALOG_APPROVE : LAMINA_REVIEW_DIALOG_WITHDRAW,
+                                    reviewer, on_review_done_cb);
+      return;
     }
   else
     {
@@ -259,11 +275,8 @@ derive_action (GtkWidget  *widget,
 }
 
 static void
-delete_action (GtkWidget  *widget,
-               const char *name,
-               GVariant   *parameter)
+delete_open_construction (LaminaWindow *self)
 {
-  LaminaWindow *self = LAMINA_WINDOW (widget);
   g_autoptr(GError) error = NULL;
   g_autofree char *reviewer = dup_reviewer (self);
   g_autofree char *id = NULL;
@@ -271,7 +284,6 @@ delete_action (GtkWidget  *widget,
 
   if (self->document == NULL)
     return;
-  lamina_document_commit (self->document, NULL);
   id = g_strdup (lamina_document_get_id (self->document));
   message = g_strdup_printf (_("“%s” deleted"), lamina_document_get_construction (self->document)->name);
   if (!lamina_library_delete_construction (self->library, id, reviewer, &error))
@@ -285,6 +297,38 @@ delete_action (GtkWidget  *widget,
   gtk_stack_set_visible_child_name (self->main_stack, "empty");
   lamina_window_refresh_list (self);
   lamina_window_show_undo_delete (self, message, id);
+}
+
+static void
+on_delete_confirmed_cb (GtkWindow  *parent,
+                        const char *message)
+{
+  delete_open_construction (LAMINA_WINDOW (parent));
+}
+
+/* Deleting an approved construction asks first (sheets and jobs may rely
+ * on it); anything else is deleted at once, with Undo in the message. */
+static void
+delete_action (GtkWidget  *widget,
+               const char *name,
+               GVariant   *parameter)
+{
+  LaminaWindow *self = LAMINA_WINDOW (widget);
+  const LaminaConstruction *state;
+  g_autofree char *reviewer = dup_reviewer (self);
+
+  if (self->document == NULL)
+    return;
+  lamina_document_commit (self->document, NULL);
+  state = lamina_document_get_construction (self->document);
+  if (state->status == LAMINA_STATUS_APPROVED)
+    {
+      lamina_review_dialog_present (GTK_WINDOW (self), self->library, lamina_document_get_id (self->document),
+                                    state->revision, LAMINA_REVIEW_DIALOG_DELETE, reviewer,
+                                    on_delete_confirmed_cb);
+      return;
+    }
+  delete_open_construction (self);
 }
 
 static void
@@ -424,6 +468,7 @@ lamina_window_install_actions (GtkWidgetClass *widget_class)
   gtk_widget_class_install_action (widget_class, "win.redo", NULL, undo_action);
   gtk_widget_class_install_action (widget_class, "win.mark-checked", NULL, review_action);
   gtk_widget_class_install_action (widget_class, "win.approve", NULL, review_action);
+  gtk_widget_class_install_action (widget_class, "win.withdraw", NULL, review_action);
   gtk_widget_class_install_action (widget_class, "win.update-materials", NULL, update_materials_action);
   gtk_widget_class_install_action (widget_class, "win.history", NULL, history_action);
   gtk_widget_class_install_action (widget_class, "win.used-in-jobs", NULL, used_in_jobs_action);

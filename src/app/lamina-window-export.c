@@ -36,6 +36,10 @@ on_chooser_response_cb (GtkNativeDialog *dialog,
     {
       g_autoptr(GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
 
+      /* Only the import dialog offers it ("true" when ticked). */
+      chooser->window->import_keep_review =
+        g_strcmp0 (gtk_file_chooser_get_choice (GTK_FILE_CHOOSER (dialog), "keep-review"), "true") == 0;
+
       chooser->done (chooser->window, file);
     }
   gtk_native_dialog_destroy (dialog);
@@ -44,14 +48,16 @@ on_chooser_response_cb (GtkNativeDialog *dialog,
   g_free (chooser);
 }
 
+/* @keep_review: offer the import's "keep the review state" choice. */
 static void
-choose_file (LaminaWindow *self,
-             const char   *title,
-             gboolean      save,
-             const char   *suggested,
-             const char   *pattern,
-             const char   *pattern_name,
-             ChooserDone   done)
+choose_file_full (LaminaWindow *self,
+                  const char   *title,
+                  gboolean      save,
+                  const char   *suggested,
+                  const char   *pattern,
+                  const char   *pattern_name,
+                  gboolean      keep_review,
+                  ChooserDone   done)
 {
   GtkFileChooserNative *native;
   g_autoptr(GtkFileFilter) filter = gtk_file_filter_new ();
@@ -68,8 +74,27 @@ choose_file (LaminaWindow *self,
   gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (native), TRUE);
   chooser->window = g_object_ref (self);
   chooser->done = done;
+  if (keep_review)
+    {
+      gtk_file_chooser_add_choice (GTK_FILE_CHOOSER (native), "keep-review",
+                                   _("Keep the document’s checked and approved states (approved elsewhere)"),
+                                   NULL, NULL);
+      gtk_file_chooser_set_choice (GTK_FILE_CHOOSER (native), "keep-review", "false");
+    }
   g_signal_connect (native, "response", G_CALLBACK (on_chooser_response_cb), chooser);
   gtk_native_dialog_show (GTK_NATIVE_DIALOG (native));
+}
+
+static void
+choose_file (LaminaWindow *self,
+             const char   *title,
+             gboolean      save,
+             const char   *suggested,
+             const char   *pattern,
+             const char   *pattern_name,
+             ChooserDone   done)
+{
+  choose_file_full (self, title, save, suggested, pattern, pattern_name, FALSE, done);
 }
 
 static void
@@ -551,7 +576,10 @@ import_xml_chosen (LaminaWindow *self,
   g_autoptr(LaminaImportReport) report = NULL;
 
   if (catalogue != NULL)
-    report = lamina_library_import (self->library, catalogue, LAMINA_IMPORT_DEFAULT,
+    /* Another library's approvals arrive as drafts unless the user chose
+     * to keep them (recorded as approved elsewhere). */
+    report = lamina_library_import (self->library, catalogue,
+                                    self->import_keep_review ? LAMINA_IMPORT_KEEP_REVIEW : LAMINA_IMPORT_DEFAULT,
                                     *reviewer ? reviewer : NULL, &error);
   if (report == NULL)
     {
@@ -568,8 +596,8 @@ import_xml_action (GtkWidget  *widget,
                    const char *name,
                    GVariant   *parameter)
 {
-  choose_file (LAMINA_WINDOW (widget), _("Import Catalogue XML"), FALSE, NULL,
-               "*.xml", _("Catalogue XML"), import_xml_chosen);
+  choose_file_full (LAMINA_WINDOW (widget), _("Import Catalogue XML"), FALSE, NULL,
+                    "*.xml", _("Catalogue XML"), TRUE, import_xml_chosen);
 }
 
 /* Printing: the sheet PDF, drawn page by page through poppler, so that

@@ -46,6 +46,7 @@ struct _LaminaWindow
   gboolean                tags_loaded; /* on first use of the tag filter */
   GCancellable           *cancellable;
   char                   *deleted_id;
+  gboolean                import_keep_review;  /* the import dialog's choice */
   char                   *notice;
   guint                   toast_timeout;
   guint                   refresh_idle;

@@ -34,6 +34,7 @@
 #include "lamina-compare-window.h"
 #include "lamina-text.h"
 #include "lamina-window.h"
+#include "lamina-review-dialog-private.h"
 #include "lamina-window-private.h"
 #include "lamina-app-test-util.h"
 
@@ -590,6 +591,22 @@ test_list_error_shown (Fixture       *f,
   g_assert_true (gtk_widget_has_css_class (GTK_WIDGET (f->window->count_label), "lamina-error"));
 }
 
+/* The review dialog the window presented (approve, withdraw, delete). */
+static LaminaReviewDialog *
+find_review_dialog (void)
+{
+  GListModel *toplevels = gtk_window_get_toplevels ();   /* not owned */
+
+  for (guint i = 0; i < g_list_model_get_n_items (toplevels); i++)
+    {
+      g_autoptr(GObject) w = g_list_model_get_item (toplevels, i);
+
+      if (LAMINA_IS_REVIEW_DIALOG (w))
+        return LAMINA_REVIEW_DIALOG (w);
+    }
+  return NULL;
+}
+
 static void
 test_approve_then_edit (Fixture       *f,
                         gconstpointer  data)
@@ -621,8 +638,34 @@ test_approve_then_edit (Fixture       *f,
    * author. */
   g_settings_set_string (settings, "reviewer-name", "C. Checker");
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.mark-checked", NULL));
+  /* Four eyes through the window: the author is refused in the dialog,
+   * which names the revision and stays open; nothing is recorded. */
+  {
+    g_autofree char *author = g_strdup (open_state (f)->modified_by);
+    g_autofree char *expected = g_strdup_printf ("revision %d", open_state (f)->revision);
+    LaminaReviewDialog *dialog;
+
+    g_settings_set_string (settings, "reviewer-name", author);
+    g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.approve", NULL));
+    dialog = find_review_dialog ();
+    g_assert_nonnull (dialog);
+    g_assert_nonnull (strstr (gtk_label_get_text (dialog->heading), expected));
+    g_assert_false (lamina_review_dialog_accept (dialog));
+    g_assert_true (gtk_widget_get_visible (GTK_WIDGET (dialog->error)));
+    g_assert_nonnull (strstr (gtk_label_get_text (dialog->error), "four eyes"));
+    g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_CHECKED);
+    {
+      const char *build = g_getenv ("LAMINA_BUILD_DIR");
+      g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "review-refused.png", NULL);
+
+      wait_for_draw (GTK_WIDGET (dialog));
+      save_png (GTK_WIDGET (dialog), path);
+    }
+    gtk_window_destroy (GTK_WINDOW (dialog));
+  }
   g_settings_set_string (settings, "reviewer-name", "R. Testlund");
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.approve", NULL));
+  g_assert_true (lamina_review_dialog_accept (find_review_dialog ()));
   g_test_message ("after approve: %s", lamina_window_get_notice (f->window));
   g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_APPROVED);
   revision = open_state (f)->revision;
@@ -643,6 +686,98 @@ test_approve_then_edit (Fixture       *f,
   g_assert_cmpint (approved->status, ==, LAMINA_STATUS_APPROVED);
   g_assert_nonnull (lamina_window_get_notice (f->window));
   g_assert_nonnull (strstr (lamina_window_get_notice (f->window), "draft"));
+}
+
+static void
+save_toast (Fixture    *f,
+            const char *name)
+{
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", name, NULL);
+
+  wait_for_draw (GTK_WIDGET (f->window));
+  save_png (GTK_WIDGET (f->window), path);
+}
+
+/* Withdrawing an approval asks for a reason and records it; deleting an
+ * approved construction asks first; the undo message reads in the light
+ * and the dark style (tests/app/toast-light.png, toast-dark.png). */
+static void
+test_review_dialogs (Fixture       *f,
+                     gconstpointer  data)
+{
+  g_autoptr(GSettings) settings = g_settings_new (APP_ID);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) events = NULL;
+  GListModel *list = G_LIST_MODEL (lamina_window_get_list (f->window));
+  LaminaReviewDialog *dialog;
+  const LaminaReviewEvent *last;
+  guint n = g_list_model_get_n_items (list);
+
+  /* EW-101 is approved in the demo. */
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr(LaminaConstructionItem) item = g_list_model_get_item (list, i);
+
+      if (g_strcmp0 (lamina_construction_item_get_summary (item)->code, "EW-101") == 0)
+        g_assert_true (lamina_window_open (f->window, lamina_construction_item_get_id (item), &error));
+    }
+  g_assert_cmpstr (open_state (f)->code, ==, "EW-101");
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_APPROVED);
+  g_settings_set_string (settings, "reviewer-name", "B. Partner");
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.withdraw", NULL));
+  dialog = find_review_dialog ();
+  g_assert_nonnull (dialog);
+  g_assert_nonnull (strstr (gtk_label_get_text (dialog->heading), "EW-101 revision"));
+  /* No reason, no withdrawal. */
+  g_assert_false (lamina_review_dialog_accept (dialog));
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_APPROVED);
+  gtk_editable_set_text (GTK_EDITABLE (dialog->reason), "insulation product withdrawn by its maker");
+  {
+    const char *build = g_getenv ("LAMINA_BUILD_DIR");
+    g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "review-withdraw.png", NULL);
+
+    wait_for_draw (GTK_WIDGET (dialog));
+    save_png (GTK_WIDGET (dialog), path);
+  }
+  g_assert_true (lamina_review_dialog_accept (dialog));
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_CHECKED);
+  events = lamina_library_dup_review_events (f->library, open_state (f)->id, &error);
+  g_assert_no_error (error);
+  last = events->pdata[events->len - 1];
+  g_assert_cmpstr (last->act, ==, "withdrawn");
+  g_assert_cmpstr (last->by, ==, "B. Partner");
+  g_assert_cmpstr (last->reason, ==, "insulation product withdrawn by its maker");
+
+  /* Approve again (the dialog names the revision), then delete: asked. */
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.approve", NULL));
+  dialog = find_review_dialog ();
+  {
+    const char *build = g_getenv ("LAMINA_BUILD_DIR");
+    g_autofree char *path = g_build_filename (build ? build : ".", "tests", "app", "review-approve.png", NULL);
+
+    wait_for_draw (GTK_WIDGET (dialog));
+    save_png (GTK_WIDGET (dialog), path);
+  }
+  g_assert_true (lamina_review_dialog_accept (dialog));
+  g_assert_cmpint (open_state (f)->status, ==, LAMINA_STATUS_APPROVED);
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.delete", NULL);
+  dialog = find_review_dialog ();
+  g_assert_nonnull (dialog);
+  g_assert_nonnull (strstr (gtk_label_get_text (dialog->heading), "Delete EW-101"));
+  /* Cancelled: nothing deleted. */
+  gtk_window_destroy (GTK_WINDOW (dialog));
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, n);
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.delete", NULL);
+  g_assert_true (lamina_review_dialog_accept (find_review_dialog ()));
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, n - 1);
+  g_object_set (gtk_settings_get_default (), "gtk-application-prefer-dark-theme", FALSE, NULL);
+  save_toast (f, "toast-light.png");
+  g_object_set (gtk_settings_get_default (), "gtk-application-prefer-dark-theme", TRUE, NULL);
+  save_toast (f, "toast-dark.png");
+  g_object_set (gtk_settings_get_default (), "gtk-application-prefer-dark-theme", FALSE, NULL);
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo-delete", NULL);
+  g_assert_cmpuint (g_list_model_get_n_items (list), ==, n);
 }
 
 static void
@@ -1672,6 +1807,7 @@ main (int   argc,
       g_test_add ("/app/window/ground-and-taper", Fixture, NULL, fixture_setup, test_ground_and_taper, fixture_teardown);
       g_test_add ("/app/window/bridged-parts", Fixture, NULL, fixture_setup, test_bridged_parts, fixture_teardown);
       g_test_add ("/app/window/compare-revisions", Fixture, NULL, fixture_setup, test_compare_revisions, fixture_teardown);
+      g_test_add ("/app/window/review-dialogs", Fixture, NULL, fixture_setup, test_review_dialogs, fixture_teardown);
       g_test_add ("/app/window/materials-manager", Fixture, NULL, fixture_setup, test_materials_manager, fixture_teardown);
       g_test_add ("/app/window/export", Fixture, NULL, fixture_setup, test_export, fixture_teardown);
       g_test_add ("/app/window/render-png", Fixture, NULL, fixture_setup, test_render_png, fixture_teardown);
