@@ -47,6 +47,7 @@ print_field (const LaminaConstruction *c,
              const LaminaFieldResult  *f)
 {
   const LaminaFieldRefinement *ref = &f->refinement;
+  g_autofree char *caution = lamina_cli_caution (LAMINA_CLI_CAUTION_FIELD);
 
   printf ("%s  %s\n", c->code ? c->code : c->id, c->name ? c->name : "");
   printf (_("  2-D check (EN ISO 10211): one module %.0f mm wide, %.1f mm thick, %u cells\n"),
@@ -68,7 +69,7 @@ print_field (const LaminaConstruction *c,
             "relative residual %g\n"), LAMINA_FIELD_SOLVER_TOLERANCE);
   for (guint k = 0; k < f->notes->len; k++)
     printf ("  %s\n", (const char *) f->notes->pdata[k]);
-  printf ("  %s\n\n", lamina_cli_caution ());
+  printf ("  %s\n\n", caution);
 }
 
 static gboolean

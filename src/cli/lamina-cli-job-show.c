@@ -164,6 +164,7 @@ add_line (JsonBuilder         *b,
   lamina_cli_json_add_string (b, "use", e->use);
   lamina_cli_json_add_string (b, "location", e->location);
   lamina_cli_json_add_number (b, "u", line->u);
+  lamina_cli_json_add_string (b, "method", isfinite (line->u) ? lamina_cli_method (c->has_ground) : NULL);
   lamina_cli_json_add_number (b, "target", line->max_u);
   json_builder_set_member_name (b, "met");
   if (line->verdict == LAMINA_VERDICT_MET || line->verdict == LAMINA_VERDICT_NOT_MET)
@@ -347,6 +348,8 @@ print_text (LaminaLibrary         *library,
 {
   const LaminaJob *job = report->job;
   const LaminaJobCheck *check = report->check;
+  gboolean ground = FALSE;
+  g_autofree char *caution = NULL;
 
   printf ("%s %s — %s\n", job->number ? job->number : "", job->name,
           lamina_job_status_to_string (job->status));
@@ -373,6 +376,7 @@ print_text (LaminaLibrary         *library,
               l->entry->use, l->u, l->max_u, verdict_text (l->verdict), l->entry->area, l->ua);
       for (guint k = 0; k < l->notes->len; k++)
         printf ("       ! %s\n", (const char *) l->notes->pdata[k]);
+      ground |= c != NULL && c->has_ground && isfinite (l->u);
       print_moisture (l);
       print_differences (library, l->entry);
     }
@@ -382,7 +386,8 @@ print_text (LaminaLibrary         *library,
     printf (_("Linear thermal bridges entered by hand (Σ ψ·l): %.2f W/K; together %.2f W/K\n"),
             check->h_junctions, check->h_total);
   printf (_("%u met, %u not met, %u open\n"), check->n_met, check->n_not_met, check->n_open);
-  printf ("%s\n", lamina_cli_caution ());
+  caution = lamina_cli_caution (ground ? LAMINA_CLI_CAUTION_MIXED : LAMINA_CLI_CAUTION_LAYERS);
+  printf ("%s\n", caution);
 }
 
 /* job show JOB [--json] */

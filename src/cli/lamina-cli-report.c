@@ -11,11 +11,37 @@
 #include "lamina-dynamic.h"
 
 const char *
-lamina_cli_caution (void)
+lamina_cli_method (gboolean ground)
 {
-  return _("Caution: figures are for the stated design conditions by EN ISO 6946:2017. Check product "
-           "declarations, local building codes and condensation risk (EN ISO 13788) with a licensed "
-           "professional before use.");
+  return ground ? "EN ISO 13370:2017" : "EN ISO 6946:2017";
+}
+
+char *
+lamina_cli_caution (LaminaCliCaution method)
+{
+  const char *by;
+
+  switch (method)
+    {
+    case LAMINA_CLI_CAUTION_GROUND:
+      by = _("by EN ISO 13370:2017 with the ground (the floor itself by EN ISO 6946:2017), for the stated "
+             "plan and soil");
+      break;
+    case LAMINA_CLI_CAUTION_MIXED:
+      by = _("by EN ISO 6946:2017, ground floors with the ground by EN ISO 13370:2017 for the stated plan "
+             "and soil");
+      break;
+    case LAMINA_CLI_CAUTION_FIELD:
+      by = _("by EN ISO 10211:2017 (a 2-D numerical calculation)");
+      break;
+    case LAMINA_CLI_CAUTION_LAYERS:
+    default:
+      by = _("by EN ISO 6946:2017");
+      break;
+    }
+  return g_strdup_printf (_("Caution: figures are for the stated design conditions %s. Check product "
+                            "declarations, local building codes and condensation risk (EN ISO 13788) "
+                            "with a licensed professional before use."), by);
 }
 
 void
@@ -185,6 +211,8 @@ lamina_cli_result_to_json (const LaminaConstruction *c,
   json_builder_add_string_value (b, lamina_element_to_string (c->element));
   json_builder_set_member_name (b, "heat_flow");
   json_builder_add_string_value (b, lamina_heat_flow_to_string (r->heat_flow));
+  /* The method of the U that is reported (ground floors: ground.u). */
+  lamina_cli_json_add_string (b, "method", lamina_cli_method (r->has_ground));
   lamina_cli_json_add_number (b, "rsi", r->rsi);
   lamina_cli_json_add_number (b, "rse", r->rse);
   lamina_cli_json_add_number (b, "r_upper", r->r_upper);
@@ -328,6 +356,8 @@ lamina_cli_print_result (FILE                     *out,
 {
   char reported[LAMINA_U_TEXT_SIZE];
   g_autoptr(GError) dynamic_error = NULL;
+  g_autofree char *caution = lamina_cli_caution (r->has_ground ? LAMINA_CLI_CAUTION_GROUND
+                                                               : LAMINA_CLI_CAUTION_LAYERS);
   LaminaDynamic dynamic;
 
   fprintf (out, "%s%s%s — %s\n", c->code ? c->code : "", c->code ? " " : "", c->id, c->name);
@@ -369,5 +399,5 @@ lamina_cli_print_result (FILE                     *out,
     fprintf (out, _("  warning: %s\n"), ((LaminaWarning *) r->warnings->pdata[i])->message);
   if (dynamic_error != NULL)
     fprintf (out, _("  warning: %s\n"), dynamic_error->message);
-  fprintf (out, "  %s\n\n", lamina_cli_caution ());
+  fprintf (out, "  %s\n\n", caution);
 }

@@ -50,7 +50,18 @@ gboolean  lamina_cli_print_moisture_own (FILE                   *out,
                                          const LaminaConstruction *construction,
                                          double                  limit,
                                          GError                **error);
-/* The caution printed under every result. */
-const char *lamina_cli_caution        (void);
+/* Which method the figures above a caution come from. */
+typedef enum
+{
+  LAMINA_CLI_CAUTION_LAYERS,  /* EN ISO 6946 */
+  LAMINA_CLI_CAUTION_GROUND,  /* a ground floor's U with the ground, EN ISO 13370 */
+  LAMINA_CLI_CAUTION_MIXED,   /* a list with both (a job) */
+  LAMINA_CLI_CAUTION_FIELD,   /* the 2-D check, EN ISO 10211 */
+} LaminaCliCaution;
+
+/* The caution printed under every result, naming the method used. */
+char       *lamina_cli_caution        (LaminaCliCaution method);
+/* The "method" JSON value: the standard the reported U comes from. */
+const char *lamina_cli_method         (gboolean ground);
 
 G_END_DECLS

@@ -58,6 +58,7 @@ print_solve (const LaminaConstruction *c,
 {
   const LaminaLayer *layer = c->layers->pdata[s->layer - 1];
   char reported[LAMINA_U_TEXT_SIZE];
+  g_autofree char *caution = lamina_cli_caution (LAMINA_CLI_CAUTION_LAYERS);
 
   printf ("%s%s%s — %s\n", c->code ? c->code : "", c->code ? " " : "", c->id, c->name);
   printf (_("  layer %u (%s), now %.1f mm, U %.4f W/(m²K)\n"), s->layer, lamina_layer_get_label (layer),
@@ -66,7 +67,7 @@ print_solve (const LaminaConstruction *c,
   printf (s->stock ? _("  build %g mm (stock thickness): U %.4f W/(m²K), reported U = %s\n")
                    : _("  build %g mm (next 10 mm): U %.4f W/(m²K), reported U = %s\n"),
           s->thickness_snapped, s->u_snapped, lamina_format_u (reported, s->u_snapped));
-  printf ("  %s\n\n", lamina_cli_caution ());
+  printf ("  %s\n\n", caution);
 }
 
 /* Solves one construction; FALSE after printing a message starting with

@@ -293,6 +293,43 @@ test_method_json (void)
   g_assert_false (json_object_has_member (roof, "ground"));
 }
 
+/* The caution and "method" name the method the reported U comes from: a
+ * floor with the ground by EN ISO 13370:2017 (its clause 9.1 applies
+ * Rf from EN ISO 6946), everything else by EN ISO 6946:2017. */
+static void
+test_method_named (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "examples",
+                                            "ground-floor-and-tapered-roof.xml", NULL);
+  const char *json[] = { "calc", "--json", path, NULL };
+  const char *slab_text[] = { "calc", path, "--id", "slab-on-ground", NULL };
+  const char *roof_text[] = { "calc", path, "--id", "tapered-flat-roof", NULL };
+  g_autofree char *out = NULL, *err = NULL, *out2 = NULL, *err2 = NULL, *out3 = NULL, *err3 = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  g_autoptr(GError) error = NULL;
+  const char *caution;
+
+  g_assert_cmpint (run_cli (json, &out, &err), ==, 0);
+  g_assert_true (json_parser_load_from_data (parser, out, -1, &error));
+  g_assert_cmpstr (json_object_get_string_member (find_construction (parser, "slab-on-ground"), "method"),
+                   ==, "EN ISO 13370:2017");
+  g_assert_cmpstr (json_object_get_string_member (find_construction (parser, "tapered-flat-roof"), "method"),
+                   ==, "EN ISO 6946:2017");
+
+  g_assert_cmpint (run_cli (slab_text, &out2, &err2), ==, 0);
+  caution = strstr (out2, "Caution:");
+  g_assert_nonnull (caution);
+  g_assert_true (g_str_has_prefix (caution, "Caution: figures are for the stated design conditions by EN ISO "
+                                            "13370:2017 with the ground"));
+
+  g_assert_cmpint (run_cli (roof_text, &out3, &err3), ==, 0);
+  caution = strstr (out3, "Caution:");
+  g_assert_nonnull (caution);
+  g_assert_true (g_str_has_prefix (caution, "Caution: figures are for the stated design conditions by EN ISO "
+                                            "6946:2017."));
+  g_assert_null (strstr (out3, "13370"));
+}
+
 int
 main (int    argc,
       char **argv)
@@ -305,5 +342,6 @@ main (int    argc,
   g_test_add_func ("/cli/moisture/json", test_moisture_json);
   g_test_add_func ("/cli/moisture/in-calc", test_moisture_in_calc);
   g_test_add_func ("/cli/calc/method-json", test_method_json);
+  g_test_add_func ("/cli/calc/method-named", test_method_named);
   return g_test_run ();
 }

@@ -72,6 +72,8 @@ test_show_json (void)
                                       1e-12);
       g_assert_cmpfloat_with_epsilon (json_object_get_double_member (e, "ua"),
                                       u * json_object_get_double_member (e, "area"), 1e-9);
+      /* No entry of the demo job states its ground: every U by EN ISO 6946. */
+      g_assert_cmpstr (json_object_get_string_member (e, "method"), ==, "EN ISO 6946:2017");
       sum += u * json_object_get_double_member (e, "area");
     }
   g_assert_cmpfloat_with_epsilon (json_object_get_double_member (job, "h_t"), sum, 1e-9);
