@@ -135,7 +135,10 @@ draw_cover (SheetContext      *ctx,
   double w = ctx->right - ctx->left, y = ctx->top + (ctx->bottom - ctx->top) * 0.18;
   g_autofree char *conditions = dup_conditions (job);
   g_autofree char *targets = NULL;
-  g_autofree char *summary = g_strdup_printf (_("%u entries: %u meet their target, %u do not, %u without a target or figure"),
+  g_autofree char *summary = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                                           "%u entry: met %u, not met %u, without a target or figure %u",
+                                                           "%u entries: met %u, not met %u, without a target or figure %u",
+                                                           check->lines->len),
                                               check->lines->len, check->n_met, check->n_not_met,
                                               check->n_open);
 

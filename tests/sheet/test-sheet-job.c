@@ -140,6 +140,11 @@ test_sheet_set (void)
   assert_contains (cover, "2024-05-02", "cover");
   assert_contains (cover, "Submitted", "cover");
   assert_contains (cover, "Invented test table", "cover");
+  /* The count line agrees with the check, with numbers after their words
+   * so that one entry reads as well as four. */
+  g_snprintf (expect, sizeof expect, "4 entries: met %u, not met %u, without a target or figure %u",
+              f.check->n_met, f.check->n_not_met, f.check->n_open);
+  assert_contains (cover, expect, "cover count");
 
   schedule = dup_page_text (doc, 1);
   for (guint i = 0; i < f.constructions->len; i++)
