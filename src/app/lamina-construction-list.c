@@ -24,6 +24,8 @@ struct _LaminaConstructionList
   char               *tag;
   GHashTable         *pages;   /* page number → GPtrArray of items */
   guint               n_items;
+  gboolean            count_exact;  /* FALSE: more than COUNT_BOUND, not counted */
+  guint               count_idle;
   char               *error;
 };
 
@@ -43,33 +45,59 @@ set_error (LaminaConstructionList *self,
     g_warning ("Library list: %s", error->message);
 }
 
+/* Pages @first … @first + @n_pages − 1 in one query (one walk of the sort
+ * order, not one per page); returns page @first. */
 static GPtrArray *
-fetch_page (LaminaConstructionList *self,
-            guint                   page)
+fetch_pages (LaminaConstructionList *self,
+             guint                   first,
+             guint                   n_pages)
 {
   g_autoptr(GPtrArray) summaries = NULL;
   g_autoptr(GError) error = NULL;
   LaminaLibraryQuery query = self->query;
-  GPtrArray *items;
+  GPtrArray *items = NULL;
 
-  query.offset = page * LAMINA_CONSTRUCTION_LIST_PAGE;
-  query.limit = LAMINA_CONSTRUCTION_LIST_PAGE;
+  query.offset = first * LAMINA_CONSTRUCTION_LIST_PAGE;
+  query.limit = n_pages * LAMINA_CONSTRUCTION_LIST_PAGE;
   summaries = lamina_library_search (self->library, &query, &error);
   if (summaries == NULL)
     {
       set_error (self, error);
       return NULL;
     }
-  items = g_ptr_array_new_with_free_func (g_object_unref);
-  for (guint i = 0; i < summaries->len; i++)
-    g_ptr_array_add (items, lamina_construction_item_new (g_steal_pointer (&summaries->pdata[i])));
+  if (g_hash_table_size (self->pages) + n_pages > MAX_PAGES)
+    g_hash_table_remove_all (self->pages);
+  for (guint p = 0; p < n_pages; p++)
+    {
+      GPtrArray *page = g_ptr_array_new_with_free_func (g_object_unref);
+
+      for (guint i = p * LAMINA_CONSTRUCTION_LIST_PAGE;
+           i < summaries->len && i < (p + 1) * LAMINA_CONSTRUCTION_LIST_PAGE; i++)
+        g_ptr_array_add (page, lamina_construction_item_new (g_steal_pointer (&summaries->pdata[i])));
+      g_hash_table_insert (self->pages, GUINT_TO_POINTER (first + p), page);
+      if (p == 0)
+        items = page;
+    }
   /* The summaries array owns nothing now. */
   g_ptr_array_set_free_func (summaries, NULL);
-
-  if (g_hash_table_size (self->pages) >= MAX_PAGES)
-    g_hash_table_remove_all (self->pages);
-  g_hash_table_insert (self->pages, GUINT_TO_POINTER (page), items);
   return items;
+}
+
+static GPtrArray *
+fetch_page (LaminaConstructionList *self,
+            guint                   page)
+{
+  return fetch_pages (self, page, 1);
+}
+
+static gboolean
+count_exactly_cb (gpointer data)
+{
+  LaminaConstructionList *self = data;
+
+  self->count_idle = 0;
+  lamina_construction_list_count_exactly (self);
+  return G_SOURCE_REMOVE;
 }
 
 static GType
@@ -95,6 +123,12 @@ lamina_construction_list_get_item (GListModel *model,
 
   if (position >= self->n_items)
     return NULL;
+  /* Scrolled near the end of a count that stopped early: count them all
+   * (after this call: the view is asking for items now). */
+  if (!self->count_exact && self->count_idle == 0
+      && position + LAMINA_CONSTRUCTION_LIST_PAGE >= self->n_items)
+    self->count_idle = g_idle_add_full (G_PRIORITY_DEFAULT_IDLE, count_exactly_cb,
+                                        g_object_ref (self), g_object_unref);
   items = g_hash_table_lookup (self->pages, GUINT_TO_POINTER (page));
   if (items == NULL)
     items = fetch_page (self, page);
@@ -116,6 +150,7 @@ lamina_construction_list_finalize (GObject *object)
 {
   LaminaConstructionList *self = LAMINA_CONSTRUCTION_LIST (object);
 
+  g_clear_handle_id (&self->count_idle, g_source_remove);
   g_clear_object (&self->library);
   g_clear_pointer (&self->text, g_free);
   g_clear_pointer (&self->tag, g_free);
@@ -161,12 +196,18 @@ lamina_construction_list_refresh (LaminaConstructionList *self)
   g_return_if_fail (LAMINA_IS_CONSTRUCTION_LIST (self));
 
   g_hash_table_remove_all (self->pages);
+  g_clear_handle_id (&self->count_idle, g_source_remove);
   self->query.text = self->text;
   self->query.tag = self->tag;
   self->query.offset = 0;
   self->query.limit = 0;
-  count = lamina_library_count (self->library, &self->query, &error);
+  /* A short prefix can match most of a large library: the count stops
+   * after COUNT_BOUND ("1,000+"); the rest is counted when the view
+   * scrolls near the end or on demand. */
+  count = lamina_library_count_at_most (self->library, &self->query,
+                                        LAMINA_CONSTRUCTION_LIST_COUNT_BOUND, &error);
   set_error (self, count < 0 ? error : NULL);
+  self->count_exact = count <= LAMINA_CONSTRUCTION_LIST_COUNT_BOUND;
   /* Two steps, not one: on a single (0, old, new) change GTK 4.8's list
    * item manager looks through every added row for the widgets it
    * removed, which fetches the whole result page by page (hundreds of ms
@@ -289,8 +330,9 @@ lamina_construction_list_find (LaminaConstructionList *self,
     {
       GPtrArray *items = g_hash_table_lookup (self->pages, GUINT_TO_POINTER (page));
 
+      /* The pages not yet read, in one query. */
       if (items == NULL)
-        items = fetch_page (self, page);
+        items = fetch_pages (self, page, FIND_PAGES - page);
       for (guint i = 0; items != NULL && i < items->len; i++)
         if (g_strcmp0 (lamina_construction_item_get_id (items->pdata[i]), id) == 0)
           return (int) (page * LAMINA_CONSTRUCTION_LIST_PAGE + i);
@@ -306,6 +348,46 @@ lamina_construction_list_get_query (LaminaConstructionList *self,
   *query = self->query;
   query->offset = 0;
   query->limit = 0;
+}
+
+gboolean
+lamina_construction_list_is_count_exact (LaminaConstructionList *self)
+{
+  g_return_val_if_fail (LAMINA_IS_CONSTRUCTION_LIST (self), TRUE);
+  return self->count_exact;
+}
+
+void
+lamina_construction_list_count_exactly (LaminaConstructionList *self)
+{
+  g_autoptr(GError) error = NULL;
+  gint64 count;
+  guint old;
+
+  g_return_if_fail (LAMINA_IS_CONSTRUCTION_LIST (self));
+  g_clear_handle_id (&self->count_idle, g_source_remove);
+  if (self->count_exact)
+    return;
+  count = lamina_library_count (self->library, &self->query, &error);
+  if (count < 0)
+    {
+      set_error (self, error);
+      return;
+    }
+  self->count_exact = TRUE;
+  old = self->n_items;
+  if (count > old)
+    {
+      self->n_items = (guint) count;
+      g_list_model_items_changed (G_LIST_MODEL (self), old, 0, self->n_items - old);
+    }
+  else if (count < old)
+    {
+      /* Cannot be fewer than the bound it passed, unless the library
+       * changed meanwhile: read everything again. */
+      self->count_exact = FALSE;
+      lamina_construction_list_refresh (self);
+    }
 }
 
 const char *

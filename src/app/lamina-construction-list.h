@@ -15,6 +15,8 @@ G_BEGIN_DECLS
 G_DECLARE_FINAL_TYPE (LaminaConstructionList, lamina_construction_list, LAMINA, CONSTRUCTION_LIST, GObject)
 
 #define LAMINA_CONSTRUCTION_LIST_PAGE 64
+/* The count stops after this many rows ("1,000+ constructions"). */
+#define LAMINA_CONSTRUCTION_LIST_COUNT_BOUND 1000
 
 LaminaConstructionList *lamina_construction_list_new      (LaminaLibrary          *library);
 /* The filters; each change refreshes the list.  NULL / −1 / NAN = any. */
@@ -44,6 +46,12 @@ int   lamina_construction_list_find         (LaminaConstructionList *self,
  * @self, valid until the next change). */
 void  lamina_construction_list_get_query    (LaminaConstructionList *self,
                                              LaminaLibraryQuery     *query);
+/* FALSE while the query matches more than COUNT_BOUND rows that were not
+ * all counted: the list then holds COUNT_BOUND + 1 rows, and grows to the
+ * full count when the view scrolls near its end or on
+ * lamina_construction_list_count_exactly (items-changed at the end). */
+gboolean lamina_construction_list_is_count_exact (LaminaConstructionList *self);
+void  lamina_construction_list_count_exactly (LaminaConstructionList *self);
 /* The last store error, or NULL. */
 const char *lamina_construction_list_get_error (LaminaConstructionList *self);
 

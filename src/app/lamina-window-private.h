@@ -51,6 +51,11 @@ struct _LaminaWindow
   guint                   toast_timeout;
   guint                   refresh_idle;
   guint                   poll_timeout;
+  /* Typing: the search runs once the keystrokes queued so far are in. */
+  guint                   search_idle;
+  /* Live constructions in the library for "4 of 20", or −1: read again
+   * after the library changed. */
+  gint64                  library_total;
   gboolean                selecting;
   /* "changed underneath" for the open construction */
   LaminaChangeBanner     *change_banner;

@@ -180,12 +180,25 @@ update_count (LaminaWindow *self)
       LaminaLibraryQuery q, all;
       gint64 total = -1;
 
+      gboolean exact = lamina_construction_list_is_count_exact (self->list);
+
       lamina_construction_list_get_query (self->list, &q);
       lamina_library_query_init (&all);
       if (is_filtered (&q))
-        total = lamina_library_count (self->library, &all, NULL);
+        {
+          if (self->library_total < 0)
+            self->library_total = lamina_library_count (self->library, &all, NULL);
+          total = self->library_total;
+        }
+      /* "1000+ constructions": a count that stopped early; a click counts
+       * them all. */
+      if (!exact && total >= 0)
+        text = g_strdup_printf (g_dngettext (NULL, "%u+ of %u construction", "%u+ of %u constructions", (gulong) total),
+                                LAMINA_CONSTRUCTION_LIST_COUNT_BOUND, (guint) total);
+      else if (!exact)
+        text = g_strdup_printf (_("%u+ constructions"), LAMINA_CONSTRUCTION_LIST_COUNT_BOUND);
       /* "4 of 20 constructions" while a filter narrows the list. */
-      if (total >= 0)
+      else if (total >= 0)
         text = g_strdup_printf (g_dngettext (NULL, "%u of %u construction", "%u of %u constructions", (gulong) total),
                                 n, (guint) total);
       else
@@ -194,7 +207,29 @@ update_count (LaminaWindow *self)
       gtk_widget_add_css_class (GTK_WIDGET (self->count_label), "dim-label");
     }
   gtk_label_set_text (self->count_label, text);
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->count_label), error != NULL ? text : NULL);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->count_label),
+                               error != NULL ? text
+                               : !lamina_construction_list_is_count_exact (self->list) ? _("Click to count every match")
+                               : NULL);
+}
+
+static void
+on_count_pressed_cb (LaminaWindow *self)
+{
+  lamina_construction_list_count_exactly (self->list);
+}
+
+/* The list grew at its end: a count that had stopped early was completed
+ * (scrolled near the end or clicked).  A new query starts at 0 and is
+ * counted by sync_selection. */
+static void
+on_list_items_changed_cb (LaminaWindow *self,
+                          guint         position,
+                          guint         removed,
+                          guint         added)
+{
+  if (position > 0 && removed == 0)
+    update_count (self);
 }
 
 /* After the list changed: select the open construction's row again. */
@@ -216,6 +251,7 @@ sync_selection (LaminaWindow *self)
 void
 lamina_window_refresh_list (LaminaWindow *self)
 {
+  self->library_total = -1;
   lamina_construction_list_refresh (self->list);
   sync_selection (self);
 }
@@ -223,14 +259,36 @@ lamina_window_refresh_list (LaminaWindow *self)
 /* Filters */
 
 static void
-on_search_changed_cb (LaminaWindow *self)
+run_search (LaminaWindow *self)
 {
   const char *text = gtk_editable_get_text (GTK_EDITABLE (self->search_entry));
 
+  g_clear_handle_id (&self->search_idle, g_source_remove);
   self->selecting = TRUE;
   lamina_construction_list_set_text (self->list, text);
   self->selecting = FALSE;
   sync_selection (self);
+}
+
+static gboolean
+search_idle_cb (gpointer data)
+{
+  LaminaWindow *self = data;
+
+  self->search_idle = 0;
+  run_search (self);
+  return G_SOURCE_REMOVE;
+}
+
+/* Typing ahead replaces the search not yet run: the search waits in an
+ * idle behind the input events already queued, so keys typed while the
+ * last page was read are taken together, and only the latest text is
+ * searched (no backlog of stale searches). */
+static void
+on_search_changed_cb (LaminaWindow *self)
+{
+  if (self->search_idle == 0)
+    self->search_idle = g_idle_add (search_idle_cb, self);
 }
 
 void
@@ -239,7 +297,7 @@ lamina_window_set_search (LaminaWindow *self,
 {
   g_return_if_fail (LAMINA_IS_WINDOW (self));
   gtk_editable_set_text (GTK_EDITABLE (self->search_entry), text);
-  on_search_changed_cb (self);
+  run_search (self);
 }
 
 /* An empty bound is open; a bad one is marked and ignored. */
@@ -557,6 +615,7 @@ lamina_window_dispose (GObject *object)
   g_clear_handle_id (&self->toast_timeout, g_source_remove);
   g_clear_handle_id (&self->refresh_idle, g_source_remove);
   g_clear_handle_id (&self->poll_timeout, g_source_remove);
+  g_clear_handle_id (&self->search_idle, g_source_remove);
   if (self->document != NULL)
     g_signal_handlers_disconnect_by_data (self->document, self);
   g_clear_object (&self->document);
@@ -642,6 +701,7 @@ lamina_window_new (GtkApplication    *application,
 
   self = g_object_new (LAMINA_TYPE_WINDOW, "application", application, NULL);
   self->library = g_object_ref (library);
+  self->library_total = -1;
   self->list = lamina_construction_list_new (library);
   self->selection = gtk_single_selection_new (g_object_ref (G_LIST_MODEL (self->list)));
   gtk_single_selection_set_autoselect (self->selection, FALSE);
@@ -656,6 +716,13 @@ lamina_window_new (GtkApplication    *application,
   g_signal_connect_object (self->selection, "notify::selected",
                            G_CALLBACK (on_selection_changed_cb), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (library, "changed", G_CALLBACK (on_library_changed_cb), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (self->list, "items-changed", G_CALLBACK (on_list_items_changed_cb), self, G_CONNECT_SWAPPED);
+  {
+    GtkGesture *click = gtk_gesture_click_new ();
+
+    g_signal_connect_object (click, "pressed", G_CALLBACK (on_count_pressed_cb), self, G_CONNECT_SWAPPED);
+    gtk_widget_add_controller (GTK_WIDGET (self->count_label), GTK_EVENT_CONTROLLER (click));
+  }
 
   self->change_banner = LAMINA_CHANGE_BANNER (lamina_change_banner_new ());
   gtk_widget_insert_after (GTK_WIDGET (self->change_banner),

@@ -273,6 +273,16 @@ typedef struct
    * tell (the front end then does not check). */
   char               *(*find_code)          (LaminaBackend *backend, const char *code,
                                              const char *except_id, GError **error);
+
+  /* How many rows @query matches, counting no further than @at_most:
+   * the exact count when it is at most @at_most, otherwise any number
+   * above it (the front end reports at_most + 1).  A backend counts
+   * like `SELECT count(*) FROM (SELECT 1 … LIMIT at_most + 1)`, so that
+   * a short prefix matching most of a large library costs a bounded
+   * time.  NULL: the front end falls back to count. */
+  gint64              (*count_at_most)      (LaminaBackend *backend,
+                                             const LaminaLibraryQuery *query,
+                                             gint64 at_most, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend

@@ -556,6 +556,25 @@ lamina_library_count (LaminaLibrary             *self,
   return VT (self)->count (BE (self), query, error);
 }
 
+gint64
+lamina_library_count_at_most (LaminaLibrary             *self,
+                              const LaminaLibraryQuery  *query,
+                              gint64                     at_most,
+                              GError                   **error)
+{
+  gint64 n;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), -1);
+  g_return_val_if_fail (query != NULL, -1);
+  g_return_val_if_fail (at_most >= 0, -1);
+  BACKEND_OR_FAIL (self, error, -1);
+  if (VT (self)->count_at_most != NULL)
+    n = VT (self)->count_at_most (BE (self), query, at_most, error);
+  else
+    n = VT (self)->count (BE (self), query, error);
+  return n > at_most ? at_most + 1 : n;
+}
+
 GPtrArray *
 lamina_library_list_tags (LaminaLibrary  *self,
                           GError        **error)

@@ -443,6 +443,13 @@ GPtrArray     *lamina_library_search       (LaminaLibrary            *self,
 gint64         lamina_library_count        (LaminaLibrary            *self,
                                             const LaminaLibraryQuery *query,
                                             GError                  **error);
+/* The count of @query, stopped early: the exact count when it is at most
+ * @at_most, otherwise @at_most + 1 ("1,000+ constructions"); -1 on error.
+ * Bounded in time whatever the library's size. */
+gint64         lamina_library_count_at_most (LaminaLibrary            *self,
+                                             const LaminaLibraryQuery *query,
+                                             gint64                    at_most,
+                                             GError                  **error);
 /* All tags in use, sorted (char*). */
 GPtrArray     *lamina_library_list_tags    (LaminaLibrary          *self,
                                             GError                **error);

@@ -42,6 +42,7 @@ lamina_sqlite_backend_close (LaminaBackend *backend)
 
   /* Statements first: sqlite3_close refuses while any is live. */
   g_clear_pointer (&self->statements, g_hash_table_unref);
+  lamina_sqlite_search_clear (self);
   if (self->db != NULL)
     {
       sqlite3_close (self->db);
@@ -124,6 +125,8 @@ static const LaminaBackendVTable sqlite_vtable = {
   .replace_draft = lamina_sqlite_backend_replace_draft,
   .drop_draft = lamina_sqlite_backend_drop_draft,
   .find_code = lamina_sqlite_backend_find_code,
+
+  .count_at_most = lamina_sqlite_backend_count_at_most,
 };
 
 static LaminaSqlite *

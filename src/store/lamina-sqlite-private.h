@@ -13,6 +13,16 @@ G_BEGIN_DECLS
 /* 'LMNA': PRAGMA application_id of a Lamina library. */
 #define LAMINA_SQLITE_APPLICATION_ID 0x4C4D4E41
 
+/* How a text search in a sort key's order finds its page
+ * (lamina-sqlite-search.c); tests force each plan to compare them. */
+typedef enum
+{
+  LAMINA_SQLITE_SEARCH_AUTO,          /* SORT_SET for few matches, WALK for many */
+  LAMINA_SQLITE_SEARCH_SET_IN_ORDER,  /* all matches collected, the sort index walked */
+  LAMINA_SQLITE_SEARCH_SORT_SET,      /* all matches collected and sorted */
+  LAMINA_SQLITE_SEARCH_WALK,          /* the sort index walked, each row's text tested */
+} LaminaSqliteSearchPlan;
+
 typedef struct
 {
   LaminaBackend  parent;
@@ -21,6 +31,12 @@ typedef struct
   gint64         data_version;  /* PRAGMA data_version at the last check */
   gint64         busy_since;    /* monotonic µs: when the present wait began */
   gboolean       busy_announced;
+  /* The full-text index's own tokenizer, for testing rows against a
+   * search in sort order (lamina-sqlite-search.c); created on first use. */
+  fts5_tokenizer tokenizer_class;
+  Fts5Tokenizer *tokenizer;
+  gboolean       tokenizer_failed;
+  LaminaSqliteSearchPlan search_plan;
 } LaminaSqlite;
 
 /* A cached prepared statement, reset and with bindings cleared; NULL with
@@ -219,6 +235,12 @@ GPtrArray          *lamina_sqlite_backend_search           (LaminaBackend *backe
 gint64              lamina_sqlite_backend_count            (LaminaBackend *backend,
                                                             const LaminaLibraryQuery *query,
                                                             GError **error);
+gint64              lamina_sqlite_backend_count_at_most    (LaminaBackend *backend,
+                                                            const LaminaLibraryQuery *query,
+                                                            gint64 at_most,
+                                                            GError **error);
+/* Frees the search's tokenizer; before the connection closes. */
+void                lamina_sqlite_search_clear             (LaminaSqlite *self);
 GPtrArray          *lamina_sqlite_backend_list_tags        (LaminaBackend *backend,
                                                             GError **error);
 
