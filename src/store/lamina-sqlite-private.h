@@ -17,10 +17,12 @@ G_BEGIN_DECLS
  * (lamina-sqlite-search.c); tests force each plan to compare them. */
 typedef enum
 {
-  LAMINA_SQLITE_SEARCH_AUTO,          /* SORT_SET for few matches, WALK for many */
+  LAMINA_SQLITE_SEARCH_AUTO,          /* SORT_SET for few matches; for many, WALK
+                                         for a few hundred rows, then ROW_SET */
   LAMINA_SQLITE_SEARCH_SET_IN_ORDER,  /* all matches collected, the sort index walked */
   LAMINA_SQLITE_SEARCH_SORT_SET,      /* all matches collected and sorted */
   LAMINA_SQLITE_SEARCH_WALK,          /* the sort index walked, each row's text tested */
+  LAMINA_SQLITE_SEARCH_ROW_SET,       /* the matches marked in a bit set, the sort index walked */
 } LaminaSqliteSearchPlan;
 
 typedef struct

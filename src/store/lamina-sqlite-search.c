@@ -60,22 +60,33 @@ lamina_library_text_to_fts_query (const char *text)
   return g_string_free (g_steal_pointer (&query), FALSE);
 }
 
-/* ---- Testing one row against the typed words, in sort order ---------- *
+/* ---- A page of a text search in a sort key's order ------------------ *
  *
  * A short prefix ("t", "m") matches most of a large library.  Ranking or
- * even collecting every match costs time in proportion to the matches; a
- * page in a sort key's order needs only the first rows of that order that
- * match.  So when the matches are many (dense), the page walks the sort
- * key's index and tests each row's indexed text here, with the index's own
- * tokenizer (the folding and the word split are the index's, so the rows
- * are exactly those FTS5 would return); it stops after one page.  When the
- * matches are few (sparse), they are collected from the index and sorted,
- * also bounded.  The two paths meet where both take about the same time. */
+ * even collecting every match into SQLite's temporary index costs time in
+ * proportion to the matches; a page in a sort key's order needs only the
+ * first rows of that order that match.  So, after a bounded probe of how
+ * many rows match:
+ * - few (SORT_SET): they are collected and sorted;
+ * - many (WALK): the sort key's index is walked and each row's indexed
+ *   text tested here, with the index's own tokenizer (the folding and the
+ *   word split are the index's, so the rows are exactly those FTS5 would
+ *   return); a page is usually full after a few hundred rows;
+ * - many, but further down the order than their number suggests (a word
+ *   of one element kind, sorted by code), the walk gives up after a
+ *   budget (ROW_SET): the matches' rowids are marked in a bit set (one
+ *   pass over the full-text index, no temporary index) and the sort key's
+ *   index is walked testing the bit of each entry's rowid, which needs no
+ *   read of the row itself.
+ * Every plan sorts by the same total order (the key, then the id), so the
+ * pages are the same rows (tests/store/test-library-search.c). */
 
 /* Above this many matches, walk the sort order (at 100,000 constructions:
  * at most 2.5 % of rows tested before a page of 50, about 2,500 rows). */
 #define DENSE_MATCHES 2000
 #define MAX_TERMS     32
+/* Rows of the sort order tested at least before the walk gives up. */
+#define WALK_BUDGET   100
 
 typedef struct
 {
@@ -84,6 +95,9 @@ typedef struct
   int           term_len[MAX_TERMS];
   guint         n_terms;
   guint32       found;             /* bit per term */
+  guint         budget;            /* rows to test before giving up; 0 = all */
+  guint         tested;
+  gboolean      over_budget;
 } TextMatch;
 
 static void
@@ -144,6 +158,14 @@ text_match_func (sqlite3_context  *ctx,
       sqlite3_result_error (ctx, "lamina_text_match: no matcher", -1);
       return;
     }
+  if (m->budget > 0 && ++m->tested > m->budget)
+    {
+      /* The matches lie further down the sort order than their number
+       * suggested: the caller changes plan. */
+      m->over_budget = TRUE;
+      sqlite3_result_error (ctx, "lamina_text_match: over budget", -1);
+      return;
+    }
   m->found = 0;
   for (int i = 1; i < argc && rc == SQLITE_OK; i++)
     {
@@ -157,6 +179,52 @@ text_match_func (sqlite3_context  *ctx,
     sqlite3_result_error_code (ctx, rc);
   else
     sqlite3_result_int (ctx, m->found == (1u << m->n_terms) - 1);
+}
+
+/* The rowids of the matches, one bit each. */
+typedef struct
+{
+  guint64 *bits;
+  gsize    n_words;
+} RowSet;
+
+static void
+row_set_clear (RowSet *set)
+{
+  g_clear_pointer (&set->bits, g_free);
+  set->n_words = 0;
+}
+
+G_DEFINE_AUTO_CLEANUP_CLEAR_FUNC (RowSet, row_set_clear)
+
+static void
+row_set_add (RowSet *set,
+             gint64  rowid)
+{
+  gsize word = (gsize) rowid / 64;
+
+  if (word >= set->n_words)
+    {
+      gsize n = MAX (word + 1, set->n_words * 2);
+
+      set->bits = g_renew (guint64, set->bits, n);
+      memset (set->bits + set->n_words, 0, (n - set->n_words) * sizeof (guint64));
+      set->n_words = n;
+    }
+  set->bits[word] |= G_GUINT64_CONSTANT (1) << (rowid % 64);
+}
+
+/* lamina_in_row_set (set, rowid) */
+static void
+in_row_set_func (sqlite3_context  *ctx,
+                 int               argc,
+                 sqlite3_value   **argv)
+{
+  RowSet *set = sqlite3_value_pointer (argv[0], "lamina_row_set");
+  sqlite3_int64 rowid = sqlite3_value_int64 (argv[1]);
+
+  sqlite3_result_int (ctx, set != NULL && rowid >= 0 && (guint64) rowid / 64 < set->n_words
+                           && (set->bits[rowid / 64] >> (rowid % 64)) & 1);
 }
 
 /* The tokenizer of construction_fts (schema v2: unicode61 with
@@ -187,7 +255,9 @@ ensure_tokenizer (LaminaSqlite *self)
       return FALSE;
     }
   if (sqlite3_create_function_v2 (self->db, "lamina_text_match", 6, SQLITE_UTF8 | SQLITE_DIRECTONLY,
-                                  NULL, text_match_func, NULL, NULL, NULL) != SQLITE_OK)
+                                  NULL, text_match_func, NULL, NULL, NULL) != SQLITE_OK
+      || sqlite3_create_function_v2 (self->db, "lamina_in_row_set", 2, SQLITE_UTF8 | SQLITE_DIRECTONLY,
+                                     NULL, in_row_set_func, NULL, NULL, NULL) != SQLITE_OK)
     {
       self->tokenizer_class.xDelete (self->tokenizer);
       self->tokenizer = NULL;
@@ -233,6 +303,30 @@ text_match_init (TextMatch    *m,
       m->terms[m->n_terms] = g_steal_pointer (&tokens->pdata[0]);
       m->term_len[m->n_terms] = (int) strlen (m->terms[m->n_terms]);
       m->n_terms++;
+    }
+  return TRUE;
+}
+
+static gboolean
+row_set_fill (RowSet        *set,
+              LaminaSqlite  *self,
+              const char    *fts,
+              GError       **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
+    "SELECT rowid FROM construction_fts WHERE construction_fts MATCH ?1;", error);
+  int rc;
+
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, fts);
+  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
+    row_set_add (set, sqlite3_column_int64 (stmt, 0));
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot search the library", error);
+      return FALSE;
     }
   return TRUE;
 }
@@ -304,6 +398,9 @@ typedef enum
   /* the sort key's index @sort_by is walked and each row's indexed text
    * tested with lamina_text_match (?11): no set, stops after one page */
   TEXT_WALK,
+  /* the sort key's index @sort_by is walked and each row looked up in a
+   * bit set of the matches (lamina_in_row_set (?12)), built once */
+  TEXT_ROW_SET,
 } TextMode;
 
 static void
@@ -331,6 +428,12 @@ append_filters (GString                  *sql,
       g_string_append_printf (sql, " FROM construction c INDEXED BY %s"
                                    " CROSS JOIN construction_fts f ON f.rowid = c.num"
                                    " WHERE c.deleted_at IS NULL", sort_by);
+      break;
+    case TEXT_ROW_SET:
+      /* The test needs only the index's rowid: rows are read for matches
+       * only. */
+      g_string_append_printf (sql, " FROM construction c INDEXED BY %s"
+                                   " WHERE c.deleted_at IS NULL AND lamina_in_row_set (?12, c.num)", sort_by);
       break;
     case TEXT_NONE:
     default:
@@ -380,88 +483,129 @@ bind_filters (sqlite3_stmt             *stmt,
   lamina_sqlite_bind_double (stmt, 8, q->max_thickness);
 }
 
-GPtrArray *
-lamina_sqlite_backend_search (LaminaBackend             *backend,
-                              const LaminaLibraryQuery  *q,
-                              GError                   **error)
+static LaminaSummary *
+read_summary (sqlite3_stmt *stmt)
 {
-  g_autofree char *fts = lamina_library_text_to_fts_query (q->text);
+  LaminaSummary *s = g_new0 (LaminaSummary, 1);
+
+  s->id = lamina_sqlite_column_dup (stmt, 0);
+  s->code = lamina_sqlite_column_dup (stmt, 1);
+  s->name = lamina_sqlite_column_dup (stmt, 2);
+  lamina_element_from_string ((const char *) sqlite3_column_text (stmt, 3), &s->element);
+  lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 4), &s->status);
+  s->revision = sqlite3_column_int (stmt, 5);
+  s->u = lamina_sqlite_column_double (stmt, 6);
+  s->u_corrected = lamina_sqlite_column_double (stmt, 7);
+  s->target_u = lamina_sqlite_column_double (stmt, 8);
+  s->thickness = lamina_sqlite_column_double (stmt, 9);
+  s->modified_at = lamina_sqlite_column_dup (stmt, 10);
+  s->flags = sqlite3_column_int (stmt, 11);
+  if (sqlite3_column_int (stmt, 12))
+    s->flags |= LAMINA_SUMMARY_MATERIAL_CHANGED;
+  return s;
+}
+
+/* One page by one plan.  NULL with @error set, or NULL without (only
+ * for TEXT_WALK with a budget) when the walk gave up. */
+static GPtrArray *
+read_page (LaminaSqlite              *self,
+           const LaminaLibraryQuery  *q,
+           TextMode                   mode,
+           const char                *index,
+           const char                *fts,
+           TextMatch                 *match,
+           RowSet                    *set,
+           GError                   **error)
+{
   g_autoptr(GString) sql = g_string_new (
     "SELECT c.id, c.code, c.name, c.element, c.status, c.head, c.u, c.u_corrected,"
     " c.target_u, c.thickness, c.modified_at, c.flags, c.material_changed");
   g_autoptr(GPtrArray) rows = NULL;
-  g_auto(TextMatch) match = { 0 };
-  gboolean rank = q->sort == LAMINA_SORT_RELEVANCE && fts != NULL;
   const char *dir = q->descending ? "DESC" : "ASC";
-  const char *index = get_sort_column (q->sort)->index;
-  TextMode mode = TEXT_NONE;
-  LaminaSqliteSearchPlan plan = SELF->search_plan;
   sqlite3_stmt *stmt;
   int rc;
 
-  if (rank)
-    {
-      /* Relevance ranks every match: chosen, not typed into. */
-      mode = TEXT_JOIN;
-      index = NULL;
-    }
-  else if (fts != NULL)
-    {
-      if (plan == LAMINA_SQLITE_SEARCH_AUTO)
-        {
-          int dense = probe_dense (SELF, fts, error);
-
-          if (dense < 0)
-            return NULL;
-          plan = dense ? LAMINA_SQLITE_SEARCH_WALK : LAMINA_SQLITE_SEARCH_SORT_SET;
-        }
-      if (plan == LAMINA_SQLITE_SEARCH_WALK && !text_match_init (&match, SELF, q->text))
-        plan = LAMINA_SQLITE_SEARCH_SET_IN_ORDER;
-      mode = plan == LAMINA_SQLITE_SEARCH_WALK ? TEXT_WALK : TEXT_IN_SET;
-      if (plan == LAMINA_SQLITE_SEARCH_SORT_SET)
-        index = NULL;
-    }
   append_filters (sql, q, mode, index);
-  g_string_append (sql, " ORDER BY ");
-  g_string_append_printf (sql, "%s %s, c.id %s", rank ? "f.rank" : get_sort_column (q->sort)->order, dir, dir);
-  g_string_append (sql, " LIMIT ?9 OFFSET ?10;");
-  stmt = lamina_sqlite_prepare (SELF, sql->str, error);
+  g_string_append_printf (sql, " ORDER BY %s %s, c.id %s LIMIT ?9 OFFSET ?10;",
+                          mode == TEXT_JOIN ? "f.rank" : get_sort_column (q->sort)->order, dir, dir);
+  stmt = lamina_sqlite_prepare (self, sql->str, error);
   if (stmt == NULL)
     return NULL;
   bind_filters (stmt, q, fts);
   sqlite3_bind_int64 (stmt, 9, q->limit > 0 ? (gint64) q->limit : -1);
   sqlite3_bind_int64 (stmt, 10, q->offset);
   if (mode == TEXT_WALK)
-    sqlite3_bind_pointer (stmt, 11, &match, "lamina_text_match", NULL);
+    sqlite3_bind_pointer (stmt, 11, match, "lamina_text_match", NULL);
+  if (mode == TEXT_ROW_SET)
+    sqlite3_bind_pointer (stmt, 12, set, "lamina_row_set", NULL);
 
   rows = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_summary_free);
   while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    {
-      LaminaSummary *s = g_new0 (LaminaSummary, 1);
-
-      s->id = lamina_sqlite_column_dup (stmt, 0);
-      s->code = lamina_sqlite_column_dup (stmt, 1);
-      s->name = lamina_sqlite_column_dup (stmt, 2);
-      lamina_element_from_string ((const char *) sqlite3_column_text (stmt, 3), &s->element);
-      lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 4), &s->status);
-      s->revision = sqlite3_column_int (stmt, 5);
-      s->u = lamina_sqlite_column_double (stmt, 6);
-      s->u_corrected = lamina_sqlite_column_double (stmt, 7);
-      s->target_u = lamina_sqlite_column_double (stmt, 8);
-      s->thickness = lamina_sqlite_column_double (stmt, 9);
-      s->modified_at = lamina_sqlite_column_dup (stmt, 10);
-      s->flags = sqlite3_column_int (stmt, 11);
-      if (sqlite3_column_int (stmt, 12))
-        s->flags |= LAMINA_SUMMARY_MATERIAL_CHANGED;
-      g_ptr_array_add (rows, s);
-    }
+    g_ptr_array_add (rows, read_summary (stmt));
   sqlite3_reset (stmt);
   if (rc != SQLITE_DONE)
     {
-      lamina_sqlite_set_error (SELF, rc, "cannot search the library", error);
+      if (mode != TEXT_WALK || !match->over_budget)
+        lamina_sqlite_set_error (self, rc, "cannot search the library", error);
       return NULL;
     }
   return g_steal_pointer (&rows);
+}
+
+GPtrArray *
+lamina_sqlite_backend_search (LaminaBackend             *backend,
+                              const LaminaLibraryQuery  *q,
+                              GError                   **error)
+{
+  g_autofree char *fts = lamina_library_text_to_fts_query (q->text);
+  g_auto(TextMatch) match = { 0 };
+  g_auto(RowSet) set = { 0 };
+  const char *index = get_sort_column (q->sort)->index;
+  LaminaSqliteSearchPlan plan = SELF->search_plan;
+  GPtrArray *rows;
+
+  if (fts == NULL)
+    return read_page (SELF, q, TEXT_NONE, index, NULL, NULL, NULL, error);
+  /* Relevance ranks every match: chosen, not typed into. */
+  if (q->sort == LAMINA_SORT_RELEVANCE)
+    return read_page (SELF, q, TEXT_JOIN, NULL, fts, NULL, NULL, error);
+
+  if (plan == LAMINA_SQLITE_SEARCH_AUTO)
+    {
+      int dense = probe_dense (SELF, fts, error);
+
+      if (dense < 0)
+        return NULL;
+      if (!dense)
+        plan = LAMINA_SQLITE_SEARCH_SORT_SET;
+    }
+  if (plan == LAMINA_SQLITE_SEARCH_AUTO || plan == LAMINA_SQLITE_SEARCH_WALK)
+    {
+      if (text_match_init (&match, SELF, q->text))
+        {
+          /* Many matches: a page is usually found after a few hundred
+           * rows of the sort order.  When the matches gather further down
+           * (a word used by one element kind, sorted by code), the walk
+           * gives up for the bit set after about 1 ms. */
+          if (plan == LAMINA_SQLITE_SEARCH_AUTO)
+            match.budget = (guint) MIN (G_MAXUINT / 2, WALK_BUDGET + 4 * ((gint64) q->offset + q->limit));
+          rows = read_page (SELF, q, TEXT_WALK, index, fts, &match, NULL, error);
+          if (rows != NULL || !match.over_budget)
+            return rows;
+        }
+      plan = LAMINA_SQLITE_SEARCH_ROW_SET;
+    }
+  if (plan == LAMINA_SQLITE_SEARCH_ROW_SET)
+    {
+      if (!ensure_tokenizer (SELF))
+        plan = LAMINA_SQLITE_SEARCH_SET_IN_ORDER;
+      else if (!row_set_fill (&set, SELF, fts, error))
+        return NULL;
+      else
+        return read_page (SELF, q, TEXT_ROW_SET, index, fts, NULL, &set, error);
+    }
+  return read_page (SELF, q, TEXT_IN_SET, plan == LAMINA_SQLITE_SEARCH_SORT_SET ? NULL : index,
+                    fts, NULL, NULL, error);
 }
 
 /* @at_most < 0: the exact count; otherwise one that stops after

@@ -25,6 +25,7 @@
 
 static const LaminaSqliteSearchPlan plans[] = {
   LAMINA_SQLITE_SEARCH_AUTO, LAMINA_SQLITE_SEARCH_SORT_SET, LAMINA_SQLITE_SEARCH_WALK,
+  LAMINA_SQLITE_SEARCH_ROW_SET,
 };
 
 static LaminaSqlite *
