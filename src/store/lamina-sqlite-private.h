@@ -23,7 +23,17 @@ typedef enum
   LAMINA_SQLITE_SEARCH_SORT_SET,      /* all matches collected and sorted */
   LAMINA_SQLITE_SEARCH_WALK,          /* the sort index walked, each row's text tested */
   LAMINA_SQLITE_SEARCH_ROW_SET,       /* the matches marked in a bit set, the sort index walked */
+  LAMINA_SQLITE_SEARCH_IN_ORDER,      /* a text search alone: the matches marked in a bit
+                                         set (kept for the count and further pages), the
+                                         sort order read from memory */
 } LaminaSqliteSearchPlan;
+
+/* lamina-sqlite-search.c: one sort key's order and the last text
+ * search's matches, kept in memory while the library is unchanged. */
+typedef struct _LaminaSqliteOrder LaminaSqliteOrder;
+typedef struct _LaminaSqliteMatches LaminaSqliteMatches;
+void lamina_sqlite_order_free   (LaminaSqliteOrder   *order);
+void lamina_sqlite_matches_free (LaminaSqliteMatches *matches);
 
 typedef struct
 {
@@ -39,6 +49,8 @@ typedef struct
   Fts5Tokenizer *tokenizer;
   gboolean       tokenizer_failed;
   LaminaSqliteSearchPlan search_plan;
+  LaminaSqliteOrder   *order;
+  LaminaSqliteMatches *matches;
 } LaminaSqlite;
 
 /* A cached prepared statement, reset and with bindings cleared; NULL with

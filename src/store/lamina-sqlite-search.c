@@ -78,6 +78,9 @@ lamina_library_text_to_fts_query (const char *text)
  *   pass over the full-text index, no temporary index) and the sort key's
  *   index is walked testing the bit of each entry's rowid, which needs no
  *   read of the row itself.
+ * A text search alone (as typed into the list, no other filter) keeps its
+ * matches' bit set and reads the sort order from memory (IN_ORDER, below):
+ * its count and its further pages then cost no query.
  * Every plan sorts by the same total order (the key, then the id), so the
  * pages are the same rows (tests/store/test-library-search.c). */
 
@@ -273,6 +276,8 @@ lamina_sqlite_search_clear (LaminaSqlite *self)
   if (self->tokenizer != NULL)
     self->tokenizer_class.xDelete (self->tokenizer);
   self->tokenizer = NULL;
+  g_clear_pointer (&self->order, lamina_sqlite_order_free);
+  g_clear_pointer (&self->matches, lamina_sqlite_matches_free);
 }
 
 /* The terms of @text as the index's query parser sees them; FALSE when
@@ -552,6 +557,281 @@ read_page (LaminaSqlite              *self,
   return g_steal_pointer (&rows);
 }
 
+/* ---- The sort order kept in memory ------------------------------------ *
+ *
+ * A text search alone (no other filter) marks its matches in a bit set
+ * and reads the live rows' rowids in the sort key's order from memory:
+ * the first page is the first marked rowids, read by rowid.  The order is
+ * read once (about 20 ms at 100,000 constructions) and kept until the
+ * library changes, here (sqlite3_total_changes64) or in another process
+ * (PRAGMA data_version). */
+struct _LaminaSqliteOrder
+{
+  LaminaSortKey  key;
+  gint64         data_version;
+  gint64         total_changes;
+  GArray        *nums;    /* gint64 rowids, ascending order */
+};
+
+void
+lamina_sqlite_order_free (LaminaSqliteOrder *order)
+{
+  if (order == NULL)
+    return;
+  g_array_unref (order->nums);
+  g_free (order);
+}
+
+/* The last text search's matches, for its count and its further pages. */
+struct _LaminaSqliteMatches
+{
+  char          *fts;
+  gint64         data_version;
+  gint64         total_changes;
+  RowSet         set;
+};
+
+void
+lamina_sqlite_matches_free (LaminaSqliteMatches *matches)
+{
+  if (matches == NULL)
+    return;
+  g_free (matches->fts);
+  row_set_clear (&matches->set);
+  g_free (matches);
+}
+
+static gint64
+data_version (LaminaSqlite  *self,
+              GError       **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self, "PRAGMA data_version;", error);
+  gint64 v = -1;
+  int rc;
+
+  if (stmt == NULL)
+    return -1;
+  rc = sqlite3_step (stmt);
+  if (rc == SQLITE_ROW)
+    v = sqlite3_column_int64 (stmt, 0);
+  else
+    lamina_sqlite_set_error (self, rc, "cannot search the library", error);
+  sqlite3_reset (stmt);
+  return v;
+}
+
+static const GArray *
+get_order (LaminaSqlite   *self,
+           LaminaSortKey   key,
+           GError        **error)
+{
+  const SortColumn *column = get_sort_column (key);
+  g_autofree char *sql = NULL;
+  gint64 version = data_version (self, error);
+  gint64 changes = sqlite3_total_changes64 (self->db);
+  LaminaSqliteOrder *order = self->order;
+  sqlite3_stmt *stmt;
+  int rc;
+
+  if (version < 0)
+    return NULL;
+  if (key == LAMINA_SORT_RELEVANCE)
+    key = LAMINA_SORT_CODE;
+  if (order != NULL && order->key == key && order->data_version == version
+      && order->total_changes == changes)
+    return order->nums;
+  g_clear_pointer (&self->order, lamina_sqlite_order_free);
+  sql = g_strdup_printf ("SELECT c.num FROM construction c INDEXED BY %s WHERE c.deleted_at IS NULL"
+                         " ORDER BY %s ASC, c.id ASC;", column->index, column->order);
+  stmt = lamina_sqlite_prepare (self, sql, error);
+  if (stmt == NULL)
+    return NULL;
+  order = g_new0 (LaminaSqliteOrder, 1);
+  order->key = key;
+  order->data_version = version;
+  order->total_changes = changes;
+  order->nums = g_array_new (FALSE, FALSE, sizeof (gint64));
+  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
+    {
+      gint64 num = sqlite3_column_int64 (stmt, 0);
+
+      g_array_append_val (order->nums, num);
+    }
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot search the library", error);
+      lamina_sqlite_order_free (order);
+      return NULL;
+    }
+  self->order = order;
+  return order->nums;
+}
+
+static gboolean
+row_set_has (const RowSet *set,
+             gint64        rowid)
+{
+  return rowid >= 0 && (guint64) rowid / 64 < set->n_words && (set->bits[rowid / 64] >> (rowid % 64)) & 1;
+}
+
+/* The page of @q from the marked rows @set in the order kept in memory. */
+static GPtrArray *
+read_page_in_order (LaminaSqlite              *self,
+                    const LaminaLibraryQuery  *q,
+                    const RowSet              *set,
+                    GError                   **error)
+{
+  const GArray *nums = get_order (self, q->sort, error);
+  g_autoptr(GPtrArray) rows = NULL;
+  sqlite3_stmt *stmt;
+  guint skipped = 0;
+
+  if (nums == NULL)
+    return NULL;
+  stmt = lamina_sqlite_prepare (self,
+    "SELECT c.id, c.code, c.name, c.element, c.status, c.head, c.u, c.u_corrected,"
+    " c.target_u, c.thickness, c.modified_at, c.flags, c.material_changed"
+    " FROM construction c WHERE c.num = ?1;", error);
+  if (stmt == NULL)
+    return NULL;
+  rows = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_summary_free);
+  for (guint i = 0; i < nums->len && (q->limit == 0 || rows->len < q->limit); i++)
+    {
+      gint64 num = g_array_index (nums, gint64, q->descending ? nums->len - 1 - i : i);
+      int rc;
+
+      if (!row_set_has (set, num))
+        continue;
+      if (skipped < q->offset)
+        {
+          skipped++;
+          continue;
+        }
+      sqlite3_bind_int64 (stmt, 1, num);
+      rc = sqlite3_step (stmt);
+      if (rc == SQLITE_ROW)
+        g_ptr_array_add (rows, read_summary (stmt));
+      sqlite3_reset (stmt);
+      if (rc != SQLITE_ROW)
+        {
+          lamina_sqlite_set_error (self, rc == SQLITE_DONE ? SQLITE_CORRUPT : rc,
+                                   "cannot search the library", error);
+          return NULL;
+        }
+    }
+  return g_steal_pointer (&rows);
+}
+
+/* The cached matches of @fts if the library has not changed since. */
+static LaminaSqliteMatches *
+cached_matches (LaminaSqlite *self,
+                const char   *fts)
+{
+  LaminaSqliteMatches *m = self->matches;
+
+  if (m == NULL || strcmp (m->fts, fts) != 0 || m->total_changes != sqlite3_total_changes64 (self->db)
+      || m->data_version != data_version (self, NULL))
+    return NULL;
+  return m;
+}
+
+/* Marks the matches of @fts; with @pause_after > 0, stops there and
+ * returns FALSE with *@paused set, leaving the statement where it is for
+ * a later call with @resume (nothing else may use it in between). */
+static LaminaSqliteMatches *
+fill_matches (LaminaSqlite  *self,
+              const char    *fts,
+              guint          pause_after,
+              gboolean       resume,
+              gboolean      *paused,
+              GError       **error)
+{
+  static const char sql[] = "SELECT rowid FROM construction_fts WHERE construction_fts MATCH ?1;";
+  LaminaSqliteMatches *m = self->matches;
+  sqlite3_stmt *stmt;
+  guint n = 0;
+  int rc;
+
+  *paused = FALSE;
+  if (resume)
+    stmt = g_hash_table_lookup (self->statements, sql);
+  else
+    {
+      g_clear_pointer (&self->matches, lamina_sqlite_matches_free);
+      stmt = lamina_sqlite_prepare (self, sql, error);
+      if (stmt == NULL)
+        return NULL;
+      m = g_new0 (LaminaSqliteMatches, 1);
+      m->fts = g_strdup (fts);
+      m->data_version = data_version (self, error);
+      m->total_changes = sqlite3_total_changes64 (self->db);
+      self->matches = m;
+      if (m->data_version < 0)
+        {
+          g_clear_pointer (&self->matches, lamina_sqlite_matches_free);
+          return NULL;
+        }
+      lamina_sqlite_bind_text (stmt, 1, fts);
+    }
+  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
+    {
+      row_set_add (&m->set, sqlite3_column_int64 (stmt, 0));
+      if (pause_after > 0 && ++n >= pause_after)
+        {
+          *paused = TRUE;
+          return m;
+        }
+    }
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_DONE)
+    {
+      lamina_sqlite_set_error (self, rc, "cannot search the library", error);
+      g_clear_pointer (&self->matches, lamina_sqlite_matches_free);
+      return NULL;
+    }
+  return m;
+}
+
+/* A fill paused for a walk that found its page: the set is incomplete. */
+static void
+abandon_fill (LaminaSqlite *self)
+{
+  sqlite3_stmt *stmt = g_hash_table_lookup (self->statements,
+    "SELECT rowid FROM construction_fts WHERE construction_fts MATCH ?1;");
+
+  if (stmt != NULL)
+    sqlite3_reset (stmt);
+  g_clear_pointer (&self->matches, lamina_sqlite_matches_free);
+}
+
+/* The count of the live rows among the cached matches of @fts, stopped
+ * after @at_most + 1 (@at_most < 0: all); −1 when nothing is cached. */
+static gint64
+count_cached (LaminaSqlite *self,
+              const char   *fts,
+              gint64        at_most)
+{
+  LaminaSqliteMatches *m = self->search_plan == LAMINA_SQLITE_SEARCH_AUTO ? cached_matches (self, fts) : NULL;
+  LaminaSqliteOrder *o = self->order;
+  gint64 n = 0;
+
+  if (m == NULL || o == NULL || o->total_changes != m->total_changes || o->data_version != m->data_version)
+    return -1;
+  for (guint i = 0; i < o->nums->len && (at_most < 0 || n <= at_most); i++)
+    if (row_set_has (&m->set, g_array_index (o->nums, gint64, i)))
+      n++;
+  return n;
+}
+
+static gboolean
+is_text_only (const LaminaLibraryQuery *q)
+{
+  return q->element < 0 && q->status < 0 && q->tag == NULL && isnan (q->min_u) && isnan (q->max_u)
+         && isnan (q->min_thickness) && isnan (q->max_thickness) && !q->material_changed_only
+         && !q->moisture_fails_only;
+}
+
 GPtrArray *
 lamina_sqlite_backend_search (LaminaBackend             *backend,
                               const LaminaLibraryQuery  *q,
@@ -569,6 +849,38 @@ lamina_sqlite_backend_search (LaminaBackend             *backend,
   /* Relevance ranks every match: chosen, not typed into. */
   if (q->sort == LAMINA_SORT_RELEVANCE)
     return read_page (SELF, q, TEXT_JOIN, NULL, fts, NULL, NULL, error);
+
+  /* A text search alone, as typed into the list: the matches in a bit
+   * set, kept for the count and the next pages, and the sort order from
+   * memory; when the matches are many, a short walk first. */
+  if (is_text_only (q) && (plan == LAMINA_SQLITE_SEARCH_AUTO || plan == LAMINA_SQLITE_SEARCH_IN_ORDER))
+    {
+      LaminaSqliteMatches *m = cached_matches (SELF, fts);
+      gboolean paused = FALSE;
+
+      if (m == NULL)
+        {
+          m = fill_matches (SELF, fts, plan == LAMINA_SQLITE_SEARCH_AUTO ? DENSE_MATCHES + 1 : 0,
+                            FALSE, &paused, error);
+          if (m != NULL && paused)
+            {
+              if (text_match_init (&match, SELF, q->text))
+                {
+                  match.budget = (guint) MIN (G_MAXUINT / 2, WALK_BUDGET + 2 * ((gint64) q->offset + q->limit));
+                  rows = read_page (SELF, q, TEXT_WALK, index, fts, &match, NULL, error);
+                  if (rows != NULL || !match.over_budget)
+                    {
+                      abandon_fill (SELF);
+                      return rows;
+                    }
+                }
+              m = fill_matches (SELF, fts, 0, TRUE, &paused, error);
+            }
+          if (m == NULL)
+            return NULL;
+        }
+      return read_page_in_order (SELF, q, &m->set, error);
+    }
 
   if (plan == LAMINA_SQLITE_SEARCH_AUTO)
     {
@@ -588,14 +900,14 @@ lamina_sqlite_backend_search (LaminaBackend             *backend,
            * (a word used by one element kind, sorted by code), the walk
            * gives up for the bit set after about 1 ms. */
           if (plan == LAMINA_SQLITE_SEARCH_AUTO)
-            match.budget = (guint) MIN (G_MAXUINT / 2, WALK_BUDGET + 4 * ((gint64) q->offset + q->limit));
+            match.budget = (guint) MIN (G_MAXUINT / 2, WALK_BUDGET + 2 * ((gint64) q->offset + q->limit));
           rows = read_page (SELF, q, TEXT_WALK, index, fts, &match, NULL, error);
           if (rows != NULL || !match.over_budget)
             return rows;
         }
       plan = LAMINA_SQLITE_SEARCH_ROW_SET;
     }
-  if (plan == LAMINA_SQLITE_SEARCH_ROW_SET)
+  if (plan == LAMINA_SQLITE_SEARCH_ROW_SET || plan == LAMINA_SQLITE_SEARCH_IN_ORDER)
     {
       if (!ensure_tokenizer (SELF))
         plan = LAMINA_SQLITE_SEARCH_SET_IN_ORDER;
@@ -618,14 +930,14 @@ count_rows (LaminaSqlite              *self,
 {
   g_autofree char *fts = lamina_library_text_to_fts_query (q->text);
   g_autoptr(GString) sql = g_string_new (at_most < 0 ? "SELECT count(*)" : "SELECT count(*) FROM (SELECT 1");
-  gboolean text_only = fts != NULL && q->element < 0 && q->status < 0 && q->tag == NULL
-                       && isnan (q->min_u) && isnan (q->max_u) && isnan (q->min_thickness)
-                       && isnan (q->max_thickness) && !q->material_changed_only
-                       && !q->moisture_fails_only;
+  gboolean text_only = fts != NULL && is_text_only (q);
   sqlite3_stmt *stmt;
   gint64 n = -1;
   int rc;
 
+  /* Just after a page of the same text search alone: from its matches. */
+  if (text_only && (n = count_cached (self, fts, at_most)) >= 0)
+    return n;
   /* A text search alone is counted on the full-text index, less the few
    * deleted rows (which keep their index entries for undo).  Stopping
    * early, the full-text index (or the rows) drive, and the walk ends

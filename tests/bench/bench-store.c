@@ -15,6 +15,10 @@
  *   the count stopped at 1,001 ("1,000+ constructions"); floor: the bounded
  *   design's two FTS5 queries alone through sqlite3 on a read-only
  *   connection (first 50 matches in the index's order, count to 1,001).
+ * store.reflag_material: one library material's data changed
+ *   (lamina_library_put_material of a board most constructions use, its λ
+ *   up and down by turns), which flags every construction whose layers
+ *   hold other data for it: on a copy of the library, three changes.
  * store.prefix_search_ranked: the same texts by relevance (every match
  *   ranked) with the exact count, as the list asked before; floor: the same
  *   two FTS5 queries alone. */
@@ -24,6 +28,7 @@
 #include "lamina-library.h"
 #include "lamina-library-search.h"
 
+#include <gio/gio.h>
 #include <glib/gstdio.h>
 #include <math.h>
 #include <sqlite3.h>
@@ -224,6 +229,55 @@ print_slowest (GPtrArray    *queries,
     printf ("%-40s slow query “%s”: %.2f ms\n", "", (char *) queries->pdata[order[k]], times[order[k]]);
 }
 
+/* On a copy of @path (the cached library stays as built). */
+static void
+bench_reflag (const char *path,
+              guint       n)
+{
+  g_autofree char *copy = g_strconcat (path, ".reflag", NULL);
+  g_autofree char *name = g_strdup_printf ("store.reflag_material.n%u", n);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaMaterial) m = NULL;
+  double times[3];
+  LaminaBenchFigure f;
+  g_autoptr(GFile) from = g_file_new_for_path (path);
+  g_autoptr(GFile) to = g_file_new_for_path (copy);
+
+  if (!g_file_copy (from, to, G_FILE_COPY_OVERWRITE, NULL, NULL, NULL, &error))
+    g_error ("copy %s: %s", path, error->message);
+  library = lamina_library_open (copy, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  if (library == NULL)
+    g_error ("open %s: %s", copy, error->message);
+  m = lamina_library_dup_material (library, "bench-gypsum-board", &error);
+  if (m == NULL)
+    g_error ("material: %s", error->message);
+  for (guint run = 0; run < G_N_ELEMENTS (times); run++)
+    {
+      double t0 = lamina_bench_now_ms ();
+
+      m->conductivity *= run % 2 == 0 ? 1.25 : 0.8;
+      if (!lamina_library_put_material (library, m, &error))
+        g_error ("put material: %s", error->message);
+      times[run] = lamina_bench_now_ms () - t0;
+    }
+  g_clear_object (&library);
+  g_remove (copy);
+  {
+    g_autofree char *wal = g_strconcat (copy, "-wal", NULL);
+    g_autofree char *shm = g_strconcat (copy, "-shm", NULL);
+
+    g_remove (wal);
+    g_remove (shm);
+  }
+  lamina_bench_figure_init (&f, name, "ms");
+  lamina_bench_figure_set_runs (&f, times, G_N_ELEMENTS (times));
+  f.size = n;
+  if (n == TARGET_SIZE)
+    f.target = 2000;
+  lamina_bench_print (&f);
+}
+
 typedef struct
 {
   double open_ms, search_ms, floor_ms;
@@ -321,6 +375,9 @@ bench_size (guint        n,
   f.floor = lamina_bench_median (floor_medians, runs);
   f.size = n;
   lamina_bench_print (&f);
+
+  g_clear_object (&library);
+  bench_reflag (path, n);
 }
 
 int

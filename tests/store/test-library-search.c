@@ -25,7 +25,7 @@
 
 static const LaminaSqliteSearchPlan plans[] = {
   LAMINA_SQLITE_SEARCH_AUTO, LAMINA_SQLITE_SEARCH_SORT_SET, LAMINA_SQLITE_SEARCH_WALK,
-  LAMINA_SQLITE_SEARCH_ROW_SET,
+  LAMINA_SQLITE_SEARCH_ROW_SET, LAMINA_SQLITE_SEARCH_IN_ORDER,
 };
 
 static LaminaSqlite *
@@ -133,9 +133,13 @@ compare_plans (LaminaLibrary     *library,
                 checked++;
 
                 /* The count that stops: exact up to the bound, then one
-                 * more than the bound. */
+                 * more than the bound; the exact count by the earlier
+                 * plan, the bounded one just after a page by the list's
+                 * (which keeps its matches for the count). */
+                sqlite_of (library)->search_plan = LAMINA_SQLITE_SEARCH_SET_IN_ORDER;
                 exact = lamina_library_count (library, &q, &error);
                 g_assert_no_error (error);
+                g_ptr_array_unref (page_ids (library, LAMINA_SQLITE_SEARCH_AUTO, &q));
                 for (gint64 at_most = 0; at_most <= 1000; at_most = at_most * 10 + 10)
                   {
                     gint64 capped = lamina_library_count_at_most (library, &q, at_most, &error);
@@ -184,6 +188,78 @@ test_demo_library (void)
   report = lamina_library_import (library, cat, LAMINA_IMPORT_UPDATE_MATERIALS, "test", &error);
   g_assert_no_error (error);
   g_assert_cmpuint (compare_plans (library, texts, TRUE), >, 0);
+}
+
+/* The list's plan keeps the matches of the last text and the sort order
+ * in memory: a change to the library, by this connection or another,
+ * is seen by the next search. */
+static void
+test_kept_matches_follow_changes (void)
+{
+  g_autoptr(LaminaLibrary) library = open_new ("changes.lamina", FALSE);
+  g_autoptr(LaminaLibrary) other = NULL;
+  g_autoptr(LaminaCatalogue) cat = lamina_catalogue_new ();
+  g_autoptr(GPtrArray) materials = lamina_bench_dup_materials ();
+  g_autoptr(LaminaImportReport) report = NULL;
+  g_autoptr(GPtrArray) before = NULL, after = NULL, again = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *path = NULL;
+  LaminaLibraryQuery q;
+  gint64 n_before;
+
+  for (guint i = 0; i < materials->len; i++)
+    g_ptr_array_add (cat->materials, g_steal_pointer (&materials->pdata[i]));
+  for (guint i = 0; i < 300; i++)
+    g_ptr_array_add (cat->constructions, lamina_bench_make_construction (LAMINA_BENCH_SEED, i));
+  report = lamina_library_import (library, cat, 0, "test", &error);
+  g_assert_no_error (error);
+
+  lamina_library_query_init (&q);
+  q.text = "t";
+  q.limit = 20;
+  before = page_ids (library, LAMINA_SQLITE_SEARCH_AUTO, &q);
+  g_assert_cmpuint (before->len, ==, 20);
+  n_before = lamina_library_count_at_most (library, &q, 1000, &error);
+  g_assert_no_error (error);
+
+  /* This connection deletes the first row. */
+  lamina_library_delete_construction (library, before->pdata[0], "test", &error);
+  g_assert_no_error (error);
+  after = page_ids (library, LAMINA_SQLITE_SEARCH_AUTO, &q);
+  g_assert_cmpstr (after->pdata[0], ==, before->pdata[1]);
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 1000, &error), ==, n_before - 1);
+
+  /* Another connection restores it. */
+  path = g_build_filename (g_get_user_data_dir (), "changes.lamina", NULL);
+  other = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  g_assert_no_error (error);
+  lamina_library_restore_construction (other, before->pdata[0], &error);
+  g_assert_no_error (error);
+  again = page_ids (library, LAMINA_SQLITE_SEARCH_AUTO, &q);
+  assert_same_ids (before, again, "after a restore by another connection");
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 1000, &error), ==, n_before);
+
+  /* A new construction with a word no other has: a text searched before
+   * (nothing found) finds it now. */
+  {
+    g_autoptr(LaminaConstruction) c = lamina_bench_make_construction (LAMINA_BENCH_SEED, 9999);
+    g_autoptr(GPtrArray) none = NULL, found = NULL;
+    g_autofree char *id = NULL;
+
+    q.text = "quernstone";
+    none = page_ids (library, LAMINA_SQLITE_SEARCH_AUTO, &q);
+    g_assert_cmpuint (none->len, ==, 0);
+    g_free (c->id);
+    c->id = NULL;
+    g_free (c->name);
+    c->name = g_strdup ("Quernstone store wall");
+    id = lamina_library_create_construction (library, c, "test", &error);
+    g_assert_no_error (error);
+    found = page_ids (library, LAMINA_SQLITE_SEARCH_AUTO, &q);
+    g_assert_cmpuint (found->len, ==, 1);
+    g_assert_cmpstr (found->pdata[0], ==, id);
+    g_assert_cmpint (lamina_library_count_at_most (library, &q, 1000, &error), ==, 1);
+  }
 }
 
 /* Names the tokenizer folds (unicode61 with remove_diacritics 2: "é" is
@@ -244,5 +320,6 @@ main (int    argc,
   g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
   g_test_add_func ("/store/search/plans-agree/demo", test_demo_library);
   g_test_add_func ("/store/search/plans-agree/sample-10000", test_sample_library);
+  g_test_add_func ("/store/search/kept-matches-follow-changes", test_kept_matches_follow_changes);
   return g_test_run ();
 }
