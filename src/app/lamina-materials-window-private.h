@@ -4,6 +4,7 @@
 #pragma once
 
 #include "lamina-materials-window.h"
+#include "lamina-material-row.h"
 
 G_BEGIN_DECLS
 
@@ -14,9 +15,12 @@ struct _LaminaMaterialsWindow
   /* template */
   GtkListBox    *list;    /* LaminaMaterialRow, one per material */
   GtkLabel      *status;
+  GtkProgressBar *progress; /* pulses while a save re-flags the library */
 
   /* owned */
   LaminaLibrary *library;
+  LaminaMaterialRow *saving_row; /* the row being saved, or NULL */
+  guint          pulse;
 };
 
 G_END_DECLS

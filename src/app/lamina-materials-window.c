@@ -8,10 +8,94 @@
 #include <glib/gi18n.h>
 
 #include "lamina-material-row.h"
+#include "lamina-library-safety.h"
 
 G_DEFINE_FINAL_TYPE (LaminaMaterialsWindow, lamina_materials_window, GTK_TYPE_WINDOW)
 
 static void reload (LaminaMaterialsWindow *self);
+
+/* Saving a material re-flags every construction that holds other data
+ * for it: about a second at 100,000 constructions.  That runs in a
+ * worker thread on a connection of its own, with a pulsing bar here; the
+ * library's own connection sees the change when it is committed. */
+typedef struct
+{
+  LaminaLibrary  *library;   /* a second connection, used by the worker only */
+  LaminaMaterial *material;
+} SaveJob;
+
+static void
+save_job_free (SaveJob *job)
+{
+  g_clear_object (&job->library);
+  lamina_material_free (job->material);
+  g_free (job);
+}
+
+static void
+save_in_thread (GTask        *task,
+                gpointer      source,
+                gpointer      data,
+                GCancellable *cancellable)
+{
+  SaveJob *job = data;
+  GError *error = NULL;
+
+  if (!lamina_library_put_material (job->library, job->material, &error))
+    g_task_return_error (task, error);
+  else
+    g_task_return_boolean (task, TRUE);
+  lamina_library_close (job->library);
+}
+
+static gboolean
+pulse_cb (gpointer data)
+{
+  LaminaMaterialsWindow *self = data;
+
+  gtk_progress_bar_pulse (self->progress);
+  return G_SOURCE_CONTINUE;
+}
+
+static void
+set_saving (LaminaMaterialsWindow *self,
+            LaminaMaterialRow     *row)
+{
+  g_set_object (&self->saving_row, row);
+  gtk_widget_set_visible (GTK_WIDGET (self->progress), row != NULL);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->list), row == NULL);
+  g_clear_handle_id (&self->pulse, g_source_remove);
+  if (row != NULL)
+    self->pulse = g_timeout_add (100, pulse_cb, self);
+}
+
+static void
+on_saved_cb (GObject      *source,
+             GAsyncResult *result,
+             gpointer      data)
+{
+  LaminaMaterialsWindow *self = LAMINA_MATERIALS_WINDOW (source);
+  g_autoptr(GError) error = NULL;
+  g_autofree char *saved = NULL;
+  SaveJob *job = g_task_get_task_data (G_TASK (result));
+
+  if (self->library == NULL)   /* closed meanwhile */
+    return;
+  if (!g_task_propagate_boolean (G_TASK (result), &error))
+    {
+      if (self->saving_row != NULL)
+        lamina_material_row_show_error (self->saving_row, error->message);
+      set_saving (self, NULL);
+      return;
+    }
+  set_saving (self, NULL);
+  saved = g_strdup_printf (_("Saved “%s”. Constructions that use it are flagged “material data changed” for re-checking."),
+                           job->material->name);
+  gtk_label_set_text (self->status, saved);
+  /* The library's own connection: the rows, flags and list again now. */
+  lamina_library_check_for_changes (self->library);
+  reload (self);
+}
 
 static void
 on_row_save_cb (LaminaMaterialRow     *row,
@@ -19,19 +103,52 @@ on_row_save_cb (LaminaMaterialRow     *row,
 {
   g_autoptr(LaminaMaterial) material = lamina_material_row_dup_material (row);
   g_autoptr(GError) error = NULL;
-  g_autofree char *saved = NULL;
+  g_autoptr(GTask) task = NULL;
+  g_autofree char *saving = NULL;
+  SaveJob *job;
 
-  if (material == NULL)
+  if (material == NULL || self->saving_row != NULL)
     return;
-  if (!lamina_library_put_material (self->library, material, &error))
+  if (!lamina_library_check_writable (self->library, &error))
     {
       lamina_material_row_show_error (row, error->message);
       return;
     }
-  saved = g_strdup_printf (_("Saved “%s”. Constructions that use it are flagged “material data changed” for re-checking."),
-                           material->name);
-  gtk_label_set_text (self->status, saved);
-  reload (self);
+  job = g_new0 (SaveJob, 1);
+  job->library = lamina_library_open (lamina_library_get_path (self->library), LAMINA_LIBRARY_OPEN_EXISTING, NULL);
+  job->material = g_steal_pointer (&material);
+  if (job->library == NULL)
+    {
+      /* No second connection to this library: save here and wait. */
+      gboolean ok = lamina_library_put_material (self->library, job->material, &error);
+
+      if (ok)
+        {
+          saving = g_strdup_printf (_("Saved “%s”. Constructions that use it are flagged “material data changed” for re-checking."),
+                                    job->material->name);
+          gtk_label_set_text (self->status, saving);
+        }
+      else
+        lamina_material_row_show_error (row, error->message);
+      save_job_free (job);
+      if (ok)
+        reload (self);
+      return;
+    }
+  saving = g_strdup_printf (_("Saving “%s” and checking the constructions that use it…"), job->material->name);
+  gtk_label_set_text (self->status, saving);
+  set_saving (self, row);
+  task = g_task_new (self, NULL, on_saved_cb, NULL);
+  g_task_set_source_tag (task, on_row_save_cb);
+  g_task_set_task_data (task, job, (GDestroyNotify) save_job_free);
+  g_task_run_in_thread (task, save_in_thread);
+}
+
+gboolean
+lamina_materials_window_is_saving (LaminaMaterialsWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_MATERIALS_WINDOW (self), FALSE);
+  return self->saving_row != NULL;
 }
 
 static void
@@ -75,6 +192,8 @@ lamina_materials_window_dispose (GObject *object)
 {
   LaminaMaterialsWindow *self = LAMINA_MATERIALS_WINDOW (object);
 
+  g_clear_handle_id (&self->pulse, g_source_remove);
+  g_clear_object (&self->saving_row);
   gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_MATERIALS_WINDOW);
   g_clear_object (&self->library);
 
@@ -92,6 +211,7 @@ lamina_materials_window_class_init (LaminaMaterialsWindowClass *klass)
   gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-materials-window.ui");
   gtk_widget_class_bind_template_child (widget_class, LaminaMaterialsWindow, list);
   gtk_widget_class_bind_template_child (widget_class, LaminaMaterialsWindow, status);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMaterialsWindow, progress);
   gtk_widget_class_bind_template_callback (widget_class, on_add_clicked_cb);
 }
 

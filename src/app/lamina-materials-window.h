@@ -18,6 +18,9 @@ G_DECLARE_FINAL_TYPE (LaminaMaterialsWindow, lamina_materials_window, LAMINA, MA
 LaminaMaterialsWindow *lamina_materials_window_new     (GtkWindow     *parent,
                                                         LaminaLibrary *library);
 /* The same, presented. */
+/* TRUE while a saved material is written and the library re-flagged in a
+ * worker thread (the list is insensitive, a bar pulses). */
+gboolean               lamina_materials_window_is_saving (LaminaMaterialsWindow *self);
 GtkWindow             *lamina_materials_window_present (GtkWindow     *parent,
                                                         LaminaLibrary *library);
 

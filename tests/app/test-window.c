@@ -1633,6 +1633,13 @@ test_materials_manager (Fixture       *f,
   gtk_drop_down_set_selected (r->category,
                               LAMINA_CATEGORY_CONCRETE);
   g_signal_emit_by_name (r->save, "clicked");
+  /* Saved in a worker thread (the library is re-flagged there), with a
+   * pulsing bar until it is done. */
+  g_assert_true (lamina_materials_window_is_saving (manager));
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (manager->progress)));
+  while (lamina_materials_window_is_saving (manager))
+    g_main_context_iteration (NULL, TRUE);
+  g_assert_false (gtk_widget_get_visible (GTK_WIDGET (manager->progress)));
   g_clear_pointer (&stored, lamina_material_free);
   stored = lamina_library_dup_material (f->library, used->id, &error);
   g_assert_no_error (error);
