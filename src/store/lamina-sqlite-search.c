@@ -87,7 +87,7 @@ lamina_library_text_to_fts_query (const char *text)
 /* Above this many matches, walk the sort order (at 100,000 constructions:
  * at most 2.5 % of rows tested before a page of 50, about 2,500 rows). */
 #define DENSE_MATCHES 2000
-#define MAX_TERMS     32
+#define MAX_TERMS     31   /* bits of TextMatch.found, with (1 << n) − 1 defined */
 /* Rows of the sort order tested at least before the walk gives up. */
 #define WALK_BUDGET   100
 
