@@ -349,6 +349,18 @@ print_method (FILE                     *out,
     }
 }
 
+/* One line per warning under a result. */
+static void
+print_warning (FILE       *out,
+               const char *message)
+{
+  /* Built first: GCC 12's -Wformat-overflow takes the translated format
+   * of an fprintf here for a null one in the optimised sanitizer build. */
+  g_autofree char *line = g_strdup_printf (_("  warning: %s\n"), message);
+
+  fputs (line, out);
+}
+
 void
 lamina_cli_print_result (FILE                     *out,
                          const LaminaConstruction *c,
@@ -396,8 +408,8 @@ lamina_cli_print_result (FILE                     *out,
                dynamic.bridged_equivalent ? _("   (bridged layers by their lower-limit equivalent)") : "");
     }
   for (guint i = 0; i < r->warnings->len; i++)
-    fprintf (out, _("  warning: %s\n"), ((LaminaWarning *) r->warnings->pdata[i])->message);
+    print_warning (out, ((LaminaWarning *) r->warnings->pdata[i])->message);
   if (dynamic_error != NULL)
-    fprintf (out, _("  warning: %s\n"), dynamic_error->message);
+    print_warning (out, dynamic_error->message);
   fprintf (out, "  %s\n\n", caution);
 }
