@@ -88,9 +88,15 @@ compare_plans (LaminaLibrary     *library,
                gboolean           thorough)
 {
   guint checked = 0;
+  /* The sanitizer pass of CI checks memory, not the plans' agreement,
+   * and runs ~15 times slower: it sets LAMINA_TEST_SEARCH_STRIDE to
+   * check every plan on every n-th text only (still Latin, digits and
+   * folded letters). */
+  const char *stride_env = g_getenv ("LAMINA_TEST_SEARCH_STRIDE");
+  guint stride = stride_env != NULL ? MAX (1, (guint) g_ascii_strtoull (stride_env, NULL, 10)) : 1;
 
   for (guint t = 0; texts[t] != NULL; t++)
-    for (glong len = 1; len <= g_utf8_strlen (texts[t], -1); len++)
+    for (glong len = 1; t % stride == 0 && len <= g_utf8_strlen (texts[t], -1); len++)
       {
         g_autofree char *text = g_utf8_substring (texts[t], 0, len);
 
