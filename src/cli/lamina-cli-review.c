@@ -98,7 +98,7 @@ lamina_cli_policy (const LaminaCliGlobals *globals,
       return LAMINA_EXIT_BAD_INPUT;
     }
   policy = lamina_library_get_review_policy (library);
-  printf ("%s: %s\n", lamina_review_policy_to_string (policy), lamina_review_policy_describe (policy));
+  printf ("%s: %s\n", lamina_review_policy_to_string (policy), lamina_review_policy_explain (policy));
   return LAMINA_EXIT_OK;
 }
 

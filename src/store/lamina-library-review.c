@@ -45,6 +45,14 @@ lamina_review_policy_describe (LaminaReviewPolicy policy)
     : _("four eyes: checked and approved by others than the author");
 }
 
+const char *
+lamina_review_policy_explain (LaminaReviewPolicy policy)
+{
+  return policy == LAMINA_REVIEW_SINGLE
+    ? _("the author may check and approve (a one-person practice)")
+    : _("checked and approved by others than the author");
+}
+
 void
 lamina_review_event_free (LaminaReviewEvent *event)
 {

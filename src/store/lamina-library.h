@@ -301,6 +301,9 @@ gboolean           lamina_review_policy_from_string (const char         *text,
 /* A sentence for sheets and history ("four eyes: checked and approved by
  * others than the author"). */
 const char        *lamina_review_policy_describe    (LaminaReviewPolicy  policy);
+/* The same without its label ("checked and approved by others than the
+ * author"), for output that already names the policy. */
+const char        *lamina_review_policy_explain     (LaminaReviewPolicy  policy);
 LaminaReviewPolicy lamina_library_get_review_policy (LaminaLibrary      *self);
 gboolean           lamina_library_set_review_policy (LaminaLibrary      *self,
                                                      LaminaReviewPolicy  policy,
