@@ -679,30 +679,41 @@ dup_notes_text (const LaminaConstruction *c,
   return g_string_free (text, FALSE);
 }
 
-static const char *
-get_method_text (gboolean moisture_checked)
+/* The method and cautions at the foot: the common part, then one sentence
+ * for each further method that applies to this sheet (EN ISO 13788 when
+ * a moisture check is on it, EN ISO 13370 for a floor on the ground). */
+static char *
+dup_method_text (const LaminaConstruction *c,
+                 gboolean                  moisture_checked)
 {
+  GString *text = g_string_new (NULL);
+
+  g_string_append (text,
+                   _("Method. Thermal resistance and transmittance by EN ISO 6946:2017: surface resistances "
+                     "by Table 7 for the stated direction of heat flow, air layers by 6.9, bridged layers by the "
+                     "combined method (upper and lower limit, 6.7.2), corrections to U by Annex F. U is given to "
+                     "two significant figures; intermediate values are unrounded.\n"
+                     "Cautions. The results hold for the stated design values and conditions only. Check the "
+                     "design values against the product declarations, and the construction against the local "
+                     "building code and licensed professional practice."));
+  g_string_append_c (text, ' ');
   if (moisture_checked)
-    return _("Method. Thermal resistance and transmittance by EN ISO 6946:2017: surface resistances "
-             "by Table 7 for the stated direction of heat flow, air layers by 6.9, bridged layers by the "
-             "combined method (upper and lower limit, 6.7.2), corrections to U by Annex F. U is given to "
-             "two significant figures; intermediate values are unrounded.\n"
-             "Cautions. The results hold for the stated design values and conditions only. Check the "
-             "design values against the product declarations, and the construction against the local "
-             "building code and licensed professional practice. The condensation risk is assessed by the "
-             "monthly method of EN ISO 13788, which ignores liquid transport, rain and air leakage: a "
-             "borderline result needs EN 15026 or specialist advice. Linear thermal bridges "
-             "(EN ISO 10211) are not covered.");
-  return _("Method. Thermal resistance and transmittance by EN ISO 6946:2017: surface resistances "
-           "by Table 7 for the stated direction of heat flow, air layers by 6.9, bridged layers by the "
-           "combined method (upper and lower limit, 6.7.2), corrections to U by Annex F. U is given to "
-           "two significant figures; intermediate values are unrounded.\n"
-           "Cautions. The results hold for the stated design values and conditions only. Check the "
-           "design values against the product declarations, and the construction against the local "
-           "building code and licensed professional practice. This sheet is not a condensation risk "
-           "assessment (EN ISO 13788) and does not cover linear thermal bridges (EN ISO 10211). A ground "
-           "floor's U with the ground (EN ISO 13370) holds for the stated plan; use the table by B′ for "
-           "another building and confirm the soil.");
+    g_string_append (text,
+                     _("The condensation risk is assessed by the monthly method of EN ISO 13788, which "
+                       "ignores liquid transport, rain and air leakage: a borderline result needs EN 15026 "
+                       "or specialist advice. Linear thermal bridges (EN ISO 10211) are not covered."));
+  else
+    g_string_append (text,
+                     _("This sheet is not a condensation risk assessment (EN ISO 13788) and does not cover "
+                       "linear thermal bridges (EN ISO 10211)."));
+  if (c->has_ground)
+    {
+      g_string_append_c (text, ' ');
+      g_string_append (text,
+                       _("A ground floor's U with the ground (EN ISO 13370) holds for the stated plan; use "
+                         "the table by B′ for another building and confirm the soil."));
+    }
+  return g_string_free (text, FALSE);
 }
 
 static double
@@ -740,6 +751,7 @@ sheet_draw_page (SheetContext             *ctx,
   g_autofree char *corrections = sheet_dup_corrections_text (c, result);
   g_autofree char *dynamic = lamina_dynamic_dup_text (c, result);
   g_autofree char *method = sheet_dup_method_text (c, result);
+  g_autofree char *foot = dup_method_text (c, ctx->moisture != NULL);
   double table_h, warn_h = 0, notes_h = 0, corr_h = 0, dyn_h, method_h, y, section_h, room;
   double ground_h = sheet_measure_ground (ctx, c, result), applied_h = 0;
   double page_h = ctx->bottom - ctx->top;
@@ -773,7 +785,7 @@ sheet_draw_page (SheetContext             *ctx,
   dyn_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, dynamic) + GAP;
   if (method)
     applied_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, method) + GAP;
-  method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, get_method_text (ctx->moisture != NULL));
+  method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, foot);
 
   /* The section takes the height left, within bounds. */
   room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - dyn_h - notes_h
@@ -799,7 +811,7 @@ sheet_draw_page (SheetContext             *ctx,
 
   set_grey (ctx);
   sheet_rule (ctx, ctx->bottom - 20 - method_h, 0.4, 0.6);
-  sheet_text (ctx, SHEET_FONT_SMALL, get_method_text (ctx->moisture != NULL), ctx->left, ctx->bottom - 16 - method_h,
+  sheet_text (ctx, SHEET_FONT_SMALL, foot, ctx->left, ctx->bottom - 16 - method_h,
               ctx->right - ctx->left, PANGO_ALIGN_LEFT);
   set_black (ctx);
   sheet_draw_footer (ctx);

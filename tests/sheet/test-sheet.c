@@ -42,6 +42,9 @@ init_options (LaminaSheetOptions *options)
 
 static char *temp_dir;
 
+static char *dup_sheet_text (const LaminaConstruction *c,
+                             const LaminaSheetOptions *options);
+
 static char *
 dup_temp_path (const char *name)
 {
@@ -403,9 +406,8 @@ test_field_check_page (void)
  * from memory (plaster 10, block 10, brick 10), wool 1 (typical); the
  * climate is invented test data. */
 static LaminaConstruction *
-make_moisture_wall (void)
+add_moisture_check (LaminaConstruction *c)
 {
-  LaminaConstruction *c = lamina_test_masonry_wall ();
   LaminaClimate *climate = lamina_climate_new ("test-site", "Test site (invented)");
 
   climate->source = g_strdup ("invented for a test");
@@ -425,6 +427,39 @@ make_moisture_wall (void)
   c->moisture->humidity_class = 3;
   c->moisture->climate_data = climate;
   return c;
+}
+
+static LaminaConstruction *
+make_moisture_wall (void)
+{
+  return add_moisture_check (lamina_test_masonry_wall ());
+}
+
+/* The cautions at the foot name every method the sheet applies: a ground
+ * floor with a moisture check gets both the EN ISO 13788 sentence and the
+ * EN ISO 13370 one; a wall with no ground gets no EN ISO 13370 sentence.
+ * Plan of the floor as in the ground-floor test below (A 100 m², P 40 m). */
+static void
+test_method_sentences (void)
+{
+  g_autoptr(LaminaConstruction) floor = add_moisture_check (lamina_test_ground_floor ());
+  g_autoptr(LaminaConstruction) wall = make_moisture_wall ();
+  g_autofree char *floor_text = NULL, *wall_text = NULL;
+  LaminaSheetOptions options;
+
+  floor->has_ground = TRUE;
+  floor->ground.area = 100;
+  floor->ground.perimeter = 40;
+  floor->ground.wall_thickness = 300;
+  init_options (&options);
+  floor_text = dup_sheet_text (floor, &options);
+  assert_contains (floor_text, "monthly method of EN ISO 13788", floor->code);
+  assert_contains (floor_text, "with the ground (EN ISO 13370) holds for the stated plan", floor->code);
+  assert_contains (floor_text, "Linear thermal bridges (EN ISO 10211) are not covered", floor->code);
+  g_assert_null (strstr (floor_text, "not a condensation risk assessment"));
+  wall_text = dup_sheet_text (wall, &options);
+  assert_contains (wall_text, "monthly method of EN ISO 13788", wall->code);
+  g_assert_null (strstr (wall_text, "(EN ISO 13370) holds"));
 }
 
 static void
@@ -897,6 +932,7 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/tapered-block", test_tapered_block);
   g_test_add_func ("/sheet/pdf/field-check-page", test_field_check_page);
   g_test_add_func ("/sheet/pdf/moisture-page", test_moisture_page);
+  g_test_add_func ("/sheet/pdf/method-sentences", test_method_sentences);
   g_test_add_func ("/sheet/catalogue/moisture-pages", test_catalogue_moisture_pages);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
   g_assert_nonnull (temp_dir);
