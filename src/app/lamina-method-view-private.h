@@ -25,28 +25,29 @@ struct _LaminaMethodView
 {
   GtkWidget       parent_instance;
 
-  /* owned children */
+  /* template */
   GtkWidget      *scroller;
-  /* borrowed (inside the scroller) */
+  GtkLabel       *error;
   GtkCheckButton *on_ground;
+  GtkLabel       *ground_u;
+  GtkGrid        *ground_table;
+  GtkWidget      *ground_grid;
   GtkDropDown    *ground_kind;
   GtkDropDown    *soil;
   GtkEntry       *nums[N_NUMS];
-  GtkWidget      *suspended_rows[5 * 2];
-  GtkWidget      *basement_rows[2 * 2];
-  GtkWidget      *ground_grid;
-  GtkLabel       *ground_u;
-  GtkGrid        *ground_table;
-  GtkLabel       *table_u[LAMINA_GROUND_TABLE_ROWS];
+  GtkWidget      *suspended_labels[5];
+  GtkWidget      *basement_labels[2];
   GtkDropDown    *tapered_layer;
   GtkStringList  *layer_names;
   GtkDropDown    *taper;
   GtkLabel       *taper_u;
   GtkDropDown    *unheated;
+  GtkWidget      *roof_label;
   GtkDropDown    *roof;
-  GtkWidget      *other_rows[5 * 2];
+  GtkWidget      *other_labels[5];
   GtkCheckButton *air_profile;
-  GtkLabel       *error;
+  /* inside ground_table, made in init (a column per B′ of the table) */
+  GtkLabel       *table_u[LAMINA_GROUND_TABLE_ROWS];
 
   /* owned */
   LaminaDocument *document;

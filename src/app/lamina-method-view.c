@@ -199,234 +199,68 @@ on_surfaces_changed_cb (LaminaMethodView *self)
   apply (self, lamina_edit_set_surfaces (state, &s, &error), &error);
 }
 
-/* Building the form */
-
-static GtkWidget *
-add_heading (GtkBox     *box,
-             const char *text)
-{
-  GtkWidget *label = gtk_label_new (text);
-
-  gtk_label_set_xalign (GTK_LABEL (label), 0);
-  gtk_widget_add_css_class (label, "heading");
-  gtk_widget_set_margin_top (label, 12);
-  gtk_box_append (box, label);
-  return label;
-}
-
-static GtkWidget *
-add_grid (GtkBox *box)
-{
-  GtkWidget *grid = gtk_grid_new ();
-
-  gtk_grid_set_row_spacing (GTK_GRID (grid), 4);
-  gtk_grid_set_column_spacing (GTK_GRID (grid), 8);
-  gtk_box_append (box, grid);
-  return grid;
-}
-
-static GtkWidget *
-add_row_label (GtkGrid    *grid,
-               int         row,
-               const char *text)
-{
-  GtkWidget *label = gtk_label_new (text);
-
-  gtk_label_set_xalign (GTK_LABEL (label), 0);
-  gtk_label_set_wrap (GTK_LABEL (label), TRUE);
-  gtk_label_set_max_width_chars (GTK_LABEL (label), 28);
-  gtk_grid_attach (grid, label, 0, row, 1, 1);
-  return label;
-}
-
-/* A numeric field committed on Enter and when focus leaves. */
-static GtkWidget *
-add_number (LaminaMethodView *self,
-            GtkGrid          *grid,
-            int               row,
-            NumField          field,
-            const char       *label,
-            const char       *placeholder,
-            GCallback         commit)
-{
-  GtkWidget *entry = gtk_entry_new ();
-  GtkEventController *focus = gtk_event_controller_focus_new ();
-  GtkWidget *name = add_row_label (grid, row, label);
-
-  gtk_editable_set_width_chars (GTK_EDITABLE (entry), 9);
-  if (placeholder != NULL)
-    gtk_entry_set_placeholder_text (GTK_ENTRY (entry), placeholder);
-  gtk_accessible_update_property (GTK_ACCESSIBLE (entry), GTK_ACCESSIBLE_PROPERTY_LABEL, label, -1);
-  g_signal_connect_object (entry, "activate", commit, self, G_CONNECT_SWAPPED);
-  g_signal_connect_object (focus, "leave", commit, self, G_CONNECT_SWAPPED);
-  gtk_widget_add_controller (entry, focus);
-  gtk_grid_attach (grid, entry, 1, row, 1, 1);
-  self->nums[field] = GTK_ENTRY (entry);
-  (void) name;
-  return entry;
-}
-
-static GtkDropDown *
-add_choice (LaminaMethodView   *self,
-            GtkGrid            *grid,
-            int                 row,
-            const char         *label,
-            const char *const  *items,
-            GCallback           commit)
-{
-  GtkWidget *dropdown = gtk_drop_down_new_from_strings (items);
-
-  add_row_label (grid, row, label);
-  gtk_accessible_update_property (GTK_ACCESSIBLE (dropdown), GTK_ACCESSIBLE_PROPERTY_LABEL, label, -1);
-  g_signal_connect_object (dropdown, "notify::selected", commit, self, G_CONNECT_SWAPPED);
-  gtk_grid_attach (grid, dropdown, 1, row, 1, 1);
-  return GTK_DROP_DOWN (dropdown);
-}
-
-static void
-build_ground (LaminaMethodView *self,
-              GtkBox           *box)
-{
-  const char *const kinds[] = { _("Slab on ground"), _("Suspended floor"), _("Heated basement"), NULL };
-  const char *const soils[] = { _("Not known (λ 2.0 assumed)"), _("Clay or silt (λ 1.5)"),
-                                _("Sand or gravel (λ 2.0)"), _("Homogeneous rock (λ 3.5)"), NULL };
-  GCallback cb = G_CALLBACK (on_ground_changed_cb);
-  GtkGrid *grid;
-  int row = 0;
-
-  add_heading (box, _("Ground floor, EN ISO 13370"));
-  self->on_ground = GTK_CHECK_BUTTON (gtk_check_button_new_with_label (_("On or over the ground: state the plan")));
-  g_signal_connect_object (self->on_ground, "toggled", cb, self, G_CONNECT_SWAPPED);
-  gtk_box_append (box, GTK_WIDGET (self->on_ground));
-  /* The answer first, then the plan it is for. */
-  self->ground_u = GTK_LABEL (gtk_label_new (""));
-  gtk_label_set_xalign (self->ground_u, 0);
-  gtk_label_set_wrap (self->ground_u, TRUE);
-  gtk_widget_add_css_class (GTK_WIDGET (self->ground_u), "heading");
-  gtk_box_append (box, GTK_WIDGET (self->ground_u));
-  self->ground_table = GTK_GRID (add_grid (box));
-  gtk_grid_attach (self->ground_table, gtk_label_new (_("B′ m")), 0, 0, 1, 1);
-  gtk_grid_attach (self->ground_table, gtk_label_new (_("U")), 0, 1, 1, 1);
-  for (guint i = 0; i < LAMINA_GROUND_TABLE_ROWS; i++)
-    {
-      g_autofree char *b = g_strdup_printf ("%g", lamina_ground_table_b_prime[i]);
-
-      gtk_grid_attach (self->ground_table, gtk_label_new (b), (int) i + 1, 0, 1, 1);
-      self->table_u[i] = GTK_LABEL (gtk_label_new (""));
-      gtk_grid_attach (self->ground_table, GTK_WIDGET (self->table_u[i]), (int) i + 1, 1, 1, 1);
-    }
-  self->ground_grid = add_grid (box);
-  grid = GTK_GRID (self->ground_grid);
-  self->ground_kind = add_choice (self, grid, row++, _("Kind"), kinds, cb);
-  add_number (self, grid, row++, NUM_AREA, _("Floor area A, m²"), NULL, cb);
-  add_number (self, grid, row++, NUM_PERIMETER, _("Exposed perimeter P, m"), NULL, cb);
-  add_number (self, grid, row++, NUM_B_PRIME, _("or B′ = A/(0.5 P), m"), NULL, G_CALLBACK (on_b_prime_activate_cb));
-  add_number (self, grid, row++, NUM_WALL, _("External wall thickness w, mm"), NULL, cb);
-  self->soil = add_choice (self, grid, row++, _("Soil"), soils, cb);
-  add_number (self, grid, row++, NUM_SOIL_LAMBDA, _("or soil λ, W/(m·K)"), _("by the soil"), cb);
-  for (guint i = 0; i < 5; i++)
-    {
-      static const NumField fields[] = { NUM_UNDERFLOOR_HEIGHT, NUM_VENT_AREA, NUM_UNDERFLOOR_WALL_U,
-                                         NUM_GROUND_WIND, NUM_SHIELDING };
-      const char *labels[] = { _("Underfloor height h, m"), _("Vent area ε, m² per m of perimeter"),
-                               _("Underfloor wall U, W/(m²·K)"), _("Wind speed v, m/s"),
-                               _("Shielding factor fw") };
-      const char *placeholders[] = { NULL, NULL, NULL, "4", "0.05" };
-
-      self->suspended_rows[2 * i + 1] = add_number (self, grid, row, fields[i], labels[i], placeholders[i], cb);
-      self->suspended_rows[2 * i] = gtk_grid_get_child_at (grid, 0, row++);
-    }
-  self->basement_rows[1] = add_number (self, grid, row, NUM_DEPTH, _("Basement depth z, m"), NULL, cb);
-  self->basement_rows[0] = gtk_grid_get_child_at (grid, 0, row++);
-  self->basement_rows[3] = add_number (self, grid, row, NUM_BASEMENT_WALL_R, _("Basement wall R, m²·K/W"),
-                                       _("optional"), cb);
-  self->basement_rows[2] = gtk_grid_get_child_at (grid, 0, row++);
-
-}
-
-static void
-build_taper (LaminaMethodView *self,
-             GtkBox           *box)
-{
-  const char *const shapes[] = { _("Rectangle, one fall"), _("Triangle, thickest at the apex"),
-                                 _("Triangle, thinnest at the apex"), NULL };
-  GCallback cb = G_CALLBACK (on_taper_changed_cb);
-  GtkGrid *grid;
-  GtkWidget *dropdown;
-
-  add_heading (box, _("Tapered layer, EN ISO 6946 Annex E"));
-  grid = GTK_GRID (add_grid (box));
-  self->layer_names = gtk_string_list_new (NULL);
-  dropdown = gtk_drop_down_new (G_LIST_MODEL (g_object_ref (self->layer_names)), NULL);
-  add_row_label (grid, 0, _("Layer laid to falls"));
-  gtk_accessible_update_property (GTK_ACCESSIBLE (dropdown), GTK_ACCESSIBLE_PROPERTY_LABEL,
-                                  _("Layer laid to falls"), -1);
-  g_signal_connect_object (dropdown, "notify::selected", cb, self, G_CONNECT_SWAPPED);
-  gtk_grid_attach (grid, dropdown, 1, 0, 1, 1);
-  self->tapered_layer = GTK_DROP_DOWN (dropdown);
-  add_number (self, grid, 1, NUM_THICKNESS_MAX, _("Thick end, mm (the layer's thickness is the thin end)"), NULL, cb);
-  self->taper = add_choice (self, grid, 2, _("Shape on plan"), shapes, cb);
-  self->taper_u = GTK_LABEL (gtk_label_new (""));
-  gtk_label_set_xalign (self->taper_u, 0);
-  gtk_label_set_wrap (self->taper_u, TRUE);
-  gtk_box_append (box, GTK_WIDGET (self->taper_u));
-}
-
-static void
-build_unheated (LaminaMethodView *self,
-                GtkBox           *box)
-{
-  const char *const kinds[] = { _("None: the outer surface faces outdoors"), _("Roof space"),
-                                _("Other unheated space"), NULL };
-  const char *const roofs[] = { _("Tiles, no felt or boards (Ru 0.06)"), _("Sheeted, or tiles on felt or boards (0.2)"),
-                                _("As before, low-emissivity underside (0.3)"), _("Lined with boards and felt (0.3)"),
-                                NULL };
-  GCallback cb = G_CALLBACK (on_unheated_changed_cb);
-  GtkGrid *grid;
-  static const NumField fields[] = { NUM_INNER_AREA, NUM_OUTER_AREA, NUM_OUTER_U, NUM_AIR_CHANGE, NUM_VOLUME };
-
-  add_heading (box, _("Unheated space outside, EN ISO 6946 6.10"));
-  grid = GTK_GRID (add_grid (box));
-  self->unheated = add_choice (self, grid, 0, _("Beyond the outer layer"), kinds, cb);
-  self->roof = add_choice (self, grid, 1, _("Roof type"), roofs, cb);
-  for (guint i = 0; i < 5; i++)
-    {
-      const char *labels[] = { _("Area to the heated space Ai, m²"), _("Area to outside Ae, m²"),
-                               _("U to outside Ue, W/(m²·K)"), _("Air change n, 1/h"), _("Volume V, m³") };
-
-      self->other_rows[2 * i + 1] = add_number (self, grid, (int) i + 2, fields[i], labels[i], NULL, cb);
-      self->other_rows[2 * i] = gtk_grid_get_child_at (grid, 0, (int) i + 2);
-    }
-}
-
-static void
-build_surfaces (LaminaMethodView *self,
-                GtkBox           *box)
-{
-  GCallback cb = G_CALLBACK (on_surfaces_changed_cb);
-  GtkGrid *grid;
-
-  add_heading (box, _("Surfaces and air layers, EN ISO 6946 Annexes C and D"));
-  grid = GTK_GRID (add_grid (box));
-  add_number (self, grid, 0, NUM_WIND, _("Wind speed, m/s"), _("Table 7"), cb);
-  add_number (self, grid, 1, NUM_EMISSIVITY_INSIDE, _("Inner surface emissivity"), "0.9", cb);
-  add_number (self, grid, 2, NUM_EMISSIVITY_OUTSIDE, _("Outer surface emissivity"), "0.9", cb);
-  self->air_profile = GTK_CHECK_BUTTON (gtk_check_button_new_with_label (
-    _("Air layers at the temperature difference of their own profile (ΔT > 5 K)")));
-  g_signal_connect_object (self->air_profile, "toggled", cb, self, G_CONNECT_SWAPPED);
-  gtk_box_append (box, GTK_WIDGET (self->air_profile));
-}
-
 static void
 lamina_method_view_dispose (GObject *object)
 {
   LaminaMethodView *self = LAMINA_METHOD_VIEW (object);
 
-  g_clear_pointer (&self->scroller, gtk_widget_unparent);
-  g_clear_object (&self->layer_names);
+  gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_METHOD_VIEW);
   g_clear_object (&self->document);
   G_OBJECT_CLASS (lamina_method_view_parent_class)->dispose (object);
 }
+
+#define NUM(field) (G_STRUCT_OFFSET (LaminaMethodView, nums) + (field) * (gssize) sizeof (GtkEntry *))
+#define LABEL(array, i) (G_STRUCT_OFFSET (LaminaMethodView, array) + (i) * (gssize) sizeof (GtkWidget *))
+
+/* The template's children that live in the instance's arrays. */
+static const struct
+{
+  const char *id;
+  gssize      offset;
+} array_children[] = {
+  { "num_area", NUM (NUM_AREA) },
+  { "num_perimeter", NUM (NUM_PERIMETER) },
+  { "num_b_prime", NUM (NUM_B_PRIME) },
+  { "num_wall", NUM (NUM_WALL) },
+  { "num_soil_lambda", NUM (NUM_SOIL_LAMBDA) },
+  { "num_underfloor_height", NUM (NUM_UNDERFLOOR_HEIGHT) },
+  { "num_vent_area", NUM (NUM_VENT_AREA) },
+  { "num_underfloor_wall_u", NUM (NUM_UNDERFLOOR_WALL_U) },
+  { "num_ground_wind", NUM (NUM_GROUND_WIND) },
+  { "num_shielding", NUM (NUM_SHIELDING) },
+  { "num_depth", NUM (NUM_DEPTH) },
+  { "num_basement_wall_r", NUM (NUM_BASEMENT_WALL_R) },
+  { "num_thickness_max", NUM (NUM_THICKNESS_MAX) },
+  { "num_inner_area", NUM (NUM_INNER_AREA) },
+  { "num_outer_area", NUM (NUM_OUTER_AREA) },
+  { "num_outer_u", NUM (NUM_OUTER_U) },
+  { "num_air_change", NUM (NUM_AIR_CHANGE) },
+  { "num_volume", NUM (NUM_VOLUME) },
+  { "num_wind", NUM (NUM_WIND) },
+  { "num_emissivity_inside", NUM (NUM_EMISSIVITY_INSIDE) },
+  { "num_emissivity_outside", NUM (NUM_EMISSIVITY_OUTSIDE) },
+  { "underfloor_height_label", LABEL (suspended_labels, 0) },
+  { "vent_area_label", LABEL (suspended_labels, 1) },
+  { "underfloor_wall_u_label", LABEL (suspended_labels, 2) },
+  { "ground_wind_label", LABEL (suspended_labels, 3) },
+  { "shielding_label", LABEL (suspended_labels, 4) },
+  { "depth_label", LABEL (basement_labels, 0) },
+  { "basement_wall_r_label", LABEL (basement_labels, 1) },
+  { "inner_area_label", LABEL (other_labels, 0) },
+  { "outer_area_label", LABEL (other_labels, 1) },
+  { "outer_u_label", LABEL (other_labels, 2) },
+  { "air_change_label", LABEL (other_labels, 3) },
+  { "volume_label", LABEL (other_labels, 4) },
+};
+
+#undef NUM
+#undef LABEL
+
+/* The entries beside those labels, in the same order. */
+static const NumField suspended_fields[] = { NUM_UNDERFLOOR_HEIGHT, NUM_VENT_AREA, NUM_UNDERFLOOR_WALL_U,
+                                             NUM_GROUND_WIND, NUM_SHIELDING };
+static const NumField basement_fields[] = { NUM_DEPTH, NUM_BASEMENT_WALL_R };
+static const NumField other_fields[] = { NUM_INNER_AREA, NUM_OUTER_AREA, NUM_OUTER_U, NUM_AIR_CHANGE, NUM_VOLUME };
 
 static void
 lamina_method_view_class_init (LaminaMethodViewClass *klass)
@@ -437,31 +271,46 @@ lamina_method_view_class_init (LaminaMethodViewClass *klass)
   object_class->dispose = lamina_method_view_dispose;
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
   gtk_widget_class_set_css_name (widget_class, "laminamethodview");
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-method-view.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, scroller);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, error);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, on_ground);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, ground_u);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, ground_table);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, ground_grid);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, ground_kind);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, soil);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, tapered_layer);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, layer_names);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, taper);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, taper_u);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, unheated);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, roof_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, roof);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMethodView, air_profile);
+  for (guint i = 0; i < G_N_ELEMENTS (array_children); i++)
+    gtk_widget_class_bind_template_child_full (widget_class, array_children[i].id, FALSE,
+                                               array_children[i].offset);
+  gtk_widget_class_bind_template_callback (widget_class, on_ground_changed_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_b_prime_activate_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_taper_changed_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_unheated_changed_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_surfaces_changed_cb);
 }
-
 static void
 lamina_method_view_init (LaminaMethodView *self)
 {
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
-
   self->updating = TRUE;
-  gtk_widget_set_margin_start (box, 12);
-  gtk_widget_set_margin_end (box, 12);
-  gtk_widget_set_margin_bottom (box, 12);
-  self->error = GTK_LABEL (gtk_label_new (""));
-  gtk_label_set_wrap (self->error, TRUE);
-  gtk_label_set_xalign (self->error, 0);
-  gtk_widget_add_css_class (GTK_WIDGET (self->error), "error");
-  gtk_widget_set_visible (GTK_WIDGET (self->error), FALSE);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (self->error));
-  build_ground (self, GTK_BOX (box));
-  build_taper (self, GTK_BOX (box));
-  build_unheated (self, GTK_BOX (box));
-  build_surfaces (self, GTK_BOX (box));
-  self->scroller = gtk_scrolled_window_new ();
-  gtk_scrolled_window_set_policy (GTK_SCROLLED_WINDOW (self->scroller), GTK_POLICY_NEVER, GTK_POLICY_AUTOMATIC);
-  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (self->scroller), box);
-  gtk_widget_set_parent (self->scroller, GTK_WIDGET (self));
+  gtk_widget_init_template (GTK_WIDGET (self));
+  /* The table by B′ has a column per row of lamina_ground_table_b_prime. */
+  for (guint i = 0; i < LAMINA_GROUND_TABLE_ROWS; i++)
+    {
+      g_autofree char *b = g_strdup_printf ("%g", lamina_ground_table_b_prime[i]);
+
+      gtk_grid_attach (self->ground_table, gtk_label_new (b), (int) i + 1, 0, 1, 1);
+      self->table_u[i] = GTK_LABEL (gtk_label_new (""));
+      gtk_grid_attach (self->ground_table, GTK_WIDGET (self->table_u[i]), (int) i + 1, 1, 1, 1);
+    }
   self->updating = FALSE;
 }
 
@@ -473,14 +322,19 @@ lamina_method_view_set_document (LaminaMethodView *self,
   g_set_object (&self->document, document);
 }
 
+/* The rows of one kind of floor or space: each label and its entry. */
 static void
-show_rows (GtkWidget **rows,
-           guint       n,
-           gboolean    visible)
+show_rows (LaminaMethodView *self,
+           GtkWidget       **labels,
+           const NumField   *fields,
+           guint             n,
+           gboolean          visible)
 {
   for (guint i = 0; i < n; i++)
-    if (rows[i] != NULL)
-      gtk_widget_set_visible (rows[i], visible);
+    {
+      gtk_widget_set_visible (labels[i], visible);
+      gtk_widget_set_visible (GTK_WIDGET (self->nums[fields[i]]), visible);
+    }
 }
 
 static void
@@ -513,8 +367,10 @@ update_ground (LaminaMethodView         *self,
   set_number (self, NUM_SHIELDING, g->shielding_factor);
   set_number (self, NUM_DEPTH, g->depth);
   set_number (self, NUM_BASEMENT_WALL_R, g->basement_wall_resistance);
-  show_rows (self->suspended_rows, G_N_ELEMENTS (self->suspended_rows), g->kind == LAMINA_GROUND_SUSPENDED);
-  show_rows (self->basement_rows, G_N_ELEMENTS (self->basement_rows), g->kind == LAMINA_GROUND_BASEMENT);
+  show_rows (self, self->suspended_labels, suspended_fields, G_N_ELEMENTS (suspended_fields),
+             g->kind == LAMINA_GROUND_SUSPENDED);
+  show_rows (self, self->basement_labels, basement_fields, G_N_ELEMENTS (basement_fields),
+             g->kind == LAMINA_GROUND_BASEMENT);
   if (result != NULL && result->has_ground)
     {
       double table[LAMINA_GROUND_TABLE_ROWS];
@@ -600,14 +456,14 @@ lamina_method_view_update (LaminaMethodView         *self,
   u = &state->unheated;
   gtk_drop_down_set_selected (self->unheated, u->kind);
   gtk_drop_down_set_selected (self->roof, u->roof);
-  gtk_widget_set_visible (gtk_widget_get_prev_sibling (GTK_WIDGET (self->roof)), u->kind == LAMINA_UNHEATED_ROOF_SPACE);
+  gtk_widget_set_visible (self->roof_label, u->kind == LAMINA_UNHEATED_ROOF_SPACE);
   gtk_widget_set_visible (GTK_WIDGET (self->roof), u->kind == LAMINA_UNHEATED_ROOF_SPACE);
   set_number (self, NUM_INNER_AREA, u->inner_area);
   set_number (self, NUM_OUTER_AREA, u->outer_area);
   set_number (self, NUM_OUTER_U, u->outer_u);
   set_number (self, NUM_AIR_CHANGE, u->air_change);
   set_number (self, NUM_VOLUME, u->volume);
-  show_rows (self->other_rows, G_N_ELEMENTS (self->other_rows), u->kind == LAMINA_UNHEATED_OTHER);
+  show_rows (self, self->other_labels, other_fields, G_N_ELEMENTS (other_fields), u->kind == LAMINA_UNHEATED_OTHER);
   s = &state->surfaces;
   set_number (self, NUM_WIND, s->wind_speed);
   set_number (self, NUM_EMISSIVITY_INSIDE, s->emissivity_inside);
