@@ -19,6 +19,7 @@ struct _LaminaClimatesWindow
   GtkEntry      *source_entry;
   GtkGrid       *months_grid;
   GtkLabel      *status;
+  GtkProgressBar *progress;       /* pulses while a save re-flags the library */
   GtkWidget     *save_button;
   GtkWidget     *delete_button;
   GtkWidget     *new_button;
@@ -31,6 +32,8 @@ struct _LaminaClimatesWindow
   LaminaLibrary *library;
   GPtrArray     *ids;             /* char*, the climates of the rows */
   char          *shown_id;        /* the stored climate in the form, NULL for a new one */
+  gboolean       saving;          /* a save runs in the worker */
+  guint          pulse;
 };
 
 G_END_DECLS

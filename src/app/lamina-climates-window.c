@@ -16,6 +16,7 @@
 #include "lamina-number.h"
 #include "lamina-text.h"
 #include "store/lamina-library-safety.h"
+#include "lamina-window-work.h"
 
 G_DEFINE_FINAL_TYPE (LaminaClimatesWindow, lamina_climates_window, GTK_TYPE_WINDOW)
 
@@ -219,6 +220,70 @@ read_form (LaminaClimatesWindow  *self,
   return g_steal_pointer (&climate);
 }
 
+/* A changed climate re-flags every construction checked with other data
+ * for it (the whole library's flags are worked out again: about a second
+ * at 100,000 constructions), so the write runs in a worker on a connection
+ * of its own (lamina-window-work.h) while a bar pulses here. */
+static gboolean
+save_climate_work (LaminaLibrary  *library,
+                   gpointer        data,
+                   GCancellable   *cancellable,
+                   GError        **error)
+{
+  return lamina_library_put_climate (library, data, error);
+}
+
+static gboolean
+pulse_cb (gpointer data)
+{
+  LaminaClimatesWindow *self = data;
+
+  gtk_progress_bar_pulse (self->progress);
+  return G_SOURCE_CONTINUE;
+}
+
+static void
+set_saving (LaminaClimatesWindow *self,
+            gboolean              saving)
+{
+  self->saving = saving;
+  gtk_widget_set_visible (GTK_WIDGET (self->progress), saving);
+  /* One write at a time: the form stays as it was sent until it is stored. */
+  gtk_widget_set_sensitive (self->save_button, !saving);
+  gtk_widget_set_sensitive (self->delete_button, !saving);
+  gtk_widget_set_sensitive (self->new_button, !saving);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->list), !saving);
+  g_clear_handle_id (&self->pulse, g_source_remove);
+  if (saving)
+    self->pulse = g_timeout_add (100, pulse_cb, self);
+}
+
+static void
+on_climate_saved_cb (GObject      *source,
+                     GAsyncResult *result,
+                     gpointer      user_data)
+{
+  LaminaClimatesWindow *self = LAMINA_CLIMATES_WINDOW (source);
+  const LaminaClimate *climate = lamina_library_work_get_data (result);
+  g_autoptr(GError) error = NULL;
+  g_autofree char *message = NULL;
+  gboolean ok = lamina_library_work_finish (result, &error);
+
+  if (self->library == NULL)   /* closed meanwhile */
+    return;
+  set_saving (self, FALSE);
+  if (!ok)
+    {
+      set_status (self, error->message, TRUE);
+      return;
+    }
+  g_clear_pointer (&self->shown_id, g_free);
+  reload_list (self, climate->id);
+  message = g_strdup_printf (_("Climate “%s” saved. Constructions checked with other data for it are "
+                               "flagged for re-checking."), climate->name);
+  set_status (self, message, FALSE);
+}
+
 gboolean
 lamina_climates_window_save (LaminaClimatesWindow  *self,
                              GError               **error)
@@ -228,19 +293,31 @@ lamina_climates_window_save (LaminaClimatesWindow  *self,
   g_autofree char *message = NULL;
 
   g_return_val_if_fail (LAMINA_IS_CLIMATES_WINDOW (self), FALSE);
+  g_return_val_if_fail (!self->saving, FALSE);
 
   climate = read_form (self, &local);
-  if (climate == NULL || !lamina_library_put_climate (self->library, climate, &local))
+  if (climate == NULL
+      || (!lamina_climate_validate (climate, &local)))
     {
       set_status (self, local->message, TRUE);
       g_propagate_error (error, g_steal_pointer (&local));
       return FALSE;
     }
-  g_clear_pointer (&self->shown_id, g_free);
-  reload_list (self, climate->id);
-  message = g_strdup_printf (_("Climate “%s” saved."), climate->name);
+  message = g_strdup_printf (_("Saving climate “%s” and checking the constructions that use it…"),
+                             climate->name);
   set_status (self, message, FALSE);
+  set_saving (self, TRUE);
+  lamina_library_work_run_async (self->library, save_climate_work, g_steal_pointer (&climate),
+                                 (GDestroyNotify) lamina_climate_free, self, NULL,
+                                 on_climate_saved_cb, NULL);
   return TRUE;
+}
+
+gboolean
+lamina_climates_window_is_saving (LaminaClimatesWindow *self)
+{
+  g_return_val_if_fail (LAMINA_IS_CLIMATES_WINDOW (self), FALSE);
+  return self->saving;
 }
 
 gboolean
@@ -271,7 +348,8 @@ lamina_climates_window_delete (LaminaClimatesWindow  *self,
 static void
 on_save_clicked_cb (LaminaClimatesWindow *self)
 {
-  lamina_climates_window_save (self, NULL);
+  if (!self->saving)
+    lamina_climates_window_save (self, NULL);
 }
 
 static void
@@ -321,6 +399,7 @@ lamina_climates_window_dispose (GObject *object)
 {
   LaminaClimatesWindow *self = LAMINA_CLIMATES_WINDOW (object);
 
+  g_clear_handle_id (&self->pulse, g_source_remove);
   g_clear_object (&self->library);
   g_clear_pointer (&self->ids, g_ptr_array_unref);
   g_clear_pointer (&self->shown_id, g_free);
@@ -343,6 +422,7 @@ lamina_climates_window_class_init (LaminaClimatesWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaClimatesWindow, source_entry);
   gtk_widget_class_bind_template_child (widget_class, LaminaClimatesWindow, months_grid);
   gtk_widget_class_bind_template_child (widget_class, LaminaClimatesWindow, status);
+  gtk_widget_class_bind_template_child (widget_class, LaminaClimatesWindow, progress);
   gtk_widget_class_bind_template_child (widget_class, LaminaClimatesWindow, save_button);
   gtk_widget_class_bind_template_child (widget_class, LaminaClimatesWindow, delete_button);
   gtk_widget_class_bind_template_child (widget_class, LaminaClimatesWindow, new_button);

@@ -20,12 +20,15 @@ GtkWindow            *lamina_climates_window_present (GtkWindow     *parent,
 /* Shows climate @id in the form (FALSE if the library has none). */
 gboolean              lamina_climates_window_select  (LaminaClimatesWindow *self,
                                                       const char           *id);
-/* What the buttons do: an empty form for a new climate; validate and store
- * the form (FALSE, with the reason shown and in @error, when refused);
+/* What the buttons do: an empty form for a new climate; validate the form
+ * and store it in a worker thread (FALSE, with the reason shown and in
+ * @error, when refused; TRUE when the write started: _is_saving until it
+ * is done, and a refusal by the library is shown in the status line);
  * delete the climate in the form. */
 void                  lamina_climates_window_new_climate (LaminaClimatesWindow *self);
 gboolean              lamina_climates_window_save    (LaminaClimatesWindow *self,
                                                       GError              **error);
+gboolean              lamina_climates_window_is_saving (LaminaClimatesWindow *self);
 gboolean              lamina_climates_window_delete  (LaminaClimatesWindow *self,
                                                       GError              **error);
 

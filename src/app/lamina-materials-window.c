@@ -8,7 +8,7 @@
 #include <glib/gi18n.h>
 
 #include "lamina-material-row.h"
-#include "lamina-library-safety.h"
+#include "lamina-window-work.h"
 
 G_DEFINE_FINAL_TYPE (LaminaMaterialsWindow, lamina_materials_window, GTK_TYPE_WINDOW)
 
@@ -16,36 +16,15 @@ static void reload (LaminaMaterialsWindow *self);
 
 /* Saving a material re-flags every construction that holds other data
  * for it: about a second at 100,000 constructions.  That runs in a
- * worker thread on a connection of its own, with a pulsing bar here; the
- * library's own connection sees the change when it is committed. */
-typedef struct
+ * worker thread on a connection of its own (lamina-window-work.h), with a
+ * pulsing bar here. */
+static gboolean
+save_material_work (LaminaLibrary  *library,
+                    gpointer        data,
+                    GCancellable   *cancellable,
+                    GError        **error)
 {
-  LaminaLibrary  *library;   /* a second connection, used by the worker only */
-  LaminaMaterial *material;
-} SaveJob;
-
-static void
-save_job_free (SaveJob *job)
-{
-  g_clear_object (&job->library);
-  lamina_material_free (job->material);
-  g_free (job);
-}
-
-static void
-save_in_thread (GTask        *task,
-                gpointer      source,
-                gpointer      data,
-                GCancellable *cancellable)
-{
-  SaveJob *job = data;
-  GError *error = NULL;
-
-  if (!lamina_library_put_material (job->library, job->material, &error))
-    g_task_return_error (task, error);
-  else
-    g_task_return_boolean (task, TRUE);
-  lamina_library_close (job->library);
+  return lamina_library_put_material (library, data, error);
 }
 
 static gboolean
@@ -77,11 +56,12 @@ on_saved_cb (GObject      *source,
   LaminaMaterialsWindow *self = LAMINA_MATERIALS_WINDOW (source);
   g_autoptr(GError) error = NULL;
   g_autofree char *saved = NULL;
-  SaveJob *job = g_task_get_task_data (G_TASK (result));
+  const LaminaMaterial *material = lamina_library_work_get_data (result);
+  gboolean ok = lamina_library_work_finish (result, &error);
 
   if (self->library == NULL)   /* closed meanwhile */
     return;
-  if (!g_task_propagate_boolean (G_TASK (result), &error))
+  if (!ok)
     {
       if (self->saving_row != NULL)
         lamina_material_row_show_error (self->saving_row, error->message);
@@ -90,10 +70,8 @@ on_saved_cb (GObject      *source,
     }
   set_saving (self, NULL);
   saved = g_strdup_printf (_("Saved “%s”. Constructions that use it are flagged “material data changed” for re-checking."),
-                           job->material->name);
+                           material->name);
   gtk_label_set_text (self->status, saved);
-  /* The library's own connection: the rows, flags and list again now. */
-  lamina_library_check_for_changes (self->library);
   reload (self);
 }
 
@@ -102,46 +80,15 @@ on_row_save_cb (LaminaMaterialRow     *row,
                 LaminaMaterialsWindow *self)
 {
   g_autoptr(LaminaMaterial) material = lamina_material_row_dup_material (row);
-  g_autoptr(GError) error = NULL;
-  g_autoptr(GTask) task = NULL;
   g_autofree char *saving = NULL;
-  SaveJob *job;
 
   if (material == NULL || self->saving_row != NULL)
     return;
-  if (!lamina_library_check_writable (self->library, &error))
-    {
-      lamina_material_row_show_error (row, error->message);
-      return;
-    }
-  job = g_new0 (SaveJob, 1);
-  job->library = lamina_library_open (lamina_library_get_path (self->library), LAMINA_LIBRARY_OPEN_EXISTING, NULL);
-  job->material = g_steal_pointer (&material);
-  if (job->library == NULL)
-    {
-      /* No second connection to this library: save here and wait. */
-      gboolean ok = lamina_library_put_material (self->library, job->material, &error);
-
-      if (ok)
-        {
-          saving = g_strdup_printf (_("Saved “%s”. Constructions that use it are flagged “material data changed” for re-checking."),
-                                    job->material->name);
-          gtk_label_set_text (self->status, saving);
-        }
-      else
-        lamina_material_row_show_error (row, error->message);
-      save_job_free (job);
-      if (ok)
-        reload (self);
-      return;
-    }
-  saving = g_strdup_printf (_("Saving “%s” and checking the constructions that use it…"), job->material->name);
+  saving = g_strdup_printf (_("Saving “%s” and checking the constructions that use it…"), material->name);
   gtk_label_set_text (self->status, saving);
   set_saving (self, row);
-  task = g_task_new (self, NULL, on_saved_cb, NULL);
-  g_task_set_source_tag (task, on_row_save_cb);
-  g_task_set_task_data (task, job, (GDestroyNotify) save_job_free);
-  g_task_run_in_thread (task, save_in_thread);
+  lamina_library_work_run_async (self->library, save_material_work, g_steal_pointer (&material),
+                                 (GDestroyNotify) lamina_material_free, self, NULL, on_saved_cb, NULL);
 }
 
 gboolean

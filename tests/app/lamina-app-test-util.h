@@ -43,6 +43,29 @@ save_png (GtkWidget  *widget,
   g_assert_cmpint (gdk_texture_get_width (texture), ==, width);
 }
 
+/* Runs the main loop until @done (@data) says so, or fails the test after
+ * @seconds: for work finished in a worker thread, without sleeps. */
+static inline gboolean
+wait_until_timeout_cb (gpointer data)
+{
+  *(gboolean *) data = TRUE;
+  return G_SOURCE_REMOVE;
+}
+
+static inline void
+wait_until (gboolean (*done) (gpointer data),
+            gpointer   data,
+            double     seconds)
+{
+  gboolean timed_out = FALSE;
+  guint timeout = g_timeout_add ((guint) (seconds * 1000), wait_until_timeout_cb, &timed_out);
+
+  while (!done (data) && !timed_out)
+    g_main_context_iteration (NULL, TRUE);
+  if (timed_out)
+    g_error ("gave up waiting after %g s", seconds);
+  g_source_remove (timeout);
+}
 
 /* Removes a test's temporary folder with the files in it. */
 static inline void

@@ -69,6 +69,12 @@ count_flagged (LaminaLibrary *library)
   return (guint) lamina_library_count (library, &q, NULL);
 }
 
+static gboolean
+saved (gpointer data)
+{
+  return !lamina_climates_window_is_saving (data);
+}
+
 static void
 test_edit_climates (Fixture       *f,
                     gconstpointer  data)
@@ -113,6 +119,13 @@ test_edit_climates (Fixture       *f,
   gtk_editable_set_text (GTK_EDITABLE (w->temperature[0]), "−1,5");
   g_assert_true (lamina_climates_window_save (w, &error));
   g_assert_no_error (error);
+  /* the write and the re-flag run in a worker, with a pulsing bar */
+  g_assert_true (lamina_climates_window_is_saving (w));
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (w->progress)));
+  g_assert_false (gtk_widget_get_sensitive (w->save_button));
+  wait_until (saved, w, 20);
+  g_assert_false (gtk_widget_get_visible (GTK_WIDGET (w->progress)));
+  g_assert_nonnull (strstr (gtk_label_get_text (w->status), "saved"));
   stored = lamina_library_dup_climate (f->library, "fallowmere", NULL);
   g_assert_cmpfloat (stored->temperature[0], ==, -1.5);
   g_assert_cmpfloat (stored->humidity[2], ==, 0.82);
@@ -141,6 +154,7 @@ test_edit_climates (Fixture       *f,
     }
   g_assert_true (lamina_climates_window_save (w, &error));
   g_assert_no_error (error);
+  wait_until (saved, w, 20);
   g_assert_cmpuint (w->ids->len, ==, n + 1);
   wait_for_draw (GTK_WIDGET (w));
   save_png (GTK_WIDGET (w), png);
