@@ -10,6 +10,7 @@
 #include "lamina-file.h"
 #include "lamina-revision-diff.h"
 #include "lamina-sheet.h"
+#include "lamina-sheet-format.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -350,6 +351,7 @@ print_text (LaminaLibrary         *library,
   const LaminaJobCheck *check = report->check;
   gboolean ground = FALSE;
   g_autofree char *caution = NULL;
+  char inside[LAMINA_FORMAT_SIZE], outside[LAMINA_FORMAT_SIZE];
 
   printf ("%s %s — %s\n", job->number ? job->number : "", job->name,
           lamina_job_status_to_string (job->status));
@@ -357,9 +359,11 @@ print_text (LaminaLibrary         *library,
     printf (_("Client: %s\n"), job->client);
   if (job->architect)
     printf (_("Architect: %s\n"), job->architect);
-  printf (_("Targets: %s; design conditions %g °C inside, %g °C outside\n"),
+  /* Human text takes the minus sign U+2212, as the sheets do. */
+  printf (_("Targets: %s; design conditions %s inside, %s outside\n"),
           report->targets ? report->targets->name : _("none"),
-          job->inside_temperature, job->outside_temperature);
+          lamina_format_temperature (inside, job->inside_temperature),
+          lamina_format_temperature (outside, job->outside_temperature));
   if (job->climate != NULL)
     printf (report->climate_unknown ? _("Climate: %s — NOT IN THE LIBRARY; moisture checks use each "
                                         "construction's own climate\n")
@@ -401,14 +405,18 @@ lamina_cli_job_show (const LaminaCliGlobals *globals,
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(LaminaJobReport) report = NULL;
   g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
 
-  library = lamina_cli_open_listing (globals, _("JOB — a job, its schedule and its check"),
+  library = lamina_cli_open_listing (globals, _("JOB — a job, its schedule and its check (JOB: its id or "
+                                                "job number; see “lamina-cli job --help”)"),
                                      _("Print JSON (U in W/(m²·K), area in m², U·A and H_T in W/K)"), 1,
                                      _("job show takes one job id (see “lamina-cli job show --help”)"),
                                      &argc, &argv, &json, &status);
   if (library == NULL)
     return status;
-  report = lamina_library_check_job (library, argv[1], &error);
+  if ((id = lamina_cli_job_resolve (library, argv[1])) == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  report = lamina_library_check_job (library, id, &error);
   if (report == NULL)
     {
       lamina_cli_error ("%s", error->message);
@@ -436,11 +444,13 @@ lamina_cli_job_sheets (const LaminaCliGlobals *globals,
   };
   g_autoptr(GOptionContext) context = g_option_context_new (_("JOB — print a job's sheet set to one PDF"));
   g_autoptr(LaminaLibrary) library = NULL;
+  g_autofree char *id = NULL;
   g_autoptr(LaminaJobReport) report = NULL;
   g_autoptr(GError) error = NULL;
   LaminaSheetOptions options;
 
   g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  g_option_context_set_description (context, lamina_cli_job_key_help ());
   if (!lamina_cli_parse (context, &argc, &argv))
     return LAMINA_EXIT_USAGE;
   if (argc != 2)
@@ -466,10 +476,10 @@ lamina_cli_job_sheets (const LaminaCliGlobals *globals,
       return LAMINA_EXIT_BAD_INPUT;
     }
   library = lamina_cli_open_library (globals, FALSE);
-  if (library == NULL)
+  if (library == NULL || (id = lamina_cli_job_resolve (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
   options.moisture_limit = lamina_library_get_moisture_limit (library);
-  report = lamina_library_check_job (library, argv[1], &error);
+  report = lamina_library_check_job (library, id, &error);
   if (report != NULL)
     lamina_revision_diff_note_variants (library, report);
   if (report == NULL

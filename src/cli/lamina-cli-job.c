@@ -1,6 +1,7 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* lamina-cli job new | add | remove | update (and the dispatch of every
- * job subcommand): a job's data and schedule from the command line. */
+/* lamina-cli job new | add | remove | update | delete (and the dispatch
+ * of every job subcommand): a job's data and schedule from the command
+ * line. */
 #define G_LOG_DOMAIN "lamina-cli"
 
 #include "config.h"
@@ -141,6 +142,56 @@ report_error (GError *error)
   return LAMINA_EXIT_BAD_INPUT;
 }
 
+const char *
+lamina_cli_job_key_help (void)
+{
+  return _("JOB is a job's id or its job number (ASCII letters without case). An id is taken "
+           "first, but a text that is one job's id and another job's number is refused, naming "
+           "both.");
+}
+
+char *
+lamina_cli_job_resolve (LaminaLibrary *library,
+                        const char    *key)
+{
+  g_autoptr(GError) error = NULL;
+  char *id = lamina_library_dup_job_id (library, key, &error);
+
+  if (id == NULL)
+    lamina_cli_error ("%s: %s", lamina_library_get_path (library), error->message);
+  return id;
+}
+
+/* Opens the library and reads the job that @key names; FALSE after a
+ * message (@library may then be set, for the caller to free). */
+static gboolean
+open_job (const LaminaCliGlobals  *globals,
+          const char              *key,
+          LaminaLibrary          **library,
+          LaminaJob              **job)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+
+  *library = lamina_cli_open_library (globals, FALSE);
+  if (*library == NULL || (id = lamina_cli_job_resolve (*library, key)) == NULL)
+    return FALSE;
+  *job = lamina_library_dup_job (*library, id, &error);
+  if (*job == NULL)
+    report_error (error);
+  return *job != NULL;
+}
+
+/* A job command's context: its summary and how JOB is read. */
+static GOptionContext *
+job_context_new (const char *parameter)
+{
+  GOptionContext *context = g_option_context_new (parameter);
+
+  g_option_context_set_description (context, lamina_cli_job_key_help ());
+  return context;
+}
+
 /* job new JOB --name NAME [--number N] [--client C] [--targets SET] … */
 int
 lamina_cli_job_new (const LaminaCliGlobals *globals,
@@ -240,7 +291,7 @@ lamina_cli_job_add (const LaminaCliGlobals *globals,
     { "length", 0, 0, G_OPTION_ARG_STRING, &length, N_("Its length, m"), "M" },
     { NULL }
   };
-  g_autoptr(GOptionContext) context = g_option_context_new (_("JOB CONSTRUCTION — add an entry to a job's schedule"));
+  g_autoptr(GOptionContext) context = job_context_new (_("JOB CONSTRUCTION — add an entry to a job's schedule"));
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(LaminaJob) job = NULL;
   g_autoptr(GError) error = NULL;
@@ -274,12 +325,8 @@ lamina_cli_job_add (const LaminaCliGlobals *globals,
       || !lamina_cli_parse_number ("--psi", psi, -10, 10, &p)
       || !lamina_cli_parse_number ("--length", length, 0, 1e5, &l))
     return LAMINA_EXIT_USAGE;
-  library = lamina_cli_open_library (globals, FALSE);
-  if (library == NULL)
+  if (!open_job (globals, argv[1], &library, &job))
     return LAMINA_EXIT_BAD_INPUT;
-  job = lamina_library_dup_job (library, argv[1], &error);
-  if (job == NULL)
-    return report_error (error);
   if (junction != NULL)
     {
       LaminaJobJunction *j = lamina_job_add_junction (job, lamina_job_junction_new (junction, p, l));
@@ -326,7 +373,7 @@ lamina_cli_job_remove (const LaminaCliGlobals *globals,
     { "junction", 0, 0, G_OPTION_ARG_NONE, &junction, N_("ENTRY is a junction's number"), NULL },
     { NULL }
   };
-  g_autoptr(GOptionContext) context = g_option_context_new (_("JOB ENTRY — remove an entry from a job's schedule"));
+  g_autoptr(GOptionContext) context = job_context_new (_("JOB ENTRY — remove an entry from a job's schedule"));
   g_autoptr(LaminaLibrary) library = NULL;
   g_autoptr(LaminaJob) job = NULL;
   g_autoptr(GError) error = NULL;
@@ -337,12 +384,8 @@ lamina_cli_job_remove (const LaminaCliGlobals *globals,
                    _("job remove takes a job id and an entry number (see “lamina-cli job remove --help”)"))
       || !parse_entry_number (argv[2], &n))
     return LAMINA_EXIT_USAGE;
-  library = lamina_cli_open_library (globals, FALSE);
-  if (library == NULL)
+  if (!open_job (globals, argv[1], &library, &job))
     return LAMINA_EXIT_BAD_INPUT;
-  job = lamina_library_dup_job (library, argv[1], &error);
-  if (job == NULL)
-    return report_error (error);
   if (!(junction ? lamina_job_remove_junction (job, n) : lamina_job_remove_entry (job, n)))
     {
       lamina_cli_error (_("job “%s” has no %s %d"), job->id, junction ? _("junction") : _("entry"), n);
@@ -374,8 +417,9 @@ lamina_cli_job_update (const LaminaCliGlobals *globals,
     { "use", 0, 0, G_OPTION_ARG_STRING, &use, N_("The entry's use"), "USE" },
     { NULL }
   };
-  g_autoptr(GOptionContext) context = g_option_context_new (_("JOB — change a job's data, move or change an entry"));
+  g_autoptr(GOptionContext) context = job_context_new (_("JOB — change a job's data, move or change an entry"));
   g_autoptr(LaminaLibrary) library = NULL;
+  g_autofree char *id = NULL;
   g_autoptr(LaminaJob) job = NULL;
   g_autoptr(GError) error = NULL;
   int n = 0, revision = 0;
@@ -394,11 +438,11 @@ lamina_cli_job_update (const LaminaCliGlobals *globals,
       return LAMINA_EXIT_USAGE;
     }
   library = lamina_cli_open_library (globals, FALSE);
-  if (library == NULL)
+  if (library == NULL || (id = lamina_cli_job_resolve (library, argv[1])) == NULL)
     return LAMINA_EXIT_BAD_INPUT;
-  if (move != NULL && !lamina_library_move_job_entry (library, argv[1], n, revision, by, &error))
+  if (move != NULL && !lamina_library_move_job_entry (library, id, n, revision, by, &error))
     return report_error (error);
-  job = lamina_library_dup_job (library, argv[1], &error);
+  job = lamina_library_dup_job (library, id, &error);
   if (job == NULL)
     return report_error (error);
   if (!apply_fields (&f, job))
@@ -424,6 +468,74 @@ lamina_cli_job_update (const LaminaCliGlobals *globals,
   return LAMINA_EXIT_OK;
 }
 
+/* Asks on the terminal: a job in design takes y; a job submitted or
+ * built (its sheets may be with building control or on site) only its
+ * job number typed in full (its id when it has none). */
+static gboolean
+confirm_delete (const LaminaJob *job)
+{
+  const char *key = job->number ? job->number : job->id;
+  char answer[256] = "";
+  guint n = job->entries->len;
+
+  if (job->status == LAMINA_JOB_STATUS_DESIGN)
+    fprintf (stderr, g_dngettext (GETTEXT_PACKAGE,
+                                  "Delete the job “%s” (%s) with its schedule of %u entry? "
+                                  "The library's constructions stay. [y/N] ",
+                                  "Delete the job “%s” (%s) with its schedule of %u entries? "
+                                  "The library's constructions stay. [y/N] ", n),
+             job->id, job->name, n);
+  else
+    fprintf (stderr, g_dngettext (GETTEXT_PACKAGE,
+                                  "The job “%s” (%s) is %s: its sheets may have been issued. To delete "
+                                  "it with its schedule of %u entry, type “%s”: ",
+                                  "The job “%s” (%s) is %s: its sheets may have been issued. To delete "
+                                  "it with its schedule of %u entries, type “%s”: ", n),
+             job->id, job->name, lamina_job_status_to_string (job->status), n, key);
+  fflush (stderr);
+  if (fgets (answer, sizeof answer, stdin) == NULL)
+    return FALSE;
+  g_strstrip (answer);
+  if (job->status == LAMINA_JOB_STATUS_DESIGN)
+    return g_ascii_strncasecmp (answer, "y", 1) == 0 || g_ascii_strncasecmp (answer, _("y"), 1) == 0;
+  return strcmp (answer, key) == 0;
+}
+
+/* job delete JOB [--yes] */
+int
+lamina_cli_job_delete (const LaminaCliGlobals *globals,
+                       int                     argc,
+                       char                  **argv)
+{
+  gboolean yes = FALSE;
+  const GOptionEntry entries[] = {
+    { "yes", 'y', 0, G_OPTION_ARG_NONE, &yes, N_("Delete without asking (for scripts)"), NULL },
+    { NULL }
+  };
+  g_autoptr(GOptionContext) context = job_context_new (_("JOB — delete a job with its schedule "
+                                                         "(the library's constructions stay)"));
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(LaminaJob) job = NULL;
+  g_autoptr(GError) error = NULL;
+
+  g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
+  if (!parse_args (context, &argc, &argv, 2, _("job delete takes one job (see “lamina-cli job delete --help”)")))
+    return LAMINA_EXIT_USAGE;
+  if (!open_job (globals, argv[1], &library, &job))
+    return LAMINA_EXIT_BAD_INPUT;
+  if (!yes && !confirm_delete (job))
+    {
+      lamina_cli_error (_("job “%s” not deleted: no confirmation (“--yes” deletes without asking)"), job->id);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  if (!lamina_library_delete_job (library, job->id, &error))
+    return report_error (error);
+  printf (g_dngettext (GETTEXT_PACKAGE, "job “%s” deleted with its schedule of %u entry\n",
+                       "job “%s” deleted with its schedule of %u entries\n", job->entries->len),
+          job->id, job->entries->len);
+  return LAMINA_EXIT_OK;
+}
+
 static const struct
 {
   const char       *name;
@@ -437,6 +549,7 @@ static const struct
   { "remove", lamina_cli_job_remove, N_("Remove an entry from a job's schedule") },
   { "update", lamina_cli_job_update, N_("Change a job's data; move an entry to another revision") },
   { "sheets", lamina_cli_job_sheets, N_("Print a job's sheet set to one PDF") },
+  { "delete", lamina_cli_job_delete, N_("Delete a job with its schedule (asks first)") },
 };
 
 /* job SUBCOMMAND … */
@@ -455,6 +568,7 @@ lamina_cli_job (const LaminaCliGlobals *globals,
            _("Usage: lamina-cli job COMMAND [OPTIONS…]"));
   for (guint i = 0; i < G_N_ELEMENTS (subcommands); i++)
     fprintf (stdout, "  %-8s %s\n", subcommands[i].name, _(subcommands[i].summary));
+  fprintf (stdout, "\n%s\n", lamina_cli_job_key_help ());
   return argc >= 2 && (strcmp (argv[1], "--help") == 0 || strcmp (argv[1], "-h") == 0)
          ? LAMINA_EXIT_OK : LAMINA_EXIT_USAGE;
 }

@@ -15,6 +15,7 @@ int  lamina_cli_job_new    (const LaminaCliGlobals *globals, int argc, char **ar
 int  lamina_cli_job_add    (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_job_remove (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_job_update (const LaminaCliGlobals *globals, int argc, char **argv);
+int  lamina_cli_job_delete (const LaminaCliGlobals *globals, int argc, char **argv);
 /* lamina-cli-job-show.c */
 int  lamina_cli_job_list   (const LaminaCliGlobals *globals, int argc, char **argv);
 int  lamina_cli_job_show   (const LaminaCliGlobals *globals, int argc, char **argv);
@@ -27,5 +28,12 @@ gboolean lamina_cli_parse_number (const char *option,
                                   double      min,
                                   double      max,
                                   double     *value);
+
+/* The id of the job @key names (its id or its job number, as
+ * lamina_library_dup_job_id); NULL after a message. */
+char    *lamina_cli_job_resolve  (LaminaLibrary *library,
+                                  const char    *key);
+/* How JOB is read, as the --help of a job command says it. */
+const char *lamina_cli_job_key_help (void);
 
 G_END_DECLS

@@ -36,7 +36,7 @@ static const Command commands[] = {
   { "catalogue", lamina_cli_catalogue, N_("Print a catalogue of sheets, with index, to PDF") },
   { "solve", lamina_cli_solve, N_("The thickness of a layer that meets a target U") },
   { "moisture", lamina_cli_moisture, N_("Check the constructions of a catalogue file for condensation (EN ISO 13788)") },
-  { "job", lamina_cli_job, N_("Jobs: new, list, show, add, remove, update, sheets") },
+  { "job", lamina_cli_job, N_("Jobs: new, list, show, add, remove, update, sheets, delete") },
   { "field", lamina_cli_field, N_("2-D check of one module of a construction (EN ISO 10211), with a field picture") },
   { "compare", lamina_cli_compare, N_("Two build-ups side by side, as a table or a one-page PDF") },
   { "policy", lamina_cli_policy, N_("Show or set the library's review policy (four eyes or single reviewer)") },

@@ -7,6 +7,7 @@
 #include "lamina-library-backend.h"
 
 #include <math.h>
+#include <string.h>
 
 void
 lamina_job_use_free (LaminaJobUse *use)
@@ -143,6 +144,71 @@ lamina_library_dup_job (LaminaLibrary  *self,
   g_return_val_if_fail (id != NULL, NULL);
   BACKEND_OR_FAIL (self, error, NULL);
   return VT (self)->get_job (BE (self), id, error);
+}
+
+/* "“ID” (NAME)" of @job, for a message. */
+static char *
+dup_job_label (const LaminaJob *job)
+{
+  return g_strdup_printf ("“%s” (%s%s%s)", job->id, job->number ? job->number : "",
+                          job->number ? ", " : "", job->name);
+}
+
+char *
+lamina_library_dup_job_id (LaminaLibrary  *self,
+                           const char     *key,
+                           GError        **error)
+{
+  g_autoptr(GPtrArray) jobs = NULL;
+  g_autoptr(GPtrArray) by_number = g_ptr_array_new ();
+  g_autoptr(GString) names = NULL;
+  const LaminaJob *by_id = NULL;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
+  g_return_val_if_fail (key != NULL, NULL);
+  BACKEND_OR_FAIL (self, error, NULL);
+  jobs = VT (self)->list_jobs (BE (self), error);
+  if (jobs == NULL)
+    return NULL;
+  for (guint i = 0; i < jobs->len; i++)
+    {
+      const LaminaJob *job = jobs->pdata[i];
+
+      if (strcmp (job->id, key) == 0)
+        by_id = job;
+      else if (job->number != NULL && g_ascii_strcasecmp (job->number, key) == 0)
+        g_ptr_array_add (by_number, (gpointer) job);
+    }
+  if (by_id != NULL && by_number->len == 0)
+    return g_strdup (by_id->id);
+  if (by_id == NULL && by_number->len == 1)
+    return g_strdup (((const LaminaJob *) by_number->pdata[0])->id);
+  if (by_id == NULL && by_number->len == 0)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no job “%s” (by id or job number)", key);
+      return NULL;
+    }
+  names = g_string_new (NULL);
+  for (guint i = 0; i < by_number->len; i++)
+    {
+      g_autofree char *label = dup_job_label (by_number->pdata[i]);
+
+      g_string_append_printf (names, "%s%s", i > 0 ? ", " : "", label);
+    }
+  if (by_id != NULL)
+    {
+      g_autofree char *label = dup_job_label (by_id);
+
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                   "“%s” is the id of the job %s and the job number of the job %s: "
+                   "change that job number, or name the job you mean by its number or id", key, label, names->str);
+    }
+  else
+    g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,
+                 "“%s” is the job number of %u jobs: %s; name the job by its id",
+                 key, by_number->len, names->str);
+  return NULL;
 }
 
 static char *

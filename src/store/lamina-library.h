@@ -548,6 +548,14 @@ GPtrArray     *lamina_library_list_jobs        (LaminaLibrary        *self,
 LaminaJob     *lamina_library_dup_job          (LaminaLibrary        *self,
                                                 const char           *id,
                                                 GError              **error);
+/* The id of the job that @key names: the job whose id is @key, else the
+ * one job whose number is @key (ASCII letters without case).  NOT_FOUND
+ * when none; INVALID, naming both jobs, when @key is one job's id and
+ * another job's number, or naming them when it is the number of several
+ * jobs. */
+char          *lamina_library_dup_job_id       (LaminaLibrary        *self,
+                                                const char           *key,
+                                                GError              **error);
 /* Stores a new job (EXISTS if the id is taken) or the changed one
  * (NOT_FOUND if there is none); the job is validated, its target set must
  * be in the library and every use one of the set's.  Sets modified_at. */

@@ -262,6 +262,108 @@ test_variant_differences (void)
   g_assert_nonnull (strstr (out, "– Layer 1"));
 }
 
+/* job delete: a job in design asks “y”; a submitted one only takes its
+ * job number typed in full; no answer or a wrong one deletes nothing
+ * (exit 1); --yes does not ask.  The library's constructions stay. */
+static void
+test_delete (void)
+{
+  g_autofree char *out = NULL, *err = NULL;
+  static const struct { const char *input, *job; gboolean yes; int status; const char *expect; } cases[] = {
+    /* the school: design, 5 entries */
+    { "", "TO-2402", FALSE, 1, "not deleted: no confirmation" },
+    { "n\n", "demo-job-riverside", FALSE, 1, "not deleted" },
+    /* the houses: submitted, 3 entries; “y” is not enough */
+    { "y\n", "TO-2401", FALSE, 1, "type “TO-2401”" },
+    { "TO-2402\n", "demo-job-sloe-row", FALSE, 1, "its sheets may have been issued" },
+    { "TO-2401\n", "demo-job-sloe-row", FALSE, 0, "schedule of 3 entries" },
+    { NULL, "demo-job-sloe-row", TRUE, 1, "no job “demo-job-sloe-row”" },
+    { "y\n", "TO-2402", FALSE, 0, "schedule of 5 entries?" },
+  };
+
+  g_free (library_path);
+  library_path = test_library_path ("cli-job-delete.sqlite");
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      int status;
+
+      g_clear_pointer (&out, g_free);
+      g_clear_pointer (&err, g_free);
+      if (cases[i].yes)
+        status = run (&out, &err, "job", "delete", cases[i].job, "--yes", NULL);
+      else
+        status = run_with_stdin (cases[i].input, &out, &err, "job", "delete", cases[i].job, NULL);
+      if (status != cases[i].status)
+        g_error ("case %u: exit %d, expected %d; %s", i, status, cases[i].status, err);
+      if (strstr (err, cases[i].expect) == NULL && strstr (out, cases[i].expect) == NULL)
+        g_error ("case %u: “%s” does not say “%s”", i, err, cases[i].expect);
+    }
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "list", NULL), ==, 0);
+  g_assert_cmpstr (out, ==, "");
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "show", "EW-203", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "delete", NULL), ==, 2);
+}
+
+/* Every job command finds a job by its number as well as its id; one
+ * job's id that is another's number is refused (exit 1) naming both.
+ * job show writes a temperature below zero with the minus sign U+2212
+ * (ISO 80000-1 writes the minus sign so, from memory); JSON stays a
+ * number. */
+static void
+test_job_number (void)
+{
+  g_autofree char *out = NULL, *err = NULL, *pdf = NULL;
+  g_autoptr(JsonParser) parser = json_parser_new ();
+  JsonObject *job;
+
+  g_free (library_path);
+  library_path = test_library_path ("cli-job-number.sqlite");
+  pdf = test_library_path ("cli-job-number.pdf");
+  g_assert_cmpint (run (&out, &err, "demo", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "TO-2402", "--json", NULL), ==, 0);
+  job = parse_object (parser, out, "job");
+  g_assert_cmpstr (json_object_get_string_member (job, "id"), ==, "demo-job-riverside");
+  g_assert_cmpfloat (json_object_get_double_member (job, "outside_temperature"), ==, -10);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "to-2402", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "\u221210.0\u00a0°C outside"));
+  g_assert_null (strstr (out, "-10"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "sheets", "TO-2401", "-o", pdf, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "job “demo-job-sloe-row”: 3 entries"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "update", "TO-2401", "--entry", "1", "--location", "Terrace", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "new", "TO-2401", "--name", "Clash", NULL), ==, 0);
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "show", "TO-2401", NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "is the id of the job “TO-2401” (Clash) and the job number of the job "
+                                 "“demo-job-sloe-row”"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "add", "TO-2401", "EW-101", "--use", "external-wall", NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "(Clash)"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  g_assert_cmpint (run (&out, &err, "job", "sheets", "--help", NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "An id is taken first, but a text that is one job's id and another "
+                                 "job's number is refused"));
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -271,5 +373,7 @@ main (int   argc,
   g_test_add_func ("/cli/job/edit", test_edit);
   g_test_add_func ("/cli/job/sheets", test_sheets);
   g_test_add_func ("/cli/job/variant-differences", test_variant_differences);
+  g_test_add_func ("/cli/job/delete", test_delete);
+  g_test_add_func ("/cli/job/job-number", test_job_number);
   return g_test_run ();
 }

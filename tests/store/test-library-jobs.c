@@ -481,6 +481,102 @@ test_job_variant_revision (void)
   g_assert_cmpfloat (((LaminaLayer *) variant->layers->pdata[1])->thickness, ==, 145);
 }
 
+/* Deleting a job removes it and its schedule, so the library no longer
+ * names it among the jobs that use a construction; the constructions and
+ * the other job stay; deleting it again is NOT_FOUND.  On either backend
+ * (the -pg run of this program). */
+static void
+test_delete (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("delete.sqlite");
+  g_autofree char *a = create_approved_wall (library, "EW-145", 145);
+  g_autoptr(LaminaJob) doomed = lamina_job_new ("j6", "Doomed");
+  g_autoptr(LaminaJob) kept = lamina_job_new ("j7", "Kept");
+  g_autoptr(LaminaJob) gone = NULL;
+  g_autoptr(GPtrArray) uses = NULL;
+  g_autoptr(GPtrArray) jobs = NULL;
+  g_autoptr(LaminaConstruction) c = NULL;
+  g_autoptr(GError) error = NULL;
+
+  pin (library, doomed, a, "external-wall", 10);
+  pin (library, doomed, a, "external-wall", 20);
+  pin (library, kept, a, "external-wall", 5);
+  g_assert_true (lamina_library_create_job (library, doomed, &error));
+  g_assert_true (lamina_library_create_job (library, kept, &error));
+  g_assert_no_error (error);
+  uses = lamina_library_list_job_uses (library, a, &error);
+  g_assert_cmpuint (uses->len, ==, 3);
+  g_clear_pointer (&uses, g_ptr_array_unref);
+
+  g_assert_true (lamina_library_delete_job (library, "j6", &error));
+  g_assert_no_error (error);
+  gone = lamina_library_dup_job (library, "j6", &error);
+  g_assert_null (gone);
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+  g_clear_error (&error);
+  uses = lamina_library_list_job_uses (library, a, &error);
+  g_assert_cmpuint (uses->len, ==, 1);
+  g_assert_cmpstr (((LaminaJobUse *) uses->pdata[0])->job_id, ==, "j7");
+  jobs = lamina_library_list_jobs (library, &error);
+  g_assert_cmpuint (jobs->len, ==, 1);
+  c = lamina_library_dup_construction (library, a, 0, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (c->status, ==, LAMINA_STATUS_APPROVED);
+  g_assert_false (lamina_library_delete_job (library, "j6", &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND);
+}
+
+/* A job is named by its id or its job number; a text that is one job's
+ * id and another's number, or the number of two jobs, is refused with
+ * both named. */
+static void
+test_find_by_number (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("numbers.sqlite");
+  static const struct { const char *id, *number, *name; } jobs[] = {
+    { "school", "TO-2402", "School" },
+    { "houses", "TO-2401", "Houses" },
+    { "TO-2402", NULL, "Annex named by the school's number" },
+    { "shed", "TO-7", "Shed" },
+    { "barn", "to-7", "Barn" },
+  };
+  static const struct { const char *key, *id, *message[3]; } cases[] = {
+    { "houses", "houses", { NULL } },
+    { "TO-2401", "houses", { NULL } },
+    { "to-2401", "houses", { NULL } },
+    { "school", "school", { NULL } },
+    { "TO-2402", NULL, { "the id of the job “TO-2402”", "the job number of the job “school” (TO-2402, School)" } },
+    { "TO-7", NULL, { "the job number of 2 jobs", "“shed”", "“barn”" } },
+    { "TO-9", NULL, { "no job “TO-9”" } },
+  };
+  g_autoptr(GError) error = NULL;
+
+  for (guint i = 0; i < G_N_ELEMENTS (jobs); i++)
+    {
+      g_autoptr(LaminaJob) job = lamina_job_new (jobs[i].id, jobs[i].name);
+
+      job->number = g_strdup (jobs[i].number);
+      g_assert_true (lamina_library_create_job (library, job, &error));
+      g_assert_no_error (error);
+    }
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      g_autofree char *id = lamina_library_dup_job_id (library, cases[i].key, &error);
+
+      g_assert_cmpstr (id, ==, cases[i].id);
+      if (cases[i].id != NULL)
+        {
+          g_assert_no_error (error);
+          continue;
+        }
+      g_assert_nonnull (error);
+      for (guint k = 0; k < G_N_ELEMENTS (cases[i].message) && cases[i].message[k] != NULL; k++)
+        if (strstr (error->message, cases[i].message[k]) == NULL)
+          g_error ("case %u: “%s” does not say “%s”", i, error->message, cases[i].message[k]);
+      g_clear_error (&error);
+    }
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -495,5 +591,7 @@ main (int   argc,
   g_test_add_func ("/store/jobs/climate-and-moisture", test_climate_and_moisture);
   g_test_add_func ("/store/jobs/import-unknown-climate", test_import_unknown_climate);
   g_test_add_func ("/store/jobs/job-variant-revision", test_job_variant_revision);
+  g_test_add_func ("/store/jobs/delete", test_delete);
+  g_test_add_func ("/store/jobs/find-by-number", test_find_by_number);
   return g_test_run ();
 }
