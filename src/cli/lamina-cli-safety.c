@@ -275,6 +275,14 @@ lamina_cli_restore (const LaminaCliGlobals *globals,
     g_setenv ("LAMINA_BACKUP_DIR", dir, TRUE);
   path = globals->library_path ? g_strdup (globals->library_path)
                                : lamina_library_dup_default_path ();
+  /* A server library is never replaced: the refusal (naming the copy into
+   * a new database) before any question. */
+  if (lamina_library_is_server_address (path))
+    {
+      lamina_library_restore_backup (path, argc == 2 ? argv[1] : "BACKUP.sqlite", NULL, NULL, &error);
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
   folder = restore_folder (path);
   if (argc == 2)
     backup = g_strdup (argv[1]);

@@ -7,6 +7,7 @@
 #pragma once
 
 #include "lamina-library.h"
+#include "lamina-library-copy.h"
 
 G_BEGIN_DECLS
 
@@ -109,6 +110,12 @@ LaminaBackendDump           *lamina_backend_dump_new            (void);
 void                         lamina_backend_dump_free           (LaminaBackendDump *dump);
 LaminaBackendRecord         *lamina_backend_record_new          (const char *id);
 LaminaBackendRecordRevision *lamina_backend_record_revision_new (void);
+/* Parses every revision's body into its construction (what write_all
+ * needs) and counts into @report: CORRUPT, naming the construction and
+ * revision, before anything is written. */
+gboolean                     lamina_backend_dump_prepare        (LaminaBackendDump *dump,
+                                                                 LaminaCopyReport  *report,
+                                                                 GError           **error);
 
 typedef struct
 {
@@ -419,6 +426,12 @@ char          *lamina_backup_dup_latest_for_path (const char *path);
 LaminaBackend *lamina_pg_backend_open (const char             *conninfo,
                                        LaminaLibraryOpenFlags  flags,
                                        GError                **error);
+
+/* lamina-pg-open.c: @conninfo without a password, for messages; the
+ * name backups of a server library are called by (its database's name,
+ * as a file name). */
+char          *lamina_pg_dup_label        (const char *conninfo);
+char          *lamina_pg_dup_backup_stem  (const char *conninfo);
 
 /* lamina-sqlite-open.c */
 LaminaBackend *lamina_sqlite_backend_open (const char             *path,

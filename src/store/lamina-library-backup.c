@@ -21,11 +21,16 @@
 #define SETTING_FOLDER "backup-folder"
 #define SETTING_KEEP   "backup-keep"
 
-/* "office" for office.sqlite */
+/* "office" for office.sqlite, and for a server library the database's
+ * name (lamina_pg_dup_backup_stem). */
 static char *
 stem_of (const char *library_path)
 {
-  char *base = g_path_get_basename (library_path);
+  char *base;
+
+  if (lamina_library_is_server_address (library_path))
+    return lamina_pg_dup_backup_stem (library_path);
+  base = g_path_get_basename (library_path);
 
   if (g_str_has_suffix (base, ".sqlite") && strlen (base) > strlen (".sqlite"))
     base[strlen (base) - strlen (".sqlite")] = '\0';
@@ -43,7 +48,8 @@ char *
 lamina_backup_dup_dir_for_path (const char *path)
 {
   const char *env = g_getenv ("LAMINA_BACKUP_DIR");
-  g_autofree char *library = absolute (path);
+  g_autofree char *library = lamina_library_is_server_address (path) ? g_strdup (path)
+                                                                      : absolute (path);
   g_autofree char *beside = g_strconcat (library, ".backups", NULL);
   g_autofree char *dir = g_path_get_dirname (library);
   g_autofree char *stem = NULL;
@@ -52,7 +58,9 @@ lamina_backup_dup_dir_for_path (const char *path)
 
   if (env != NULL && *env != '\0')
     return absolute (env);
-  if (g_file_test (beside, G_FILE_TEST_IS_DIR) || access (dir, W_OK) == 0)
+  /* A server library has no folder of its own: the user's data folder. */
+  if (!lamina_library_is_server_address (path)
+      && (g_file_test (beside, G_FILE_TEST_IS_DIR) || access (dir, W_OK) == 0))
     return g_steal_pointer (&beside);
   /* The library's folder cannot be written (a read-only share): the
    * user's own data folder, one folder per library path. */
@@ -76,7 +84,10 @@ lamina_library_dup_backup_dir (LaminaLibrary *self)
     setting = VT (self)->get_setting (BE (self), SETTING_FOLDER, NULL);
   if (setting != NULL && *setting != '\0')
     {
-      g_autofree char *library = absolute (BE (self)->path);
+      /* A server library's relative folder: under the user's data folder. */
+      g_autofree char *library = lamina_library_is_server_address (BE (self)->path)
+        ? g_build_filename (g_get_user_data_dir (), "lamina", "backups", "server", NULL)
+        : absolute (BE (self)->path);
       g_autofree char *dir = g_path_get_dirname (library);
 
       return g_path_is_absolute (setting) ? g_steal_pointer (&setting)
@@ -355,8 +366,11 @@ lamina_library_backup_daily (LaminaLibrary  *self,
   g_return_val_if_fail (LAMINA_IS_LIBRARY (self), NULL);
   BACKEND_OR_FAIL (self, error, NULL);
 
-  /* Nothing can change a read-only library through us. */
+  /* Nothing can change a read-only library through us.  A server
+   * library is backed up by its administrator (lamina-cli backup, the
+   * server's own backups), not by every colleague's window each day. */
   if (lamina_library_is_read_only (self) || VT (self)->backup_to == NULL
+      || lamina_library_is_server_address (BE (self)->path)
       || lamina_library_get_backup_keep (self) == 0)
     return NULL;
   dir = lamina_library_dup_backup_dir (self);
@@ -524,11 +538,21 @@ lamina_library_restore_backup (const char  *library_path,
 
   g_return_val_if_fail (library_path != NULL && backup != NULL, FALSE);
 
-  /* A server library is kept by the server's own backups. */
-  if (strstr (library_path, "://") != NULL || g_str_has_prefix (library_path, "postgres"))
+  /* A server library is never overwritten by a restore: the server keeps
+   * approved revisions and review records unchangeable, and colleagues
+   * may have worked since the copy was made.  The backup goes into a new,
+   * empty database through the copy (all or nothing, every revision and
+   * review record kept); the office moves to it once it is checked. */
+  if (lamina_library_is_server_address (library_path))
     {
+      g_autofree char *label = lamina_pg_dup_label (library_path);
+
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_FAILED,
-                   "%s: restoring a backup file is not supported for this library", library_path);
+                   "%s: a library on a server is not replaced by a restore; copy the backup "
+                   "into a new, empty database (“lamina-cli copy --from %s --to "
+                   "postgresql://…/NEW_DATABASE”), check it, and point the office at it; "
+                   "the server's own backups bring back the database as a whole; "
+                   "nothing was changed", label, backup);
       return FALSE;
     }
   if (dir == NULL)

@@ -9,6 +9,7 @@
 #include <stdio.h>
 
 #include "lamina-library-backend.h"
+#include "lamina-store-common.h"
 
 gboolean
 lamina_library_prepare_revision (LaminaConstruction  *c,
@@ -130,17 +131,17 @@ check_code_free (LaminaLibrary             *self,
   g_autofree char *other = lamina_library_dup_code_user (self, c->code, c->id, &local);
   g_autoptr(LaminaConstruction) user = NULL;
 
-  /* The check reads before the write's own transaction: a library busy
-   * or still being created by another program is not a reason to refuse
-   * the save (the write then reports what is wrong, if anything). */
+  /* An early check, before the write's own transaction, to name the
+   * other construction before anything is calculated: a library busy or
+   * still being created by another program is not a reason to refuse the
+   * save.  The backend checks again inside the write's transaction
+   * (store_revision), where no concurrent writer can slip in between. */
   if (local != NULL)
     g_debug ("office code check skipped: %s", local->message);
   if (other == NULL)
     return TRUE;
   user = VT (self)->get_construction (BE (self), other, 0, NULL);
-  g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS,
-               "construction code “%s”: already used by “%s” in this library; "
-               "office codes are unique", c->code, user && user->name ? user->name : other);
+  lamina_store_set_code_used_error (error, c->code, user && user->name ? user->name : other);
   return FALSE;
 }
 

@@ -91,10 +91,10 @@ G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaBackendDump, lamina_backend_dump_free)
 
 /* Parses every body (the target indexes tags, materials and search text
  * from them) and counts; fails before anything is written. */
-static gboolean
-prepare (LaminaBackendDump  *dump,
-         LaminaCopyReport   *report,
-         GError            **error)
+gboolean
+lamina_backend_dump_prepare (LaminaBackendDump  *dump,
+                             LaminaCopyReport   *report,
+                             GError            **error)
 {
   report->materials = dump->materials->len;
   report->climates = dump->climates->len;
@@ -174,7 +174,7 @@ lamina_library_copy (LaminaLibrary     *from,
       g_prefix_error (error, "%s: ", lamina_library_get_path (from));
       return FALSE;
     }
-  if (!prepare (dump, &counts, error))
+  if (!lamina_backend_dump_prepare (dump, &counts, error))
     {
       g_prefix_error (error, "%s: ", lamina_library_get_path (from));
       return FALSE;

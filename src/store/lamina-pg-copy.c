@@ -428,3 +428,33 @@ lamina_pg_write_all (LaminaBackend            *backend,
 {
   return lamina_pg_transaction (SELF, write_all_txn, (gpointer) dump, error);
 }
+
+/* ---- Backups ---------------------------------------------------------- */
+
+/* What an office's administrator expects of "lamina-cli backup" on the
+ * server: a file they can keep, open and copy back, of the library as it
+ * stood at one moment.  read_all reads in one REPEATABLE READ READ ONLY
+ * transaction (colleagues go on working; nothing they commit meanwhile is
+ * half in the copy), and the new SQLite library @dest is written in one
+ * transaction by the copy machinery, so the backup is an ordinary
+ * library file with every revision, review record and 2-D check.  No
+ * program is started (no pg_dump): the server's own backups of the whole
+ * database remain the administrator's business. */
+gboolean
+lamina_pg_backup_to (LaminaBackend  *backend,
+                     const char     *dest,
+                     GError        **error)
+{
+  LaminaBackendDump *dump = lamina_pg_read_all (backend, error);
+  LaminaBackend *file = NULL;
+  LaminaCopyReport counts = { 0 };
+  gboolean ok;
+
+  ok = dump != NULL && lamina_backend_dump_prepare (dump, &counts, error)
+       && (file = lamina_sqlite_backend_open (dest, LAMINA_LIBRARY_OPEN_NO_SEED, error)) != NULL
+       && file->vtable->write_all (file, dump, error);
+  if (file != NULL)
+    file->vtable->close (file);
+  lamina_backend_dump_free (dump);
+  return ok;
+}

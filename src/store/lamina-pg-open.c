@@ -70,6 +70,34 @@ dup_label (const char *conninfo)
   return g_string_free (g_steal_pointer (&label), FALSE);
 }
 
+char *
+lamina_pg_dup_label (const char *conninfo)
+{
+  return dup_label (conninfo);
+}
+
+char *
+lamina_pg_dup_backup_stem (const char *conninfo)
+{
+  PQconninfoOption *options = PQconninfoParse (conninfo, NULL);
+  g_autofree char *name = NULL;
+
+  for (PQconninfoOption *o = options; o != NULL && o->keyword != NULL; o++)
+    if (strcmp (o->keyword, "dbname") == 0 && o->val != NULL && *o->val)
+      name = g_strdup (o->val);
+    else if (strcmp (o->keyword, "service") == 0 && o->val != NULL && *o->val && name == NULL)
+      name = g_strdup (o->val);
+  if (options != NULL)
+    PQconninfoFree (options);
+  if (name == NULL)
+    name = g_strdup ("server");
+  /* A file name: letters, digits, '-', '_' and '.' only. */
+  for (char *p = name; *p; p++)
+    if (!g_ascii_isalnum (*p) && *p != '-' && *p != '_' && *p != '.')
+      *p = '_';
+  return g_steal_pointer (&name);
+}
+
 static void
 lamina_pg_close (LaminaBackend *backend)
 {
@@ -162,6 +190,9 @@ static const LaminaBackendVTable pg_vtable = {
   .server_init = lamina_pg_server_init,
   .replace_draft = lamina_pg_replace_draft,
   .drop_draft = lamina_pg_drop_draft,
+  .find_code = lamina_pg_find_code,
+  .backup_to = lamina_pg_backup_to,
+  .count_at_most = lamina_pg_count_at_most,
 };
 
 /* What the database holds: -1 no Lamina library (@foreign: other tables

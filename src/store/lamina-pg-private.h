@@ -31,6 +31,8 @@ typedef struct
   gboolean       limit_read;   /* moisture_limit holds the setting, read in
                                 * this transaction (an import reads it once) */
   double         moisture_limit;
+  gboolean       codes_locked; /* this transaction holds the office-code
+                                * lock exclusively (an import) */
 } LaminaPg;
 
 /* Parameters of a statement: owned strings, NULL for SQL NULL.  Each
@@ -153,7 +155,12 @@ gboolean            lamina_pg_apply_import     (LaminaBackend *backend, GPtrArra
 gboolean            lamina_pg_apply_import_records (LaminaBackend *backend,
                                                     const LaminaBackendImport *import,
                                                     const char *now, GError **error);
+/* Takes the office-code lock exclusively until the commit (before any
+ * write that sets many constructions' codes: an import, a copy). */
+gboolean            lamina_pg_lock_codes       (LaminaPg *self, GError **error);
 GPtrArray          *lamina_pg_list_ids         (LaminaBackend *backend, GError **error);
+char               *lamina_pg_find_code        (LaminaBackend *backend, const char *code,
+                                                const char *except_id, GError **error);
 /* lamina-pg-search.c */
 GPtrArray          *lamina_pg_search           (LaminaBackend *backend,
                                                 const LaminaLibraryQuery *query,
@@ -161,6 +168,9 @@ GPtrArray          *lamina_pg_search           (LaminaBackend *backend,
 gint64              lamina_pg_count            (LaminaBackend *backend,
                                                 const LaminaLibraryQuery *query,
                                                 GError **error);
+gint64              lamina_pg_count_at_most    (LaminaBackend *backend,
+                                                const LaminaLibraryQuery *query,
+                                                gint64 at_most, GError **error);
 GPtrArray          *lamina_pg_list_tags        (LaminaBackend *backend, GError **error);
 /* The search words of a construction, space separated (the index). */
 char               *lamina_pg_search_words     (const LaminaConstruction *c);
@@ -177,6 +187,8 @@ gboolean            lamina_pg_drop_draft       (LaminaBackend *backend,
 LaminaBackendDump  *lamina_pg_read_all         (LaminaBackend *backend, GError **error);
 gboolean            lamina_pg_write_all        (LaminaBackend *backend,
                                                 const LaminaBackendDump *dump, GError **error);
+gboolean            lamina_pg_backup_to        (LaminaBackend *backend, const char *dest,
+                                                GError **error);
 /* lamina-pg-roles.c */
 gboolean            lamina_pg_server_init      (LaminaBackend *backend, GError **error);
 /* lamina-pg-jobs.c */

@@ -270,13 +270,110 @@ refresh_material_changed (LaminaPg                  *self,
   return c->moisture == NULL || lamina_pg_refresh_climate_flags (self, c->moisture->climate, error);
 }
 
+/* The id (and name) of the first live construction but @except_id whose
+ * office code is @code, ASCII letters compared without case as SQLite's
+ * NOCASE does; NULL without an error when none.  The first comparison is
+ * that of the index construction_by_code (lower () in the database's
+ * collation, which folds ASCII letters alike in every locale but a
+ * Turkish one), the second the exact rule. */
+static char *
+find_code_row (LaminaPg    *self,
+               const char  *code,
+               const char  *except_id,
+               char       **name,
+               GError     **error)
+{
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  PGresult *res;
+  char *id = NULL;
+
+  lamina_pg_add_text (params, code);
+  lamina_pg_add_text (params, except_id);
+  res = lamina_pg_query (self,
+    "SELECT id, name FROM construction"
+    " WHERE lower (code) COLLATE \"C\" = lower ($1::text) COLLATE \"C\""
+    "   AND lower (code COLLATE \"C\") = lower ($1::text COLLATE \"C\")"
+    "   AND deleted_at IS NULL AND id IS DISTINCT FROM $2::text"
+    " ORDER BY num LIMIT 1", params, "cannot read a construction", error);
+  if (res == NULL)
+    return NULL;
+  if (PQntuples (res) > 0)
+    {
+      id = lamina_pg_dup (res, 0, 0);
+      if (name != NULL)
+        *name = lamina_pg_dup (res, 0, 1);
+    }
+  PQclear (res);
+  return id;
+}
+
+/* Office codes are unique within a library, checked inside the write's
+ * transaction.  At READ COMMITTED two writers could each find a code
+ * free and both take it, so a writer first takes advisory locks that
+ * last until its commit: the office-code lock shared plus a lock on the
+ * code itself (two saves of other codes go on side by side), or, for an
+ * import, the office-code lock alone, exclusively (one lock however many
+ * constructions it brings: the server's lock table is not sized for
+ * thousands in one transaction).  The check then reads what the other
+ * writer committed.  The locks come before the row lock of check_base, in
+ * every write, so that two writers cannot wait for each other. */
+#define CODE_LOCK "1279610433"       /* "LMNA": the office-code lock */
+#define CODE_LOCK_EACH "1279610434"  /* one code (hashed) */
+
+gboolean
+lamina_pg_lock_codes (LaminaPg  *self,
+                      GError   **error)
+{
+  if (self->codes_locked)
+    return TRUE;
+  if (!lamina_pg_exec (self, "SELECT pg_advisory_xact_lock (" CODE_LOCK ", 0);", error))
+    return FALSE;
+  self->codes_locked = TRUE;
+  return TRUE;
+}
+
+static gboolean
+check_code_free (LaminaPg                  *self,
+                 const LaminaConstruction  *c,
+                 GError                   **error)
+{
+  g_autofree char *id = NULL, *name = NULL;
+  g_autoptr(GError) local = NULL;
+
+  if (c->code == NULL)
+    return TRUE;
+  if (!self->codes_locked)
+    {
+      g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+
+      lamina_pg_add_text (params, c->code);
+      if (!lamina_pg_run (self,
+            "SELECT pg_advisory_xact_lock_shared (" CODE_LOCK ", 0),"
+            "       pg_advisory_xact_lock (" CODE_LOCK_EACH ","
+            "                              hashtext (lower ($1::text COLLATE \"C\")))",
+            params, "cannot lock the office code", error))
+        return FALSE;
+    }
+  id = find_code_row (self, c->code, c->id, &name, &local);
+  if (local != NULL)
+    {
+      g_propagate_error (error, g_steal_pointer (&local));
+      return FALSE;
+    }
+  if (id == NULL)
+    return TRUE;
+  lamina_store_set_code_used_error (error, c->code, name ? name : id);
+  return FALSE;
+}
+
 static gboolean
 store_revision_in_txn (LaminaPg                     *self,
                        const LaminaBackendRevision  *rev,
                        int                           base,
                        GError                      **error)
 {
-  return check_base (self, rev->construction, base, error)
+  return check_code_free (self, rev->construction, error)
+         && check_base (self, rev->construction, base, error)
          && put_construction_row (self, rev->construction, rev->result, base == 0, error)
          && insert_revision_row (self, rev, error)
          && lamina_pg_index_revision (self, rev->construction, TRUE, error)
@@ -493,7 +590,9 @@ replace_draft_txn (LaminaPg  *self,
   Draft *d = data;
   const LaminaConstruction *c = d->rev->construction;
 
-  return check_draft_head (self, c->id, c->revision, d->stamp, error)
+  /* The code's locks before the row's (check_code_free). */
+  return check_code_free (self, c, error)
+         && check_draft_head (self, c->id, c->revision, d->stamp, error)
          && delete_draft_rows (self, c->id, c->revision, error)
          && store_revision_in_txn (self, d->rev, c->revision - 1, error);
 }
@@ -622,6 +721,8 @@ import_txn (LaminaPg  *self,
   for (guint i = 0; i < import->materials->len; i++)
     if (!lamina_pg_put_material_in_txn (self, import->materials->pdata[i], w->now, error))
       return FALSE;
+  if (!lamina_pg_lock_codes (self, error))
+    return FALSE;
   for (guint i = 0; i < import->revisions->len; i++)
     if (!store_revision_in_txn (self, import->revisions->pdata[i],
                                 g_array_index (import->base_revisions, int, i), error))
@@ -655,6 +756,15 @@ lamina_pg_apply_import (LaminaBackend  *backend,
   LaminaBackendImport import = { materials, revisions, base_revisions, NULL, NULL, NULL };
 
   return lamina_pg_apply_import_records (backend, &import, now, error);
+}
+
+char *
+lamina_pg_find_code (LaminaBackend  *backend,
+                     const char     *code,
+                     const char     *except_id,
+                     GError        **error)
+{
+  return find_code_row (SELF, code, except_id, NULL, error);
 }
 
 GPtrArray *

@@ -140,25 +140,50 @@ lamina_pg_search (LaminaBackend             *backend,
   return rows;
 }
 
-gint64
-lamina_pg_count (LaminaBackend             *backend,
-                 const LaminaLibraryQuery  *q,
-                 GError                   **error)
+/* How many rows @q matches; with @at_most >= 0, counting no further than
+ * @at_most + 1, so that a short prefix matching most of a large library
+ * costs a bounded time. */
+static gint64
+count_rows (LaminaPg                  *self,
+            const LaminaLibraryQuery  *q,
+            gint64                     at_most,
+            GError                   **error)
 {
   g_autofree char *tsquery = text_to_tsquery (q->text);
-  g_autoptr(GString) sql = g_string_new ("SELECT count(*)");
+  g_autoptr(GString) sql = g_string_new (at_most < 0 ? "SELECT count(*)"
+                                                     : "SELECT count(*) FROM (SELECT 1");
   g_autoptr(GPtrArray) params = lamina_pg_params_new ();
   int tsq = tsquery ? lamina_pg_add_text (params, tsquery) : 0;
   PGresult *res;
   gint64 n;
 
   append_filters (sql, params, q, tsq);
-  res = lamina_pg_query (SELF, sql->str, params, "cannot search the library", error);
+  if (at_most >= 0)
+    g_string_append_printf (sql, " LIMIT $%d) AS capped",
+                            lamina_pg_add_int (params, at_most + 1));
+  res = lamina_pg_query (self, sql->str, params, "cannot search the library", error);
   if (res == NULL)
     return -1;
   n = g_ascii_strtoll (PQgetvalue (res, 0, 0), NULL, 10);
   PQclear (res);
   return n;
+}
+
+gint64
+lamina_pg_count (LaminaBackend             *backend,
+                 const LaminaLibraryQuery  *q,
+                 GError                   **error)
+{
+  return count_rows (SELF, q, -1, error);
+}
+
+gint64
+lamina_pg_count_at_most (LaminaBackend             *backend,
+                         const LaminaLibraryQuery  *q,
+                         gint64                     at_most,
+                         GError                   **error)
+{
+  return count_rows (SELF, q, MAX (at_most, 0), error);
 }
 
 GPtrArray *

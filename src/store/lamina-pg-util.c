@@ -215,6 +215,7 @@ lamina_pg_transaction (LaminaPg        *self,
 
       self->sqlstate[0] = '\0';
       self->limit_read = FALSE;
+      self->codes_locked = FALSE;
       if (lamina_pg_exec (self, "BEGIN;", &local)
           && func (self, data, &local)
           && lamina_pg_exec (self, "COMMIT;", &local))

@@ -347,6 +347,41 @@ refresh_material_changed (LaminaSqlite              *self,
   return c->moisture == NULL || lamina_sqlite_refresh_climate_flags (self, c->moisture->climate, error);
 }
 
+/* Office codes are unique within a library: checked again inside the
+ * write's transaction (BEGIN IMMEDIATE holds the write lock, so no other
+ * writer can take the code between this check and the commit). */
+static gboolean
+check_code_free (LaminaSqlite              *self,
+                 const LaminaConstruction  *c,
+                 GError                   **error)
+{
+  sqlite3_stmt *stmt;
+  g_autofree char *user = NULL;
+  int rc;
+
+  if (c->code == NULL)
+    return TRUE;
+  stmt = lamina_sqlite_prepare (self,
+    "SELECT coalesce (name, id) FROM construction WHERE code = ?1 COLLATE NOCASE"
+    "   AND id IS NOT ?2 AND deleted_at IS NULL ORDER BY num LIMIT 1;", error);
+  if (stmt == NULL)
+    return FALSE;
+  lamina_sqlite_bind_text (stmt, 1, c->code);
+  lamina_sqlite_bind_text (stmt, 2, c->id);
+  rc = sqlite3_step (stmt);
+  if (rc == SQLITE_ROW)
+    user = lamina_sqlite_column_dup (stmt, 0);
+  else if (rc != SQLITE_DONE)
+    lamina_sqlite_set_error (self, rc, "cannot read a construction", error);
+  sqlite3_reset (stmt);
+  if (rc != SQLITE_ROW && rc != SQLITE_DONE)
+    return FALSE;
+  if (user == NULL)
+    return TRUE;
+  lamina_store_set_code_used_error (error, c->code, user);
+  return FALSE;
+}
+
 static gboolean
 store_revision_in_txn (LaminaSqlite                 *self,
                        const LaminaBackendRevision  *rev,
@@ -356,6 +391,7 @@ store_revision_in_txn (LaminaSqlite                 *self,
   gint64 num;
 
   return check_base (self, rev->construction, base, error)
+         && check_code_free (self, rev->construction, error)
          && put_construction_row (self, rev->construction, rev->result, &num, error)
          && insert_revision_row (self, rev, error)
          && store_tags_and_materials (self, rev->construction, num, TRUE, error)

@@ -75,6 +75,16 @@ lamina_store_check_base (const LaminaConstruction  *c,
   return TRUE;
 }
 
+void
+lamina_store_set_code_used_error (GError     **error,
+                                  const char  *code,
+                                  const char  *user)
+{
+  g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS,
+               "construction code “%s”: already used by “%s” in this library; "
+               "office codes are unique", code, user);
+}
+
 LaminaSummaryFlags
 lamina_store_summary_flags (const LaminaResult *r)
 {

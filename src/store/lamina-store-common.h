@@ -32,6 +32,12 @@ gboolean           lamina_store_check_base        (const LaminaConstruction *c,
                                                    gboolean                  deleted,
                                                    GError                  **error);
 
+/* The refusal of a second construction with office code @code; @user:
+ * the name (or id) of the construction that has it. */
+void               lamina_store_set_code_used_error (GError     **error,
+                                                     const char  *code,
+                                                     const char  *user);
+
 /* The list flags of a revision's result @r (NULL: not calculable); the
  * moisture flags come from lamina_library_moisture_flags_for_limit. */
 LaminaSummaryFlags lamina_store_summary_flags     (const LaminaResult       *r);

@@ -11,6 +11,7 @@
 #include <string.h>
 
 #include "lamina-library-copy.h"
+#include "lamina-library-safety.h"
 #include "lamina-store-json.h"
 #include "lamina-store-test-util.h"
 #include "lamina-cli-test-util.h"
@@ -427,6 +428,49 @@ test_cli (void)
   g_free (err);
 }
 
+/* lamina-cli backup on either backend: a library file, equal to the
+ * library it was made from (every revision, review record and figure);
+ * on a server a restore is refused, naming the copy into a new database,
+ * and nothing changes. */
+static void
+test_backup (void)
+{
+  g_autofree char *path = test_library_location ("backup-source.sqlite");
+  g_autofree char *reviewed = NULL, *deleted = NULL;
+  g_autoptr(LaminaLibrary) src = make_source (path, &reviewed, &deleted);
+  g_autoptr(LaminaLibrary) copy = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *made = lamina_library_backup_now (src, &error);
+  g_autofree char *backups = g_build_filename (g_get_user_data_dir (), "cli-backups", NULL);
+  char *out = NULL, *err = NULL;
+
+  g_assert_no_error (error);
+  g_assert_true (g_str_has_suffix (made, ".sqlite"));
+  copy = lamina_library_open (made, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  g_assert_no_error (error);
+  compare_libraries (src, copy);
+  g_clear_object (&copy);
+
+  library_path = path;
+  g_assert_cmpint (run (&out, &err, "backup", "--dir", backups, NULL), ==, 0);
+  g_assert_nonnull (strstr (out, "backup written: "));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  if (!test_on_server ())
+    return;
+  g_assert_false (lamina_library_restore_backup (path, made, NULL, NULL, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_FAILED);
+  g_assert_nonnull (strstr (error->message, "lamina-cli copy --from"));
+  g_assert_null (strstr (error->message, "password"));
+  g_clear_error (&error);
+  /* No question first: the refusal comes before any prompt. */
+  g_assert_cmpint (run (&out, &err, "restore", made, NULL), ==, 1);
+  g_assert_nonnull (strstr (err, "new, empty database"));
+  g_clear_pointer (&out, g_free);
+  g_clear_pointer (&err, g_free);
+  compare_construction (src, src, reviewed);
+}
+
 int
 main (int    argc,
       char **argv)
@@ -436,5 +480,6 @@ main (int    argc,
   g_test_add_func ("/library-copy/refuses-non-empty", test_refuses_non_empty);
   g_test_add_func ("/library-copy/failure-leaves-target", test_failure_leaves_target);
   g_test_add_func ("/library-copy/cli", test_cli);
+  g_test_add_func ("/library-copy/backup", test_backup);
   return g_test_run ();
 }

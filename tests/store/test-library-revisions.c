@@ -3,6 +3,7 @@
 #include <string.h>
 
 #include "lamina-library.h"
+#include "lamina-library-backend.h"
 #include "lamina-library-search.h"
 #include "lamina-store-test-util.h"
 
@@ -339,6 +340,102 @@ test_list_tags (void)
   g_assert_cmpuint (count_text (library, "annex"), ==, 0);
 }
 
+/* Office codes are unique within a library (common practice: a code is
+ * how drawings and specifications name one build-up), compared as
+ * SQLite's NOCASE compares (ASCII letters without case; the code is kept
+ * in Unicode NFC, Unicode Standard Annex #15).  The backend's find_code
+ * on both backends, and the refusal inside the write's own transaction,
+ * past the front end's early check. */
+static void
+test_office_code (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("codes.sqlite");
+  g_autofree char *a = create_wall (library, "EW-101", "Wall A", NULL, 200);
+  g_autofree char *b = create_wall (library, "\xc3\x89W-7", "Wall B", NULL, 120);
+  g_autoptr(LaminaConstruction) twin = NULL;
+  g_autoptr(LaminaResult) result = NULL;
+  g_autofree char *calc_error = NULL;
+  g_autoptr(GError) error = NULL;
+  char *found;
+
+  found = lamina_library_dup_code_user (library, "ew-101", NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpstr (found, ==, a);
+  g_free (found);
+  /* Its own code is not another's. */
+  g_assert_null (lamina_library_dup_code_user (library, "EW-101", a, &error));
+  g_assert_no_error (error);
+  /* "É" is not an ASCII letter: "éW-7" is another code, "ÉW-7" the same. */
+  g_assert_null (lamina_library_dup_code_user (library, "\xc3\xa9W-7", NULL, &error));
+  g_assert_no_error (error);
+  found = lamina_library_dup_code_user (library, "\xc3\x89w-7", NULL, &error);
+  g_assert_cmpstr (found, ==, b);
+  g_free (found);
+  /* A prefix is not the code. */
+  g_assert_null (lamina_library_dup_code_user (library, "EW-10", NULL, &error));
+
+  /* The write itself refuses a second EW-101, whatever the caller
+   * checked before: straight to the backend, as a concurrent writer
+   * whose early check came before the other's commit would get there. */
+  twin = test_make_wall (library, "ew-101", "Wall C", NULL, 100);
+  twin->id = g_strdup ("wall-c");
+  lamina_library_prepare_revision (twin, &result, &calc_error);
+  lamina_library_set_new_draft (twin, 1, "A. Planner");
+  {
+    LaminaBackendRevision rev = { twin, result, calc_error, NULL };
+
+    g_assert_false (VT (library)->store_revision (BE (library), &rev, 0, &error));
+    g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS);
+    g_assert_nonnull (strstr (error->message, "already used by “Wall A”"));
+    g_clear_error (&error);
+  }
+  g_assert_null (lamina_library_dup_construction (library, "wall-c", 0, NULL));
+
+  /* A deleted construction's code is free again. */
+  g_assert_true (lamina_library_delete_construction (library, a, "A. Planner", &error));
+  g_assert_null (lamina_library_dup_code_user (library, "EW-101", NULL, &error));
+  g_assert_no_error (error);
+  found = lamina_library_create_construction (library, twin, "A. Planner", &error);
+  g_assert_no_error (error);
+  g_free (found);
+}
+
+/* The list's count that stops (lamina_library_count_at_most): exact up
+ * to the cap, the cap + 1 beyond it, with and without a text. */
+static void
+test_count_at_most (void)
+{
+  g_autoptr(LaminaLibrary) library = open_at ("capped.sqlite");
+  g_autoptr(GError) error = NULL;
+  LaminaLibraryQuery q;
+
+  for (int i = 0; i < 5; i++)
+    {
+      g_autofree char *code = g_strdup_printf ("EW-%d", 30 + i);
+      g_autofree char *id = create_wall (library, code, "Capped wall", i < 2 ? "annex" : NULL,
+                                         100 + 20 * i);
+    }
+  lamina_library_query_init (&q);
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 3, &error), ==, 4);
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 4, &error), ==, 5);
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 5, &error), ==, 5);
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 1000, &error), ==, 5);
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 0, &error), ==, 1);
+  g_assert_no_error (error);
+  q.text = "annex";
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 1, &error), ==, 2);
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 2, &error), ==, 2);
+  q.text = "zzz";
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 0, &error), ==, 0);
+  q.text = NULL;
+  q.max_u = 0.0;
+  g_assert_cmpint (lamina_library_count_at_most (library, &q, 10, &error), ==, 0);
+  g_assert_no_error (error);
+  /* The backend's own operation is there on both backends. */
+  g_assert_nonnull (VT (library)->count_at_most);
+  g_assert_nonnull (VT (library)->find_code);
+}
+
 static void
 test_fts_query (void)
 {
@@ -364,5 +461,7 @@ main (int    argc,
   g_test_add_func ("/store/search/prefix-tag-material", test_search);
   g_test_add_func ("/store/search/fts-query", test_fts_query);
   g_test_add_func ("/store/search/list-tags", test_list_tags);
+  g_test_add_func ("/store/revisions/office-code", test_office_code);
+  g_test_add_func ("/store/search/count-at-most", test_count_at_most);
   return g_test_run ();
 }
