@@ -290,6 +290,12 @@ typedef struct
   gint64              (*count_at_most)      (LaminaBackend *backend,
                                              const LaminaLibraryQuery *query,
                                              gint64 at_most, GError **error);
+
+  /* Takes the library's write lock and lets it go at once, writing
+   * nothing: waits (the busy handler, up to busy_timeout) while another
+   * program holds it, then BUSY.  NULL for a backend without a library-
+   * wide write lock (the front end then does not wait). */
+  gboolean            (*probe_write)        (LaminaBackend *backend, GError **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend

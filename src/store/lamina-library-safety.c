@@ -161,6 +161,47 @@ lamina_library_get_busy_timeout (LaminaLibrary *self)
   return BE (self) ? BE (self)->busy_timeout : 0;
 }
 
+gboolean
+lamina_library_wait_until_writable (LaminaLibrary  *self,
+                                    double          seconds,
+                                    GCancellable   *cancellable,
+                                    GError        **error)
+{
+  gint64 start = g_get_monotonic_time ();
+  double timeout;
+  gboolean ok = FALSE;
+
+  g_return_val_if_fail (LAMINA_IS_LIBRARY (self), FALSE);
+  g_return_val_if_fail (seconds >= 0, FALSE);
+  BACKEND_OR_FAIL (self, error, FALSE);
+
+  if (VT (self)->probe_write == NULL)
+    return TRUE;
+  /* Steps of a second: the busy handler cannot look at @cancellable. */
+  timeout = BE (self)->busy_timeout;
+  BE (self)->busy_timeout = 1.0;
+  for (;;)
+    {
+      g_autoptr(GError) local = NULL;
+
+      if (g_cancellable_set_error_if_cancelled (cancellable, error))
+        break;
+      if (VT (self)->probe_write (BE (self), &local))
+        {
+          ok = TRUE;
+          break;
+        }
+      if (!g_error_matches (local, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_BUSY)
+          || (seconds > 0 && g_get_monotonic_time () - start >= seconds * G_USEC_PER_SEC))
+        {
+          g_propagate_error (error, g_steal_pointer (&local));
+          break;
+        }
+    }
+  BE (self)->busy_timeout = timeout;
+  return ok;
+}
+
 /* ---- Verification ----------------------------------------------------- */
 
 void

@@ -18,6 +18,8 @@
  * (lamina_library_backup_daily) and their restoration. */
 #pragma once
 
+#include <gio/gio.h>
+
 #include "lamina-library.h"
 
 G_BEGIN_DECLS
@@ -46,6 +48,16 @@ void           lamina_library_set_wait_func     (LaminaLibrary        *self,
 void           lamina_library_set_busy_timeout  (LaminaLibrary        *self,
                                                  double                seconds);
 double         lamina_library_get_busy_timeout  (LaminaLibrary        *self);
+/* Waits until a write could start now (no other program holds the write
+ * lock), holding the lock itself for no longer than a moment and writing
+ * nothing; looks at @cancellable about once a second and calls the wait
+ * function as a write would.  @seconds > 0: gives up after that long with
+ * the BUSY error that names the holder; 0: no limit.  TRUE at once for a
+ * library without a library-wide write lock (a server). */
+gboolean       lamina_library_wait_until_writable (LaminaLibrary      *self,
+                                                   double              seconds,
+                                                   GCancellable       *cancellable,
+                                                   GError            **error);
 
 G_END_DECLS
 

@@ -127,6 +127,7 @@ static const LaminaBackendVTable sqlite_vtable = {
   .find_code = lamina_sqlite_backend_find_code,
 
   .count_at_most = lamina_sqlite_backend_count_at_most,
+  .probe_write = lamina_sqlite_backend_probe_write,
 };
 
 static LaminaSqlite *
@@ -141,27 +142,52 @@ sqlite_new (const char *path)
   return self;
 }
 
-/* Looks at the first bytes without SQLite, so that a file of another kind
- * is refused before anything could write to it (SQLite would otherwise
- * treat an empty file as a new database). */
+/* Looks at the first bytes before anything could write to the file, so
+ * that a file of another kind is refused (SQLite would otherwise treat an
+ * empty file as a new database).  The bytes are read through SQLite's own
+ * file (a read-only connection that never reads a page): a plain
+ * open()/close() of the file here would drop every POSIX lock this
+ * process holds on it, the locks of the connections already open (the
+ * window's, while a worker opens its own), and another program could then
+ * checkpoint and delete the WAL under them. */
 static gboolean
 check_header (const char  *path,
               GError     **error)
 {
   static const char magic[16] = "SQLite format 3";
-  char header[100];
-  FILE *f = g_fopen (path, "rb");
-  size_t n;
+  char header[100] = { 0 };
+  sqlite3 *db = NULL;
+  sqlite3_file *file = NULL;
+  size_t n = 0;
+  int rc;
 
-  if (f == NULL)
+  if (g_access (path, R_OK) != 0)
     {
       int saved = errno;
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
                    "%s: cannot open: %s", path, g_strerror (saved));
       return FALSE;
     }
-  n = fread (header, 1, sizeof header, f);
-  fclose (f);
+  rc = sqlite3_open_v2 (path, &db, SQLITE_OPEN_READONLY | SQLITE_OPEN_NOMUTEX, NULL);
+  if (rc == SQLITE_OK)
+    rc = sqlite3_file_control (db, "main", SQLITE_FCNTL_FILE_POINTER, &file);
+  if (rc == SQLITE_OK && (file == NULL || file->pMethods == NULL))
+    rc = SQLITE_CANTOPEN;
+  if (rc == SQLITE_OK)
+    {
+      rc = file->pMethods->xRead (file, header, sizeof header, 0);
+      /* a shorter file: zero-filled, and not a database */
+      n = rc == SQLITE_OK ? sizeof header : 0;
+      if (rc == SQLITE_IOERR_SHORT_READ)
+        rc = SQLITE_OK;
+    }
+  sqlite3_close (db);
+  if (rc != SQLITE_OK)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
+                   "%s: cannot open: %s", path, sqlite3_errstr (rc));
+      return FALSE;
+    }
   if (n < sizeof header || memcmp (header, magic, sizeof magic) != 0)
     {
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_A_LIBRARY,

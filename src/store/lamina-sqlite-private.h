@@ -124,6 +124,8 @@ void          lamina_sqlite_set_busy_error       (LaminaSqlite  *self,
 /* Refuses a write to a read-only library (FALSE, @error set). */
 gboolean      lamina_sqlite_check_writable       (LaminaSqlite  *self,
                                                   GError       **error);
+gboolean      lamina_sqlite_backend_probe_write (LaminaBackend  *backend,
+                                                 GError        **error);
 gboolean      lamina_sqlite_backend_verify_storage (LaminaBackend *backend,
                                                     GPtrArray     *problems,
                                                     GError       **error);

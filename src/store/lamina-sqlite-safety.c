@@ -143,6 +143,20 @@ lamina_sqlite_set_busy_error (LaminaSqlite  *self,
                self->parent.busy_timeout);
 }
 
+/* BEGIN IMMEDIATE takes the WAL write lock (waiting for it like any
+ * write); ROLLBACK lets it go: nothing was written. */
+gboolean
+lamina_sqlite_backend_probe_write (LaminaBackend  *backend,
+                                   GError        **error)
+{
+  LaminaSqlite *self = (LaminaSqlite *) backend;
+
+  if (!lamina_sqlite_begin (self, error))
+    return FALSE;
+  lamina_sqlite_rollback (self);
+  return TRUE;
+}
+
 /* ---- The storage check ------------------------------------------------- */
 
 gboolean
