@@ -189,11 +189,10 @@ lamina_safety_bar_new (LaminaLibrary *library)
                                          "sheets and exports work; editing and review are off."),
                                        lamina_library_get_path (library), reason);
   show_text (self, NULL);
+  /* The window's connection waits only a moment for another program's
+   * lock (LaminaWriteGate queues the write and waits in a worker); the
+   * line is for a wait set longer by LAMINA_BUSY_TIMEOUT. */
   lamina_library_set_wait_func (library, on_wait, self);
-  /* The window's writes run on the main thread: it waits less than a
-   * terminal before it says who is writing (LAMINA_BUSY_TIMEOUT wins). */
-  if (g_getenv ("LAMINA_BUSY_TIMEOUT") == NULL)
-    lamina_library_set_busy_timeout (library, MIN (lamina_library_get_busy_timeout (library), 15));
   /* A library made just now has nothing worth a copy yet. */
   if (reason == NULL && lamina_library_get_opened_version (library) != 0)
     {

@@ -120,11 +120,8 @@ review_action (GtkWidget  *widget,
 {
   LaminaWindow *self = LAMINA_WINDOW (widget);
   g_autofree char *reviewer = dup_reviewer (self);
-  g_autoptr(GError) error = NULL;
-  g_autofree char *message = NULL;
   const char *id;
   int revision;
-  gboolean ok;
 
   if (self->document == NULL)
     return;
@@ -135,6 +132,8 @@ review_action (GtkWidget  *widget,
       return;
     }
   lamina_document_commit (self->document, NULL);
+  if (!lamina_window_check_no_waiting_writes (self))
+    return;
   id = lamina_document_get_id (self->document);
   revision = lamina_document_get_base_revision (self->document);
   if (g_str_equal (name, "win.approve") || g_str_equal (name, "win.withdraw"))
@@ -147,12 +146,7 @@ review_action (GtkWidget  *widget,
                                     reviewer, on_review_done_cb);
       return;
     }
-  else
-    {
-      ok = lamina_library_mark_checked (self->library, id, revision, reviewer, &error);
-      message = g_strdup_printf (_("Revision %d checked by %s"), revision, reviewer);
-    }
-  after_review (self, ok, error, message);
+  lamina_window_check_revision (self, id, revision, reviewer);
 }
 
 static void
@@ -286,17 +280,7 @@ delete_open_construction (LaminaWindow *self)
     return;
   id = g_strdup (lamina_document_get_id (self->document));
   message = g_strdup_printf (_("“%s” deleted"), lamina_document_get_construction (self->document)->name);
-  if (!lamina_library_delete_construction (self->library, id, reviewer, &error))
-    {
-      lamina_window_notify (self, error->message);
-      return;
-    }
-  g_signal_handlers_disconnect_by_data (self->document, self);
-  g_clear_object (&self->document);
-  lamina_editor_set_document (self->editor, NULL);
-  gtk_stack_set_visible_child_name (self->main_stack, "empty");
-  lamina_window_refresh_list (self);
-  lamina_window_show_undo_delete (self, message, id);
+  lamina_window_delete_construction (self, id, reviewer, message);
 }
 
 static void
@@ -342,14 +326,8 @@ undo_delete_action (GtkWidget  *widget,
 
   if (id == NULL)
     return;
-  if (!lamina_library_restore_construction (self->library, id, &error))
-    {
-      lamina_window_notify (self, error->message);
-      return;
-    }
-  lamina_window_refresh_list (self);
-  lamina_window_open (self, id, NULL);
   gtk_revealer_set_reveal_child (self->toast_revealer, FALSE);
+  lamina_window_restore_construction (self, id);
   lamina_window_update_actions (self);
 }
 

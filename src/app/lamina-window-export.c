@@ -531,9 +531,9 @@ export_xml_action (GtkWidget  *widget,
                "*.xml", _("Catalogue XML"), export_xml_chosen);
 }
 
-static void
-show_import_report (LaminaWindow             *self,
-                    const LaminaImportReport *report)
+void
+lamina_window_show_import_report (LaminaWindow             *self,
+                                  const LaminaImportReport *report)
 {
   GtkWidget *window = gtk_window_new ();
   GtkWidget *scroller = gtk_scrolled_window_new ();
@@ -569,26 +569,15 @@ static void
 import_xml_chosen (LaminaWindow *self,
                    GFile        *file)
 {
-  g_autoptr(GError) error = NULL;
   g_autofree char *path = g_file_get_path (file);
   g_autofree char *reviewer = g_settings_get_string (self->settings, "reviewer-name");
-  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (path, &error);
-  g_autoptr(LaminaImportReport) report = NULL;
 
-  if (catalogue != NULL)
-    /* Another library's approvals arrive as drafts unless the user chose
-     * to keep them (recorded as approved elsewhere). */
-    report = lamina_library_import (self->library, catalogue,
-                                    self->import_keep_review ? LAMINA_IMPORT_KEEP_REVIEW : LAMINA_IMPORT_DEFAULT,
-                                    *reviewer ? reviewer : NULL, &error);
-  if (report == NULL)
-    {
-      /* The message names the file and line; nothing was written. */
-      lamina_window_notify (self, error->message);
-      return;
-    }
-  lamina_window_refresh_list (self);
-  show_import_report (self, report);
+  /* In a worker with progress and Cancel (lamina-window-import.c).
+   * Another library's approvals arrive as drafts unless the user chose
+   * to keep them (recorded as approved elsewhere). */
+  lamina_window_import_file (self, path,
+                             self->import_keep_review ? LAMINA_IMPORT_KEEP_REVIEW : LAMINA_IMPORT_DEFAULT,
+                             reviewer);
 }
 
 static void

@@ -5,6 +5,7 @@
 #include "lamina-change-banner.h"
 #include "lamina-document.h"
 #include "lamina-window.h"
+#include "lamina-write-gate.h"
 
 G_BEGIN_DECLS
 
@@ -60,7 +61,34 @@ struct _LaminaWindow
   /* "changed underneath" for the open construction */
   LaminaChangeBanner     *change_banner;
   gboolean                external_change; /* since the last refresh */
+  /* Writes while another program holds the library's write lock, and the
+   * documents whose edits wait there (id → LaminaDocument), so that
+   * opening one again shows the edits that wait. */
+  LaminaWriteGate        *write_gate;
+  GHashTable             *held_documents;
+  gpointer                import;      /* the import running, or NULL */
 };
+
+/* lamina-window-import.c */
+typedef enum
+{
+  LAMINA_IMPORT_PHASE_NONE = -1,
+  LAMINA_IMPORT_PHASE_READING,   /* reading and checking the document */
+  LAMINA_IMPORT_PHASE_WAITING,   /* for another program's write lock */
+  LAMINA_IMPORT_PHASE_WRITING,   /* one transaction: cannot be stopped */
+} LaminaImportPhase;
+
+/* Imports @path in a worker thread with a progress window and Cancel,
+ * then shows the report or the refusal. */
+void              lamina_window_import_file       (LaminaWindow      *self,
+                                                   const char        *path,
+                                                   LaminaImportFlags  flags,
+                                                   const char        *author);
+LaminaImportPhase lamina_window_get_import_phase  (LaminaWindow      *self);
+/* What the progress window's Cancel does (before the write). */
+void              lamina_window_cancel_import     (LaminaWindow      *self);
+void              lamina_window_show_import_report (LaminaWindow             *self,
+                                                    const LaminaImportReport *report);
 
 void lamina_window_update_actions   (LaminaWindow *self);
 /* What the window's timer does: asks the library whether another process
@@ -68,6 +96,25 @@ void lamina_window_update_actions   (LaminaWindow *self);
 void lamina_window_poll_library     (LaminaWindow *self);
 void lamina_window_refresh_list     (LaminaWindow *self);
 void lamina_window_install_actions  (GtkWidgetClass *widget_class);
+/* lamina-window-writes.c: the window's writes through its write gate. */
+void lamina_window_watch_document   (LaminaWindow   *self,
+                                     LaminaDocument *document);
+/* The document of @id whose edits wait for the library, or NULL. */
+LaminaDocument *lamina_window_dup_held_document (LaminaWindow *self,
+                                                 const char   *id);
+/* FALSE, with a message, while writes wait: review acts are refused then
+ * (they must name the revision that the waiting edits will make). */
+gboolean lamina_window_check_no_waiting_writes (LaminaWindow *self);
+void lamina_window_check_revision   (LaminaWindow   *self,
+                                     const char     *id,
+                                     int             revision,
+                                     const char     *reviewer);
+void lamina_window_delete_construction (LaminaWindow *self,
+                                        const char   *id,
+                                        const char   *reviewer,
+                                        const char   *message);
+void lamina_window_restore_construction (LaminaWindow *self,
+                                         const char   *id);
 /* lamina-window-design.c */
 void lamina_window_install_design_actions (GtkWidgetClass *widget_class);
 /* The library filtered to @element and corrected U ≤ @target, thinnest

@@ -87,9 +87,9 @@ lamina_library_work_run_async (LaminaLibrary         *library,
         g_task_return_error (task, g_steal_pointer (&error));
       return;
     }
-  /* The worker waits for another program's lock as long as the window's
-   * connection would. */
-  lamina_library_set_busy_timeout (work->worker, lamina_library_get_busy_timeout (library));
+  /* The worker's connection waits for another program's lock as long as
+   * a terminal would (LAMINA_BUSY_TIMEOUT, else 60 s): the window does
+   * not wait with it. */
   g_task_run_in_thread (task, work_in_thread);
 }
 

@@ -100,6 +100,7 @@ set_document (LaminaWindow   *self,
       g_signal_connect_object (document, "notice", G_CALLBACK (on_document_notice_cb), self, G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "notify::conflict", G_CALLBACK (on_document_conflict_cb), self, G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed_cb), self, G_CONNECT_SWAPPED);
+      lamina_window_watch_document (self, document);
     }
   lamina_editor_set_document (self->editor, document);
   lamina_change_banner_set_document (self->change_banner, document);
@@ -120,7 +121,11 @@ lamina_window_open (LaminaWindow  *self,
 
   if (self->document != NULL)
     lamina_document_commit (self->document, NULL);
-  document = lamina_document_new (self->library, id, error);
+  /* Its edits may still wait for the library: show them, not the stored
+   * state they will replace. */
+  document = lamina_window_dup_held_document (self, id);
+  if (document == NULL)
+    document = lamina_document_new (self->library, id, error);
   if (document == NULL)
     return FALSE;
   set_document (self, document);
@@ -598,6 +603,14 @@ lamina_window_close_request (GtkWindow *window)
    * progress is committed here. */
   if (self->document != NULL)
     lamina_document_commit (self->document, NULL);
+  /* Writes that wait for another program are not thrown away by a
+   * close: the banner's Cancel does that, knowingly. */
+  if (lamina_write_gate_is_waiting (self->write_gate))
+    {
+      lamina_window_notify (self, _("Changes still wait for another program writing this library. "
+                                    "Cancel them in the banner to close without them."));
+      return TRUE;
+    }
   gtk_window_get_default_size (window, &width, &height);
   g_settings_set_int (self->settings, "window-width", width);
   g_settings_set_int (self->settings, "window-height", height);
@@ -622,6 +635,7 @@ lamina_window_dispose (GObject *object)
   if (self->cancellable != NULL)
     g_cancellable_cancel (self->cancellable);
   gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_WINDOW);
+  g_clear_pointer (&self->held_documents, g_hash_table_unref);
   g_clear_object (&self->selection);
   g_clear_object (&self->list);
   g_clear_object (&self->library);
@@ -728,9 +742,15 @@ lamina_window_new (GtkApplication    *application,
   gtk_widget_insert_after (GTK_WIDGET (self->change_banner),
                            gtk_widget_get_parent (GTK_WIDGET (self->banner_revealer)),
                            GTK_WIDGET (self->banner_revealer));
-  gtk_widget_insert_after (lamina_safety_bar_new (library),
-                           gtk_widget_get_parent (GTK_WIDGET (self->banner_revealer)),
-                           GTK_WIDGET (self->change_banner));
+  {
+    GtkWidget *safety_bar = lamina_safety_bar_new (library);
+
+    gtk_widget_insert_after (safety_bar, gtk_widget_get_parent (GTK_WIDGET (self->banner_revealer)),
+                             GTK_WIDGET (self->change_banner));
+    self->write_gate = LAMINA_WRITE_GATE (lamina_write_gate_new (library));
+    gtk_widget_insert_after (GTK_WIDGET (self->write_gate),
+                             gtk_widget_get_parent (GTK_WIDGET (self->banner_revealer)), safety_bar);
+  }
   setup_filters (self);
   update_count (self);
   lamina_jobs_page_set_library (self->jobs_page, library);

@@ -26,6 +26,10 @@ struct _LaminaDocument
   int                 base_revision;
   LaminaStatus        base_status;
   gboolean            unsaved;
+  /* A save was refused because another program holds the library's write
+   * lock: later edits are kept (not saved one by one) until
+   * lamina_document_save_held writes them all at once. */
+  gboolean            held;
 };
 
 G_DEFINE_FINAL_TYPE (LaminaDocument, lamina_document, G_TYPE_OBJECT)
@@ -39,6 +43,7 @@ enum {
 enum {
   CHANGED,
   NOTICE,
+  SAVE_BUSY,
   N_SIGNALS
 };
 
@@ -100,6 +105,11 @@ lamina_document_class_init (LaminaDocumentClass *klass)
    * revision, a failed save. */
   signals[NOTICE] = g_signal_new ("notice", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST,
                                   0, NULL, NULL, NULL, G_TYPE_NONE, 1, G_TYPE_STRING);
+  /* A save was refused because another program holds the library's write
+   * lock (LAMINA_LIBRARY_ERROR_BUSY): the edits are held from now on;
+   * the handler arranges for lamina_document_save_held. */
+  signals[SAVE_BUSY] = g_signal_new ("save-busy", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST,
+                                     0, NULL, NULL, NULL, G_TYPE_NONE, 0);
 }
 
 static void
@@ -155,10 +165,21 @@ save (LaminaDocument  *self,
   LaminaStatus was = self->base_status;
   int was_revision = self->base_revision;
 
+  if (self->held)
+    {
+      g_set_error_literal (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_BUSY,
+                           _("The edits wait for another program writing this library"));
+      return FALSE;
+    }
   if (!lamina_library_save_construction (self->library, copy, self->base_revision,
                                          self->author, &local_error))
     {
-      if (g_error_matches (local_error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE))
+      if (g_error_matches (local_error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_BUSY))
+        {
+          self->held = TRUE;
+          g_signal_emit (self, signals[SAVE_BUSY], 0);
+        }
+      else if (g_error_matches (local_error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE))
         set_conflict (self, local_error->message);
       else
         g_signal_emit (self, signals[NOTICE], 0, local_error->message);
@@ -385,6 +406,41 @@ lamina_document_redo (LaminaDocument *self)
   take_state (self, state);
   save (self, NULL);
   emit_changed (self);
+}
+
+gboolean
+lamina_document_save_held (LaminaDocument  *self,
+                           GError         **error)
+{
+  gboolean ok;
+
+  g_return_val_if_fail (LAMINA_IS_DOCUMENT (self), FALSE);
+  if (!self->held)
+    return TRUE;
+  self->held = FALSE;
+  if (!self->unsaved)
+    return TRUE;
+  /* BUSY again holds them again, without a second signal: the caller
+   * keeps waiting. */
+  g_signal_handlers_block_matched (self, G_SIGNAL_MATCH_ID, signals[SAVE_BUSY], 0, NULL, NULL, NULL);
+  ok = save (self, error);
+  g_signal_handlers_unblock_matched (self, G_SIGNAL_MATCH_ID, signals[SAVE_BUSY], 0, NULL, NULL, NULL);
+  emit_changed (self);
+  return ok;
+}
+
+void
+lamina_document_release_held (LaminaDocument *self)
+{
+  g_return_if_fail (LAMINA_IS_DOCUMENT (self));
+  self->held = FALSE;
+}
+
+gboolean
+lamina_document_is_held (LaminaDocument *self)
+{
+  g_return_val_if_fail (LAMINA_IS_DOCUMENT (self), FALSE);
+  return self->held;
 }
 
 gboolean

@@ -52,6 +52,15 @@ gboolean                  lamina_document_can_undo     (LaminaDocument      *sel
 gboolean                  lamina_document_can_redo     (LaminaDocument      *self);
 void                      lamina_document_undo         (LaminaDocument      *self);
 void                      lamina_document_redo         (LaminaDocument      *self);
+/* While another program holds the library's write lock: a save refused
+ * as BUSY emits "save-busy" and holds this and later edits (the state
+ * stays on screen, unsaved); _save_held writes them at once (FALSE with
+ * BUSY holds them again), _release_held lets the next change try again
+ * (the waiting was cancelled). */
+gboolean                  lamina_document_save_held    (LaminaDocument      *self,
+                                                        GError             **error);
+void                      lamina_document_release_held (LaminaDocument      *self);
+gboolean                  lamina_document_is_held      (LaminaDocument      *self);
 /* Conflict resolution: put this state on top of the newest revision, or
  * drop it and load the newest one. */
 gboolean                  lamina_document_keep_mine    (LaminaDocument      *self,
