@@ -18,9 +18,8 @@ struct _LaminaMoistureView
 {
   GtkWidget  parent_instance;
 
-  /* owned children */
-  GtkWidget *box;
-  /* borrowed (children of box) */
+  /* template */
+  GtkWidget      *box;
   GtkLabel       *status;
   GtkLabel       *details;
   GtkDropDown    *month;
@@ -82,7 +81,7 @@ lamina_moisture_view_dispose (GObject *object)
 {
   LaminaMoistureView *self = LAMINA_MOISTURE_VIEW (object);
 
-  g_clear_pointer (&self->box, gtk_widget_unparent);
+  gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_MOISTURE_VIEW);
   g_clear_pointer (&self->construction, lamina_construction_free);
   g_clear_pointer (&self->result, lamina_moisture_result_free);
   G_OBJECT_CLASS (lamina_moisture_view_parent_class)->dispose (object);
@@ -97,71 +96,33 @@ lamina_moisture_view_class_init (LaminaMoistureViewClass *klass)
   object_class->dispose = lamina_moisture_view_dispose;
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
   gtk_widget_class_set_css_name (widget_class, "moisture-view");
-}
-
-static GtkLabel *
-add_label (GtkBox *box)
-{
-  GtkWidget *label = gtk_label_new (NULL);
-
-  gtk_label_set_wrap (GTK_LABEL (label), TRUE);
-  gtk_label_set_xalign (GTK_LABEL (label), 0);
-  gtk_label_set_selectable (GTK_LABEL (label), TRUE);
-  gtk_box_append (box, label);
-  return GTK_LABEL (label);
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/example/Lamina/lamina-moisture-view.ui");
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, box);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, status);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, details);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, month);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, by_sd);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, plot);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, bars);
+  gtk_widget_class_bind_template_child (widget_class, LaminaMoistureView, warnings);
+  gtk_widget_class_bind_template_callback (widget_class, on_choice_changed_cb);
 }
 
 static void
 lamina_moisture_view_init (LaminaMoistureView *self)
 {
   const char *months[LAMINA_MONTHS + 1];
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6), *row, *heading;
+  g_autoptr(GtkStringList) names = NULL;
 
   self->limit = NAN;
-
+  gtk_widget_init_template (GTK_WIDGET (self));
   for (int m = 0; m < LAMINA_MONTHS; m++)
     months[m] = lamina_month_name (m + 1);
   months[LAMINA_MONTHS] = NULL;
-  gtk_widget_set_margin_start (box, 12);
-  gtk_widget_set_margin_end (box, 12);
-  gtk_widget_set_margin_top (box, 12);
-  gtk_widget_set_margin_bottom (box, 12);
-  self->box = box;
-  gtk_widget_set_parent (box, GTK_WIDGET (self));
-
-  self->status = add_label (GTK_BOX (box));
-  gtk_widget_add_css_class (GTK_WIDGET (self->status), "title-4");
-  self->details = add_label (GTK_BOX (box));
-
-  row = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-  self->month = GTK_DROP_DOWN (gtk_drop_down_new_from_strings (months));
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->month), _("Month plotted"));
-  self->by_sd = GTK_CHECK_BUTTON (gtk_check_button_new_with_mnemonic (_("Against _sd")));
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->by_sd),
-                               _("Plot against the cumulative sd (m) instead of the thickness"));
-  gtk_box_append (GTK_BOX (row), GTK_WIDGET (self->month));
-  gtk_box_append (GTK_BOX (row), GTK_WIDGET (self->by_sd));
-  gtk_box_append (GTK_BOX (box), row);
-  g_signal_connect_object (self->month, "notify::selected", G_CALLBACK (on_choice_changed_cb), self,
-                           G_CONNECT_SWAPPED);
-  g_signal_connect_object (self->by_sd, "toggled", G_CALLBACK (on_choice_changed_cb), self, G_CONNECT_SWAPPED);
-
-  self->plot = GTK_DRAWING_AREA (gtk_drawing_area_new ());
-  gtk_drawing_area_set_content_height (self->plot, 240);
-  gtk_widget_set_vexpand (GTK_WIDGET (self->plot), TRUE);
+  names = gtk_string_list_new (months);
+  gtk_drop_down_set_model (self->month, G_LIST_MODEL (names));
   gtk_drawing_area_set_draw_func (self->plot, draw_plot_cb, self, NULL);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (self->plot));
-
-  heading = gtk_label_new (_("Accumulated at each month's end, kg/m²"));
-  gtk_label_set_xalign (GTK_LABEL (heading), 0);
-  gtk_widget_add_css_class (heading, "dim-label");
-  gtk_box_append (GTK_BOX (box), heading);
-  self->bars = GTK_DRAWING_AREA (gtk_drawing_area_new ());
-  gtk_drawing_area_set_content_height (self->bars, 110);
   gtk_drawing_area_set_draw_func (self->bars, draw_bars_cb, self, NULL);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (self->bars));
-  self->warnings = add_label (GTK_BOX (box));
-  gtk_widget_add_css_class (GTK_WIDGET (self->warnings), "dim-label");
 }
 
 static void
