@@ -8,6 +8,10 @@
 
 #include "lamina-window.h"
 
+/* The one object-data key left in the window layer, and on purpose: the
+ * mark goes on windows of any class, GTK's own file and print dialogs
+ * among them, which have no field of ours to hold it.  Our own types keep
+ * their state in typed instance fields. */
 #define KEYS_DATA "lamina-close-keys"
 
 static void
