@@ -19,6 +19,7 @@
 #include "lamina-application.h"
 #include "lamina-demo.h"
 #include "lamina-derive-dialog-private.h"
+#include "lamina-editor-form-private.h"
 #include "lamina-construction-item.h"
 #include "lamina-editor-state.h"
 #include "lamina-close-keys.h"
@@ -1149,6 +1150,73 @@ test_ground_and_taper (Fixture       *f,
   g_test_message ("method page rendered to %s and %s", ground_png, taper_png);
 }
 
+/* The editor's dialogs: each shows its own rows of the form (rendered to
+ * PNGs for a look); a bad value is refused with the field named and
+ * nothing changed; a good one is applied as one edit.  A declared
+ * resistance is kept as given (EN ISO 6946 6.7.1 takes a product's
+ * declared R as it is, from memory); a well ventilated air layer is the
+ * kind chosen. */
+static void
+test_editor_dialogs (Fixture       *f,
+                     gconstpointer  data)
+{
+  static const char *const actions[] = { "choose-material", "add-layer", "make-bridged", "make-air",
+                                         "make-declared", "corrections" };
+  g_autoptr(GError) error = NULL;
+  LaminaEditor *editor = lamina_window_get_editor (f->window);
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  guint index = 0;
+  g_autofree char *id = find_plain_construction (f, &index);
+  LaminaEditorForm *form;
+  const LaminaLayer *layer;
+
+  g_assert_true (lamina_window_open (f->window, id, &error));
+  for (guint k = 0; k < G_N_ELEMENTS (actions); k++)
+    {
+      g_autofree char *action = g_strconcat ("editor.", actions[k], NULL);
+      g_autofree char *file = g_strdup_printf ("editor-dialog-%s.png", actions[k]);
+      g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", file, NULL);
+
+      lamina_section_view_set_selected (lamina_editor_get_section_view (editor), (int) index);
+      g_assert_true (gtk_widget_activate_action (GTK_WIDGET (editor), action, NULL));
+      form = LAMINA_EDITOR_FORM (find_other_window (f));
+      wait_for_draw (GTK_WIDGET (form));
+      /* Its own rows only: the chooser in the material dialogs, the
+       * thickness only when a layer is added. */
+      g_assert_cmpint (gtk_widget_get_visible (GTK_WIDGET (form->chooser)), ==, k <= 2);
+      g_assert_cmpint (gtk_widget_get_visible (GTK_WIDGET (form->thickness)), ==, k == 1);
+      g_assert_cmpint (gtk_widget_get_visible (GTK_WIDGET (form->resistance)), ==, k == 4);
+      settle (GTK_WIDGET (form), 200);
+      save_png (GTK_WIDGET (form), png);
+      gtk_window_destroy (GTK_WINDOW (form));
+    }
+
+  lamina_section_view_set_selected (lamina_editor_get_section_view (editor), (int) index);
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (editor), "editor.make-declared", NULL));
+  form = LAMINA_EDITOR_FORM (find_other_window (f));
+  gtk_editable_set_text (GTK_EDITABLE (form->resistance), "-1");
+  g_signal_emit_by_name (gtk_window_get_default_widget (GTK_WINDOW (form)), "clicked");
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (form->error_label)));
+  g_assert_nonnull (strstr (gtk_label_get_text (form->error_label), "thermal resistance"));
+  g_assert_true (gtk_widget_has_css_class (GTK_WIDGET (form->resistance), "error"));
+  layer = open_state (f)->layers->pdata[index];
+  g_assert_cmpint (layer->kind, ==, LAMINA_LAYER_MATERIAL);
+  gtk_editable_set_text (GTK_EDITABLE (form->resistance), "0.35");
+  g_signal_emit_by_name (gtk_window_get_default_widget (GTK_WINDOW (form)), "clicked");
+  layer = open_state (f)->layers->pdata[index];
+  g_assert_cmpint (layer->kind, ==, LAMINA_LAYER_RESISTANCE);
+  g_assert_cmpfloat (layer->resistance, ==, 0.35);
+
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (editor), "editor.make-air", NULL));
+  form = LAMINA_EDITOR_FORM (find_other_window (f));
+  gtk_drop_down_set_selected (form->ventilation, LAMINA_AIR_WELL_VENTILATED);
+  g_signal_emit_by_name (gtk_window_get_default_widget (GTK_WINDOW (form)), "clicked");
+  layer = open_state (f)->layers->pdata[index];
+  g_assert_cmpint (layer->kind, ==, LAMINA_LAYER_AIR);
+  g_assert_cmpint (layer->air, ==, LAMINA_AIR_WELL_VENTILATED);
+  g_assert_null (find_other_window (f));
+}
+
 static void
 test_construction_properties (Fixture       *f,
                               gconstpointer  data)
@@ -1812,6 +1880,7 @@ main (int   argc,
       g_test_add ("/app/window/derive-delete-undo", Fixture, NULL, fixture_setup, test_derive_delete_undo, fixture_teardown);
       g_test_add ("/app/window/construction-properties", Fixture, NULL, fixture_setup, test_construction_properties, fixture_teardown);
       g_test_add ("/app/window/ground-and-taper", Fixture, NULL, fixture_setup, test_ground_and_taper, fixture_teardown);
+      g_test_add ("/app/window/editor-dialogs", Fixture, NULL, fixture_setup, test_editor_dialogs, fixture_teardown);
       g_test_add ("/app/window/bridged-parts", Fixture, NULL, fixture_setup, test_bridged_parts, fixture_teardown);
       g_test_add ("/app/window/compare-revisions", Fixture, NULL, fixture_setup, test_compare_revisions, fixture_teardown);
       g_test_add ("/app/window/review-dialogs", Fixture, NULL, fixture_setup, test_review_dialogs, fixture_teardown);
