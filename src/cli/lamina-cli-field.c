@@ -91,6 +91,67 @@ write_png (const LaminaConstruction *c,
   return TRUE;
 }
 
+/* The constructions of a catalogue file: all, or the one of id @id. */
+static int
+collect_from_file (const char *source,
+                   const char *id,
+                   GPtrArray  *constructions)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (source, &error);
+
+  if (catalogue == NULL)
+    {
+      fprintf (stderr, "%s\n", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  for (guint i = 0; i < catalogue->constructions->len; i++)
+    {
+      const LaminaConstruction *c = catalogue->constructions->pdata[i];
+      if (id == NULL || g_strcmp0 (id, c->id) == 0)
+        g_ptr_array_add (constructions, lamina_construction_copy (c));
+    }
+  if (id != NULL && constructions->len == 0)
+    {
+      fprintf (stderr, _("%s: no construction with id “%s”\n"), source, id);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  return LAMINA_EXIT_OK;
+}
+
+/* The library's construction @source (its latest revision); the library
+ * is handed back in @store, where the check is kept. */
+static int
+collect_from_library (const LaminaCliGlobals *globals,
+                      const char             *source,
+                      const char             *id,
+                      GPtrArray              *constructions,
+                      LaminaLibrary         **store)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) library = NULL;
+  g_autofree char *key = NULL;
+  LaminaConstruction *c;
+
+  if (id != NULL)
+    {
+      lamina_cli_error (_("--id goes with a catalogue file; give the library's construction id alone"));
+      return LAMINA_EXIT_USAGE;
+    }
+  library = lamina_cli_open_library (globals, FALSE);
+  if (library == NULL || (key = lamina_cli_resolve_id (library, source)) == NULL)
+    return LAMINA_EXIT_BAD_INPUT;
+  c = lamina_library_dup_construction (library, key, 0, &error);
+  if (c == NULL)
+    {
+      lamina_cli_error ("%s", error->message);
+      return LAMINA_EXIT_BAD_INPUT;
+    }
+  g_ptr_array_add (constructions, c);
+  *store = g_steal_pointer (&library);
+  return LAMINA_EXIT_OK;
+}
+
 int
 lamina_cli_field (const LaminaCliGlobals *globals,
                   int                     argc,
@@ -113,6 +174,7 @@ lamina_cli_field (const LaminaCliGlobals *globals,
   g_autoptr(LaminaLibrary) store = NULL;
   const char *source;
   gboolean from_file;
+  int status;
 
   g_option_context_add_main_entries (context, entries, GETTEXT_PACKAGE);
   if (!lamina_cli_parse (context, &argc, &argv))
@@ -126,50 +188,10 @@ lamina_cli_field (const LaminaCliGlobals *globals,
   source = argv[1];
   from_file = g_str_has_suffix (source, ".xml") || g_file_test (source, G_FILE_TEST_IS_REGULAR);
 
-  if (from_file)
-    {
-      g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (source, &error);
-
-      if (catalogue == NULL)
-        {
-          fprintf (stderr, "%s\n", error->message);
-          return LAMINA_EXIT_BAD_INPUT;
-        }
-      for (guint i = 0; i < catalogue->constructions->len; i++)
-        {
-          const LaminaConstruction *c = catalogue->constructions->pdata[i];
-          if (id == NULL || g_strcmp0 (id, c->id) == 0)
-            g_ptr_array_add (constructions, lamina_construction_copy (c));
-        }
-      if (id != NULL && constructions->len == 0)
-        {
-          fprintf (stderr, _("%s: no construction with id “%s”\n"), source, id);
-          return LAMINA_EXIT_BAD_INPUT;
-        }
-    }
-  else
-    {
-      g_autoptr(LaminaLibrary) library = NULL;
-      g_autofree char *key = NULL;
-      LaminaConstruction *c;
-
-      if (id != NULL)
-        {
-          lamina_cli_error (_("--id goes with a catalogue file; give the library's construction id alone"));
-          return LAMINA_EXIT_USAGE;
-        }
-      library = lamina_cli_open_library (globals, FALSE);
-      if (library == NULL || (key = lamina_cli_resolve_id (library, source)) == NULL)
-        return LAMINA_EXIT_BAD_INPUT;
-      c = lamina_library_dup_construction (library, key, 0, &error);
-      if (c == NULL)
-        {
-          lamina_cli_error ("%s", error->message);
-          return LAMINA_EXIT_BAD_INPUT;
-        }
-      g_ptr_array_add (constructions, c);
-      store = g_steal_pointer (&library);
-    }
+  status = from_file ? collect_from_file (source, id, constructions)
+                     : collect_from_library (globals, source, id, constructions, &store);
+  if (status != LAMINA_EXIT_OK)
+    return status;
   if (png != NULL && constructions->len != 1)
     {
       lamina_cli_error (_("--png draws one construction: name it with --id"));

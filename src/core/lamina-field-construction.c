@@ -434,6 +434,93 @@ coldest_inner_node (const LaminaFieldSolution *s,
   return min;
 }
 
+/* The layers the check covers: those inside the first well ventilated
+ * air layer (EN ISO 6946 6.9.4), said in a note.  Slightly ventilated air
+ * layers are refused, as is a build-up with nothing inside the cut. */
+static gboolean
+find_cut (const LaminaConstruction *c,
+          GPtrArray                *notes,
+          guint                    *cut_out,
+          GError                  **error)
+{
+  guint cut = c->layers->len;
+
+  for (guint i = 0; i < c->layers->len && cut == c->layers->len; i++)
+    {
+      const LaminaLayer *layer = c->layers->pdata[i];
+
+      if (layer->kind != LAMINA_LAYER_AIR)
+        continue;
+      switch (lamina_air_layer_effective_kind (layer))
+        {
+        case LAMINA_AIR_WELL_VENTILATED:
+          cut = i;
+          g_ptr_array_add (notes,
+                           g_strdup_printf (_("Layer %u is a well ventilated air layer: it and the layers outside "
+                                              "it are left out and Rse is taken as Rsi (EN ISO 6946 6.9.4)."), i + 1));
+          break;
+        case LAMINA_AIR_SLIGHTLY_VENTILATED:
+          g_set_error (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_UNSUPPORTED,
+                       _("layer %u: the 2-D check does not cover slightly ventilated air layers; "
+                         "calculate the build-up with the layer unventilated and well ventilated"), i + 1);
+          return FALSE;
+        case LAMINA_AIR_UNVENTILATED:
+        case LAMINA_N_AIR_KINDS:
+        default:
+          break;
+        }
+    }
+  if (cut == 0)
+    {
+      g_set_error_literal (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_UNSUPPORTED,
+                           _("nothing is left to calculate inside the well ventilated air layer"));
+      return FALSE;
+    }
+  *cut_out = cut;
+  return TRUE;
+}
+
+/* The result's figures from the solved fields (in temperature factors):
+ * U with the Annex F corrections, the coldest inner surface at Rsi and at
+ * the mould criterion's Rsi; then the field in °C. */
+static void
+fill_figures (LaminaFieldResult         *result,
+              const LaminaConstruction  *c,
+              const LaminaResult        *r6946,
+              double                     width,
+              double                     height,
+              const LaminaFieldSolution *mould)
+{
+  double dt = c->inside_temperature - c->outside_temperature, theta;
+  guint coldest = 0;
+
+  result->inside_temperature = c->inside_temperature;
+  result->outside_temperature = c->outside_temperature;
+  result->module_width = width;
+  result->thickness = height;
+  result->cells = lamina_field_solution_get_cells (result->field);
+  result->u_field = result->field->heat_flow[LAMINA_FIELD_SIDE_BOTTOM] / (width / 1000.0);
+  result->u = result->u_field + r6946->delta_u;
+  result->u_6946 = r6946->u_corrected;
+  if (r6946->delta_u > 0)
+    g_ptr_array_add (result->notes,
+                     g_strdup_printf (_("U includes the EN ISO 6946 Annex F corrections, ΔU = %.3f W/(m²·K)."),
+                                      r6946->delta_u));
+  result->heat_flow = result->field->heat_flow[LAMINA_FIELD_SIDE_BOTTOM] * dt;
+  theta = coldest_inner_node (result->field, &coldest);
+  result->f_rsi = theta;
+  result->min_inner_surface_temperature = c->outside_temperature + dt * theta;
+  result->min_inner_surface_position = result->field->x[coldest] * 1000.0;
+  result->f_rsi_mould = coldest_inner_node (mould, NULL);
+  result->min_inner_surface_temperature_mould = c->outside_temperature + dt * result->f_rsi_mould;
+
+  /* The field in °C for the picture and the probes. */
+  for (gsize p = 0; p < (gsize) result->field->nx * result->field->ny; p++)
+    result->field->t[p] = c->outside_temperature + dt * result->field->t[p];
+  for (guint k = 0; k < LAMINA_FIELD_N_SIDES; k++)
+    result->field->heat_flow[k] *= dt;
+}
+
 LaminaFieldResult *
 lamina_field_calculate (const LaminaConstruction *construction,
                         guint                     max_nodes,
@@ -452,8 +539,8 @@ lamina_field_calculate (const LaminaConstruction *construction,
   g_autoptr (GArray) lambda = g_array_new (FALSE, FALSE, sizeof (double));
   Build b = { 0 };
   LaminaProgressShare share = { progress, user_data, 0.0, 0.85 };
-  double height, dt, theta;
-  guint coldest = 0, cut;
+  double height;
+  guint cut;
 
   g_return_val_if_fail (c != NULL, NULL);
 
@@ -463,38 +550,8 @@ lamina_field_calculate (const LaminaConstruction *construction,
   result = g_new0 (LaminaFieldResult, 1);
   result->notes = g_ptr_array_new_with_free_func (g_free);
 
-  cut = c->layers->len;
-  for (guint i = 0; i < c->layers->len && cut == c->layers->len; i++)
-    {
-      const LaminaLayer *layer = c->layers->pdata[i];
-
-      if (layer->kind != LAMINA_LAYER_AIR)
-        continue;
-      switch (lamina_air_layer_effective_kind (layer))
-        {
-        case LAMINA_AIR_WELL_VENTILATED:
-          cut = i;
-          g_ptr_array_add (result->notes,
-                           g_strdup_printf (_("Layer %u is a well ventilated air layer: it and the layers outside "
-                                              "it are left out and Rse is taken as Rsi (EN ISO 6946 6.9.4)."), i + 1));
-          break;
-        case LAMINA_AIR_SLIGHTLY_VENTILATED:
-          g_set_error (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_UNSUPPORTED,
-                       _("layer %u: the 2-D check does not cover slightly ventilated air layers; "
-                         "calculate the build-up with the layer unventilated and well ventilated"), i + 1);
-          return NULL;
-        case LAMINA_AIR_UNVENTILATED:
-        case LAMINA_N_AIR_KINDS:
-        default:
-          break;
-        }
-    }
-  if (cut == 0)
-    {
-      g_set_error_literal (error, LAMINA_CALC_ERROR, LAMINA_CALC_ERROR_UNSUPPORTED,
-                           _("nothing is left to calculate inside the well ventilated air layer"));
-      return NULL;
-    }
+  if (!find_cut (c, result->notes, &cut, error))
+    return NULL;
 
   in_plane = g_new0 (gboolean, c->layers->len);
   b = (Build) { c, r6946, cut, in_plane, slots, -1, 0.0, regions, lambda, result->notes };
@@ -535,33 +592,7 @@ lamina_field_calculate (const LaminaConstruction *construction,
   if (mould == NULL)
     return NULL;
 
-  dt = c->inside_temperature - c->outside_temperature;
-  result->inside_temperature = c->inside_temperature;
-  result->outside_temperature = c->outside_temperature;
-  result->module_width = b.width;
-  result->thickness = height;
-  result->cells = lamina_field_solution_get_cells (result->field);
-  result->u_field = result->field->heat_flow[LAMINA_FIELD_SIDE_BOTTOM] / (b.width / 1000.0);
-  result->u = result->u_field + r6946->delta_u;
-  result->u_6946 = r6946->u_corrected;
-  if (r6946->delta_u > 0)
-    g_ptr_array_add (result->notes,
-                     g_strdup_printf (_("U includes the EN ISO 6946 Annex F corrections, ΔU = %.3f W/(m²·K)."),
-                                      r6946->delta_u));
-  result->heat_flow = result->field->heat_flow[LAMINA_FIELD_SIDE_BOTTOM] * dt;
-  theta = coldest_inner_node (result->field, &coldest);
-  result->f_rsi = theta;
-  result->min_inner_surface_temperature = c->outside_temperature + dt * theta;
-  result->min_inner_surface_position = result->field->x[coldest] * 1000.0;
-  result->f_rsi_mould = coldest_inner_node (mould, NULL);
-  result->min_inner_surface_temperature_mould = c->outside_temperature + dt * result->f_rsi_mould;
-
-  /* The field in °C for the picture and the probes. */
-  for (gsize p = 0; p < (gsize) result->field->nx * result->field->ny; p++)
-    result->field->t[p] = c->outside_temperature + dt * result->field->t[p];
-  for (guint k = 0; k < LAMINA_FIELD_N_SIDES; k++)
-    result->field->heat_flow[k] *= dt;
-
+  fill_figures (result, c, r6946, b.width, height, mould);
   result->n_regions = regions->len;
   result->regions = (LaminaFieldRegion *) g_array_free (g_steal_pointer (&regions), FALSE);
   return g_steal_pointer (&result);

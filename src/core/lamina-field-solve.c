@@ -421,27 +421,17 @@ add_boundary (const LaminaFieldModel *model,
   sys->ge[p * 2 + (side >= LAMINA_FIELD_SIDE_LEFT)] += length / b->resistance;
 }
 
+/* The conductances between neighbouring nodes, summed over the half
+ * cells beside each link (exact for cell-wise materials), and the
+ * boundaries' conductances or held temperatures. */
 static void
-build_system (const LaminaFieldModel    *model,
-              const LaminaFieldSolution *s,
-              System                    *sys)
+add_conductances (const LaminaFieldModel    *model,
+                  const LaminaFieldSolution *s,
+                  System                    *sys)
 {
   guint nx = s->nx, ny = s->ny, cx = nx - 1;
   const double *lx = (const double *) model->lambda_x->data;
   const double *ly = (const double *) model->lambda_y->data;
-
-  sys->nx = nx;
-  sys->ny = ny;
-  sys->n = (gsize) nx * ny;
-  sys->ce = g_new0 (double, sys->n);
-  sys->cn = g_new0 (double, sys->n);
-  sys->diag = g_new0 (double, sys->n);
-  sys->rhs = g_new0 (double, sys->n);
-  /* Two boundary conductances per node: one for bottom/top, one for left/right. */
-  sys->ge = g_new0 (double, sys->n * 2);
-  sys->te = g_new0 (double, sys->n);
-  sys->fixed = g_new0 (guint8, sys->n);
-  sys->side_of = g_new0 (guint8, sys->n);
 
   for (guint j = 0; j < ny; j++)
     for (guint i = 0; i < nx; i++)
@@ -479,6 +469,14 @@ build_system (const LaminaFieldModel    *model,
         if (i + 1 == nx)
           add_boundary (model, sys, s, LAMINA_FIELD_SIDE_RIGHT, p, (hyb + hyt) / 2);
       }
+}
+
+/* Held nodes are their own equation (T = te): their links leave the
+ * symmetric matrix and go to the right-hand side of their neighbours. */
+static void
+hold_fixed_nodes (System *sys)
+{
+  gsize nx = sys->nx;
 
   /* The environment temperature of Robin nodes (sides meeting at a Robin
    * corner have their own temperatures, so keep g·T per node). */
@@ -503,6 +501,16 @@ build_system (const LaminaFieldModel    *model,
             sys->sn[p - nx] = 0.0;
         }
     }
+}
+
+/* Each free node's diagonal: the sum of its conductances, with the held
+ * neighbours' and the environments' temperatures on the right. */
+static void
+add_diagonal (const LaminaFieldModel *model,
+              System                 *sys)
+{
+  guint nx = sys->nx, ny = sys->ny;
+
   for (guint j = 0; j < ny; j++)
     for (guint i = 0; i < nx; i++)
       {
@@ -551,6 +559,28 @@ build_system (const LaminaFieldModel    *model,
           }
         sys->diag[p] = d;
       }
+}
+
+static void
+build_system (const LaminaFieldModel    *model,
+              const LaminaFieldSolution *s,
+              System                    *sys)
+{
+  sys->nx = s->nx;
+  sys->ny = s->ny;
+  sys->n = (gsize) s->nx * s->ny;
+  sys->ce = g_new0 (double, sys->n);
+  sys->cn = g_new0 (double, sys->n);
+  sys->diag = g_new0 (double, sys->n);
+  sys->rhs = g_new0 (double, sys->n);
+  /* Two boundary conductances per node: one for bottom/top, one for left/right. */
+  sys->ge = g_new0 (double, sys->n * 2);
+  sys->te = g_new0 (double, sys->n);
+  sys->fixed = g_new0 (guint8, sys->n);
+  sys->side_of = g_new0 (guint8, sys->n);
+  add_conductances (model, s, sys);
+  hold_fixed_nodes (sys);
+  add_diagonal (model, sys);
 }
 
 static void

@@ -216,6 +216,148 @@ trace_isotherm (cairo_t                   *cr,
       }
 }
 
+static void
+draw_isotherms (cairo_t                   *cr,
+                const LaminaFieldSolution *s,
+                const Frame               *f,
+                double                     t_low,
+                double                     t_high,
+                double                     step,
+                double                     unit)
+{
+  cairo_save (cr);
+  cairo_rectangle (cr, f->x, f->y, f->w, f->h);
+  cairo_clip (cr);
+  cairo_set_line_width (cr, MAX (0.06 * unit, 0.5));
+  cairo_set_source_rgba (cr, 0.1, 0.1, 0.12, 0.55);
+  for (double level = ceil (t_low / step) * step; level <= t_high + 1e-9; level += step)
+    {
+      if (level <= t_low + 1e-9 || level >= t_high - 1e-9)
+        continue;
+      trace_isotherm (cr, s, f, level);
+      cairo_stroke (cr);
+    }
+  cairo_restore (cr);
+}
+
+/* Material boundaries, then the module outline. */
+static void
+draw_outlines (cairo_t                 *cr,
+               const LaminaFieldResult *field,
+               const Frame             *f,
+               double                   unit)
+{
+  cairo_set_line_width (cr, MAX (0.05 * unit, 0.4));
+  cairo_set_source_rgba (cr, 1, 1, 1, 0.7);
+  for (guint k = 0; k < field->n_regions; k++)
+    {
+      const LaminaFieldRegion *r = &field->regions[k];
+      double x0 = frame_x (f, r->x0 / 1000.0), x1 = frame_x (f, r->x1 / 1000.0);
+      double y0 = frame_y (f, r->y0 / 1000.0), y1 = frame_y (f, r->y1 / 1000.0);
+      cairo_rectangle (cr, x0, y1, x1 - x0, y0 - y1);
+    }
+  cairo_stroke (cr);
+  cairo_set_line_width (cr, MAX (0.14 * unit, 1.0));
+  cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
+  cairo_rectangle (cr, f->x, f->y, f->w, f->h);
+  cairo_stroke (cr);
+}
+
+/* The coldest point of the inner surface, with its figures. */
+static void
+draw_coldest_point (Painter                 *p,
+                    const LaminaFieldResult *field,
+                    const Frame             *f,
+                    gboolean                 narrow)
+{
+  cairo_t *cr = p->cr;
+  double unit = p->unit;
+  double cx = frame_x (f, field->min_inner_surface_position / 1000.0), cy = f->y + f->h;
+  g_autofree char *coldest = NULL;
+
+  cairo_arc (cr, cx, cy, 0.45 * unit, 0, 2 * G_PI);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_fill_preserve (cr);
+  cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
+  cairo_set_line_width (cr, MAX (0.1 * unit, 0.8));
+  cairo_stroke (cr);
+  /* TRANSLATORS: the coldest inner surface temperature and its temperature factor */
+  coldest = g_strdup_printf (_("θsi,min %.1f °C · fRsi %.2f (Rsi 0.25: %.2f)"),
+                             field->min_inner_surface_temperature, field->f_rsi, field->f_rsi_mould);
+  if (narrow)
+    text (p, coldest, f->x, cy + 0.8 * unit, 0.0, 0.0, FALSE);
+  else
+    text (p, coldest, CLAMP (cx, f->x + 12 * unit, f->x + f->w - 12 * unit), cy + 0.8 * unit, 0.5, 0.0, FALSE);
+}
+
+/* Sides, module and the title with both U. */
+static void
+draw_captions (Painter                  *p,
+               const LaminaConstruction *construction,
+               const LaminaFieldResult  *field,
+               const Frame              *f,
+               double                    x,
+               double                    y,
+               gboolean                  narrow)
+{
+  double unit = p->unit;
+  g_autofree char *title = NULL, *outside = NULL, *inside = NULL, *module = NULL;
+
+  outside = g_strdup_printf (_("outside %.0f °C, Rse %.2f"), field->outside_temperature, field->rse);
+  inside = g_strdup_printf (_("inside %.0f °C, Rsi %.2f"), field->inside_temperature, field->rsi);
+  text (p, outside, f->x, f->y - 0.3 * unit, 0.0, 1.0, FALSE);
+  text (p, inside, f->x, f->y + f->h + 2.3 * unit, 0.0, 0.0, FALSE);
+  /* TRANSLATORS: module width in mm, grid cells */
+  module = g_strdup_printf (_("module %.0f mm · %u cells"), field->module_width, field->cells);
+  if (narrow)
+    text (p, module, f->x, f->y + f->h + 3.7 * unit, 0.0, 0.0, FALSE);
+  else
+    text (p, module, f->x + f->w, f->y + f->h + 2.3 * unit, 1.0, 0.0, FALSE);
+  if (narrow)
+    title = g_strdup_printf (_("U %.3f (2-D) · %.3f (EN ISO 6946)"), field->u, field->u_6946);
+  else
+    title = g_strdup_printf (_("%s — 2-D check (EN ISO 10211): U %.3f W/(m²·K); EN ISO 6946: %.3f"),
+                             construction->code ? construction->code : construction->id, field->u, field->u_6946);
+  text (p, title, x + unit, y + 0.4 * unit, 0.0, 0.0, TRUE);
+}
+
+/* The colour key beside the module, with the isotherm levels. */
+static void
+draw_key (Painter     *p,
+          const Frame *f,
+          double       key_x,
+          double       t_low,
+          double       t_high,
+          double       step)
+{
+  cairo_t *cr = p->cr;
+  double unit = p->unit, key_y = f->y, key_h = f->h, label_step = step;
+
+  for (int k = 0; k < 100; k++)
+    {
+      double red, green, blue;
+      lamina_field_colour ((k + 0.5) / 100.0, &red, &green, &blue);
+      cairo_set_source_rgb (cr, red, green, blue);
+      cairo_rectangle (cr, key_x, key_y + key_h * (1.0 - (k + 1) / 100.0), 1.2 * unit, key_h / 100.0 + 0.5);
+      cairo_fill (cr);
+    }
+  cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
+  cairo_set_line_width (cr, MAX (0.05 * unit, 0.5));
+  cairo_rectangle (cr, key_x, key_y, 1.2 * unit, key_h);
+  cairo_stroke (cr);
+  while ((t_high - t_low) / label_step > 8.0)
+    label_step *= 2;
+  for (double level = ceil (t_low / label_step) * label_step; level <= t_high + 1e-9; level += label_step)
+    {
+      g_autofree char *label = g_strdup_printf ("%g °C", fabs (level) < 1e-9 ? 0.0 : level);
+      double ly = key_y + key_h * (1.0 - (level - t_low) / (t_high - t_low));
+      cairo_move_to (cr, key_x + 1.2 * unit, ly);
+      cairo_line_to (cr, key_x + 1.6 * unit, ly);
+      cairo_stroke (cr);
+      text (p, label, key_x + 1.8 * unit, ly, 0.0, 0.5, FALSE);
+    }
+}
+
 void
 lamina_field_draw (cairo_t                  *cr,
                    const LaminaConstruction *construction,
@@ -233,8 +375,6 @@ lamina_field_draw (cairo_t                  *cr,
   /* Narrow (a side panel): the labels under the module stack up. */
   gboolean narrow = width < 45 * unit;
   double key_w = 6 * unit, top = 3.2 * unit, bottom = (narrow ? 5.8 : 4.4) * unit, room_w, room_h, scale, step;
-  double key_x, key_y, key_h;
-  g_autofree char *title = NULL, *outside = NULL, *inside = NULL, *module = NULL, *coldest = NULL;
 
   if (t_high < t_low)
     {
@@ -259,108 +399,13 @@ lamina_field_draw (cairo_t                  *cr,
   cairo_set_source_rgb (cr, 1, 1, 1);
   cairo_rectangle (cr, x, y, width, height);
   cairo_fill (cr);
-
   paint_field (cr, s, &f, t_low, t_high);
-
-  /* Isotherms. */
   step = lamina_field_isotherm_step (t_high - t_low);
-  cairo_save (cr);
-  cairo_rectangle (cr, f.x, f.y, f.w, f.h);
-  cairo_clip (cr);
-  cairo_set_line_width (cr, MAX (0.06 * unit, 0.5));
-  cairo_set_source_rgba (cr, 0.1, 0.1, 0.12, 0.55);
-  for (double level = ceil (t_low / step) * step; level <= t_high + 1e-9; level += step)
-    {
-      if (level <= t_low + 1e-9 || level >= t_high - 1e-9)
-        continue;
-      trace_isotherm (cr, s, &f, level);
-      cairo_stroke (cr);
-    }
-  cairo_restore (cr);
-
-  /* Material boundaries, then the module outline. */
-  cairo_set_line_width (cr, MAX (0.05 * unit, 0.4));
-  cairo_set_source_rgba (cr, 1, 1, 1, 0.7);
-  for (guint k = 0; k < field->n_regions; k++)
-    {
-      const LaminaFieldRegion *r = &field->regions[k];
-      double x0 = frame_x (&f, r->x0 / 1000.0), x1 = frame_x (&f, r->x1 / 1000.0);
-      double y0 = frame_y (&f, r->y0 / 1000.0), y1 = frame_y (&f, r->y1 / 1000.0);
-      cairo_rectangle (cr, x0, y1, x1 - x0, y0 - y1);
-    }
-  cairo_stroke (cr);
-  cairo_set_line_width (cr, MAX (0.14 * unit, 1.0));
-  cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
-  cairo_rectangle (cr, f.x, f.y, f.w, f.h);
-  cairo_stroke (cr);
-
-  /* The coldest point of the inner surface. */
-  {
-    double cx = frame_x (&f, field->min_inner_surface_position / 1000.0), cy = f.y + f.h;
-
-    cairo_arc (cr, cx, cy, 0.45 * unit, 0, 2 * G_PI);
-    cairo_set_source_rgb (cr, 1, 1, 1);
-    cairo_fill_preserve (cr);
-    cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
-    cairo_set_line_width (cr, MAX (0.1 * unit, 0.8));
-    cairo_stroke (cr);
-    /* TRANSLATORS: the coldest inner surface temperature and its temperature factor */
-    coldest = g_strdup_printf (_("θsi,min %.1f °C · fRsi %.2f (Rsi 0.25: %.2f)"),
-                               field->min_inner_surface_temperature, field->f_rsi, field->f_rsi_mould);
-    if (narrow)
-      text (&p, coldest, f.x, cy + 0.8 * unit, 0.0, 0.0, FALSE);
-    else
-      text (&p, coldest, CLAMP (cx, f.x + 12 * unit, f.x + f.w - 12 * unit), cy + 0.8 * unit, 0.5, 0.0, FALSE);
-  }
-
-  /* Sides and figures. */
-  outside = g_strdup_printf (_("outside %.0f °C, Rse %.2f"), field->outside_temperature, field->rse);
-  inside = g_strdup_printf (_("inside %.0f °C, Rsi %.2f"), field->inside_temperature, field->rsi);
-  text (&p, outside, f.x, f.y - 0.3 * unit, 0.0, 1.0, FALSE);
-  text (&p, inside, f.x, f.y + f.h + 2.3 * unit, 0.0, 0.0, FALSE);
-  /* TRANSLATORS: module width in mm, grid cells */
-  module = g_strdup_printf (_("module %.0f mm · %u cells"), field->module_width, field->cells);
-  if (narrow)
-    text (&p, module, f.x, f.y + f.h + 3.7 * unit, 0.0, 0.0, FALSE);
-  else
-    text (&p, module, f.x + f.w, f.y + f.h + 2.3 * unit, 1.0, 0.0, FALSE);
-  if (narrow)
-    title = g_strdup_printf (_("U %.3f (2-D) · %.3f (EN ISO 6946)"), field->u, field->u_6946);
-  else
-    title = g_strdup_printf (_("%s — 2-D check (EN ISO 10211): U %.3f W/(m²·K); EN ISO 6946: %.3f"),
-                             construction->code ? construction->code : construction->id, field->u, field->u_6946);
-  text (&p, title, x + unit, y + 0.4 * unit, 0.0, 0.0, TRUE);
-
-  /* The colour key with the isotherm levels. */
-  key_x = x + width - key_w + 0.5 * unit;
-  key_y = f.y;
-  key_h = f.h;
-  for (int k = 0; k < 100; k++)
-    {
-      double red, green, blue;
-      lamina_field_colour ((k + 0.5) / 100.0, &red, &green, &blue);
-      cairo_set_source_rgb (cr, red, green, blue);
-      cairo_rectangle (cr, key_x, key_y + key_h * (1.0 - (k + 1) / 100.0), 1.2 * unit, key_h / 100.0 + 0.5);
-      cairo_fill (cr);
-    }
-  cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
-  cairo_set_line_width (cr, MAX (0.05 * unit, 0.5));
-  cairo_rectangle (cr, key_x, key_y, 1.2 * unit, key_h);
-  cairo_stroke (cr);
-  {
-    double label_step = step;
-    while ((t_high - t_low) / label_step > 8.0)
-      label_step *= 2;
-    for (double level = ceil (t_low / label_step) * label_step; level <= t_high + 1e-9; level += label_step)
-      {
-        g_autofree char *label = g_strdup_printf ("%g °C", fabs (level) < 1e-9 ? 0.0 : level);
-        double ly = key_y + key_h * (1.0 - (level - t_low) / (t_high - t_low));
-        cairo_move_to (cr, key_x + 1.2 * unit, ly);
-        cairo_line_to (cr, key_x + 1.6 * unit, ly);
-        cairo_stroke (cr);
-        text (&p, label, key_x + 1.8 * unit, ly, 0.0, 0.5, FALSE);
-      }
-  }
+  draw_isotherms (cr, s, &f, t_low, t_high, step, unit);
+  draw_outlines (cr, field, &f, unit);
+  draw_coldest_point (&p, field, &f, narrow);
+  draw_captions (&p, construction, field, &f, x, y, narrow);
+  draw_key (&p, &f, x + width - key_w + 0.5 * unit, t_low, t_high, step);
   cairo_restore (cr);
 }
 
