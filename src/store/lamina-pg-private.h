@@ -31,6 +31,8 @@ typedef struct
   gboolean       limit_read;   /* moisture_limit holds the setting, read in
                                 * this transaction (an import reads it once) */
   double         moisture_limit;
+  gboolean       pipeline;     /* lamina_pg_run sends without waiting */
+  GPtrArray     *pending;      /* what the pipeline still owes */
   gboolean       codes_locked; /* this transaction holds the office-code
                                 * lock exclusively (an import) */
 } LaminaPg;
@@ -67,6 +69,16 @@ void          lamina_pg_set_error      (LaminaPg        *self,
                                         const PGresult  *res,
                                         const char      *what,
                                         GError         **error);
+
+/* Pipeline mode (libpq 14 and later), for writes of many rows: from
+ * begin to end, lamina_pg_run sends its statement and returns, and the
+ * results are read a batch at a time (sync); a failure shows at the next
+ * sync or at the end, and the transaction is then rolled back whole as
+ * always.  lamina_pg_query and lamina_pg_exec cannot be used meanwhile.
+ * end with @ok FALSE only reads what is owed and leaves the mode. */
+gboolean      lamina_pg_pipeline_begin (LaminaPg *self, GError **error);
+gboolean      lamina_pg_pipeline_sync  (LaminaPg *self, GError **error);
+gboolean      lamina_pg_pipeline_end   (LaminaPg *self, gboolean ok, GError **error);
 
 typedef gboolean (*LaminaPgTxnFunc) (LaminaPg *self, gpointer data, GError **error);
 /* BEGIN, @func, COMMIT; rolled back on failure, run again (a few times)

@@ -250,24 +250,35 @@ lamina_pg_index_revision (LaminaPg                  *self,
     params, "cannot store the tags", error);
 }
 
+/* The construction's "a material changed" flag from its revision's
+ * materials. */
 static gboolean
-refresh_material_changed (LaminaPg                  *self,
-                          const LaminaConstruction  *c,
-                          GError                   **error)
+refresh_material_flag (LaminaPg                  *self,
+                       const LaminaConstruction  *c,
+                       GError                   **error)
 {
   g_autoptr(GPtrArray) params = lamina_pg_params_new ();
 
   lamina_pg_add_text (params, c->id);
   lamina_pg_add_int (params, c->revision);
-  if (!lamina_pg_run (self,
-        "UPDATE construction SET material_changed = EXISTS ("
-        "    SELECT 1 FROM revision_material rm JOIN material m ON m.id = rm.material_id"
-        "     WHERE rm.construction_id = $1 AND rm.revision = $2"
-        "       AND m.fingerprint <> rm.fingerprint)"
-        " WHERE id = $1",
-        params, "cannot update the library", error))
-    return FALSE;
-  return c->moisture == NULL || lamina_pg_refresh_climate_flags (self, c->moisture->climate, error);
+  return lamina_pg_run (self,
+    "UPDATE construction SET material_changed = EXISTS ("
+    "    SELECT 1 FROM revision_material rm JOIN material m ON m.id = rm.material_id"
+    "     WHERE rm.construction_id = $1 AND rm.revision = $2"
+    "       AND m.fingerprint <> rm.fingerprint)"
+    " WHERE id = $1",
+    params, "cannot update the library", error);
+}
+
+/* And from its climate's data (EN ISO 13788 checks). */
+static gboolean
+refresh_material_changed (LaminaPg                  *self,
+                          const LaminaConstruction  *c,
+                          GError                   **error)
+{
+  return refresh_material_flag (self, c, error)
+         && (c->moisture == NULL
+             || lamina_pg_refresh_climate_flags (self, c->moisture->climate, error));
 }
 
 /* The id (and name) of the first live construction but @except_id whose
@@ -707,6 +718,143 @@ lamina_pg_get_review_events (LaminaBackend  *backend,
 
 /* Import */
 
+/* Import: 10,000 constructions should not cost 10,000 × 8 round trips.
+ * The constructions' rows are locked and read in one statement, their
+ * codes checked in one more, and then every statement that writes them is
+ * sent in pipeline mode (lamina_pg_pipeline_begin), whose results are
+ * read a batch at a time; the first failure rolls the whole import back
+ * as before. */
+
+/* Joins @n strings with the unit separator, which cleaned ids and codes
+ * cannot hold (lamina_library_dup_clean_identity refuses control
+ * characters), for string_to_array ($n, chr (31)). */
+static char *
+join_units (GPtrArray *strings)
+{
+  g_ptr_array_add (strings, NULL);
+  return g_strjoinv ("\x1f", (char **) strings->pdata);
+}
+
+static gboolean
+check_import_bases (LaminaPg                   *self,
+                    const LaminaBackendImport  *import,
+                    GError                    **error)
+{
+  g_autoptr(GPtrArray) ids = g_ptr_array_new ();
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  g_autoptr(GHashTable) rows = g_hash_table_new (g_str_hash, g_str_equal);
+  PGresult *res;
+  gboolean ok = TRUE;
+
+  for (guint i = 0; i < import->revisions->len; i++)
+    g_ptr_array_add (ids, ((LaminaBackendRevision *) import->revisions->pdata[i])->construction->id);
+  g_ptr_array_add (params, join_units (ids));
+  res = lamina_pg_query (self,
+    "SELECT id, head, deleted_at IS NOT NULL FROM construction"
+    " WHERE id = ANY (string_to_array ($1, chr (31))) ORDER BY id FOR UPDATE",
+    params, "cannot read the constructions", error);
+  if (res == NULL)
+    return FALSE;
+  for (int r = 0; r < PQntuples (res); r++)
+    g_hash_table_insert (rows, (gpointer) lamina_pg_get (res, r, 0), GINT_TO_POINTER (r + 1));
+  for (guint i = 0; ok && i < import->revisions->len; i++)
+    {
+      const LaminaConstruction *c = ((LaminaBackendRevision *) import->revisions->pdata[i])->construction;
+      int r = GPOINTER_TO_INT (g_hash_table_lookup (rows, c->id)) - 1;
+
+      ok = lamina_store_check_base (c, g_array_index (import->base_revisions, int, i),
+                                    r >= 0 ? lamina_pg_int (res, r, 1) : 0,
+                                    r >= 0 && lamina_pg_bool (res, r, 2), error);
+    }
+  PQclear (res);
+  return ok;
+}
+
+/* Every code of the import against the live constructions not in it
+ * with that code, and against each other (under the office-code lock). */
+static gboolean
+check_import_codes (LaminaPg                   *self,
+                    const LaminaBackendImport  *import,
+                    GError                    **error)
+{
+  g_autoptr(GPtrArray) ids = g_ptr_array_new ();
+  g_autoptr(GPtrArray) codes = g_ptr_array_new ();
+  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  g_autoptr(GHashTable) seen = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  PGresult *res;
+  gboolean ok = TRUE;
+
+  for (guint i = 0; i < import->revisions->len; i++)
+    {
+      const LaminaConstruction *c = ((LaminaBackendRevision *) import->revisions->pdata[i])->construction;
+      g_autofree char *key = NULL;
+      const LaminaConstruction *twin;
+
+      if (c->code == NULL)
+        continue;
+      key = g_ascii_strdown (c->code, -1);
+      twin = g_hash_table_lookup (seen, key);
+      if (twin != NULL)
+        {
+          lamina_store_set_code_used_error (error, c->code, twin->name ? twin->name : twin->id);
+          return FALSE;
+        }
+      g_hash_table_insert (seen, g_steal_pointer (&key), (gpointer) c);
+      g_ptr_array_add (ids, c->id);
+      g_ptr_array_add (codes, c->code);
+    }
+  if (codes->len == 0)
+    return TRUE;
+  g_ptr_array_add (params, join_units (codes));
+  g_ptr_array_add (params, join_units (ids));
+  res = lamina_pg_query (self,
+    "SELECT t.code, c.name FROM unnest (string_to_array ($1, chr (31)),"
+    "                                   string_to_array ($2, chr (31))) AS t (code, id)"
+    "  JOIN construction c"
+    "    ON lower (c.code) COLLATE \"C\" = lower (t.code) COLLATE \"C\""
+    "   AND lower (c.code COLLATE \"C\") = lower (t.code COLLATE \"C\")"
+    "   AND c.deleted_at IS NULL AND c.id <> t.id"
+    " LIMIT 1", params, "cannot read the constructions", error);
+  if (res == NULL)
+    return FALSE;
+  if (PQntuples (res) > 0)
+    {
+      lamina_store_set_code_used_error (error, lamina_pg_get (res, 0, 0), lamina_pg_get (res, 0, 1));
+      ok = FALSE;
+    }
+  PQclear (res);
+  return ok;
+}
+
+static gboolean
+write_import_revisions (LaminaPg                   *self,
+                        const LaminaBackendImport  *import,
+                        GError                    **error)
+{
+  gboolean ok = TRUE, moisture = FALSE;
+
+  /* Read before the pipeline: put_construction_row uses it. */
+  lamina_pg_moisture_limit (self);
+  if (!lamina_pg_pipeline_begin (self, error))
+    return FALSE;
+  for (guint i = 0; ok && i < import->revisions->len; i++)
+    {
+      const LaminaBackendRevision *rev = import->revisions->pdata[i];
+      const LaminaConstruction *c = rev->construction;
+
+      ok = put_construction_row (self, c, rev->result,
+                                 g_array_index (import->base_revisions, int, i) == 0, error)
+           && insert_revision_row (self, rev, error)
+           && lamina_pg_index_revision (self, c, TRUE, error)
+           && refresh_material_flag (self, c, error);
+      moisture |= c->moisture != NULL;
+    }
+  if (!lamina_pg_pipeline_end (self, ok, error))
+    return FALSE;
+  /* Once for the whole import, not once per construction. */
+  return !moisture || lamina_pg_refresh_climate_flags (self, NULL, error);
+}
+
 static gboolean
 import_txn (LaminaPg  *self,
             gpointer   data,
@@ -721,12 +869,11 @@ import_txn (LaminaPg  *self,
   for (guint i = 0; i < import->materials->len; i++)
     if (!lamina_pg_put_material_in_txn (self, import->materials->pdata[i], w->now, error))
       return FALSE;
-  if (!lamina_pg_lock_codes (self, error))
+  if (!lamina_pg_lock_codes (self, error)
+      || !check_import_codes (self, import, error)
+      || !check_import_bases (self, import, error)
+      || !write_import_revisions (self, import, error))
     return FALSE;
-  for (guint i = 0; i < import->revisions->len; i++)
-    if (!store_revision_in_txn (self, import->revisions->pdata[i],
-                                g_array_index (import->base_revisions, int, i), error))
-      return FALSE;
   return lamina_pg_put_records (self, import->target_sets, import->jobs, w->now, error);
 }
 

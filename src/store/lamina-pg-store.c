@@ -482,7 +482,8 @@ lamina_pg_moisture_limit (LaminaPg *self)
 {
   g_autofree char *value = NULL;
 
-  if (self->limit_read && PQtransactionStatus (self->conn) == PQTRANS_INTRANS)
+  /* In pipeline mode the transaction shows as active. */
+  if (self->limit_read && (self->pipeline || PQtransactionStatus (self->conn) == PQTRANS_INTRANS))
     return self->moisture_limit;
   value = lamina_pg_get_setting (&self->parent, LAMINA_MOISTURE_LIMIT_KEY, NULL);
   self->moisture_limit = lamina_library_moisture_limit_from_text (value);

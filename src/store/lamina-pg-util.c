@@ -104,6 +104,42 @@ lamina_pg_set_error (LaminaPg        *self,
                  self->label, what, message);
 }
 
+/* ---- Pipeline mode ---------------------------------------------------- */
+
+/* What a statement sent in pipeline mode still owes: its result, and for a
+ * statement prepared in the pipeline the SQL it was prepared for. */
+typedef struct
+{
+  const char *what;
+  char       *prepared_sql;   /* NULL: an execution */
+} Pending;
+
+/* Statements in flight before their results are read: their results
+ * (about 25 bytes each) must fit the socket buffers, or the server and
+ * we would each wait for the other to read. */
+#define PIPELINE_BATCH 400
+
+static void
+pending_free (gpointer data)
+{
+  Pending *p = data;
+
+  g_free (p->prepared_sql);
+  g_free (p);
+}
+
+static void
+push_pending (LaminaPg    *self,
+              const char  *what,
+              const char  *prepared_sql)
+{
+  Pending *p = g_new0 (Pending, 1);
+
+  p->what = what;
+  p->prepared_sql = g_strdup (prepared_sql);
+  g_ptr_array_add (self->pending, p);
+}
+
 static const char *
 statement_name (LaminaPg    *self,
                 const char  *sql,
@@ -118,6 +154,19 @@ statement_name (LaminaPg    *self,
   if (name != NULL)
     return name;
   new_name = g_strdup_printf ("lamina_%u", ++self->n_statements);
+  if (self->pipeline)
+    {
+      /* Prepared in the pipeline; its result is read with the others. */
+      if (!PQsendPrepare (self->conn, new_name, sql, n_params, NULL))
+        {
+          lamina_pg_set_error (self, NULL, what, error);
+          return NULL;
+        }
+      push_pending (self, what, sql);
+      name = new_name;
+      g_hash_table_insert (self->statements, g_strdup (sql), g_steal_pointer (&new_name));
+      return name;
+    }
   res = PQprepare (self->conn, new_name, sql, n_params, NULL);
   if (PQresultStatus (res) != PGRES_COMMAND_OK)
     {
@@ -139,10 +188,13 @@ lamina_pg_query (LaminaPg    *self,
                  GError     **error)
 {
   int n = params ? (int) params->len : 0;
-  const char *name = statement_name (self, sql, n, what, error);
+  const char *name;
   PGresult *res;
   ExecStatusType status;
 
+  /* A result is not at hand in pipeline mode: only lamina_pg_run. */
+  g_return_val_if_fail (!self->pipeline, NULL);
+  name = statement_name (self, sql, n, what, error);
   if (name == NULL)
     return NULL;
   res = PQexecPrepared (self->conn, name, n,
@@ -164,8 +216,25 @@ lamina_pg_run (LaminaPg    *self,
                const char  *what,
                GError     **error)
 {
-  PGresult *res = lamina_pg_query (self, sql, params, what, error);
+  PGresult *res;
 
+  if (self->pipeline)
+    {
+      int n = params ? (int) params->len : 0;
+      const char *name = statement_name (self, sql, n, what, error);
+
+      if (name == NULL)
+        return FALSE;
+      if (!PQsendQueryPrepared (self->conn, name, n,
+                                n > 0 ? (const char *const *) params->pdata : NULL, NULL, NULL, 0))
+        {
+          lamina_pg_set_error (self, NULL, what, error);
+          return FALSE;
+        }
+      push_pending (self, what, NULL);
+      return self->pending->len < PIPELINE_BATCH || lamina_pg_pipeline_sync (self, error);
+    }
+  res = lamina_pg_query (self, sql, params, what, error);
   PQclear (res);
   return res != NULL;
 }
@@ -175,9 +244,14 @@ lamina_pg_exec (LaminaPg    *self,
                 const char  *sql,
                 GError     **error)
 {
-  PGresult *res = PQexec (self->conn, sql);
-  ExecStatusType status = PQresultStatus (res);
-  gboolean ok = status == PGRES_COMMAND_OK || status == PGRES_TUPLES_OK;
+  PGresult *res;
+  ExecStatusType status;
+  gboolean ok;
+
+  g_return_val_if_fail (!self->pipeline, FALSE);
+  res = PQexec (self->conn, sql);
+  status = PQresultStatus (res);
+  ok = status == PGRES_COMMAND_OK || status == PGRES_TUPLES_OK;
 
   if (!ok)
     lamina_pg_set_error (self, res, "cannot update the library", error);
@@ -290,4 +364,116 @@ lamina_pg_changes (const PGresult *res)
   const char *n = PQcmdTuples ((PGresult *) res);
 
   return n && *n ? g_ascii_strtoll (n, NULL, 10) : 0;
+}
+gboolean
+lamina_pg_pipeline_begin (LaminaPg  *self,
+                          GError   **error)
+{
+  g_return_val_if_fail (!self->pipeline, FALSE);
+  if (!PQenterPipelineMode (self->conn))
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO, "%s: %s", self->label,
+                   PQerrorMessage (self->conn));
+      return FALSE;
+    }
+  self->pipeline = TRUE;
+  self->pending = g_ptr_array_new_with_free_func (pending_free);
+  return TRUE;
+}
+
+/* Sends a sync and reads every result owed; the first failure is
+ * reported (the server skips the rest of the batch after it). */
+gboolean
+lamina_pg_pipeline_sync (LaminaPg  *self,
+                         GError   **error)
+{
+  g_autoptr(GError) first = NULL;
+  guint next = 0, nulls = 0;
+  gboolean reading = TRUE;
+
+  g_return_val_if_fail (self->pipeline, FALSE);
+  if (self->pending->len == 0)
+    return TRUE;
+  if (!PQpipelineSync (self->conn))
+    {
+      lamina_pg_set_error (self, NULL, "cannot update the library", &first);
+      reading = FALSE;
+    }
+  while (reading)
+    {
+      PGresult *res = PQgetResult (self->conn);
+      ExecStatusType status;
+      Pending *p;
+
+      if (res == NULL)
+        {
+          /* One NULL ends each statement's results; two in a row: nothing
+           * more is coming (the connection is gone). */
+          if (++nulls > 1)
+            {
+              if (first == NULL)
+                lamina_pg_set_error (self, NULL, "cannot update the library", &first);
+              reading = FALSE;
+            }
+          continue;
+        }
+      nulls = 0;
+      status = PQresultStatus (res);
+      if (status == PGRES_PIPELINE_SYNC)
+        reading = FALSE;
+      else
+        {
+          p = next < self->pending->len ? self->pending->pdata[next++] : NULL;
+          if (status == PGRES_FATAL_ERROR && first == NULL)
+            lamina_pg_set_error (self, res, p ? p->what : "cannot update the library", &first);
+          /* A statement whose preparation did not happen is prepared
+           * again the next time it is used. */
+          if (p != NULL && p->prepared_sql != NULL && status != PGRES_COMMAND_OK)
+            g_hash_table_remove (self->statements, p->prepared_sql);
+        }
+      PQclear (res);
+    }
+  /* Preparations never answered (the connection went) are made again. */
+  for (; next < self->pending->len; next++)
+    {
+      Pending *p = self->pending->pdata[next];
+
+      if (p->prepared_sql != NULL)
+        g_hash_table_remove (self->statements, p->prepared_sql);
+    }
+  g_ptr_array_set_size (self->pending, 0);
+  if (first != NULL)
+    {
+      g_propagate_error (error, g_steal_pointer (&first));
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* Reads what is owed (when @ok) and leaves pipeline mode; FALSE when a
+ * statement failed or the mode cannot be left. */
+gboolean
+lamina_pg_pipeline_end (LaminaPg  *self,
+                        gboolean   ok,
+                        GError   **error)
+{
+  g_autoptr(GError) local = NULL;
+
+  if (!self->pipeline)
+    return ok;
+  /* Even after a failure the results are read, or the connection could
+   * not leave pipeline mode. */
+  if (!lamina_pg_pipeline_sync (self, ok ? &local : NULL))
+    ok = FALSE;
+  self->pipeline = FALSE;
+  g_clear_pointer (&self->pending, g_ptr_array_unref);
+  if (!PQexitPipelineMode (self->conn) && ok)
+    {
+      g_set_error (&local, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO, "%s: %s", self->label,
+                   PQerrorMessage (self->conn));
+      ok = FALSE;
+    }
+  if (local != NULL)
+    g_propagate_error (error, g_steal_pointer (&local));
+  return ok;
 }

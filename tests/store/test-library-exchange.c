@@ -270,6 +270,65 @@ test_killed_import (void)
     }
 }
 
+/* A construction the database refuses half-way through a large import
+ * (here a trigger, standing in for any failure at the server: a full
+ * disk, a revoked privilege): nothing of the import is kept, the error
+ * names the refusal, and the same connection imports again afterwards.
+ * On the server the writes are pipelined in batches, so the refusal is
+ * tried early (inside the first batch, whose statements are still being
+ * prepared) and late (after several batches). */
+static void
+test_refused_write (void)
+{
+  g_autofree char *path = test_library_location ("refused.sqlite");
+  g_autoptr(LaminaLibrary) library = open_at ("refused.sqlite");
+  g_autoptr(LaminaCatalogue) big = make_catalogue (library, 300, 120);
+  static const char *const refused[] = { "test-3", "test-250" };
+
+  for (guint k = 0; k < G_N_ELEMENTS (refused); k++)
+    {
+      g_autoptr(GError) error = NULL;
+      g_autoptr(LaminaImportReport) report = NULL;
+      g_autofree char *sql = NULL;
+
+      if (test_on_server ())
+        sql = g_strdup_printf (
+          "CREATE OR REPLACE FUNCTION refuse_one () RETURNS trigger LANGUAGE plpgsql AS $$"
+          " BEGIN IF NEW.id = '%s' THEN RAISE EXCEPTION 'refused for a test'; END IF;"
+          " RETURN NEW; END $$;"
+          "DROP TRIGGER IF EXISTS refuse_one ON construction;"
+          "CREATE TRIGGER refuse_one BEFORE INSERT ON construction"
+          "  FOR EACH ROW EXECUTE FUNCTION refuse_one ();", refused[k]);
+      else
+        sql = g_strdup_printf (
+          "DROP TRIGGER IF EXISTS refuse_one;"
+          "CREATE TRIGGER refuse_one BEFORE INSERT ON construction WHEN NEW.id = '%s'"
+          " BEGIN SELECT RAISE (ABORT, 'refused for a test'); END;", refused[k]);
+      g_assert_true (test_raw_exec (path, sql));
+      report = lamina_library_import (library, big, 0, "T", &error);
+      g_assert_null (report);
+      g_assert_nonnull (error);
+      g_assert_nonnull (strstr (error->message, "refused for a test"));
+      g_assert_cmpint (test_raw_int (path, "SELECT count(*) FROM construction"), ==, 0);
+      g_assert_cmpint (test_raw_int (path, "SELECT count(*) FROM revision"), ==, 0);
+    }
+  g_assert_true (test_raw_exec (path, test_on_server ()
+                                      ? "DROP TRIGGER refuse_one ON construction;"
+                                      : "DROP TRIGGER refuse_one;"));
+  {
+    g_autoptr(GError) error = NULL;
+    g_autoptr(LaminaImportReport) report = lamina_library_import (library, big, 0, "T", &error);
+    LaminaLibraryQuery q;
+
+    g_assert_no_error (error);
+    g_assert_cmpuint (report->n_added, ==, 300);
+    lamina_library_query_init (&q);
+    q.text = "odd";
+    g_assert_cmpint (lamina_library_count (library, &q, &error), ==, 150);
+    g_assert_cmpint (test_raw_int (path, "SELECT count(*) FROM construction_tag"), ==, 300);
+  }
+}
+
 int
 main (int    argc,
       char **argv)
@@ -279,5 +338,6 @@ main (int    argc,
   g_test_add_func ("/store/exchange/round-trip", test_round_trip);
   g_test_add_func ("/store/exchange/merge", test_merge);
   g_test_add_func ("/store/exchange/killed-import", test_killed_import);
+  g_test_add_func ("/store/exchange/refused-write", test_refused_write);
   return g_test_run ();
 }
