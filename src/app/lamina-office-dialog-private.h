@@ -28,6 +28,7 @@ struct _LaminaOfficeDialog
   /* owned */
   GSettings      *settings;
   char          **recent;   /* the recent-servers key when shown */
+  GCancellable   *connecting;  /* while a worker connects, else NULL */
 };
 
 G_END_DECLS

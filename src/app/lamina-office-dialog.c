@@ -3,10 +3,15 @@
  * server, or a file) in a window of its own.
  *
  * Passwords: never in GSettings, never in a remembered connection string.
- * A password typed in the dialog is handed to libpq for this one
- * connection (PGPASSWORD, set around the open and restored after); with
- * libsecret it can be kept in the desktop keyring, else libpq's own
- * sources apply (~/.pgpass, the service file). */
+ * A password typed in the dialog is handed to libpq for this library's
+ * connections only (lamina_library_open_with_password); with libsecret it
+ * can be kept in the desktop keyring, else libpq's own sources apply
+ * (~/.pgpass, the service file).
+ *
+ * The connection is made in a worker thread (a server that is slow or
+ * does not answer would freeze the window for as long as libpq waits):
+ * the dialog says "Connecting to …" meanwhile, and closing it drops the
+ * connection when it comes. */
 #define G_LOG_DOMAIN "lamina-app"
 
 #include "config.h"
@@ -226,27 +231,6 @@ store_password (LaminaOfficeDialog  *self,
 #endif
 }
 
-/* Opens @conninfo with @password (may be NULL) for this connection only:
- * libpq reads PGPASSWORD when it connects; the variable is put back as it
- * was straight after, on this (the main) thread. */
-static LaminaLibrary *
-open_with_password (const char  *conninfo,
-                    const char  *password,
-                    GError     **error)
-{
-  g_autofree char *saved = g_strdup (g_getenv ("PGPASSWORD"));
-  LaminaLibrary *library;
-
-  if (password != NULL && *password != '\0')
-    g_setenv ("PGPASSWORD", password, TRUE);
-  library = lamina_library_open (conninfo, LAMINA_LIBRARY_OPEN_EXISTING, error);
-  if (saved != NULL)
-    g_setenv ("PGPASSWORD", saved, TRUE);
-  else
-    g_unsetenv ("PGPASSWORD");
-  return library;
-}
-
 /* ---- The dialog ----------------------------------------------------------- */
 
 static void
@@ -277,15 +261,107 @@ remember_server (LaminaOfficeDialog *self,
   g_settings_set_strv (self->settings, "recent-servers", (const char * const *) next);
 }
 
+typedef struct
+{
+  char     *conninfo;
+  char     *password;   /* typed or from the keyring, or NULL */
+  gboolean  typed;      /* the password was typed (may be kept) */
+} Connect;
+
+static void
+connect_free (gpointer data)
+{
+  Connect *c = data;
+
+  g_free (c->conninfo);
+  if (c->password != NULL)
+    memset (c->password, 0, strlen (c->password));
+  g_free (c->password);
+  g_free (c);
+}
+
+static void
+connect_thread (GTask        *task,
+                gpointer      source,
+                gpointer      task_data,
+                GCancellable *cancellable)
+{
+  Connect *c = task_data;
+  GError *error = NULL;
+  LaminaLibrary *library = lamina_library_open_with_password (c->conninfo, c->password,
+                                                              LAMINA_LIBRARY_OPEN_EXISTING, &error);
+
+  if (library == NULL)
+    g_task_return_error (task, error);
+  else
+    g_task_return_pointer (task, library, g_object_unref);
+}
+
+static void
+set_connecting (LaminaOfficeDialog *self,
+                const char         *conninfo)
+{
+  gboolean busy = conninfo != NULL;
+
+  gtk_widget_set_sensitive (GTK_WIDGET (self->open_button), !busy);
+  if (busy)
+    {
+      g_autofree char *text = g_strdup_printf (_("Connecting to %s…"), conninfo);
+
+      gtk_widget_remove_css_class (GTK_WIDGET (self->error_label), "lamina-error");
+      show_error (self, text);
+    }
+  else
+    gtk_widget_add_css_class (GTK_WIDGET (self->error_label), "lamina-error");
+}
+
+static void
+on_connected_cb (GObject      *source,
+                 GAsyncResult *result,
+                 gpointer      user_data)
+{
+  LaminaOfficeDialog *self;
+  Connect *c = g_task_get_task_data (G_TASK (result));
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaLibrary) library = g_task_propagate_pointer (G_TASK (result), &error);
+
+  /* The dialog was closed meanwhile: the library goes with the task. */
+  if (g_error_matches (error, G_IO_ERROR, G_IO_ERROR_CANCELLED))
+    return;
+  self = LAMINA_OFFICE_DIALOG (source);
+  g_clear_object (&self->connecting);
+  set_connecting (self, NULL);
+  if (library == NULL)
+    {
+      /* Named once: a file library's message names it already, a
+       * server's (libpq's) may not. */
+      g_autofree char *text = strstr (error->message, c->conninfo) != NULL
+        ? g_strdup_printf (_("Could not open the office library: %s"), error->message)
+        : g_strdup_printf (_("Could not open the office library: %s: %s"), c->conninfo, error->message);
+
+      show_error (self, text);
+      return;
+    }
+  show_error (self, NULL);
+  remember_server (self, c->conninfo);
+  if (c->typed && gtk_check_button_get_active (self->remember_check)
+      && !store_password (self, c->conninfo, c->password, &error))
+    g_message ("keyring: the password was not kept: %s", error->message);
+  g_signal_emit (self, signals[LIBRARY_OPENED], 0, library);
+  gtk_window_close (GTK_WINDOW (self));
+}
+
 static void
 on_open_clicked_cb (LaminaOfficeDialog *self)
 {
   g_autoptr(GError) error = NULL;
-  g_autoptr(LaminaLibrary) library = NULL;
+  g_autoptr(GTask) task = NULL;
   g_autofree char *conninfo = NULL;
-  g_autofree char *kept = NULL;
   const char *typed = gtk_editable_get_text (GTK_EDITABLE (self->password_entry));
+  Connect *c;
 
+  if (self->connecting != NULL)
+    return;
   conninfo = lamina_office_conninfo (gtk_editable_get_text (GTK_EDITABLE (self->host_entry)),
                                      gtk_editable_get_text (GTK_EDITABLE (self->port_entry)),
                                      gtk_editable_get_text (GTK_EDITABLE (self->database_entry)),
@@ -297,28 +373,17 @@ on_open_clicked_cb (LaminaOfficeDialog *self)
       show_error (self, error->message);
       return;
     }
-  if (*typed == '\0')
-    kept = lookup_password (self, conninfo);
-  library = open_with_password (conninfo, *typed != '\0' ? typed : kept, &error);
-  if (library == NULL)
-    {
-      /* Named once: a file library's message names it already, a
-       * server's (libpq's) may not. */
-      g_autofree char *text = strstr (error->message, conninfo) != NULL
-        ? g_strdup_printf (_("Could not open the office library: %s"), error->message)
-        : g_strdup_printf (_("Could not open the office library: %s: %s"), conninfo, error->message);
-
-      show_error (self, text);
-      return;
-    }
-  show_error (self, NULL);
-  remember_server (self, conninfo);
-  if (*typed != '\0' && gtk_check_button_get_active (self->remember_check)
-      && !store_password (self, conninfo, typed, &error))
-    g_message ("keyring: the password was not kept: %s", error->message);
+  c = g_new0 (Connect, 1);
+  c->conninfo = g_strdup (conninfo);
+  c->typed = *typed != '\0';
+  c->password = c->typed ? g_strdup (typed) : lookup_password (self, conninfo);
   gtk_editable_set_text (GTK_EDITABLE (self->password_entry), "");
-  g_signal_emit (self, signals[LIBRARY_OPENED], 0, library);
-  gtk_window_close (GTK_WINDOW (self));
+  self->connecting = g_cancellable_new ();
+  set_connecting (self, conninfo);
+  task = g_task_new (self, self->connecting, on_connected_cb, NULL);
+  g_task_set_source_tag (task, on_open_clicked_cb);
+  g_task_set_task_data (task, c, connect_free);
+  g_task_run_in_thread (task, connect_thread);
 }
 
 /* A recent server fills the fields it was made from. */
@@ -372,6 +437,9 @@ lamina_office_dialog_dispose (GObject *object)
 {
   LaminaOfficeDialog *self = LAMINA_OFFICE_DIALOG (object);
 
+  if (self->connecting != NULL)
+    g_cancellable_cancel (self->connecting);
+  g_clear_object (&self->connecting);
   g_clear_object (&self->settings);
   g_clear_pointer (&self->recent, g_strfreev);
   gtk_widget_dispose_template (GTK_WIDGET (self), LAMINA_TYPE_OFFICE_DIALOG);

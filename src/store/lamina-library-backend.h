@@ -427,9 +427,11 @@ double         lamina_backend_default_busy_timeout (void);
  * the folder backups go to when its settings cannot be read, or NULL. */
 char          *lamina_backup_dup_latest_for_path (const char *path);
 /* lamina-pg-open.c: a library on a PostgreSQL server (@conninfo: any
- * libpq connection string or URI), created in an empty database unless
+ * libpq connection string or URI; @password: NULL for libpq's own
+ * sources), created in an empty database unless
  * LAMINA_LIBRARY_OPEN_EXISTING. */
 LaminaBackend *lamina_pg_backend_open (const char             *conninfo,
+                                       const char             *password,
                                        LaminaLibraryOpenFlags  flags,
                                        GError                **error);
 

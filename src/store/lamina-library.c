@@ -63,6 +63,15 @@ lamina_library_open (const char             *path,
                      LaminaLibraryOpenFlags  flags,
                      GError                **error)
 {
+  return lamina_library_open_with_password (path, NULL, flags, error);
+}
+
+LaminaLibrary *
+lamina_library_open_with_password (const char             *path,
+                                   const char             *password,
+                                   LaminaLibraryOpenFlags  flags,
+                                   GError                **error)
+{
   g_autofree char *default_path = NULL;
   LaminaBackend *backend;
   LaminaLibrary *self;
@@ -70,7 +79,7 @@ lamina_library_open (const char             *path,
   if (path == NULL)
     path = default_path = lamina_library_dup_default_path ();
   if (lamina_library_is_server_address (path))
-    backend = lamina_pg_backend_open (path, flags, error);
+    backend = lamina_pg_backend_open (path, password, flags, error);
   else
     backend = lamina_sqlite_backend_open (path, flags, error);
   if (backend == NULL)

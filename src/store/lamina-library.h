@@ -97,6 +97,15 @@ char          *lamina_library_dup_default_path (void);
 LaminaLibrary *lamina_library_open         (const char             *path,
                                             LaminaLibraryOpenFlags  flags,
                                             GError                **error);
+/* As lamina_library_open, for a server library with @password (may be
+ * NULL: libpq's own sources) for this connection and the library's
+ * side connections only: it is kept in memory, never in the library's
+ * path or in messages.  Safe to call in a worker thread (the library is
+ * then used by one thread at a time).  A file library ignores it. */
+LaminaLibrary *lamina_library_open_with_password (const char             *path,
+                                                  const char             *password,
+                                                  LaminaLibraryOpenFlags  flags,
+                                                  GError                **error);
 /* Closes the file now (also done on finalize); later calls fail. */
 void           lamina_library_close        (LaminaLibrary          *self);
 const char    *lamina_library_get_path     (LaminaLibrary          *self);

@@ -105,6 +105,13 @@ lamina_pg_close (LaminaBackend *backend)
 
   if (self->conn != NULL)
     PQfinish (self->conn);
+  if (self->watch != NULL)
+    PQfinish (self->watch);
+  if (self->password != NULL)
+    memset (self->password, 0, strlen (self->password));
+  g_free (self->password);
+  g_free (self->announced_holder);
+  g_clear_pointer (&self->pending, g_ptr_array_unref);
   g_clear_pointer (&self->statements, g_hash_table_unref);
   g_free (self->label);
   g_free (self->parent.path);
@@ -340,18 +347,38 @@ recognise_and_install (LaminaPg               *self,
   return lamina_pg_exec (self, "LISTEN " LAMINA_PG_CHANNEL ";", error);
 }
 
+PGconn *
+lamina_pg_connect_raw (const char *conninfo,
+                       const char *password)
+{
+  /* Settings before dbname are defaults the connection string may
+   * change; the password after it wins. */
+  const char *keywords[] = { "connect_timeout", "fallback_application_name", "dbname",
+                             "password", NULL };
+  const char *values[] = { "20", g_get_prgname () ? g_get_prgname () : "lamina", conninfo,
+                           password, NULL };
+
+  if (password == NULL)
+    keywords[3] = NULL;
+  return PQconnectdbParams (keywords, values, 1);
+}
+
 /* Connects and sets the session up; NULL with @error on failure. */
 LaminaPg *
 lamina_pg_connect (const char  *conninfo,
+                   const char  *password,
                    GError     **error)
 {
   LaminaPg *self = g_new0 (LaminaPg, 1);
+  g_autofree char *lock_timeout = NULL;
 
   self->parent.vtable = &pg_vtable;
   self->parent.path = g_strdup (conninfo);
+  self->parent.busy_timeout = lamina_backend_default_busy_timeout ();
+  self->password = g_strdup (password);
   self->label = dup_label (conninfo);
   self->statements = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_free);
-  self->conn = PQconnectdb (conninfo);
+  self->conn = lamina_pg_connect_raw (conninfo, password);
   if (PQstatus (self->conn) != CONNECTION_OK)
     {
       g_autofree char *message = g_strdup (PQerrorMessage (self->conn));
@@ -362,9 +389,13 @@ lamina_pg_connect (const char  *conninfo,
       lamina_pg_close (&self->parent);
       return NULL;
     }
+  /* A colleague's lock is waited for as long as a file's (the busy
+   * timeout), and the wait is reported meanwhile (lamina-pg-util.c). */
+  lock_timeout = g_strdup_printf ("SET client_min_messages = warning;"
+                                  "SET lock_timeout = %d;",
+                                  (int) (self->parent.busy_timeout * 1000));
   if (PQsetClientEncoding (self->conn, "UTF8") != 0
-      || !lamina_pg_exec (self, "SET client_min_messages = warning;"
-                                "SET lock_timeout = '30s';", error))
+      || !lamina_pg_exec (self, lock_timeout, error))
     {
       if (error != NULL && *error == NULL)
         g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
@@ -377,10 +408,11 @@ lamina_pg_connect (const char  *conninfo,
 
 LaminaBackend *
 lamina_pg_backend_open (const char             *conninfo,
+                        const char             *password,
                         LaminaLibraryOpenFlags  flags,
                         GError                **error)
 {
-  LaminaPg *self = lamina_pg_connect (conninfo, error);
+  LaminaPg *self = lamina_pg_connect (conninfo, password, error);
 
   if (self == NULL)
     return NULL;

@@ -33,6 +33,10 @@ typedef struct
   double         moisture_limit;
   gboolean       pipeline;     /* lamina_pg_run sends without waiting */
   GPtrArray     *pending;      /* what the pipeline still owes */
+  char          *password;     /* given to open, or NULL */
+  PGconn        *watch;        /* asks who holds a lock we wait for */
+  gboolean       watch_failed;
+  char          *announced_holder;
   gboolean       codes_locked; /* this transaction holds the office-code
                                 * lock exclusively (an import) */
 } LaminaPg;
@@ -99,7 +103,12 @@ gboolean      lamina_pg_bool           (const PGresult *res, int row, int col);
 gint64        lamina_pg_changes        (const PGresult *res);
 
 /* lamina-pg-open.c: connects and sets the session up. */
-LaminaPg     *lamina_pg_connect        (const char *conninfo, GError **error);
+LaminaPg     *lamina_pg_connect        (const char *conninfo, const char *password,
+                                        GError **error);
+/* A bare connection to @conninfo (with @password unless NULL, the
+ * program's name as the server shows it, a bounded connect time that
+ * @conninfo may change); check PQstatus. */
+PGconn       *lamina_pg_connect_raw    (const char *conninfo, const char *password);
 
 /* lamina-pg-schema.c: migration steps, as lamina-sqlite-schema.c. */
 gboolean      lamina_pg_migrate        (LaminaPg *self, int from, int to, GError **error);

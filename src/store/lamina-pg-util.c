@@ -7,7 +7,9 @@
 
 #include "lamina-pg-private.h"
 
+#include <errno.h>
 #include <math.h>
+#include <poll.h>
 #include <string.h>
 
 /* A transaction the server refused for a concurrent one is run again
@@ -180,6 +182,103 @@ statement_name (LaminaPg    *self,
   return name;
 }
 
+/* ---- Waiting for a colleague's lock ------------------------------------ */
+
+/* Who holds the lock our session waits for, from the server's own view
+ * (pg_blocking_pids, pg_stat_activity): "lamina-cli, server process
+ * 4242, user anna"; NULL when nobody blocks us (a statement that is just
+ * slow) or the side connection that asks cannot be made.  Asked on a
+ * second connection, since ours is busy waiting. */
+static char *
+dup_blocker (LaminaPg *self)
+{
+  g_autofree char *pid = g_strdup_printf ("%d", PQbackendPID (self->conn));
+  const char *values[] = { pid };
+  PGresult *res;
+  char *holder = NULL;
+
+  if (self->watch == NULL && !self->watch_failed)
+    {
+      self->watch = lamina_pg_connect_raw (self->parent.path, self->password);
+      if (PQstatus (self->watch) != CONNECTION_OK)
+        {
+          g_debug ("%s: cannot ask who holds a lock: %s", self->label, PQerrorMessage (self->watch));
+          g_clear_pointer (&self->watch, PQfinish);
+          self->watch_failed = TRUE;
+        }
+    }
+  if (self->watch == NULL)
+    return NULL;
+  res = PQexecParams (self->watch,
+    "SELECT coalesce (nullif (a.application_name, ''), 'a program'), a.pid,"
+    "       coalesce (a.usename, '?')"
+    "  FROM pg_stat_activity a WHERE a.pid = ANY (pg_blocking_pids ($1::integer))"
+    " ORDER BY a.xact_start NULLS LAST LIMIT 1", 1, NULL, values, NULL, NULL, 0);
+  if (PQresultStatus (res) == PGRES_TUPLES_OK && PQntuples (res) > 0)
+    holder = g_strdup_printf ("%s, server process %s, user %s", PQgetvalue (res, 0, 0),
+                              PQgetvalue (res, 0, 1), PQgetvalue (res, 0, 2));
+  PQclear (res);
+  return holder;
+}
+
+/* The result of the statement just sent: the first that failed, else the
+ * last.  While the server has not answered, every half second or so: is
+ * our session blocked by another's lock?  Then the library's wait
+ * function hears who holds it (as the SQLite backend's busy handler
+ * does), and once more when the wait ends.  The wait itself is bounded
+ * by the session's lock_timeout (the busy timeout). */
+static PGresult *
+await_result (LaminaPg *self)
+{
+  gint64 next_look = g_get_monotonic_time () + G_USEC_PER_SEC / 2;
+  gboolean announced = FALSE;
+  PGresult *res, *kept = NULL;
+
+  while (PQisBusy (self->conn))
+    {
+      struct pollfd pfd = { PQsocket (self->conn), POLLIN, 0 };
+      int rc = poll (&pfd, 1, self->parent.waiting != NULL ? 250 : -1);
+
+      if (rc < 0 && errno != EINTR)
+        break;
+      if (rc > 0 && !PQconsumeInput (self->conn))
+        break;
+      if (self->parent.waiting != NULL && g_get_monotonic_time () >= next_look)
+        {
+          g_autofree char *holder = dup_blocker (self);
+
+          /* Said once per holder; a slow statement alone is no wait. */
+          if (holder != NULL && g_strcmp0 (holder, self->announced_holder) != 0)
+            {
+              self->parent.waiting (self->parent.waiting_data, TRUE, holder);
+              g_free (self->announced_holder);
+              self->announced_holder = g_steal_pointer (&holder);
+              announced = TRUE;
+            }
+          next_look = g_get_monotonic_time () + 2 * G_USEC_PER_SEC;
+        }
+    }
+  if (announced)
+    {
+      g_clear_pointer (&self->announced_holder, g_free);
+      self->parent.waiting (self->parent.waiting_data, FALSE, NULL);
+    }
+  while ((res = PQgetResult (self->conn)) != NULL)
+    {
+      ExecStatusType status = kept ? PQresultStatus (kept) : PGRES_COMMAND_OK;
+
+      /* The first failure is the one to report. */
+      if (status != PGRES_TUPLES_OK && status != PGRES_COMMAND_OK)
+        {
+          PQclear (res);
+          continue;
+        }
+      PQclear (kept);
+      kept = res;
+    }
+  return kept;
+}
+
 PGresult *
 lamina_pg_query (LaminaPg    *self,
                  const char  *sql,
@@ -197,8 +296,9 @@ lamina_pg_query (LaminaPg    *self,
   name = statement_name (self, sql, n, what, error);
   if (name == NULL)
     return NULL;
-  res = PQexecPrepared (self->conn, name, n,
-                        n > 0 ? (const char *const *) params->pdata : NULL, NULL, NULL, 0);
+  res = PQsendQueryPrepared (self->conn, name, n,
+                             n > 0 ? (const char *const *) params->pdata : NULL, NULL, NULL, 0)
+        ? await_result (self) : NULL;
   status = PQresultStatus (res);
   if (status != PGRES_TUPLES_OK && status != PGRES_COMMAND_OK)
     {
@@ -249,7 +349,7 @@ lamina_pg_exec (LaminaPg    *self,
   gboolean ok;
 
   g_return_val_if_fail (!self->pipeline, FALSE);
-  res = PQexec (self->conn, sql);
+  res = PQsendQuery (self->conn, sql) ? await_result (self) : NULL;
   status = PQresultStatus (res);
   ok = status == PGRES_COMMAND_OK || status == PGRES_TUPLES_OK;
 

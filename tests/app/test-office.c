@@ -324,6 +324,14 @@ on_opened_cb (LaminaOfficeDialog *dialog,
   *opened = TRUE;
 }
 
+/* Until the dialog's connection attempt has ended (made, refused). */
+static void
+wait_connected (LaminaOfficeDialog *dialog)
+{
+  while (dialog->connecting != NULL)
+    g_main_context_iteration (NULL, TRUE);
+}
+
 /* A server's library that cannot be opened (nothing listens on port 1;
  * and without the server backend, none can be): the dialog says why, with
  * the connection string, and stays open; nothing is remembered and the
@@ -354,8 +362,16 @@ test_dialog_open_fails (Fixture       *f,
   gtk_check_button_set_active (dialog->remember_check, TRUE);
 
   g_signal_emit_by_name (dialog->open_button, "clicked");
+  /* The connection is made in a worker: the window is not held up, and
+   * says where it connects meanwhile. */
+  g_assert_nonnull (dialog->connecting);
+  g_assert_false (gtk_widget_get_sensitive (GTK_WIDGET (dialog->open_button)));
+  g_assert_cmpstr (gtk_label_get_text (dialog->error_label), ==,
+                   "Connecting to postgresql://ann@127.0.0.1:1/office…");
+  wait_connected (dialog);
   wait_for_draw (GTK_WIDGET (dialog));
   g_assert_false (opened);
+  g_assert_true (gtk_widget_get_sensitive (GTK_WIDGET (dialog->open_button)));
   g_assert_true (gtk_widget_get_visible (GTK_WIDGET (dialog->error_label)));
   message = gtk_label_get_text (dialog->error_label);
   g_assert_true (g_str_has_prefix (message, "Could not open the office library: "));
@@ -402,6 +418,7 @@ test_dialog_opens_server (Fixture       *f,
   gtk_window_present (GTK_WINDOW (dialog));
   gtk_editable_set_text (GTK_EDITABLE (dialog->service_entry), uri);
   g_signal_emit_by_name (dialog->open_button, "clicked");
+  wait_connected (dialog);
   g_assert_nonnull (opened);
   lamina_library_query_init (&query);
   g_assert_cmpint (lamina_library_count (opened, &query, NULL), ==, lamina_library_count (f->library, &query, NULL));

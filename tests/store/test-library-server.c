@@ -523,6 +523,72 @@ test_five_clients (void)
   run_clients ("five", 5);
 }
 
+/* While a save waits for a colleague's row lock, the library's wait
+ * function hears who holds it, as it does for a file library's writer
+ * (and once more when the wait ends); the save then goes through. */
+static gpointer
+commit_later (gpointer data)
+{
+  PGconn *conn = data;
+
+  g_usleep (G_USEC_PER_SEC * 3 / 2);
+  PQclear (PQexec (conn, "COMMIT;"));
+  return NULL;
+}
+
+static void
+record_wait (LaminaLibrary *library,
+             gboolean       waiting,
+             const char    *holder,
+             gpointer       user_data)
+{
+  g_ptr_array_add (user_data, g_strdup_printf ("%s %s", waiting ? "wait" : "done",
+                                               holder ? holder : "-"));
+}
+
+static void
+test_lock_wait (void)
+{
+  g_autofree char *location = test_library_location ("waits");
+  g_autofree char *holder_info = g_strdup_printf ("%s application_name=colleague-tool", location);
+  g_autoptr(LaminaLibrary) library = open_at ("waits");
+  g_autoptr(LaminaConstruction) c = test_make_wall (library, "EW-50", "Awaited wall", NULL, 100);
+  g_autoptr(GPtrArray) calls = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = lamina_library_create_construction (library, c, "A. Planner", &error);
+  g_autoptr(LaminaConstruction) edit = lamina_library_dup_construction (library, id, 0, &error);
+  PGconn *colleague = PQconnectdb (holder_info);
+  PGresult *res;
+  GThread *thread;
+
+  g_assert_no_error (error);
+  g_assert_cmpint (PQstatus (colleague), ==, CONNECTION_OK);
+  res = PQexec (colleague, "BEGIN; SELECT 1 FROM construction FOR UPDATE;");
+  g_assert_cmpint (PQresultStatus (res), ==, PGRES_TUPLES_OK);
+  PQclear (res);
+  lamina_library_set_wait_func (library, record_wait, calls);
+  thread = g_thread_new ("colleague", commit_later, colleague);
+  ((LaminaLayer *) edit->layers->pdata[1])->thickness = 140;
+  g_assert_true (lamina_library_save_construction (library, edit, 1, "A. Planner", &error));
+  g_assert_no_error (error);
+  g_thread_join (thread);
+  PQfinish (colleague);
+  g_assert_cmpuint (calls->len, ==, 2);
+  g_assert_true (g_str_has_prefix (calls->pdata[0], "wait colleague-tool, server process "));
+  g_assert_true (g_str_has_suffix (calls->pdata[0], ", user postgres"));
+  g_assert_cmpstr (calls->pdata[1], ==, "done -");
+
+  /* A password given to the open stays out of the library's path. */
+  {
+    g_autoptr(LaminaLibrary) again = lamina_library_open_with_password (location, "not-shown",
+                                                                        LAMINA_LIBRARY_OPEN_EXISTING,
+                                                                        &error);
+
+    g_assert_no_error (error);
+    g_assert_null (strstr (lamina_library_get_path (again), "not-shown"));
+  }
+}
+
 int
 main (int    argc,
       char **argv)
@@ -538,5 +604,6 @@ main (int    argc,
   g_test_add_func ("/store/server/draft-in-place", test_draft_in_place);
   g_test_add_func ("/store/server/two-clients", test_two_clients);
   g_test_add_func ("/store/server/five-clients", test_five_clients);
+  g_test_add_func ("/store/server/lock-wait", test_lock_wait);
   return g_test_run ();
 }
