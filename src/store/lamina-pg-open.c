@@ -381,11 +381,18 @@ lamina_pg_connect (const char  *conninfo,
   self->conn = lamina_pg_connect_raw (conninfo, password);
   if (PQstatus (self->conn) != CONNECTION_OK)
     {
-      g_autofree char *message = g_strdup (PQerrorMessage (self->conn));
+      g_auto(GStrv) lines = g_strsplit (PQerrorMessage (self->conn), "\n", -1);
+      g_autofree char *message = NULL;
 
+      /* libpq's lines (a reason, then a hint indented by a tab) as one
+       * sentence for a dialog's label or a terminal line. */
+      for (guint i = 0; lines[i] != NULL; i++)
+        g_strstrip (lines[i]);
+      message = g_strjoinv ("; ", lines);
+      while (g_str_has_suffix (message, "; "))
+        message[strlen (message) - 2] = '\0';
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_IO,
-                   "%s: cannot connect to the library server: %s", self->label,
-                   g_strstrip (message));
+                   "%s: cannot connect to the library server: %s", self->label, message);
       lamina_pg_close (&self->parent);
       return NULL;
     }
