@@ -463,8 +463,8 @@ lamina_file_read_limited (const char *path,
         {
           close (fd);
           g_set_error (error, LAMINA_FILE_ERROR, LAMINA_FILE_ERROR_TOO_BIG,
-                       _("%s: the document is larger than %" G_GSIZE_FORMAT " MiB"),
-                       path, limit / (1024 * 1024));
+                       _("%s: the document is larger than %u MiB"),
+                       path, (guint) (limit / (1024 * 1024)));
           return NULL;
         }
       g_byte_array_append (bytes, chunk, (guint) got);
