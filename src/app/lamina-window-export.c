@@ -14,6 +14,7 @@
 #endif
 
 #include "exchange/lamina-catalogue.h"
+#include "lamina-progress-window.h"
 #include "lamina-window-private.h"
 #include "sheet/lamina-section.h"
 #include "sheet/lamina-sheet.h"
@@ -429,12 +430,6 @@ lamina_window_export_catalogue_finish (LaminaWindow  *self,
 }
 
 static void
-on_cancel_clicked_cb (GCancellable *cancellable)
-{
-  g_cancellable_cancel (cancellable);
-}
-
-static void
 catalogue_written_cb (GObject      *source,
                       GAsyncResult *result,
                       gpointer      user_data)
@@ -461,28 +456,12 @@ catalogue_chosen (LaminaWindow *self,
 {
   g_autoptr(GCancellable) cancellable = g_cancellable_new ();
   g_autofree char *path = g_file_get_path (file);
-  GtkWidget *window = gtk_window_new ();
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 12);
-  GtkWidget *bar = gtk_progress_bar_new ();
-  GtkWidget *cancel = gtk_button_new_with_mnemonic (_("_Cancel"));
+  LaminaProgressWindow *progress = lamina_progress_window_new (GTK_WINDOW (self), _("Writing Catalogue"),
+                                                               cancellable);
 
-  gtk_window_set_title (GTK_WINDOW (window), _("Writing Catalogue"));
-  gtk_window_set_transient_for (GTK_WINDOW (window), GTK_WINDOW (self));
-  gtk_window_set_modal (GTK_WINDOW (window), TRUE);
-  gtk_window_set_deletable (GTK_WINDOW (window), FALSE);
-  gtk_widget_set_size_request (window, 360, -1);
-  g_object_set (box, "margin-start", 18, "margin-end", 18, "margin-top", 18, "margin-bottom", 18, NULL);
-  gtk_progress_bar_set_show_text (GTK_PROGRESS_BAR (bar), TRUE);
-  gtk_widget_set_halign (cancel, GTK_ALIGN_END);
-  gtk_box_append (GTK_BOX (box), bar);
-  gtk_box_append (GTK_BOX (box), cancel);
-  gtk_window_set_child (GTK_WINDOW (window), box);
-  g_signal_connect_object (cancel, "clicked", G_CALLBACK (on_cancel_clicked_cb), cancellable,
-                           G_CONNECT_SWAPPED);
-  gtk_window_present (GTK_WINDOW (window));
-
-  lamina_window_export_catalogue_async (self, path, GTK_PROGRESS_BAR (bar), cancellable,
-                                        catalogue_written_cb, g_object_ref (window));
+  gtk_window_present (GTK_WINDOW (progress));
+  lamina_window_export_catalogue_async (self, path, lamina_progress_window_get_bar (progress), cancellable,
+                                        catalogue_written_cb, g_object_ref (progress));
 }
 
 static void

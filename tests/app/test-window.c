@@ -29,6 +29,7 @@
 #include "lamina-method-view-private.h"
 #include "lamina-properties-view-private.h"
 #include "lamina-parts-dialog-private.h"
+#include "lamina-progress-window-private.h"
 #include "lamina-settings.h"
 #include "lamina-dynamic.h"
 #include "lamina-target-dialog.h"
@@ -1217,6 +1218,31 @@ test_editor_dialogs (Fixture       *f,
   g_assert_null (find_other_window (f));
 }
 
+/* The progress window over a worker: Cancel cancels the work's
+ * cancellable; the line of text shows only when there is one. */
+static void
+test_progress_window (Fixture       *f,
+                      gconstpointer  data)
+{
+  g_autoptr(GCancellable) cancellable = g_cancellable_new ();
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "progress-window.png", NULL);
+  LaminaProgressWindow *progress = lamina_progress_window_new (GTK_WINDOW (f->window), _("Writing Catalogue"),
+                                                               cancellable);
+
+  gtk_progress_bar_set_fraction (lamina_progress_window_get_bar (progress), 0.4);
+  gtk_window_present (GTK_WINDOW (progress));
+  wait_for_draw (GTK_WIDGET (progress));
+  g_assert_false (gtk_widget_get_visible (GTK_WIDGET (progress->label)));
+  save_png (GTK_WIDGET (progress), png);
+  lamina_progress_window_set_text (progress, "Reading “demo.xml”…");
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (progress->label)));
+  g_assert_false (g_cancellable_is_cancelled (cancellable));
+  g_signal_emit_by_name (progress->cancel, "clicked");
+  g_assert_true (g_cancellable_is_cancelled (cancellable));
+  gtk_window_destroy (GTK_WINDOW (progress));
+}
+
 static void
 test_construction_properties (Fixture       *f,
                               gconstpointer  data)
@@ -1881,6 +1907,7 @@ main (int   argc,
       g_test_add ("/app/window/construction-properties", Fixture, NULL, fixture_setup, test_construction_properties, fixture_teardown);
       g_test_add ("/app/window/ground-and-taper", Fixture, NULL, fixture_setup, test_ground_and_taper, fixture_teardown);
       g_test_add ("/app/window/editor-dialogs", Fixture, NULL, fixture_setup, test_editor_dialogs, fixture_teardown);
+      g_test_add ("/app/window/progress-window", Fixture, NULL, fixture_setup, test_progress_window, fixture_teardown);
       g_test_add ("/app/window/bridged-parts", Fixture, NULL, fixture_setup, test_bridged_parts, fixture_teardown);
       g_test_add ("/app/window/compare-revisions", Fixture, NULL, fixture_setup, test_compare_revisions, fixture_teardown);
       g_test_add ("/app/window/review-dialogs", Fixture, NULL, fixture_setup, test_review_dialogs, fixture_teardown);
