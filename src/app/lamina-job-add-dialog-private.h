@@ -20,6 +20,8 @@ struct _LaminaJobAddDialog
   GtkEntry        *area_entry;
   GtkCheckButton  *variant_check;
   GtkLabel        *error_label;
+  GtkDropDown     *revision_dropdown;
+  GtkLabel        *revision_note;
 
   /* owned */
   LaminaLibrary   *library;
@@ -27,6 +29,9 @@ struct _LaminaJobAddDialog
   LaminaTargetSet *targets;
   GStrv            uses;
   GPtrArray       *results;    /* LaminaSummary* */
+  char            *chosen_id;  /* the construction the revisions are of */
+  GArray          *revisions;  /* int, as listed in revision_dropdown */
+  GArray          *approved;   /* gboolean, per revision listed */
 };
 
 G_END_DECLS

@@ -1,7 +1,9 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* LaminaJobAddDialog: pick a library construction for a job's schedule.
  * The use comes first: its target sets the filter (maximum U and the
- * element kind the use is for), so the list shows what qualifies. */
+ * element kind the use is for), so the list shows what qualifies.  The
+ * chosen construction's revisions follow, the latest approved selected
+ * (else the latest, noted as not approved), as `job add --revision`. */
 #define G_LOG_DOMAIN "lamina-app"
 
 #include "config.h"
@@ -11,6 +13,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "lamina-job-fields.h"
 #include "lamina-number.h"
 
 /* Common uses offered when the job has no target set. */
@@ -81,6 +84,120 @@ create_row (const LaminaSummary *s)
 }
 
 static void
+update_revision_note (LaminaJobAddDialog *self)
+{
+  guint selected = gtk_drop_down_get_selected (self->revision_dropdown);
+  g_autofree char *note = NULL;
+  int latest_approved = 0;
+
+  for (guint i = 0; i < self->approved->len && latest_approved == 0; i++)
+    if (g_array_index (self->approved, gboolean, i))
+      latest_approved = g_array_index (self->revisions, int, i);
+  if (selected >= self->revisions->len)
+    ;
+  else if (!g_array_index (self->approved, gboolean, selected))
+    note = g_strdup_printf (_("⚠ Revision %d is not approved: the entry is flagged until it is moved "
+                              "to an approved revision."), g_array_index (self->revisions, int, selected));
+  else if (g_array_index (self->revisions, int, selected) != latest_approved)
+    note = g_strdup_printf (_("Revision %d is the latest approved."), latest_approved);
+  gtk_label_set_text (self->revision_note, note ? note : "");
+}
+
+static void
+on_revision_changed_cb (LaminaJobAddDialog *self)
+{
+  if (self->revisions != NULL)
+    update_revision_note (self);
+}
+
+static void
+clear_choice (LaminaJobAddDialog *self)
+{
+  g_autoptr(GtkStringList) none = gtk_string_list_new (NULL);
+
+  g_clear_pointer (&self->chosen_id, g_free);
+  g_array_set_size (self->revisions, 0);
+  g_array_set_size (self->approved, 0);
+  gtk_drop_down_set_model (self->revision_dropdown, G_LIST_MODEL (none));
+  gtk_widget_set_sensitive (GTK_WIDGET (self->revision_dropdown), FALSE);
+  gtk_label_set_text (self->revision_note, _("Choose a construction to see its revisions."));
+}
+
+void
+lamina_job_add_dialog_choose (LaminaJobAddDialog *self,
+                              guint               index)
+{
+  const LaminaSummary *s;
+  g_autoptr(GPtrArray) history = NULL;
+  g_autoptr(GError) error = NULL;
+  gboolean approved = FALSE;
+  int pick;
+
+  g_return_if_fail (index < self->results->len);
+  s = self->results->pdata[index];
+  if (gtk_list_box_get_selected_row (self->result_list) != gtk_list_box_get_row_at_index (self->result_list, (int) index))
+    {
+      /* Selecting the row comes back here through row-selected. */
+      gtk_list_box_select_row (self->result_list, gtk_list_box_get_row_at_index (self->result_list, (int) index));
+      return;
+    }
+  clear_choice (self);
+  history = lamina_library_dup_history (self->library, s->id, &error);
+  pick = history != NULL ? lamina_library_pick_revision (self->library, s->id, 0, &approved, &error) : 0;
+  if (pick == 0)
+    {
+      gtk_label_set_text (self->revision_note, error->message);
+      return;
+    }
+  for (guint i = 0; i < history->len; i++)
+    {
+      gboolean a = ((const LaminaRevisionInfo *) history->pdata[i])->status == LAMINA_STATUS_APPROVED;
+
+      g_array_append_val (self->approved, a);
+    }
+  self->chosen_id = g_strdup (s->id);
+  lamina_job_fields_fill_revisions (self->revision_dropdown, self->revisions, history, pick,
+                                    approved ? _(" (latest approved)") : _(" (latest; none approved)"), pick);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->revision_dropdown), TRUE);
+  update_revision_note (self);
+}
+
+static void
+on_row_selected_cb (LaminaJobAddDialog *self,
+                    GtkListBoxRow      *row)
+{
+  /* The list unselects its rows as the dialog goes. */
+  if (self->revision_dropdown == NULL)
+    return;
+  if (row == NULL)
+    clear_choice (self);
+  else
+    lamina_job_add_dialog_choose (self, (guint) gtk_list_box_row_get_index (row));
+}
+
+int
+lamina_job_add_dialog_get_revision (LaminaJobAddDialog *self)
+{
+  guint selected = gtk_drop_down_get_selected (self->revision_dropdown);
+
+  return self->chosen_id != NULL && selected < self->revisions->len
+         ? g_array_index (self->revisions, int, selected) : 0;
+}
+
+gboolean
+lamina_job_add_dialog_set_revision (LaminaJobAddDialog *self,
+                                    int                 revision)
+{
+  for (guint i = 0; self->chosen_id != NULL && i < self->revisions->len; i++)
+    if (g_array_index (self->revisions, int, i) == revision)
+      {
+        gtk_drop_down_set_selected (self->revision_dropdown, i);
+        return TRUE;
+      }
+  return FALSE;
+}
+
+static void
 refresh (LaminaJobAddDialog *self)
 {
   LaminaLibraryQuery q;
@@ -90,6 +207,9 @@ refresh (LaminaJobAddDialog *self)
   int element = lamina_job_add_dialog_get_element (self);
   char u[LAMINA_U_TEXT_SIZE];
   g_autofree char *filter = NULL;
+  /* A choice survives a new search that still lists it. */
+  g_autofree char *kept = g_strdup (self->chosen_id);
+  int kept_revision = lamina_job_add_dialog_get_revision (self);
   GtkWidget *child;
 
   lamina_library_query_init (&q);
@@ -106,8 +226,15 @@ refresh (LaminaJobAddDialog *self)
     }
   while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->result_list))) != NULL)
     gtk_list_box_remove (self->result_list, child);
+  clear_choice (self);
   for (guint i = 0; i < self->results->len; i++)
     gtk_list_box_append (self->result_list, create_row (self->results->pdata[i]));
+  for (guint i = 0; kept != NULL && i < self->results->len; i++)
+    if (g_strcmp0 (((const LaminaSummary *) self->results->pdata[i])->id, kept) == 0)
+      {
+        lamina_job_add_dialog_choose (self, i);
+        lamina_job_add_dialog_set_revision (self, kept_revision);
+      }
   if (!isnan (max_u))
     filter = g_strdup_printf (_("%u constructions with U ≤ %s W/(m²·K)%s%s"), self->results->len,
                               lamina_format_u (u, max_u), element >= 0 ? _(", element: ") : "",
@@ -138,7 +265,10 @@ lamina_job_add_dialog_add (LaminaJobAddDialog  *self,
 
   g_return_val_if_fail (index < self->results->len, FALSE);
   s = self->results->pdata[index];
-  revision = lamina_library_pick_revision (self->library, s->id, 0, &approved, error);
+  revision = lamina_library_pick_revision (self->library, s->id,
+                                           g_strcmp0 (self->chosen_id, s->id) == 0
+                                           ? lamina_job_add_dialog_get_revision (self) : 0,
+                                           &approved, error);
   if (revision == 0)
     return FALSE;
   e = lamina_job_add_entry (self->job, lamina_job_entry_new (s->id, revision, self->uses[selected]));
@@ -227,6 +357,9 @@ lamina_job_add_dialog_finalize (GObject *object)
   g_clear_pointer (&self->targets, lamina_target_set_free);
   g_clear_pointer (&self->uses, g_strfreev);
   g_clear_pointer (&self->results, g_ptr_array_unref);
+  g_clear_pointer (&self->chosen_id, g_free);
+  g_clear_pointer (&self->revisions, g_array_unref);
+  g_clear_pointer (&self->approved, g_array_unref);
   G_OBJECT_CLASS (lamina_job_add_dialog_parent_class)->finalize (object);
 }
 
@@ -247,6 +380,10 @@ lamina_job_add_dialog_class_init (LaminaJobAddDialogClass *klass)
   gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, area_entry);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, variant_check);
   gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, error_label);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, revision_dropdown);
+  gtk_widget_class_bind_template_child (widget_class, LaminaJobAddDialog, revision_note);
+  gtk_widget_class_bind_template_callback (widget_class, on_row_selected_cb);
+  gtk_widget_class_bind_template_callback (widget_class, on_revision_changed_cb);
   gtk_widget_class_bind_template_callback (widget_class, on_filter_changed_cb);
   gtk_widget_class_bind_template_callback (widget_class, on_add_clicked_cb);
   gtk_widget_class_bind_template_callback (widget_class, gtk_window_destroy);
@@ -255,6 +392,8 @@ lamina_job_add_dialog_class_init (LaminaJobAddDialogClass *klass)
 static void
 lamina_job_add_dialog_init (LaminaJobAddDialog *self)
 {
+  self->revisions = g_array_new (FALSE, FALSE, sizeof (int));
+  self->approved = g_array_new (FALSE, FALSE, sizeof (gboolean));
   gtk_widget_init_template (GTK_WIDGET (self));
 }
 

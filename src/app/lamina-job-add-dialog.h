@@ -26,8 +26,19 @@ double      lamina_job_add_dialog_get_max_u   (LaminaJobAddDialog *self);
 int         lamina_job_add_dialog_get_element (LaminaJobAddDialog *self);
 /* The constructions listed (LaminaSummary*, borrowed). */
 GPtrArray  *lamina_job_add_dialog_get_results (LaminaJobAddDialog *self);
-/* Adds result @index with @area (NAN: none) to the job and saves it
- * (with "As a job variant" ticked, a copy of the chosen revision made for
+/* Chooses result @index: the revisions of its construction are listed,
+ * the default selected (the latest approved, else the latest, with a
+ * note that it is not approved). */
+void        lamina_job_add_dialog_choose      (LaminaJobAddDialog *self,
+                                               guint               index);
+/* The revision selected for the chosen construction (0: none chosen);
+ * set_revision selects @revision, FALSE when it is not listed. */
+int         lamina_job_add_dialog_get_revision (LaminaJobAddDialog *self);
+gboolean    lamina_job_add_dialog_set_revision (LaminaJobAddDialog *self,
+                                                int                 revision);
+/* Adds result @index with @area (NAN: none) to the job and saves it,
+ * pinning the revision selected when @index is the chosen result, else
+ * the default one (with "As a job variant" ticked, a copy of the chosen revision made for
  * the job, linked to it as its origin); the dialog closes. */
 gboolean    lamina_job_add_dialog_add         (LaminaJobAddDialog *self,
                                                guint               index,

@@ -73,30 +73,17 @@ fill_revisions (LaminaJobEntryDialog *self,
                 const LaminaJobEntry *e)
 {
   g_autoptr(GPtrArray) history = lamina_library_dup_history (self->library, e->construction, NULL);
-  g_autoptr(GtkStringList) labels = gtk_string_list_new (NULL);
-  guint selected = 0;
 
-  for (guint i = 0; history != NULL && i < history->len; i++)
-    {
-      const LaminaRevisionInfo *info = history->pdata[i];
-      g_autofree char *label = g_strdup_printf (_("Revision %d — %s%s"), info->revision,
-                                                lamina_status_to_string (info->status),
-                                                info->revision == e->revision ? _(" (pinned)") : "");
-
-      g_array_append_val (self->revisions, info->revision);
-      gtk_string_list_append (labels, label);
-      if (info->revision == e->revision)
-        selected = i;
-    }
-  if (self->revisions->len == 0)
+  if (lamina_job_fields_fill_revisions (self->revision_dropdown, self->revisions, history, e->revision,
+                                        _(" (pinned)"), e->revision) == 0)
     {
       g_autofree char *label = g_strdup_printf (_("Revision %d — not in the library"), e->revision);
+      g_autoptr(GtkStringList) labels = gtk_string_list_new (NULL);
 
       g_array_append_val (self->revisions, e->revision);
       gtk_string_list_append (labels, label);
+      gtk_drop_down_set_model (self->revision_dropdown, G_LIST_MODEL (labels));
     }
-  gtk_drop_down_set_model (self->revision_dropdown, G_LIST_MODEL (labels));
-  gtk_drop_down_set_selected (self->revision_dropdown, selected);
 }
 
 static void

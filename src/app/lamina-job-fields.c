@@ -9,6 +9,36 @@
 #include <math.h>
 
 #include "lamina-error.h"
+#include "lamina-library.h"
+
+guint
+lamina_job_fields_fill_revisions (GtkDropDown     *dropdown,
+                                  GArray          *revisions,
+                                  const GPtrArray *history,
+                                  int              marked,
+                                  const char      *mark,
+                                  int              selected)
+{
+  g_autoptr(GtkStringList) labels = gtk_string_list_new (NULL);
+  guint index = 0;
+
+  g_array_set_size (revisions, 0);
+  for (guint i = 0; history != NULL && i < history->len; i++)
+    {
+      const LaminaRevisionInfo *info = history->pdata[i];
+      g_autofree char *label = g_strdup_printf (_("Revision %d — %s%s"), info->revision,
+                                                lamina_status_to_string (info->status),
+                                                info->revision == marked ? mark : "");
+
+      g_array_append_val (revisions, info->revision);
+      gtk_string_list_append (labels, label);
+      if (info->revision == selected)
+        index = i;
+    }
+  gtk_drop_down_set_model (dropdown, G_LIST_MODEL (labels));
+  gtk_drop_down_set_selected (dropdown, index);
+  return revisions->len;
+}
 
 char *
 lamina_job_fields_dup_text (GtkEntry *entry)

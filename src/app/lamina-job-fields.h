@@ -32,5 +32,15 @@ gboolean  lamina_job_fields_refuse     (GtkEntry          *entry,
                                         GError           **error);
 /* Clears the marks of @entry. */
 void      lamina_job_fields_clear_mark (GtkEntry          *entry);
+/* Lists @history (LaminaRevisionInfo*, newest first) in @dropdown, each
+ * revision with its review status, @marked's with @mark after it, and
+ * selects @selected; @revisions gets the numbers in the same order.
+ * Returns how many were listed. */
+guint     lamina_job_fields_fill_revisions (GtkDropDown     *dropdown,
+                                            GArray          *revisions,
+                                            const GPtrArray *history,
+                                            int              marked,
+                                            const char      *mark,
+                                            int              selected);
 
 G_END_DECLS

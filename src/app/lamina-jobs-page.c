@@ -511,7 +511,7 @@ set_job_actions_enabled (LaminaJobsPage *self,
                          gboolean        enabled)
 {
   static const char *const names[] = {
-    "jobs.add-entry", "jobs.print", "jobs.edit-job", "jobs.add-junction",
+    "jobs.add-entry", "jobs.print", "jobs.edit-job", "jobs.add-junction", "jobs.delete-job",
   };
 
   for (guint i = 0; i < G_N_ELEMENTS (names); i++)
@@ -681,6 +681,36 @@ lamina_jobs_page_open_junction_dialog (LaminaJobsPage *self,
     }
   present (self, dialog);
   return dialog;
+}
+
+static void
+on_job_deleted_cb (LaminaJobsPage *self,
+                   const char     *id)
+{
+  g_autofree char *message = g_strdup_printf (_("Job “%s” deleted."), id);
+
+  lamina_jobs_page_reload (self);
+  gtk_label_set_text (self->status_label, message);
+}
+
+LaminaJobDeleteDialog *
+lamina_jobs_page_open_delete_dialog (LaminaJobsPage *self)
+{
+  LaminaJobDeleteDialog *dialog;
+
+  g_return_val_if_fail (self->report != NULL, NULL);
+  dialog = lamina_job_delete_dialog_new (get_parent (self), self->library, self->report->job);
+  g_signal_connect_object (dialog, "deleted", G_CALLBACK (on_job_deleted_cb), self, G_CONNECT_SWAPPED);
+  gtk_window_present (GTK_WINDOW (dialog));
+  return dialog;
+}
+
+static void
+delete_job_action (GtkWidget  *widget,
+                   const char *name,
+                   GVariant   *parameter)
+{
+  lamina_jobs_page_open_delete_dialog (LAMINA_JOBS_PAGE (widget));
 }
 
 static void
@@ -950,6 +980,7 @@ lamina_jobs_page_class_init (LaminaJobsPageClass *klass)
   gtk_widget_class_install_action (widget_class, "jobs.target-sets", NULL, target_sets_action);
   gtk_widget_class_install_action (widget_class, "jobs.edit-job", NULL, edit_job_action);
   gtk_widget_class_install_action (widget_class, "jobs.add-junction", NULL, add_junction_action);
+  gtk_widget_class_install_action (widget_class, "jobs.delete-job", NULL, delete_job_action);
 }
 
 static void

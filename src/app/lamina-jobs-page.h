@@ -7,6 +7,7 @@
 #include <gtk/gtk.h>
 
 #include "lamina-job-add-dialog.h"
+#include "lamina-job-delete-dialog.h"
 #include "lamina-job-dialog.h"
 #include "lamina-job-entry-dialog.h"
 #include "lamina-job-junction-dialog.h"
@@ -40,6 +41,9 @@ LaminaJobEntryDialog *lamina_jobs_page_open_entry_dialog (LaminaJobsPage *self,
                                                           int             n);
 LaminaJobJunctionDialog *lamina_jobs_page_open_junction_dialog (LaminaJobsPage *self,
                                                                 int             n);
+/* "Delete Job…": asks about the shown job first (see
+ * LaminaJobDeleteDialog); the page shows no job once it is deleted. */
+LaminaJobDeleteDialog *lamina_jobs_page_open_delete_dialog (LaminaJobsPage *self);
 /* The library's target sets, on the shown job's set (else a new one). */
 LaminaTargetSetDialog *lamina_jobs_page_open_target_sets (LaminaJobsPage *self);
 /* For a job variant (entry @n of the selected job): what differs from

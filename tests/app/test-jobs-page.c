@@ -18,6 +18,7 @@
 #include "lamina-job-junction-dialog-private.h"
 #include "lamina-target-set-dialog-private.h"
 #include "lamina-job-add-dialog-private.h"
+#include "lamina-job-delete-dialog-private.h"
 #include "lamina-app-test-util.h"
 
 /* The first label under @widget whose text starts with @prefix. */
@@ -447,6 +448,140 @@ test_target_sets (void)
   demo_window_close (&d);
 }
 
+/* "Delete Job…" asks first, naming the job and its entry count.  A job
+ * submitted or built (its sheets may be out) is deleted only once its job
+ * number is typed in full: a deliberate act for what cannot be undone
+ * (common practice).  The library's constructions stay. */
+static void
+test_jobs_delete (void)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(GPtrArray) jobs = NULL;
+  g_autoptr(LaminaConstruction) kept = NULL;
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "job-delete-dialog.png", NULL);
+  LaminaJobDeleteDialog *dialog;
+  DemoWindow d;
+
+  demo_window_open (&d);
+  /* The demo's terraced houses: submitted, three entries. */
+  g_assert_true (lamina_jobs_page_select (d.page, "demo-job-sloe-row"));
+  dialog = lamina_jobs_page_open_delete_dialog (d.page);
+  g_assert_nonnull (strstr (gtk_label_get_text (dialog->question_label), "TO-2401 “1 Sloe Row, six terraced houses”"));
+  g_assert_nonnull (strstr (gtk_label_get_text (dialog->detail_label), "schedule of 3 entries"));
+  g_assert_cmpstr (lamina_job_delete_dialog_get_key (dialog), ==, "TO-2401");
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (dialog->key_box)));
+  g_assert_false (gtk_widget_get_sensitive (GTK_WIDGET (dialog->delete_button)));
+  gtk_editable_set_text (GTK_EDITABLE (dialog->key_entry), "TO-2402");
+  g_assert_false (gtk_widget_get_sensitive (GTK_WIDGET (dialog->delete_button)));
+  wait_for_draw (GTK_WIDGET (dialog));
+  save_png (GTK_WIDGET (dialog), png);
+  g_test_message ("delete dialog rendered to %s", png);
+  g_assert_false (lamina_job_delete_dialog_delete (dialog, &error));
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+  g_assert_true (g_str_has_prefix (error->message, "Job number: type “TO-2401”"));
+  g_clear_error (&error);
+  jobs = lamina_library_list_jobs (d.library, &error);
+  g_assert_cmpuint (jobs->len, ==, 2);
+  g_clear_pointer (&jobs, g_ptr_array_unref);
+  gtk_editable_set_text (GTK_EDITABLE (dialog->key_entry), " TO-2401 ");
+  g_assert_true (gtk_widget_get_sensitive (GTK_WIDGET (dialog->delete_button)));
+  g_assert_true (lamina_job_delete_dialog_delete (dialog, &error));
+  g_assert_no_error (error);
+  jobs = lamina_library_list_jobs (d.library, &error);
+  g_assert_cmpuint (jobs->len, ==, 1);
+  g_clear_pointer (&jobs, g_ptr_array_unref);
+  g_assert_null (lamina_jobs_page_get_job_id (d.page));
+
+  /* The school: in design, five entries; asked, no number to type. */
+  g_assert_true (lamina_jobs_page_select (d.page, "demo-job-riverside"));
+  dialog = lamina_jobs_page_open_delete_dialog (d.page);
+  g_assert_null (lamina_job_delete_dialog_get_key (dialog));
+  g_assert_false (gtk_widget_get_visible (GTK_WIDGET (dialog->key_box)));
+  g_assert_nonnull (strstr (gtk_label_get_text (dialog->detail_label), "schedule of 5 entries"));
+  g_assert_true (gtk_widget_get_sensitive (GTK_WIDGET (dialog->delete_button)));
+  g_assert_true (lamina_job_delete_dialog_delete (dialog, &error));
+  jobs = lamina_library_list_jobs (d.library, &error);
+  g_assert_cmpuint (jobs->len, ==, 0);
+  kept = lamina_library_dup_construction (d.library, "demo-ew-203", 0, &error);
+  g_assert_no_error (error);
+  demo_window_close (&d);
+}
+
+/* The index of the result with office code @code. */
+static guint
+find_result (LaminaJobAddDialog *dialog,
+             const char         *code)
+{
+  GPtrArray *results = lamina_job_add_dialog_get_results (dialog);
+
+  for (guint i = 0; i < results->len; i++)
+    if (g_strcmp0 (((LaminaSummary *) results->pdata[i])->code, code) == 0)
+      return i;
+  g_error ("%s is not among the results", code);
+  return 0;
+}
+
+/* "Add from Library…" lists the chosen construction's revisions, the
+ * latest approved selected (as `job add` pins by default); another one
+ * can be pinned and is noted as not approved; a construction with no
+ * approved revision offers its latest with that note.  EW-101 of the
+ * demo: revision 3 approved, and here a draft 4 after it; EW-102: one
+ * draft. */
+static void
+test_jobs_add_revision (void)
+{
+  g_autoptr(GError) error = NULL;
+  g_autoptr(LaminaJob) job = NULL;
+  g_autoptr(LaminaJobReport) report = NULL;
+  g_autoptr(LaminaConstruction) draft = NULL;
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "job-add-dialog.png", NULL);
+  LaminaJobAddDialog *dialog;
+  const LaminaJobLine *line;
+  DemoWindow d;
+  guint pick;
+
+  demo_window_open (&d);
+  draft = lamina_library_dup_construction (d.library, "demo-ew-101", 0, &error);
+  ((LaminaLayer *) draft->layers->pdata[0])->thickness += 10;
+  g_assert_true (lamina_library_save_construction (d.library, draft, 3, "A. Planner", &error));
+  g_assert_no_error (error);
+  g_assert_cmpint (draft->revision, ==, 4);
+  g_assert_true (lamina_jobs_page_select (d.page, "demo-job-riverside"));
+  dialog = lamina_jobs_page_open_add_dialog (d.page, "external-wall");
+  g_assert_cmpint (lamina_job_add_dialog_get_revision (dialog), ==, 0);
+  gtk_check_button_set_active (dialog->meets_check, FALSE);
+  lamina_job_add_dialog_set_search (dialog, "EW-102");
+  lamina_job_add_dialog_choose (dialog, find_result (dialog, "EW-102"));
+  g_assert_cmpint (lamina_job_add_dialog_get_revision (dialog), ==, 1);
+  g_assert_nonnull (strstr (gtk_label_get_text (dialog->revision_note), "Revision 1 is not approved"));
+
+  lamina_job_add_dialog_set_search (dialog, "EW-101");
+  pick = find_result (dialog, "EW-101");
+  lamina_job_add_dialog_choose (dialog, pick);
+  g_assert_cmpint (lamina_job_add_dialog_get_revision (dialog), ==, 3);
+  g_assert_cmpuint (dialog->revisions->len, ==, 2);
+  g_assert_cmpstr (gtk_label_get_text (dialog->revision_note), ==, "");
+  g_assert_false (lamina_job_add_dialog_set_revision (dialog, 9));
+  g_assert_true (lamina_job_add_dialog_set_revision (dialog, 4));
+  g_assert_nonnull (strstr (gtk_label_get_text (dialog->revision_note), "Revision 4 is not approved"));
+  wait_for_draw (GTK_WIDGET (dialog));
+  save_png (GTK_WIDGET (dialog), png);
+  g_test_message ("add dialog rendered to %s", png);
+  g_assert_true (lamina_job_add_dialog_add (dialog, pick, 12, &error));
+  g_assert_no_error (error);
+
+  job = lamina_library_dup_job (d.library, "demo-job-riverside", &error);
+  g_assert_cmpuint (job->entries->len, ==, 6);
+  g_assert_cmpstr (((LaminaJobEntry *) job->entries->pdata[5])->construction, ==, "demo-ew-101");
+  g_assert_cmpint (((LaminaJobEntry *) job->entries->pdata[5])->revision, ==, 4);
+  report = lamina_library_check_job (d.library, "demo-job-riverside", &error);
+  line = report->check->lines->pdata[5];
+  g_assert_true (line->flags & LAMINA_ENTRY_NOT_APPROVED);
+  demo_window_close (&d);
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -455,5 +590,7 @@ main (int   argc,
   g_test_add_func ("/app/jobs/page", test_jobs_page);
   g_test_add_func ("/app/jobs/edit", test_jobs_edit);
   g_test_add_func ("/app/jobs/target-sets", test_target_sets);
+  g_test_add_func ("/app/jobs/add-revision", test_jobs_add_revision);
+  g_test_add_func ("/app/jobs/delete", test_jobs_delete);
   return g_test_run ();
 }
