@@ -155,10 +155,6 @@ fill_data (LaminaJobsPage *self)
   g_autofree char *conditions = g_strdup_printf (_("inside %s, outside %s"),
                                                  lamina_format_temperature (inside, job->inside_temperature),
                                                  lamina_format_temperature (outside, job->outside_temperature));
-  g_autofree char *targets = self->report->targets
-    ? g_strdup_printf ("%s (%s)", self->report->targets->name,
-                       self->report->targets->source ? self->report->targets->source : job->target_set)
-    : g_strdup (_("none set"));
   GtkWidget *child;
   int row = 0;
 
@@ -182,7 +178,10 @@ fill_data (LaminaJobsPage *self)
     }
   else
     add_field (self, row++, _("Climate"), self->report->climate ? self->report->climate->name : job->climate);
-  add_field (self, row++, _("Targets"), targets);
+  /* The set's name, then where its values come from: each once. */
+  add_field (self, row++, _("Targets"), self->report->targets ? self->report->targets->name : _("none set"));
+  if (self->report->targets != NULL && self->report->targets->source != NULL)
+    add_field (self, row++, _("Source of targets"), self->report->targets->source);
 }
 
 /* The schedule */
@@ -812,10 +811,8 @@ lamina_jobs_page_export_entry (LaminaJobsPage  *self,
                                GError         **error)
 {
   g_autofree char *practice = NULL;
-  g_autoptr(LaminaConstruction) c = NULL;
   const LaminaJobLine *line = find_line (self, n);
   LaminaSheetOptions options;
-  LaminaSheetJob band;
 
   g_return_val_if_fail (self->report != NULL, FALSE);
   if (line == NULL || line->construction == NULL)
@@ -825,12 +822,7 @@ lamina_jobs_page_export_entry (LaminaJobsPage  *self,
       return FALSE;
     }
   init_options (self, &options, &practice);
-  band = (LaminaSheetJob) { self->report->job->name, self->report->job->number,
-                            self->report->job->client, line->entry->use };
-  options.job = &band;
-  c = lamina_construction_copy (line->construction);
-  c->target_u = line->max_u;
-  return lamina_sheet_write_pdf (path, TRUE, &options, c, error);
+  return lamina_sheet_write_job_entry (path, TRUE, &options, self->report->job, line, error);
 }
 
 /* The sheet set */

@@ -227,8 +227,11 @@ verdict_word (LaminaVerdict verdict)
          : verdict == LAMINA_VERDICT_NOT_MET ? _("NOT MET") : _("not assessed");
 }
 
-char *
-lamina_job_line_dup_moisture_text (const LaminaJobLine *line)
+/* @brief: without the standard's name and the accumulation, for a sheet
+ * whose own moisture line gives both. */
+static char *
+dup_criteria_text (const LaminaJobLine *line,
+                   gboolean             brief)
 {
   const LaminaTarget *t = line->target;
   g_autoptr(GString) text = NULL;
@@ -236,7 +239,7 @@ lamina_job_line_dup_moisture_text (const LaminaJobLine *line)
   if (t == NULL || (isnan (t->min_frsi) && t->moisture == LAMINA_MOISTURE_NONE)
       || line->construction == NULL)
     return NULL;
-  text = g_string_new ("EN ISO 13788:");
+  text = g_string_new (brief ? "" : "EN ISO 13788:");
   if (!isnan (t->min_frsi) && !isnan (line->frsi))
     g_string_append_printf (text, _(" fRsi %.3f, minimum %.3f: %s"), line->frsi, t->min_frsi,
                             verdict_word ((line->flags & LAMINA_ENTRY_FRSI_NOT_MET)
@@ -248,13 +251,25 @@ lamina_job_line_dup_moisture_text (const LaminaJobLine *line)
 
       g_string_append_printf (text, "%s %s: %s", isnan (t->min_frsi) ? "" : ";", criterion,
                               verdict_word (line->moisture_verdict));
-      if (line->moisture != NULL)
+      if (line->moisture != NULL && !brief)
         g_string_append_printf (text, _(" (largest accumulation %.3f kg/m², %s)"),
                                 line->moisture->max_accumulation,
                                 line->moisture->dries_out ? _("dry at the end of the year")
                                                           : _("still wet at the end of the year"));
     }
-  return g_string_free (g_steal_pointer (&text), FALSE);
+  return g_strchug (g_string_free (g_steal_pointer (&text), FALSE));
+}
+
+char *
+lamina_job_line_dup_moisture_text (const LaminaJobLine *line)
+{
+  return dup_criteria_text (line, FALSE);
+}
+
+char *
+lamina_job_line_dup_criteria_text (const LaminaJobLine *line)
+{
+  return dup_criteria_text (line, TRUE);
 }
 
 static void

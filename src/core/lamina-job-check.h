@@ -111,6 +111,10 @@ gboolean        lamina_moisture_criterion_met (LaminaMoistureCriterion     crite
  * target, pass or fail ("EN ISO 13788: fRsi 0.94 ≥ 0.75 met; no
  * condensation: met …"); NULL when the target asks neither. */
 char           *lamina_job_line_dup_moisture_text (const LaminaJobLine *line);
+/* The same criteria without the standard's name and the accumulation
+ * ("fRsi 0.94, minimum 0.75: met; …"), for a sheet whose own EN ISO 13788
+ * line gives both. */
+char           *lamina_job_line_dup_criteria_text (const LaminaJobLine *line);
 
 /* @inputs holds one LaminaJobInput per entry of @job, in order; @targets
  * may be NULL (then nothing has a target). */

@@ -171,7 +171,7 @@ write_pages (cairo_surface_t          *surface,
         }
     }
   first_sheet = source->front_matter ? 2 + index_pages : 1;
-  if (source->job_set != NULL)
+  if (source->job_set != NULL && source->job_set->front)
     first_sheet = 1 + sheet_job_count_front (&ctx, source->job_set);
   /* Every page is numbered "n of N" as it is written, so the moisture
    * pages are counted first: from the index rows of a catalogue, else by
@@ -198,7 +198,7 @@ write_pages (cairo_surface_t          *surface,
         }
     }
   ctx.n_pages = first_sheet - 1 + source->n + extra_pages;
-  if (source->job_set != NULL)
+  if (source->job_set != NULL && source->job_set->front)
     {
       set_metadata (surface, &ctx, source->job_set->job->name);
       sheet_job_draw_front (&ctx, source->job_set, first_sheet);
@@ -238,10 +238,10 @@ write_pages (cairo_surface_t          *surface,
           ok = FALSE;
           break;
         }
-      if (!source->front_matter && source->job_set == NULL)
+      if (!source->front_matter && (source->job_set == NULL || !source->job_set->front))
         set_metadata (surface, &ctx, c->name);
       if (source->job_set != NULL)
-        ctx.job_use = ((const LaminaJobLine *) source->job_set->sheets->pdata[i])->entry->use;
+        ctx.job_line = source->job_set->sheets->pdata[i];
       ctx.page = page;
       add_sheet_outline (surface, parents, c, dest);
       ctx.dest = name;

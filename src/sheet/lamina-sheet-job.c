@@ -69,7 +69,7 @@ sheet_draw_job_band (SheetContext *ctx,
                      double        y)
 {
   const LaminaSheetJob *job = ctx->options->job;
-  const char *use = ctx->job_use ? ctx->job_use : job->use;
+  const char *use = ctx->job_line ? ctx->job_line->entry->use : job->use;
   double w = ctx->right - ctx->left;
   g_autofree char *left = g_strdup_printf ("%s%s%s", job->number ? job->number : "",
                                            job->number ? "  " : "", job->name ? job->name : "");
@@ -90,6 +90,16 @@ sheet_draw_job_band (SheetContext *ctx,
     sheet_text_line (ctx, SHEET_FONT_BODY, right, ctx->left + w * 0.45, y + 3, w * 0.55 - 6,
                      PANGO_ALIGN_RIGHT);
   return y + 15 + 6;
+}
+
+char *
+sheet_job_dup_criteria_text (const SheetContext *ctx)
+{
+  g_autofree char *moisture = ctx->job_line ? lamina_job_line_dup_criteria_text (ctx->job_line) : NULL;
+
+  if (moisture == NULL)
+    return NULL;
+  return g_strdup_printf (_("The job's target for “%s”: %s"), ctx->job_line->entry->use, moisture);
 }
 
 /* The cover */
@@ -134,7 +144,6 @@ draw_cover (SheetContext      *ctx,
   const LaminaJobCheck *check = set->check;
   double w = ctx->right - ctx->left, y = ctx->top + (ctx->bottom - ctx->top) * 0.18;
   g_autofree char *conditions = dup_conditions (job);
-  g_autofree char *targets = NULL;
   g_autofree char *summary = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
                                                            "%u entry: met %u, not met %u, without a target or figure %u",
                                                            "%u entries: met %u, not met %u, without a target or figure %u",
@@ -142,10 +151,6 @@ draw_cover (SheetContext      *ctx,
                                               check->lines->len, check->n_met, check->n_not_met,
                                               check->n_open);
 
-  if (set->targets)
-    targets = g_strdup_printf ("%s%s%s%s", set->targets->name, set->targets->source ? " (" : "",
-                               set->targets->source ? set->targets->source : "",
-                               set->targets->source ? ")" : "");
   g_clear_pointer (&ctx->footer, g_free);
   ctx->footer = g_strdup_printf ("%s%s%s", ctx->options->practice ? ctx->options->practice : "",
                                  ctx->options->practice ? " · " : "", job->name);
@@ -167,7 +172,11 @@ draw_cover (SheetContext      *ctx,
   y += draw_cover_field (ctx, _("STATUS"), job_status_label (job->status), y);
   y += draw_cover_field (ctx, _("DATE"), ctx->printed, y);
   y += draw_cover_field (ctx, _("DESIGN CONDITIONS"), conditions, y);
-  y += draw_cover_field (ctx, _("TARGETS"), targets ? targets : _("none set"), y) + 10;
+  /* The set's name, then where its values come from: each once. */
+  y += draw_cover_field (ctx, _("TARGETS"), set->targets ? set->targets->name : _("none set"), y);
+  if (set->targets != NULL && set->targets->source != NULL)
+    y += draw_cover_field (ctx, _("SOURCE OF TARGETS"), set->targets->source, y);
+  y += 10;
   sheet_text (ctx, SHEET_FONT_BOLD, summary, ctx->left, y, w, PANGO_ALIGN_LEFT);
 
   set_grey (ctx);
@@ -218,15 +227,49 @@ totals_height (const SheetJobSet *set)
   return 70 + ROW * (kinds + set->job->junctions->len) + (set->job->junctions->len > 0 ? 2 * ROW : 0);
 }
 
-static double
-room_on_page (const SheetContext *ctx)
+/* On every schedule page, as the cautions close every sheet. */
+static const char *
+get_schedule_cautions (void)
 {
-  return ctx->bottom - 30 - ctx->top - HEAD;
+  return _("Cautions. The targets are the values the office entered for this job: check them against the "
+           "building code that applies. U, U·A and H_T hold for the stated design values and conditions "
+           "only. H_T is the heat transmission through the fabric of the listed elements only: it includes "
+           "no thermal bridges unless ψ·l entries are listed, and no ventilation or elements not listed. "
+           "A moisture line is the monthly method of EN ISO 13788, not a full hygrothermal assessment. "
+           "The figures do not replace the check of the design against product declarations, the local "
+           "building code and licensed professional practice.");
+}
+
+static double
+measure_cautions (SheetContext *ctx)
+{
+  double h = 0;
+
+  sheet_text_set (ctx, SHEET_FONT_SMALL, get_schedule_cautions (), ctx->right - ctx->left, NULL, &h);
+  return h;
+}
+
+static void
+draw_cautions (SheetContext *ctx)
+{
+  double h = measure_cautions (ctx);
+
+  set_grey (ctx);
+  sheet_rule (ctx, ctx->bottom - 20 - h, 0.4, 0.6);
+  sheet_text (ctx, SHEET_FONT_SMALL, get_schedule_cautions (), ctx->left, ctx->bottom - 16 - h,
+              ctx->right - ctx->left, PANGO_ALIGN_LEFT);
+  set_black (ctx);
+}
+
+static double
+room_on_page (SheetContext *ctx)
+{
+  return ctx->bottom - 30 - ctx->top - HEAD - measure_cautions (ctx) - 8;
 }
 
 /* Entries that fit on each page from @first; the totals go on the last. */
 static guint
-count_rows (const SheetContext *ctx,
+count_rows (SheetContext       *ctx,
             const SheetJobSet  *set,
             guint               first,
             gboolean           *totals_fit)
@@ -437,6 +480,7 @@ sheet_job_draw_front (SheetContext      *ctx,
       first_page = FALSE;
       if (first >= set->check->lines->len && totals_fit)
         draw_totals (ctx, set, y);
+      draw_cautions (ctx);
       sheet_draw_footer (ctx);
       cairo_show_page (ctx->cr);
     }
@@ -449,10 +493,33 @@ sheet_job_draw_front (SheetContext      *ctx,
       sheet_draw_frame (ctx, FALSE);
       draw_schedule_head (ctx, set, FALSE, &y);
       draw_totals (ctx, set, y);
+      draw_cautions (ctx);
       sheet_draw_footer (ctx);
       cairo_show_page (ctx->cr);
     }
   g_assert (ctx->page + 1 == first_sheet_page);
+}
+
+/* Writes @lines (LaminaJobLine* with a construction) of @job: with
+ * @targets and @check, the cover and the schedule first (@check NULL:
+ * the sheets alone). */
+static gboolean
+write_job_sheets (const char               *path,
+                  gboolean                  overwrite,
+                  const LaminaSheetOptions *options,
+                  const LaminaJob          *job,
+                  const LaminaTargetSet    *targets,
+                  const LaminaJobCheck     *check,
+                  GPtrArray                *lines,
+                  GError                  **error)
+{
+  SheetJobSet set = { job, targets, check, lines, { 0 }, *options, check != NULL };
+
+  set.band = (LaminaSheetJob) { job->name, job->number, job->client, NULL };
+  set.options.job = &set.band;
+  if (check != NULL)
+    set.options.title = job->name;
+  return sheet_write_job_document (path, overwrite, &set, error);
 }
 
 gboolean
@@ -464,19 +531,29 @@ lamina_sheet_write_job (const char               *path,
                         const LaminaJobCheck     *check,
                         GError                  **error)
 {
-  SheetJobSet set = { job, targets, check, NULL, { 0 }, *options };
-  gboolean ok;
+  g_autoptr(GPtrArray) lines = g_ptr_array_new ();
 
   g_return_val_if_fail (path != NULL && options != NULL && job != NULL && check != NULL, FALSE);
 
-  set.sheets = g_ptr_array_new ();
   for (guint i = 0; i < check->lines->len; i++)
     if (((const LaminaJobLine *) check->lines->pdata[i])->construction != NULL)
-      g_ptr_array_add (set.sheets, check->lines->pdata[i]);
-  set.band = (LaminaSheetJob) { job->name, job->number, job->client, NULL };
-  set.options.job = &set.band;
-  set.options.title = job->name;
-  ok = sheet_write_job_document (path, overwrite, &set, error);
-  g_ptr_array_unref (set.sheets);
-  return ok;
+      g_ptr_array_add (lines, check->lines->pdata[i]);
+  return write_job_sheets (path, overwrite, options, job, targets, check, lines, error);
+}
+
+gboolean
+lamina_sheet_write_job_entry (const char               *path,
+                              gboolean                  overwrite,
+                              const LaminaSheetOptions *options,
+                              const LaminaJob          *job,
+                              const LaminaJobLine      *line,
+                              GError                  **error)
+{
+  g_autoptr(GPtrArray) lines = g_ptr_array_new ();
+
+  g_return_val_if_fail (path != NULL && options != NULL && job != NULL && line != NULL, FALSE);
+  g_return_val_if_fail (line->construction != NULL, FALSE);
+
+  g_ptr_array_add (lines, (gpointer) line);
+  return write_job_sheets (path, overwrite, options, job, NULL, NULL, lines, error);
 }

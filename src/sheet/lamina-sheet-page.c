@@ -770,6 +770,17 @@ sheet_draw_page (SheetContext             *ctx,
       g_free (warnings);
       warnings = joined;
     }
+  if (ctx->job_line != NULL)
+    {
+      g_autofree char *criteria = sheet_job_dup_criteria_text (ctx);
+      char *joined = criteria ? g_strconcat (warnings, *warnings ? "\n" : "", "→  ", criteria, NULL) : NULL;
+
+      if (joined != NULL)
+        {
+          g_free (warnings);
+          warnings = joined;
+        }
+    }
   g_free (ctx->footer);
   ctx->footer = dup_footer (ctx, c);
   sheet_draw_frame (ctx, c->status == LAMINA_STATUS_DRAFT);
@@ -787,10 +798,12 @@ sheet_draw_page (SheetContext             *ctx,
     applied_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, method) + GAP;
   method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, foot);
 
-  /* The section takes the height left, within bounds. */
+  /* The section takes the height left, within bounds: on a full page
+   * (a draft's band, a job's band and its criteria, many warnings) it
+   * gives way down to 17 % of the page before the text below is cut. */
   room = ctx->bottom - 24 - method_h - y - table_h - RESULTS_HEIGHT - warn_h - corr_h - dyn_h - notes_h
          - ground_h - applied_h - 2 * GAP - 6;
-  section_h = CLAMP (room, page_h * 0.2, page_h * 0.4);
+  section_h = CLAMP (room, page_h * 0.17, page_h * 0.4);
   y = draw_section (ctx, c, result, y, section_h);
   y = draw_layer_table (ctx, c, result, y);
   y = draw_results (ctx, c, result, y);

@@ -60,7 +60,7 @@ typedef struct
   char                     *footer;       /* owned: what the page is (practice,
                                              code, revision, date); NULL = the
                                              practice and the title */
-  const char               *job_use;      /* the entry's use on a job's sheet */
+  const LaminaJobLine      *job_line;     /* the entry on a job's sheet, or NULL */
 } SheetContext;
 
 /* A job's sheet set being written (lamina-sheet-job.c). */
@@ -72,6 +72,8 @@ typedef struct
   GPtrArray             *sheets;     /* LaminaJobLine* with a construction */
   LaminaSheetJob         band;
   LaminaSheetOptions     options;    /* the caller's, with .job = &band */
+  gboolean               front;      /* the cover and the schedule first;
+                                        FALSE: one entry's sheet alone */
 } SheetJobSet;
 
 /* Pages of the cover and the schedule. */
@@ -81,6 +83,10 @@ guint  sheet_job_count_front (SheetContext      *ctx,
 void   sheet_job_draw_front  (SheetContext      *ctx,
                               const SheetJobSet *set,
                               guint              first_sheet_page);
+/* The line a job's sheet adds to its warnings: the entry's EN ISO 13788
+ * criteria against the job's target for its use (NULL when the target
+ * asks none or the sheet is not a job's). */
+char  *sheet_job_dup_criteria_text (const SheetContext *ctx);
 /* The band with the job above a construction's header; returns the y
  * below it. */
 double sheet_draw_job_band   (SheetContext      *ctx,

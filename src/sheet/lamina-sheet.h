@@ -111,4 +111,15 @@ gboolean lamina_sheet_write_job       (const char               *path,
                                        const LaminaJobCheck     *check,
                                        GError                  **error);
 
+/* The sheet of one entry of a job (@line of its check) as the job's sheet
+ * set prints it: the job's band with the entry's use, U compared with the
+ * use's target, the entry's EN ISO 13788 criteria in the warnings, in the
+ * job's design conditions. */
+gboolean lamina_sheet_write_job_entry (const char               *path,
+                                       gboolean                  overwrite,
+                                       const LaminaSheetOptions *options,
+                                       const LaminaJob          *job,
+                                       const LaminaJobLine      *line,
+                                       GError                  **error);
+
 G_END_DECLS

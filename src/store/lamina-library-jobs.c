@@ -449,10 +449,26 @@ climate_changed (LaminaLibrary            *self,
   return library != NULL && !lamina_climate_equal (library, c->moisture->climate_data);
 }
 
+/* The job's climate (one the library holds) in place of the one @c was
+ * checked for, so that the sheets issued for the job show the moisture
+ * check its schedule reports. */
+static void
+use_job_climate (LaminaConstruction  *c,
+                 const LaminaClimate *climate)
+{
+  if (climate == NULL || c->moisture == NULL)
+    return;
+  g_free (c->moisture->climate);
+  c->moisture->climate = g_strdup (climate->id);
+  g_clear_pointer (&c->moisture->climate_data, lamina_climate_free);
+  c->moisture->climate_data = lamina_climate_copy (climate);
+}
+
 /* EN ISO 13788 for entry @e when its use asks a moisture criterion: in
  * the job's climate when it names one the library holds, else in the
- * climate the construction was checked for; the inside conditions are
- * the construction's (humidity class or φi) at the job's temperature. */
+ * climate the construction was checked for (use_job_climate has put it
+ * in @c); the inside conditions are the construction's (humidity class or
+ * φi) at the job's temperature. */
 static void
 assess_moisture (LaminaJobReport          *report,
                  const LaminaJobEntry     *e,
@@ -460,7 +476,6 @@ assess_moisture (LaminaJobReport          *report,
                  LaminaJobInput           *input)
 {
   const LaminaTarget *t = report->targets ? lamina_target_set_find (report->targets, e->use) : NULL;
-  g_autoptr(LaminaConstruction) copy = NULL;
   g_autoptr(GError) error = NULL;
   LaminaMoistureResult *result = NULL;
   char *problem = NULL;
@@ -472,15 +487,7 @@ assess_moisture (LaminaJobReport          *report,
                                "was not applied.", c->code ? c->code : c->id);
   else
     {
-      copy = lamina_construction_copy (c);
-      if (report->climate != NULL)
-        {
-          g_free (copy->moisture->climate);
-          copy->moisture->climate = g_strdup (report->climate->id);
-          g_clear_pointer (&copy->moisture->climate_data, lamina_climate_free);
-          copy->moisture->climate_data = lamina_climate_copy (report->climate);
-        }
-      result = lamina_moisture_calculate_own (copy, NAN, &error);
+      result = lamina_moisture_calculate_own (c, NAN, &error);
       if (result == NULL)
         problem = g_strdup_printf ("EN ISO 13788 could not be applied: %s", error->message);
     }
@@ -529,6 +536,7 @@ fill_input (LaminaLibrary        *self,
     input->flags |= LAMINA_ENTRY_MATERIAL_CHANGED;
   if (climate_changed (self, c))
     input->flags |= LAMINA_ENTRY_CLIMATE_CHANGED;
+  use_job_climate (c, report->climate);
   assess_moisture (report, e, c, input);
   input->construction = c;
   input->result = result;

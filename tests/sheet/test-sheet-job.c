@@ -70,6 +70,7 @@ fixture_set_up (Fixture *f)
   f->job->status = LAMINA_JOB_STATUS_SUBMITTED;
   f->job->target_set = g_strdup ("invented");
   f->targets = lamina_target_set_new ("invented", "Invented test table");
+  f->targets->source = g_strdup ("Made up for this test");
   lamina_target_set_add (f->targets, lamina_target_new ("external-wall", 0.25));
   ((LaminaTarget *) f->targets->targets->pdata[0])->moisture = LAMINA_MOISTURE_NO_CONDENSATION;
   lamina_target_set_add (f->targets, lamina_target_new ("roof", 0.10));
@@ -140,6 +141,9 @@ test_sheet_set (void)
   assert_contains (cover, "2024-05-02", "cover");
   assert_contains (cover, "Submitted", "cover");
   assert_contains (cover, "Invented test table", "cover");
+  /* The set's name, then its source, each once. */
+  assert_contains (cover, "TARGETSInvented test table SOURCE OF TARGETSMade up for this test", "cover targets");
+  g_assert_null (strstr (strstr (cover, "Made up for this test") + 1, "Made up for this test"));
   /* The count line agrees with the check, with numbers after their words
    * so that one entry reads as well as four. */
   g_snprintf (expect, sizeof expect, "4 entries: met %u, not met %u, without a target or figure %u",
@@ -175,6 +179,13 @@ test_sheet_set (void)
   assert_contains (schedule, "no interstitial condensation: not assessed", "schedule moisture");
   /* The flat roof does not meet the invented 0.10. */
   assert_contains (schedule, "NO", "schedule");
+  /* The cautions every sheet carries (common practice), on the schedule
+   * too: local code and licensed practice, the fabric of the listed
+   * elements only, no thermal bridges but the ψ·l entries listed. */
+  assert_contains (schedule, "Cautions.", "schedule cautions");
+  assert_contains (schedule, "licensed professional practice", "schedule cautions");
+  assert_contains (schedule, "the fabric of the listed elements only: it includes no thermal bridges "
+                             "unless ψ·l entries are listed", "schedule cautions");
 
   for (int p = 2; p < 5; p++)
     {
@@ -187,8 +198,69 @@ test_sheet_set (void)
       assert_contains (text, line->construction->code, "sheet");
       /* The job's design conditions: 21 °C inside. */
       assert_contains (text, "21.0 °C", "sheet conditions");
+      /* The entry's EN ISO 13788 criteria as the schedule states them. */
+      {
+        g_autofree char *criteria = lamina_job_line_dup_criteria_text (line);
+
+        if (criteria != NULL)
+          {
+            g_autofree char *sentence = g_strdup_printf ("The job's target for “%s”: %s",
+                                                         line->entry->use, criteria);
+
+            assert_contains (text, sentence, "sheet criteria");
+          }
+      }
     }
   g_unlink (path);
+  g_rmdir (dir);
+  fixture_tear_down (&f);
+}
+
+/* One entry's sheet from the window is the set's sheet of that entry:
+ * the band, the job's conditions, the comparison with the use's target
+ * and the EN ISO 13788 criteria line, from one function. */
+static void
+test_entry_sheet (void)
+{
+  Fixture f;
+  g_autofree char *dir = g_dir_make_tmp ("lamina-job-XXXXXX", NULL);
+  g_autofree char *set_path = g_build_filename (dir, "set.pdf", NULL);
+  g_autofree char *one_path = g_build_filename (dir, "one.pdf", NULL);
+  g_autofree char *set_uri = g_filename_to_uri (set_path, NULL, NULL);
+  g_autofree char *one_uri = g_filename_to_uri (one_path, NULL, NULL);
+  g_autoptr(PopplerDocument) set = NULL;
+  g_autoptr(PopplerDocument) one = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *in_set = NULL, *alone = NULL, *criteria = NULL;
+  const LaminaJobLine *roof;
+  LaminaSheetOptions options;
+
+  fixture_set_up (&f);
+  roof = f.check->lines->pdata[1];
+  lamina_sheet_options_init (&options);
+  options.printed = "2024-05-02";
+  g_assert_true (lamina_sheet_write_job (set_path, FALSE, &options, f.job, f.targets, f.check, &error));
+  g_assert_true (lamina_sheet_write_job_entry (one_path, FALSE, &options, f.job, roof, &error));
+  g_assert_no_error (error);
+  set = poppler_document_new_from_file (set_uri, NULL, &error);
+  one = poppler_document_new_from_file (one_uri, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (poppler_document_get_n_pages (one), ==, 1);
+  in_set = dup_page_text (set, 3);
+  alone = dup_page_text (one, 0);
+  criteria = lamina_job_line_dup_criteria_text (roof);
+  g_assert_nonnull (criteria);
+  for (guint i = 0; i < 2; i++)
+    {
+      const char *text = i == 0 ? in_set : alone;
+
+      assert_contains (text, "T-204 Test house by the mill", "band");
+      assert_contains (text, "Client: M. Client · Use: roof", "band");
+      assert_contains (text, criteria, "criteria");
+      assert_contains (text, "21.0 °C", "conditions");
+    }
+  g_unlink (set_path);
+  g_unlink (one_path);
   g_rmdir (dir);
   fixture_tear_down (&f);
 }
@@ -200,5 +272,6 @@ main (int    argc,
   setlocale (LC_ALL, "");
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/sheet/job/sheet-set", test_sheet_set);
+  g_test_add_func ("/sheet/job/entry-sheet", test_entry_sheet);
   return g_test_run ();
 }

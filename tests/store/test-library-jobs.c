@@ -393,6 +393,16 @@ test_climate_and_moisture (void)
   g_assert_cmpint (line->verdict, ==, LAMINA_VERDICT_NOT_MET);
   g_assert_true (line->flags & LAMINA_ENTRY_MOISTURE_NOT_MET);
   g_assert_false (line->flags & LAMINA_ENTRY_CLIMATE_CHANGED);
+  /* The construction the sheets print carries the job's climate, so its
+   * own moisture check is the schedule's. */
+  {
+    const LaminaConstruction *printed = report->constructions->pdata[0];
+    g_autoptr(LaminaMoistureResult) own = lamina_moisture_calculate_own (printed, NAN, &error);
+
+    g_assert_cmpstr (printed->moisture->climate, ==, "cold");
+    g_assert_no_error (error);
+    g_assert_cmpfloat (own->max_accumulation, ==, line->moisture->max_accumulation);
+  }
 
   /* in the mild climate (the job's climate changed): met */
   g_free (job->climate);
