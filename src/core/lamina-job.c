@@ -342,7 +342,11 @@ lamina_job_apply_conditions (const LaminaJob    *job,
                              LaminaConstruction *c)
 {
   c->inside_temperature = job->inside_temperature;
-  c->outside_temperature = job->outside_temperature;
+  /* The job's outside design temperature is the outdoor air's: a
+   * construction whose outer side faces an adjacent indoor space (a plant
+   * room, a garage) keeps the temperature stated for that space. */
+  if (c->outer_side != LAMINA_OUTER_SIDE_INDOOR)
+    c->outside_temperature = job->outside_temperature;
   if (!c->has_ground)
     return;
   if (job->ground_area > 0 && job->ground_perimeter > 0)

@@ -138,8 +138,9 @@ void             lamina_job_log         (LaminaJob            *job,
 /* B′ = A / (0.5 P), EN ISO 13370:2017 8.1 (equation 2); the given B′ when
  * there is one, NAN when neither is given. */
 double           lamina_job_get_b_prime (const LaminaJob      *job);
-/* Puts @c in the job's design conditions: its inside and outside
- * temperatures and, for a floor with the ground, the job's plan (A and
+/* Puts @c in the job's design conditions: its inside temperature, its
+ * outside one unless @c faces an adjacent indoor space (then the space's
+ * stated temperature stays), and, for a floor with the ground, the job's plan (A and
  * P, or B′) in place of the plan the library states.  Given B′ alone,
  * A = B′ and P = 2 m (B′ = A / (0.5 P)): EN ISO 13370's formulas depend
  * on the plan only through B′. */

@@ -55,6 +55,9 @@ sheet_draw_field_page (SheetContext             *ctx,
   g_autoptr(GString) notes = g_string_new (NULL);
 
   sheet_draw_frame (ctx, c->status == LAMINA_STATUS_DRAFT);
+  /* A job's sheet carries the job's band on each of its pages. */
+  if (ctx->options->job != NULL)
+    y = sheet_draw_job_band (ctx, y);
   cairo_set_source_rgb (ctx->cr, ctx->grey, ctx->grey, ctx->grey);
   sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->practice, ctx->left, y, w * 0.6, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_SMALL, _("Construction specification, continued"), ctx->left + w * 0.6, y,

@@ -73,6 +73,9 @@ draw_heading (SheetContext             *ctx,
   double w = ctx->right - ctx->left;
   g_autofree char *heading = g_strdup_printf (_("%s — moisture, EN ISO 13788"), c->code ? c->code : c->id);
 
+  /* A job's sheet carries the job's band on each of its pages. */
+  if (ctx->options->job != NULL)
+    *y = sheet_draw_job_band (ctx, *y);
   cairo_set_source_rgb (ctx->cr, ctx->grey, ctx->grey, ctx->grey);
   sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->practice, ctx->left, *y, w * 0.6, PANGO_ALIGN_LEFT);
   sheet_text_line (ctx, SHEET_FONT_SMALL, _("Construction specification, continued"), ctx->left + w * 0.6, *y,

@@ -347,6 +347,30 @@ test_ground_floor (void)
   assert_close (lamina_job_result_u (in_job), 0.183219, 1e-5);
 }
 
+/* The job's design conditions: the inside temperature always; the
+ * outside one for a construction to the outdoor air, not for one whose
+ * outer side faces an adjacent indoor space, which keeps the temperature
+ * stated for that space (common practice: the outdoor design temperature
+ * is not the plant room's). */
+static void
+test_conditions (void)
+{
+  g_autoptr(LaminaJob) job = lamina_job_new ("j", "Conditions");
+  g_autoptr(LaminaConstruction) outer = lamina_construction_new ("o", "external wall", LAMINA_ELEMENT_WALL);
+  g_autoptr(LaminaConstruction) inner = lamina_construction_new ("i", "wall to the plant room", LAMINA_ELEMENT_WALL);
+
+  job->inside_temperature = 21;
+  job->outside_temperature = -12;
+  outer->outside_temperature = inner->outside_temperature = 5;
+  inner->outer_side = LAMINA_OUTER_SIDE_INDOOR;
+  lamina_job_apply_conditions (job, outer);
+  lamina_job_apply_conditions (job, inner);
+  g_assert_cmpfloat (outer->inside_temperature, ==, 21);
+  g_assert_cmpfloat (outer->outside_temperature, ==, -12);
+  g_assert_cmpfloat (inner->inside_temperature, ==, 21);
+  g_assert_cmpfloat (inner->outside_temperature, ==, 5);
+}
+
 static void
 test_copy_equal (void)
 {
@@ -555,6 +579,7 @@ main (int   argc,
   g_test_add_func ("/core/job/b-prime", test_b_prime);
   g_test_add_func ("/core/job/ground-floor", test_ground_floor);
   g_test_add_func ("/core/job/copy-equal", test_copy_equal);
+  g_test_add_func ("/core/job/conditions", test_conditions);
   g_test_add_func ("/core/job/refusals", test_refusals);
   g_test_add_func ("/core/job/moisture-criteria", test_moisture_criteria);
   g_test_add_func ("/core/job/moisture-criterion-table", test_moisture_criterion_table);

@@ -216,6 +216,61 @@ test_sheet_set (void)
   fixture_tear_down (&f);
 }
 
+/* @c with a moisture check in an invented climate (μ: EN ISO 10456
+ * Table 3 from memory, 10 for the masonry and 1 for the insulation). */
+static void
+add_moisture_check (LaminaConstruction *c)
+{
+  LaminaClimate *climate = lamina_climate_new ("test-site", "Test site (invented)");
+
+  for (int m = 0; m < LAMINA_MONTHS; m++)
+    {
+      climate->temperature[m] = m < 3 || m > 9 ? -2 : 12;
+      climate->humidity[m] = 0.85;
+    }
+  for (guint i = 0; i < c->layers->len; i++)
+    {
+      LaminaLayer *layer = c->layers->pdata[i];
+
+      if (layer->material != NULL)
+        layer->material->vapour_resistance_factor = layer->material->category == LAMINA_CATEGORY_INSULATION ? 1 : 10;
+    }
+  lamina_construction_set_moisture (c, lamina_moisture_settings_new ("test-site"));
+  c->moisture->humidity_class = 3;
+  c->moisture->climate_data = climate;
+}
+
+/* A job's sheet that continues on a moisture page carries the job's band
+ * there too: a page of a job's set is never without its job. */
+static void
+test_continued_band (void)
+{
+  Fixture f;
+  g_autofree char *dir = g_dir_make_tmp ("lamina-job-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "wall.pdf", NULL);
+  g_autofree char *uri = g_filename_to_uri (path, NULL, NULL);
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *second = NULL;
+  LaminaSheetOptions options;
+
+  fixture_set_up (&f);
+  add_moisture_check (f.constructions->pdata[0]);
+  lamina_sheet_options_init (&options);
+  g_assert_true (lamina_sheet_write_job_entry (path, FALSE, &options, f.job, f.check->lines->pdata[0], &error));
+  g_assert_no_error (error);
+  doc = poppler_document_new_from_file (uri, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, 2);
+  second = dup_page_text (doc, 1);
+  assert_contains (second, "moisture, EN ISO 13788", "moisture page");
+  assert_contains (second, "T-204 Test house by the mill", "moisture page band");
+  assert_contains (second, "Use: external-wall", "moisture page band");
+  g_unlink (path);
+  g_rmdir (dir);
+  fixture_tear_down (&f);
+}
+
 /* One entry's sheet from the window is the set's sheet of that entry:
  * the band, the job's conditions, the comparison with the use's target
  * and the EN ISO 13788 criteria line, from one function. */
@@ -273,5 +328,6 @@ main (int    argc,
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/sheet/job/sheet-set", test_sheet_set);
   g_test_add_func ("/sheet/job/entry-sheet", test_entry_sheet);
+  g_test_add_func ("/sheet/job/continued-band", test_continued_band);
   return g_test_run ();
 }
