@@ -14,6 +14,7 @@
 #endif
 
 #include "exchange/lamina-catalogue.h"
+#include "lamina-import-report-window.h"
 #include "lamina-progress-window.h"
 #include "lamina-window-private.h"
 #include "sheet/lamina-section.h"
@@ -514,34 +515,7 @@ void
 lamina_window_show_import_report (LaminaWindow             *self,
                                   const LaminaImportReport *report)
 {
-  GtkWidget *window = gtk_window_new ();
-  GtkWidget *scroller = gtk_scrolled_window_new ();
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
-  g_autofree char *summary = lamina_import_report_dup_summary (report);
-  GtkWidget *heading = gtk_label_new (summary);
-
-  gtk_window_set_title (GTK_WINDOW (window), _("Import Report"));
-  gtk_window_set_transient_for (GTK_WINDOW (window), GTK_WINDOW (self));
-  gtk_window_set_default_size (GTK_WINDOW (window), 520, 420);
-  g_object_set (box, "margin-start", 18, "margin-end", 18, "margin-top", 18, "margin-bottom", 18, NULL);
-  gtk_label_set_wrap (GTK_LABEL (heading), TRUE);
-  gtk_label_set_xalign (GTK_LABEL (heading), 0);
-  gtk_widget_add_css_class (heading, "heading");
-  gtk_box_append (GTK_BOX (box), heading);
-  for (guint i = 0; i < report->items->len; i++)
-    {
-      const LaminaImportItem *item = g_ptr_array_index (report->items, i);
-      GtkWidget *label = gtk_label_new (item->message ? item->message : item->name);
-
-      gtk_label_set_wrap (GTK_LABEL (label), TRUE);
-      gtk_label_set_xalign (GTK_LABEL (label), 0);
-      if (item->action == LAMINA_IMPORT_CONFLICT)
-        gtk_widget_add_css_class (label, "lamina-warning");
-      gtk_box_append (GTK_BOX (box), label);
-    }
-  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (scroller), box);
-  gtk_window_set_child (GTK_WINDOW (window), scroller);
-  gtk_window_present (GTK_WINDOW (window));
+  gtk_window_present (GTK_WINDOW (lamina_import_report_window_new (GTK_WINDOW (self), report)));
 }
 
 static void

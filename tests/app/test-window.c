@@ -24,6 +24,7 @@
 #include "lamina-editor-state.h"
 #include "lamina-close-keys.h"
 #include "lamina-history-window-private.h"
+#include "lamina-import-report-window-private.h"
 #include "lamina-material-row-private.h"
 #include "lamina-materials-window-private.h"
 #include "lamina-method-view-private.h"
@@ -1243,6 +1244,44 @@ test_progress_window (Fixture       *f,
   gtk_window_destroy (GTK_WINDOW (progress));
 }
 
+/* The import report: the summary first, then a line per item, a
+ * conflict marked (a PNG for a look). */
+static void
+test_import_report (Fixture       *f,
+                    gconstpointer  data)
+{
+  LaminaImportItem added = { LAMINA_IMPORT_ADDED, FALSE, (char *) "c1", (char *) "Timber frame wall", 1,
+                             (char *) "Timber frame wall: added as revision 1" };
+  LaminaImportItem conflict = { LAMINA_IMPORT_CONFLICT, FALSE, (char *) "c2", (char *) "Cellar ceiling", 2,
+                                (char *) "Cellar ceiling: differs from approved revision 2; not applied" };
+  g_autoptr(GPtrArray) items = g_ptr_array_new ();
+  LaminaImportReport report = { items, 1, 0, 0, 1, 0, 0 };
+  g_autofree char *summary = NULL;
+  const char *build = g_getenv ("LAMINA_BUILD_DIR");
+  g_autofree char *png = g_build_filename (build ? build : ".", "tests", "app", "import-report.png", NULL);
+  GtkWindow *window;
+  GtkWidget *line;
+
+  g_ptr_array_add (items, &added);
+  g_ptr_array_add (items, &conflict);
+  lamina_window_show_import_report (f->window, &report);
+  window = find_other_window (f);
+  g_assert_nonnull (window);
+  wait_for_draw (GTK_WIDGET (window));
+  save_png (GTK_WIDGET (window), png);
+  g_assert_true (LAMINA_IS_IMPORT_REPORT_WINDOW (window));
+  summary = lamina_import_report_dup_summary (&report);
+  g_assert_cmpstr (gtk_label_get_text (LAMINA_IMPORT_REPORT_WINDOW (window)->summary), ==, summary);
+  line = gtk_widget_get_next_sibling (GTK_WIDGET (LAMINA_IMPORT_REPORT_WINDOW (window)->summary));
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (line)), ==, added.message);
+  g_assert_false (gtk_widget_has_css_class (line, "lamina-warning"));
+  line = gtk_widget_get_next_sibling (line);
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (line)), ==, conflict.message);
+  g_assert_true (gtk_widget_has_css_class (line, "lamina-warning"));
+  g_assert_null (gtk_widget_get_next_sibling (line));
+  gtk_window_destroy (window);
+}
+
 static void
 test_construction_properties (Fixture       *f,
                               gconstpointer  data)
@@ -1908,6 +1947,7 @@ main (int   argc,
       g_test_add ("/app/window/ground-and-taper", Fixture, NULL, fixture_setup, test_ground_and_taper, fixture_teardown);
       g_test_add ("/app/window/editor-dialogs", Fixture, NULL, fixture_setup, test_editor_dialogs, fixture_teardown);
       g_test_add ("/app/window/progress-window", Fixture, NULL, fixture_setup, test_progress_window, fixture_teardown);
+      g_test_add ("/app/window/import-report", Fixture, NULL, fixture_setup, test_import_report, fixture_teardown);
       g_test_add ("/app/window/bridged-parts", Fixture, NULL, fixture_setup, test_bridged_parts, fixture_teardown);
       g_test_add ("/app/window/compare-revisions", Fixture, NULL, fixture_setup, test_compare_revisions, fixture_teardown);
       g_test_add ("/app/window/review-dialogs", Fixture, NULL, fixture_setup, test_review_dialogs, fixture_teardown);
