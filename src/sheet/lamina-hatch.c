@@ -301,27 +301,41 @@ static void draw_pattern (cairo_t        *cr,
 /* On a raster target, the rectangle rounded to whole device pixels (a
  * pixel-aligned clip is a cheap region; a fractional one is a mask). */
 static void
+get_snapped_device_box (cairo_t *cr,
+                        double   x,
+                        double   y,
+                        double   width,
+                        double   height,
+                        Box     *device)
+{
+  double x0 = x, y0 = y, x1 = x + width, y1 = y + height;
+
+  cairo_user_to_device (cr, &x0, &y0);
+  cairo_user_to_device (cr, &x1, &y1);
+  x0 = round (x0), y0 = round (y0), x1 = round (x1), y1 = round (y1);
+  if (x0 == x1 && width > 0)
+    x1 += 1;
+  *device = (Box) { x0, y0, x1, y1 };
+}
+
+static void
 add_snapped_rectangle (cairo_t *cr,
                        double   x,
                        double   y,
                        double   width,
                        double   height)
 {
-  double x0 = x, y0 = y, x1 = x + width, y1 = y + height;
+  Box d;
 
   if (cairo_surface_get_type (cairo_get_target (cr)) != CAIRO_SURFACE_TYPE_IMAGE)
     {
       cairo_rectangle (cr, x, y, width, height);
       return;
     }
-  cairo_user_to_device (cr, &x0, &y0);
-  cairo_user_to_device (cr, &x1, &y1);
-  x0 = round (x0), y0 = round (y0), x1 = round (x1), y1 = round (y1);
-  if (x0 == x1 && width > 0)
-    x1 += 1;
-  cairo_device_to_user (cr, &x0, &y0);
-  cairo_device_to_user (cr, &x1, &y1);
-  cairo_rectangle (cr, MIN (x0, x1), MIN (y0, y1), fabs (x1 - x0), fabs (y1 - y0));
+  get_snapped_device_box (cr, x, y, width, height, &d);
+  cairo_device_to_user (cr, &d.x0, &d.y0);
+  cairo_device_to_user (cr, &d.x1, &d.y1);
+  cairo_rectangle (cr, MIN (d.x0, d.x1), MIN (d.y0, d.y1), fabs (d.x1 - d.x0), fabs (d.y1 - d.y0));
 }
 
 /* Tiles */
@@ -556,6 +570,47 @@ get_device_axis (cairo_t *cr,
 
 /* Fills the visible part of a layer (x, width) with its strip tile on an
  * image surface, pixel for pixel where the paths would be drawn. */
+/* Where a strip tile goes: FALSE when the layer gets paths instead. */
+typedef struct
+{
+  double pixels;   /* device pixels per user unit */
+  double d0;       /* the inner face, rounded to a device pixel */
+  int    px_width; /* the layer across, in device pixels */
+  int    ax, ay;   /* the device axes across and along */
+  double sx, sy;   /* and their directions */
+} StripPlace;
+
+static gboolean
+get_strip_place (cairo_t        *cr,
+                 LaminaCategory  category,
+                 LaminaHatchUse  use,
+                 double          x,
+                 double          width,
+                 double          unit,
+                 StripPlace     *place)
+{
+  double from[2] = { x, 0 }, to[2] = { x + width, 0 };
+  double dx = 1, dy = 0, px_width;
+
+  if (get_strip_period (category, use, width, unit) <= 0 ||
+      cairo_surface_get_type (cairo_get_target (cr)) != CAIRO_SURFACE_TYPE_IMAGE ||
+      !get_device_axis (cr, 1, 0, &place->ax, &place->sx) ||
+      !get_device_axis (cr, 0, 1, &place->ay, &place->sy) || place->ax == place->ay)
+    return FALSE;
+  cairo_user_to_device_distance (cr, &dx, &dy);
+  place->pixels = hypot (dx, dy);
+  cairo_user_to_device (cr, &from[0], &from[1]);
+  cairo_user_to_device (cr, &to[0], &to[1]);
+  /* The layer's faces rounded to pixels, as add_snapped_rectangle does. */
+  place->d0 = round (from[place->ax]);
+  px_width = fabs (round (to[place->ax]) - place->d0);
+  /* Too thin for a pattern to show, or absurdly wide: paths. */
+  if (px_width < 2 || px_width > 8192)
+    return FALSE;
+  place->px_width = (int) px_width;
+  return TRUE;
+}
+
 static gboolean
 fill_from_strip (cairo_t          *cr,
                  LaminaHatchCache *cache,
@@ -566,34 +621,21 @@ fill_from_strip (cairo_t          *cr,
                  const Box        *box,
                  double            unit)
 {
-  double origin[2] = { 0, 0 }, from[2] = { x, 0 }, to[2] = { x + width, 0 };
-  double pixels, dx = 1, dy = 0, sx, sy, d0, px_width;
+  double origin[2] = { 0, 0 };
   cairo_matrix_t matrix;
-  int ax, ay;
+  StripPlace p;
   Tile *tile;
 
-  if (get_strip_period (category, use, width, unit) <= 0 ||
-      cairo_surface_get_type (cairo_get_target (cr)) != CAIRO_SURFACE_TYPE_IMAGE ||
-      !get_device_axis (cr, 1, 0, &ax, &sx) || !get_device_axis (cr, 0, 1, &ay, &sy) || ax == ay)
+  if (!get_strip_place (cr, category, use, x, width, unit, &p))
     return FALSE;
-  cairo_user_to_device_distance (cr, &dx, &dy);
-  pixels = hypot (dx, dy);
   cairo_user_to_device (cr, &origin[0], &origin[1]);
-  cairo_user_to_device (cr, &from[0], &from[1]);
-  cairo_user_to_device (cr, &to[0], &to[1]);
-  /* The layer's faces rounded to pixels, as add_snapped_rectangle does. */
-  d0 = round (from[ax]);
-  px_width = fabs (round (to[ax]) - d0);
-  /* Too thin for a pattern to show, or absurdly wide: paths. */
-  if (px_width < 2 || px_width > 8192)
-    return FALSE;
-  tile = lookup_tile (cache, category, unit, pixels, (int) px_width | (use << 16));
+  tile = lookup_tile (cache, category, unit, p.pixels, p.px_width | (use << 16));
   if (tile->pattern == NULL)
-    tile->pattern = create_strip_tile (category, use, (int) px_width, unit, pixels);
+    tile->pattern = create_strip_tile (category, use, p.px_width, unit, p.pixels);
   /* pattern = ±(device − the snapped inner face) across, and the device
    * position on a whole-pixel offset along (rows anchored at y = 0). */
-  cairo_matrix_init (&matrix, pixels, 0, 0, pixels,
-                     sx * (origin[ax] - d0), sy * (origin[ay] - round (origin[ay])));
+  cairo_matrix_init (&matrix, p.pixels, 0, 0, p.pixels,
+                     p.sx * (origin[p.ax] - p.d0), p.sy * (origin[p.ay] - round (origin[p.ay])));
   cairo_pattern_set_matrix (tile->pattern, &matrix);
   cairo_set_source (cr, tile->pattern);
   cairo_set_operator (cr, CAIRO_OPERATOR_SOURCE);
@@ -602,17 +644,17 @@ fill_from_strip (cairo_t          *cr,
   return TRUE;
 }
 
+/* Whether an area tile fills the box: FALSE for paths.  @pixels: device
+ * pixels per user unit on an image surface, 0 for a vector tile. */
 static gboolean
-fill_from_tile (cairo_t          *cr,
-                LaminaHatchCache *cache,
-                LaminaCategory    category,
-                const Box        *box,
-                double            unit)
+get_area_tile_pixels (cairo_t        *cr,
+                      LaminaCategory  category,
+                      double         *pixels)
 {
   cairo_surface_type_t type = cairo_surface_get_type (cairo_get_target (cr));
-  double pixels = 0.0, dx = 1, dy = 0;
-  Tile *tile;
+  double dx = 1, dy = 0;
 
+  *pixels = 0.0;
   if (get_tile_period (category) <= 0)
     return FALSE;
   /* cairo 1.16's SVG surface leaks what it copies of a recording-surface
@@ -623,11 +665,26 @@ fill_from_tile (cairo_t          *cr,
   if (type == CAIRO_SURFACE_TYPE_IMAGE)
     {
       cairo_user_to_device_distance (cr, &dx, &dy);
-      pixels = hypot (dx, dy);
+      *pixels = hypot (dx, dy);
       /* Only quarter turns keep a pixel tile crisp. */
       if (fabs (dx) > 1e-6 && fabs (dy) > 1e-6)
         return FALSE;
     }
+  return TRUE;
+}
+
+static gboolean
+fill_from_tile (cairo_t          *cr,
+                LaminaHatchCache *cache,
+                LaminaCategory    category,
+                const Box        *box,
+                double            unit)
+{
+  double pixels;
+  Tile *tile;
+
+  if (!get_area_tile_pixels (cr, category, &pixels))
+    return FALSE;
   tile = lookup_tile (cache, category, unit, pixels, 0);
   if (tile->pattern == NULL)
     tile->pattern = create_tile (cr, category, unit, pixels);
@@ -699,6 +756,49 @@ lamina_hatch_fill (cairo_t          *cr,
   set_pen (cr, unit);
   draw_pattern (cr, category, use, x, y, width, height, &box, unit, seed);
   cairo_restore (cr);
+}
+
+gboolean
+lamina_hatch_fill_get_covered (cairo_t          *cr,
+                               LaminaHatchCache *cache,
+                               LaminaCategory    category,
+                               LaminaHatchUse    use,
+                               double            x,
+                               double            y,
+                               double            width,
+                               double            height,
+                               double            unit,
+                               double           *device_x0,
+                               double           *device_y0,
+                               double           *device_x1,
+                               double           *device_y1)
+{
+  double pixels;
+  StripPlace place;
+  Box box, d;
+
+  g_return_val_if_fail (cr != NULL, FALSE);
+
+  /* The same choices as lamina_hatch_fill makes, in the same order. */
+  if (cache == NULL || width < 0 || height <= 0 ||
+      cairo_surface_get_type (cairo_get_target (cr)) != CAIRO_SURFACE_TYPE_IMAGE ||
+      !get_visible_box (cr, x, y, width, height, &box))
+    return FALSE;
+  if (get_tile_period (category) > 0)
+    {
+      if (!get_area_tile_pixels (cr, category, &pixels))
+        return FALSE;
+      get_snapped_device_box (cr, box.x0, box.y0, box.x1 - box.x0, box.y1 - box.y0, &d);
+    }
+  else if (get_strip_place (cr, category, use, x, width, unit, &place))
+    get_snapped_device_box (cr, x, box.y0, width, box.y1 - box.y0, &d);
+  else
+    return FALSE;
+  *device_x0 = MIN (d.x0, d.x1);
+  *device_y0 = MIN (d.y0, d.y1);
+  *device_x1 = MAX (d.x0, d.x1);
+  *device_y1 = MAX (d.y0, d.y1);
+  return TRUE;
 }
 
 static void

@@ -47,6 +47,25 @@ void lamina_hatch_fill (cairo_t          *cr,
                         double          unit,
                         guint           seed);
 
+/* Whether lamina_hatch_fill with the same arguments would copy an opaque
+ * tile over every pixel of a device rectangle (on an image surface),
+ * and which: (x0, y0) … (x1, y1) in whole device pixels.  Nothing drawn
+ * beneath those pixels before the fill can show.  FALSE when the fill
+ * draws paths (which leave the background between the lines). */
+gboolean lamina_hatch_fill_get_covered (cairo_t          *cr,
+                                        LaminaHatchCache *cache,
+                                        LaminaCategory    category,
+                                        LaminaHatchUse    use,
+                                        double            x,
+                                        double            y,
+                                        double            width,
+                                        double            height,
+                                        double            unit,
+                                        double           *device_x0,
+                                        double           *device_y0,
+                                        double           *device_x1,
+                                        double           *device_y1);
+
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (LaminaHatchCache, lamina_hatch_cache_free)
 
 G_END_DECLS

@@ -347,6 +347,38 @@ draw_members (LaminaSection     *self,
     }
 }
 
+/* The part with the largest fraction of a bridged layer fills the layer;
+ * the others are the framing members drawn over it.  −1 for a layer of
+ * one material. */
+static int
+get_bulk_part (const LaminaLayer *layer)
+{
+  guint bulk = 0;
+  double most = -1;
+
+  if (layer->kind != LAMINA_LAYER_BRIDGED || layer->parts == NULL || layer->parts->len == 0)
+    return -1;
+  for (guint k = 0; k < layer->parts->len; k++)
+    {
+      double f = lamina_layer_get_part_fraction (layer, k);
+      if (f > most)
+        {
+          most = f;
+          bulk = k;
+        }
+    }
+  return (int) bulk;
+}
+
+/* What fills the whole layer. */
+static LaminaCategory
+get_fill_category (const LaminaLayer *layer)
+{
+  int bulk = get_bulk_part (layer);
+
+  return bulk >= 0 ? get_part_category (layer->parts->pdata[bulk]) : get_layer_category (layer);
+}
+
 static void
 draw_layer (LaminaSection     *self,
             cairo_t           *cr,
@@ -358,29 +390,50 @@ draw_layer (LaminaSection     *self,
             double             scale,
             double             unit)
 {
-  if (layer->kind == LAMINA_LAYER_BRIDGED && layer->parts && layer->parts->len > 0)
-    {
-      guint bulk = 0;
-      double most = -1;
+  int bulk = get_bulk_part (layer);
 
-      /* The part with the largest fraction fills the layer; the others
-       * are the framing members drawn over it. */
-      for (guint k = 0; k < layer->parts->len; k++)
-        {
-          double f = lamina_layer_get_part_fraction (layer, k);
-          if (f > most)
-            {
-              most = f;
-              bulk = k;
-            }
-        }
-      lamina_hatch_fill (cr, self->hatches, get_part_category (layer->parts->pdata[bulk]), LAMINA_HATCH_LAYER,
-                         t0, 0, t1 - t0, length, unit, index * 7);
-      draw_members (self, cr, layer, bulk, t0, t1, length, scale, unit, index * 7);
-      return;
-    }
-  lamina_hatch_fill (cr, self->hatches, get_layer_category (layer), LAMINA_HATCH_LAYER,
+  lamina_hatch_fill (cr, self->hatches, get_fill_category (layer), LAMINA_HATCH_LAYER,
                      t0, 0, t1 - t0, length, unit, index * 7);
+  if (bulk >= 0)
+    draw_members (self, cr, layer, (guint) bulk, t0, t1, length, scale, unit, index * 7);
+}
+
+/* The white ground of the body, without the pixels that the layers' own
+ * fills will cover with opaque tiles anyway: on a raster target that is
+ * nearly all of them, and painting them twice took as long as the tiles.
+ * The holes are on whole device pixels, so every pixel outside them is
+ * covered exactly as by the plain rectangle. */
+static void
+fill_ground (LaminaSection             *self,
+             cairo_t                   *cr,
+             const LaminaSectionLayout *layout,
+             const LaminaConstruction  *construction,
+             double                     total,
+             double                     length,
+             double                     unit,
+             gboolean                   tapered)
+{
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_rectangle (cr, 0, 0, total, length);
+  /* A wedge's layers are drawn in frames of their own: keep it simple. */
+  for (guint i = 0; !tapered && i < layout->n_layers; i++)
+    {
+      double t0 = edge_t (layout, i), t1 = edge_t (layout, i + 1);
+      double x0, y0, x1, y1;
+
+      if (!lamina_hatch_fill_get_covered (cr, self->hatches, get_fill_category (construction->layers->pdata[i]),
+                                          LAMINA_HATCH_LAYER, t0, 0, t1 - t0, length, unit,
+                                          &x0, &y0, &x1, &y1))
+        continue;
+      cairo_device_to_user (cr, &x0, &y0);
+      cairo_device_to_user (cr, &x1, &y1);
+      cairo_rectangle (cr, MIN (x0, x1), MIN (y0, y1), fabs (x1 - x0), fabs (y1 - y0));
+    }
+  /* Where two holes overlap the ground comes back; the later tile covers
+   * it again. */
+  cairo_set_fill_rule (cr, CAIRO_FILL_RULE_EVEN_ODD);
+  cairo_fill (cr);
+  cairo_set_fill_rule (cr, CAIRO_FILL_RULE_WINDING);
 }
 
 /* A tapered layer (Annex E) is drawn as a wedge: at its full thickness at
@@ -456,9 +509,7 @@ draw_body (LaminaSection             *self,
   int tapered = find_tapered (construction);
   double drop = get_taper_drop (layout, construction, tapered);
 
-  cairo_set_source_rgb (cr, 1, 1, 1);
-  cairo_rectangle (cr, 0, 0, total, length);
-  cairo_fill (cr);
+  fill_ground (self, cr, layout, construction, total, length, u, tapered >= 0);
 
   g_ptr_array_set_size (self->members, 0);
   for (guint i = 0; i < layout->n_layers; i++)
@@ -706,7 +757,7 @@ draw_numbers (LaminaSection             *self,
 {
   double u = style->unit, r = 0.7 * u, length = lamina_section_layout_s_extent (layout);
   double *want = self->scratch, *extent = want + self->capacity, *pos = extent + self->capacity;
-  double ring = length + 2.1 * u;
+  double ring = length + 2.1 * u, dot = length - MIN (0.8 * u, length * 0.1);
   guint n = layout->n_layers;
   cairo_matrix_t matrix;
 
@@ -723,7 +774,6 @@ draw_numbers (LaminaSection             *self,
   cairo_set_line_width (cr, u * FINE);
   for (guint i = 0; i < n; i++)
     {
-      double dot = length - MIN (0.8 * u, length * 0.1);
       cairo_new_sub_path (cr);
       cairo_arc (cr, want[i], dot, u * 0.12, 0, 2 * G_PI);
       cairo_fill (cr);

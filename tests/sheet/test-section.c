@@ -291,6 +291,106 @@ test_deterministic (void)
   render_clear (&b);
 }
 
+/* The white ground under the layers leaves out the pixels that opaque
+ * hatch tiles cover (lamina-section.c, fill_ground): drawn on a
+ * transparent surface, no pixel inside the body may stay see-through,
+ * whatever the construction, its orientation or the drawing's size. */
+static void
+test_ground_covered (void)
+{
+  g_autoptr(GPtrArray) all = lamina_test_constructions ();
+  g_autoptr(LaminaSection) painter = lamina_section_new ();
+  const int sizes[][2] = { { WIDTH, HEIGHT }, { 433, 611 }, { 257, 199 } };
+
+  for (guint k = 0; k < all->len; k++)
+    for (guint z = 0; z < G_N_ELEMENTS (sizes); z++)
+      {
+        const LaminaConstruction *c = all->pdata[k];
+        g_autoptr(LaminaResult) result = lamina_calculate (c, NULL);
+        int w = sizes[z][0], h = sizes[z][1];
+        cairo_surface_t *surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+        cairo_t *cr = cairo_create (surface);
+        LaminaSectionLayout layout;
+        LaminaSectionStyle style;
+        const guint8 *data;
+        int stride;
+
+        lamina_section_style_init (&style, 11);
+        lamina_section_layout_init (&layout);
+        lamina_section_layout_compute (&layout, c, &style, 0.3, 0.6, w - 1, h - 1);
+        lamina_section_draw (painter, cr, &layout, c, result, &style);
+        cairo_surface_flush (surface);
+        data = cairo_image_surface_get_data (surface);
+        stride = cairo_image_surface_get_stride (surface);
+        for (int y = (int) ceil (layout.body_y) + 1; y < (int) floor (layout.body_y + layout.body_height) - 1; y++)
+          for (int x = (int) ceil (layout.body_x) + 1; x < (int) floor (layout.body_x + layout.body_width) - 1; x++)
+            {
+              guint32 px = *(const guint32 *) (data + y * stride + x * 4);
+              if (px >> 24 != 0xff)
+                g_error ("%s at %d×%d: pixel (%d, %d) inside the section is not opaque (alpha %u)",
+                         c->code, w, h, x, y, px >> 24);
+            }
+        lamina_section_layout_clear (&layout);
+        cairo_destroy (cr);
+        cairo_surface_destroy (surface);
+      }
+}
+
+/* A painter kept through a drag (scale held, as the window holds it)
+ * draws each step exactly as a new painter draws it: nothing it keeps
+ * between frames (text layouts, hatch tiles) shows a stale state. */
+static void
+test_drag_sequence (void)
+{
+  g_autoptr(GPtrArray) all = lamina_test_constructions ();
+  g_autoptr(LaminaSection) kept = lamina_section_new ();
+
+  for (guint k = 0; k < all->len; k++)
+    {
+      LaminaConstruction *c = all->pdata[k];
+      guint dragged = c->layers->len / 2;
+      LaminaLayer *layer = c->layers->pdata[dragged];
+      double start = layer->thickness;
+      cairo_surface_t *a = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, WIDTH, HEIGHT);
+      cairo_surface_t *b = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, WIDTH, HEIGHT);
+      LaminaSectionLayout layout;
+      LaminaSectionStyle style;
+
+      lamina_section_style_init (&style, 12);
+      style.highlight_boundary = (int) dragged + 1;
+      lamina_section_layout_init (&layout);
+      lamina_section_layout_compute (&layout, c, &style, 0, 0, WIDTH, HEIGHT);
+      style.scale = layout.scale;
+      for (guint step = 0; step < 6; step++)
+        {
+          g_autoptr(LaminaSection) fresh = lamina_section_new ();
+          g_autoptr(LaminaResult) result = NULL;
+          cairo_surface_t *targets[2] = { a, b };
+          LaminaSection *painters[2] = { kept, fresh };
+
+          layer->thickness = start * (1.0 + 0.11 * step) + 0.3 * step;
+          result = lamina_calculate (c, NULL);
+          lamina_section_layout_compute (&layout, c, &style, 0, 0, WIDTH, HEIGHT);
+          for (guint t = 0; t < 2; t++)
+            {
+              cairo_t *cr = cairo_create (targets[t]);
+              cairo_set_source_rgb (cr, 1, 1, 1);
+              cairo_paint (cr);
+              lamina_section_draw (painters[t], cr, &layout, c, result, &style);
+              cairo_destroy (cr);
+              cairo_surface_flush (targets[t]);
+            }
+          if (memcmp (cairo_image_surface_get_data (a), cairo_image_surface_get_data (b),
+                      (gsize) cairo_image_surface_get_stride (a) * HEIGHT) != 0)
+            g_error ("%s: step %u of a drag differs from a fresh drawing", c->code, step);
+        }
+      layer->thickness = start;
+      lamina_section_layout_clear (&layout);
+      cairo_surface_destroy (a);
+      cairo_surface_destroy (b);
+    }
+}
+
 static void
 test_spread (void)
 {
@@ -411,6 +511,8 @@ main (int    argc,
   g_test_add_func ("/sheet/section/hit-and-drag", test_hit_and_drag);
   g_test_add_func ("/sheet/section/pixels", test_pixels);
   g_test_add_func ("/sheet/section/deterministic", test_deterministic);
+  g_test_add_func ("/sheet/section/ground-covered", test_ground_covered);
+  g_test_add_func ("/sheet/section/drag-sequence", test_drag_sequence);
   g_test_add_func ("/sheet/section/members-stay-inside", test_members_stay_inside);
   g_test_add_func ("/sheet/section/spread", test_spread);
   g_test_add_func ("/sheet/section/spread-within", test_spread_within);
