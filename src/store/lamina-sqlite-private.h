@@ -48,6 +48,7 @@ typedef struct
   fts5_tokenizer tokenizer_class;
   Fts5Tokenizer *tokenizer;
   gboolean       tokenizer_failed;
+  gboolean       marker_ready;  /* lamina_mark_match is registered */
   LaminaSqliteSearchPlan search_plan;
   LaminaSqliteOrder   *order;
   LaminaSqliteMatches *matches;
