@@ -15,6 +15,7 @@
 #include "lamina-job-dialog.h"
 #include "lamina-job-entry-dialog.h"
 #include "lamina-job-junction-dialog.h"
+#include "lamina-job-sheets.h"
 #include "lamina-revision-diff.h"
 #include "lamina-target-set-dialog.h"
 #include "lamina-settings.h"
@@ -847,7 +848,49 @@ lamina_jobs_page_export (LaminaJobsPage  *self,
                                  report->check, error);
 }
 
-/* Entry 0 is the whole set. */
+typedef struct
+{
+  LaminaJobsPage *page;
+  char           *path;
+} SetWrite;
+
+static void
+on_set_written_cb (GObject      *source,
+                   GAsyncResult *result,
+                   gpointer      user_data)
+{
+  SetWrite *write = user_data;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *message = NULL;
+
+  if (lamina_job_sheets_write_finish (result, &error))
+    message = g_strdup_printf (_("Written to %s"), write->path);
+  else if (g_error_matches (error, G_IO_ERROR, G_IO_ERROR_CANCELLED))
+    message = g_strdup (_("Sheet set cancelled; nothing was written"));
+  if (write->page->status_label != NULL)   /* not closed meanwhile */
+    gtk_label_set_text (write->page->status_label, message ? message : error->message);
+  g_object_unref (write->page);
+  g_free (write->path);
+  g_free (write);
+}
+
+void
+lamina_jobs_page_export_in_worker (LaminaJobsPage *self,
+                                   const char     *path,
+                                   GCancellable   *cancellable)
+{
+  g_autofree char *practice = g_settings_get_string (self->settings, "practice-name");
+  SetWrite *write = g_new0 (SetWrite, 1);
+
+  g_return_if_fail (self->report != NULL);
+  write->page = g_object_ref (self);
+  write->path = g_strdup (path);
+  lamina_job_sheets_write_async (GTK_WINDOW (gtk_widget_get_root (GTK_WIDGET (self))), self->library,
+                                 self->report->job->id, path, practice, cancellable,
+                                 on_set_written_cb, write);
+}
+
+/* Entry 0 is the whole set, written in a worker with progress and Cancel. */
 static void
 on_print_response_cb (GtkNativeDialog *dialog,
                       int              response,
@@ -855,14 +898,20 @@ on_print_response_cb (GtkNativeDialog *dialog,
 {
   int n = self->print_entry;
 
-  if (response == GTK_RESPONSE_ACCEPT && self->report != NULL)
+  if (response == GTK_RESPONSE_ACCEPT && self->report != NULL && n == 0)
+    {
+      g_autoptr(GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
+      g_autofree char *path = g_file_get_path (file);
+
+      lamina_jobs_page_export_in_worker (self, path, NULL);
+    }
+  else if (response == GTK_RESPONSE_ACCEPT && self->report != NULL)
     {
       g_autoptr(GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
       g_autofree char *path = g_file_get_path (file);
       g_autoptr(GError) error = NULL;
       g_autofree char *message = NULL;
-      gboolean ok = n > 0 ? lamina_jobs_page_export_entry (self, n, path, &error)
-                          : lamina_jobs_page_export (self, path, &error);
+      gboolean ok = lamina_jobs_page_export_entry (self, n, path, &error);
 
       if (ok)
         message = g_strdup_printf (_("Written to %s"), path);

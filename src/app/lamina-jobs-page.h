@@ -66,4 +66,10 @@ gboolean    lamina_jobs_page_export        (LaminaJobsPage *self,
                                             const char     *path,
                                             GError        **error);
 
+/* The sheet set written in a worker with a progress window and Cancel
+ * (@cancellable, or NULL); the status line says how it ended. */
+void            lamina_jobs_page_export_in_worker (LaminaJobsPage *self,
+                                                   const char     *path,
+                                                   GCancellable   *cancellable);
+
 G_END_DECLS

@@ -40,6 +40,10 @@ static void
 set_saving (LaminaMaterialsWindow *self,
             LaminaMaterialRow     *row)
 {
+  /* Focus leaves the row's fields before they turn insensitive: a text
+   * field made insensitive while focused misses its focus-out (GTK warns). */
+  if (row != NULL)
+    gtk_root_set_focus (GTK_ROOT (self), NULL);
   g_set_object (&self->saving_row, row);
   gtk_widget_set_visible (GTK_WIDGET (self->progress), row != NULL);
   gtk_widget_set_sensitive (GTK_WIDGET (self->list), row == NULL);

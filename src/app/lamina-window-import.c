@@ -16,6 +16,7 @@
 
 #include "lamina-catalogue.h"
 #include "lamina-window-work.h"
+#include "lamina-work-progress.h"
 #include "store/lamina-library-safety.h"
 
 typedef struct
@@ -65,10 +66,7 @@ import_work (LaminaLibrary  *library,
 typedef struct
 {
   LaminaWindow   *window;       /* a reference */
-  GtkWindow      *progress;     /* a reference */
-  GtkLabel       *label;
-  GtkProgressBar *bar;
-  GtkWidget      *cancel;
+  LaminaWorkProgress *progress;
   GCancellable   *cancellable;
   ImportJob      *job;          /* a reference */
   char           *name;         /* the file's name, for the lines */
@@ -80,8 +78,7 @@ static void
 import_free (Import *import)
 {
   g_clear_handle_id (&import->pulse, g_source_remove);
-  gtk_window_destroy (import->progress);
-  g_object_unref (import->progress);
+  lamina_work_progress_free (import->progress);
   g_object_unref (import->cancellable);
   import_job_release (import->job);
   g_free (import->name);
@@ -95,7 +92,7 @@ pulse_cb (gpointer data)
   Import *import = data;
   int phase = g_atomic_int_get (&import->job->phase);
 
-  gtk_progress_bar_pulse (import->bar);
+  lamina_work_progress_set_fraction (import->progress, -1);
   if (phase != import->shown_phase)
     {
       g_autofree char *text = NULL;
@@ -107,8 +104,8 @@ pulse_cb (gpointer data)
       else
         text = g_strdup_printf (_("Writing “%s” to the library: all or nothing, it cannot be stopped now…"),
                                 import->name);
-      gtk_label_set_text (import->label, text);
-      gtk_widget_set_sensitive (import->cancel, phase != LAMINA_IMPORT_PHASE_WRITING);
+      lamina_work_progress_set_text (import->progress, text);
+      lamina_work_progress_set_can_cancel (import->progress, phase != LAMINA_IMPORT_PHASE_WRITING);
     }
   return G_SOURCE_CONTINUE;
 }
@@ -119,13 +116,15 @@ on_imported_cb (GObject      *source,
                 gpointer      user_data)
 {
   Import *import = user_data;
-  LaminaWindow *self = import->window;
+  g_autoptr(LaminaWindow) self = g_object_ref (import->window);
   g_autoptr(GError) error = NULL;
   gboolean ok = lamina_library_work_finish (result, &error);
   g_autoptr(LaminaImportReport) report = ok ? g_steal_pointer (&import->job->report) : NULL;
 
   self->import = NULL;
   import_free (import);
+  if (self->library == NULL)   /* the window was closed meanwhile */
+    return;
   if (g_error_matches (error, G_IO_ERROR, G_IO_ERROR_CANCELLED))
     {
       lamina_window_notify (self, _("Import cancelled; nothing was written"));
@@ -148,7 +147,6 @@ lamina_window_import_file (LaminaWindow      *self,
                            const char        *author)
 {
   Import *import;
-  GtkWidget *box;
   g_autofree char *text = NULL;
 
   g_return_if_fail (LAMINA_IS_WINDOW (self));
@@ -169,30 +167,9 @@ lamina_window_import_file (LaminaWindow      *self,
   import->name = g_path_get_basename (path);
   import->shown_phase = LAMINA_IMPORT_PHASE_READING;
 
-  import->progress = g_object_ref_sink (GTK_WINDOW (gtk_window_new ()));
-  gtk_window_set_title (import->progress, _("Import Catalogue XML"));
-  gtk_window_set_transient_for (import->progress, GTK_WINDOW (self));
-  gtk_window_set_modal (import->progress, TRUE);
-  gtk_window_set_deletable (import->progress, FALSE);
-  gtk_window_set_default_size (import->progress, 420, -1);
-  box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 12);
-  g_object_set (box, "margin-start", 18, "margin-end", 18, "margin-top", 18, "margin-bottom", 18, NULL);
   text = g_strdup_printf (_("Reading and checking “%s”…"), import->name);
-  import->label = GTK_LABEL (gtk_label_new (text));
-  gtk_label_set_wrap (import->label, TRUE);
-  gtk_label_set_xalign (import->label, 0);
-  import->bar = GTK_PROGRESS_BAR (gtk_progress_bar_new ());
-  gtk_accessible_update_property (GTK_ACCESSIBLE (import->bar), GTK_ACCESSIBLE_PROPERTY_LABEL,
-                                  _("Importing"), -1);
-  import->cancel = gtk_button_new_with_mnemonic (_("_Cancel"));
-  gtk_widget_set_halign (import->cancel, GTK_ALIGN_END);
-  g_signal_connect_object (import->cancel, "clicked", G_CALLBACK (g_cancellable_cancel), import->cancellable,
-                           G_CONNECT_SWAPPED);
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (import->label));
-  gtk_box_append (GTK_BOX (box), GTK_WIDGET (import->bar));
-  gtk_box_append (GTK_BOX (box), import->cancel);
-  gtk_window_set_child (import->progress, box);
-  gtk_window_present (import->progress);
+  import->progress = lamina_work_progress_new (GTK_WINDOW (self), _("Import Catalogue XML"), text,
+                                               import->cancellable);
   import->pulse = g_timeout_add (100, pulse_cb, import);
 
   self->import = import;

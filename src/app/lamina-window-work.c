@@ -6,7 +6,6 @@
 
 #include "lamina-window-work.h"
 
-#include "store/lamina-library-safety.h"
 
 typedef struct
 {
@@ -71,11 +70,6 @@ lamina_library_work_run_async (LaminaLibrary         *library,
   task = g_task_new (source_object, cancellable, callback, user_data);
   g_task_set_source_tag (task, lamina_library_work_run_async);
   g_task_set_task_data (task, work, (GDestroyNotify) work_free);
-  if (!lamina_library_check_writable (library, &error))
-    {
-      g_task_return_error (task, g_steal_pointer (&error));
-      return;
-    }
   work->worker = lamina_library_open (lamina_library_get_path (library),
                                       LAMINA_LIBRARY_OPEN_EXISTING, NULL);
   if (work->worker == NULL)

@@ -21,9 +21,9 @@ typedef gboolean (*LaminaLibraryWorkFunc) (LaminaLibrary  *library,
                                            GError        **error);
 
 /* Runs @func (@data, freed by @data_free when done) for @library and
- * calls @callback on the calling thread's main context.  A read-only
- * library is refused before anything starts (the callback gets the
- * READ_ONLY error). */
+ * calls @callback on the calling thread's main context.  Reading work
+ * runs on a read-only library too; a write there fails with the library's
+ * READ_ONLY error. */
 void     lamina_library_work_run_async (LaminaLibrary         *library,
                                         LaminaLibraryWorkFunc  func,
                                         gpointer               data,

@@ -393,21 +393,27 @@ fetch_job_sheet_cb (gpointer   user_data,
 {
   const SheetJobSet *set = user_data;
   const LaminaJobLine *line = set->sheets->pdata[index];
-  LaminaConstruction *c = lamina_construction_copy (line->construction);
+  LaminaConstruction *c;
 
+  /* Stopped here, nothing is written (the writer drops its temporary). */
+  if (set->keep_going != NULL && !set->keep_going (set->keep_going_data, error))
+    return NULL;
+  c = lamina_construction_copy (line->construction);
   /* The sheet compares U with the job's target for the entry's use. */
   c->target_u = line->max_u;
   return c;
 }
 
 gboolean
-sheet_write_job_document (const char        *path,
-                          gboolean           overwrite,
-                          const SheetJobSet *set,
-                          GError           **error)
+sheet_write_job_document (const char          *path,
+                          gboolean             overwrite,
+                          const SheetJobSet   *set,
+                          LaminaSheetProgress  progress,
+                          gpointer             progress_data,
+                          GError             **error)
 {
   Source source = { set->sheets->len, fetch_job_sheet_cb, (gpointer) set, FALSE, NULL,
                     NULL, NULL, NULL, set };
 
-  return write_document (path, overwrite, &set->options, &source, NULL, NULL, error);
+  return write_document (path, overwrite, &set->options, &source, progress, progress_data, error);
 }

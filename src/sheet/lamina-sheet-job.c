@@ -511,15 +511,18 @@ write_job_sheets (const char               *path,
                   const LaminaTargetSet    *targets,
                   const LaminaJobCheck     *check,
                   GPtrArray                *lines,
+                  LaminaSheetProgress       progress,
+                  LaminaSheetContinue       keep_going,
+                  gpointer                  data,
                   GError                  **error)
 {
-  SheetJobSet set = { job, targets, check, lines, { 0 }, *options, check != NULL };
+  SheetJobSet set = { job, targets, check, lines, { 0 }, *options, check != NULL, keep_going, data };
 
   set.band = (LaminaSheetJob) { job->name, job->number, job->client, NULL };
   set.options.job = &set.band;
   if (check != NULL)
     set.options.title = job->name;
-  return sheet_write_job_document (path, overwrite, &set, error);
+  return sheet_write_job_document (path, overwrite, &set, progress, data, error);
 }
 
 gboolean
@@ -531,6 +534,22 @@ lamina_sheet_write_job (const char               *path,
                         const LaminaJobCheck     *check,
                         GError                  **error)
 {
+  return lamina_sheet_write_job_full (path, overwrite, options, job, targets, check,
+                                      NULL, NULL, NULL, error);
+}
+
+gboolean
+lamina_sheet_write_job_full (const char               *path,
+                             gboolean                  overwrite,
+                             const LaminaSheetOptions *options,
+                             const LaminaJob          *job,
+                             const LaminaTargetSet    *targets,
+                             const LaminaJobCheck     *check,
+                             LaminaSheetProgress       progress,
+                             LaminaSheetContinue       keep_going,
+                             gpointer                  data,
+                             GError                  **error)
+{
   g_autoptr(GPtrArray) lines = g_ptr_array_new ();
 
   g_return_val_if_fail (path != NULL && options != NULL && job != NULL && check != NULL, FALSE);
@@ -538,7 +557,8 @@ lamina_sheet_write_job (const char               *path,
   for (guint i = 0; i < check->lines->len; i++)
     if (((const LaminaJobLine *) check->lines->pdata[i])->construction != NULL)
       g_ptr_array_add (lines, check->lines->pdata[i]);
-  return write_job_sheets (path, overwrite, options, job, targets, check, lines, error);
+  return write_job_sheets (path, overwrite, options, job, targets, check, lines,
+                           progress, keep_going, data, error);
 }
 
 gboolean
@@ -555,5 +575,5 @@ lamina_sheet_write_job_entry (const char               *path,
   g_return_val_if_fail (line->construction != NULL, FALSE);
 
   g_ptr_array_add (lines, (gpointer) line);
-  return write_job_sheets (path, overwrite, options, job, NULL, NULL, lines, error);
+  return write_job_sheets (path, overwrite, options, job, NULL, NULL, lines, NULL, NULL, NULL, error);
 }

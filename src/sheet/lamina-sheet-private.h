@@ -74,6 +74,8 @@ typedef struct
   LaminaSheetOptions     options;    /* the caller's, with .job = &band */
   gboolean               front;      /* the cover and the schedule first;
                                         FALSE: one entry's sheet alone */
+  LaminaSheetContinue    keep_going; /* NULL: always */
+  gpointer               keep_going_data;
 } SheetJobSet;
 
 /* Pages of the cover and the schedule. */
@@ -92,10 +94,12 @@ char  *sheet_job_dup_criteria_text (const SheetContext *ctx);
 double sheet_draw_job_band   (SheetContext      *ctx,
                               double             y);
 /* lamina-sheet-document.c: the pages of a job's set. */
-gboolean sheet_write_job_document (const char        *path,
-                                   gboolean           overwrite,
-                                   const SheetJobSet *set,
-                                   GError           **error);
+gboolean sheet_write_job_document (const char          *path,
+                                   gboolean             overwrite,
+                                   const SheetJobSet   *set,
+                                   LaminaSheetProgress  progress,
+                                   gpointer             progress_data,
+                                   GError             **error);
 
 void   sheet_context_init    (SheetContext             *ctx,
                               cairo_t                  *cr,

@@ -71,6 +71,10 @@ typedef LaminaConstruction *(*LaminaSheetFetch)    (gpointer   user_data,
 typedef void                (*LaminaSheetProgress) (gpointer   user_data,
                                                     guint      done,
                                                     guint      total);
+/* Asked before each sheet is drawn: FALSE, with @error set, stops the
+ * writing, and nothing is written (a worker's Cancel). */
+typedef gboolean            (*LaminaSheetContinue) (gpointer   user_data,
+                                                    GError   **error);
 
 void        lamina_sheet_options_init (LaminaSheetOptions *options);
 const char *lamina_paper_to_string    (LaminaPaper         paper);
@@ -109,6 +113,18 @@ gboolean lamina_sheet_write_job       (const char               *path,
                                        const LaminaJob          *job,
                                        const LaminaTargetSet    *targets,
                                        const LaminaJobCheck     *check,
+                                       GError                  **error);
+/* The same with progress (sheets done of the total) and a question
+ * before each sheet (@keep_going, NULL: always), both given @data. */
+gboolean lamina_sheet_write_job_full  (const char               *path,
+                                       gboolean                  overwrite,
+                                       const LaminaSheetOptions *options,
+                                       const LaminaJob          *job,
+                                       const LaminaTargetSet    *targets,
+                                       const LaminaJobCheck     *check,
+                                       LaminaSheetProgress       progress,
+                                       LaminaSheetContinue       keep_going,
+                                       gpointer                  data,
                                        GError                  **error);
 
 /* The sheet of one entry of a job (@line of its check) as the job's sheet

@@ -23,6 +23,7 @@
 #include "lamina-construction-item.h"
 #include "lamina-demo.h"
 #include "lamina-editor-state.h"
+#include "lamina-job-sheets.h"
 #include "lamina-window-private.h"
 #include "lamina-write-gate.h"
 #include "lamina-app-test-util.h"
@@ -385,6 +386,82 @@ test_import (Fixture       *f,
   lamina_library_close (library);
 }
 
+typedef struct
+{
+  gboolean  done;
+  gboolean  ok;
+  GError   *error;
+} Written;
+
+static void
+on_written_cb (GObject      *source,
+               GAsyncResult *result,
+               gpointer      data)
+{
+  Written *w = data;
+
+  w->ok = lamina_job_sheets_write_finish (result, &w->error);
+  w->done = TRUE;
+}
+
+static gboolean
+written (gpointer data)
+{
+  return ((Written *) data)->done;
+}
+
+/* Files in @dir whose names hold @part, other than @except. */
+static guint
+count_files (const char *dir,
+             const char *part,
+             const char *except)
+{
+  g_autoptr(GDir) d = g_dir_open (dir, 0, NULL);
+  const char *name;
+  guint n = 0;
+
+  while ((name = g_dir_read_name (d)) != NULL)
+    if (strstr (name, part) != NULL && g_strcmp0 (name, except) != 0)
+      n++;
+  return n;
+}
+
+/* The job's sheet set in a worker: written whole; cancelled, it leaves
+ * the earlier file as it was and no temporary beside it. */
+static void
+test_job_sheets (Fixture       *f,
+                 gconstpointer  data)
+{
+  g_autofree char *pdf = g_build_filename (f->dir, "riverside.pdf", NULL);
+  g_autoptr(GCancellable) cancellable = g_cancellable_new ();
+  g_autofree char *contents = NULL;
+  Written w = { 0 };
+  gsize length = 0;
+
+  g_assert_true (g_file_set_contents (pdf, "an earlier file", -1, NULL));
+  g_cancellable_cancel (cancellable);
+  lamina_job_sheets_write_async (GTK_WINDOW (f->window), f->library, "demo-job-riverside", pdf,
+                                 "Test Practice", cancellable, on_written_cb, &w);
+  wait_until (written, &w, 30);
+  g_assert_false (w.ok);
+  g_assert_error (w.error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
+  g_clear_error (&w.error);
+  g_assert_true (g_file_get_contents (pdf, &contents, NULL, NULL));
+  g_assert_cmpstr (contents, ==, "an earlier file");
+  g_clear_pointer (&contents, g_free);
+  g_assert_cmpuint (count_files (f->dir, "riverside", "riverside.pdf"), ==, 0);
+
+  w = (Written) { 0 };
+  lamina_job_sheets_write_async (GTK_WINDOW (f->window), f->library, "demo-job-riverside", pdf,
+                                 "Test Practice", NULL, on_written_cb, &w);
+  wait_until (written, &w, 30);
+  g_assert_no_error (w.error);
+  g_assert_true (w.ok);
+  g_assert_true (g_file_get_contents (pdf, &contents, &length, NULL));
+  g_assert_true (length > 1000 && memcmp (contents, "%PDF", 4) == 0);
+  g_assert_cmpuint (count_files (f->dir, "riverside", "riverside.pdf"), ==, 0);
+}
+
 int
 main (int    argc,
       char **argv)
@@ -397,5 +474,6 @@ main (int    argc,
   g_test_add ("/app/write-gate/cancel", Fixture, NULL, fixture_setup, test_cancel, fixture_teardown);
   g_test_add ("/app/write-gate/delete-queued", Fixture, NULL, fixture_setup, test_delete_queued, fixture_teardown);
   g_test_add ("/app/write-gate/import", Fixture, NULL, fixture_setup, test_import, fixture_teardown);
+  g_test_add ("/app/write-gate/job-sheets", Fixture, NULL, fixture_setup, test_job_sheets, fixture_teardown);
   return g_test_run ();
 }
