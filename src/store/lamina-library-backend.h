@@ -105,6 +105,21 @@ typedef struct
   GPtrArray *constructions;     /* LaminaBackendRecord*, in order of creation */
 } LaminaBackendDump;
 
+/* One value of a row read by read_rows, typed by its letter. */
+typedef union
+{
+  const char *text;     /* 't' */
+  gint64      integer;  /* 'i' */
+  double      real;     /* 'r' */
+  gboolean    boolean;  /* 'b' */
+} LaminaBackendValue;
+
+typedef void     (*LaminaBackendRowFunc)  (const LaminaBackendValue *values,
+                                           gpointer                  data);
+typedef gboolean (*LaminaBackendReadFunc) (LaminaBackend  *backend,
+                                           gpointer        data,
+                                           GError        **error);
+
 /* lamina-library-copy.c */
 LaminaBackendDump           *lamina_backend_dump_new            (void);
 void                         lamina_backend_dump_free           (LaminaBackendDump *dump);
@@ -213,15 +228,15 @@ typedef struct
                                              const LaminaClimate *climate,
                                              const char *now, GError **error);
 
-  /* Moving a whole library (lamina-library-copy.c).  read_all: everything
-   * stored, read in one consistent snapshot.  write_all: @dump into this
-   * library in one transaction, all or nothing; refused with EXISTS
-   * (nothing written) unless the library holds no construction, review
-   * record, job or target set.  Its materials, climates and settings are
-   * replaced by the dump's (a new library starts with the seed's).
-   * Revisions keep their numbers, people, dates, figures and comments.
-   * NULL where a backend cannot: the copy says "not supported". */
-  LaminaBackendDump  *(*read_all)           (LaminaBackend *backend, GError **error);
+  /* Moving a whole library (lamina-library-copy.c, which reads the
+   * source through read_snapshot and read_rows below).  write_all: @dump
+   * into this library in one transaction, all or nothing; refused with
+   * EXISTS (nothing written) unless the library holds no construction,
+   * review record, job or target set.  Its materials, climates and
+   * settings are replaced by the dump's (a new library starts with the
+   * seed's).  Revisions keep their numbers, people, dates, figures and
+   * comments.  NULL where a backend cannot: the copy says "not
+   * supported". */
   gboolean            (*write_all)          (LaminaBackend *backend,
                                              const LaminaBackendDump *dump,
                                              GError **error);
@@ -296,6 +311,28 @@ typedef struct
    * program holds it, then BUSY.  NULL for a backend without a library-
    * wide write lock (the front end then does not wait). */
   gboolean            (*probe_write)        (LaminaBackend *backend, GError **error);
+
+  /* Reading a whole library as stored (lamina-library-copy.c).
+   * read_snapshot: calls @func, and every read it makes (read_rows and
+   * the list operations) sees one consistent state of the library; it
+   * writes nothing, so a read-only library can be read.  read_rows: runs
+   * @sql, one SELECT without parameters in the SQL both backends share,
+   * and calls @row with each row's values, one per letter of @types:
+   * 't' text (NULL for NULL), 'i' integer, 'r' real (NAN for NULL), 'b'
+   * boolean.  A text is the backend's until @row returns.  @what begins
+   * the message of a failure ("cannot read the revisions").  NULL where a
+   * backend cannot: the copy says "not supported". */
+  gboolean            (*read_snapshot)      (LaminaBackend          *backend,
+                                             LaminaBackendReadFunc   func,
+                                             gpointer                data,
+                                             GError                **error);
+  gboolean            (*read_rows)          (LaminaBackend          *backend,
+                                             const char             *sql,
+                                             const char             *types,
+                                             LaminaBackendRowFunc    row,
+                                             gpointer                data,
+                                             const char             *what,
+                                             GError                **error);
 } LaminaBackendVTable;
 
 struct _LaminaBackend

@@ -1,8 +1,7 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* lamina-pg-copy.c: the whole library read as stored and written into an
- * empty one (LaminaBackendVTable read_all / write_all) on a PostgreSQL
- * server, as lamina-sqlite-copy.c does for a file: an office moving its
- * library from a file to its server and back. */
+/* lamina-pg-copy.c: a PostgreSQL server's side of moving an office's
+ * library (LaminaBackendVTable read_snapshot, read_rows and write_all), as
+ * lamina-sqlite-copy.c is a file's: from a file to its server and back. */
 #define G_LOG_DOMAIN "lamina-store"
 
 #include "lamina-pg-private.h"
@@ -21,194 +20,62 @@ own_setting (const char *key)
          || strcmp (key, "server_roles") == 0;
 }
 
-static GHashTable *
-read_times (LaminaPg    *self,
-            const char  *sql,
-            GError     **error)
+/* LaminaBackendVTable read_rows: @sql's rows as typed values. */
+gboolean
+lamina_pg_read_rows (LaminaBackend         *backend,
+                     const char            *sql,
+                     const char            *types,
+                     LaminaBackendRowFunc   row,
+                     gpointer               data,
+                     const char            *what,
+                     GError               **error)
 {
-  PGresult *res = lamina_pg_query (self, sql, NULL, "cannot read the library", error);
-  GHashTable *times;
-
-  if (res == NULL)
-    return NULL;
-  times = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_free);
-  for (int i = 0; i < PQntuples (res); i++)
-    g_hash_table_insert (times, lamina_pg_dup (res, i, 0), lamina_pg_dup (res, i, 1));
-  PQclear (res);
-  return times;
-}
-
-static void
-add_times (GPtrArray   *out,
-           GHashTable  *times,
-           GPtrArray   *items,
-           gsize        id_offset)
-{
-  for (guint i = 0; i < items->len; i++)
-    {
-      const char *id = G_STRUCT_MEMBER (const char *, items->pdata[i], id_offset);
-
-      g_ptr_array_add (out, g_strdup (g_hash_table_lookup (times, id)));
-    }
-}
-
-static gboolean
-read_constructions (LaminaPg           *self,
-                    LaminaBackendDump  *dump,
-                    GError            **error)
-{
-  g_autoptr(GHashTable) by_id = g_hash_table_new (g_str_hash, g_str_equal);
-  PGresult *res = lamina_pg_query (self,
-    "SELECT id, deleted_at, flags, material_changed FROM construction ORDER BY num", NULL,
-    "cannot read the constructions", error);
+  PGresult *res = lamina_pg_query (SELF, sql, NULL, what, error);
+  gsize n = strlen (types);
+  g_autofree LaminaBackendValue *values = g_new0 (LaminaBackendValue, MAX (n, 1));
 
   if (res == NULL)
     return FALSE;
-  for (int i = 0; i < PQntuples (res); i++)
+  for (int r = 0; r < PQntuples (res); r++)
     {
-      LaminaBackendRecord *record = lamina_backend_record_new (lamina_pg_get (res, i, 0));
-
-      record->deleted_at = lamina_pg_dup (res, i, 1);
-      record->flags = lamina_pg_int (res, i, 2);
-      record->material_changed = lamina_pg_bool (res, i, 3);
-      g_ptr_array_add (dump->constructions, record);
-      g_hash_table_insert (by_id, record->id, record);
-    }
-  PQclear (res);
-
-  res = lamina_pg_query (self,
-    "SELECT r.construction_id, r.revision, r.status, r.body, r.u, r.u_corrected, r.r_total,"
-    "       r.thickness, r.calc_error, r.modified_by, r.modified_at, r.checked_by,"
-    "       r.checked_at, r.approved_by, r.approved_at, r.comment, f.body, f.computed_at"
-    "  FROM revision r LEFT JOIN field_check f"
-    "    ON f.construction_id = r.construction_id AND f.revision = r.revision"
-    " ORDER BY r.construction_id, r.revision", NULL, "cannot read the revisions", error);
-  if (res == NULL)
-    return FALSE;
-  for (int i = 0; i < PQntuples (res); i++)
-    {
-      LaminaBackendRecord *record = g_hash_table_lookup (by_id, lamina_pg_get (res, i, 0));
-      LaminaBackendRecordRevision *rev;
-
-      if (record == NULL)
-        continue;
-      rev = lamina_backend_record_revision_new ();
-      rev->revision = lamina_pg_int (res, i, 1);
-      lamina_status_from_string (lamina_pg_get (res, i, 2), &rev->status);
-      rev->body = lamina_pg_dup (res, i, 3);
-      rev->u = lamina_pg_double (res, i, 4);
-      rev->u_corrected = lamina_pg_double (res, i, 5);
-      rev->r_total = lamina_pg_double (res, i, 6);
-      rev->thickness = lamina_pg_double (res, i, 7);
-      rev->calc_error = lamina_pg_dup (res, i, 8);
-      rev->modified_by = lamina_pg_dup (res, i, 9);
-      rev->modified_at = lamina_pg_dup (res, i, 10);
-      rev->checked_by = lamina_pg_dup (res, i, 11);
-      rev->checked_at = lamina_pg_dup (res, i, 12);
-      rev->approved_by = lamina_pg_dup (res, i, 13);
-      rev->approved_at = lamina_pg_dup (res, i, 14);
-      rev->comment = lamina_pg_dup (res, i, 15);
-      rev->field_check = lamina_pg_dup (res, i, 16);
-      rev->field_check_at = lamina_pg_dup (res, i, 17);
-      g_ptr_array_add (record->revisions, rev);
-    }
-  PQclear (res);
-
-  res = lamina_pg_query (self,
-    "SELECT construction_id, revision, act, person, at, date, policy, reason"
-    "  FROM review_event ORDER BY num", NULL, "cannot read the review records", error);
-  if (res == NULL)
-    return FALSE;
-  for (int i = 0; i < PQntuples (res); i++)
-    {
-      LaminaBackendRecord *record = g_hash_table_lookup (by_id, lamina_pg_get (res, i, 0));
-      LaminaReviewEvent *e;
-
-      if (record == NULL)
-        continue;
-      e = g_new0 (LaminaReviewEvent, 1);
-      e->revision = lamina_pg_int (res, i, 1);
-      e->act = lamina_pg_dup (res, i, 2);
-      e->by = lamina_pg_dup (res, i, 3);
-      e->at = lamina_pg_dup (res, i, 4);
-      e->date = lamina_pg_dup (res, i, 5);
-      e->policy = lamina_pg_dup (res, i, 6);
-      e->reason = lamina_pg_dup (res, i, 7);
-      g_ptr_array_add (record->review_events, e);
+      for (gsize i = 0; i < n; i++)
+        switch (types[i])
+          {
+          case 'i':
+            values[i].integer = PQgetisnull (res, r, (int) i)
+                                ? 0 : g_ascii_strtoll (PQgetvalue (res, r, (int) i), NULL, 10);
+            break;
+          case 'r':
+            values[i].real = lamina_pg_double (res, r, (int) i);
+            break;
+          case 'b':
+            values[i].boolean = lamina_pg_bool (res, r, (int) i);
+            break;
+          default:
+            values[i].text = lamina_pg_get (res, r, (int) i);
+            break;
+          }
+      row (values, data);
     }
   PQclear (res);
   return TRUE;
 }
 
-static gboolean
-read_all_in_txn (LaminaPg           *self,
-                 LaminaBackendDump  *dump,
-                 GError            **error)
+/* LaminaBackendVTable read_snapshot. */
+gboolean
+lamina_pg_read_snapshot (LaminaBackend          *backend,
+                         LaminaBackendReadFunc   func,
+                         gpointer                data,
+                         GError                **error)
 {
-  LaminaBackend *backend = &self->parent;
-  g_autoptr(GHashTable) material_times = NULL;
-  g_autoptr(GHashTable) climate_times = NULL;
-  g_autoptr(GHashTable) set_times = NULL;
-  PGresult *res;
-  GPtrArray *list;
-
-  res = lamina_pg_query (self, "SELECT key, value FROM meta ORDER BY key COLLATE \"C\"", NULL,
-                         "cannot read the library settings", error);
-  if (res == NULL)
-    return FALSE;
-  for (int i = 0; i < PQntuples (res); i++)
-    if (!own_setting (lamina_pg_get (res, i, 0)))
-      {
-        g_ptr_array_add (dump->settings, lamina_pg_dup (res, i, 0));
-        g_ptr_array_add (dump->settings, lamina_pg_dup (res, i, 1));
-      }
-  PQclear (res);
-
-  material_times = read_times (self, "SELECT id, modified_at FROM material", error);
-  if (material_times == NULL || (list = lamina_pg_list_materials (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->materials, list);
-  add_times (dump->material_times, material_times, dump->materials, G_STRUCT_OFFSET (LaminaMaterial, id));
-
-  climate_times = read_times (self, "SELECT id, modified_at FROM climate", error);
-  if (climate_times == NULL || (list = lamina_pg_list_climates (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->climates, list);
-  add_times (dump->climate_times, climate_times, dump->climates, G_STRUCT_OFFSET (LaminaClimate, id));
-
-  set_times = read_times (self, "SELECT id, modified_at FROM target_set", error);
-  if (set_times == NULL || (list = lamina_pg_list_target_sets (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->target_sets, list);
-  add_times (dump->target_set_times, set_times, dump->target_sets, G_STRUCT_OFFSET (LaminaTargetSet, id));
-
-  if ((list = lamina_pg_list_jobs (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->jobs, list);
-  return read_constructions (self, dump, error);
-}
-
-LaminaBackendDump *
-lamina_pg_read_all (LaminaBackend  *backend,
-                    GError        **error)
-{
-  LaminaBackendDump *dump = lamina_backend_dump_new ();
   gboolean ok;
 
   /* One snapshot for every read, writing nothing. */
   if (!lamina_pg_exec (SELF, "BEGIN ISOLATION LEVEL REPEATABLE READ READ ONLY;", error))
-    {
-      lamina_backend_dump_free (dump);
-      return NULL;
-    }
-  ok = read_all_in_txn (SELF, dump, error);
+    return FALSE;
+  ok = func (backend, data, error);
   PQclear (PQexec (SELF->conn, "ROLLBACK;"));
-  if (!ok)
-    {
-      lamina_backend_dump_free (dump);
-      return NULL;
-    }
-  return dump;
+  return ok;
 }
 
 /* ---- Writing ---------------------------------------------------------- */

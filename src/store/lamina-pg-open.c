@@ -192,7 +192,6 @@ static const LaminaBackendVTable pg_vtable = {
   .delete_climate = lamina_pg_delete_climate,
   .verify_storage = lamina_pg_verify_storage,
   .set_moisture_limit = lamina_pg_set_moisture_limit,
-  .read_all = lamina_pg_read_all,
   .write_all = lamina_pg_write_all,
   .server_init = lamina_pg_server_init,
   .replace_draft = lamina_pg_replace_draft,
@@ -200,6 +199,8 @@ static const LaminaBackendVTable pg_vtable = {
   .find_code = lamina_pg_find_code,
   .backup_to = lamina_pg_backup_to,
   .count_at_most = lamina_pg_count_at_most,
+  .read_snapshot = lamina_pg_read_snapshot,
+  .read_rows = lamina_pg_read_rows,
 };
 
 /* What the database holds: -1 no Lamina library (@foreign: other tables

@@ -205,7 +205,11 @@ gboolean            lamina_pg_drop_draft       (LaminaBackend *backend,
                                                 const LaminaBackendRevision *previous,
                                                 int draft, const char *stamp, GError **error);
 /* lamina-pg-copy.c */
-LaminaBackendDump  *lamina_pg_read_all         (LaminaBackend *backend, GError **error);
+gboolean            lamina_pg_read_snapshot    (LaminaBackend *backend, LaminaBackendReadFunc func,
+                                                gpointer data, GError **error);
+gboolean            lamina_pg_read_rows        (LaminaBackend *backend, const char *sql,
+                                                const char *types, LaminaBackendRowFunc row,
+                                                gpointer data, const char *what, GError **error);
 gboolean            lamina_pg_write_all        (LaminaBackend *backend,
                                                 const LaminaBackendDump *dump, GError **error);
 gboolean            lamina_pg_backup_to        (LaminaBackend *backend, const char *dest,

@@ -1,229 +1,79 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* lamina-sqlite-copy.c: the whole library read as stored and written into
- * an empty one (LaminaBackendVTable read_all / write_all), for moving an
- * office's library between files and servers. */
+/* lamina-sqlite-copy.c: a file's side of moving an office's library
+ * between files and servers (LaminaBackendVTable read_snapshot, read_rows
+ * and write_all; lamina-library-copy.c reads the whole library). */
 #define G_LOG_DOMAIN "lamina-store"
 
 #include "lamina-sqlite-private.h"
 
 #include "lamina-store-json.h"
 
+#include <string.h>
+
 #define SELF ((LaminaSqlite *) backend)
 
-/* id → modified_at of every row of @table. */
-static GHashTable *
-read_times (LaminaSqlite  *self,
-            const char    *sql,
-            GError       **error)
+/* LaminaBackendVTable read_rows: @sql's rows as typed values. */
+gboolean
+lamina_sqlite_backend_read_rows (LaminaBackend         *backend,
+                                 const char            *sql,
+                                 const char            *types,
+                                 LaminaBackendRowFunc   row,
+                                 gpointer               data,
+                                 const char            *what,
+                                 GError               **error)
 {
-  g_autoptr(GHashTable) times = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_free);
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (self, sql, error);
-  int rc;
-
-  if (stmt == NULL)
-    return NULL;
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    g_hash_table_insert (times, lamina_sqlite_column_dup (stmt, 0),
-                         lamina_sqlite_column_dup (stmt, 1));
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    {
-      lamina_sqlite_set_error (self, rc, "cannot read the library", error);
-      return NULL;
-    }
-  return g_steal_pointer (&times);
-}
-
-static void
-add_times (GPtrArray   *out,
-           GHashTable  *times,
-           GPtrArray   *items,
-           gsize        id_offset)
-{
-  for (guint i = 0; i < items->len; i++)
-    {
-      const char *id = G_STRUCT_MEMBER (const char *, items->pdata[i], id_offset);
-
-      g_ptr_array_add (out, g_strdup (g_hash_table_lookup (times, id)));
-    }
-}
-
-static gboolean
-read_settings (LaminaSqlite       *self,
-               LaminaBackendDump  *dump,
-               GError            **error)
-{
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
-    "SELECT key, value FROM meta ORDER BY key;", error);
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF, sql, error);
+  gsize n = strlen (types);
+  g_autofree LaminaBackendValue *values = g_new0 (LaminaBackendValue, MAX (n, 1));
   int rc;
 
   if (stmt == NULL)
     return FALSE;
   while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
     {
-      g_ptr_array_add (dump->settings, lamina_sqlite_column_dup (stmt, 0));
-      g_ptr_array_add (dump->settings, lamina_sqlite_column_dup (stmt, 1));
+      for (gsize i = 0; i < n; i++)
+        switch (types[i])
+          {
+          case 'i':
+            values[i].integer = sqlite3_column_int64 (stmt, (int) i);
+            break;
+          case 'r':
+            values[i].real = lamina_sqlite_column_double (stmt, (int) i);
+            break;
+          case 'b':
+            values[i].boolean = sqlite3_column_int (stmt, (int) i) != 0;
+            break;
+          default:
+            values[i].text = (const char *) sqlite3_column_text (stmt, (int) i);
+            break;
+          }
+      row (values, data);
     }
   sqlite3_reset (stmt);
   if (rc != SQLITE_DONE)
     {
-      lamina_sqlite_set_error (self, rc, "cannot read the library settings", error);
+      lamina_sqlite_set_error (SELF, rc, what, error);
       return FALSE;
     }
   return TRUE;
 }
 
-static gboolean
-read_constructions (LaminaSqlite       *self,
-                    LaminaBackendDump  *dump,
-                    GError            **error)
+/* LaminaBackendVTable read_snapshot. */
+gboolean
+lamina_sqlite_backend_read_snapshot (LaminaBackend          *backend,
+                                     LaminaBackendReadFunc   func,
+                                     gpointer                data,
+                                     GError                **error)
 {
-  g_autoptr(GHashTable) by_id = g_hash_table_new (g_str_hash, g_str_equal);
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
-    "SELECT id, deleted_at, flags, material_changed FROM construction ORDER BY num;", error);
-  int rc;
-
-  if (stmt == NULL)
-    return FALSE;
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    {
-      LaminaBackendRecord *record =
-        lamina_backend_record_new ((const char *) sqlite3_column_text (stmt, 0));
-
-      record->deleted_at = lamina_sqlite_column_dup (stmt, 1);
-      record->flags = sqlite3_column_int (stmt, 2);
-      record->material_changed = sqlite3_column_int (stmt, 3) != 0;
-      g_ptr_array_add (dump->constructions, record);
-      g_hash_table_insert (by_id, record->id, record);
-    }
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    goto fail;
-
-  stmt = lamina_sqlite_prepare (self,
-    "SELECT r.construction_id, r.revision, r.status, r.body, r.u, r.u_corrected, r.r_total,"
-    "       r.thickness, r.calc_error, r.modified_by, r.modified_at, r.checked_by,"
-    "       r.checked_at, r.approved_by, r.approved_at, r.comment, f.body, f.computed_at"
-    "  FROM revision r LEFT JOIN field_check f"
-    "    ON f.construction_id = r.construction_id AND f.revision = r.revision"
-    " ORDER BY r.construction_id, r.revision;", error);
-  if (stmt == NULL)
-    return FALSE;
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    {
-      LaminaBackendRecord *record =
-        g_hash_table_lookup (by_id, (const char *) sqlite3_column_text (stmt, 0));
-      LaminaBackendRecordRevision *rev;
-
-      if (record == NULL)
-        continue;
-      rev = lamina_backend_record_revision_new ();
-      rev->revision = sqlite3_column_int (stmt, 1);
-      lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 2), &rev->status);
-      rev->body = lamina_sqlite_column_dup (stmt, 3);
-      rev->u = lamina_sqlite_column_double (stmt, 4);
-      rev->u_corrected = lamina_sqlite_column_double (stmt, 5);
-      rev->r_total = lamina_sqlite_column_double (stmt, 6);
-      rev->thickness = lamina_sqlite_column_double (stmt, 7);
-      rev->calc_error = lamina_sqlite_column_dup (stmt, 8);
-      rev->modified_by = lamina_sqlite_column_dup (stmt, 9);
-      rev->modified_at = lamina_sqlite_column_dup (stmt, 10);
-      rev->checked_by = lamina_sqlite_column_dup (stmt, 11);
-      rev->checked_at = lamina_sqlite_column_dup (stmt, 12);
-      rev->approved_by = lamina_sqlite_column_dup (stmt, 13);
-      rev->approved_at = lamina_sqlite_column_dup (stmt, 14);
-      rev->comment = lamina_sqlite_column_dup (stmt, 15);
-      rev->field_check = lamina_sqlite_column_dup (stmt, 16);
-      rev->field_check_at = lamina_sqlite_column_dup (stmt, 17);
-      g_ptr_array_add (record->revisions, rev);
-    }
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    goto fail;
-
-  stmt = lamina_sqlite_prepare (self,
-    "SELECT construction_id, revision, act, person, at, date, policy, reason"
-    "  FROM review_event ORDER BY num;", error);
-  if (stmt == NULL)
-    return FALSE;
-  while ((rc = sqlite3_step (stmt)) == SQLITE_ROW)
-    {
-      LaminaBackendRecord *record =
-        g_hash_table_lookup (by_id, (const char *) sqlite3_column_text (stmt, 0));
-
-      if (record != NULL)
-        g_ptr_array_add (record->review_events, lamina_sqlite_read_review_event (stmt, 1));
-    }
-  sqlite3_reset (stmt);
-  if (rc != SQLITE_DONE)
-    goto fail;
-  return TRUE;
-
-fail:
-  lamina_sqlite_set_error (self, rc, "cannot read the constructions", error);
-  return FALSE;
-}
-
-static gboolean
-read_all_in_txn (LaminaSqlite       *self,
-                 LaminaBackendDump  *dump,
-                 GError            **error)
-{
-  LaminaBackend *backend = &self->parent;
-  g_autoptr(GHashTable) material_times = NULL;
-  g_autoptr(GHashTable) climate_times = NULL;
-  g_autoptr(GHashTable) set_times = NULL;
-  GPtrArray *list;
-
-  if (!read_settings (self, dump, error))
-    return FALSE;
-
-  material_times = read_times (self, "SELECT id, modified_at FROM material;", error);
-  if (material_times == NULL || (list = lamina_sqlite_backend_list_materials (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->materials, list);
-  add_times (dump->material_times, material_times, dump->materials, G_STRUCT_OFFSET (LaminaMaterial, id));
-
-  climate_times = read_times (self, "SELECT id, modified_at FROM climate;", error);
-  if (climate_times == NULL || (list = lamina_sqlite_backend_list_climates (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->climates, list);
-  add_times (dump->climate_times, climate_times, dump->climates, G_STRUCT_OFFSET (LaminaClimate, id));
-
-  set_times = read_times (self, "SELECT id, modified_at FROM target_set;", error);
-  if (set_times == NULL || (list = lamina_sqlite_backend_list_target_sets (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->target_sets, list);
-  add_times (dump->target_set_times, set_times, dump->target_sets, G_STRUCT_OFFSET (LaminaTargetSet, id));
-
-  if ((list = lamina_sqlite_backend_list_jobs (backend, error)) == NULL)
-    return FALSE;
-  g_ptr_array_extend_and_steal (dump->jobs, list);
-
-  return read_constructions (self, dump, error);
-}
-
-LaminaBackendDump *
-lamina_sqlite_backend_read_all (LaminaBackend  *backend,
-                                GError        **error)
-{
-  LaminaBackendDump *dump = lamina_backend_dump_new ();
+  gboolean ok;
 
   /* A plain BEGIN: one snapshot for every read, and no write lock (the
    * source may be read-only). */
   if (!lamina_sqlite_exec (SELF, "BEGIN;", error))
-    {
-      lamina_backend_dump_free (dump);
-      return NULL;
-    }
-  if (!read_all_in_txn (SELF, dump, error))
-    {
-      lamina_sqlite_rollback (SELF);
-      lamina_backend_dump_free (dump);
-      return NULL;
-    }
+    return FALSE;
+  ok = func (backend, data, error);
   lamina_sqlite_rollback (SELF);
-  return dump;
+  return ok;
 }
 
 /* ---- Writing ---------------------------------------------------------- */

@@ -114,7 +114,6 @@ static const LaminaBackendVTable sqlite_vtable = {
   .list_climates = lamina_sqlite_backend_list_climates,
   .get_climate = lamina_sqlite_backend_get_climate,
   .put_climate = lamina_sqlite_backend_put_climate,
-  .read_all = lamina_sqlite_backend_read_all,
   .write_all = lamina_sqlite_backend_write_all,
 
   .verify_storage = lamina_sqlite_backend_verify_storage,
@@ -128,6 +127,8 @@ static const LaminaBackendVTable sqlite_vtable = {
 
   .count_at_most = lamina_sqlite_backend_count_at_most,
   .probe_write = lamina_sqlite_backend_probe_write,
+  .read_snapshot = lamina_sqlite_backend_read_snapshot,
+  .read_rows = lamina_sqlite_backend_read_rows,
 };
 
 static LaminaSqlite *

@@ -343,8 +343,17 @@ gboolean      lamina_sqlite_insert_revision    (LaminaSqlite                    
 gboolean      lamina_sqlite_flush_search_index (LaminaSqlite              *self,
                                                 GError                   **error);
 /* lamina-sqlite-copy.c */
-LaminaBackendDump *lamina_sqlite_backend_read_all  (LaminaBackend            *backend,
-                                                    GError                  **error);
+gboolean           lamina_sqlite_backend_read_snapshot (LaminaBackend          *backend,
+                                                        LaminaBackendReadFunc   func,
+                                                        gpointer                data,
+                                                        GError                **error);
+gboolean           lamina_sqlite_backend_read_rows (LaminaBackend         *backend,
+                                                    const char            *sql,
+                                                    const char            *types,
+                                                    LaminaBackendRowFunc   row,
+                                                    gpointer               data,
+                                                    const char            *what,
+                                                    GError               **error);
 gboolean           lamina_sqlite_backend_write_all (LaminaBackend            *backend,
                                                     const LaminaBackendDump  *dump,
                                                     GError                  **error);
