@@ -125,6 +125,10 @@ LaminaBackendDump           *lamina_backend_dump_new            (void);
 void                         lamina_backend_dump_free           (LaminaBackendDump *dump);
 LaminaBackendRecord         *lamina_backend_record_new          (const char *id);
 LaminaBackendRecordRevision *lamina_backend_record_revision_new (void);
+/* Everything @backend stores, as stored, read in one snapshot through its
+ * read_snapshot, read_rows and list operations (which must not be NULL). */
+LaminaBackendDump           *lamina_backend_read_all            (LaminaBackend     *backend,
+                                                                 GError           **error);
 /* Parses every revision's body into its construction (what write_all
  * needs) and counts into @report: CORRUPT, naming the construction and
  * revision, before anything is written. */

@@ -327,10 +327,9 @@ read_all_in_snapshot (LaminaBackend  *backend,
   return read_constructions (backend, dump, error);
 }
 
-/* Everything @backend stores, as stored, in one snapshot. */
-static LaminaBackendDump *
-read_all (LaminaBackend  *backend,
-          GError        **error)
+LaminaBackendDump *
+lamina_backend_read_all (LaminaBackend  *backend,
+                         GError        **error)
 {
   g_autoptr(LaminaBackendDump) dump = lamina_backend_dump_new ();
 
@@ -418,7 +417,7 @@ lamina_library_copy (LaminaLibrary     *from,
       return FALSE;
     }
 
-  dump = read_all (BE (from), error);
+  dump = lamina_backend_read_all (BE (from), error);
   if (dump == NULL)
     {
       g_prefix_error (error, "%s: ", lamina_library_get_path (from));

@@ -164,30 +164,17 @@ write_construction_row (LaminaPg                   *self,
                         GError                    **error)
 {
   const LaminaBackendRecordRevision *head = record->revisions->pdata[record->revisions->len - 1];
-  const LaminaConstruction *c = head->construction;
-  g_autofree char *words = lamina_pg_search_words (c);
-  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
+  g_autofree char *words = lamina_pg_search_words (head->construction);
+  g_autoptr(GPtrArray) params = NULL;
+  LaminaStoreConstructionRow row;
 
-  lamina_pg_add_text (params, record->id);
-  lamina_pg_add_int (params, head->revision);
-  lamina_pg_add_text (params, c->code);
-  lamina_pg_add_text (params, c->name ? c->name : "");
-  lamina_pg_add_text (params, lamina_element_to_string (c->element));
-  lamina_pg_add_text (params, lamina_status_to_string (head->status));
-  lamina_pg_add_double (params, head->u);
-  lamina_pg_add_double (params, head->u_corrected);
-  lamina_pg_add_double (params, c->target_u);
-  lamina_pg_add_double (params, head->thickness);
-  lamina_pg_add_int (params, record->flags);
-  lamina_pg_add_text (params, head->modified_at);
-  lamina_pg_add_text (params, record->deleted_at);
-  lamina_pg_add_text (params, record->material_changed ? "true" : "false");
-  lamina_pg_add_text (params, words);
+  lamina_store_construction_row_for_record (&row, record);
+  params = lamina_pg_construction_row_params (&row, words, TRUE);
   return lamina_pg_run (self,
     "INSERT INTO construction (id, head, code, name, element, status, u, u_corrected,"
-    "   target_u, thickness, flags, modified_at, deleted_at, material_changed, search)"
-    " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14,"
-    "   array_to_tsvector (string_to_array ($15, ' ')))",
+    "   target_u, thickness, flags, modified_at, search, deleted_at, material_changed)"
+    " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12,"
+    "   array_to_tsvector (string_to_array ($13, ' ')), $14, $15)",
     params, "cannot copy a construction", error);
 }
 
@@ -199,33 +186,13 @@ write_revision (LaminaPg                           *self,
 {
   g_autoptr(GPtrArray) params = lamina_pg_params_new ();
 
-  lamina_pg_add_text (params, record->id);
-  lamina_pg_add_int (params, rev->revision);
-  lamina_pg_add_text (params, lamina_status_to_string (rev->status));
-  lamina_pg_add_text (params, rev->body);
-  lamina_pg_add_double (params, rev->u);
-  lamina_pg_add_double (params, rev->u_corrected);
-  lamina_pg_add_double (params, rev->r_total);
-  lamina_pg_add_double (params, rev->thickness);
-  lamina_pg_add_text (params, rev->calc_error);
-  lamina_pg_add_text (params, rev->modified_by);
-  lamina_pg_add_text (params, rev->modified_at);
-  lamina_pg_add_text (params, rev->checked_by);
-  lamina_pg_add_text (params, rev->checked_at);
-  lamina_pg_add_text (params, rev->approved_by);
-  lamina_pg_add_text (params, rev->approved_at);
-  lamina_pg_add_text (params, rev->comment);
-  if (!lamina_pg_run (self,
-        "INSERT INTO revision (construction_id, revision, status, body, u, u_corrected,"
-        "   r_total, thickness, calc_error, modified_by, modified_at, checked_by,"
-        "   checked_at, approved_by, approved_at, comment)"
-        " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16)",
-        params, "cannot copy a revision", error)
+  if (!lamina_pg_insert_revision (self, record->id, rev, "cannot copy a revision", error)
       || !lamina_pg_index_revision (self, rev->construction, TRUE, error))
     return FALSE;
   if (rev->field_check == NULL)
     return TRUE;
-  g_ptr_array_set_size (params, 2);
+  lamina_pg_add_text (params, record->id);
+  lamina_pg_add_int (params, rev->revision);
   lamina_pg_add_text (params, rev->field_check);
   lamina_pg_add_text (params, rev->field_check_at ? rev->field_check_at : rev->modified_at);
   return lamina_pg_run (self,
@@ -300,9 +267,9 @@ lamina_pg_write_all (LaminaBackend            *backend,
 
 /* What an office's administrator expects of "lamina-cli backup" on the
  * server: a file they can keep, open and copy back, of the library as it
- * stood at one moment.  read_all reads in one REPEATABLE READ READ ONLY
- * transaction (colleagues go on working; nothing they commit meanwhile is
- * half in the copy), and the new SQLite library @dest is written in one
+ * stood at one moment.  lamina_backend_read_all reads in one REPEATABLE
+ * READ READ ONLY transaction (colleagues go on working; nothing they
+ * commit meanwhile is half in the copy), and the new SQLite library @dest is written in one
  * transaction by the copy machinery, so the backup is an ordinary
  * library file with every revision, review record and 2-D check.  No
  * program is started (no pg_dump): the server's own backups of the whole
@@ -312,7 +279,7 @@ lamina_pg_backup_to (LaminaBackend  *backend,
                      const char     *dest,
                      GError        **error)
 {
-  LaminaBackendDump *dump = lamina_pg_read_all (backend, error);
+  LaminaBackendDump *dump = lamina_backend_read_all (backend, error);
   LaminaBackend *file = NULL;
   LaminaCopyReport counts = { 0 };
   gboolean ok;

@@ -11,6 +11,7 @@
 #include <libpq-fe.h>
 
 #include "lamina-library-backend.h"
+#include "lamina-store-common.h"
 
 G_BEGIN_DECLS
 
@@ -204,6 +205,14 @@ gboolean            lamina_pg_replace_draft    (LaminaBackend *backend,
 gboolean            lamina_pg_drop_draft       (LaminaBackend *backend,
                                                 const LaminaBackendRevision *previous,
                                                 int draft, const char *stamp, GError **error);
+/* The parameters $1 … $13 of a construction row (@words: its search
+ * words), and with @whole $14 deleted_at and $15 material_changed. */
+GPtrArray          *lamina_pg_construction_row_params (const LaminaStoreConstructionRow *row,
+                                                       const char *words, gboolean whole);
+/* One revision row as given (the stored figures, people and dates). */
+gboolean            lamina_pg_insert_revision  (LaminaPg *self, const char *id,
+                                                const LaminaBackendRecordRevision *row,
+                                                const char *what, GError **error);
 /* lamina-pg-copy.c */
 gboolean            lamina_pg_read_snapshot    (LaminaBackend *backend, LaminaBackendReadFunc func,
                                                 gpointer data, GError **error);

@@ -128,23 +128,12 @@ put_construction_row (LaminaPg                  *self,
                       gboolean                   create,
                       GError                   **error)
 {
-  g_autoptr(GPtrArray) params = lamina_pg_params_new ();
   g_autofree char *words = lamina_pg_search_words (c);
+  g_autoptr(GPtrArray) params = NULL;
+  LaminaStoreConstructionRow row;
 
-  lamina_pg_add_text (params, c->id);
-  lamina_pg_add_int (params, c->revision);
-  lamina_pg_add_text (params, c->code);
-  lamina_pg_add_text (params, c->name ? c->name : "");
-  lamina_pg_add_text (params, lamina_element_to_string (c->element));
-  lamina_pg_add_text (params, lamina_status_to_string (c->status));
-  lamina_pg_add_double (params, r ? r->u : NAN);
-  lamina_pg_add_double (params, r ? r->u_corrected : NAN);
-  lamina_pg_add_double (params, c->target_u);
-  lamina_pg_add_double (params, lamina_construction_get_thickness (c));
-  lamina_pg_add_int (params, lamina_store_summary_flags (r)
-                             | lamina_library_moisture_flags_for_limit (c, lamina_pg_moisture_limit (self)));
-  lamina_pg_add_text (params, c->modified_at);
-  lamina_pg_add_text (params, words);
+  lamina_store_construction_row_for_revision (&row, c, r, lamina_pg_moisture_limit (self));
+  params = lamina_pg_construction_row_params (&row, words, FALSE);
   if (create)
     return lamina_pg_run (self,
       "INSERT INTO construction (id, head, code, name, element, status, u, u_corrected,"
@@ -165,33 +154,73 @@ insert_revision_row (LaminaPg                     *self,
                      const LaminaBackendRevision  *rev,
                      GError                      **error)
 {
-  const LaminaConstruction *c = rev->construction;
-  const LaminaResult *r = rev->result;
-  g_autofree char *body = lamina_store_construction_to_json (c);
+  g_autofree char *body = lamina_store_construction_to_json (rev->construction);
+  LaminaBackendRecordRevision row;
+
+  lamina_store_revision_row_for (&row, rev, body);
+  return lamina_pg_insert_revision (self, rev->construction->id, &row, "cannot store a revision",
+                                    error);
+}
+
+GPtrArray *
+lamina_pg_construction_row_params (const LaminaStoreConstructionRow *row,
+                                   const char                       *words,
+                                   gboolean                          whole)
+{
+  GPtrArray *params = lamina_pg_params_new ();
+
+  lamina_pg_add_text (params, row->id);
+  lamina_pg_add_int (params, row->head);
+  lamina_pg_add_text (params, row->code);
+  lamina_pg_add_text (params, row->name);
+  lamina_pg_add_text (params, row->element);
+  lamina_pg_add_text (params, row->status);
+  lamina_pg_add_double (params, row->u);
+  lamina_pg_add_double (params, row->u_corrected);
+  lamina_pg_add_double (params, row->target_u);
+  lamina_pg_add_double (params, row->thickness);
+  lamina_pg_add_int (params, row->flags);
+  lamina_pg_add_text (params, row->modified_at);
+  lamina_pg_add_text (params, words);
+  if (whole)
+    {
+      lamina_pg_add_text (params, row->deleted_at);
+      lamina_pg_add_text (params, row->material_changed ? "true" : "false");
+    }
+  return params;
+}
+
+gboolean
+lamina_pg_insert_revision (LaminaPg                           *self,
+                           const char                         *id,
+                           const LaminaBackendRecordRevision  *row,
+                           const char                         *what,
+                           GError                            **error)
+{
   g_autoptr(GPtrArray) params = lamina_pg_params_new ();
 
-  lamina_pg_add_text (params, c->id);
-  lamina_pg_add_int (params, c->revision);
-  lamina_pg_add_text (params, lamina_status_to_string (c->status));
-  lamina_pg_add_text (params, body);
-  lamina_pg_add_double (params, r ? r->u : NAN);
-  lamina_pg_add_double (params, r ? r->u_corrected : NAN);
-  lamina_pg_add_double (params, r ? r->r_total : NAN);
-  lamina_pg_add_double (params, lamina_construction_get_thickness (c));
-  lamina_pg_add_text (params, rev->calc_error);
-  lamina_pg_add_text (params, c->modified_by);
-  lamina_pg_add_text (params, c->modified_at);
-  lamina_pg_add_text (params, c->checked_by);
-  lamina_pg_add_text (params, c->checked_at);
-  lamina_pg_add_text (params, c->approved_by);
-  lamina_pg_add_text (params, c->approved_at);
-  lamina_pg_add_text (params, rev->comment);
+  lamina_pg_add_text (params, id);
+  lamina_pg_add_int (params, row->revision);
+  lamina_pg_add_text (params, lamina_status_to_string (row->status));
+  lamina_pg_add_text (params, row->body);
+  lamina_pg_add_double (params, row->u);
+  lamina_pg_add_double (params, row->u_corrected);
+  lamina_pg_add_double (params, row->r_total);
+  lamina_pg_add_double (params, row->thickness);
+  lamina_pg_add_text (params, row->calc_error);
+  lamina_pg_add_text (params, row->modified_by);
+  lamina_pg_add_text (params, row->modified_at);
+  lamina_pg_add_text (params, row->checked_by);
+  lamina_pg_add_text (params, row->checked_at);
+  lamina_pg_add_text (params, row->approved_by);
+  lamina_pg_add_text (params, row->approved_at);
+  lamina_pg_add_text (params, row->comment);
   return lamina_pg_run (self,
     "INSERT INTO revision (construction_id, revision, status, body, u, u_corrected,"
     "   r_total, thickness, calc_error, modified_by, modified_at, checked_by,"
     "   checked_at, approved_by, approved_at, comment)"
     " VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16)",
-    params, "cannot store a revision", error);
+    params, what, error);
 }
 
 gboolean
@@ -545,21 +574,7 @@ check_draft_head (LaminaPg    *self,
       same = lamina_pg_bool (res, 0, 3);
     }
   PQclear (res);
-  if (head == 0 || deleted)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
-                   "no construction “%s” in the library", id);
-      return FALSE;
-    }
-  if (head != draft || status != LAMINA_STATUS_DRAFT || !same)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
-                   "construction “%s” was changed by someone else (its latest revision is %d, "
-                   "%s, saved since you opened it); nothing was saved: reopen it and apply "
-                   "your change again", id, head, lamina_status_to_string (status));
-      return FALSE;
-    }
-  return TRUE;
+  return lamina_store_check_draft_head (id, draft, head, deleted, status, same, error);
 }
 
 /* What belongs to draft @draft alone: its materials, a stored 2-D check

@@ -121,18 +121,10 @@ write_settings_and_records (LaminaSqlite             *self,
 {
   sqlite3_stmt *stmt;
 
-  stmt = lamina_sqlite_prepare (self, "INSERT OR REPLACE INTO meta (key, value) VALUES (?1, ?2);",
-                                error);
-  if (stmt == NULL)
-    return FALSE;
   for (guint i = 0; i + 1 < dump->settings->len; i += 2)
-    {
-      sqlite3_reset (stmt);
-      lamina_sqlite_bind_text (stmt, 1, dump->settings->pdata[i]);
-      lamina_sqlite_bind_text (stmt, 2, dump->settings->pdata[i + 1]);
-      if (!lamina_sqlite_step_done (self, stmt, error))
-        return FALSE;
-    }
+    if (!lamina_sqlite_put_setting_in_txn (self, dump->settings->pdata[i],
+                                           dump->settings->pdata[i + 1], error))
+      return FALSE;
 
   if (!lamina_sqlite_exec (self, "DELETE FROM material; DELETE FROM climate;", error))
     return FALSE;
@@ -173,101 +165,35 @@ write_settings_and_records (LaminaSqlite             *self,
   return TRUE;
 }
 
-/* The construction's row, from its latest revision: what the list and
- * the search read. */
 static gboolean
-write_construction_row (LaminaSqlite               *self,
-                        const LaminaBackendRecord  *record,
-                        gint64                     *num,
-                        GError                    **error)
+write_record (LaminaSqlite               *self,
+              const LaminaBackendRecord  *record,
+              GError                    **error)
 {
-  const LaminaBackendRecordRevision *head = record->revisions->pdata[record->revisions->len - 1];
-  const LaminaConstruction *c = head->construction;
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
-    "INSERT INTO construction (id, head, code, name, element, status, u, u_corrected,"
-    "   target_u, thickness, flags, modified_at, deleted_at, material_changed)"
-    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14)"
-    " RETURNING num;", error);
+  LaminaStoreConstructionRow row;
+  gint64 num;
 
-  if (stmt == NULL)
+  lamina_store_construction_row_for_record (&row, record);
+  if (!lamina_sqlite_put_construction_row (self, &row, &num, error))
     return FALSE;
-  lamina_sqlite_bind_text (stmt, 1, record->id);
-  sqlite3_bind_int (stmt, 2, head->revision);
-  lamina_sqlite_bind_text (stmt, 3, c->code);
-  lamina_sqlite_bind_text (stmt, 4, c->name ? c->name : "");
-  lamina_sqlite_bind_text (stmt, 5, lamina_element_to_string (c->element));
-  lamina_sqlite_bind_text (stmt, 6, lamina_status_to_string (head->status));
-  lamina_sqlite_bind_double (stmt, 7, head->u);
-  lamina_sqlite_bind_double (stmt, 8, head->u_corrected);
-  lamina_sqlite_bind_double (stmt, 9, c->target_u);
-  lamina_sqlite_bind_double (stmt, 10, head->thickness);
-  sqlite3_bind_int (stmt, 11, record->flags);
-  lamina_sqlite_bind_text (stmt, 12, head->modified_at);
-  lamina_sqlite_bind_text (stmt, 13, record->deleted_at);
-  sqlite3_bind_int (stmt, 14, record->material_changed ? 1 : 0);
-  if (sqlite3_step (stmt) != SQLITE_ROW)
+  for (guint k = 0; k < record->revisions->len; k++)
     {
-      lamina_sqlite_set_error (self, sqlite3_reset (stmt), "cannot store a construction", error);
-      return FALSE;
-    }
-  *num = sqlite3_column_int64 (stmt, 0);
-  sqlite3_reset (stmt);
-  return TRUE;
-}
+      const LaminaBackendRecordRevision *rev = record->revisions->pdata[k];
 
-static gboolean
-write_revision (LaminaSqlite                       *self,
-                const LaminaBackendRecord          *record,
-                const LaminaBackendRecordRevision  *rev,
-                gint64                              num,
-                GError                            **error)
-{
-  sqlite3_stmt *stmt;
-
-  if (!lamina_sqlite_insert_revision (self, record->id, rev, error)
-      || !lamina_sqlite_index_revision (self, rev->construction, num, error))
-    return FALSE;
-  if (rev->field_check == NULL)
-    return TRUE;
-  stmt = lamina_sqlite_prepare (self,
-    "INSERT INTO field_check (construction_id, revision, body, computed_at)"
-    " VALUES (?1, ?2, ?3, ?4);", error);
-  if (stmt == NULL)
-    return FALSE;
-  lamina_sqlite_bind_text (stmt, 1, record->id);
-  sqlite3_bind_int (stmt, 2, rev->revision);
-  lamina_sqlite_bind_text (stmt, 3, rev->field_check);
-  lamina_sqlite_bind_text (stmt, 4, rev->field_check_at ? rev->field_check_at : rev->modified_at);
-  return lamina_sqlite_step_done (self, stmt, error);
-}
-
-static gboolean
-write_review_events (LaminaSqlite               *self,
-                     const LaminaBackendRecord  *record,
-                     GError                    **error)
-{
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
-    "INSERT INTO review_event (construction_id, revision, act, person, at, date, policy, reason)"
-    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8);", error);
-
-  if (stmt == NULL)
-    return FALSE;
-  for (guint i = 0; i < record->review_events->len; i++)
-    {
-      const LaminaReviewEvent *e = record->review_events->pdata[i];
-
-      sqlite3_reset (stmt);
-      lamina_sqlite_bind_text (stmt, 1, record->id);
-      sqlite3_bind_int (stmt, 2, e->revision);
-      lamina_sqlite_bind_text (stmt, 3, e->act);
-      lamina_sqlite_bind_text (stmt, 4, e->by);
-      lamina_sqlite_bind_text (stmt, 5, e->at);
-      lamina_sqlite_bind_text (stmt, 6, e->date);
-      lamina_sqlite_bind_text (stmt, 7, e->policy);
-      lamina_sqlite_bind_text (stmt, 8, e->reason);
-      if (!lamina_sqlite_step_done (self, stmt, error))
+      if (!lamina_sqlite_insert_revision (self, record->id, rev, error)
+          || !lamina_sqlite_index_revision (self, rev->construction, num, error)
+          || (rev->field_check != NULL
+              && !lamina_sqlite_put_field_check_in_txn (self, record->id, rev->revision,
+                                                        rev->field_check,
+                                                        rev->field_check_at ? rev->field_check_at
+                                                                            : rev->modified_at,
+                                                        error)))
         return FALSE;
     }
+  for (guint i = 0; i < record->review_events->len; i++)
+    if (!lamina_sqlite_insert_review_event (self, record->id, record->review_events->pdata[i],
+                                            error))
+      return FALSE;
   return TRUE;
 }
 
@@ -281,16 +207,8 @@ write_all_in_txn (LaminaSqlite             *self,
   for (guint i = 0; i < dump->constructions->len; i++)
     {
       const LaminaBackendRecord *record = dump->constructions->pdata[i];
-      gint64 num;
 
-      if (record->revisions->len == 0)
-        continue;
-      if (!write_construction_row (self, record, &num, error))
-        return FALSE;
-      for (guint k = 0; k < record->revisions->len; k++)
-        if (!write_revision (self, record, record->revisions->pdata[k], num, error))
-          return FALSE;
-      if (!write_review_events (self, record, error))
+      if (record->revisions->len > 0 && !write_record (self, record, error))
         return FALSE;
     }
   return lamina_sqlite_flush_search_index (self, error);

@@ -7,6 +7,7 @@
 #include <sqlite3.h>
 
 #include "lamina-library-backend.h"
+#include "lamina-store-common.h"
 
 G_BEGIN_DECLS
 
@@ -101,6 +102,13 @@ GPtrArray    *lamina_sqlite_read_rows     (LaminaSqlite         *self,
                                            GDestroyNotify        free_item,
                                            const char           *what,
                                            GError              **error);
+/* The first column of @stmt's first row (prepared and bound), or NULL:
+ * without an error when there is no row or the value is NULL, with
+ * @error set (prefixed by @what) when the read fails. */
+char         *lamina_sqlite_step_dup_text (LaminaSqlite         *self,
+                                           sqlite3_stmt         *stmt,
+                                           const char           *what,
+                                           GError              **error);
 /* The one row of @stmt read by @read_row, or NULL with NOT_FOUND ("no
  * @kind “@id” in the library") or the database's error set. */
 gpointer      lamina_sqlite_read_one      (LaminaSqlite         *self,
@@ -113,6 +121,20 @@ gpointer      lamina_sqlite_read_one      (LaminaSqlite         *self,
  * policy, reason starting at @first. */
 LaminaReviewEvent *lamina_sqlite_read_review_event (sqlite3_stmt *stmt,
                                                     int           first);
+/* lamina-sqlite-review.c: one review record @e of construction @id. */
+gboolean      lamina_sqlite_insert_review_event (LaminaSqlite             *self,
+                                                 const char               *id,
+                                                 const LaminaReviewEvent  *e,
+                                                 GError                  **error);
+/* lamina-sqlite-field.c: the 2-D check @body of a revision, computed
+ * @at, stored (or replacing the one stored) inside the caller's
+ * transaction. */
+gboolean      lamina_sqlite_put_field_check_in_txn (LaminaSqlite  *self,
+                                                    const char    *id,
+                                                    int            revision,
+                                                    const char    *body,
+                                                    const char    *at,
+                                                    GError       **error);
 
 /* lamina-sqlite-safety.c: waiting for another program's write lock. */
 void          lamina_sqlite_install_busy_handler (LaminaSqlite *self);
@@ -335,6 +357,13 @@ gboolean      lamina_sqlite_index_revision     (LaminaSqlite              *self,
                                                 const LaminaConstruction  *c,
                                                 gint64                     num,
                                                 GError                   **error);
+/* A construction's row: inserted, or its head, figures and flags updated
+ * (its deleted_at and material_changed then stay); sets @num, the row's
+ * number. */
+gboolean      lamina_sqlite_put_construction_row (LaminaSqlite                      *self,
+                                                  const LaminaStoreConstructionRow  *row,
+                                                  gint64                            *num,
+                                                  GError                           **error);
 /* One revision row as given (the stored figures, people and dates). */
 gboolean      lamina_sqlite_insert_revision    (LaminaSqlite                       *self,
                                                 const char                         *id,

@@ -128,19 +128,37 @@ update_revision (LaminaSqlite              *self,
   if (!lamina_sqlite_step_done (self, stmt, error))
     return FALSE;
 
-  stmt = lamina_sqlite_prepare (self,
+  return lamina_sqlite_insert_review_event (self, r->id, &(LaminaReviewEvent) {
+      .revision = head,
+      .act = (char *) act_names[r->act],
+      .by = (char *) r->by,
+      .at = (char *) r->at,
+      .date = r->act == LAMINA_REVIEW_ACT_APPROVE ? (char *) r->date : NULL,
+      .policy = r->act == LAMINA_REVIEW_ACT_WITHDRAW ? NULL : (char *) r->policy,
+      .reason = (char *) r->reason,
+    }, error);
+}
+
+gboolean
+lamina_sqlite_insert_review_event (LaminaSqlite             *self,
+                                   const char               *id,
+                                   const LaminaReviewEvent  *e,
+                                   GError                  **error)
+{
+  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "INSERT INTO review_event (construction_id, revision, act, person, at, date, policy, reason)"
     " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8);", error);
+
   if (stmt == NULL)
     return FALSE;
-  lamina_sqlite_bind_text (stmt, 1, r->id);
-  sqlite3_bind_int (stmt, 2, head);
-  lamina_sqlite_bind_text (stmt, 3, act_names[r->act]);
-  lamina_sqlite_bind_text (stmt, 4, r->by);
-  lamina_sqlite_bind_text (stmt, 5, r->at);
-  lamina_sqlite_bind_text (stmt, 6, r->act == LAMINA_REVIEW_ACT_APPROVE ? r->date : NULL);
-  lamina_sqlite_bind_text (stmt, 7, r->act == LAMINA_REVIEW_ACT_WITHDRAW ? NULL : r->policy);
-  lamina_sqlite_bind_text (stmt, 8, r->reason);
+  lamina_sqlite_bind_text (stmt, 1, id);
+  sqlite3_bind_int (stmt, 2, e->revision);
+  lamina_sqlite_bind_text (stmt, 3, e->act);
+  lamina_sqlite_bind_text (stmt, 4, e->by);
+  lamina_sqlite_bind_text (stmt, 5, e->at);
+  lamina_sqlite_bind_text (stmt, 6, e->date);
+  lamina_sqlite_bind_text (stmt, 7, e->policy);
+  lamina_sqlite_bind_text (stmt, 8, e->reason);
   return lamina_sqlite_step_done (self, stmt, error);
 }
 
@@ -193,19 +211,11 @@ lamina_sqlite_backend_get_setting (LaminaBackend  *backend,
                                    GError        **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF, "SELECT value FROM meta WHERE key = ?1;", error);
-  char *value = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
   lamina_sqlite_bind_text (stmt, 1, key);
-  rc = sqlite3_step (stmt);
-  if (rc == SQLITE_ROW)
-    value = lamina_sqlite_column_dup (stmt, 0);
-  else if (rc != SQLITE_DONE)
-    lamina_sqlite_set_error (SELF, rc, "cannot read the library settings", error);
-  sqlite3_reset (stmt);
-  return value;
+  return lamina_sqlite_step_dup_text (SELF, stmt, "cannot read the library settings", error);
 }
 
 gboolean

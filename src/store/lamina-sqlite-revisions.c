@@ -225,10 +225,22 @@ put_construction_row (LaminaSqlite              *self,
                       gint64                    *num,
                       GError                   **error)
 {
+  LaminaStoreConstructionRow row;
+
+  lamina_store_construction_row_for_revision (&row, c, r, lamina_sqlite_moisture_limit (self));
+  return lamina_sqlite_put_construction_row (self, &row, num, error);
+}
+
+gboolean
+lamina_sqlite_put_construction_row (LaminaSqlite                      *self,
+                                    const LaminaStoreConstructionRow  *row,
+                                    gint64                            *num,
+                                    GError                           **error)
+{
   sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "INSERT INTO construction (id, head, code, name, element, status, u, u_corrected,"
-    "   target_u, thickness, flags, modified_at)"
-    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12)"
+    "   target_u, thickness, flags, modified_at, deleted_at, material_changed)"
+    " VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14)"
     " ON CONFLICT (id) DO UPDATE SET head = ?2, code = ?3, name = ?4, element = ?5,"
     "   status = ?6, u = ?7, u_corrected = ?8, target_u = ?9, thickness = ?10,"
     "   flags = ?11, modified_at = ?12"
@@ -236,19 +248,20 @@ put_construction_row (LaminaSqlite              *self,
 
   if (stmt == NULL)
     return FALSE;
-  lamina_sqlite_bind_text (stmt, 1, c->id);
-  sqlite3_bind_int (stmt, 2, c->revision);
-  lamina_sqlite_bind_text (stmt, 3, c->code);
-  lamina_sqlite_bind_text (stmt, 4, c->name ? c->name : "");
-  lamina_sqlite_bind_text (stmt, 5, lamina_element_to_string (c->element));
-  lamina_sqlite_bind_text (stmt, 6, lamina_status_to_string (c->status));
-  lamina_sqlite_bind_double (stmt, 7, r ? r->u : NAN);
-  lamina_sqlite_bind_double (stmt, 8, r ? r->u_corrected : NAN);
-  lamina_sqlite_bind_double (stmt, 9, c->target_u);
-  lamina_sqlite_bind_double (stmt, 10, lamina_construction_get_thickness (c));
-  sqlite3_bind_int (stmt, 11, lamina_store_summary_flags (r)
-                              | lamina_library_moisture_flags_for_limit (c, lamina_sqlite_moisture_limit (self)));
-  lamina_sqlite_bind_text (stmt, 12, c->modified_at);
+  lamina_sqlite_bind_text (stmt, 1, row->id);
+  sqlite3_bind_int (stmt, 2, row->head);
+  lamina_sqlite_bind_text (stmt, 3, row->code);
+  lamina_sqlite_bind_text (stmt, 4, row->name);
+  lamina_sqlite_bind_text (stmt, 5, row->element);
+  lamina_sqlite_bind_text (stmt, 6, row->status);
+  lamina_sqlite_bind_double (stmt, 7, row->u);
+  lamina_sqlite_bind_double (stmt, 8, row->u_corrected);
+  lamina_sqlite_bind_double (stmt, 9, row->target_u);
+  lamina_sqlite_bind_double (stmt, 10, row->thickness);
+  sqlite3_bind_int (stmt, 11, row->flags);
+  lamina_sqlite_bind_text (stmt, 12, row->modified_at);
+  lamina_sqlite_bind_text (stmt, 13, row->deleted_at);
+  sqlite3_bind_int (stmt, 14, row->material_changed ? 1 : 0);
   if (sqlite3_step (stmt) != SQLITE_ROW)
     {
       lamina_sqlite_set_error (self, sqlite3_reset (stmt), "cannot store a construction", error);
@@ -266,28 +279,11 @@ insert_revision_row (LaminaSqlite                 *self,
                      const LaminaBackendRevision  *rev,
                      GError                      **error)
 {
-  const LaminaConstruction *c = rev->construction;
-  const LaminaResult *r = rev->result;
-  g_autofree char *body = lamina_store_construction_to_json (c);
-  LaminaBackendRecordRevision row = {
-    .revision = c->revision,
-    .status = c->status,
-    .body = body,
-    .u = r ? r->u : NAN,
-    .u_corrected = r ? r->u_corrected : NAN,
-    .r_total = r ? r->r_total : NAN,
-    .thickness = lamina_construction_get_thickness (c),
-    .calc_error = (char *) rev->calc_error,
-    .modified_by = c->modified_by,
-    .modified_at = c->modified_at,
-    .checked_by = c->checked_by,
-    .checked_at = c->checked_at,
-    .approved_by = c->approved_by,
-    .approved_at = c->approved_at,
-    .comment = (char *) rev->comment,
-  };
+  g_autofree char *body = lamina_store_construction_to_json (rev->construction);
+  LaminaBackendRecordRevision row;
 
-  return lamina_sqlite_insert_revision (self, c->id, &row, error);
+  lamina_store_revision_row_for (&row, rev, body);
+  return lamina_sqlite_insert_revision (self, rev->construction->id, &row, error);
 }
 
 gboolean
@@ -463,24 +459,10 @@ check_draft_head (LaminaSqlite  *self,
 
   if (head < 0)
     return FALSE;
-  if (head == 0 || deleted)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
-                   "no construction “%s” in the library", id);
-      return FALSE;
-    }
-  if (head == draft && status == LAMINA_STATUS_DRAFT
+  if (head > 0 && !deleted && head == draft && status == LAMINA_STATUS_DRAFT
       && (same = stamp_matches (self, id, draft, stamp, error)) < 0)
     return FALSE;
-  if (head != draft || status != LAMINA_STATUS_DRAFT || !same)
-    {
-      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
-                   "construction “%s” was changed by someone else (its latest revision is %d, "
-                   "%s, saved since you opened it); nothing was saved: reopen it and apply "
-                   "your change again", id, head, lamina_status_to_string (status));
-      return FALSE;
-    }
-  return TRUE;
+  return lamina_store_check_draft_head (id, draft, head, deleted, status, same > 0, error);
 }
 
 /* Removes what belongs to draft revision @draft alone: its materials, a
@@ -572,20 +554,12 @@ lamina_sqlite_backend_find_code (LaminaBackend  *backend,
   sqlite3_stmt *stmt = lamina_sqlite_prepare (SELF,
     "SELECT id FROM construction WHERE code = ?1 COLLATE NOCASE AND id IS NOT ?2"
     "   AND deleted_at IS NULL ORDER BY num LIMIT 1;", error);
-  char *id = NULL;
-  int rc;
 
   if (stmt == NULL)
     return NULL;
   lamina_sqlite_bind_text (stmt, 1, code);
   lamina_sqlite_bind_text (stmt, 2, except_id);
-  rc = sqlite3_step (stmt);
-  if (rc == SQLITE_ROW)
-    id = lamina_sqlite_column_dup (stmt, 0);
-  else if (rc != SQLITE_DONE)
-    lamina_sqlite_set_error (SELF, rc, "cannot read a construction", error);
-  sqlite3_reset (stmt);
-  return id;
+  return lamina_sqlite_step_dup_text (SELF, stmt, "cannot read a construction", error);
 }
 
 gboolean

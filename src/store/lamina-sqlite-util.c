@@ -264,6 +264,23 @@ lamina_sqlite_read_one (LaminaSqlite         *self,
   return item;
 }
 
+char *
+lamina_sqlite_step_dup_text (LaminaSqlite  *self,
+                             sqlite3_stmt  *stmt,
+                             const char    *what,
+                             GError       **error)
+{
+  char *text = NULL;
+  int rc = sqlite3_step (stmt);
+
+  if (rc == SQLITE_ROW)
+    text = lamina_sqlite_column_dup (stmt, 0);
+  else if (rc != SQLITE_DONE)
+    lamina_sqlite_set_error (self, rc, what, error);
+  sqlite3_reset (stmt);
+  return text;
+}
+
 LaminaReviewEvent *
 lamina_sqlite_read_review_event (sqlite3_stmt *stmt,
                                  int           first)

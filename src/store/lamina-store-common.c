@@ -9,6 +9,7 @@
 #include "lamina-library-seed.h"
 #include "lamina-store-json.h"
 
+#include <math.h>
 #include <string.h>
 
 char *
@@ -83,6 +84,108 @@ lamina_store_set_code_used_error (GError     **error,
   g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS,
                "construction code “%s”: already used by “%s” in this library; "
                "office codes are unique", code, user);
+}
+
+gboolean
+lamina_store_check_draft_head (const char    *id,
+                               int            draft,
+                               int            head,
+                               gboolean       deleted,
+                               LaminaStatus   status,
+                               gboolean       same_stamp,
+                               GError       **error)
+{
+  if (head == 0 || deleted)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_NOT_FOUND,
+                   "no construction “%s” in the library", id);
+      return FALSE;
+    }
+  if (head != draft || status != LAMINA_STATUS_DRAFT || !same_stamp)
+    {
+      g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_STALE,
+                   "construction “%s” was changed by someone else (its latest revision is %d, "
+                   "%s, saved since you opened it); nothing was saved: reopen it and apply "
+                   "your change again", id, head, lamina_status_to_string (status));
+      return FALSE;
+    }
+  return TRUE;
+}
+
+void
+lamina_store_construction_row_for_revision (LaminaStoreConstructionRow *row,
+                                            const LaminaConstruction   *c,
+                                            const LaminaResult         *r,
+                                            double                      moisture_limit)
+{
+  *row = (LaminaStoreConstructionRow) {
+    .id = c->id,
+    .head = c->revision,
+    .code = c->code,
+    .name = c->name ? c->name : "",
+    .element = lamina_element_to_string (c->element),
+    .status = lamina_status_to_string (c->status),
+    .u = r ? r->u : NAN,
+    .u_corrected = r ? r->u_corrected : NAN,
+    .target_u = c->target_u,
+    .thickness = lamina_construction_get_thickness (c),
+    .flags = (int) (lamina_store_summary_flags (r)
+                    | lamina_library_moisture_flags_for_limit (c, moisture_limit)),
+    .modified_at = c->modified_at,
+  };
+}
+
+void
+lamina_store_construction_row_for_record (LaminaStoreConstructionRow *row,
+                                          const LaminaBackendRecord  *record)
+{
+  const LaminaBackendRecordRevision *head = record->revisions->pdata[record->revisions->len - 1];
+  const LaminaConstruction *c = head->construction;
+
+  *row = (LaminaStoreConstructionRow) {
+    .id = record->id,
+    .head = head->revision,
+    .code = c->code,
+    .name = c->name ? c->name : "",
+    .element = lamina_element_to_string (c->element),
+    .status = lamina_status_to_string (head->status),
+    .u = head->u,
+    .u_corrected = head->u_corrected,
+    .target_u = c->target_u,
+    .thickness = head->thickness,
+    .flags = record->flags,
+    .modified_at = head->modified_at,
+    .deleted_at = record->deleted_at,
+    .material_changed = record->material_changed,
+  };
+}
+
+void
+lamina_store_revision_row_for (LaminaBackendRecordRevision *row,
+                               const LaminaBackendRevision *rev,
+                               const char                  *body)
+{
+  const LaminaConstruction *c = rev->construction;
+  const LaminaResult *r = rev->result;
+
+  /* The row only lends its strings to the binding: none is freed. */
+  *row = (LaminaBackendRecordRevision) {
+    .revision = c->revision,
+    .status = c->status,
+    .body = (char *) body,
+    .u = r ? r->u : NAN,
+    .u_corrected = r ? r->u_corrected : NAN,
+    .r_total = r ? r->r_total : NAN,
+    .thickness = lamina_construction_get_thickness (c),
+    .calc_error = (char *) rev->calc_error,
+    .modified_by = c->modified_by,
+    .modified_at = c->modified_at,
+    .checked_by = c->checked_by,
+    .checked_at = c->checked_at,
+    .approved_by = c->approved_by,
+    .approved_at = c->approved_at,
+    .comment = (char *) rev->comment,
+  };
 }
 
 LaminaSummaryFlags

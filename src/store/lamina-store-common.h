@@ -9,6 +9,7 @@
 #include <glib.h>
 
 #include "lamina-library.h"
+#include "lamina-library-backend.h"
 
 G_BEGIN_DECLS
 
@@ -37,6 +38,54 @@ gboolean           lamina_store_check_base        (const LaminaConstruction *c,
 void               lamina_store_set_code_used_error (GError     **error,
                                                      const char  *code,
                                                      const char  *user);
+
+/* Refuses an edit in place of draft @draft of @id when the library's
+ * latest is @head (0: none), @deleted, in @status, and @same_stamp (its
+ * stored state carries the editor's stamp): a missing construction, or a
+ * draft someone else has since saved over or reviewed. */
+gboolean           lamina_store_check_draft_head  (const char    *id,
+                                                   int            draft,
+                                                   int            head,
+                                                   gboolean       deleted,
+                                                   LaminaStatus   status,
+                                                   gboolean       same_stamp,
+                                                   GError       **error);
+
+/* A construction's row, from its latest revision: what the list, the
+ * filters and the search read.  The strings are borrowed. */
+typedef struct
+{
+  const char *id;
+  int         head;
+  const char *code;
+  const char *name;         /* "" when the construction has none */
+  const char *element;
+  const char *status;
+  double      u;            /* NAN: not calculated */
+  double      u_corrected;
+  double      target_u;
+  double      thickness;
+  int         flags;        /* LaminaSummaryFlags */
+  const char *modified_at;
+  const char *deleted_at;   /* NULL while live */
+  gboolean    material_changed;
+} LaminaStoreConstructionRow;
+
+/* The row of @c stored now with result @r (NULL: not calculable), its
+ * moisture flags judged against @moisture_limit (NAN: the default). */
+void               lamina_store_construction_row_for_revision (LaminaStoreConstructionRow *row,
+                                                               const LaminaConstruction   *c,
+                                                               const LaminaResult         *r,
+                                                               double                      moisture_limit);
+/* The row of a copied construction, as its source stored it; @record's
+ * head revision has been parsed (LaminaBackendRecordRevision.construction). */
+void               lamina_store_construction_row_for_record   (LaminaStoreConstructionRow *row,
+                                                               const LaminaBackendRecord   *record);
+/* The revision row of @rev (figures from its result, who and when from
+ * its construction) with body @body, borrowed. */
+void               lamina_store_revision_row_for              (LaminaBackendRecordRevision        *row,
+                                                               const LaminaBackendRevision        *rev,
+                                                               const char                          *body);
 
 /* The list flags of a revision's result @r (NULL: not calculable); the
  * moisture flags come from lamina_library_moisture_flags_for_limit. */
