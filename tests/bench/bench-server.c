@@ -17,6 +17,7 @@
 #define G_LOG_DOMAIN "lamina-bench"
 
 #include "lamina-bench.h"
+#include "lamina-bench-library.h"
 #include "lamina-library.h"
 
 #include <glib/gstdio.h>
@@ -43,48 +44,11 @@ static double
 import_into (const char *location,
              guint       n)
 {
-  g_autoptr(LaminaCatalogue) cat = lamina_catalogue_new ();
-  g_autoptr(GPtrArray) materials = lamina_bench_dup_materials ();
   g_autoptr(LaminaLibrary) library = NULL;
-  g_autoptr(LaminaImportReport) report = NULL;
-  g_autoptr(GError) error = NULL;
-  double t0;
+  double ms;
 
-  library = lamina_library_open (location, LAMINA_LIBRARY_OPEN_NO_SEED, &error);
-  if (library == NULL)
-    g_error ("cannot create %s: %s", location, error->message);
-  for (guint i = 0; i < materials->len; i++)
-    g_ptr_array_add (cat->materials, g_steal_pointer (&materials->pdata[i]));
-  for (guint i = 0; i < n; i++)
-    g_ptr_array_add (cat->constructions, lamina_bench_make_construction (LAMINA_BENCH_SEED, i));
-  t0 = lamina_bench_now_ms ();
-  report = lamina_library_import (library, cat, 0, "bench", &error);
-  if (report == NULL)
-    g_error ("cannot import %u constructions into %s: %s", n, location, error->message);
-  return lamina_bench_now_ms () - t0;
-}
-
-static double
-time_open_first_page (const char *location)
-{
-  g_autoptr(GError) error = NULL;
-  g_autoptr(GPtrArray) page = NULL;
-  LaminaLibraryQuery q;
-  LaminaLibrary *library;
-  double t0 = lamina_bench_now_ms ();
-  gint64 count;
-
-  library = lamina_library_open (location, LAMINA_LIBRARY_OPEN_EXISTING, &error);
-  if (library == NULL)
-    g_error ("cannot open %s: %s", location, error->message);
-  lamina_library_query_init (&q);
-  q.limit = PAGE;
-  count = lamina_library_count_at_most (library, &q, 1000, &error);
-  page = lamina_library_search (library, &q, &error);
-  if (page == NULL || count < 0)
-    g_error ("first page: %s", error->message);
-  g_object_unref (library);
-  return lamina_bench_now_ms () - t0;
+  library = lamina_bench_library_import (location, LAMINA_LIBRARY_OPEN_NO_SEED, n, &ms);
+  return ms;
 }
 
 /* Median milliseconds of a query as typed, letter by letter. */
@@ -168,8 +132,8 @@ bench_size (guint n)
   print_pair ("import", n, "ms", file_import, server_import);
   for (guint r = 0; r < runs; r++)
     {
-      file_open[r] = time_open_first_page (path);
-      server_open[r] = time_open_first_page (location);
+      file_open[r] = lamina_bench_library_time_open_first_page (path, PAGE, 1000);
+      server_open[r] = lamina_bench_library_time_open_first_page (location, PAGE, 1000);
     }
   print_pair ("open_first_page", n, "ms", lamina_bench_median (file_open, runs),
               lamina_bench_median (server_open, runs));

@@ -30,6 +30,7 @@
 #define G_LOG_DOMAIN "lamina-bench"
 
 #include "lamina-bench.h"
+#include "lamina-bench-library.h"
 #include "lamina-library.h"
 #include "lamina-library-search.h"
 
@@ -51,58 +52,21 @@ ensure_library (guint n)
                                            LAMINA_LIBRARY_SCHEMA_VERSION, n, LAMINA_BENCH_SEED);
   char *path = g_build_filename (lamina_bench_cache_dir (), name, NULL);
   g_autofree char *partial = g_strconcat (path, ".partial", NULL);
-  g_autoptr(LaminaCatalogue) cat = NULL;
   g_autoptr(LaminaLibrary) library = NULL;
-  g_autoptr(LaminaImportReport) report = NULL;
-  g_autoptr(GPtrArray) materials = NULL;
-  g_autoptr(GError) error = NULL;
-  double t0;
+  gint64 t0;
+  double import_ms;
 
   if (g_file_test (path, G_FILE_TEST_EXISTS))
     return path;
   g_remove (partial);
-  library = lamina_library_open (partial, LAMINA_LIBRARY_OPEN_NO_SEED, &error);
-  if (library == NULL)
-    g_error ("cannot create %s: %s", partial, error->message);
-  cat = lamina_catalogue_new ();
-  materials = lamina_bench_dup_materials ();
-  for (guint i = 0; i < materials->len; i++)
-    g_ptr_array_add (cat->materials, g_steal_pointer (&materials->pdata[i]));
-  for (guint i = 0; i < n; i++)
-    g_ptr_array_add (cat->constructions, lamina_bench_make_construction (LAMINA_BENCH_SEED, i));
   t0 = g_get_monotonic_time ();
-  report = lamina_library_import (library, cat, 0, "bench", &error);
-  if (report == NULL)
-    g_error ("cannot import %u constructions: %s", n, error->message);
+  library = lamina_bench_library_import (partial, LAMINA_LIBRARY_OPEN_NO_SEED, n, &import_ms);
   lamina_library_close (library);
   printf ("%-40s built %s: %u constructions in one import, %.1f s wall\n", "", name, n,
           (g_get_monotonic_time () - t0) / 1e6);
   if (g_rename (partial, path) != 0)
     g_error ("cannot rename %s", partial);
   return path;
-}
-
-static double
-time_open_first_page (const char *path)
-{
-  g_autoptr(GError) error = NULL;
-  g_autoptr(GPtrArray) page = NULL;
-  LaminaLibraryQuery q;
-  LaminaLibrary *library;
-  double t0 = lamina_bench_now_ms ();
-  gint64 count;
-
-  library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
-  if (library == NULL)
-    g_error ("cannot open %s: %s", path, error->message);
-  lamina_library_query_init (&q);
-  q.limit = PAGE;
-  count = lamina_library_count (library, &q, &error);
-  page = lamina_library_search (library, &q, &error);
-  if (page == NULL || count < 0)
-    g_error ("first page: %s", error->message);
-  g_object_unref (library);
-  return lamina_bench_now_ms () - t0;
 }
 
 /* What a user types: words of the synthetic library, letter by letter,
@@ -349,9 +313,9 @@ bench_size (guint        n,
   LaminaBenchFigure f;
   Floor fl = { 0 }, bounded = { 0 };
 
-  time_open_first_page (path);   /* warm the page cache */
+  lamina_bench_library_time_open_first_page (path, PAGE, -1);   /* warm the page cache */
   for (guint run = 0; run < runs; run++)
-    open_runs[run] = time_open_first_page (path);
+    open_runs[run] = lamina_bench_library_time_open_first_page (path, PAGE, -1);
   lamina_bench_figure_init (&f, open_name, "ms");
   lamina_bench_figure_set_runs (&f, open_runs, runs);
   f.size = n;
