@@ -28,67 +28,14 @@
 
 #include "lamina-error.h"
 
-typedef struct
-{
-  const char *name;
-  GError    **error;
-} Source;
+typedef const LaminaXmlSource Source;
 
-static gboolean
-fail (Source     *s,
-      int         line,
-      const char *format,
-      ...) G_GNUC_PRINTF (3, 4);
-
-static gboolean
-fail (Source     *s,
-      int         line,
-      const char *format,
-      ...)
-{
-  g_autofree char *message = NULL;
-  va_list args;
-
-  va_start (args, format);
-  message = g_strdup_vprintf (format, args);
-  va_end (args);
-  g_set_error (s->error, LAMINA_XML_ERROR, LAMINA_XML_ERROR_INVALID, "%s:%d: %s",
-               s->name, MAX (line, 1), message);
-  return FALSE;
-}
-
-static gboolean
-get_number (Source     *s,
-            xmlNode    *node,
-            const char *attr,
-            double     *value)
-{
-  g_autofree char *text = lamina_xml_dup_attr (node, attr);
-  g_autofree char *message = NULL;
-
-  if (text != NULL && !lamina_xml_parse_number (attr, text, value, &message))
-    return fail (s, lamina_xml_node_get_line (node), "%s", message);
-  return TRUE;
-}
-
-/* Whole numbers from 1; the schema has checked the digits. */
-static gboolean
-get_count (Source     *s,
-           xmlNode    *node,
-           const char *attr,
-           int        *value)
-{
-  g_autofree char *text = lamina_xml_dup_attr (node, attr);
-  guint64 v;
-
-  if (text == NULL)
-    return TRUE;
-  if (!g_ascii_string_to_unsigned (text, 10, 1, G_MAXINT, &v, NULL))
-    return fail (s, lamina_xml_node_get_line (node),
-                 _("%s=“%s” is not a whole number from 1"), attr, text);
-  *value = (int) v;
-  return TRUE;
-}
+/* Every fault here breaks a rule of the model. */
+#define fail(s, line, ...) lamina_xml_fail ((s), (line), LAMINA_XML_ERROR_INVALID, __VA_ARGS__)
+#define get_number(s, node, attr, value) lamina_xml_get_number ((s), (node), (attr), (value))
+/* Entries, revisions and junctions count from 1. */
+#define get_count(s, node, attr, value) \
+  lamina_xml_get_count ((s), (node), (attr), 1, G_MAXINT, (value))
 
 static void
 replace (char **field,
@@ -130,12 +77,11 @@ read_target (Source          *s,
 }
 
 gboolean
-lamina_catalogue_read_target_set (LaminaCatalogue  *catalogue,
-                                  xmlNode          *node,
-                                  const char       *name,
-                                  GError          **error)
+lamina_catalogue_read_target_set (LaminaCatalogue        *catalogue,
+                                  xmlNode                *node,
+                                  const LaminaXmlSource  *source)
 {
-  Source s = { name, error };
+  Source *s = source;
   g_autofree char *id = lamina_xml_dup_attr (node, "id");
   g_autoptr(LaminaTargetSet) set = lamina_target_set_new (id, NULL);
   LaminaTargetSet *known = lamina_catalogue_find_target_set (catalogue, id);
@@ -144,7 +90,7 @@ lamina_catalogue_read_target_set (LaminaCatalogue  *catalogue,
 
   set->line = lamina_xml_node_get_line (node);
   if (known != NULL)
-    return fail (&s, set->line, _("target set id “%s” is used twice (first on line %d)"),
+    return fail (s, set->line, _("target set id “%s” is used twice (first on line %d)"),
                  id, known->line);
   set->name = lamina_xml_dup_attr (node, "name");
   set->source = lamina_xml_dup_attr (node, "source");
@@ -152,11 +98,11 @@ lamina_catalogue_read_target_set (LaminaCatalogue  *catalogue,
     {
       if (lamina_xml_is_element (child, "notes"))
         replace (&set->notes, lamina_xml_dup_text (child));
-      else if (lamina_xml_is_element (child, "target") && !read_target (&s, child, set))
+      else if (lamina_xml_is_element (child, "target") && !read_target (s, child, set))
         return FALSE;
     }
   if (!lamina_target_set_validate (set, &line, &local))
-    return fail (&s, line > 0 ? line : set->line, "%s", local->message);
+    return fail (s, line > 0 ? line : set->line, "%s", local->message);
   g_ptr_array_add (catalogue->target_sets, g_steal_pointer (&set));
   return TRUE;
 }
@@ -250,12 +196,11 @@ read_job_attributes (Source    *s,
 }
 
 gboolean
-lamina_catalogue_read_job (LaminaCatalogue  *catalogue,
-                           xmlNode          *node,
-                           const char       *name,
-                           GError          **error)
+lamina_catalogue_read_job (LaminaCatalogue        *catalogue,
+                           xmlNode                *node,
+                           const LaminaXmlSource  *source)
 {
-  Source s = { name, error };
+  Source *s = source;
   g_autofree char *id = lamina_xml_dup_attr (node, "id");
   g_autofree char *job_name = lamina_xml_dup_attr (node, "name");
   g_autoptr(LaminaJob) job = lamina_job_new (id, job_name);
@@ -265,14 +210,14 @@ lamina_catalogue_read_job (LaminaCatalogue  *catalogue,
 
   job->line = lamina_xml_node_get_line (node);
   if (known != NULL)
-    return fail (&s, job->line, _("job id “%s” is used twice (first on line %d)"), id, known->line);
-  if (!read_job_attributes (&s, node, job))
+    return fail (s, job->line, _("job id “%s” is used twice (first on line %d)"), id, known->line);
+  if (!read_job_attributes (s, node, job))
     return FALSE;
   for (xmlNode *child = node->children; child != NULL; child = child->next)
-    if (!read_job_child (&s, child, job))
+    if (!read_job_child (s, child, job))
       return FALSE;
   if (!lamina_job_validate (job, &line, &local))
-    return fail (&s, line > 0 ? line : job->line, "%s", local->message);
+    return fail (s, line > 0 ? line : job->line, "%s", local->message);
   g_ptr_array_add (catalogue->jobs, g_steal_pointer (&job));
   return TRUE;
 }

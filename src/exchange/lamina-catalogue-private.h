@@ -47,6 +47,35 @@ gboolean lamina_xml_parse_number  (const char  *attr,
                                    double      *value,
                                    char       **message);
 
+/* One document being read, for messages that locate a fault: each reads
+ * "NAME:LINE: message" and goes to @error. */
+typedef struct
+{
+  const char  *name;
+  GError     **error;
+} LaminaXmlSource;
+
+/* Sets @s's error (@code of LAMINA_XML_ERROR) at @line; returns FALSE. */
+gboolean lamina_xml_fail          (const LaminaXmlSource *s,
+                                   int                    line,
+                                   int                    code,
+                                   const char            *format,
+                                   ...) G_GNUC_PRINTF (4, 5);
+/* Attribute @attr of @node as one finite number in the C locale (strict:
+ * the whole attribute), or as a whole number from @min to @max; an
+ * absent attribute leaves *@value alone.  FALSE with @s's error set,
+ * located at @node. */
+gboolean lamina_xml_get_number    (const LaminaXmlSource *s,
+                                   xmlNode               *node,
+                                   const char            *attr,
+                                   double                *value);
+gboolean lamina_xml_get_count     (const LaminaXmlSource *s,
+                                   xmlNode               *node,
+                                   const char            *attr,
+                                   guint64                min,
+                                   guint64                max,
+                                   int                   *value);
+
 /* Writing (lamina-catalogue-writer.c), for the parts of the vocabulary
  * kept in their own files: an escaped attribute (nothing if NULL), a
  * number that reads back exactly (nothing if NAN), a text element, and
@@ -70,14 +99,12 @@ gboolean lamina_xml_check_text    (const char  *where,
  * these for each <target-set> and <job> element after the materials; the
  * writer puts target sets before the constructions and jobs after them.
  * Errors read "NAME:LINE: message". */
-gboolean lamina_catalogue_read_target_set (LaminaCatalogue  *catalogue,
-                                           xmlNode          *node,
-                                           const char       *name,
-                                           GError          **error);
-gboolean lamina_catalogue_read_job        (LaminaCatalogue  *catalogue,
-                                           xmlNode          *node,
-                                           const char       *name,
-                                           GError          **error);
+gboolean lamina_catalogue_read_target_set (LaminaCatalogue        *catalogue,
+                                           xmlNode                *node,
+                                           const LaminaXmlSource  *source);
+gboolean lamina_catalogue_read_job        (LaminaCatalogue        *catalogue,
+                                           xmlNode                *node,
+                                           const LaminaXmlSource  *source);
 gboolean lamina_catalogue_write_target_sets (const LaminaCatalogue *catalogue,
                                              GString               *out,
                                              GError               **error);

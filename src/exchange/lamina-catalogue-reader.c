@@ -22,37 +22,14 @@ typedef struct
 
 typedef struct
 {
-  const char      *name;
-  GError         **error;
+  LaminaXmlSource  src;           /* the document's name and the error */
   GHashTable      *materials;     /* id in the document → Entry* */
   GHashTable      *constructions; /* id → line */
   GPtrArray       *snapshots;     /* LaminaMaterial*, owned */
   LaminaCatalogue *catalogue;
 } Reader;
 
-static gboolean
-fail (Reader     *r,
-      int         line,
-      int         code,
-      const char *format,
-      ...) G_GNUC_PRINTF (4, 5);
-
-static gboolean
-fail (Reader     *r,
-      int         line,
-      int         code,
-      const char *format,
-      ...)
-{
-  g_autofree char *message = NULL;
-  va_list args;
-
-  va_start (args, format);
-  message = g_strdup_vprintf (format, args);
-  va_end (args);
-  g_set_error (r->error, LAMINA_XML_ERROR, code, "%s:%d: %s", r->name, MAX (line, 1), message);
-  return FALSE;
-}
+#define fail(r, line, code, ...) lamina_xml_fail (&(r)->src, (line), (code), __VA_ARGS__)
 
 static int
 line_of (xmlNode *node)
@@ -82,21 +59,7 @@ dup_text (xmlNode *node)
 
 /* Strict: the whole attribute is one finite number in the C locale.
  * An absent attribute leaves *value alone. */
-static gboolean
-get_number (Reader     *r,
-            xmlNode    *node,
-            const char *attr,
-            double     *value)
-{
-  g_autofree char *text = dup_attr (node, attr);
-  g_autofree char *message = NULL;
-
-  if (text == NULL)
-    return TRUE;
-  if (!lamina_xml_parse_number (attr, text, value, &message))
-    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID, "%s", message);
-  return TRUE;
-}
+#define get_number(r, node, attr, value) lamina_xml_get_number (&(r)->src, (node), (attr), (value))
 
 static gboolean
 get_required_number (Reader     *r,
@@ -110,25 +73,8 @@ get_required_number (Reader     *r,
   return get_number (r, node, attr, value);
 }
 
-static gboolean
-get_count (Reader     *r,
-           xmlNode    *node,
-           const char *attr,
-           guint64     max,
-           int        *value)
-{
-  g_autofree char *text = dup_attr (node, attr);
-  guint64 v;
-
-  if (text == NULL)
-    return TRUE;
-  if (!g_ascii_string_to_unsigned (text, 10, 0, max, &v, NULL))
-    return fail (r, line_of (node), LAMINA_XML_ERROR_INVALID,
-                 _("%s=“%s” is not a whole number from 0 to %llu"), attr, text,
-                 (unsigned long long) max);
-  *value = (int) v;
-  return TRUE;
-}
+#define get_count(r, node, attr, max, value) \
+  lamina_xml_get_count (&(r)->src, (node), (attr), 0, (max), (value))
 
 /* Enumerated attributes; the schema has checked the names already. */
 #define GET_ENUM(r, node, attr, from_string, value)                           \
@@ -708,13 +654,13 @@ read_catalogue (Reader  *r,
     return FALSE;
   for (xmlNode *child = root->children; child != NULL; child = child->next)
     if (is_element (child, "target-set")
-        && !lamina_catalogue_read_target_set (r->catalogue, child, r->name, r->error))
+        && !lamina_catalogue_read_target_set (r->catalogue, child, &r->src))
       return FALSE;
   for (xmlNode *child = root->children; child != NULL; child = child->next)
     if (is_element (child, "construction") && !read_construction (r, child))
       return FALSE;
   for (xmlNode *child = root->children; child != NULL; child = child->next)
-    if (is_element (child, "job") && !lamina_catalogue_read_job (r->catalogue, child, r->name, r->error))
+    if (is_element (child, "job") && !lamina_catalogue_read_job (r->catalogue, child, &r->src))
       return FALSE;
   return TRUE;
 }
@@ -740,8 +686,8 @@ lamina_catalogue_read_memory (const char  *data,
     return NULL;
 
   catalogue = lamina_catalogue_new ();
-  r.name = name;
-  r.error = error;
+  r.src.name = name;
+  r.src.error = error;
   r.catalogue = catalogue;
   r.materials = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_free);
   r.constructions = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);

@@ -491,3 +491,69 @@ lamina_xml_parse_number (const char  *attr,
   *value = v;
   return TRUE;
 }
+
+gboolean
+lamina_xml_fail (const LaminaXmlSource *s,
+                 int                    line,
+                 int                    code,
+                 const char            *format,
+                 ...)
+{
+  g_autofree char *message = NULL;
+  va_list args;
+
+  va_start (args, format);
+  message = g_strdup_vprintf (format, args);
+  va_end (args);
+  g_set_error (s->error, LAMINA_XML_ERROR, code, "%s:%d: %s", s->name, MAX (line, 1), message);
+  return FALSE;
+}
+
+gboolean
+lamina_xml_get_number (const LaminaXmlSource *s,
+                       xmlNode               *node,
+                       const char            *attr,
+                       double                *value)
+{
+  g_autofree char *text = lamina_xml_dup_attr (node, attr);
+  g_autofree char *message = NULL;
+
+  if (text == NULL)
+    return TRUE;
+  if (!lamina_xml_parse_number (attr, text, value, &message))
+    return lamina_xml_fail (s, lamina_xml_node_get_line (node), LAMINA_XML_ERROR_INVALID,
+                            "%s", message);
+  return TRUE;
+}
+
+/* The schema has checked the digits; this checks the range. */
+gboolean
+lamina_xml_get_count (const LaminaXmlSource *s,
+                      xmlNode               *node,
+                      const char            *attr,
+                      guint64                min,
+                      guint64                max,
+                      int                   *value)
+{
+  g_autofree char *text = lamina_xml_dup_attr (node, attr);
+  guint64 v;
+
+  g_return_val_if_fail (max <= G_MAXINT, FALSE);
+  if (text == NULL)
+    return TRUE;
+  if (!g_ascii_string_to_unsigned (text, 10, min, max, &v, NULL))
+    {
+      int line = lamina_xml_node_get_line (node);
+
+      /* Numbers of entries and revisions have no upper limit to tell. */
+      if (min == 1 && max == G_MAXINT)
+        return lamina_xml_fail (s, line, LAMINA_XML_ERROR_INVALID,
+                                _("%s=“%s” is not a whole number from 1"), attr, text);
+      g_return_val_if_fail (min == 0, FALSE);
+      return lamina_xml_fail (s, line, LAMINA_XML_ERROR_INVALID,
+                              _("%s=“%s” is not a whole number from 0 to %llu"), attr, text,
+                              (unsigned long long) max);
+    }
+  *value = (int) v;
+  return TRUE;
+}
