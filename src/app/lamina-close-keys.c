@@ -8,11 +8,18 @@
 
 #include "lamina-window.h"
 
-/* The one object-data key left in the window layer, and on purpose: the
- * mark goes on windows of any class, GTK's own file and print dialogs
- * among them, which have no field of ours to hold it.  Our own types keep
- * their state in typed instance fields. */
-#define KEYS_DATA "lamina-close-keys"
+/* The windows that have the keys, so that none gets them twice; a window
+ * leaves the set when it is finalised.  The keys go on windows of any
+ * class, GTK's own file and print dialogs among them, which have no field
+ * of ours: the set is kept here rather than as object data on them. */
+static GHashTable *keyed_windows;
+
+static void
+on_window_finalized (gpointer  data,
+                     GObject  *where_the_object_was)
+{
+  g_hash_table_remove (keyed_windows, where_the_object_was);
+}
 
 static void
 add_close_keys (GtkWindow *window)
@@ -20,7 +27,9 @@ add_close_keys (GtkWindow *window)
   GtkEventController *controller;
   GtkShortcutAction *close;
 
-  if (LAMINA_IS_WINDOW (window) || g_object_get_data (G_OBJECT (window), KEYS_DATA) != NULL)
+  if (keyed_windows == NULL)
+    keyed_windows = g_hash_table_new (NULL, NULL);
+  if (LAMINA_IS_WINDOW (window) || g_hash_table_contains (keyed_windows, window))
     return;
   controller = gtk_shortcut_controller_new ();
   close = gtk_named_action_new ("window.close");
@@ -31,7 +40,8 @@ add_close_keys (GtkWindow *window)
                                         gtk_shortcut_new (gtk_keyval_trigger_new (GDK_KEY_w, GDK_CONTROL_MASK),
                                                           close));
   gtk_widget_add_controller (GTK_WIDGET (window), controller);
-  g_object_set_data (G_OBJECT (window), KEYS_DATA, controller);
+  g_hash_table_add (keyed_windows, window);
+  g_object_weak_ref (G_OBJECT (window), on_window_finalized, NULL);
 }
 
 static void
@@ -67,5 +77,5 @@ gboolean
 lamina_close_keys_has (GtkWindow *window)
 {
   g_return_val_if_fail (GTK_IS_WINDOW (window), FALSE);
-  return g_object_get_data (G_OBJECT (window), KEYS_DATA) != NULL;
+  return keyed_windows != NULL && g_hash_table_contains (keyed_windows, window);
 }

@@ -82,48 +82,8 @@ lamina_backend_set_damaged_error (LaminaBackend  *backend,
 
 /* ---- Waiting for another program ------------------------------------- */
 
-typedef struct
-{
-  LaminaLibrary         *library;
-  LaminaLibraryWaitFunc  func;
-  gpointer               user_data;
-} WaitClosure;
-
-static void
-waiting_trampoline (gpointer    data,
-                    gboolean    waiting,
-                    const char *holder)
-{
-  WaitClosure *closure = data;
-
-  closure->func (closure->library, waiting, holder, closure->user_data);
-}
-
-void
-lamina_library_set_wait_func (LaminaLibrary        *self,
-                              LaminaLibraryWaitFunc func,
-                              gpointer              user_data)
-{
-  WaitClosure *closure;
-
-  g_return_if_fail (LAMINA_IS_LIBRARY (self));
-  if (BE (self) == NULL)
-    return;
-  if (func == NULL)
-    {
-      BE (self)->waiting = NULL;
-      BE (self)->waiting_data = NULL;
-      g_object_set_data (G_OBJECT (self), "lamina-wait-closure", NULL);
-      return;
-    }
-  closure = g_new0 (WaitClosure, 1);
-  closure->library = self;
-  closure->func = func;
-  closure->user_data = user_data;
-  g_object_set_data_full (G_OBJECT (self), "lamina-wait-closure", closure, g_free);
-  BE (self)->waiting = waiting_trampoline;
-  BE (self)->waiting_data = closure;
-}
+/* lamina_library_set_wait_func is in lamina-library.c, beside the
+ * library's fields it keeps. */
 
 double
 lamina_backend_default_busy_timeout (void)

@@ -9,6 +9,7 @@
 #include <math.h>
 
 #include "lamina-library-backend.h"
+#include "lamina-library-safety.h"
 
 struct _LaminaLibrary
 {
@@ -16,6 +17,11 @@ struct _LaminaLibrary
 
   /* owned */
   LaminaBackend *backend;
+
+  /* lamina_library_set_wait_func: told while a write waits for another
+   * program's lock (the backend calls wait_trampoline). */
+  LaminaLibraryWaitFunc wait_func;
+  gpointer              wait_data;
 };
 
 G_DEFINE_FINAL_TYPE (LaminaLibrary, lamina_library, G_TYPE_OBJECT)
@@ -27,6 +33,31 @@ enum
 };
 
 static guint signals[N_SIGNALS];
+
+static void
+wait_trampoline (gpointer    data,
+                 gboolean    waiting,
+                 const char *holder)
+{
+  LaminaLibrary *self = data;
+
+  if (self->wait_func != NULL)
+    self->wait_func (self, waiting, holder, self->wait_data);
+}
+
+void
+lamina_library_set_wait_func (LaminaLibrary        *self,
+                              LaminaLibraryWaitFunc func,
+                              gpointer              user_data)
+{
+  g_return_if_fail (LAMINA_IS_LIBRARY (self));
+  if (self->backend == NULL)
+    return;
+  self->wait_func = func;
+  self->wait_data = user_data;
+  self->backend->waiting = func != NULL ? wait_trampoline : NULL;
+  self->backend->waiting_data = func != NULL ? self : NULL;
+}
 
 static void
 lamina_library_finalize (GObject *object)
