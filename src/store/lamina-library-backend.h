@@ -425,6 +425,15 @@ gboolean       lamina_library_clean_construction_identity (LaminaConstruction  *
                                                            gboolean             new_id,
                                                            const char          *where,
                                                            GError             **error);
+/* A material's id cleaned as above, in place, as it enters the library
+ * (put or import; the material ids of the layers an import brings are
+ * put in NFC alike, so that they still name their materials); @where
+ * prefixes the message ("material 2 (line 14)"), NULL: the material's
+ * name. */
+gboolean       lamina_library_clean_material_identity (LaminaMaterial  *m,
+                                                       const char      *where,
+                                                       GError         **error);
+void           lamina_library_normalize_layer_material_ids (LaminaConstruction *c);
 /* The id of another live construction (not @except_id) with @code
  * (ASCII letters compared without case), NULL without an error when none
  * or when the backend cannot tell. */

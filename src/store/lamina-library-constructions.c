@@ -70,6 +70,57 @@ resolve_climate (LaminaLibrary       *self,
 }
 
 gboolean
+lamina_library_clean_material_identity (LaminaMaterial  *m,
+                                        const char      *where,
+                                        GError         **error)
+{
+  g_autoptr(GError) local = NULL;
+  char *clean;
+
+  if (m->id == NULL)
+    return TRUE;
+  if ((clean = lamina_library_dup_clean_identity (m->id, "id", &local)) == NULL)
+    goto fail;
+  g_free (m->id);
+  m->id = clean;
+  if (*m->id != '\0')
+    return TRUE;
+  g_set_error_literal (&local, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID, "id: empty");
+fail:
+  if (where != NULL)
+    g_propagate_prefixed_error (error, g_steal_pointer (&local), "%s: ", where);
+  else
+    g_propagate_prefixed_error (error, g_steal_pointer (&local), "material “%s”, ",
+                                m->name ? m->name : "");
+  return FALSE;
+}
+
+static void
+normalize_material_id (LaminaMaterial *m)
+{
+  char *nfc;
+
+  if (m == NULL || m->id == NULL || !g_utf8_validate (m->id, -1, NULL)
+      || (nfc = g_utf8_normalize (m->id, -1, G_NORMALIZE_NFC)) == NULL)
+    return;
+  g_free (m->id);
+  m->id = nfc;
+}
+
+void
+lamina_library_normalize_layer_material_ids (LaminaConstruction *c)
+{
+  for (guint i = 0; c->layers != NULL && i < c->layers->len; i++)
+    {
+      LaminaLayer *layer = c->layers->pdata[i];
+
+      normalize_material_id (layer->material);
+      for (guint k = 0; layer->parts != NULL && k < layer->parts->len; k++)
+        normalize_material_id (((LaminaPart *) layer->parts->pdata[k])->material);
+    }
+}
+
+gboolean
 lamina_library_clean_construction_identity (LaminaConstruction  *c,
                                             gboolean             new_id,
                                             const char          *where,

@@ -356,8 +356,19 @@ import_once (LaminaLibrary          *self,
     }
 
   for (guint i = 0; catalogue->materials && i < catalogue->materials->len; i++)
-    if (!merge_material (self, catalogue->materials->pdata[i], flags, report, materials, error))
-      return NULL;
+    {
+      g_autoptr(LaminaMaterial) m = lamina_material_copy (catalogue->materials->pdata[i]);
+      g_autofree char *where = g_strdup_printf ("material %u", i + 1);
+
+      /* Look-alike ids, as for the constructions below. */
+      if (!lamina_library_clean_material_identity (m, where, error))
+        {
+          g_prefix_error (error, "nothing was imported: ");
+          return NULL;
+        }
+      if (!merge_material (self, m, flags, report, materials, error))
+        return NULL;
+    }
   for (guint i = 0; catalogue->climates && i < catalogue->climates->len; i++)
     if (!merge_climate (self, catalogue->climates->pdata[i], flags, report, climates, error))
       return NULL;
@@ -384,6 +395,7 @@ import_once (LaminaLibrary          *self,
           g_prefix_error (error, "nothing was imported: ");
           return NULL;
         }
+      lamina_library_normalize_layer_material_ids (c);
       if (!g_hash_table_add (seen, g_strdup (c->id)))
         {
           g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,

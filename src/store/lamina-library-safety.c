@@ -311,6 +311,69 @@ verify_review (LaminaVerifyReport *report,
     }
 }
 
+/* An id or code stored before such values were cleaned as they came in
+ * (NFC, no control or format characters): the library still opens and
+ * works, and verify says what a look-alike could be mistaken for. */
+/* @value with each control or format character shown as <U+XXXX>, so
+ * that printing it cannot rewrite a terminal line. */
+static char *
+dup_printable (const char *value)
+{
+  g_autofree char *valid = g_utf8_make_valid (value, -1);
+  GString *out = g_string_new (NULL);
+
+  for (const char *p = valid; *p; p = g_utf8_next_char (p))
+    {
+      gunichar ch = g_utf8_get_char (p);
+      GUnicodeType type = g_unichar_type (ch);
+
+      if (type == G_UNICODE_CONTROL || type == G_UNICODE_FORMAT
+          || type == G_UNICODE_LINE_SEPARATOR || type == G_UNICODE_PARAGRAPH_SEPARATOR)
+        g_string_append_printf (out, "<U+%04X>", ch);
+      else
+        g_string_append_unichar (out, ch);
+    }
+  return g_string_free (out, FALSE);
+}
+
+static void
+verify_identity (LaminaVerifyReport *report,
+                 const char         *what,
+                 const char         *field,
+                 const char         *value)
+{
+  g_autoptr(GError) e = NULL;
+  g_autofree char *clean = NULL;
+  g_autofree char *shown = NULL;
+
+  if (value == NULL)
+    return;
+  clean = lamina_library_dup_clean_identity (value, field, &e);
+  shown = dup_printable (value);
+  if (clean == NULL)
+    problem (report, "%s “%s”: %s", what, shown, e->message);
+  else if (strcmp (clean, value) != 0)
+    problem (report, "%s “%s”: its %s is not in Unicode normalization form C (NFC) or has "
+             "blanks at its ends, so the same text typed again does not find it; it still "
+             "works as stored", what, shown, field);
+}
+
+static void
+verify_material_ids (LaminaLibrary      *self,
+                     LaminaVerifyReport *report)
+{
+  g_autoptr(GError) e = NULL;
+  g_autoptr(GPtrArray) materials = VT (self)->list_materials (BE (self), &e);
+
+  if (materials == NULL)
+    {
+      problem (report, "the list of materials cannot be read: %s", e->message);
+      return;
+    }
+  for (guint i = 0; i < materials->len; i++)
+    verify_identity (report, "material", "id", ((LaminaMaterial *) materials->pdata[i])->id);
+}
+
 LaminaVerifyReport *
 lamina_library_verify (LaminaLibrary  *self,
                        GError        **error)
@@ -329,6 +392,7 @@ lamina_library_verify (LaminaLibrary  *self,
         return NULL;
       report->storage_checked = TRUE;
     }
+  verify_material_ids (self, report);
   ids = VT (self)->list_ids (BE (self), &local);
   if (ids == NULL)
     {
@@ -345,12 +409,14 @@ lamina_library_verify (LaminaLibrary  *self,
       const char *label;
 
       report->n_constructions++;
+      verify_identity (report, "construction", "id", id);
       head = VT (self)->get_construction (BE (self), id, 0, &e);
       if (head == NULL)
         {
           problem (report, "construction %s cannot be read: %s", id, e->message);
           continue;
         }
+      verify_identity (report, "construction", "code", head->code);
       label = label_of (id, head->code);
       history = VT (self)->get_history (BE (self), id, &e);
       if (history == NULL)

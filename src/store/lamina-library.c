@@ -253,6 +253,9 @@ lamina_library_put_material (LaminaLibrary   *self,
                            "material name: required");
       return FALSE;
     }
+  /* Look-alike ids: NFC, and no control or format characters. */
+  if (!lamina_library_clean_material_identity (material, NULL, error))
+    return FALSE;
   if (!(material->conductivity > 0) || !isfinite (material->conductivity))
     {
       g_set_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID,

@@ -16,6 +16,9 @@
 #include <sys/wait.h>
 
 #include "lamina-hardening-util.h"
+#include "lamina-library-safety.h"
+
+#include <sqlite3.h>
 
 static char *
 add (LaminaLibrary *library,
@@ -99,6 +102,102 @@ test_api (void)
   }
 }
 
+/* Material ids as constructions' ids: Unicode Standard Annex #15
+ * (Unicode Normalization Forms), canonical composition: "Å" typed as
+ * A + U+030A COMBINING RING ABOVE is the same text as U+00C5 in NFC, so a
+ * library keeps one form (from memory: U+00C5 decomposes canonically to
+ * U+0041 U+030A and is not excluded from composition). */
+#define DECOMPOSED  "A\xcc\x8a-board"   /* A, U+030A, "-board" */
+#define PRECOMPOSED "\xc3\x85-board"    /* U+00C5, "-board" */
+
+static void
+test_material_ids (void)
+{
+  g_autofree char *path = NULL;
+  g_autoptr(GError) error = NULL;
+
+  {
+    g_autoptr(LaminaLibrary) library = lamina_hardening_open_library ("materials.sqlite", &path);
+    g_autoptr(LaminaMaterial) board = lamina_material_new (DECOMPOSED, "Ring board",
+                                                           LAMINA_CATEGORY_INSULATION, 0.035);
+    g_autoptr(LaminaMaterial) hidden = lamina_material_new ("board\xe2\x80\x8b" "2", "Hidden board",
+                                                            LAMINA_CATEGORY_INSULATION, 0.035);
+    g_autoptr(LaminaMaterial) found = NULL;
+
+    /* Put: stored precomposed, found by the precomposed id. */
+    g_assert_true (lamina_library_put_material (library, board, &error));
+    g_assert_no_error (error);
+    g_assert_cmpstr (board->id, ==, PRECOMPOSED);
+    found = lamina_library_dup_material (library, PRECOMPOSED, &error);
+    g_assert_no_error (error);
+    g_assert_cmpstr (found->name, ==, "Ring board");
+    /* U+200B ZERO WIDTH SPACE at character 6: refused, located. */
+    g_assert_false (lamina_library_put_material (library, hidden, &error));
+    g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_INVALID);
+    g_assert_nonnull (strstr (error->message, "material “Hidden board”, id: character 6 is U+200B"));
+    g_clear_error (&error);
+  }
+  {
+    /* An import whose material id holds a decomposed "Ö" (O + U+0308
+     * COMBINING DIAERESIS) stores it as U+00D6 (UAX #15, canonical
+     * composition; from memory), and the layer naming it follows. */
+    g_autoptr(LaminaLibrary) library = lamina_library_open (path, 0, &error);
+    g_autoptr(LaminaCatalogue) cat = lamina_catalogue_new ();
+    g_autoptr(LaminaImportReport) report = NULL;
+    g_autoptr(LaminaConstruction) stored = NULL;
+    g_autoptr(LaminaMaterial) found = NULL;
+    LaminaConstruction *wall = lamina_hardening_make_wall (library, 21);
+    LaminaLayer *first = wall->layers->pdata[0];
+
+    g_assert_no_error (error);
+    g_ptr_array_add (cat->materials, lamina_material_new ("O\xcc\x88-slab", "Umlaut slab",
+                                                          LAMINA_CATEGORY_INSULATION, 0.036));
+    g_free (first->material->id);
+    first->material->id = g_strdup ("O\xcc\x88-slab");
+    wall->id = (g_free (wall->id), g_strdup ("umlaut-wall"));
+    g_ptr_array_add (cat->constructions, wall);
+    report = lamina_library_import (library, cat, LAMINA_IMPORT_DEFAULT, "I. Importer", &error);
+    g_assert_no_error (error);
+    found = lamina_library_dup_material (library, "\xc3\x96-slab", &error);
+    g_assert_no_error (error);
+    g_assert_cmpstr (found->name, ==, "Umlaut slab");
+    stored = lamina_library_dup_construction (library, "umlaut-wall", 0, &error);
+    g_assert_no_error (error);
+    g_assert_cmpstr (((LaminaLayer *) stored->layers->pdata[0])->material->id, ==,
+                     "\xc3\x96-slab");
+  }
+  {
+    /* A library written before ids were cleaned, holding a decomposed
+     * material id: it opens, the material is listed and read as stored,
+     * and verify names it instead of refusing the library. */
+    sqlite3 *db = NULL;
+    g_autoptr(LaminaLibrary) library = NULL;
+    g_autoptr(LaminaMaterial) found = NULL;
+    g_autoptr(LaminaVerifyReport) report = NULL;
+    gboolean named = FALSE;
+
+    g_assert_cmpint (sqlite3_open (path, &db), ==, SQLITE_OK);
+    g_assert_cmpint (sqlite3_exec (db, "UPDATE material SET id = 'A' || char(778) || '-board'"
+                                       " WHERE name = 'Ring board';", NULL, NULL, NULL), ==, SQLITE_OK);
+    g_assert_cmpint (sqlite3_changes (db), ==, 1);
+    sqlite3_close (db);
+
+    library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+    g_assert_no_error (error);
+    found = lamina_library_dup_material (library, DECOMPOSED, &error);
+    g_assert_no_error (error);
+    g_assert_cmpstr (found->name, ==, "Ring board");
+    report = lamina_library_verify (library, &error);
+    g_assert_no_error (error);
+    for (guint i = 0; i < report->problems->len; i++)
+      if (strstr (report->problems->pdata[i], "material “" DECOMPOSED "”") != NULL
+          && strstr (report->problems->pdata[i], "normalization form C (NFC)") != NULL)
+        named = TRUE;
+    g_assert_true (named);
+    g_assert_cmpuint (report->problems->len, ==, 1);
+  }
+}
+
 static void
 test_cli (void)
 {
@@ -149,5 +248,6 @@ main (int    argc,
   g_test_init (&argc, &argv, G_TEST_OPTION_ISOLATE_DIRS, NULL);
   g_test_add_func ("/hardening/identity/api", test_api);
   g_test_add_func ("/hardening/identity/cli", test_cli);
+  g_test_add_func ("/hardening/identity/material-ids", test_material_ids);
   return g_test_run ();
 }
