@@ -710,6 +710,78 @@ test_busy_gives_up (void)
   g_assert_null (strstr (err, "database is locked"));
 }
 
+/* Office codes are unique (common practice: a code is how drawings and
+ * specifications name a build-up).  Two writers that both find a code
+ * free before they write: the one that writes second is refused, because
+ * the check is made again inside its transaction, which BEGIN IMMEDIATE
+ * gives one writer at a time. */
+typedef struct
+{
+  sqlite3       *holder;
+  LaminaLibrary *other;
+  gboolean       done;
+} CodeRace;
+
+static void
+on_code_race_wait (LaminaLibrary *library,
+                   gboolean       waiting,
+                   const char    *holder,
+                   gpointer       user_data)
+{
+  CodeRace *race = user_data;
+  g_autoptr(LaminaConstruction) winner = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+
+  if (!waiting || race->done)
+    return;
+  race->done = TRUE;
+  /* While the first writer waits for the lock, having found "SW-9" free,
+   * the lock goes and a second writer stores "SW-9". */
+  release (race->holder);
+  winner = test_make_wall (race->other, "SW-9", "Race winner", NULL, 120);
+  id = lamina_library_create_construction (race->other, winner, "Ann Author", &error);
+  g_assert_no_error (error);
+}
+
+static void
+test_code_race (void)
+{
+  g_autofree char *path = make_library ("code-race.sqlite", NULL);
+  g_autoptr(LaminaLibrary) first = NULL;
+  g_autoptr(LaminaLibrary) second = NULL;
+  g_autoptr(LaminaConstruction) loser = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *id = NULL;
+  CodeRace race = { 0 };
+  sqlite3 *db = NULL;
+  sqlite3_stmt *stmt = NULL;
+
+  first = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  g_assert_no_error (error);
+  second = lamina_library_open (path, LAMINA_LIBRARY_OPEN_EXISTING, &error);
+  g_assert_no_error (error);
+  race.holder = hold_write_lock (path);
+  race.other = second;
+  lamina_library_set_wait_func (first, on_code_race_wait, &race);
+  loser = test_make_wall (first, "sw-9", "Race loser", NULL, 140);
+  id = lamina_library_create_construction (first, loser, "Ann Author", &error);
+  g_assert_true (race.done);
+  g_assert_null (id);
+  g_assert_error (error, LAMINA_LIBRARY_ERROR, LAMINA_LIBRARY_ERROR_EXISTS);
+  g_assert_nonnull (strstr (error->message, "construction code “sw-9”: already used by "
+                                            "“Race winner”"));
+  /* One construction has the code, in any letter case. */
+  g_assert_cmpint (sqlite3_open (path, &db), ==, SQLITE_OK);
+  g_assert_cmpint (sqlite3_prepare_v2 (db, "SELECT count(*) FROM construction"
+                                           " WHERE code = 'SW-9' COLLATE NOCASE;",
+                                       -1, &stmt, NULL), ==, SQLITE_OK);
+  g_assert_cmpint (sqlite3_step (stmt), ==, SQLITE_ROW);
+  g_assert_cmpint (sqlite3_column_int (stmt, 0), ==, 1);
+  sqlite3_finalize (stmt);
+  sqlite3_close (db);
+}
+
 static void
 spawn_import (const char *doc,
               GPid       *pid,
@@ -791,5 +863,6 @@ main (int    argc,
   g_test_add_func ("/store/safety/backup/restore", test_restore);
   g_test_add_func ("/store/safety/busy/gives-up", test_busy_gives_up);
   g_test_add_func ("/store/safety/busy/parallel-imports", test_parallel_imports);
+  g_test_add_func ("/store/safety/busy/code-race", test_code_race);
   return g_test_run ();
 }
