@@ -357,6 +357,14 @@ gboolean      lamina_sqlite_index_revision     (LaminaSqlite              *self,
                                                 const LaminaConstruction  *c,
                                                 gint64                     num,
                                                 GError                   **error);
+/* The head revision of construction @id, whether it is deleted and its
+ * status (either may be NULL); 0 if there is no such construction, -1
+ * on error. */
+int           lamina_sqlite_get_head            (LaminaSqlite      *self,
+                                                 const char        *id,
+                                                 gboolean          *deleted,
+                                                 LaminaStatus      *status,
+                                                 GError           **error);
 /* A construction's row: inserted, or its head, figures and flags updated
  * (its deleted_at and material_changed then stay); sets @num, the row's
  * number. */

@@ -9,36 +9,6 @@
 
 static const char *const act_names[] = { "checked", "approved", "withdrawn" };
 
-/* The head revision, its status and whether the construction is live; 0
- * if there is no such construction, -1 on error. */
-static int
-read_head (LaminaSqlite  *self,
-           const char    *id,
-           LaminaStatus  *status,
-           GError       **error)
-{
-  sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
-    "SELECT head, status FROM construction WHERE id = ?1 AND deleted_at IS NULL;", error);
-  int rc, head = 0;
-
-  if (stmt == NULL)
-    return -1;
-  lamina_sqlite_bind_text (stmt, 1, id);
-  rc = sqlite3_step (stmt);
-  if (rc == SQLITE_ROW)
-    {
-      head = sqlite3_column_int (stmt, 0);
-      lamina_status_from_string ((const char *) sqlite3_column_text (stmt, 1), status);
-    }
-  else if (rc != SQLITE_DONE)
-    {
-      lamina_sqlite_set_error (self, rc, "cannot read a construction", error);
-      head = -1;
-    }
-  sqlite3_reset (stmt);
-  return head;
-}
-
 /* What the act asks of the revision's state, checked inside the
  * transaction so that two reviewers cannot both pass. */
 static gboolean
@@ -168,11 +138,14 @@ lamina_sqlite_backend_review (LaminaBackend             *backend,
                               GError                   **error)
 {
   LaminaStatus status = LAMINA_STATUS_DRAFT;
+  gboolean deleted = FALSE;
   int head;
 
   if (!lamina_sqlite_begin (SELF, error))
     return FALSE;
-  head = read_head (SELF, review->id, &status, error);
+  head = lamina_sqlite_get_head (SELF, review->id, &deleted, &status, error);
+  if (head > 0 && deleted)
+    head = 0;   /* a deleted construction is not reviewed */
   if (head < 0 || !check_state (review, head, status, error)
       || !update_revision (SELF, review, head, error) || !lamina_sqlite_commit (SELF, error))
     {

@@ -74,14 +74,12 @@ lamina_sqlite_backend_get_construction (LaminaBackend  *backend,
   return c;
 }
 
-/* The head revision and whether the construction is deleted; 0 if there
- * is no such construction, -1 on error. */
-static int
-get_head (LaminaSqlite  *self,
-          const char    *id,
-          gboolean      *deleted,
-          LaminaStatus  *status,
-          GError       **error)
+int
+lamina_sqlite_get_head (LaminaSqlite  *self,
+                        const char    *id,
+                        gboolean      *deleted,
+                        LaminaStatus  *status,
+                        GError       **error)
 {
   sqlite3_stmt *stmt = lamina_sqlite_prepare (self,
     "SELECT head, deleted_at IS NOT NULL, status FROM construction WHERE id = ?1;", error);
@@ -206,7 +204,7 @@ check_base (LaminaSqlite              *self,
             GError                   **error)
 {
   gboolean deleted = FALSE;
-  int head = get_head (self, c->id, &deleted, NULL, error);
+  int head = lamina_sqlite_get_head (self, c->id, &deleted, NULL, error);
 
   if (head < 0)
     return FALSE;
@@ -454,7 +452,7 @@ check_draft_head (LaminaSqlite  *self,
 {
   LaminaStatus status = LAMINA_STATUS_DRAFT;
   gboolean deleted = FALSE;
-  int head = get_head (self, id, &deleted, &status, error);
+  int head = lamina_sqlite_get_head (self, id, &deleted, &status, error);
   int same = 0;
 
   if (head < 0)
