@@ -59,6 +59,35 @@ count_extra_pages (const LaminaConstruction *c)
   return c->moisture != NULL && c->moisture->climate_data != NULL ? 1 : 0;
 }
 
+static LaminaMoistureResult *
+dup_moisture (const LaminaConstruction *c,
+              const LaminaSheetOptions *options,
+              GError                  **error)
+{
+  double limit = options->moisture_limit;
+
+  return lamina_moisture_calculate_own (c, LAMINA_MOISTURE_LIMIT_IS_VALID (limit) ? limit : NAN, error);
+}
+
+/* The pages of a construction's sheet: its own (more than one when its
+ * text goes on over a continuation page) and the moisture page. */
+static gboolean
+count_pages (const LaminaSheetOptions *options,
+             const LaminaConstruction *c,
+             const LaminaResult       *r,
+             const LaminaFieldResult  *field,
+             const char               *job_use,
+             guint                    *pages,
+             GError                  **error)
+{
+  g_autoptr(LaminaMoistureResult) moisture = NULL;
+
+  if (count_extra_pages (c) > 0 && (moisture = dup_moisture (c, options, error)) == NULL)
+    return FALSE;
+  *pages = sheet_count_pages (options, c, r, field, moisture, job_use) + count_extra_pages (c);
+  return TRUE;
+}
+
 static void
 clear_entry (gpointer data)
 {
@@ -70,10 +99,11 @@ clear_entry (gpointer data)
 
 /* First pass: the index rows, one construction at a time. */
 static GArray *
-collect_index (guint             n,
-               LaminaSheetFetch  fetch,
-               gpointer          fetch_data,
-               GError          **error)
+collect_index (const LaminaSheetOptions *options,
+               guint                     n,
+               LaminaSheetFetch          fetch,
+               gpointer                  fetch_data,
+               GError                  **error)
 {
   g_autoptr(GArray) entries = g_array_sized_new (FALSE, TRUE, sizeof (SheetIndexEntry), n);
 
@@ -83,8 +113,10 @@ collect_index (guint             n,
       g_autoptr(LaminaConstruction) c = fetch (fetch_data, i, error);
       g_autoptr(LaminaResult) r = NULL;
       SheetIndexEntry e;
+      guint pages;
 
-      if (c == NULL || (r = calculate (c, error)) == NULL)
+      if (c == NULL || (r = calculate (c, error)) == NULL
+          || !count_pages (options, c, r, NULL, NULL, &pages, error))
         return NULL;
       e.code = g_strdup (c->code ? c->code : c->id);
       e.name = g_strdup (c->name);
@@ -92,7 +124,7 @@ collect_index (guint             n,
       e.status = c->status;
       e.u = r->u_corrected;
       e.thickness = r->thickness;
-      e.extra_pages = count_extra_pages (c);
+      e.extra_pages = pages - 1;
       e.page = 0;
       g_array_append_val (entries, e);
     }
@@ -156,7 +188,7 @@ write_pages (cairo_surface_t          *surface,
     {
       guint left;
 
-      entries = collect_index (source->n, source->fetch, source->fetch_data, error);
+      entries = collect_index (options, source->n, source->fetch, source->fetch_data, error);
       if (entries == NULL)
         {
           sheet_context_clear (&ctx);
@@ -188,13 +220,18 @@ write_pages (cairo_surface_t          *surface,
       else
         {
           g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
+          g_autoptr(LaminaResult) r = NULL;
+          const char *use = source->job_set != NULL
+                            ? ((const LaminaJobLine *) source->job_set->sheets->pdata[i])->entry->use : NULL;
+          guint pages;
 
-          if (c == NULL)
+          if (c == NULL || (r = calculate (c, error)) == NULL
+              || !count_pages (options, c, r, NULL, use, &pages, error))
             {
               sheet_context_clear (&ctx);
               return FALSE;
             }
-          extra_pages += count_extra_pages (c);
+          extra_pages += pages - 1;
         }
     }
   ctx.n_pages = first_sheet - 1 + source->n + extra_pages;
@@ -263,10 +300,7 @@ write_pages (cairo_surface_t          *surface,
        * office's limit. */
       if (count_extra_pages (c) > 0)
         {
-          double limit = options->moisture_limit;
-
-          moisture = lamina_moisture_calculate_own (c, LAMINA_MOISTURE_LIMIT_IS_VALID (limit) ? limit : NAN,
-                                                    error);
+          moisture = dup_moisture (c, options, error);
           if (moisture == NULL)
             {
               ok = FALSE;
@@ -275,6 +309,11 @@ write_pages (cairo_surface_t          *surface,
           ctx.moisture = moisture;
           ctx.moisture_page = TRUE;
         }
+      /* The 2-D check's summary was not on the sheet when the pages were
+       * counted: a single sheet's count follows what it adds. */
+      if (field != NULL)
+        ctx.n_pages += sheet_count_pages (options, c, r, field, moisture, ctx.job_use)
+                       - sheet_count_pages (options, c, r, NULL, moisture, ctx.job_use);
       sheet_draw_page (&ctx, c, r);
       ctx.dest = NULL;
       cairo_show_page (cr);

@@ -124,6 +124,24 @@ draw_approval_note (SheetContext             *ctx,
   return y + sheet_text (ctx, SHEET_FONT_SMALL, text, ctx->left, y, w, PANGO_ALIGN_LEFT) + 4;
 }
 
+/* Every page of a draft's sheet says so at the top. */
+static double
+draw_draft_bar (SheetContext *ctx,
+                double        y)
+{
+  cairo_t *cr = ctx->cr;
+  double w = ctx->right - ctx->left;
+
+  cairo_set_source_rgb (cr, 0.15, 0.15, 0.15);
+  cairo_rectangle (cr, ctx->left, y, w, 15);
+  cairo_fill (cr);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  sheet_text_line (ctx, SHEET_FONT_BOLD, _("DRAFT — not reviewed, not for construction"),
+                   ctx->left + 6, y + 3, w - 12, PANGO_ALIGN_LEFT);
+  cairo_set_source_rgb (cr, 0, 0, 0);
+  return y + 15 + 6;
+}
+
 static double
 draw_header (SheetContext             *ctx,
              const LaminaConstruction *c)
@@ -134,15 +152,7 @@ draw_header (SheetContext             *ctx,
   char revision[16], date[16];
 
   if (draft)
-    {
-      cairo_set_source_rgb (cr, 0.15, 0.15, 0.15);
-      cairo_rectangle (cr, ctx->left, y, w, 15);
-      cairo_fill (cr);
-      cairo_set_source_rgb (cr, 1, 1, 1);
-      sheet_text_line (ctx, SHEET_FONT_BOLD, _("DRAFT — not reviewed, not for construction"),
-                       ctx->left + 6, y + 3, w - 12, PANGO_ALIGN_LEFT);
-      y += 15 + 6;
-    }
+    y = draw_draft_bar (ctx, y);
   if (ctx->options->job != NULL)
     y = sheet_draw_job_band (ctx, y);
   set_grey (ctx);
@@ -716,28 +726,123 @@ dup_method_text (const LaminaConstruction *c,
   return g_string_free (text, FALSE);
 }
 
-static double
-draw_block (SheetContext *ctx,
-            const char   *heading,
-            const char   *text,
-            double        y,
-            double        max_height)
+/* The text blocks flow down the page and on to continuation pages: a
+ * block too long for what is left of a page goes on at the top of the
+ * next, never cut.  Every page keeps the method and cautions at its foot
+ * and the footer. */
+typedef struct
 {
-  double w = ctx->right - ctx->left, h;
+  SheetContext             *ctx;
+  const LaminaConstruction *c;
+  const char               *foot;     /* the method and cautions */
+  double                    foot_h;
+} SheetFlow;
+
+static double
+flow_bottom (const SheetFlow *flow)
+{
+  return flow->ctx->bottom - 24 - flow->foot_h;
+}
+
+static void
+finish_page (const SheetFlow *flow)
+{
+  SheetContext *ctx = flow->ctx;
+
+  set_grey (ctx);
+  sheet_rule (ctx, ctx->bottom - 20 - flow->foot_h, 0.4, 0.6);
+  sheet_text (ctx, SHEET_FONT_SMALL, flow->foot, ctx->left, ctx->bottom - 16 - flow->foot_h,
+              ctx->right - ctx->left, PANGO_ALIGN_LEFT);
+  set_black (ctx);
+  sheet_draw_footer (ctx);
+}
+
+/* Ends the page and starts the next with a short header naming the
+ * construction; returns the y where the text goes on. */
+static double
+next_page (const SheetFlow *flow)
+{
+  SheetContext *ctx = flow->ctx;
+  const LaminaConstruction *c = flow->c;
+  double w = ctx->right - ctx->left, y = ctx->top;
+  g_autofree char *title = NULL;
+
+  finish_page (flow);
+  cairo_show_page (ctx->cr);
+  ctx->page++;
+  ctx->dest = NULL;    /* the sheet's link target is its first page */
+  sheet_draw_frame (ctx, c->status == LAMINA_STATUS_DRAFT);
+  if (c->status == LAMINA_STATUS_DRAFT)
+    y = draw_draft_bar (ctx, y);
+  set_grey (ctx);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->practice, ctx->left, y, w * 0.6, PANGO_ALIGN_LEFT);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, _("Construction specification"), ctx->left + w * 0.6, y,
+                   w * 0.4, PANGO_ALIGN_RIGHT);
+  set_black (ctx);
+  y += 12;
+  /* TRANSLATORS: the heading of a sheet's continuation page: code, name */
+  title = g_strdup_printf (_("%s  %s (continued)"), c->code ? c->code : c->id, c->name);
+  sheet_text_line (ctx, SHEET_FONT_HEADING, title, ctx->left, y, w, PANGO_ALIGN_LEFT);
+  y += 16;
+  sheet_rule (ctx, y, 0.4, 0.6);
+  return y + GAP;
+}
+
+static double
+flow_block (const SheetFlow *flow,
+            const char      *heading,
+            const char      *text,
+            double           y)
+{
+  SheetContext *ctx = flow->ctx;
+  g_autoptr(PangoLayout) block = NULL;
+  PangoLayoutIter *iter;
+  double top;
+  int lead = 0, offset = 0, first, last;
 
   if (text == NULL || *text == '\0')
     return y;
+  sheet_text_set (ctx, SHEET_FONT_BODY, text, ctx->right - ctx->left, NULL, NULL);
+  /* A copy: the page furniture of a page break reuses the context's layout. */
+  block = pango_layout_copy (ctx->layout);
+  /* The heading keeps its first two lines with it. */
+  iter = pango_layout_get_iter (block);
+  if (pango_layout_get_line_count (block) > 1)
+    pango_layout_iter_next_line (iter);
+  pango_layout_iter_get_line_yrange (iter, NULL, &lead);
+  pango_layout_iter_free (iter);
+  if (y + 13 + (double) lead / PANGO_SCALE > flow_bottom (flow) + 1)
+    y = next_page (flow);
   sheet_text_line (ctx, SHEET_FONT_HEADING, heading, ctx->left, y, 0, PANGO_ALIGN_LEFT);
-  y += 13;
-  sheet_text_set (ctx, SHEET_FONT_BODY, text, w, NULL, &h);
-  /* Too long for the page: cut with an ellipsis; the library keeps it all. */
-  /* A point of slack: the cut is for real overflow, not rounding. */
-  pango_layout_set_height (ctx->layout, (int) ((MAX (max_height, 10) + 1) * PANGO_SCALE));
-  pango_layout_set_ellipsize (ctx->layout, PANGO_ELLIPSIZE_END);
-  cairo_move_to (ctx->cr, ctx->left, y);
-  pango_cairo_show_layout (ctx->cr, ctx->layout);
-  pango_layout_set_height (ctx->layout, -1);
-  return y + MIN (h, MAX (max_height, 10)) + GAP;
+  top = y + 13;
+  y = top;
+  iter = pango_layout_get_iter (block);
+  do
+    {
+      PangoRectangle logical;
+
+      pango_layout_iter_get_line_yrange (iter, &first, &last);
+      pango_layout_iter_get_line_extents (iter, NULL, &logical);
+      /* A point of slack: the break is for real overflow, not rounding. */
+      if (first > offset && top + (double) (last - offset) / PANGO_SCALE > flow_bottom (flow) + 1)
+        {
+          g_autofree char *again = NULL;
+
+          top = next_page (flow);
+          offset = first;
+          /* TRANSLATORS: a block's heading again where it goes on over a page, e.g. "Notes (continued)" */
+          again = g_strdup_printf (_("%s (continued)"), heading);
+          sheet_text_line (ctx, SHEET_FONT_HEADING, again, ctx->left, top, 0, PANGO_ALIGN_LEFT);
+          top += 13;
+        }
+      cairo_move_to (ctx->cr, ctx->left + (double) logical.x / PANGO_SCALE,
+                     top + (double) (pango_layout_iter_get_baseline (iter) - offset) / PANGO_SCALE);
+      pango_cairo_show_layout_line (ctx->cr, pango_layout_iter_get_line_readonly (iter));
+      y = top + (double) (last - offset) / PANGO_SCALE;
+    }
+  while (pango_layout_iter_next_line (iter));
+  pango_layout_iter_free (iter);
+  return y + GAP;
 }
 
 void
@@ -755,6 +860,7 @@ sheet_draw_page (SheetContext             *ctx,
   double table_h, warn_h = 0, notes_h = 0, corr_h = 0, dyn_h, method_h, y, section_h, room;
   double ground_h = sheet_measure_ground (ctx, c, result), applied_h = 0;
   double page_h = ctx->bottom - ctx->top;
+  SheetFlow flow = { ctx, c, foot, 0 };
 
   if (field_summary != NULL)
     {
@@ -797,6 +903,7 @@ sheet_draw_page (SheetContext             *ctx,
   if (method)
     applied_h = 13 + measure_paragraph (ctx, SHEET_FONT_BODY, method) + GAP;
   method_h = measure_paragraph (ctx, SHEET_FONT_SMALL, foot);
+  flow.foot_h = method_h;
 
   /* The section takes the height left, within bounds: on a full page
    * (a draft's band, a job's band and its criteria, many warnings) it
@@ -808,24 +915,39 @@ sheet_draw_page (SheetContext             *ctx,
   y = draw_layer_table (ctx, c, result, y);
   y = draw_results (ctx, c, result, y);
   y = sheet_draw_ground (ctx, c, result, y);
-  if (method)
-    y = draw_block (ctx, _("Method for this construction"), method, y,
-                    ctx->bottom - 24 - method_h - y - 13 - GAP - (warn_h + notes_h > 0 ? 40 : 0));
-  room = ctx->bottom - 24 - method_h - y;
-  if (*warnings)
-    y = draw_block (ctx, _("Warnings"), warnings, y, room - 13 - GAP - (notes_h + corr_h > 0 ? 40 : 0));
-  if (corrections)
-    y = draw_block (ctx, _("Corrections to U, EN ISO 6946:2017 Annex F"), corrections, y,
-                    ctx->bottom - 24 - method_h - y - 13 - GAP - (notes_h > 0 ? 40 : 0) - 30);
-  y = draw_block (ctx, _("Dynamic thermal characteristics, EN ISO 13786:2017"), dynamic, y,
-                  ctx->bottom - 24 - method_h - y - 13 - GAP - (notes_h > 0 ? 40 : 0));
-  if (*notes)
-    y = draw_block (ctx, _("Notes"), notes, y, ctx->bottom - 24 - method_h - y - 13 - GAP);
+  y = flow_block (&flow, _("Method for this construction"), method, y);
+  y = flow_block (&flow, _("Warnings"), warnings, y);
+  y = flow_block (&flow, _("Corrections to U, EN ISO 6946:2017 Annex F"), corrections, y);
+  y = flow_block (&flow, _("Dynamic thermal characteristics, EN ISO 13786:2017"), dynamic, y);
+  flow_block (&flow, _("Notes"), notes, y);
+  finish_page (&flow);
+}
 
-  set_grey (ctx);
-  sheet_rule (ctx, ctx->bottom - 20 - method_h, 0.4, 0.6);
-  sheet_text (ctx, SHEET_FONT_SMALL, foot, ctx->left, ctx->bottom - 16 - method_h,
-              ctx->right - ctx->left, PANGO_ALIGN_LEFT);
-  set_black (ctx);
-  sheet_draw_footer (ctx);
+guint
+sheet_count_pages (const LaminaSheetOptions   *options,
+                   const LaminaConstruction   *c,
+                   const LaminaResult         *result,
+                   const LaminaFieldResult    *field,
+                   const LaminaMoistureResult *moisture,
+                   const char                 *job_use)
+{
+  /* The same drawing on a pixel of its own: the sheet's text is laid out
+   * with unhinted metrics at 72 dpi, so the breaks fall as in the PDF. */
+  cairo_surface_t *surface = cairo_image_surface_create (CAIRO_FORMAT_A8, 1, 1);
+  cairo_t *cr = cairo_create (surface);
+  SheetContext dry;
+  guint pages;
+
+  sheet_context_init (&dry, cr, options);
+  dry.page = dry.n_pages = 1;
+  dry.field = field;
+  dry.moisture = moisture;
+  dry.moisture_page = moisture != NULL;
+  dry.job_use = job_use;
+  sheet_draw_page (&dry, c, result);
+  pages = dry.page;
+  sheet_context_clear (&dry);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+  return pages;
 }

@@ -138,9 +138,21 @@ void   sheet_rule            (SheetContext   *ctx,
 void   sheet_draw_frame      (SheetContext   *ctx,
                               gboolean        draft);
 void   sheet_draw_footer     (SheetContext   *ctx);
+/* Draws a construction's sheet from ctx->page on: a sheet whose text does
+ * not fit goes on over further pages (ended here; the caller ends the
+ * last), so ctx->page is the sheet's last page on return. */
 void   sheet_draw_page       (SheetContext             *ctx,
                               const LaminaConstruction *construction,
                               const LaminaResult       *result);
+/* The pages sheet_draw_page takes for the construction (1 + its
+ * continuation pages), with the 2-D check's and the moisture check's
+ * summaries it will print. */
+guint  sheet_count_pages     (const LaminaSheetOptions   *options,
+                              const LaminaConstruction   *construction,
+                              const LaminaResult         *result,
+                              const LaminaFieldResult    *field,
+                              const LaminaMoistureResult *moisture,
+                              const char                 *job_use);
 void   sheet_draw_cover      (SheetContext   *ctx,
                               guint           n);
 /* Rows @first … @first + count − 1 of the index; returns rows drawn. */

@@ -86,6 +86,22 @@ dup_page_text (PopplerDocument *doc,
   return normalize (text);
 }
 
+
+/* The text of every page, in order. */
+static char *
+dup_all_text (PopplerDocument *doc)
+{
+  GString *all = g_string_new (NULL);
+
+  for (int p = 0; p < poppler_document_get_n_pages (doc); p++)
+    {
+      g_autofree char *text = dup_page_text (doc, p);
+
+      g_string_append_printf (all, "%s%s", all->len ? " " : "", text);
+    }
+  return g_string_free (all, FALSE);
+}
+
 static void
 assert_contains (const char *text,
                  const char *what,
@@ -671,10 +687,141 @@ dup_sheet_text (const LaminaConstruction *c,
   g_assert_true (lamina_sheet_write_pdf (path, TRUE, options, c, &error));
   g_assert_no_error (error);
   doc = open_pdf (path);
-  g_assert_cmpint (poppler_document_get_n_pages (doc), ==, c->moisture != NULL ? 2 : 1);
-  text = dup_page_text (doc, 0);
+  g_assert_cmpint (poppler_document_get_n_pages (doc), >=, c->moisture != NULL ? 2 : 1);
+  text = dup_all_text (doc);
   g_unlink (path);
   return text;
+}
+
+/* TRUE when every word of @what appears in @text in its order: a
+ * paragraph that goes on over a page break is interrupted by the foot of
+ * one page and the head of the next, but loses nothing. */
+static gboolean
+has_words_in_order (const char *text,
+                    const char *what)
+{
+  g_auto(GStrv) words = g_strsplit_set (what, " \n\t", -1);
+  const char *at = text;
+
+  for (guint i = 0; words[i]; i++)
+    {
+      const char *found;
+
+      if (*words[i] == '\0')
+        continue;
+      found = strstr (at, words[i]);
+      if (found == NULL)
+        {
+          g_test_message ("“%s” (word %u) not found after: %.80s", words[i], i, at);
+          return FALSE;
+        }
+      at = found + strlen (words[i]);
+    }
+  return TRUE;
+}
+
+/* The demo's sheets with long notes (FL-101, EW-101) print their
+ * description and notes whole, going on to a continuation page where the first is
+ * full (common practice: a specification is never cut short). */
+static void
+test_demo_notes_whole (void)
+{
+  g_autofree char *demo = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "demo", "lamina-demo.xml", NULL);
+  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (demo, NULL);
+  LaminaSheetOptions options;
+  guint checked = 0;
+
+  g_assert_nonnull (catalogue);
+  init_options (&options);
+  for (guint k = 0; k < catalogue->constructions->len; k++)
+    {
+      const LaminaConstruction *c = catalogue->constructions->pdata[k];
+      g_autofree char *text = NULL;
+
+      if (g_strcmp0 (c->code, "FL-101") != 0 && g_strcmp0 (c->code, "EW-101") != 0)
+        continue;
+      text = dup_sheet_text (c, &options);
+      if (c->notes && !has_words_in_order (text, c->notes))
+        g_error ("%s: the notes are not whole on the sheet: %s", c->code, text);
+      if (c->description && !has_words_in_order (text, c->description))
+        g_error ("%s: the description is not whole on the sheet", c->code);
+      g_assert_null (strstr (text, "\xe2\x80\xa6"));
+      checked++;
+    }
+  g_assert_cmpuint (checked, ==, 2);
+}
+
+/* Notes far longer than a page: every numbered sentence is printed, over
+ * as many continuation pages as it takes, each with its header, the
+ * cautions at its foot and "Page n of N" counted right; in a catalogue
+ * the next sheet's index entry points past them. */
+static void
+test_long_notes_continue (void)
+{
+  g_autoptr(LaminaConstruction) c = lamina_test_masonry_wall ();
+  g_autoptr(GPtrArray) all = g_ptr_array_new_with_free_func ((GDestroyNotify) lamina_construction_free);
+  g_autofree char *path = dup_temp_path ("long-notes.pdf");
+  g_autofree char *cat_path = dup_temp_path ("long-notes-catalogue.pdf");
+  g_autoptr(PopplerDocument) doc = NULL;
+  g_autoptr(PopplerDocument) cat = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *all_text = NULL;
+  GString *notes = g_string_new (NULL);
+  LaminaConstruction *after;
+  LaminaSheetOptions options;
+  int n_pages;
+
+  for (int i = 1; i <= 150; i++)
+    g_string_append_printf (notes, "Site note %d of the build-up, to be read with the drawings. ", i);
+  g_free (c->notes);
+  c->notes = g_string_free (notes, FALSE);
+  init_options (&options);
+  g_assert_true (lamina_sheet_write_pdf (path, TRUE, &options, c, &error));
+  g_assert_no_error (error);
+  doc = open_pdf (path);
+  n_pages = poppler_document_get_n_pages (doc);
+  g_assert_cmpint (n_pages, >=, 2);
+  all_text = dup_all_text (doc);
+  for (int i = 1; i <= 150; i++)
+    {
+      g_autofree char *sentence = g_strdup_printf ("Site note %d of the build-up", i);
+
+      assert_contains (all_text, sentence, "long notes");
+    }
+  for (int p = 1; p <= n_pages; p++)
+    {
+      g_autofree char *text = dup_page_text (doc, p - 1);
+      g_autofree char *footer = g_strdup_printf ("Page %d of %d", p, n_pages);
+
+      assert_contains (text, footer, "footer");
+      assert_contains (text, "licensed professional practice", "cautions on every page");
+      if (p > 1)
+        assert_contains (text, "(continued)", "continuation header");
+    }
+
+  /* cover, index, the long sheet's pages, then the next sheet */
+  g_ptr_array_add (all, lamina_construction_copy (c));
+  after = lamina_test_masonry_wall ();
+  g_free (after->code);
+  after->code = g_strdup ("EW-AFTER");
+  g_ptr_array_add (all, after);
+  g_assert_true (lamina_sheet_write_catalogue (cat_path, FALSE, &options, all->len, fetch_cb, all, NULL, NULL,
+                                               &error));
+  g_assert_no_error (error);
+  cat = open_pdf (cat_path);
+  g_assert_cmpint (poppler_document_get_n_pages (cat), ==, 2 + n_pages + 1);
+  {
+    g_autofree char *last = dup_page_text (cat, 2 + n_pages);
+    g_autofree char *footer = g_strdup_printf ("Page %d of %d", 3 + n_pages, 3 + n_pages);
+    g_autoptr(PopplerPage) index_page = poppler_document_get_page (cat, 1);
+    g_autofree char *number = g_strdup_printf ("%d", 3 + n_pages);
+
+    assert_contains (last, "EW-AFTER", "the sheet after");
+    assert_contains (last, footer, "the sheet after");
+    g_assert_true (find_on_row (index_page, "EW-AFTER", number, TRUE));
+  }
+  g_unlink (path);
+  g_unlink (cat_path);
 }
 
 static void
@@ -933,6 +1080,8 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/field-check-page", test_field_check_page);
   g_test_add_func ("/sheet/pdf/moisture-page", test_moisture_page);
   g_test_add_func ("/sheet/pdf/method-sentences", test_method_sentences);
+  g_test_add_func ("/sheet/pdf/demo-notes-whole", test_demo_notes_whole);
+  g_test_add_func ("/sheet/pdf/long-notes-continue", test_long_notes_continue);
   g_test_add_func ("/sheet/catalogue/moisture-pages", test_catalogue_moisture_pages);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
   g_assert_nonnull (temp_dir);
