@@ -142,6 +142,21 @@ draw_draft_bar (SheetContext *ctx,
   return y + 15 + 6;
 }
 
+/* The practice and what the page is, small, above the title. */
+static double
+draw_practice_line (SheetContext *ctx,
+                    double        y)
+{
+  double w = ctx->right - ctx->left;
+
+  set_grey (ctx);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->practice, ctx->left, y, w * 0.6, PANGO_ALIGN_LEFT);
+  sheet_text_line (ctx, SHEET_FONT_SMALL, _("Construction specification"), ctx->left + w * 0.6, y,
+                   w * 0.4, PANGO_ALIGN_RIGHT);
+  set_black (ctx);
+  return y + 12;
+}
+
 static double
 draw_header (SheetContext             *ctx,
              const LaminaConstruction *c)
@@ -155,12 +170,7 @@ draw_header (SheetContext             *ctx,
     y = draw_draft_bar (ctx, y);
   if (ctx->options->job != NULL)
     y = sheet_draw_job_band (ctx, y);
-  set_grey (ctx);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->practice, ctx->left, y, w * 0.6, PANGO_ALIGN_LEFT);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, _("Construction specification"), ctx->left + w * 0.6, y,
-                   w * 0.4, PANGO_ALIGN_RIGHT);
-  set_black (ctx);
-  y += 12;
+  y = draw_practice_line (ctx, y);
   if (ctx->dest)
     cairo_tag_begin (cr, CAIRO_TAG_DEST, ctx->dest);
   sheet_text_line (ctx, SHEET_FONT_CODE, c->code ? c->code : c->id, ctx->left, y, w, PANGO_ALIGN_LEFT);
@@ -774,12 +784,7 @@ next_page (const SheetFlow *flow)
   sheet_draw_frame (ctx, c->status == LAMINA_STATUS_DRAFT);
   if (c->status == LAMINA_STATUS_DRAFT)
     y = draw_draft_bar (ctx, y);
-  set_grey (ctx);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, ctx->options->practice, ctx->left, y, w * 0.6, PANGO_ALIGN_LEFT);
-  sheet_text_line (ctx, SHEET_FONT_SMALL, _("Construction specification"), ctx->left + w * 0.6, y,
-                   w * 0.4, PANGO_ALIGN_RIGHT);
-  set_black (ctx);
-  y += 12;
+  y = draw_practice_line (ctx, y);
   /* TRANSLATORS: the heading of a sheet's continuation page: code, name */
   title = g_strdup_printf (_("%s  %s (continued)"), c->code ? c->code : c->id, c->name);
   sheet_text_line (ctx, SHEET_FONT_HEADING, title, ctx->left, y, w, PANGO_ALIGN_LEFT);
