@@ -11,6 +11,7 @@
 #include "lamina-editor-state.h"
 #include "lamina-text.h"
 #include "lamina-layer-row.h"
+#include "lamina-library-safety.h"
 #include "lamina-parts-dialog.h"
 #include "lamina-properties-view.h"
 #include "lamina-solve.h"
@@ -219,9 +220,19 @@ update_actions (LaminaEditor *self)
 {
   const LaminaConstruction *state = get_state (self);
   int selected = lamina_section_view_get_selected (self->section_view);
-  gboolean has_layer = state != NULL && selected >= 0 && (guint) selected < state->layers->len;
+  /* A read-only library is for browsing: no edit is offered, so none is
+   * refused after the fact. */
+  gboolean writable = self->document != NULL
+                      && !lamina_library_is_read_only (lamina_document_get_library (self->document));
+  gboolean has_layer = writable && state != NULL && selected >= 0 && (guint) selected < state->layers->len;
 
-  gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.add-layer", state != NULL);
+  gtk_editable_set_editable (GTK_EDITABLE (self->code_entry), writable);
+  gtk_editable_set_editable (GTK_EDITABLE (self->name_entry), writable);
+  for (GtkWidget *row = gtk_widget_get_first_child (GTK_WIDGET (self->layer_list)); row != NULL;
+       row = gtk_widget_get_next_sibling (row))
+    if (LAMINA_IS_LAYER_ROW (row))
+      lamina_layer_row_set_writable (LAMINA_LAYER_ROW (row), writable);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.add-layer", writable && state != NULL);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.remove-layer",
                                  has_layer && state->layers->len > 1);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "editor.duplicate-layer", has_layer);

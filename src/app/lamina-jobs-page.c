@@ -17,6 +17,7 @@
 #include "lamina-job-junction-dialog.h"
 #include "lamina-job-sheets.h"
 #include "lamina-revision-diff.h"
+#include "lamina-library-safety.h"
 #include "lamina-target-set-dialog.h"
 #include "lamina-settings.h"
 #include "lamina-sheet.h"
@@ -269,6 +270,9 @@ connect_row_action (LaminaJobsPage *self,
 
   *action = (RowAction) { self, entry, revision };
   gtk_widget_add_css_class (button, "flat");
+  /* A read-only library's jobs print but do not change. */
+  gtk_widget_set_sensitive (button, callback == G_CALLBACK (on_sheet_clicked_cb)
+                                    || !lamina_library_is_read_only (self->library));
   g_signal_connect_data (button, "clicked", callback, action, (GClosureNotify) (void (*) (void)) g_free, 0);
   return button;
 }
@@ -513,9 +517,11 @@ set_job_actions_enabled (LaminaJobsPage *self,
   static const char *const names[] = {
     "jobs.add-entry", "jobs.print", "jobs.edit-job", "jobs.add-junction", "jobs.delete-job",
   };
+  gboolean writable = self->library != NULL && !lamina_library_is_read_only (self->library);
 
   for (guint i = 0; i < G_N_ELEMENTS (names); i++)
-    gtk_widget_action_set_enabled (GTK_WIDGET (self), names[i], enabled);
+    gtk_widget_action_set_enabled (GTK_WIDGET (self), names[i],
+                                   enabled && (writable || g_str_equal (names[i], "jobs.print")));
 }
 
 static void
@@ -969,6 +975,8 @@ lamina_jobs_page_set_library (LaminaJobsPage *self,
   g_return_if_fail (self->library == NULL);
 
   self->library = g_object_ref (library);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.new-job", !lamina_library_is_read_only (library));
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "jobs.target-sets", !lamina_library_is_read_only (library));
   g_signal_connect_object (library, "changed", G_CALLBACK (on_library_changed_cb), self, G_CONNECT_SWAPPED);
   lamina_jobs_page_reload (self);
 }

@@ -201,3 +201,12 @@ lamina_layer_row_update (LaminaLayerRow          *self,
   gtk_accessible_update_property (GTK_ACCESSIBLE (self->thickness_spin),
                                   GTK_ACCESSIBLE_PROPERTY_LABEL, _("Thickness in millimetres"), -1);
 }
+
+void
+lamina_layer_row_set_writable (LaminaLayerRow *self,
+                               gboolean        writable)
+{
+  g_return_if_fail (LAMINA_IS_LAYER_ROW (self));
+
+  gtk_widget_set_sensitive (GTK_WIDGET (self->thickness_spin), writable);
+}

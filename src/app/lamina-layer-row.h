@@ -21,4 +21,8 @@ void       lamina_layer_row_update (LaminaLayerRow          *self,
                                     double                   r_total,
                                     double                   snap_step);
 
+/* Off for a read-only library: the thickness shows but does not take input. */
+void            lamina_layer_row_set_writable (LaminaLayerRow *self,
+                                               gboolean        writable);
+
 G_END_DECLS

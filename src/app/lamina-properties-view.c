@@ -8,6 +8,7 @@
 #include <glib/gi18n.h>
 
 #include "lamina-editor-state.h"
+#include "lamina-library-safety.h"
 #include "lamina-text.h"
 
 /* Typing in the notes is saved after this pause (and when focus leaves),
@@ -296,6 +297,21 @@ update_heat_flow (LaminaPropertiesView     *self,
                               state->heat_flow == preset ? 0 : (guint) state->heat_flow + 1);
 }
 
+/* A read-only library: the properties show but take no edit. */
+static void
+set_writable (LaminaPropertiesView *self,
+              gboolean              writable)
+{
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "properties.add-tag", writable);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "properties.remove-tag", writable);
+  gtk_editable_set_editable (GTK_EDITABLE (self->description_entry), writable);
+  gtk_editable_set_editable (GTK_EDITABLE (self->tag_entry), writable);
+  gtk_text_view_set_editable (self->notes_view, writable);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->element_dropdown), writable);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->outer_side_dropdown), writable);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->heat_flow_dropdown), writable);
+}
+
 void
 lamina_properties_view_update (LaminaPropertiesView     *self,
                                const LaminaConstruction *state,
@@ -308,6 +324,8 @@ lamina_properties_view_update (LaminaPropertiesView     *self,
   if (state == NULL)
     return;
   self->updating = TRUE;
+  set_writable (self, self->document != NULL
+                      && !lamina_library_is_read_only (lamina_document_get_library (self->document)));
   gtk_drop_down_set_selected (self->element_dropdown, (guint) state->element);
   update_heat_flow (self, state);
   gtk_drop_down_set_selected (self->outer_side_dropdown, (guint) state->outer_side);

@@ -32,6 +32,52 @@ find_safety_bar (GtkWidget *widget)
   return NULL;
 }
 
+/* The edit actions a read-only library must not offer (the buttons that
+ * carry them are made insensitive by their action's enabled state). */
+static const char *const edit_actions[] = {
+  "editor.add-layer", "editor.remove-layer", "editor.duplicate-layer", "editor.move-layer",
+  "properties.add-tag", "win.new-construction", "win.undo", "win.redo", "win.approve",
+  "win.update-materials", "jobs.new-job", "jobs.target-sets",
+};
+
+static gboolean
+is_edit_action (const char *name)
+{
+  for (guint i = 0; i < G_N_ELEMENTS (edit_actions); i++)
+    if (g_strcmp0 (name, edit_actions[i]) == 0)
+      return TRUE;
+  return FALSE;
+}
+
+/* Counts the buttons (and the layer rows' thickness fields) that would
+ * let an edit start, and the ones found at all. */
+static void
+count_edit_widgets (GtkWidget *widget,
+                    guint     *found,
+                    guint     *live)
+{
+  gboolean edit = FALSE;
+
+  if (GTK_IS_ACTIONABLE (widget) && is_edit_action (gtk_actionable_get_action_name (GTK_ACTIONABLE (widget))))
+    edit = TRUE;
+  if (GTK_IS_SPIN_BUTTON (widget) && gtk_widget_get_ancestor (widget, GTK_TYPE_LIST_BOX_ROW) != NULL
+      && g_strcmp0 (G_OBJECT_TYPE_NAME (gtk_widget_get_ancestor (widget, GTK_TYPE_LIST_BOX_ROW)), "LaminaLayerRow") == 0)
+    edit = TRUE;
+  if (edit)
+    {
+      (*found)++;
+      if (gtk_widget_is_sensitive (widget))
+        {
+          g_test_message ("offered: %s %s", G_OBJECT_TYPE_NAME (widget),
+                          GTK_IS_ACTIONABLE (widget) ? gtk_actionable_get_action_name (GTK_ACTIONABLE (widget)) : "");
+          (*live)++;
+        }
+    }
+  for (GtkWidget *child = gtk_widget_get_first_child (widget); child != NULL;
+       child = gtk_widget_get_next_sibling (child))
+    count_edit_widgets (child, found, live);
+}
+
 static char *
 checksum (const char *path)
 {
@@ -79,7 +125,6 @@ test_read_only_window (void)
   g_assert_no_error (error);
   lamina_application_load_style ();
   window = lamina_window_new (NULL, library);
-  gtk_window_set_default_size (GTK_WINDOW (window), 1280, 800);
   gtk_window_present (GTK_WINDOW (window));
   wait_for_draw (GTK_WIDGET (window));
 
@@ -101,7 +146,18 @@ test_read_only_window (void)
   shown = lamina_document_get_construction (document);
   thickness = ((LaminaLayer *) shown->layers->pdata[1])->thickness;
 
-  /* An edit (the section's drag, the thickness field) is refused. */
+  /* No edit is offered: every edit button and thickness field is off,
+   * while exporting the sheet stays on. */
+  {
+    guint found = 0, live = 0;
+
+    count_edit_widgets (GTK_WIDGET (window), &found, &live);
+    g_assert_cmpuint (found, >=, 10);
+    g_assert_cmpuint (live, ==, 0);
+    g_assert_true (gtk_widget_is_sensitive (GTK_WIDGET (window)));
+  }
+
+  /* An edit all the same (the section's drag) is refused. */
   lamina_editor_resize_layer (lamina_window_get_editor (window), 1, thickness + 40, FALSE);
   wait_for_draw (GTK_WIDGET (window));
   shown = lamina_document_get_construction (document);
@@ -122,11 +178,59 @@ test_read_only_window (void)
   g_rmdir (dir);
 }
 
+/* The same window on the library opened for writing offers the edits:
+ * the count above is of widgets that can be on.  And the Xvfb screen holds
+ * the window at its default size. */
+static void
+test_writable_window (void)
+{
+  g_autoptr(GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("lamina-rw-window-XXXXXX", &error);
+  g_autofree char *path = g_build_filename (dir, "library.sqlite", NULL);
+  g_autoptr(LaminaLibrary) library = NULL;
+  LaminaWindow *window;
+  guint found = 0, live = 0;
+
+  library = lamina_library_open (path, LAMINA_LIBRARY_OPEN_DEFAULT, &error);
+  g_assert_no_error (error);
+  g_assert_true (lamina_demo_load (library, &error));
+  lamina_application_load_style ();
+  window = lamina_window_new (NULL, library);
+  gtk_window_present (GTK_WINDOW (window));
+  g_assert_true (lamina_window_open (window, "demo-ew-101", &error));
+  g_assert_no_error (error);
+  wait_for_draw (GTK_WIDGET (window));
+  count_edit_widgets (GTK_WIDGET (window), &found, &live);
+  g_assert_cmpuint (live, >=, 6);     /* add, duplicate, remove, move, new, thickness fields */
+
+  /* The Xvfb screen the window tests and build-aux/demo run on holds the
+   * window at its default size, so no screenshot is clipped. */
+  {
+    GListModel *monitors = gdk_display_get_monitors (gtk_widget_get_display (GTK_WIDGET (window)));
+    g_autoptr(GdkMonitor) monitor = g_list_model_get_item (monitors, 0);
+    GdkRectangle geometry;
+    int width = 0, height = 0;
+
+    gtk_window_get_default_size (GTK_WINDOW (window), &width, &height);
+    gdk_monitor_get_geometry (monitor, &geometry);
+    g_test_message ("window %d × %d on a screen of %d × %d", width, height, geometry.width, geometry.height);
+    g_assert_cmpint (width, >, 0);
+    g_assert_cmpint (geometry.width, >=, width);
+    g_assert_cmpint (geometry.height, >=, height);
+  }
+  gtk_window_destroy (GTK_WINDOW (window));
+  g_clear_object (&library);
+  g_remove (path);
+  g_rmdir (dir);
+}
+
 int
 main (int    argc,
       char **argv)
 {
   gtk_test_init (&argc, &argv, NULL);
   g_test_add_func ("/app/read-only-window", test_read_only_window);
+  g_test_add_func ("/app/writable-window", test_writable_window);
+
   return g_test_run ();
 }
