@@ -414,3 +414,29 @@ lamina_section_spread_within (const double *want,
       pos[j] = MAX (pos[j], limit);
     }
 }
+
+void
+lamina_section_layout_chain_labels (const LaminaSectionLayout *layout,
+                                    const LaminaSectionStyle  *style,
+                                    const double              *extent,
+                                    double                    *want,
+                                    double                    *pos,
+                                    double                    *moved,
+                                    double                    *scratch)
+{
+  double u = style->unit, total = fabs (layout->edges[layout->n_layers] - layout->edges[0]);
+  guint n = layout->n_layers;
+
+  for (guint i = 0; i < n; i++)
+    want[i] = (fabs (layout->edges[i] - layout->edges[0]) + fabs (layout->edges[i + 1] - layout->edges[0])) / 2;
+  /* Kept between the end extension lines; a label too big for its layer
+   * goes out beyond the ends of the inner extension lines on a leader. */
+  lamina_section_spread_within (want, extent, n, u * LAMINA_SECTION_LABEL_GAP, u * 0.15, total - u * 0.15,
+                                pos, scratch);
+  for (guint i = 0; i < n; i++)
+    {
+      double room = fabs (layout->edges[i + 1] - layout->edges[i]);
+
+      moved[i] = fabs (pos[i] - want[i]) > u * 0.1 || room < extent[i] + u * 0.3;
+    }
+}

@@ -58,4 +58,25 @@ void   lamina_section_spread_within     (const double *want,
                                          double       *pos,
                                          double       *scratch);
 
+/* The dimension chain's layer labels (pure): @extent[i] is label i's size
+ * along the thickness axis; on return @want holds the layers' middles,
+ * @pos the labels' centres, at least (extent_i + extent_j)/2 +
+ * LAMINA_SECTION_LABEL_GAP units apart so that none overlaps another, kept
+ * between the chain's ends where they fit, and @moved is non-zero for a
+ * label drawn off its layer on a leader.  @scratch needs 3n doubles. */
+#define LAMINA_SECTION_LABEL_GAP 0.25
+void   lamina_section_layout_chain_labels (const LaminaSectionLayout *layout,
+                                           const LaminaSectionStyle  *style,
+                                           const double              *extent,
+                                           double                    *want,
+                                           double                    *pos,
+                                           double                    *moved,
+                                           double                    *scratch);
+/* The labels' extents as the painter measures them (its fonts). */
+void   lamina_section_measure_chain_labels (LaminaSection             *self,
+                                            const LaminaSectionLayout *layout,
+                                            const LaminaConstruction  *construction,
+                                            const LaminaSectionStyle  *style,
+                                            double                    *extent);
+
 G_END_DECLS

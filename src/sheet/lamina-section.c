@@ -663,6 +663,28 @@ spread_labels (LaminaSection             *self,
   lamina_section_spread (want, size, n, gap, pos, pos + self->capacity);
 }
 
+void
+lamina_section_measure_chain_labels (LaminaSection             *self,
+                                     const LaminaSectionLayout *layout,
+                                     const LaminaConstruction  *construction,
+                                     const LaminaSectionStyle  *style,
+                                     double                    *extent)
+{
+  gboolean across = layout->orientation == LAMINA_SECTION_ACROSS;
+  char text[LAMINA_FORMAT_SIZE];
+
+  for (guint i = 0; i < layout->n_layers; i++)
+    {
+      double w, h;
+
+      lamina_format_layer_thickness (text, construction->layers->pdata[i]);
+      measure_text (self, text, style->unit * 0.85, &w, &h);
+      /* Across the chain a label takes its width; beside it (a floor or
+       * roof) its height, less the line gap below the digits. */
+      extent[i] = across ? w : h * 0.8;
+    }
+}
+
 static void
 draw_chain (LaminaSection             *self,
             cairo_t                   *cr,
@@ -675,26 +697,12 @@ draw_chain (LaminaSection             *self,
   double *want = self->scratch, *extent = want + self->capacity, *pos = extent + self->capacity;
   /* The spread's scratch takes 3 × capacity after pos; the flags follow. */
   double *moved = pos + 4 * self->capacity;
-  gboolean across = layout->orientation == LAMINA_SECTION_ACROSS;
   guint n = layout->n_layers;
   char text[LAMINA_FORMAT_SIZE];
   cairo_matrix_t matrix;
 
-  for (guint i = 0; i < n; i++)
-    {
-      double w, h;
-      want[i] = (edge_t (layout, i) + edge_t (layout, i + 1)) / 2;
-      lamina_format_layer_thickness (text, construction->layers->pdata[i]);
-      measure_text (self, text, size, &w, &h);
-      extent[i] = across ? w : h * 0.8;
-    }
-  /* Kept between the end extension lines; a label too big for its layer
-   * goes out beyond the ends of the inner extension lines on a leader. */
-  lamina_section_spread_within (want, extent, n, u * 0.25, u * 0.15, edge_t (layout, n) - u * 0.15,
-                                pos, pos + self->capacity);
-  for (guint i = 0; i < n; i++)
-    moved[i] = fabs (pos[i] - want[i]) > u * 0.1
-               || edge_t (layout, i + 1) - edge_t (layout, i) < extent[i] + u * 0.3;
+  lamina_section_measure_chain_labels (self, layout, construction, style, extent);
+  lamina_section_layout_chain_labels (layout, style, extent, want, pos, moved, pos + self->capacity);
 
   /* Lines in the local frame. */
   cairo_save (cr);

@@ -391,6 +391,77 @@ test_drag_sequence (void)
     }
 }
 
+/* The dimension chain of every demo construction, at the sizes the sheet
+ * (unit 7 pt, 0.2–0.4 of an A4 page), the window (its text unit, zoomed
+ * out to a quarter) and a small image draw it: no layer label overlaps
+ * another, a label that stays on its layer fits in it, and none leaves
+ * the drawing (common practice for dimension chains: every figure
+ * legible, thin layers taken out on leaders). */
+static void
+test_chain_labels_demo (void)
+{
+  g_autofree char *demo = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "demo", "lamina-demo.xml", NULL);
+  g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (demo, NULL);
+  g_autoptr(LaminaSection) painter = lamina_section_new ();
+  static const struct { double unit, width, height, zoom; } sizes[] = {
+    { 7, 481, 160, 1 }, { 7, 481, 320, 1 },       /* the sheet's section box */
+    { 11, 900, 240, 1 }, { 11, 900, 240, 0.5 }, { 11, 900, 240, 0.25 }, /* the window */
+    { 10, 400, 150, 1 }, { 10, 300, 300, 1 },     /* small PNGs */
+  };
+  guint checked = 0;
+
+  g_assert_nonnull (catalogue);
+  for (guint k = 0; k < catalogue->constructions->len; k++)
+    for (guint z = 0; z < G_N_ELEMENTS (sizes); z++)
+      {
+        const LaminaConstruction *c = catalogue->constructions->pdata[k];
+        LaminaSectionLayout layout;
+        LaminaSectionStyle style;
+        guint n = c->layers->len;
+        g_autofree double *extent = g_new0 (double, n);
+        g_autofree double *want = g_new0 (double, n);
+        g_autofree double *pos = g_new0 (double, n);
+        g_autofree double *moved = g_new0 (double, n);
+        g_autofree double *scratch = g_new0 (double, 3 * n);
+        double total, u, t_lo, t_hi;
+
+        lamina_section_style_init (&style, sizes[z].unit);
+        style.scale = lamina_section_fit_scale (c, &style, sizes[z].width, sizes[z].height) * sizes[z].zoom;
+        lamina_section_layout_init (&layout);
+        lamina_section_layout_compute (&layout, c, &style, 0, 0, sizes[z].width, sizes[z].height);
+        lamina_section_measure_chain_labels (painter, &layout, c, &style, extent);
+        lamina_section_layout_chain_labels (&layout, &style, extent, want, pos, moved, scratch);
+        total = fabs (layout.edges[n] - layout.edges[0]);
+        u = style.unit;
+        /* The drawing's rectangle along the thickness axis, in t (from the
+         * inner face outwards). */
+        {
+          double sign = layout.edges[n] >= layout.edges[0] ? 1 : -1;
+          gboolean across = layout.orientation == LAMINA_SECTION_ACROSS;
+          double a0 = across ? layout.x : layout.y, a1 = a0 + (across ? layout.width : layout.height);
+
+          t_lo = MIN (sign * (a0 - layout.edges[0]), sign * (a1 - layout.edges[0]));
+          t_hi = MAX (sign * (a0 - layout.edges[0]), sign * (a1 - layout.edges[0]));
+          g_assert_cmpfloat (t_lo, <=, 0);
+          g_assert_cmpfloat (t_hi, >=, total);
+        }
+        for (guint i = 0; i < n; i++)
+          {
+            if (i > 0 && pos[i] - pos[i - 1] < (extent[i] + extent[i - 1]) / 2 + LAMINA_SECTION_LABEL_GAP * u - 1e-9)
+              g_error ("%s at %g × %g (zoom %g): labels %u and %u overlap", c->code, sizes[z].width,
+                       sizes[z].height, sizes[z].zoom, i, i + 1);
+            if (moved[i] == 0 && fabs (layout.edges[i + 1] - layout.edges[i]) < extent[i])
+              g_error ("%s: label %u stays on a layer too thin for it", c->code, i + 1);
+            if (pos[i] - extent[i] / 2 < t_lo - 1e-9 || pos[i] + extent[i] / 2 > t_hi + 1e-9)
+              g_error ("%s at %g × %g (zoom %g): label %u leaves the drawing", c->code, sizes[z].width,
+                       sizes[z].height, sizes[z].zoom, i + 1);
+          }
+        lamina_section_layout_clear (&layout);
+        checked++;
+      }
+  g_assert_cmpuint (checked, ==, catalogue->constructions->len * G_N_ELEMENTS (sizes));
+}
+
 static void
 test_spread (void)
 {
@@ -515,6 +586,7 @@ main (int    argc,
   g_test_add_func ("/sheet/section/drag-sequence", test_drag_sequence);
   g_test_add_func ("/sheet/section/members-stay-inside", test_members_stay_inside);
   g_test_add_func ("/sheet/section/spread", test_spread);
+  g_test_add_func ("/sheet/section/chain-labels-demo", test_chain_labels_demo);
   g_test_add_func ("/sheet/section/spread-within", test_spread_within);
   g_test_add_func ("/sheet/section/heated-side", test_heated_side);
   g_test_add_func ("/sheet/format/u", test_format_u);
