@@ -876,7 +876,10 @@ sheet_draw_page (SheetContext             *ctx,
   if (ctx->moisture != NULL)
     {
       g_autofree char *summary = sheet_dup_moisture_summary (c, ctx->moisture, ctx->moisture_page);
-      char *joined = g_strconcat (warnings, *warnings ? "\n" : "", "→  ", summary, NULL);
+      /* A failed check is a warning like the engine's (mould, lasting
+       * condensation), not a plain note. */
+      char *joined = g_strconcat (warnings, *warnings ? "\n" : "",
+                                  lamina_moisture_result_fails (ctx->moisture) ? "⚠  " : "→  ", summary, NULL);
 
       g_free (warnings);
       warnings = joined;

@@ -720,35 +720,65 @@ has_words_in_order (const char *text,
   return TRUE;
 }
 
-/* The demo's sheets with long notes (FL-101, EW-101) print their
- * description and notes whole, going on to a continuation page where the first is
- * full (common practice: a specification is never cut short). */
-static void
-test_demo_notes_whole (void)
+/* The demo construction @code from the demo catalogue and its sheet's
+ * text (every page). */
+static char *
+dup_demo_sheet_text (const char                *code,
+                     LaminaConstruction       **construction)
 {
   g_autofree char *demo = g_build_filename (g_getenv ("LAMINA_SOURCE_DIR"), "data", "demo", "lamina-demo.xml", NULL);
   g_autoptr(LaminaCatalogue) catalogue = lamina_catalogue_read_file (demo, NULL);
   LaminaSheetOptions options;
-  guint checked = 0;
 
   g_assert_nonnull (catalogue);
   init_options (&options);
   for (guint k = 0; k < catalogue->constructions->len; k++)
     {
       const LaminaConstruction *c = catalogue->constructions->pdata[k];
-      g_autofree char *text = NULL;
 
-      if (g_strcmp0 (c->code, "FL-101") != 0 && g_strcmp0 (c->code, "EW-101") != 0)
+      if (g_strcmp0 (c->code, code) != 0)
         continue;
-      text = dup_sheet_text (c, &options);
+      *construction = lamina_construction_copy (c);
+      return dup_sheet_text (c, &options);
+    }
+  g_error ("%s: not in the demo catalogue", code);
+  return NULL;
+}
+
+/* The demo's sheets with long notes (FL-101, EW-101) print their
+ * description and notes whole, going on to a continuation page where the
+ * first is full (common practice: a specification is never cut short). */
+static void
+test_demo_notes_whole (void)
+{
+  static const char *const codes[] = { "FL-101", "EW-101" };
+
+  for (guint k = 0; k < G_N_ELEMENTS (codes); k++)
+    {
+      g_autoptr(LaminaConstruction) c = NULL;
+      g_autofree char *text = dup_demo_sheet_text (codes[k], &c);
+
       if (c->notes && !has_words_in_order (text, c->notes))
         g_error ("%s: the notes are not whole on the sheet: %s", c->code, text);
       if (c->description && !has_words_in_order (text, c->description))
         g_error ("%s: the description is not whole on the sheet", c->code);
       g_assert_null (strstr (text, "\xe2\x80\xa6"));
-      checked++;
     }
-  g_assert_cmpuint (checked, ==, 2);
+}
+
+/* A failed moisture check (EN ISO 13788:2012 clause 5, surface: the
+ * demo's solid brick wall EW-301, fRsi below fRsi,min) is flagged as a
+ * warning on the sheet; a passed one (EW-101) is a plain line. */
+static void
+test_moisture_failure_flagged (void)
+{
+  g_autoptr(LaminaConstruction) failing = NULL, passing = NULL;
+  g_autofree char *failed = dup_demo_sheet_text ("EW-301", &failing);
+  g_autofree char *passed = dup_demo_sheet_text ("EW-101", &passing);
+
+  assert_contains (failed, "⚠ Moisture (EN ISO 13788", "EW-301");
+  assert_contains (failed, "FAILS", "EW-301");
+  assert_contains (passed, "→ Moisture (EN ISO 13788", "EW-101");
 }
 
 /* Notes far longer than a page: every numbered sentence is printed, over
@@ -1081,6 +1111,7 @@ main (int    argc,
   g_test_add_func ("/sheet/pdf/moisture-page", test_moisture_page);
   g_test_add_func ("/sheet/pdf/method-sentences", test_method_sentences);
   g_test_add_func ("/sheet/pdf/demo-notes-whole", test_demo_notes_whole);
+  g_test_add_func ("/sheet/pdf/moisture-failure-flagged", test_moisture_failure_flagged);
   g_test_add_func ("/sheet/pdf/long-notes-continue", test_long_notes_continue);
   g_test_add_func ("/sheet/catalogue/moisture-pages", test_catalogue_moisture_pages);
   temp_dir = g_dir_make_tmp ("lamina-sheet-XXXXXX", NULL);
