@@ -93,7 +93,10 @@ draw_axes (cairo_t     *cr,
   cairo_rectangle (cr, f->x0, f->y0, f->w, f->h);
   cairo_stroke (cr);
   draw_label (cr, _("Pa"), f->x0 - 3, f->y0 - size, size, 1.0);
-  draw_label (cr, by_sd ? _("cumulative sd, m (inside → outside)") : _("thickness, mm (inside → outside)"),
+  /* The ticks are the layers' numbers, so the axis names what sets their
+   * widths rather than a unit no tick shows. */
+  draw_label (cr, by_sd ? _("layers, to scale of their sd (inside → outside)")
+                        : _("layers, to scale of their thickness (inside → outside)"),
               f->x0 + f->w / 2, f->y0 + f->h + 2.6 * size, size, 0.5);
 }
 
