@@ -558,7 +558,11 @@ draw_u_box (SheetContext             *ctx,
       /* The target as it was set (0.175 is not 0.18), and a U that misses
        * it with the digits that show the miss. */
       g_snprintf (t, sizeof t, "%g", c->target_u);
-      if (r->target_met)
+      /* Outside the method's scope (metal bridging, a wide gap between the
+       * limits) the target is not shown as met until a 2-D check is. */
+      if (r->target_met && lamina_field_is_advised (r) && ctx->field == NULL)
+        target = g_strdup_printf (_("⚠ U ≤ %s by EN ISO 6946 only"), t);
+      else if (r->target_met)
         target = g_strdup_printf (_("✓ Meets the target U ≤ %s"), t);
       else
         target = g_strdup_printf (_("✗ U %s > target %s"),

@@ -366,6 +366,21 @@ test_warnings_printed (void)
   assert_contains (text, "Warnings", c->code);
   assert_contains (text, "⚠", c->code);
   check_sheet_text (text, c);
+  g_unlink (path);
+
+  /* A target it meets by EN ISO 6946 is not shown as met: the result is
+   * outside the method's scope until a numerical check (EN ISO 10211)
+   * confirms it. */
+  c->target_u = 2.0;
+  g_assert_true (lamina_sheet_write_pdf (path, FALSE, &options, c, &error));
+  g_assert_no_error (error);
+  {
+    g_autoptr(PopplerDocument) scoped = open_pdf (path);
+    g_autofree char *scoped_text = dup_page_text (scoped, 0);
+
+    assert_contains (scoped_text, "⚠ U ≤ 2 by EN ISO 6946 only", c->code);
+    g_assert_null (strstr (scoped_text, "Meets the target"));
+  }
   {
     g_autoptr(PopplerPage) page = poppler_document_get_page (doc, 0);
     check_layer_rows (page, c);
