@@ -10,6 +10,7 @@
 #include <math.h>
 
 #include "lamina-dynamic-view.h"
+#include "lamina-field.h"
 #include "lamina-figure-grid.h"
 #include "lamina-number.h"
 #include "lamina-text.h"
@@ -237,6 +238,15 @@ update_target (LaminaResultsView        *self,
       return;
     }
   target = lamina_text_number (construction->target_u, 2);
+  /* Outside the method's scope (metal bridging, limits far apart) a met
+   * target is not ticked: the 2-D check has to confirm it. */
+  if (result->target_met && lamina_field_is_advised (result))
+    {
+      text = g_strdup_printf (_("⚠ Meets the target U of %s by EN ISO 6946 only: confirm with the 2-D check"),
+                              target);
+      gtk_label_set_text (self->target_label, text);
+      return;
+    }
   if (result->target_met)
     text = g_strdup_printf (_("✓ Meets the target U of %s"), target);
   else
