@@ -6,4 +6,4 @@ if ! command -v xvfb-run >/dev/null 2>&1; then
   echo "1..0 # SKIP xvfb-run is not installed"
   exit 0
 fi
-exec xvfb-run -a -s "-screen 0 1440x900x24" "$@"
+exec xvfb-run -a -s "-screen 0 1280x800x24" "$@"
