@@ -76,7 +76,7 @@ count_pages (const LaminaSheetOptions *options,
              const LaminaConstruction *c,
              const LaminaResult       *r,
              const LaminaFieldResult  *field,
-             const char               *job_use,
+             const LaminaJobLine      *job_line,
              guint                    *pages,
              GError                  **error)
 {
@@ -84,7 +84,7 @@ count_pages (const LaminaSheetOptions *options,
 
   if (count_extra_pages (c) > 0 && (moisture = dup_moisture (c, options, error)) == NULL)
     return FALSE;
-  *pages = sheet_count_pages (options, c, r, field, moisture, job_use) + count_extra_pages (c);
+  *pages = sheet_count_pages (options, c, r, field, moisture, job_line) + count_extra_pages (c);
   return TRUE;
 }
 
@@ -221,12 +221,11 @@ write_pages (cairo_surface_t          *surface,
         {
           g_autoptr(LaminaConstruction) c = source->fetch (source->fetch_data, i, error);
           g_autoptr(LaminaResult) r = NULL;
-          const char *use = source->job_set != NULL
-                            ? ((const LaminaJobLine *) source->job_set->sheets->pdata[i])->entry->use : NULL;
+          const LaminaJobLine *line = source->job_set != NULL ? source->job_set->sheets->pdata[i] : NULL;
           guint pages;
 
           if (c == NULL || (r = calculate (c, error)) == NULL
-              || !count_pages (options, c, r, NULL, use, &pages, error))
+              || !count_pages (options, c, r, NULL, line, &pages, error))
             {
               sheet_context_clear (&ctx);
               return FALSE;
@@ -312,8 +311,8 @@ write_pages (cairo_surface_t          *surface,
       /* The 2-D check's summary was not on the sheet when the pages were
        * counted: a single sheet's count follows what it adds. */
       if (field != NULL)
-        ctx.n_pages += sheet_count_pages (options, c, r, field, moisture, ctx.job_use)
-                       - sheet_count_pages (options, c, r, NULL, moisture, ctx.job_use);
+        ctx.n_pages += sheet_count_pages (options, c, r, field, moisture, ctx.job_line)
+                       - sheet_count_pages (options, c, r, NULL, moisture, ctx.job_line);
       sheet_draw_page (&ctx, c, r);
       ctx.dest = NULL;
       cairo_show_page (cr);

@@ -941,7 +941,7 @@ sheet_count_pages (const LaminaSheetOptions   *options,
                    const LaminaResult         *result,
                    const LaminaFieldResult    *field,
                    const LaminaMoistureResult *moisture,
-                   const char                 *job_use)
+                   const LaminaJobLine        *job_line)
 {
   /* The same drawing on a pixel of its own: the sheet's text is laid out
    * with unhinted metrics at 72 dpi, so the breaks fall as in the PDF. */
@@ -955,7 +955,7 @@ sheet_count_pages (const LaminaSheetOptions   *options,
   dry.field = field;
   dry.moisture = moisture;
   dry.moisture_page = moisture != NULL;
-  dry.job_use = job_use;
+  dry.job_line = job_line;
   sheet_draw_page (&dry, c, result);
   pages = dry.page;
   sheet_context_clear (&dry);

@@ -152,7 +152,7 @@ guint  sheet_count_pages     (const LaminaSheetOptions   *options,
                               const LaminaResult         *result,
                               const LaminaFieldResult    *field,
                               const LaminaMoistureResult *moisture,
-                              const char                 *job_use);
+                              const LaminaJobLine        *job_line);
 void   sheet_draw_cover      (SheetContext   *ctx,
                               guint           n);
 /* Rows @first … @first + count − 1 of the index; returns rows drawn. */
