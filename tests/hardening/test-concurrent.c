@@ -397,6 +397,8 @@ test_create_race (void)
               c = lamina_hardening_make_wall (mine, w);
               c->id = g_strdup_printf ("first-%u", w);
               g_free (lamina_library_create_construction (mine, c, "Author", &error));
+              if (error != NULL)
+                g_printerr ("worker %u: saving: %s\n", w, error->message);
               g_object_unref (mine);
               _exit (error == NULL ? 0 : 1);
             }
