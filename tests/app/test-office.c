@@ -324,12 +324,17 @@ on_opened_cb (LaminaOfficeDialog *dialog,
   *opened = TRUE;
 }
 
-/* Until the dialog's connection attempt has ended (made, refused). */
+/* Until the dialog's connection attempt has ended (made, refused). A
+ * dialog that opened its library closes itself and may be freed while
+ * the loop runs: a weak pointer says so. */
 static void
 wait_connected (LaminaOfficeDialog *dialog)
 {
-  while (dialog->connecting != NULL)
+  g_object_add_weak_pointer (G_OBJECT (dialog), (gpointer *) &dialog);
+  while (dialog != NULL && dialog->connecting != NULL)
     g_main_context_iteration (NULL, TRUE);
+  if (dialog != NULL)
+    g_object_remove_weak_pointer (G_OBJECT (dialog), (gpointer *) &dialog);
 }
 
 /* A server's library that cannot be opened (nothing listens on port 1;
